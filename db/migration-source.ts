@@ -1,0 +1,14 @@
+import type { Knex } from "knex";
+import * as core from "../migrations/20261201_001_core";
+
+// Migrations are listed here rather than found on disk so that the same list runs under
+// the CLI script, Vitest and the bundled Next.js server alike. Add new ones at the end.
+const migrations: Record<string, Knex.Migration> = {
+  "20261201_001_core": core,
+};
+
+export const migrationSource: Knex.MigrationSource<string> = {
+  getMigrations: async () => Object.keys(migrations),
+  getMigrationName: (name) => name,
+  getMigration: async (name) => migrations[name],
+};

@@ -1,0 +1,303 @@
+// The one table of facts behind every Duffbank calculation. Each value names its source,
+// or says "common practice, no source" or "from memory", so a reader can judge how far to
+// trust it. Derived values are computed here from the exact NIST factors rather than typed
+// in, so a change to a definition cannot leave a stale copy behind.
+
+// ---------------------------------------------------------------------------------------
+// Units — NIST Handbook 44, Appendix C (exact by definition)
+// ---------------------------------------------------------------------------------------
+
+/** NIST HB44 App. C: 1 inch = 0.0254 m exactly. */
+export const INCH_M = 0.0254;
+/** NIST HB44 App. C: 1 foot = 12 inches; 1 yard = 3 feet. */
+export const INCHES_PER_FOOT = 12;
+export const FEET_PER_YARD = 3;
+/** NIST HB44 App. C: 1 US liquid gallon = 231 cubic inches exactly. */
+export const US_GALLON_IN3 = 231;
+/** NIST HB44 App. C: 1 avoirdupois pound = 0.45359237 kg exactly. */
+export const POUND_KG = 0.45359237;
+/** SI (NIST SP 811): 1 litre = 1 dm³ = 0.001 m³ exactly. */
+export const LITRE_M3 = 0.001;
+/** Water at garden temperatures is 1 kg per litre to within 0.3 %, close enough to add water by weight (common practice, no source). */
+export const WATER_KG_PER_L = 1;
+
+// Derived: 0.3048 m, 0.9144 m, 231 × 0.0254³ = 0.003785411784 m³.
+export const FOOT_M = INCHES_PER_FOOT * INCH_M;
+export const YARD_M = FEET_PER_YARD * FOOT_M;
+export const US_GALLON_M3 = US_GALLON_IN3 * INCH_M ** 3;
+
+// Density conversions, derived:
+//   1 lb/US gal = 0.45359237 kg / 0.003785411784 m³ = 119.826427 kg/m³
+//   1 lb/yd³    = 0.45359237 kg / 0.764554857984 m³ = 0.593276 kg/m³
+const KG_M3_PER_LB_PER_GAL = POUND_KG / US_GALLON_M3;
+const KG_M3_PER_LB_PER_YD3 = POUND_KG / YARD_M ** 3;
+
+// ---------------------------------------------------------------------------------------
+// Materials
+// ---------------------------------------------------------------------------------------
+
+export type MaterialCode =
+  | "cardboard"
+  | "leaves"
+  | "straw"
+  | "worms"
+  | "grass_clippings"
+  | "coffee_grounds"
+  | "wood_chips"
+  | "manure"
+  | "compost";
+
+export const MATERIAL_CODES: readonly MaterialCode[] = [
+  "cardboard",
+  "leaves",
+  "straw",
+  "worms",
+  "grass_clippings",
+  "coffee_grounds",
+  "wood_chips",
+  "manure",
+  "compost",
+];
+
+export interface MaterialFacts {
+  code: MaterialCode;
+  name: string;
+  /** Nitrogen, % of dry mass. */
+  n_pct: number | null;
+  /** Carbon to nitrogen, by mass. */
+  cn_ratio: number | null;
+  /** Water, % of mass as is (wet basis). */
+  moisture_pct: number;
+  /** Mass per volume as the material is usually handed over (loose, or in the bale). */
+  bulk_density_kg_m3: number;
+  default_unit: "m2" | "m3" | "kg";
+  /**
+   * How many times the delivered volume the material fills once spread on a bed. Only
+   * straw, which arrives compressed in a bale, has one; absent means 1.
+   */
+  spread_factor?: number;
+  source: string;
+}
+
+const NRAES = "NRAES-54 (On-Farm Composting Handbook, 1992) Table A.1";
+const MST = "Missouri S&T compost-mixture table";
+
+// Baled 7–12 lb/ft³ against loose 1–3 lb/ft³ (biomass handling texts; publisher not
+// verified, so common practice) puts the ratio anywhere from about 2.3 to 12. A built bed
+// is watered and settles toward the dense end of "loose", so we take 3: it sits near the
+// low end, which errs toward asking for one bale too many rather than one too few.
+/** Spread volume one bale covers = bale volume × this factor (common practice, no source; reasoning above). */
+export const BALE_EXPANSION_FACTOR = 3;
+
+export const MATERIALS: Record<MaterialCode, MaterialFacts> = {
+  cardboard: {
+    code: "cardboard",
+    name: "Corrugated cardboard",
+    n_pct: 0.1,
+    cn_ratio: 563,
+    moisture_pct: 8,
+    // 0.5 lb/gal × 119.826 = 59.9 kg/m³; US EPA ORCR (2016) gives 106 lb/yd³ = 62.9 kg/m³, a good match.
+    bulk_density_kg_m3: 0.5 * KG_M3_PER_LB_PER_GAL,
+    default_unit: "m2",
+    source: `%N, C:N, moisture: ${NRAES}; density 0.5 lb/US gal: ${MST}`,
+  },
+  leaves: {
+    code: "leaves",
+    name: "Fallen leaves",
+    n_pct: 0.9,
+    cn_ratio: 54,
+    moisture_pct: 38,
+    // Loose dry leaves 1 lb/gal × 119.826 = 119.8 kg/m³ (compacted: 2 lb/gal).
+    bulk_density_kg_m3: 1 * KG_M3_PER_LB_PER_GAL,
+    default_unit: "m3",
+    source: `%N, C:N, moisture: ${NRAES}; density 1 lb/US gal (loose, dry): ${MST}`,
+  },
+  straw: {
+    code: "straw",
+    name: "Straw",
+    n_pct: 0.7,
+    cn_ratio: 80,
+    moisture_pct: 12,
+    // 1 lb/gal × 119.826 = 119.8 kg/m³ = 7.5 lb/ft³, inside the baled range (7–12 lb/ft³),
+    // and a 5.25 ft³ bale at that density weighs 39 lb, about what a small bale weighs —
+    // so we read this figure as straw in the bale, and spread it by BALE_EXPANSION_FACTOR.
+    bulk_density_kg_m3: 1 * KG_M3_PER_LB_PER_GAL,
+    default_unit: "m3",
+    spread_factor: BALE_EXPANSION_FACTOR,
+    source: `%N, C:N, moisture: ${NRAES} (straw, general); density 1 lb/US gal: ${MST}, read as baled`,
+  },
+  worms: {
+    code: "worms",
+    name: "Composting worms (Eisenia fetida)",
+    n_pct: null,
+    cn_ratio: null,
+    // Worms are sold and stocked by weight and never enter the blend, so these two only
+    // keep the table complete: living tissue is mostly water and about as dense as water.
+    moisture_pct: 80,
+    bulk_density_kg_m3: 1000,
+    default_unit: "kg",
+    source: "from memory (moisture about 80 %, density about that of water; neither is used in a calculation)",
+  },
+  grass_clippings: {
+    code: "grass_clippings",
+    name: "Grass clippings",
+    n_pct: 3.4,
+    cn_ratio: 17,
+    moisture_pct: 82,
+    // Loose 1.7 lb/gal × 119.826 = 203.7 kg/m³ (compacted: 3.2 lb/gal).
+    bulk_density_kg_m3: 1.7 * KG_M3_PER_LB_PER_GAL,
+    default_unit: "m3",
+    source: `%N, C:N, moisture: ${NRAES}; density 1.7 lb/US gal (loose): ${MST}`,
+  },
+  coffee_grounds: {
+    code: "coffee_grounds",
+    name: "Used coffee grounds",
+    n_pct: 2.3,
+    cn_ratio: 20,
+    // Table A.1 gives 75–80 %; we take the middle.
+    moisture_pct: 77.5,
+    // 7 lb/gal × 119.826 = 838.8 kg/m³.
+    bulk_density_kg_m3: 7 * KG_M3_PER_LB_PER_GAL,
+    default_unit: "kg",
+    source: `%N (about 2.3), C:N, moisture (75–80, midpoint): ${NRAES}; density 7 lb/US gal: ${MST}`,
+  },
+  wood_chips: {
+    code: "wood_chips",
+    name: "Wood chips",
+    // Table A.1 gives no %N for chips. Dry plant matter is about half carbon (from memory;
+    // the Table A.1 rows above work out to 46–58 % C), so %N ≈ 50 / 560 = 0.09.
+    n_pct: 0.09,
+    cn_ratio: 560,
+    moisture_pct: 45,
+    // Green chips 473 lb/yd³ × 0.593276 = 280.6 kg/m³ (dry chips: 243 lb/yd³ = 144.2 kg/m³);
+    // free chips from tree crews are green.
+    bulk_density_kg_m3: 473 * KG_M3_PER_LB_PER_YD3,
+    default_unit: "m3",
+    source:
+      `C:N 560 (hardwood chips): ${NRAES}; %N derived from it assuming 50 % carbon (from memory); ` +
+      "moisture 45 % for fresh chips: from memory; density 473 lb/yd³ (green): Oregon DEQ conversion factors (2005)",
+  },
+  manure: {
+    code: "manure",
+    name: "Horse manure",
+    n_pct: 1.6,
+    cn_ratio: 30,
+    moisture_pct: 72,
+    // 6.8 lb/gal × 119.826 = 814.8 kg/m³.
+    bulk_density_kg_m3: 6.8 * KG_M3_PER_LB_PER_GAL,
+    default_unit: "m3",
+    source: `%N, C:N, moisture: ${NRAES} (horse manure); density 6.8 lb/US gal: ${MST}`,
+  },
+  compost: {
+    code: "compost",
+    name: "Finished compost",
+    // Finished compost varies too much from batch to batch for one figure, and none of our
+    // sources gives one: a blend with compost must carry the supplier's own analysis.
+    n_pct: null,
+    cn_ratio: null,
+    moisture_pct: 45,
+    // Middle of 1,000–1,600 lb/yd³: 1,300 × 0.593276 = 771.3 kg/m³.
+    bulk_density_kg_m3: 1300 * KG_M3_PER_LB_PER_YD3,
+    default_unit: "m3",
+    source:
+      "density 1,000–1,600 lb/yd³ (midpoint): recycling-measurement guidance, common practice; " +
+      "moisture 45 %: from memory; %N and C:N: none — ask the supplier",
+  },
+};
+
+// ---------------------------------------------------------------------------------------
+// Layer defaults and allowed ranges (common practice, no source, unless stated)
+// ---------------------------------------------------------------------------------------
+
+/** A flattened moving box, roughly (common practice, no source). */
+export const DEFAULT_CARDBOARD_SHEET = { length_m: 1.0, width_m: 0.8 } as const;
+/** Seams overlapped about 6 in (common practice, no source). */
+export const CARDBOARD_OVERLAP_CM = { default: 15, min: 10, max: 30 } as const;
+/**
+ * Areal mass of single-wall corrugated board: two liners and a fluted medium come to
+ * roughly 0.4–0.6 kg/m² (from memory; no published figure at hand), so 0.5.
+ */
+export const CARDBOARD_KG_PER_M2 = 0.5;
+
+/** Depth of each loose layer, cm. Leaves 4–6 in, straw about 2 in (common practice, no source); chips from memory. */
+export const LAYER_DEPTH_CM = {
+  leaves: { default: 12.5, min: 5, max: 30 },
+  straw: { default: 5, min: 2, max: 15 },
+  wood_chips: { default: 7.5, min: 2, max: 15 },
+} as const;
+
+/** Paper lawn-and-leaf bag, 30 US gal = 0.1136 m³ = 4.01 ft³ (common practice, no source). */
+export const BAG_US_GAL = 30;
+export const BAG_M3 = BAG_US_GAL * US_GALLON_M3;
+
+/** Two-string small square bale, 14 × 18 × 36 in = 5.25 ft³ = 0.1487 m³ (common practice, no source). */
+export const BALE_IN = { height: 14, width: 18, length: 36 } as const;
+export const BALE_M3 = BALE_IN.height * BALE_IN.width * BALE_IN.length * INCH_M ** 3;
+/** A small bale weighs 40–60 lb, 18–27 kg (common practice, no source). */
+export const BALE_MASS_LB = { min: 40, max: 60 } as const;
+
+// ---------------------------------------------------------------------------------------
+// Targets
+// ---------------------------------------------------------------------------------------
+
+/**
+ * Moisture, % wet basis: 50–60 ideal, 40–65 acceptable (The Composting Handbook, Rynk ed.,
+ * 2022, Table 4.2). The squeeze test — a drop or two, no steady drip — is the same 50–60 %
+ * (Cornell, Composting in the Classroom). Default target: the middle of the ideal band.
+ */
+export const MOISTURE_PCT = { ideal_min: 50, ideal_max: 60, min: 40, max: 65, target: 55 } as const;
+/** C:N 25–40 ideal, 20–60 acceptable (The Composting Handbook, 2022, Table 4.2). */
+export const CN_RATIO = { ideal_min: 25, ideal_max: 40, min: 20, max: 60 } as const;
+
+// ---------------------------------------------------------------------------------------
+// Worms
+// ---------------------------------------------------------------------------------------
+
+/**
+ * No published stocking density for an outdoor bed was found; this is a named, overridable
+ * default. 0.5 kg/m² is about 1 lb per 10 ft², enough to seed a population that grows into
+ * the food on offer (from memory / common practice, no source).
+ */
+export const WORM_STOCKING_KG_PER_M2 = 0.5;
+/** About 1,000 worms per lb (800–1,000; common practice, no source): 1000 / 0.45359237 = 2,204.6 per kg. */
+export const WORMS_PER_KG = 1000 / POUND_KG;
+
+// ---------------------------------------------------------------------------------------
+// Safety
+// ---------------------------------------------------------------------------------------
+
+/** NIOSH recommended weight limit under ideal conditions: 51 lb (23 kg). */
+export const NIOSH_LIFT_LIMIT_KG = 23;
+export const NIOSH_LIFT_LIMIT_LB = 51;
+
+// ---------------------------------------------------------------------------------------
+// Timeline
+// ---------------------------------------------------------------------------------------
+
+/** A new bed dries out or waterlogs fastest in its first weeks (common practice, no source). */
+export const MOISTURE_CHECK_DAYS = [3, 7, 14, 21] as const;
+/** Worms go in 7–14 days after the layers, once any heating has passed (common practice, no source). */
+export const WORMS_AFTER_DAYS = { default: 10, min: 7, max: 14 } as const;
+/**
+ * Settling in the first months; cardboard breaks down over several months (Oregon State
+ * Extension), 6–9 months before planting is typical advice; most material transformed by
+ * month 12 (common practice, no source).
+ */
+export const BED_MONTHS = { settling: 3, half_year: 6, ready: 12 } as const;
+/**
+ * When each top-up material is plentiful: fallen leaves in October–November (April–May
+ * south of the equator), grass clippings in June–July (December–January south). Common
+ * practice, no source. Each event is dated the 15th of the season's first month.
+ */
+export const TOP_UP_SEASONS = {
+  leaves: {
+    north: { month: 10, day: 15, months: "October or November" },
+    south: { month: 4, day: 15, months: "April or May" },
+  },
+  clippings: {
+    north: { month: 6, day: 15, months: "June or July" },
+    south: { month: 12, day: 15, months: "December or January" },
+  },
+} as const;
+/** A top-up within a month of building only repeats the build (common practice, no source). */
+export const TOP_UP_MIN_DAYS_AFTER_BUILD = 30;

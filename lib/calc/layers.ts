@@ -1,0 +1,49 @@
+import { BAG_M3, BALE_EXPANSION_FACTOR, BALE_M3, MATERIALS, type MaterialCode } from "./facts";
+
+// Whole units are bought and carried, and a float a hair over a whole number must not
+// round up to an extra bag.
+const EPS = 1e-9;
+const wholeUnits = (x: number) => (x <= 0 ? 0 : Math.ceil(x - EPS));
+
+function assertNonNegativeFinite(name: string, value: number): void {
+  if (!Number.isFinite(value) || value < 0) {
+    throw new RangeError(`${name} must be a non-negative finite number, got ${value}`);
+  }
+}
+
+/** m³ of a layer `depth_cm` deep over `area_m2`. */
+export function layerVolume(area_m2: number, depth_cm: number): number {
+  assertNonNegativeFinite("area_m2", area_m2);
+  assertNonNegativeFinite("depth_cm", depth_cm);
+  return (area_m2 * depth_cm) / 100;
+}
+
+/**
+ * kg in `m3` of a material. By default `m3` is the volume as handed over (loose, or in the
+ * bale); with `spread: true` it is the volume on the bed, which for baled straw holds only
+ * 1 / spread_factor as much material.
+ */
+export function massFromVolume(material: MaterialCode, m3: number, opts: { spread?: boolean } = {}): number {
+  assertNonNegativeFinite("m3", m3);
+  const facts = MATERIALS[material];
+  const spread = opts.spread ? (facts.spread_factor ?? 1) : 1;
+  return (m3 * facts.bulk_density_kg_m3) / spread;
+}
+
+/** Bags of `bag_m3` needed to hold `m3`. */
+export function bagsFor(m3: number, bag_m3: number = BAG_M3): number {
+  assertNonNegativeFinite("m3", m3);
+  if (!(bag_m3 > 0)) throw new RangeError("bag_m3 must be positive");
+  return wholeUnits(m3 / bag_m3);
+}
+
+/** Bales needed to spread `m3_spread` on a bed: each bale covers bale_m3 × expansion once loosened. */
+export function balesFor(
+  m3_spread: number,
+  bale_m3: number = BALE_M3,
+  expansion: number = BALE_EXPANSION_FACTOR,
+): number {
+  assertNonNegativeFinite("m3_spread", m3_spread);
+  if (!(bale_m3 > 0) || !(expansion >= 1)) throw new RangeError("bale_m3 must be positive and expansion at least 1");
+  return wholeUnits(m3_spread / (bale_m3 * expansion));
+}

@@ -1,0 +1,77 @@
+// Everything is stored and computed in SI; this is the one place that turns it into what a
+// gardener reads. Every factor comes from the exact NIST definitions in facts.ts.
+import { FOOT_M, INCH_M, LITRE_M3, POUND_KG, US_GALLON_M3, YARD_M } from "./facts";
+
+export type UnitSystem = "metric" | "imperial";
+export type DisplayUnit = "m" | "m2" | "m3" | "cm" | "l" | "kg";
+
+const FT3_M3 = FOOT_M ** 3;
+const YD3_M3 = YARD_M ** 3;
+
+export const mToFt = (m: number) => m / FOOT_M;
+export const ftToM = (ft: number) => ft * FOOT_M;
+export const m2ToFt2 = (m2: number) => m2 / FOOT_M ** 2;
+export const ft2ToM2 = (ft2: number) => ft2 * FOOT_M ** 2;
+export const cmToIn = (cm: number) => cm / 100 / INCH_M;
+export const inToCm = (inches: number) => inches * INCH_M * 100;
+export const m3ToFt3 = (m3: number) => m3 / FT3_M3;
+export const m3ToYd3 = (m3: number) => m3 / YD3_M3;
+export const yd3ToM3 = (yd3: number) => yd3 * YD3_M3;
+export const lToUsGal = (l: number) => (l * LITRE_M3) / US_GALLON_M3;
+export const usGalToL = (gal: number) => (gal * US_GALLON_M3) / LITRE_M3;
+export const m3ToUsGal = (m3: number) => m3 / US_GALLON_M3;
+export const kgToLb = (kg: number) => kg / POUND_KG;
+export const lbToKg = (lb: number) => lb * POUND_KG;
+
+/** An SI value in the unit a gardener using `system` would expect, with its symbol. */
+export function toDisplay(
+  value: number,
+  unit: DisplayUnit,
+  system: UnitSystem,
+): { value: number; symbol: string } {
+  if (system === "metric") return { value, symbol: METRIC_SYMBOL[unit] };
+  switch (unit) {
+    case "m":
+      return { value: mToFt(value), symbol: "ft" };
+    case "m2":
+      return { value: m2ToFt2(value), symbol: "ft²" };
+    case "cm":
+      return { value: cmToIn(value), symbol: "in" };
+    case "m3": {
+      // Bed-sized volumes read better in cubic feet; a load from a supplier in cubic yards.
+      const yd3 = m3ToYd3(value);
+      return Math.abs(yd3) >= 1 ? { value: yd3, symbol: "yd³" } : { value: m3ToFt3(value), symbol: "ft³" };
+    }
+    case "l":
+      return { value: lToUsGal(value), symbol: "US gal" };
+    case "kg":
+      return { value: kgToLb(value), symbol: "lb" };
+  }
+}
+
+const METRIC_SYMBOL: Record<DisplayUnit, string> = {
+  m: "m",
+  m2: "m²",
+  m3: "m³",
+  cm: "cm",
+  l: "L",
+  kg: "kg",
+};
+
+// Three significant figures is as precise as any of the densities behind these numbers;
+// more digits would promise accuracy the facts don't have.
+const SIGNIFICANT = 3;
+
+function roundForDisplay(value: number): string {
+  if (value === 0 || !Number.isFinite(value)) return String(value);
+  const magnitude = Math.floor(Math.log10(Math.abs(value)));
+  const decimals = Math.max(0, SIGNIFICANT - 1 - magnitude);
+  const rounded = Number(value.toFixed(decimals));
+  // Fixed locale so the server and the browser render the same string.
+  return rounded.toLocaleString("en-US", { maximumFractionDigits: decimals });
+}
+
+export function formatQuantity(value: number, unit: DisplayUnit, system: UnitSystem): string {
+  const shown = toDisplay(value, unit, system);
+  return `${roundForDisplay(shown.value)} ${shown.symbol}`;
+}

@@ -1,0 +1,165 @@
+import { createHmac } from "node:crypto";
+import { newId } from "./errors";
+import type { FakeStripeState, RequestInfo, StripeEvent, StripeObject } from "./types";
+
+// Stripe signs `${timestamp}.${payload}` with HMAC-SHA256 keyed by the endpoint secret and
+// sends `Stripe-Signature: t=<timestamp>,v1=<hex>` (docs.stripe.com/webhooks#verify-manually),
+// which is exactly what stripe.webhooks.constructEvent checks.
+export function signatureHeader(payload: string, secret: string, timestampSeconds: number): string {
+  const v1 = createHmac("sha256", secret).update(`${timestampSeconds}.${payload}`, "utf8").digest("hex");
+  return `t=${timestampSeconds},v1=${v1}`;
+}
+
+export interface WebhookOptions {
+  url: string | null;
+  secret: string;
+  apiVersion: string;
+  /** Milliseconds since the epoch, like Date.now; also used for the signature timestamp. */
+  now: () => number;
+  retry: { baseMs: number; maxAttempts: number };
+  /** How long one delivery may take before it counts as failed. */
+  timeoutMs?: number;
+  log?: (line: string) => void;
+}
+
+/**
+ * Records events and delivers them in the background. Each object (a session, an intent,
+ * a refund) has its own queue, so its events arrive in the order they happened and a
+ * retry for one object never holds back another's. Delivery never delays the API answer.
+ */
+export class WebhookDispatcher {
+  private url: string | null;
+  private readonly queues = new Map<string, Promise<void>>();
+  private readonly timers = new Set<{ timer: NodeJS.Timeout; resolve: () => void }>();
+  private readonly inFlight = new Set<AbortController>();
+  private closed = false;
+
+  constructor(
+    private readonly state: FakeStripeState,
+    private readonly opts: WebhookOptions,
+  ) {
+    this.url = opts.url;
+  }
+
+  setUrl(url: string | null): void {
+    this.url = url;
+  }
+
+  emit(type: string, object: StripeObject, request: RequestInfo | null): StripeEvent {
+    const event: StripeEvent = {
+      id: newId("evt_"),
+      object: "event",
+      api_version: this.opts.apiVersion,
+      created: Math.floor(this.opts.now() / 1000),
+      // A snapshot: later changes to the object must not rewrite what this event said.
+      data: { object: structuredClone(object) },
+      livemode: false,
+      pending_webhooks: this.url ? 1 : 0,
+      request: { id: request?.id ?? null, idempotency_key: request?.idempotencyKey ?? null },
+      type,
+    };
+    this.state.events.set(event.id, event);
+    if (this.url && !this.closed) this.enqueue(object.id, event);
+    return event;
+  }
+
+  /** Resolves once every queued delivery has succeeded or used up its attempts. */
+  async idle(): Promise<void> {
+    while (this.queues.size > 0) {
+      await Promise.all([...this.queues.values()]);
+    }
+  }
+
+  close(): void {
+    this.closed = true;
+    for (const t of this.timers) {
+      clearTimeout(t.timer);
+      t.resolve();
+    }
+    this.timers.clear();
+    for (const controller of this.inFlight) controller.abort();
+  }
+
+  private enqueue(objectId: string, event: StripeEvent): void {
+    const previous = this.queues.get(objectId) ?? Promise.resolve();
+    const next = previous.then(() => this.deliver(objectId, event));
+    this.queues.set(objectId, next);
+    void next.finally(() => {
+      if (this.queues.get(objectId) === next) this.queues.delete(objectId);
+    });
+  }
+
+  private async deliver(objectId: string, event: StripeEvent): Promise<void> {
+    const payload = JSON.stringify(event, null, 2);
+    const { baseMs, maxAttempts } = this.opts.retry;
+    for (let attempt = 1; attempt <= maxAttempts; attempt++) {
+      const url = this.url;
+      if (this.closed || !url) return;
+      const ok = await this.attempt(objectId, event, payload, url, attempt);
+      if (ok) {
+        const stored = this.state.events.get(event.id);
+        if (stored) stored.pending_webhooks = 0;
+        return;
+      }
+      if (attempt < maxAttempts) {
+        const delay = baseMs * 2 ** (attempt - 1);
+        this.opts.log?.(`webhook ${event.type} ${event.id} attempt ${attempt} failed; retrying in ${delay} ms`);
+        await this.sleep(delay);
+      } else {
+        this.opts.log?.(`webhook ${event.type} ${event.id} gave up after ${maxAttempts} attempts`);
+      }
+    }
+  }
+
+  private async attempt(
+    objectId: string,
+    event: StripeEvent,
+    payload: string,
+    url: string,
+    attempt: number,
+  ): Promise<boolean> {
+    const controller = new AbortController();
+    this.inFlight.add(controller);
+    const timeout = setTimeout(() => controller.abort(), this.opts.timeoutMs ?? 10_000);
+    const at = this.opts.now();
+    const record = { eventId: event.id, type: event.type, objectId, attempt, url, at };
+    try {
+      const res = await fetch(url, {
+        method: "POST",
+        headers: {
+          "Content-Type": "application/json; charset=utf-8",
+          "User-Agent": "Stripe/1.0 (+https://stripe.com/docs/webhooks) duffbank-local-fake",
+          "Stripe-Signature": signatureHeader(payload, this.opts.secret, Math.floor(at / 1000)),
+        },
+        body: payload,
+        // Stripe counts a redirect as a failed delivery; following it would hide that.
+        redirect: "manual",
+        signal: controller.signal,
+      });
+      await res.arrayBuffer().catch(() => undefined);
+      const ok = res.status >= 200 && res.status < 300;
+      this.state.deliveries.push({ ...record, status: res.status, ok });
+      return ok;
+    } catch (err) {
+      const error = err instanceof Error ? (err.cause instanceof Error ? err.cause.message : err.message) : String(err);
+      this.state.deliveries.push({ ...record, status: null, ok: false, error });
+      return false;
+    } finally {
+      clearTimeout(timeout);
+      this.inFlight.delete(controller);
+    }
+  }
+
+  private sleep(ms: number): Promise<void> {
+    return new Promise((resolve) => {
+      const entry = {
+        timer: setTimeout(() => {
+          this.timers.delete(entry);
+          resolve();
+        }, ms),
+        resolve,
+      };
+      this.timers.add(entry);
+    });
+  }
+}

@@ -1,0 +1,13 @@
+import { deliverOutbox } from "@/lib/mail/deliver-outbox";
+
+export type Clock = () => Date;
+
+export interface Job {
+  name: string;
+  everyMs: number;
+  run: (clock: Clock) => Promise<unknown>;
+}
+
+// Background work; each job keeps its state in the database, so a restart loses nothing.
+// Later features add theirs here (hold expiry, timeline reminders).
+export const jobs: Job[] = [{ name: "deliver-outbox", everyMs: 2_000, run: (clock) => deliverOutbox(clock) }];

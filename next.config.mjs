@@ -1,0 +1,8 @@
+/** @type {import('next').NextConfig} */
+const nextConfig = {
+  serverExternalPackages: ["knex", "better-sqlite3", "sharp", "smtp-server", "mailparser"],
+  poweredByHeader: false,
+  typedRoutes: false,
+};
+
+export default nextConfig;
