@@ -95,9 +95,10 @@ route("GET", "/v1/payment_intents/:id", (ctx, p, [id]) => present(ctx, getPaymen
 route("POST", "/v1/payment_intents/:id", (ctx, p, [id]) => {
   rejectUnknown(p, ["metadata", "description", "receipt_email"]);
   const pi = getPaymentIntent(ctx.ops, id);
-  pi.metadata = metadata(p, "metadata", pi.metadata);
-  if (p.description !== undefined) pi.description = optString(p, "description");
-  if (p.receipt_email !== undefined) pi.receipt_email = optString(p, "receipt_email");
+  const meta = metadata(p, "metadata", pi.metadata);
+  const description = p.description !== undefined ? optString(p, "description") : pi.description;
+  const email = p.receipt_email !== undefined ? optString(p, "receipt_email") : pi.receipt_email;
+  Object.assign(pi, { metadata: meta, description, receipt_email: email });
   return present(ctx, pi, p);
 });
 route("POST", "/v1/payment_intents/:id/confirm", (ctx, p, [id]) => {
@@ -106,8 +107,10 @@ route("POST", "/v1/payment_intents/:id/confirm", (ctx, p, [id]) => {
 });
 route("POST", "/v1/payment_intents/:id/capture", (ctx, p, [id]) => {
   rejectUnknown(p, ["amount_to_capture", "metadata"]);
-  const pi = capturePaymentIntent(ctx.ops, id, optInteger(p, "amount_to_capture", "amount_to_capture", 1));
-  pi.metadata = metadata(p, "metadata", pi.metadata);
+  const amount = optInteger(p, "amount_to_capture", "amount_to_capture", 1);
+  const meta = metadata(p, "metadata", getPaymentIntent(ctx.ops, id).metadata);
+  const pi = capturePaymentIntent(ctx.ops, id, amount);
+  pi.metadata = meta;
   return present(ctx, pi, p);
 });
 route("POST", "/v1/payment_intents/:id/cancel", (ctx, p, [id]) => {

@@ -122,6 +122,14 @@ export function createSession(ops: Ops, params: Params, publicBaseUrl: string): 
     optEnum(intentData, "capture_method", ["automatic", "automatic_async", "manual"], "payment_intent_data[capture_method]") ??
     "automatic";
 
+  const template = {
+    // automatic_async differs from automatic only in when Stripe settles; same outcome here.
+    capture_method: capture === "manual" ? ("manual" as const) : ("automatic" as const),
+    metadata: metadata(intentData, "metadata", {}, "payment_intent_data[metadata]"),
+    description: optString(intentData, "description", "payment_intent_data[description]"),
+  };
+  const receiptEmail = optString(intentData, "receipt_email", "payment_intent_data[receipt_email]");
+
   const created = ops.nowSeconds();
   const expiresAt = optInteger(params, "expires_at") ?? created + MAX_EXPIRY_SECONDS;
   if (expiresAt < created + MIN_EXPIRY_SECONDS || expiresAt > created + MAX_EXPIRY_SECONDS) {
@@ -156,12 +164,7 @@ export function createSession(ops: Ops, params: Params, publicBaseUrl: string): 
   };
   ops.state.checkoutSessions.set(id, session);
   ops.state.sessionLineItems.set(id, items);
-  ops.state.sessionIntentTemplates.set(id, {
-    // automatic_async differs from automatic only in when Stripe settles; same outcome here.
-    capture_method: capture === "manual" ? "manual" : "automatic",
-    metadata: metadata(intentData, "metadata", {}, "payment_intent_data[metadata]"),
-    description: optString(intentData, "description", "payment_intent_data[description]"),
-  });
+  ops.state.sessionIntentTemplates.set(id, { ...template, receipt_email: receiptEmail ?? session.customer_email });
   return session;
 }
 
@@ -180,7 +183,7 @@ export function paySession(ops: Ops, id: string, attempt: CardAttempt): PaymentE
       capture_method: template.capture_method,
       metadata: { ...template.metadata },
       description: template.description,
-      receipt_email: session.customer_email,
+      receipt_email: template.receipt_email,
     });
     session.payment_intent = pi.id;
   }

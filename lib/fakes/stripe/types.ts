@@ -130,6 +130,7 @@ export interface SessionIntentTemplate {
   capture_method: "automatic" | "manual";
   metadata: Metadata;
   description: string | null;
+  receipt_email: string | null;
 }
 
 export type StripeObject = PaymentIntent | Charge | Refund | CheckoutSession;
