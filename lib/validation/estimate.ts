@@ -1,0 +1,121 @@
+// Input to POST /api/estimate and the estimate form. Every issue carries the path of the
+// field it is about, so the handler can put a message beside each field.
+import { z } from "zod";
+import { isValidRing, polygonArea } from "@/lib/calc/area";
+import { CARDBOARD_OVERLAP_CM, LAYER_DEPTH_CM, MOISTURE_PCT } from "@/lib/calc/facts";
+import { isCalendarDate } from "@/lib/calc/timeline";
+
+/** A product limit, not a fact: a hectare is already a market garden, not a bed. */
+export const MAX_BED_AREA_M2 = 10_000;
+/** Longest side we accept; the area cap is the real limit. */
+const MAX_SIDE_M = 1_000;
+/** Outline detail we accept per ring; a hand-drawn bed needs a few dozen points at most. */
+const MAX_RING_POSITIONS = 1_000;
+const MAX_RINGS = 20;
+
+const side = (label: string) =>
+  z
+    .number({ error: `${label} must be a number of metres` })
+    .positive(`${label} must be more than 0 m`)
+    .max(MAX_SIDE_M, `${label} must be at most ${MAX_SIDE_M} m`);
+
+const position = z.tuple(
+  [
+    z.number().min(-180, "longitude must be between -180 and 180").max(180, "longitude must be between -180 and 180"),
+    z.number().min(-90, "latitude must be between -90 and 90").max(90, "latitude must be between -90 and 90"),
+  ],
+  z.number(),
+);
+
+const polygonGeometry = z.object({
+  type: z.literal("Polygon"),
+  coordinates: z
+    .array(z.array(position).min(4, "a ring needs at least 4 positions").max(MAX_RING_POSITIONS))
+    .min(1, "the polygon needs an outline")
+    .max(MAX_RINGS),
+});
+
+const bedSchema = z
+  .object({
+    length_m: side("length").optional(),
+    width_m: side("width").optional(),
+    polygon: polygonGeometry.optional(),
+  })
+  .superRefine((bed, ctx) => {
+    const hasSides = bed.length_m !== undefined || bed.width_m !== undefined;
+    if (bed.polygon && hasSides) {
+      ctx.addIssue({ code: "custom", path: [], message: "Give either an outline or a length and width, not both" });
+      return;
+    }
+    if (bed.polygon) {
+      const bad = bed.polygon.coordinates.findIndex((ring) => !isValidRing(ring));
+      if (bad >= 0) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["polygon", "coordinates", bad],
+          message: "The outline must be closed and must not cross itself",
+        });
+      } else if (polygonArea(bed.polygon) > MAX_BED_AREA_M2) {
+        ctx.addIssue({ code: "custom", path: ["polygon"], message: `A bed can be at most ${MAX_BED_AREA_M2.toLocaleString("en-US")} m²` });
+      }
+      return;
+    }
+    if (bed.length_m === undefined) ctx.addIssue({ code: "custom", path: ["length_m"], message: "Give the bed's length" });
+    if (bed.width_m === undefined) ctx.addIssue({ code: "custom", path: ["width_m"], message: "Give the bed's width" });
+    if (bed.length_m !== undefined && bed.width_m !== undefined && bed.length_m * bed.width_m > MAX_BED_AREA_M2) {
+      ctx.addIssue({ code: "custom", path: [], message: `A bed can be at most ${MAX_BED_AREA_M2.toLocaleString("en-US")} m²` });
+    }
+  })
+  .transform((bed): { length_m: number; width_m: number } | { polygon: z.infer<typeof polygonGeometry> } =>
+    bed.polygon ? { polygon: bed.polygon } : { length_m: bed.length_m!, width_m: bed.width_m! },
+  );
+
+const inRange = (what: string, unit: string, r: { min: number; max: number }) =>
+  z.number().min(r.min, `${what} must be at least ${r.min} ${unit}`).max(r.max, `${what} must be at most ${r.max} ${unit}`);
+
+const ON_OFF_OR_SETTINGS = "Use true, false or an object of settings";
+
+const depthLayer = (r: { min: number; max: number }) =>
+  z.union([z.boolean(), z.object({ depth_cm: inRange("depth", "cm", r).optional() })], { error: ON_OFF_OR_SETTINGS });
+
+// Sheets shorter than this could not overlap a 30 cm seam and still cover anything.
+const sheetSide = z.number().min(0.35, "a sheet side must be at least 0.35 m").max(5, "a sheet side must be at most 5 m");
+
+export const layersSchema = z.object({
+  cardboard: z
+    .union([
+      z.boolean(),
+      z.object({
+        overlap_cm: inRange("overlap", "cm", CARDBOARD_OVERLAP_CM).optional(),
+        sheet_length_m: sheetSide.optional(),
+        sheet_width_m: sheetSide.optional(),
+      }),
+    ], { error: ON_OFF_OR_SETTINGS })
+    .optional(),
+  leaves: depthLayer(LAYER_DEPTH_CM.leaves).optional(),
+  straw: depthLayer(LAYER_DEPTH_CM.straw).optional(),
+  wood_chips: depthLayer(LAYER_DEPTH_CM.wood_chips).optional(),
+  worms: z
+    .union([
+      z.boolean(),
+      z.object({ kg_per_m2: z.number().positive("stocking must be more than 0 kg/m²").max(5, "stocking must be at most 5 kg/m²").optional() }),
+    ], { error: ON_OFF_OR_SETTINGS })
+    .optional(),
+});
+
+/**
+ * A layer left out of `layers` (or `layers` itself left out) takes its default: cardboard,
+ * leaves, straw and worms on, wood chips off. `true` means on with the default settings.
+ * When the bed is an outline and no latitude is given, the outline's centre gives it.
+ */
+export const estimateSchema = z.object({
+  bed: bedSchema,
+  layers: layersSchema.optional(),
+  start_date: z.string().refine(isCalendarDate, "Give a real date as YYYY-MM-DD").optional(),
+  latitude: z.number().min(-90, "latitude must be between -90 and 90").max(90, "latitude must be between -90 and 90").optional(),
+  target_moisture_pct: inRange("target moisture", "%", MOISTURE_PCT).optional(),
+});
+
+export type EstimateInput = z.infer<typeof estimateSchema>;
+export type EstimateRequest = z.input<typeof estimateSchema>;
+export type EstimateLayers = z.infer<typeof layersSchema>;
