@@ -3,6 +3,7 @@ const nextConfig = {
   serverExternalPackages: ["knex", "better-sqlite3", "sharp", "smtp-server", "mailparser"],
   poweredByHeader: false,
   typedRoutes: false,
+  experimental: { authInterrupts: true },
 };
 
 export default nextConfig;

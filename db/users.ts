@@ -2,7 +2,7 @@ import { db, newId, nowIso, type Db } from "./index";
 import type { MembershipRow, UserRoleRow, UserRow } from "./types";
 import type { Role } from "@/lib/auth/roles";
 
-const USER_COLUMNS = [
+const USER_COLUMNS: string[] = [
   "id",
   "email",
   "email_verified_at",
@@ -14,18 +14,18 @@ const USER_COLUMNS = [
   "verified_at",
   "created_at",
   "updated_at",
-] as const;
+];
 
 export function normaliseEmail(email: string): string {
   return email.trim().toLowerCase();
 }
 
 export async function findUserByEmail(email: string, q: Db = db()): Promise<UserRow | undefined> {
-  return q<UserRow>("users").select(USER_COLUMNS).where("email", normaliseEmail(email)).first();
+  return (await q("users").first(USER_COLUMNS).where("email", normaliseEmail(email))) as UserRow | undefined;
 }
 
 export async function findUserById(id: string, q: Db = db()): Promise<UserRow | undefined> {
-  return q<UserRow>("users").select(USER_COLUMNS).where("id", id).first();
+  return (await q("users").first(USER_COLUMNS).where("id", id)) as UserRow | undefined;
 }
 
 export async function insertUser(

@@ -17,7 +17,7 @@ function toAdapterUser(row: UserRow): AdapterUser {
 
 export function knexAdapter(): Adapter {
   return {
-    async createUser(user) {
+    async createUser(user: Omit<AdapterUser, "id">) {
       const row = await db().transaction(async (trx) => {
         const created = await insertUser(
           {

@@ -1,0 +1,41 @@
+import Link from "next/link";
+import type { Metadata } from "next";
+import { pageUser } from "@/lib/auth/page-guard";
+import { db } from "@/db/index";
+import { EmptyState, PageHeading } from "@/components/ui/empty-state";
+import { buttonClass } from "@/components/ui/button";
+import { formatQuantity } from "@/lib/calc/units";
+
+export const metadata: Metadata = { title: "My beds" };
+
+export default async function BedsPage() {
+  const user = await pageUser("/beds", ["gardener"]);
+  const beds: { id: string; name: string; area_m2: number; start_date: string | null }[] = await db()("beds")
+    .select("id", "name", "area_m2", "start_date")
+    .where({ owner_id: user.id })
+    .orderBy("created_at", "desc");
+  return (
+    <div>
+      <PageHeading title="My beds" lead="Each bed keeps its recipe, its material list and its year of reminders." />
+      {beds.length === 0 ? (
+        <EmptyState title="No beds yet" action={<Link className={buttonClass()} href="/plan">Plan a bed</Link>}>
+          Start with the size of the patch you want to cover.
+        </EmptyState>
+      ) : (
+        <ul className="grid gap-3 md:grid-cols-2">
+          {beds.map((b) => (
+            <li key={b.id} className="rounded-lg bg-white p-4 ring-1 ring-humus-200">
+              <Link href={`/beds/${b.id}`} className="font-semibold text-moss-700 underline-offset-4 hover:underline">
+                {b.name}
+              </Link>
+              <p className="text-sm text-humus-600">
+                {formatQuantity(b.area_m2, "m2", user.unit_system)}
+                {b.start_date ? ` · built ${b.start_date}` : ""}
+              </p>
+            </li>
+          ))}
+        </ul>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,20 @@
+import Link from "next/link";
+import type { Metadata } from "next";
+import { SignUpForm } from "@/components/auth/sign-up-form";
+import { PageHeading } from "@/components/ui/empty-state";
+
+export const metadata: Metadata = { title: "Join" };
+
+export default function SignUpPage() {
+  return (
+    <div className="mx-auto max-w-md">
+      <PageHeading
+        title="Join Duffbank"
+        lead={<>Every account can plan beds and collect material. To give material away, tick it on your profile afterwards. Already joined? <Link className="text-moss-700 underline" href="/sign-in">Sign in</Link>.</>}
+      />
+      <div className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
+        <SignUpForm />
+      </div>
+    </div>
+  );
+}

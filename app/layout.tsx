@@ -1,0 +1,36 @@
+import type { Metadata, Viewport } from "next";
+import type { ReactNode } from "react";
+import "./globals.css";
+import { Providers } from "./providers";
+import { SiteHeader } from "@/components/shell/site-header";
+import { currentUser } from "@/lib/auth/current-user";
+
+export const metadata: Metadata = {
+  title: { default: "Duffbank", template: "%s · Duffbank" },
+  description: "Plan a no-dig bed, find the leaves, straw, cardboard and worms it needs nearby, and pass on what you have spare.",
+  icons: { icon: "/icon.svg" },
+};
+
+export const viewport: Viewport = { width: "device-width", initialScale: 1, themeColor: "#40642e" };
+
+export default async function RootLayout({ children }: { children: ReactNode }) {
+  const user = await currentUser();
+  return (
+    <html lang="en">
+      <body className="flex min-h-screen flex-col">
+        <Providers>
+          <SiteHeader user={user} />
+          <main id="main" className="mx-auto w-full max-w-6xl flex-1 px-4 py-8">
+            {children}
+          </main>
+          <footer className="border-t border-humus-200 bg-humus-100 px-4 py-6 text-sm text-humus-700">
+            <div className="mx-auto max-w-6xl">
+              Duffbank passes spare organic material on to new garden beds. Quantities are estimates; follow local rules and licensed advice on safety,
+              water and waste.
+            </div>
+          </footer>
+        </Providers>
+      </body>
+    </html>
+  );
+}

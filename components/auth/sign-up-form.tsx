@@ -1,0 +1,61 @@
+"use client";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { signIn } from "next-auth/react";
+import { useRouter } from "next/navigation";
+import { z } from "zod";
+import { signUpSchema } from "@/lib/validation/auth";
+import { apiFetch, isApiError } from "@/lib/api/client";
+import { Field } from "@/components/ui/field";
+import { Button } from "@/components/ui/button";
+import { Notice } from "@/components/ui/notice";
+
+type Values = z.input<typeof signUpSchema>;
+
+export function SignUpForm() {
+  const router = useRouter();
+  const [error, setError] = useState<string | null>(null);
+  const form = useForm<Values>({ resolver: zodResolver(signUpSchema), defaultValues: { email: "", display_name: "", password: "", unit_system: "metric" } });
+
+  const onSubmit = form.handleSubmit(async (values) => {
+    setError(null);
+    try {
+      await apiFetch("/api/users", { method: "POST", body: values });
+    } catch (err) {
+      if (isApiError(err) && err.fields) {
+        for (const [name, message] of Object.entries(err.fields)) form.setError(name as keyof Values, { message });
+      }
+      setError(isApiError(err) ? err.message : "We could not create the account. Please try again.");
+      return;
+    }
+    const res = await signIn("credentials", { email: values.email, password: values.password, redirect: false });
+    if (res?.error) {
+      router.push("/sign-in");
+      return;
+    }
+    router.push("/profile?welcome=1");
+    router.refresh();
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-2">
+      {error ? <Notice tone="error">{error}</Notice> : null}
+      <Field label="Your name" autoComplete="name" hint="Shown to the people you collect from or give to." {...form.register("display_name")} error={form.formState.errors.display_name?.message} />
+      <Field label="E-mail" type="email" autoComplete="email" {...form.register("email")} error={form.formState.errors.email?.message} />
+      <Field label="Password" type="password" autoComplete="new-password" hint="At least 10 characters." {...form.register("password")} error={form.formState.errors.password?.message} />
+      <fieldset className="flex flex-col gap-2 pb-4">
+        <legend className="font-medium">Measure in</legend>
+        <label className="flex items-center gap-2">
+          <input type="radio" value="metric" {...form.register("unit_system")} className="h-5 w-5" /> metres, litres and kilograms
+        </label>
+        <label className="flex items-center gap-2">
+          <input type="radio" value="imperial" {...form.register("unit_system")} className="h-5 w-5" /> feet, gallons and pounds
+        </label>
+      </fieldset>
+      <Button type="submit" disabled={form.formState.isSubmitting}>
+        {form.formState.isSubmitting ? "Creating your account…" : "Create my account"}
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,75 @@
+"use client";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useRouter } from "next/navigation";
+import { z } from "zod";
+import { profileSchema } from "@/lib/validation/auth";
+import { apiFetch, isApiError } from "@/lib/api/client";
+import { Field } from "@/components/ui/field";
+import { Button } from "@/components/ui/button";
+import { Notice } from "@/components/ui/notice";
+import type { Role } from "@/lib/auth/roles";
+
+type Values = z.input<typeof profileSchema>;
+
+export function ProfileForm({ initial, roles, requested }: { initial: Values; roles: Role[]; requested: Role[] }) {
+  const router = useRouter();
+  const [saved, setSaved] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  const form = useForm<Values>({ resolver: zodResolver(profileSchema), defaultValues: initial });
+
+  const onSubmit = form.handleSubmit(async (values) => {
+    setSaved(false);
+    setError(null);
+    try {
+      await apiFetch("/api/me", { method: "PATCH", body: values });
+      setSaved(true);
+      router.refresh();
+    } catch (err) {
+      setError(isApiError(err) ? err.message : "Saving failed. Please try again.");
+    }
+  });
+
+  const roleBox = (role: "supplier" | "grower", label: string, note: string) => {
+    const has = roles.includes(role);
+    const waiting = requested.includes(role);
+    return (
+      <label className="flex items-start gap-3 rounded-lg p-2 ring-1 ring-humus-200">
+        <input type="checkbox" value={role} disabled={has || waiting} defaultChecked={has || waiting} {...form.register("requested_roles")} className="mt-1 h-5 w-5" />
+        <span>
+          <span className="font-medium">{label}</span>
+          <span className="block text-sm text-humus-600">{has ? "You have this." : waiting ? "Asked for — a moderator will look at it soon." : note}</span>
+        </span>
+      </label>
+    );
+  };
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3">
+      {saved ? <Notice title="Saved">Your profile is up to date.</Notice> : null}
+      {error ? <Notice tone="error">{error}</Notice> : null}
+      <Field label="Your name" {...form.register("display_name")} error={form.formState.errors.display_name?.message} />
+      <fieldset className="flex flex-col gap-2">
+        <legend className="font-medium">Measure in</legend>
+        <label className="flex items-center gap-2">
+          <input type="radio" value="metric" {...form.register("unit_system")} className="h-5 w-5" /> metres, litres and kilograms
+        </label>
+        <label className="flex items-center gap-2">
+          <input type="radio" value="imperial" {...form.register("unit_system")} className="h-5 w-5" /> feet, gallons and pounds
+        </label>
+      </fieldset>
+      <label className="flex items-center gap-2">
+        <input type="checkbox" {...form.register("reminders_opt_out")} className="h-5 w-5" /> Do not e-mail me bed reminders
+      </label>
+      <fieldset className="flex flex-col gap-2">
+        <legend className="font-medium">I would also like to</legend>
+        {roleBox("supplier", "Give material away or sell it", "Post leaves, cardboard, straw and more. Open to everyone.")}
+        {roleBox("grower", "Sell composting worms", "Live cultures need a quick check by our team first.")}
+      </fieldset>
+      <Button type="submit" disabled={form.formState.isSubmitting} className="self-start">
+        {form.formState.isSubmitting ? "Saving…" : "Save profile"}
+      </Button>
+    </form>
+  );
+}

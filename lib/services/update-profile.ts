@@ -1,0 +1,25 @@
+import "server-only";
+import { db } from "@/db/index";
+import { rolesOf, setRole, updateUser } from "@/db/users";
+import { recordAudit } from "@/db/audit";
+import type { ProfileInput } from "@/lib/validation/auth";
+import type { Role } from "@/lib/auth/roles";
+
+// Giving away material is open to anyone (trust comes from the verified badge and reviews),
+// so a supplier request is granted at once. Selling live animals is not: a grower request
+// waits for a moderator.
+const GRANTED_AT_ONCE: Role[] = ["supplier"];
+
+export async function updateProfile(userId: string, input: ProfileInput) {
+  await db().transaction(async (trx) => {
+    await updateUser(userId, { display_name: input.display_name, unit_system: input.unit_system, reminders_opt_out: input.reminders_opt_out }, trx);
+    const current = await rolesOf(userId, trx);
+    for (const role of input.requested_roles) {
+      const had = current.find((r) => r.role === role);
+      if (had && had.status !== "refused") continue;
+      const status = GRANTED_AT_ONCE.includes(role) ? "active" : "requested";
+      await setRole(userId, role, status, trx);
+      await recordAudit({ actor_id: userId, action: `role.${status === "active" ? "granted" : "requested"}`, subject_type: "user", subject_id: userId, after: { role, status } }, trx);
+    }
+  });
+}
