@@ -1,0 +1,148 @@
+// What a bed needs, from its size and the layers chosen. The input is whatever
+// estimateSchema accepts (layers left out take their defaults here, so a caller that skips
+// the schema gets the same answer as one that uses it).
+import type { Polygon } from "geojson";
+import type { EstimateInput } from "@/lib/validation/estimate";
+import { polygonArea, polygonCentroid, rectangleArea } from "./area";
+import { type BlendComponent, blend, blendAdvice } from "./blend";
+import { cardboardFor } from "./cardboard";
+import { estimateCautions } from "./cautions";
+import { CARDBOARD_KG_PER_M2, LAYER_DEPTH_CM, MOISTURE_PCT, WORM_STOCKING_KG_PER_M2 } from "./facts";
+import { bagsFor, balesFor, layerVolume, massFromVolume } from "./layers";
+import { type TimelineEvent, timeline } from "./timeline";
+import { lToUsGal } from "./units";
+import { wormsFor } from "./worms";
+
+export interface CardboardLine {
+  material: "cardboard";
+  quantity: number;
+  unit: "m2";
+  sheets: number;
+  mass_kg: number;
+}
+export interface VolumeLine<M extends "leaves" | "straw" | "wood_chips"> {
+  material: M;
+  quantity: number;
+  unit: "m3";
+  mass_kg: number;
+  depth_cm: number;
+}
+export interface WormsLine {
+  material: "worms";
+  quantity: number;
+  unit: "kg";
+  count: number;
+}
+export type NeedLine =
+  | CardboardLine
+  | (VolumeLine<"leaves"> & { bags: number })
+  | (VolumeLine<"straw"> & { bales: number })
+  | VolumeLine<"wood_chips">
+  | WormsLine;
+
+export interface EstimateResult {
+  area_m2: number;
+  needs: NeedLine[];
+  water_l: number;
+  water_us_gal: number;
+  /** Null ratios when no layer that composts was chosen. */
+  blend: { cn_ratio: number | null; moisture_pct: number | null; advice: string | null };
+  timeline: TimelineEvent[];
+  cautions: string[];
+  centroid?: { lat: number; lng: number };
+}
+
+type BedShape = { length_m: number; width_m: number } | { polygon: Polygon };
+
+const round = (x: number, places: number) => {
+  const f = 10 ** places;
+  return Math.round(x * f) / f;
+};
+const M3 = 3;
+const KG = 2;
+
+type Setting<T> = boolean | T | undefined;
+/** undefined → the layer's default, true → on with defaults, false → off, object → on with those settings. */
+function setting<T extends object>(value: Setting<T>, onByDefault: boolean): Partial<T> | null {
+  if (value === undefined) return onByDefault ? {} : null;
+  if (typeof value === "boolean") return value ? {} : null;
+  return value;
+}
+
+function todayUtc(now: Date): string {
+  return now.toISOString().slice(0, 10);
+}
+
+/**
+ * `now` only supplies the start date when the input has none, so the function stays pure
+ * for a given input and clock.
+ */
+export function estimate(input: EstimateInput, now: Date = new Date()): EstimateResult {
+  // Only the shape matters below; a parsed bed never carries both forms.
+  const bed: BedShape = "polygon" in input.bed ? { polygon: input.bed.polygon } : { length_m: input.bed.length_m, width_m: input.bed.width_m };
+  const area = "polygon" in bed ? polygonArea(bed.polygon) : rectangleArea(bed.length_m, bed.width_m);
+  const centroid = "polygon" in bed ? polygonCentroid(bed.polygon) : undefined;
+  const layers = input.layers ?? {};
+  const cardboard = setting(layers.cardboard, true);
+  const leaves = setting(layers.leaves, true);
+  const straw = setting(layers.straw, true);
+  const chips = setting(layers.wood_chips, false);
+  const worms = setting(layers.worms, true);
+
+  const needs: NeedLine[] = [];
+  const composting: BlendComponent[] = [];
+
+  if (cardboard) {
+    const sheets = cardboardFor(bed, cardboard);
+    const mass = sheets.area_m2 * CARDBOARD_KG_PER_M2;
+    needs.push({ material: "cardboard", quantity: round(sheets.area_m2, 2), unit: "m2", sheets: sheets.sheets, mass_kg: round(mass, KG) });
+    composting.push({ material: "cardboard", mass_kg: mass });
+  }
+  const spreadLayer = <M extends "leaves" | "straw" | "wood_chips">(material: M, depth_cm: number) => {
+    const m3 = layerVolume(area, depth_cm);
+    const mass = massFromVolume(material, m3, { spread: true });
+    composting.push({ material, mass_kg: mass });
+    return { m3, line: { material, quantity: round(m3, M3), unit: "m3" as const, mass_kg: round(mass, KG), depth_cm } };
+  };
+  if (leaves) {
+    const { m3, line } = spreadLayer("leaves", leaves.depth_cm ?? LAYER_DEPTH_CM.leaves.default);
+    needs.push({ ...line, bags: bagsFor(m3) });
+  }
+  if (straw) {
+    const { m3, line } = spreadLayer("straw", straw.depth_cm ?? LAYER_DEPTH_CM.straw.default);
+    needs.push({ ...line, bales: balesFor(m3) });
+  }
+  if (chips) {
+    needs.push(spreadLayer("wood_chips", chips.depth_cm ?? LAYER_DEPTH_CM.wood_chips.default).line);
+  }
+  if (worms) {
+    const w = wormsFor(area, worms.kg_per_m2 ?? WORM_STOCKING_KG_PER_M2);
+    needs.push({ material: "worms", quantity: round(w.kg, KG), unit: "kg", count: w.count });
+  }
+
+  const target = input.target_moisture_pct ?? MOISTURE_PCT.target;
+  const mix = composting.length > 0 ? blend(composting, target) : null;
+  const water_l = mix?.water_to_target_l ?? 0;
+  const latitude = input.latitude ?? centroid?.lat ?? null;
+
+  return {
+    area_m2: round(area, 2),
+    needs,
+    water_l: round(water_l, 1),
+    water_us_gal: round(lToUsGal(water_l), 1),
+    blend: {
+      cn_ratio: mix ? round(mix.cn_ratio, 1) : null,
+      moisture_pct: mix ? round(mix.moisture_pct, 1) : null,
+      advice: mix ? blendAdvice(mix) : null,
+    },
+    timeline: timeline(input.start_date ?? todayUtc(now), latitude, { worms: worms !== null }),
+    cautions: estimateCautions({
+      cardboard: cardboard !== null,
+      leaves: leaves !== null,
+      straw: straw !== null,
+      wood_chips: chips !== null,
+      worms: worms !== null,
+    }),
+    ...(centroid ? { centroid } : {}),
+  };
+}

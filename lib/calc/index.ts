@@ -1,0 +1,13 @@
+// The public face of lib/calc: pure functions, no I/O, safe to import anywhere.
+export * from "./facts";
+export * from "./units";
+export * from "./area";
+export * from "./cardboard";
+export * from "./layers";
+export * from "./water";
+export * from "./blend";
+export * from "./worms";
+export * from "./timeline";
+export * from "./diversion";
+export * from "./cautions";
+export * from "./estimate";
