@@ -1,0 +1,60 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { freshDb } from "../helpers/db";
+import { startSmtpFake, type SmtpFake } from "@/lib/fakes/smtp/server";
+import { resetMailTransport } from "@/lib/mail/transport";
+import { enqueueEmail } from "@/db/outbox";
+import { deliverOutbox, retryDelayMs } from "@/lib/mail/deliver-outbox";
+
+let ctx: Awaited<ReturnType<typeof freshDb>>;
+let smtp: SmtpFake;
+
+beforeAll(async () => {
+  ctx = await freshDb();
+  smtp = await startSmtpFake();
+  process.env.SMTP_PORT = String(smtp.smtpPort);
+  resetMailTransport();
+});
+afterAll(async () => {
+  await smtp.close();
+  await ctx.close();
+});
+
+describe("the local SMTP fake and its inbox", () => {
+  it("keeps what it receives and serves it as JSON and HTML", async () => {
+    await enqueueEmail({ to: "a@example.test", subject: "Hello <there>", text: "Plain body", html: "<p>HTML body</p>", template: "test" });
+    expect(await deliverOutbox()).toEqual({ sent: 1, failed: 0 });
+    const json = await (await fetch(`${smtp.inboxUrl}/messages.json?to=a@example.test`)).json();
+    expect(json.messages).toHaveLength(1);
+    expect(json.messages[0]).toMatchObject({ subject: "Hello <there>", to: ["a@example.test"] });
+    expect(json.messages[0].text.trim()).toBe("Plain body");
+    const page = await (await fetch(smtp.inboxUrl)).text();
+    expect(page).toContain("Hello &lt;there&gt;");
+  });
+
+  it("loses nothing while the SMTP server is down, and sends each message once when it is back", async () => {
+    const port = smtp.smtpPort;
+    await smtp.close();
+    for (let i = 0; i < 3; i++) await enqueueEmail({ to: "b@example.test", subject: `Queued ${i}`, text: "x", template: "test", dedupe_key: `q${i}` });
+    await enqueueEmail({ to: "b@example.test", subject: "Queued 0", text: "x", template: "test", dedupe_key: "q0" }); // same key: kept once
+    const t0 = new Date();
+    expect(await deliverOutbox(() => t0)).toEqual({ sent: 0, failed: 3 });
+    const pending = await ctx.db("email_outbox").where({ status: "pending" });
+    expect(pending).toHaveLength(3);
+    expect(pending.every((p: any) => p.attempts === 1 && p.last_error)).toBe(true);
+
+    smtp = await startSmtpFake({ smtpPort: port });
+    // Not due yet: the backoff holds them.
+    expect(await deliverOutbox(() => new Date(t0.getTime() + 1000))).toEqual({ sent: 0, failed: 0 });
+    const later = new Date(t0.getTime() + retryDelayMs(1) + 1000);
+    expect(await deliverOutbox(() => later)).toEqual({ sent: 3, failed: 0 });
+    expect(await deliverOutbox(() => later)).toEqual({ sent: 0, failed: 0 });
+    const got = smtp.messages.filter((m) => m.to.includes("b@example.test")).map((m) => m.subject).sort();
+    expect(got).toEqual(["Queued 0", "Queued 1", "Queued 2"]);
+  });
+
+  it("backs off exponentially up to an hour", () => {
+    expect(retryDelayMs(1)).toBe(30_000);
+    expect(retryDelayMs(2)).toBe(60_000);
+    expect(retryDelayMs(20)).toBe(3_600_000);
+  });
+});

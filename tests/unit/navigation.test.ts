@@ -1,0 +1,16 @@
+import { describe, expect, it } from "vitest";
+import { navFor } from "@/lib/auth/navigation";
+
+describe("navigation by role", () => {
+  const labels = (roles: Parameters<typeof navFor>[0]) => navFor(roles).map((l) => l.href);
+  it("shows visitors only the public entries", () => {
+    expect(labels(null)).toEqual(["/plan"]);
+  });
+  it("adds each role's own area", () => {
+    expect(labels(["gardener"])).toEqual(["/plan", "/beds"]);
+    expect(labels(["supplier"])).toContain("/listings/mine");
+    expect(labels(["council"])).toEqual(expect.arrayContaining(["/council", "/listings/mine"]));
+    expect(labels(["moderator"])).toContain("/moderation");
+    expect(labels(["gardener"])).not.toContain("/council");
+  });
+});
