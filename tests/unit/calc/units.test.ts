@@ -1,0 +1,90 @@
+import { describe, expect, it } from "vitest";
+import {
+  cmToIn,
+  formatQuantity,
+  ft2ToM2,
+  ftToM,
+  inToCm,
+  kgToLb,
+  lbToKg,
+  lToUsGal,
+  m2ToFt2,
+  m3ToFt3,
+  m3ToUsGal,
+  m3ToYd3,
+  mToFt,
+  usGalToL,
+  yd3ToM3,
+} from "@/lib/calc/units";
+
+describe("conversions against NIST HB44 Appendix C", () => {
+  it("1 US gal = 3.785411784 L exactly", () => {
+    expect(usGalToL(1)).toBeCloseTo(3.785411784, 12);
+    expect(lToUsGal(3.785411784)).toBeCloseTo(1, 12);
+  });
+
+  it("1 ft³ = 7.480519 US gal", () => {
+    expect(m3ToUsGal(ft2ToM2(1) * ftToM(1))).toBeCloseTo(7.480519, 6);
+  });
+
+  it("1 yd³ = 27 ft³ = 201.974 US gal", () => {
+    expect(m3ToUsGal(yd3ToM3(1))).toBeCloseTo(201.974, 3);
+    expect(m3ToFt3(yd3ToM3(1))).toBeCloseTo(27, 10);
+  });
+
+  it("1 in of water on 1 ft² = 0.623377 US gal", () => {
+    expect(m3ToUsGal(ft2ToM2(1) * (inToCm(1) / 100))).toBeCloseTo(0.623377, 6);
+  });
+
+  it("an acre-inch is 27,154 US gal (University of Georgia Extension)", () => {
+    // An acre is 43,560 ft² (NIST HB44).
+    const acreInchM3 = ft2ToM2(43_560) * (inToCm(1) / 100);
+    expect(Math.round(m3ToUsGal(acreInchM3))).toBe(27_154);
+  });
+
+  it("the length, area, mass and volume factors follow from inch = 2.54 cm and lb = 0.45359237 kg", () => {
+    expect(mToFt(0.3048)).toBeCloseTo(1, 12);
+    expect(m2ToFt2(1)).toBeCloseTo(10.7639104, 6);
+    expect(cmToIn(2.54)).toBeCloseTo(1, 12);
+    expect(kgToLb(0.45359237)).toBeCloseTo(1, 12);
+    expect(lbToKg(51)).toBeCloseTo(23.133, 3); // NIOSH 51 lb
+    expect(m3ToYd3(0.764554857984)).toBeCloseTo(1, 12);
+  });
+
+  it("round trips", () => {
+    for (const x of [0.001, 1, 12.5, 9999]) {
+      expect(ftToM(mToFt(x))).toBeCloseTo(x, 9);
+      expect(inToCm(cmToIn(x))).toBeCloseTo(x, 9);
+      expect(lbToKg(kgToLb(x))).toBeCloseTo(x, 9);
+      expect(usGalToL(lToUsGal(x))).toBeCloseTo(x, 9);
+      expect(yd3ToM3(m3ToYd3(x))).toBeCloseTo(x, 9);
+    }
+  });
+});
+
+describe("formatQuantity", () => {
+  it("shows SI values in metric with their symbols", () => {
+    expect(formatQuantity(12.5, "cm", "metric")).toBe("12.5 cm");
+    expect(formatQuantity(4.8, "m2", "metric")).toBe("4.8 m²");
+    expect(formatQuantity(40.5, "l", "metric")).toBe("40.5 L");
+    expect(formatQuantity(0.6, "m3", "metric")).toBe("0.6 m³");
+  });
+
+  it("shows imperial to three significant figures", () => {
+    expect(formatQuantity(12.5, "cm", "imperial")).toBe("4.92 in"); // 12.5 / 2.54 = 4.921
+    expect(formatQuantity(1, "m", "imperial")).toBe("3.28 ft");
+    expect(formatQuantity(23, "kg", "imperial")).toBe("50.7 lb"); // 23 / 0.45359237 = 50.71
+    expect(formatQuantity(3.785411784, "l", "imperial")).toBe("1 US gal");
+    expect(formatQuantity(10, "m2", "imperial")).toBe("108 ft²"); // 107.64
+  });
+
+  it("uses cubic feet below a cubic yard and cubic yards from one up", () => {
+    expect(formatQuantity(0.6, "m3", "imperial")).toBe("21.2 ft³"); // 0.6 / 0.0283168 = 21.19
+    expect(formatQuantity(1.5, "m3", "imperial")).toBe("1.96 yd³"); // 1.5 / 0.764555 = 1.962
+  });
+
+  it("keeps whole digits of large numbers and groups thousands", () => {
+    expect(formatQuantity(12_345, "kg", "metric")).toBe("12,345 kg");
+    expect(formatQuantity(0, "kg", "imperial")).toBe("0 lb");
+  });
+});
