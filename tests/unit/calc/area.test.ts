@@ -1,0 +1,83 @@
+import { describe, expect, it } from "vitest";
+import { Geodesic } from "geographiclib-geodesic";
+import type { Polygon, Position } from "geojson";
+import { isValidRing, polygonArea, polygonCentroid, rectangleArea } from "@/lib/calc/area";
+
+/** Independent reference: GeographicLib's ellipsoidal (WGS84) polygon area, Karney's algorithm. */
+function geodesicArea(ring: Position[]): number {
+  const p = Geodesic.WGS84.Polygon(false);
+  for (const [lng, lat] of ring.slice(0, -1)) p.AddPoint(lat, lng);
+  return Math.abs(p.Compute(false, true).area ?? NaN);
+}
+
+const poly = (...rings: Position[][]): Polygon => ({ type: "Polygon", coordinates: rings });
+
+describe("rectangleArea", () => {
+  it("is length × width", () => {
+    expect(rectangleArea(4, 1.2)).toBeCloseTo(4.8, 12);
+  });
+  it.each([
+    [0, 1],
+    [-1, 2],
+    [Number.NaN, 1],
+    [1, Number.POSITIVE_INFINITY],
+  ])("rejects %s × %s", (l, w) => {
+    expect(() => rectangleArea(l, w)).toThrow(RangeError);
+  });
+});
+
+describe("polygonArea against GeographicLib", () => {
+  // Turf's sphere (R = 6,371,008.8 m) against the WGS84 ellipsoid: a 0.5 % tolerance
+  // covers the spherical error (reference/trade-facts.md, Distances).
+  const cases: [string, Position[]][] = [
+    ["a garden plot near Lyon", [[4.85, 45.76], [4.85013, 45.76], [4.85013, 45.76009], [4.85, 45.76009], [4.85, 45.76]]],
+    ["an L-shaped bed in Leeds", [[-1.55, 53.8], [-1.5499, 53.8], [-1.5499, 53.80003], [-1.54996, 53.80003], [-1.54996, 53.80008], [-1.55, 53.80008], [-1.55, 53.8]]],
+    ["an allotment in Melbourne", [[144.96, -37.81], [144.9603, -37.8101], [144.9604, -37.8098], [144.96005, -37.8097], [144.96, -37.81]]],
+    ["a near-hectare field in Ohio", [[-83, 40], [-82.9988, 40], [-82.9988, 40.0009], [-83, 40.0009], [-83, 40]]],
+  ];
+  it.each(cases)("%s is within 0.5 %", (_name, ring) => {
+    const reference = geodesicArea(ring);
+    expect(reference).toBeGreaterThan(0);
+    expect(Math.abs(polygonArea(poly(ring)) - reference) / reference).toBeLessThan(0.005);
+  });
+
+  it("subtracts holes", () => {
+    const outer: Position[] = [[0, 50], [0.001, 50], [0.001, 50.001], [0, 50.001], [0, 50]];
+    const hole: Position[] = [[0.0004, 50.0004], [0.0004, 50.0006], [0.0006, 50.0006], [0.0006, 50.0004], [0.0004, 50.0004]];
+    const expected = geodesicArea(outer) - geodesicArea(hole);
+    expect(Math.abs(polygonArea(poly(outer, hole)) - expected) / expected).toBeLessThan(0.005);
+  });
+});
+
+describe("polygonCentroid", () => {
+  it("is the middle of a square", () => {
+    const c = polygonCentroid(poly([[10, 20], [10.002, 20], [10.002, 20.002], [10, 20.002], [10, 20]]));
+    expect(c.lng).toBeCloseTo(10.001, 9);
+    expect(c.lat).toBeCloseTo(20.001, 9);
+  });
+
+  it("weights by area, not by vertex count", () => {
+    // Extra vertices along the west edge must not pull the centre west.
+    const c = polygonCentroid(poly([[0, 0], [0.002, 0], [0.002, 0.002], [0, 0.002], [0, 0.0015], [0, 0.001], [0, 0.0005], [0, 0]]));
+    expect(c.lng).toBeCloseTo(0.001, 9);
+  });
+});
+
+describe("isValidRing", () => {
+  const square: Position[] = [[0, 0], [0.001, 0], [0.001, 0.001], [0, 0.001], [0, 0]];
+  it("accepts a closed, simple ring", () => {
+    expect(isValidRing(square)).toBe(true);
+    expect(isValidRing(square.map(([x, y]) => [x, y, 12]))).toBe(true); // altitude allowed
+  });
+  it.each<[string, Position[]]>([
+    ["an open ring", square.slice(0, -1).concat([[0.0001, 0]])],
+    ["fewer than four positions", [[0, 0], [1, 0], [0, 0]]],
+    ["a bow tie", [[0, 0], [0.001, 0.001], [0.001, 0], [0, 0.001], [0, 0]]],
+    ["longitude out of range", [[0, 0], [181, 0], [181, 1], [0, 1], [0, 0]]],
+    ["latitude out of range", [[0, 89], [1, 89], [1, 91], [0, 91], [0, 89]]],
+    ["a non-finite coordinate", [[0, 0], [Number.NaN, 0], [1, 1], [0, 1], [0, 0]]],
+    ["all points on one line", [[0, 0], [0.001, 0], [0.002, 0], [0, 0]]],
+  ])("rejects %s", (_name, ring) => {
+    expect(isValidRing(ring)).toBe(false);
+  });
+});
