@@ -1,4 +1,7 @@
 // PaymentIntents, refunds, API keys and idempotency on the fake, through the official SDK.
+import { mkdtempSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import Stripe from "stripe";
 import { startStripeFake, type StripeFake } from "@/lib/fakes/stripe/server";
@@ -193,5 +196,26 @@ describe("idempotency", () => {
     });
     const ok = await stripe.paymentIntents.create({ amount: 100, currency: "gbp" }, { idempotencyKey: "reserve-r_44" });
     expect(ok.status).toBe("requires_payment_method");
+  });
+});
+
+describe("STRIPE_FAKE_DATA persistence", () => {
+  it("keeps records across a restart when given a data file", async () => {
+    const dir = mkdtempSync(path.join(tmpdir(), "stripe-fake-"));
+    const dataFile = path.join(dir, "stripe.json");
+    try {
+      const first = await startStripeFake({ port: 0, dataFile });
+      const client = new Stripe("sk_test_restart", { host: "127.0.0.1", port: first.port, protocol: "http" });
+      const pi = await client.paymentIntents.create({ amount: 900, currency: "gbp", metadata: { reservation_id: "r_p" } });
+      await first.close();
+
+      const second = await startStripeFake({ port: 0, dataFile });
+      const again = new Stripe("sk_test_restart", { host: "127.0.0.1", port: second.port, protocol: "http" });
+      expect(await again.paymentIntents.retrieve(pi.id)).toMatchObject({ id: pi.id, amount: 900, metadata: { reservation_id: "r_p" } });
+      expect((await again.paymentIntents.cancel(pi.id)).status).toBe("canceled");
+      await second.close();
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
   });
 });

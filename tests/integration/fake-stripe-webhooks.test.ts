@@ -7,6 +7,7 @@ import { afterEach, describe, expect, it } from "vitest";
 import Stripe from "stripe";
 import { startStripeFake, type StripeFake, type StripeFakeOptions } from "@/lib/fakes/stripe/server";
 import { TEST_CARDS, submitHostedPayment } from "@/lib/fakes/stripe/testing";
+import { signatureHeader } from "@/lib/fakes/stripe/webhooks";
 
 const SECRET = "whsec_test_receiver";
 
@@ -121,7 +122,6 @@ describe("signed events", () => {
     await stripe.paymentIntents.create({ amount: 500, currency: "gbp" });
     const event = [...fake.state.events.values()][0];
     const payload = JSON.stringify(event);
-    const { signatureHeader } = await import("@/lib/fakes/stripe/webhooks");
     const header = signatureHeader(payload, SECRET, Math.floor(Date.now() / 1000));
     expect(Stripe.webhooks.constructEvent(payload, header, SECRET).id).toBe(event.id);
     expect(() => Stripe.webhooks.constructEvent(payload, header, "whsec_someone_else")).toThrow(

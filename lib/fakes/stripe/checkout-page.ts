@@ -19,7 +19,7 @@ const STYLE = `
   :root { color-scheme: light; --ink: #2b2218; --soil: #5a4632; --moss: #3f6b34; --paper: #f7f2e8; --line: #d9ccb4; --bad: #9b2c1c; }
   * { box-sizing: border-box; }
   body { margin: 0; font: 16px/1.5 system-ui, -apple-system, "Segoe UI", sans-serif; color: var(--ink); background: var(--paper); }
-  .banner { background: #f1d98a; color: #3a2d00; text-align: center; padding: .6rem 1rem; font-weight: 600; border-bottom: 2px dashed #b08a1a; }
+  .banner { margin: 0; background: #f1d98a; color: #3a2d00; text-align: center; padding: .6rem 1rem; font-weight: 600; border-bottom: 2px dashed #b08a1a; }
   main { max-width: 30rem; margin: 2rem auto; padding: 0 1rem; }
   h1 { font-size: 1.4rem; margin: 0 0 .25rem; }
   .muted { color: var(--soil); font-size: .95rem; }

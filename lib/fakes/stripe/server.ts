@@ -87,8 +87,9 @@ export async function startStripeFake(opts: StripeFakeOptions = {}): Promise<Str
     };
     if (idempotencyKey) headers["Idempotency-Key"] = idempotencyKey;
     try {
-      authenticate(req);
+      // Read the body first so a refused request still leaves the connection reusable.
       const body = method === "POST" ? await readBody(req) : "";
+      authenticate(req);
       const type = req.headers["content-type"] ?? "";
       if (body !== "" && !type.startsWith("application/x-www-form-urlencoded")) {
         throw new FakeStripeError(400, {
