@@ -1,6 +1,6 @@
 import { createHmac } from "node:crypto";
 import { newId } from "./errors";
-import type { FakeStripeState, RequestInfo, StripeEvent, StripeObject } from "./types";
+import type { DeliveryAttempt, FakeStripeState, RequestInfo, StripeEvent, StripeObject } from "./types";
 
 // Stripe signs `${timestamp}.${payload}` with HMAC-SHA256 keyed by the endpoint secret and
 // sends `Stripe-Signature: t=<timestamp>,v1=<hex>` (docs.stripe.com/webhooks#verify-manually),
@@ -95,15 +95,16 @@ export class WebhookDispatcher {
     for (let attempt = 1; attempt <= maxAttempts; attempt++) {
       const url = this.url;
       if (this.closed || !url) return;
-      const ok = await this.attempt(objectId, event, payload, url, attempt);
-      if (ok) {
+      const result = await this.attempt(objectId, event, payload, url, attempt);
+      if (result.ok) {
         const stored = this.state.events.get(event.id);
         if (stored) stored.pending_webhooks = 0;
         return;
       }
       if (attempt < maxAttempts) {
         const delay = baseMs * 2 ** (attempt - 1);
-        this.opts.log?.(`webhook ${event.type} ${event.id} attempt ${attempt} failed; retrying in ${delay} ms`);
+        const why = result.status !== null ? `HTTP ${result.status}` : result.error;
+        this.opts.log?.(`webhook ${event.type} ${event.id} to ${url}: attempt ${attempt} failed (${why}); retrying in ${delay} ms`);
         await this.sleep(delay);
       } else {
         this.opts.log?.(`webhook ${event.type} ${event.id} gave up after ${maxAttempts} attempts`);
@@ -117,7 +118,7 @@ export class WebhookDispatcher {
     payload: string,
     url: string,
     attempt: number,
-  ): Promise<boolean> {
+  ): Promise<DeliveryAttempt> {
     const controller = new AbortController();
     this.inFlight.add(controller);
     const timeout = setTimeout(() => controller.abort(), this.opts.timeoutMs ?? 10_000);
@@ -137,13 +138,14 @@ export class WebhookDispatcher {
         signal: controller.signal,
       });
       await res.arrayBuffer().catch(() => undefined);
-      const ok = res.status >= 200 && res.status < 300;
-      this.state.deliveries.push({ ...record, status: res.status, ok });
-      return ok;
+      const done: DeliveryAttempt = { ...record, status: res.status, ok: res.status >= 200 && res.status < 300 };
+      this.state.deliveries.push(done);
+      return done;
     } catch (err) {
       const error = err instanceof Error ? (err.cause instanceof Error ? err.cause.message : err.message) : String(err);
-      this.state.deliveries.push({ ...record, status: null, ok: false, error });
-      return false;
+      const failed: DeliveryAttempt = { ...record, status: null, ok: false, error };
+      this.state.deliveries.push(failed);
+      return failed;
     } finally {
       clearTimeout(timeout);
       this.inFlight.delete(controller);
