@@ -1,0 +1,84 @@
+import { expect, test, type Page } from "@playwright/test";
+import { DEMO, DEMO_PASSWORD, inboxUrl, storageState, type DemoRole } from "./roles";
+
+const mainNav = (page: Page) => page.locator("header nav[aria-label='Main']").last();
+
+test.describe("demo accounts", () => {
+  for (const role of Object.keys(DEMO) as DemoRole[]) {
+    test(`the ${role} sees their own navigation`, async ({ browser }) => {
+      const context = await browser.newContext({ storageState: storageState(role) });
+      const page = await context.newPage();
+      await page.goto("/");
+      for (const label of DEMO[role].nav) await expect(mainNav(page).getByRole("link", { name: label })).toBeVisible();
+      for (const label of DEMO[role].notNav) await expect(mainNav(page).getByRole("link", { name: label })).toHaveCount(0);
+      await context.close();
+    });
+  }
+});
+
+test("a visitor signs up, signs out, signs back in and sees a gardener's navigation", async ({ page }) => {
+  const email = `new-${Date.now()}@example.test`;
+  await page.goto("/sign-up");
+  await page.getByLabel("Your name").fill("Juniper Quell");
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password", { exact: true }).fill("a sturdy password");
+  await page.getByRole("button", { name: "Create my account" }).click();
+  await expect(page.getByRole("heading", { name: "Your profile" })).toBeVisible();
+  await expect(mainNav(page).getByRole("link", { name: "My beds" })).toBeVisible();
+  await expect(mainNav(page).getByRole("link", { name: "Council desk" })).toHaveCount(0);
+
+  await mainNav(page).getByRole("button", { name: "Sign out" }).click();
+  await expect(mainNav(page).getByRole("link", { name: "Sign in" })).toBeVisible();
+
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail", { exact: true }).fill(email);
+  await page.getByLabel("Password", { exact: true }).fill("a sturdy password");
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(mainNav(page).getByRole("link", { name: "Juniper Quell" })).toBeVisible();
+  await expect(mainNav(page).getByRole("link", { name: "My beds" })).toBeVisible();
+});
+
+test("a wrong password gives a clear error and no session", async ({ page }) => {
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail", { exact: true }).fill(DEMO.gardener.email);
+  await page.getByLabel("Password", { exact: true }).fill("not the password");
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.locator("main [role='alert']")).toContainText("do not match an account");
+  await page.goto("/beds");
+  await expect(page).toHaveURL(/\/sign-in\?callbackUrl=%2Fbeds/);
+});
+
+test("signing in with a link from the local inbox", async ({ page, request }) => {
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail for the link").fill(DEMO.supplier.email);
+  await page.getByRole("button", { name: "E-mail me a link" }).click();
+  await expect(page.getByText("Check your inbox")).toBeVisible();
+
+  let link: string | undefined;
+  await expect
+    .poll(async () => {
+      const res = await request.get(`${inboxUrl()}/messages.json?to=${encodeURIComponent(DEMO.supplier.email)}`);
+      const { messages } = await res.json();
+      const last = messages.filter((m: { subject: string }) => m.subject.includes("sign-in link")).pop();
+      link = last?.text.match(/https?:\/\/\S+/)?.[0];
+      return link;
+    })
+    .toBeTruthy();
+  await page.goto(link!);
+  await expect(mainNav(page).getByRole("link", { name: "What I'm giving" })).toBeVisible();
+  await expect(mainNav(page).getByRole("link", { name: "Rowan Pike" })).toBeVisible();
+});
+
+test("a gardener opening the council desk gets the 403 page", async ({ browser }) => {
+  const context = await browser.newContext({ storageState: storageState("gardener") });
+  const page = await context.newPage();
+  const res = await page.goto("/council");
+  expect(res?.status()).toBe(403);
+  await expect(page.getByRole("heading", { name: /not open to your account/ })).toBeVisible();
+  await context.close();
+});
+
+test("a signed-out visitor to a signed-in page is sent to sign in", async ({ page }) => {
+  await page.goto("/profile");
+  await expect(page).toHaveURL(/\/sign-in\?callbackUrl=%2Fprofile/);
+});

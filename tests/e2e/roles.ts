@@ -1,0 +1,22 @@
+import fs from "node:fs";
+import path from "node:path";
+
+export const DEMO_PASSWORD = "duffbank-demo";
+
+export const DEMO = {
+  gardener: { email: "gardener@duffbank.test", nav: ["Plan a bed", "My beds"], notNav: ["Council desk", "Moderation"] },
+  supplier: { email: "supplier@duffbank.test", nav: ["My beds", "What I'm giving"], notNav: ["Council desk", "Moderation"] },
+  grower: { email: "grower@duffbank.test", nav: ["What I'm giving"], notNav: ["Council desk", "Moderation"] },
+  council: { email: "council@duffbank.test", nav: ["Council desk", "What I'm giving"], notNav: ["Moderation", "My beds"] },
+  moderator: { email: "moderator@duffbank.test", nav: ["Moderation"], notNav: ["Council desk", "My beds"] },
+} as const;
+
+export type DemoRole = keyof typeof DEMO;
+
+const dir = path.join(process.env.E2E_DIR ?? "test-results", "auth");
+export function storageState(role: DemoRole): string {
+  fs.mkdirSync(dir, { recursive: true });
+  return path.join(dir, `${role}.json`);
+}
+
+export const inboxUrl = () => `http://127.0.0.1:${process.env.INBOX_PORT}`;

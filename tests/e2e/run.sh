@@ -1,0 +1,37 @@
+#!/usr/bin/env bash
+# End-to-end tests: a production build served with its own fakes, database and ports,
+# driven by Playwright in Debian's Chromium. Never downloads a browser.
+set -euo pipefail
+cd "$(dirname "$0")/../.."
+
+CHROMIUM="${CHROMIUM_PATH:-/usr/bin/chromium}"
+if [ ! -x "$CHROMIUM" ]; then
+  if [ "$(id -u)" = "0" ] && command -v apt-get >/dev/null; then
+    echo "[e2e] Chromium not found; installing Debian's chromium package"
+    export DEBIAN_FRONTEND=noninteractive
+    apt-get update -qq </dev/null
+    apt-get install -y -qq chromium </dev/null >/dev/null
+  else
+    echo "[e2e] Chromium is missing. Install Debian's package as root: apt-get install -y chromium" >&2
+    echo "[e2e] (or set CHROMIUM_PATH to an existing Chromium binary)" >&2
+    exit 1
+  fi
+fi
+export CHROMIUM_PATH="$CHROMIUM"
+
+# Free ports for this run, so a dev server on the usual ones does not get in the way.
+read -r E2E_PORT SMTP_PORT INBOX_PORT STRIPE_FAKE_PORT CLOUDINARY_FAKE_PORT < <(node -e '
+  const net = require("net");
+  const one = () => new Promise((r) => { const s = net.createServer(); s.listen(0, "127.0.0.1", () => { const p = s.address().port; s.close(() => r(p)); }); });
+  (async () => { const ps = []; for (let i = 0; i < 5; i++) ps.push(await one()); console.log(ps.join(" ")); })();
+')
+export E2E_PORT SMTP_PORT INBOX_PORT STRIPE_FAKE_PORT CLOUDINARY_FAKE_PORT
+export E2E_DIR="${E2E_DIR:-$(mktemp -d -t duffbank-e2e-XXXXXX)}"
+export DATABASE_FILE="$E2E_DIR/e2e.sqlite"
+export NEXTAUTH_URL="http://127.0.0.1:$E2E_PORT"
+export APP_URL="$NEXTAUTH_URL"
+
+if [ "${E2E_SKIP_BUILD:-}" != "1" ]; then
+  npx next build
+fi
+npx playwright test "$@"
