@@ -27,8 +27,12 @@ const CLOUD = "duffbank-local";
 // upload_prefix in CLOUDINARY_URL (cloudinary 2.11.0 lib/uploader.js). The fake's port is
 // not known yet, so an http:// prefix is set before import and the real one is passed
 // later through config; only the scheme matters at load time.
+const previousCloudinaryUrl = process.env.CLOUDINARY_URL;
 process.env.CLOUDINARY_URL = `cloudinary://${KEY}:${SECRET}@${CLOUD}?upload_prefix=http://127.0.0.1:1`;
 const { v2: cloudinary } = await import("cloudinary");
+// The SDK has read it by now; restore it so nothing else in this process sees the placeholder.
+if (previousCloudinaryUrl === undefined) delete process.env.CLOUDINARY_URL;
+else process.env.CLOUDINARY_URL = previousCloudinaryUrl;
 
 let fake: CloudinaryFake;
 let tmp: string;
@@ -59,7 +63,7 @@ async function postForm(
   for (const [k, v] of Object.entries(signed)) form.append(k, v);
   form.append("api_key", KEY);
   form.append("signature", signParams(signed, secret));
-  if (file) form.append("file", new Blob([file.data], { type: file.type ?? "image/jpeg" }), file.filename);
+  if (file) form.append("file", new Blob([new Uint8Array(file.data)], { type: file.type ?? "image/jpeg" }), file.filename);
   const res = await fetch(`${fake.url}/v1_1/${CLOUD}/image/${action}`, { method: "POST", body: form });
   return { status: res.status, body: await res.json() };
 }
@@ -95,7 +99,11 @@ describe("upload through the official SDK", () => {
     expect(Number.isInteger(result.version)).toBe(true);
     expect(new Date(result.created_at).toISOString()).toBe(result.created_at.replace("Z", ".000Z"));
     expect(result.secure_url).toBe(`${fake.url}/${CLOUD}/image/upload/v${result.version}/${result.public_id}.jpg`);
-    expect(cloudinary.utils.verify_api_response_signature(result.public_id, result.version, result.signature)).toBe(true);
+    // Present in the SDK's JavaScript but missing from its type definitions.
+    const { verify_api_response_signature } = cloudinary.utils as unknown as {
+      verify_api_response_signature(publicId: string, version: number, signature: string): boolean;
+    };
+    expect(verify_api_response_signature(result.public_id, result.version, result.signature)).toBe(true);
 
     const stored = await fake.state.readOriginal(result.public_id);
     expect(stored).toBeDefined();
@@ -206,7 +214,7 @@ describe("upload as a browser sends it (multipart FormData)", () => {
     form.append("folder", "someone-elses-folder"); // not what was signed
     form.append("api_key", KEY);
     form.append("signature", signParams({ timestamp: ts, folder: "listings" }, SECRET));
-    form.append("file", new Blob([await solid(8, 8).jpeg().toBuffer()]), "a.jpg");
+    form.append("file", new Blob([new Uint8Array(await solid(8, 8).jpeg().toBuffer())]), "a.jpg");
     const res = await fetch(`${fake.url}/v1_1/${CLOUD}/image/upload`, { method: "POST", body: form });
     expect(res.status).toBe(401);
     expect((await res.json()).error.message).toContain("folder=someone-elses-folder&timestamp=");
@@ -222,7 +230,7 @@ describe("upload as a browser sends it (multipart FormData)", () => {
     const fields: Record<string, string> = { timestamp: ts, api_key: KEY, signature: signParams({ timestamp: ts }, SECRET), ...override };
     const form = new FormData();
     for (const [k, v] of Object.entries(fields)) if (v) form.append(k, v);
-    form.append("file", new Blob([await solid(8, 8).jpeg().toBuffer()]), "a.jpg");
+    form.append("file", new Blob([new Uint8Array(await solid(8, 8).jpeg().toBuffer())]), "a.jpg");
     const res = await fetch(`${fake.url}/v1_1/${CLOUD}/image/upload`, { method: "POST", body: form });
     expect(res.status).toBe(status);
     expect((await res.json()).error.message).toMatch(message);

@@ -17,7 +17,7 @@ export interface FakeEnvConfig {
   warning?: string;
 }
 
-export function parseFakeEnv(env: NodeJS.ProcessEnv): FakeEnvConfig {
+export function parseFakeEnv(env: Record<string, string | undefined>): FakeEnvConfig {
   let cloudName = DEFAULT_CLOUD_NAME;
   let apiKey = DEFAULT_API_KEY;
   let apiSecret = DEFAULT_API_SECRET;

@@ -85,7 +85,9 @@ function resizeOptions(step: TransformStep): ResizeOptions | null {
     step.gravity === "auto" ? sharp.strategy.attention : SHARP_GRAVITY[step.gravity ?? "center"];
   switch (step.crop ?? "scale") {
     case "scale":
-      return { width, height, fit: "fill" };
+      // sharp's "fill" stretches to the box even with one side missing (it keeps the
+      // source's other side), so a single dimension is scaled proportionally instead.
+      return { width, height, fit: width !== undefined && height !== undefined ? "fill" : "inside" };
     case "fit":
       return { width, height, fit: "inside" };
     case "limit":
