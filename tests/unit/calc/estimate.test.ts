@@ -1,0 +1,160 @@
+import { describe, expect, it } from "vitest";
+import fc from "fast-check";
+import { estimate } from "@/lib/calc/estimate";
+import { estimateSchema, type EstimateInput } from "@/lib/validation/estimate";
+
+const LB_GAL = 0.45359237 / 0.003785411784; // kg/m³ per lb/US gal (NIST HB44) = 119.826
+
+describe("estimate — a 4 × 1.2 m bed with every default", () => {
+  const r = estimate({ bed: { length_m: 4, width_m: 1.2 }, start_date: "2026-03-01" });
+  const need = (m: string) => r.needs.find((n) => n.material === m) as Record<string, unknown>;
+
+  it("lists the four default layers in order, with the contract's fields", () => {
+    expect(r.area_m2).toBeCloseTo(4.8, 10);
+    expect(r.needs.map((n) => [n.material, n.unit])).toEqual([
+      ["cardboard", "m2"],
+      ["leaves", "m3"],
+      ["straw", "m3"],
+      ["worms", "kg"],
+    ]);
+    expect(Object.keys(r)).toEqual(expect.arrayContaining(["area_m2", "needs", "water_l", "blend", "timeline", "cautions"]));
+    expect(r).not.toHaveProperty("centroid");
+  });
+
+  it("cardboard: 10 sheets of 1.0 × 0.8 m, 8 m², 4 kg", () => {
+    // ceil((4 − 0.15)/0.85) = 5 along × ceil((1.2 − 0.15)/0.65) = 2 across; 10 × 0.8 m² × 0.5 kg/m²
+    expect(need("cardboard")).toMatchObject({ quantity: 8, sheets: 10, mass_kg: 4 });
+  });
+
+  it("leaves: 12.5 cm over 4.8 m² = 0.6 m³, 71.9 kg at 1 lb/gal (Missouri S&T), 6 bags of 30 gal", () => {
+    // 0.6 / 0.113562 = 5.28 → 6
+    expect(need("leaves")).toMatchObject({ quantity: 0.6, bags: 6 });
+    expect(need("leaves").mass_kg).toBeCloseTo(0.6 * LB_GAL, 2);
+  });
+
+  it("straw: 5 cm = 0.24 m³ spread, one bale (covers 0.446 m³ loosened)", () => {
+    // mass: 0.24 m³ spread = 0.08 m³ baled × 119.826 = 9.59 kg
+    expect(need("straw")).toMatchObject({ quantity: 0.24, bales: 1 });
+    expect(need("straw").mass_kg).toBeCloseTo((0.24 / 3) * LB_GAL, 2);
+  });
+
+  it("worms: 0.5 kg/m² → 2.4 kg, about 5,291 worms at 1,000 per lb (common practice)", () => {
+    // 2.4 kg / 0.45359237 = 5.291 lb × 1,000
+    expect(need("worms")).toMatchObject({ quantity: 2.4, count: 5291 });
+  });
+
+  it("water and blend follow the mass balance and the Cornell formula", () => {
+    // By hand (NRAES-54 Table A.1 composition):
+    //   cardboard 4 kg @ 8 %  → dry 3.680, C 3.680 × 0.563 = 2.0718, N 0.00368
+    //   leaves 71.896 @ 38 % → dry 44.575, C × 0.486 = 21.6636,   N 0.40118
+    //   straw 9.586 @ 12 %   → dry 8.436,  C × 0.560 = 4.7240,    N 0.05905
+    //   C:N = 28.459 / 0.46391 = 61.35; moisture = (85.482 − 56.691) / 85.482 = 33.7 %
+    //   water to 55 %: 56.691 / 0.45 − 85.482 = 40.5 L
+    expect(r.blend.cn_ratio).toBeCloseTo(61.3, 0);
+    expect(r.blend.moisture_pct).toBeCloseTo(33.7, 1);
+    expect(r.water_l).toBeCloseTo(40.5, 0);
+    expect(r.blend.advice).toMatch(/grass clippings/);
+  });
+
+  it("carries the timeline and the cautions for every default layer", () => {
+    expect(r.timeline[0]).toMatchObject({ key: "build", date: "2026-03-01" });
+    expect(r.timeline.some((e) => e.key === "add_worms")).toBe(true);
+    const all = r.cautions.join(" ");
+    for (const word of [/tape/, /roadside/, /beans or peas/, /NIOSH/, /species/, /gloves/, /watering restrictions/]) {
+      expect(all).toMatch(word);
+    }
+    expect(r.cautions.at(-1)).toMatch(/local rules/);
+  });
+});
+
+describe("estimate — choices", () => {
+  const bed = { length_m: 3, width_m: 2 };
+
+  it("leaves out layers set to false, and their cautions", () => {
+    const r = estimate({ bed, layers: { straw: false, worms: false }, start_date: "2026-05-01" });
+    expect(r.needs.map((n) => n.material)).toEqual(["cardboard", "leaves"]);
+    expect(r.cautions.join(" ")).not.toMatch(/NIOSH|species/);
+    expect(r.timeline.some((e) => e.key === "add_worms")).toBe(false);
+  });
+
+  it("adds wood chips when asked, and uses the given depths and settings", () => {
+    const r = estimate({
+      bed,
+      layers: { leaves: { depth_cm: 20 }, wood_chips: true, cardboard: { overlap_cm: 30 }, worms: { kg_per_m2: 1 } },
+      start_date: "2026-05-01",
+    });
+    const chips = r.needs.find((n) => n.material === "wood_chips")!;
+    expect(chips.quantity).toBeCloseTo(6 * 0.075, 6); // 7.5 cm default (from memory)
+    expect(r.needs.find((n) => n.material === "leaves")!.quantity).toBeCloseTo(1.2, 6);
+    expect(r.needs.find((n) => n.material === "worms")!.quantity).toBeCloseTo(6, 6);
+    // 30 cm seams: along 3 m ceil(2.7/0.7) = 4 × across 2 m ceil(1.7/0.5) = 4 = 16; turned: ceil(2.7/0.5) = 6 × ceil(1.7/0.7) = 3 = 18
+    expect(r.needs.find((n) => n.material === "cardboard")).toMatchObject({ sheets: 16 });
+  });
+
+  it("a wetter target asks for more water", () => {
+    const dry = estimate({ bed, target_moisture_pct: 45, start_date: "2026-05-01" }).water_l;
+    const wet = estimate({ bed, target_moisture_pct: 65, start_date: "2026-05-01" }).water_l;
+    expect(wet).toBeGreaterThan(dry);
+  });
+
+  it("with only worms there is nothing to blend or water", () => {
+    const r = estimate({ bed, layers: { cardboard: false, leaves: false, straw: false }, start_date: "2026-05-01" });
+    expect(r.blend).toEqual({ cn_ratio: null, moisture_pct: null, advice: null });
+    expect(r.water_l).toBe(0);
+  });
+
+  it("starts today (UTC) when no start date is given", () => {
+    const r = estimate({ bed }, new Date("2030-07-04T23:30:00Z"));
+    expect(r.timeline[0].date).toBe("2030-07-04");
+  });
+
+  it("gives the same answer for parsed and unparsed input", () => {
+    const raw = { bed, start_date: "2026-05-01" };
+    expect(estimate(estimateSchema.parse(raw))).toEqual(estimate(raw));
+  });
+
+  it("scales every volume and mass linearly with area (fast-check)", () => {
+    fc.assert(
+      fc.property(fc.double({ min: 1, max: 20, noNaN: true }), fc.integer({ min: 2, max: 5 }), (len, k) => {
+        const at = (l: number) => estimate({ bed: { length_m: l, width_m: 2 }, start_date: "2026-05-01" });
+        const one = at(len);
+        const many = at(len * k);
+        for (const m of ["leaves", "straw"]) {
+          const a = one.needs.find((n) => n.material === m)! as { quantity: number; mass_kg: number };
+          const b = many.needs.find((n) => n.material === m)! as { quantity: number; mass_kg: number };
+          // Outputs are rounded (3 places for m³, 2 for kg), so compare within that rounding.
+          expect(Math.abs(b.quantity - k * a.quantity)).toBeLessThanOrEqual(0.0005 * (k + 1));
+          expect(Math.abs(b.mass_kg - k * a.mass_kg)).toBeLessThanOrEqual(0.005 * (k + 1));
+        }
+      }),
+      { numRuns: 40 },
+    );
+  });
+});
+
+describe("estimate — an outline", () => {
+  // About 10 × 10 m near Hobart (southern hemisphere).
+  const polygon = {
+    type: "Polygon" as const,
+    coordinates: [[[147.3, -42.88], [147.30012, -42.88], [147.30012, -42.87991], [147.3, -42.87991], [147.3, -42.88]]],
+  };
+  const input: EstimateInput = { bed: { polygon }, start_date: "2026-03-01" };
+
+  it("reports the centroid and takes the hemisphere from it", () => {
+    const r = estimate(input);
+    expect(r.centroid!.lat).toBeCloseTo(-42.879955, 5);
+    expect(r.centroid!.lng).toBeCloseTo(147.30006, 5);
+    expect(r.timeline.find((e) => e.key === "top_up")!.date).toBe("2026-04-15"); // southern autumn leaves
+  });
+
+  it("lets an explicit latitude win over the centroid", () => {
+    const r = estimate({ ...input, latitude: 45 });
+    expect(r.timeline.find((e) => e.key === "top_up")!.date).toBe("2026-06-15");
+  });
+
+  it("covers the outline's area with cardboard", () => {
+    const r = estimate(input);
+    expect(r.area_m2).toBeGreaterThan(90);
+    expect(r.needs[0].quantity).toBeGreaterThanOrEqual(r.area_m2);
+  });
+});
