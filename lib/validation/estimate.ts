@@ -98,6 +98,7 @@ export const layersSchema = z.object({
   worms: z
     .union([
       z.boolean(),
+      // Bins run at a few kg/m²; past 5 a bed is a worm farm, so treat it as a typo.
       z.object({ kg_per_m2: z.number().positive("stocking must be more than 0 kg/m²").max(5, "stocking must be at most 5 kg/m²").optional() }),
     ], { error: ON_OFF_OR_SETTINGS })
     .optional(),

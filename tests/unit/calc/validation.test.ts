@@ -1,0 +1,84 @@
+import { describe, expect, it } from "vitest";
+import { blendSchema } from "@/lib/validation/blend";
+import { estimateSchema } from "@/lib/validation/estimate";
+
+const paths = (r: { success: boolean; error?: { issues: { path: PropertyKey[] }[] } }) =>
+  r.success ? [] : r.error!.issues.map((i) => i.path.join("."));
+
+const square = (side_deg: number, lat = 50) => ({
+  type: "Polygon",
+  coordinates: [[[0, lat], [side_deg, lat], [side_deg, lat + side_deg], [0, lat + side_deg], [0, lat]]],
+});
+
+describe("estimateSchema", () => {
+  it("accepts a rectangle and an outline", () => {
+    expect(estimateSchema.safeParse({ bed: { length_m: 4, width_m: 1.2 } }).success).toBe(true);
+    const r = estimateSchema.parse({ bed: { polygon: square(0.0001) }, layers: { straw: false, leaves: { depth_cm: 10 } } });
+    expect(r.bed).toHaveProperty("polygon");
+  });
+
+  it.each<[string, unknown, string]>([
+    ["a negative length", { bed: { length_m: -1, width_m: 2 } }, "bed.length_m"],
+    ["a zero width", { bed: { length_m: 1, width_m: 0 } }, "bed.width_m"],
+    ["a string for a length", { bed: { length_m: "4", width_m: 2 } }, "bed.length_m"],
+    ["an infinite length", { bed: { length_m: Number.POSITIVE_INFINITY, width_m: 2 } }, "bed.length_m"],
+    ["an absurd side", { bed: { length_m: 1e9, width_m: 1e-9 } }, "bed.length_m"],
+    ["a missing width", { bed: { length_m: 3 } }, "bed.width_m"],
+    ["more than 10,000 m²", { bed: { length_m: 101, width_m: 100 } }, "bed"],
+    ["a bed that is not an object", { bed: 12 }, "bed"],
+    ["both an outline and sides", { bed: { polygon: square(0.0001), length_m: 2, width_m: 2 } }, "bed"],
+    ["a self-crossing outline", { bed: { polygon: { type: "Polygon", coordinates: [[[0, 0], [0.001, 0.001], [0.001, 0], [0, 0.001], [0, 0]]] } } }, "bed.polygon.coordinates.0"],
+    ["an open outline", { bed: { polygon: { type: "Polygon", coordinates: [[[0, 0], [0.001, 0], [0.001, 0.001], [0, 0.001], [0.0001, 0]]] } } }, "bed.polygon.coordinates.0"],
+    ["a ring with three positions", { bed: { polygon: { type: "Polygon", coordinates: [[[0, 0], [0.001, 0], [0, 0]]] } } }, "bed.polygon.coordinates.0"],
+    ["a longitude out of range", { bed: { polygon: { type: "Polygon", coordinates: [[[0, 0], [190, 0], [190, 1], [0, 1], [0, 0]]] } } }, "bed.polygon.coordinates.0.1.0"],
+    ["an outline over a hectare", { bed: { polygon: square(0.01) } }, "bed.polygon"],
+    ["not a Polygon", { bed: { polygon: { type: "Point", coordinates: [0, 0] } } }, "bed.polygon.type"],
+    ["leaves too deep", { bed: { length_m: 2, width_m: 2 }, layers: { leaves: { depth_cm: 31 } } }, "layers.leaves.depth_cm"],
+    ["straw too thin", { bed: { length_m: 2, width_m: 2 }, layers: { straw: { depth_cm: 1 } } }, "layers.straw.depth_cm"],
+    ["chips too deep", { bed: { length_m: 2, width_m: 2 }, layers: { wood_chips: { depth_cm: 16 } } }, "layers.wood_chips.depth_cm"],
+    ["an overlap under 10 cm", { bed: { length_m: 2, width_m: 2 }, layers: { cardboard: { overlap_cm: 5 } } }, "layers.cardboard.overlap_cm"],
+    ["a tiny sheet", { bed: { length_m: 2, width_m: 2 }, layers: { cardboard: { sheet_width_m: 0.2 } } }, "layers.cardboard.sheet_width_m"],
+    ["a layer that is neither on/off nor settings", { bed: { length_m: 2, width_m: 2 }, layers: { straw: "yes" } }, "layers.straw"],
+    ["a negative worm stocking", { bed: { length_m: 2, width_m: 2 }, layers: { worms: { kg_per_m2: -1 } } }, "layers.worms.kg_per_m2"],
+    ["a date not on the calendar", { bed: { length_m: 2, width_m: 2 }, start_date: "2023-02-29" }, "start_date"],
+    ["a latitude past the pole", { bed: { length_m: 2, width_m: 2 }, latitude: 91 }, "latitude"],
+    ["a moisture target over 65 %", { bed: { length_m: 2, width_m: 2 }, target_moisture_pct: 70 }, "target_moisture_pct"],
+    ["a moisture target under 40 %", { bed: { length_m: 2, width_m: 2 }, target_moisture_pct: 30 }, "target_moisture_pct"],
+  ])("flags %s at %s", (_name, input, path) => {
+    expect(paths(estimateSchema.safeParse(input))).toContain(path);
+  });
+
+  it("gives every issue a message", () => {
+    const r = estimateSchema.safeParse({ bed: { length_m: -1 }, latitude: 100, layers: { leaves: { depth_cm: 0 } } });
+    expect(r.success).toBe(false);
+    for (const issue of r.error!.issues) expect(issue.message.length).toBeGreaterThan(0);
+  });
+});
+
+describe("blendSchema", () => {
+  it("accepts named materials and a fully described unnamed one", () => {
+    const r = blendSchema.safeParse({
+      components: [{ material: "leaves", mass_kg: 10 }, { mass_kg: 2, moisture_pct: 60, n_pct: 2, c_pct: 40 }],
+      target_moisture_pct: 55,
+    });
+    expect(r.success).toBe(true);
+  });
+
+  it.each<[string, unknown, string]>([
+    ["an unknown material", { components: [{ material: "sand", mass_kg: 1 }] }, "components.0.material"],
+    ["no components", { components: [] }, "components"],
+    ["too many components", { components: Array.from({ length: 51 }, () => ({ material: "leaves", mass_kg: 1 })) }, "components"],
+    ["a zero mass", { components: [{ material: "leaves", mass_kg: 0 }] }, "components.0.mass_kg"],
+    ["an absurd mass", { components: [{ material: "leaves", mass_kg: 2e6 }] }, "components.0.mass_kg"],
+    ["moisture of 100 %", { components: [{ material: "leaves", mass_kg: 1, moisture_pct: 100 }] }, "components.0.moisture_pct"],
+    ["nitrogen over 20 %", { components: [{ material: "leaves", mass_kg: 1, n_pct: 25 }] }, "components.0.n_pct"],
+    ["a C:N over 2000", { components: [{ material: "leaves", mass_kg: 1, cn_ratio: 5000 }] }, "components.0.cn_ratio"],
+    ["an unnamed component without moisture", { components: [{ mass_kg: 1, n_pct: 1, cn_ratio: 30 }] }, "components.0.moisture_pct"],
+    ["an unnamed component without nitrogen", { components: [{ mass_kg: 1, moisture_pct: 50, cn_ratio: 30 }] }, "components.0.n_pct"],
+    ["an unnamed component without carbon", { components: [{ mass_kg: 1, moisture_pct: 50, n_pct: 1 }] }, "components.0.cn_ratio"],
+    ["compost without its analysis", { components: [{ material: "leaves", mass_kg: 1 }, { material: "compost", mass_kg: 1 }] }, "components.1.n_pct"],
+    ["a target of 0 %", { components: [{ material: "leaves", mass_kg: 1 }], target_moisture_pct: 0 }, "target_moisture_pct"],
+  ])("flags %s at %s", (_name, input, path) => {
+    expect(paths(blendSchema.safeParse(input))).toContain(path);
+  });
+});
