@@ -42,7 +42,7 @@ const config: Record<string, Knex.Config> = {
     : sqlite(process.env.DATABASE_FILE ?? path.join(root, "db", "duffbank.sqlite")),
 };
 
-export function configFor(env = process.env.NODE_ENV ?? "development"): Knex.Config {
+export function configFor(env: string = process.env.NODE_ENV ?? "development"): Knex.Config {
   return config[env] ?? config.development;
 }
 
