@@ -1,5 +1,6 @@
 // Input to POST /api/estimate and the estimate form. Every issue carries the path of the
 // field it is about, so the handler can put a message beside each field.
+import type { Polygon } from "geojson";
 import { z } from "zod";
 import { isValidRing, polygonArea } from "@/lib/calc/area";
 import { CARDBOARD_OVERLAP_CM, LAYER_DEPTH_CM, MOISTURE_PCT } from "@/lib/calc/facts";
@@ -66,7 +67,8 @@ const bedSchema = z
       ctx.addIssue({ code: "custom", path: [], message: `A bed can be at most ${MAX_BED_AREA_M2.toLocaleString("en-US")} m²` });
     }
   })
-  .transform((bed): { length_m: number; width_m: number } | { polygon: z.infer<typeof polygonGeometry> } =>
+  // Out as plain GeoJSON, so callers holding a Turf or Leaflet Polygon can build the type.
+  .transform((bed): { length_m: number; width_m: number } | { polygon: Polygon } =>
     bed.polygon ? { polygon: bed.polygon } : { length_m: bed.length_m!, width_m: bed.width_m! },
   );
 

@@ -7,7 +7,7 @@ const LB_GAL = 0.45359237 / 0.003785411784; // kg/m³ per lb/US gal (NIST HB44) 
 
 describe("estimate — a 4 × 1.2 m bed with every default", () => {
   const r = estimate({ bed: { length_m: 4, width_m: 1.2 }, start_date: "2026-03-01" });
-  const need = (m: string) => r.needs.find((n) => n.material === m) as Record<string, unknown>;
+  const need = (m: string) => r.needs.find((n) => n.material === m) as unknown as Record<string, unknown>;
 
   it("lists the four default layers in order, with the contract's fields", () => {
     expect(r.area_m2).toBeCloseTo(4.8, 10);
