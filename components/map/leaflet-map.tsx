@@ -1,0 +1,130 @@
+"use client";
+import "leaflet/dist/leaflet.css";
+import { useEffect, useState } from "react";
+import { CircleMarker, GeoJSON, MapContainer, Polygon, Polyline, TileLayer, Tooltip, useMap, useMapEvents } from "react-leaflet";
+import type { Feature, FeatureCollection } from "geojson";
+import type { PathOptions } from "leaflet";
+import type { MapProps } from "./types";
+
+// The base map is Duffbank's own GeoJSON drawing shipped in public/, so the map works with
+// no tile server. A production deployment can add real tiles with NEXT_PUBLIC_TILE_URL.
+const TILE_URL = process.env.NEXT_PUBLIC_TILE_URL;
+const BASEMAP_URL = process.env.NEXT_PUBLIC_BASEMAP_URL ?? "/basemap/fernhollow.geojson";
+
+const STYLE: Record<string, PathOptions> = {
+  land: { color: "#ece3d6", weight: 0, fillColor: "#f3ede4", fillOpacity: 1 },
+  town: { color: "#d9c6ad", weight: 1, fillColor: "#e8dccb", fillOpacity: 1 },
+  wood: { color: "#94b97c", weight: 1, fillColor: "#bcd4ac", fillOpacity: 0.9 },
+  park: { color: "#94b97c", weight: 1, fillColor: "#dde9d5", fillOpacity: 1 },
+  water: { color: "#7fa7c4", weight: 5, opacity: 0.9 },
+  road: { color: "#ffffff", weight: 5, opacity: 1 },
+  lane: { color: "#ffffff", weight: 2.5, opacity: 1 },
+};
+
+function Basemap() {
+  const [data, setData] = useState<FeatureCollection | null>(null);
+  useEffect(() => {
+    let live = true;
+    fetch(BASEMAP_URL)
+      .then((r) => r.json())
+      .then((d) => live && setData(d))
+      .catch(() => undefined);
+    return () => {
+      live = false;
+    };
+  }, []);
+  if (!data) return null;
+  return (
+    <GeoJSON
+      data={data}
+      style={(f?: Feature) => STYLE[(f?.properties?.kind as string) ?? "land"] ?? {}}
+      pointToLayer={() => null as never}
+      filter={(f) => f.properties?.kind !== "label"}
+      interactive={false}
+    />
+  );
+}
+
+function Labels() {
+  const [labels, setLabels] = useState<{ name: string; lat: number; lng: number }[]>([]);
+  useEffect(() => {
+    fetch(BASEMAP_URL)
+      .then((r) => r.json())
+      .then((d: FeatureCollection) =>
+        setLabels(
+          d.features
+            .filter((f) => f.properties?.kind === "label" && f.geometry.type === "Point")
+            .map((f) => {
+              const [lng, lat] = (f.geometry as { coordinates: number[] }).coordinates;
+              return { name: String(f.properties?.name), lat, lng };
+            }),
+        ),
+      )
+      .catch(() => undefined);
+  }, []);
+  return (
+    <>
+      {labels.map((l) => (
+        <CircleMarker key={l.name} center={[l.lat, l.lng]} radius={0} interactive={false}>
+          <Tooltip permanent direction="center" className="duff-place-label">
+            {l.name}
+          </Tooltip>
+        </CircleMarker>
+      ))}
+    </>
+  );
+}
+
+function ClickCatcher({ onClick }: { onClick?: (p: { lat: number; lng: number }) => void }) {
+  useMapEvents({ click: (e) => onClick?.({ lat: e.latlng.lat, lng: e.latlng.lng }) });
+  return null;
+}
+
+function FitTo({ points }: { points?: { lat: number; lng: number }[] }) {
+  const map = useMap();
+  const key = points?.map((p) => `${p.lat},${p.lng}`).join(";");
+  useEffect(() => {
+    if (points && points.length > 1) map.fitBounds(points.map((p) => [p.lat, p.lng] as [number, number]), { padding: [30, 30], maxZoom: 15 });
+    else if (points && points.length === 1) map.setView([points[0].lat, points[0].lng], Math.max(map.getZoom(), 13));
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [key]);
+  return null;
+}
+
+export function LeafletMap({ center, zoom = 13, markers = [], polygon, line, onClick, fitTo, label, className = "h-80" }: MapProps) {
+  return (
+    <div className={`overflow-hidden rounded-lg ring-1 ring-humus-200 ${className}`} role="region" aria-label={label}>
+      <MapContainer center={[center.lat, center.lng]} zoom={zoom} minZoom={10} maxZoom={18} className="h-full w-full" style={{ background: "#f3ede4" }} attributionControl={!!TILE_URL}>
+        {TILE_URL ? <TileLayer url={TILE_URL} attribution={process.env.NEXT_PUBLIC_TILE_ATTRIBUTION ?? ""} /> : <Basemap />}
+        {TILE_URL ? null : <Labels />}
+        <ClickCatcher onClick={onClick} />
+        <FitTo points={fitTo} />
+        {polygon && polygon.length > 0 ? (
+          polygon.length > 2 ? (
+            <Polygon positions={polygon.map((p) => [p.lat, p.lng])} pathOptions={{ color: "#40642e", weight: 3, fillColor: "#94b97c", fillOpacity: 0.45 }} />
+          ) : (
+            <Polyline positions={polygon.map((p) => [p.lat, p.lng])} pathOptions={{ color: "#40642e", weight: 3, dashArray: "4 4" }} />
+          )
+        ) : null}
+        {polygon?.map((p, i) => <CircleMarker key={`v${i}`} center={[p.lat, p.lng]} radius={5} pathOptions={{ color: "#40642e", fillColor: "#fff", fillOpacity: 1 }} />)}
+        {line && line.length > 1 ? <Polyline positions={line.map((p) => [p.lat, p.lng])} pathOptions={{ color: "#93600f", weight: 3, dashArray: "6 6" }} /> : null}
+        {markers.map((m) => (
+          <CircleMarker
+            key={m.id}
+            center={[m.lat, m.lng]}
+            radius={m.order !== undefined ? 12 : 8}
+            pathOptions={{ color: m.tone === "origin" ? "#271c13" : "#40642e", weight: 2, fillColor: m.tone === "origin" ? "#d9962b" : "#6f9b55", fillOpacity: 0.9 }}
+            eventHandlers={m.onSelect ? { click: m.onSelect } : undefined}
+          >
+            {m.order !== undefined ? (
+              <Tooltip permanent direction="center" className="duff-stop-number">
+                {m.order}
+              </Tooltip>
+            ) : null}
+            {m.label ? <Tooltip>{m.label}</Tooltip> : null}
+          </CircleMarker>
+        ))}
+      </MapContainer>
+    </div>
+  );
+}

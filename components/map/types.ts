@@ -1,0 +1,32 @@
+export interface LatLng {
+  lat: number;
+  lng: number;
+}
+
+export interface MapMarker extends LatLng {
+  id: string;
+  label?: string;
+  /** A visiting order number drawn on the marker. */
+  order?: number;
+  tone?: "listing" | "origin";
+  onSelect?: () => void;
+}
+
+export interface MapProps {
+  center: LatLng;
+  zoom?: number;
+  markers?: MapMarker[];
+  /** A drawn outline (vertices in order); closed when it has three or more. */
+  polygon?: LatLng[];
+  /** A route drawn as straight segments. */
+  line?: LatLng[];
+  onClick?: (p: LatLng) => void;
+  /** Points the view should fit when they change. */
+  fitTo?: LatLng[];
+  /** Accessible name of the map region. */
+  label: string;
+  className?: string;
+}
+
+/** The demo town's centre, where maps open when nothing else is known. */
+export const DEFAULT_CENTER: LatLng = { lat: 52.205, lng: 0.847 };
