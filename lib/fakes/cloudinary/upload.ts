@@ -73,7 +73,7 @@ function deliveryUrl(ctx: UploadContext, asset: Pick<StoredAsset, "version" | "p
   return `${ctx.baseUrl()}/${ctx.cloudName}/image/upload/v${asset.version}/${asset.public_id}.${asset.format}`;
 }
 
-function describe(ctx: UploadContext, asset: StoredAsset, extra: Record<string, unknown> = {}) {
+function uploadResponse(ctx: UploadContext, asset: StoredAsset, extra: Record<string, unknown> = {}) {
   const { file: _file, ...rest } = asset;
   const url = deliveryUrl(ctx, asset);
   return {
@@ -126,7 +126,7 @@ export async function handleUpload(req: IncomingMessage, res: ServerResponse, ct
   const existing = ctx.store.get(publicId);
   // The SDK sends booleans as "1"/"0" (utils.as_safe_bool); HTML forms send "true"/"false".
   if (existing && (fields.overwrite === "0" || fields.overwrite === "false")) {
-    return sendJson(res, 200, describe(ctx, existing, { existing: true }));
+    return sendJson(res, 200, uploadResponse(ctx, existing, { existing: true }));
   }
 
   let image;
@@ -160,7 +160,7 @@ export async function handleUpload(req: IncomingMessage, res: ServerResponse, ct
 
   await ctx.store.put(asset, image.data);
   if (existing) ctx.cache.evict(existing.version_id);
-  sendJson(res, 200, describe(ctx, asset));
+  sendJson(res, 200, uploadResponse(ctx, asset));
 }
 
 export async function handleDestroy(req: IncomingMessage, res: ServerResponse, ctx: UploadContext): Promise<void> {
