@@ -1,16 +1,47 @@
-// Starts every local fake the app talks to in development and in `npm start`.
-// Ports come from the environment so tests and a second checkout can pick others.
+// Starts every local fake the app talks to in development, `npm start` and the e2e run:
+// the SMTP catcher with its inbox, the Stripe-compatible API with its hosted payment page,
+// and the Cloudinary-compatible upload and delivery server. Ports come from the
+// environment so tests and a second checkout can pick others.
+import path from "node:path";
 import { startSmtpFake } from "./smtp/server";
+import { DEFAULT_WEBHOOK_SECRET, startStripeFake } from "./stripe/server";
+import { startCloudinaryFake } from "./cloudinary/server";
+import { parseFakeEnv } from "./cloudinary/config";
 
 async function main() {
+  const appPort = Number(process.env.PORT ?? 3000);
   const smtp = await startSmtpFake({
     smtpPort: Number(process.env.SMTP_PORT ?? 12025),
     httpPort: Number(process.env.INBOX_PORT ?? 12026),
   });
   console.log(`[fakes] SMTP on 127.0.0.1:${smtp.smtpPort}, inbox at ${smtp.inboxUrl}`);
 
+  const webhookUrl = process.env.STRIPE_WEBHOOK_URL ?? `http://127.0.0.1:${appPort}/api/webhooks/stripe`;
+  const stripe = await startStripeFake({
+    port: Number(process.env.STRIPE_FAKE_PORT ?? 12111),
+    webhookUrl,
+    webhookSecret: process.env.STRIPE_WEBHOOK_SECRET ?? DEFAULT_WEBHOOK_SECRET,
+    publicBaseUrl: process.env.STRIPE_FAKE_PUBLIC_URL,
+    dataFile: process.env.STRIPE_FAKE_DATA || undefined,
+    log: (line) => console.log(`[stripe-fake] ${line}`),
+  });
+  console.log(`[fakes] Stripe API at ${stripe.url}, webhooks to ${webhookUrl}`);
+
+  const photos = parseFakeEnv(process.env);
+  const cloudinary = await startCloudinaryFake({
+    port: photos.port,
+    cloudName: photos.cloudName,
+    apiKey: photos.apiKey,
+    apiSecret: photos.apiSecret,
+    dataDir: path.resolve(photos.dataDir),
+  });
+  console.log(`[fakes] Cloudinary at ${cloudinary.url} (cloud "${photos.cloudName}")`);
+
+  let closing = false;
   const stop = async () => {
-    await smtp.close();
+    if (closing) return;
+    closing = true;
+    await Promise.allSettled([smtp.close(), stripe.close(), cloudinary.close()]);
     process.exit(0);
   };
   process.on("SIGINT", stop);
