@@ -1,13 +1,8 @@
 import { area as turfArea, centerOfMass, kinks, polygon as turfPolygon } from "@turf/turf";
 import type { Polygon, Position } from "geojson";
+import { assertPositiveFinite } from "./numbers";
 
 export type { Polygon, Position };
-
-function assertPositiveFinite(name: string, value: number): void {
-  if (!Number.isFinite(value) || value <= 0) {
-    throw new RangeError(`${name} must be a positive finite number, got ${value}`);
-  }
-}
 
 export function rectangleArea(length_m: number, width_m: number): number {
   assertPositiveFinite("length_m", length_m);

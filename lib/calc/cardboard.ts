@@ -1,6 +1,7 @@
 import type { Polygon, Position } from "geojson";
 import { polygonCentroid } from "./area";
 import { CARDBOARD_OVERLAP_CM, DEFAULT_CARDBOARD_SHEET } from "./facts";
+import { assertPositiveFinite, ceilWhole } from "./numbers";
 
 export type CardboardBed = { length_m: number; width_m: number } | { area_m2: number } | { polygon: Polygon };
 
@@ -16,10 +17,8 @@ export interface CardboardNeed {
   area_m2: number;
 }
 
-// Floating-point division can land a hair above a whole number (2.0000000000000004) and
-// ceil would then ask for a sheet nobody needs.
-const EPS = 1e-9;
-const ceilCount = (x: number) => Math.max(1, Math.ceil(x - EPS));
+// Even a bed smaller than the overlap takes one sheet.
+const ceilCount = (x: number) => Math.max(1, ceilWhole(x));
 
 /** Sheets of `sheet` length laid in a row, each overlapping the last by `overlap`, to span `span`. */
 function sheetsAlong(span: number, sheet: number, overlap: number): number {
@@ -55,9 +54,8 @@ export function cardboardFor(bed: CardboardBed, opts: CardboardOptions = {}): Ca
     sheets = Math.min(countSheetsOverRings(rings, sl, sw, o), countSheetsOverRings(rings, sw, sl, o));
   } else {
     const [L, W] = "area_m2" in bed ? [Math.sqrt(bed.area_m2), Math.sqrt(bed.area_m2)] : [bed.length_m, bed.width_m];
-    if (!(L > 0 && W > 0 && Number.isFinite(L) && Number.isFinite(W))) {
-      throw new RangeError("bed sides must be positive and finite");
-    }
+    assertPositiveFinite("bed length", L);
+    assertPositiveFinite("bed width", W);
     sheets = Math.min(
       sheetsAlong(L, sl, o) * sheetsAlong(W, sw, o),
       sheetsAlong(L, sw, o) * sheetsAlong(W, sl, o),

@@ -1,5 +1,6 @@
 import { BAG_M3, BALE_M3, CARDBOARD_KG_PER_M2, DEFAULT_CARDBOARD_SHEET, type MaterialCode } from "./facts";
 import { massFromVolume } from "./layers";
+import { assertNonNegativeFinite, assertPositiveFinite } from "./numbers";
 
 export type DiversionUnit = "m2" | "m3" | "kg" | "sheets" | "bags" | "bales";
 
@@ -10,10 +11,8 @@ export type DiversionUnit = "m2" | "m3" | "kg" | "sheets" | "bags" | "bales";
  * are as handed over — a bale is weighed compressed, not spread.
  */
 export function divertedKg(material: MaterialCode, quantity: number, unit: DiversionUnit, unitSize?: number): number {
-  if (!(quantity >= 0 && Number.isFinite(quantity))) throw new RangeError("quantity must be non-negative and finite");
-  if (unitSize !== undefined && !(unitSize > 0 && Number.isFinite(unitSize))) {
-    throw new RangeError("unitSize must be positive and finite");
-  }
+  assertNonNegativeFinite("quantity", quantity);
+  if (unitSize !== undefined) assertPositiveFinite("unitSize", unitSize);
   switch (unit) {
     case "kg":
       return quantity;

@@ -9,6 +9,7 @@ import { cardboardFor } from "./cardboard";
 import { estimateCautions } from "./cautions";
 import { CARDBOARD_KG_PER_M2, LAYER_DEPTH_CM, MOISTURE_PCT, WORM_STOCKING_KG_PER_M2 } from "./facts";
 import { bagsFor, balesFor, layerVolume, massFromVolume } from "./layers";
+import { roundTo } from "./numbers";
 import { type TimelineEvent, timeline } from "./timeline";
 import { lToUsGal } from "./units";
 import { wormsFor } from "./worms";
@@ -54,10 +55,6 @@ export interface EstimateResult {
 
 type BedShape = { length_m: number; width_m: number } | { polygon: Polygon };
 
-const round = (x: number, places: number) => {
-  const f = 10 ** places;
-  return Math.round(x * f) / f;
-};
 const M3 = 3;
 const KG = 2;
 
@@ -95,14 +92,14 @@ export function estimate(input: EstimateInput, now: Date = new Date()): Estimate
   if (cardboard) {
     const sheets = cardboardFor(bed, cardboard);
     const mass = sheets.area_m2 * CARDBOARD_KG_PER_M2;
-    needs.push({ material: "cardboard", quantity: round(sheets.area_m2, 2), unit: "m2", sheets: sheets.sheets, mass_kg: round(mass, KG) });
+    needs.push({ material: "cardboard", quantity: roundTo(sheets.area_m2, 2), unit: "m2", sheets: sheets.sheets, mass_kg: roundTo(mass, KG) });
     composting.push({ material: "cardboard", mass_kg: mass });
   }
   const spreadLayer = <M extends "leaves" | "straw" | "wood_chips">(material: M, depth_cm: number) => {
     const m3 = layerVolume(area, depth_cm);
     const mass = massFromVolume(material, m3, { spread: true });
     composting.push({ material, mass_kg: mass });
-    return { m3, line: { material, quantity: round(m3, M3), unit: "m3" as const, mass_kg: round(mass, KG), depth_cm } };
+    return { m3, line: { material, quantity: roundTo(m3, M3), unit: "m3" as const, mass_kg: roundTo(mass, KG), depth_cm } };
   };
   if (leaves) {
     const { m3, line } = spreadLayer("leaves", leaves.depth_cm ?? LAYER_DEPTH_CM.leaves.default);
@@ -117,7 +114,7 @@ export function estimate(input: EstimateInput, now: Date = new Date()): Estimate
   }
   if (worms) {
     const w = wormsFor(area, worms.kg_per_m2 ?? WORM_STOCKING_KG_PER_M2);
-    needs.push({ material: "worms", quantity: round(w.kg, KG), unit: "kg", count: w.count });
+    needs.push({ material: "worms", quantity: roundTo(w.kg, KG), unit: "kg", count: w.count });
   }
 
   const target = input.target_moisture_pct ?? MOISTURE_PCT.target;
@@ -126,13 +123,13 @@ export function estimate(input: EstimateInput, now: Date = new Date()): Estimate
   const latitude = input.latitude ?? centroid?.lat ?? null;
 
   return {
-    area_m2: round(area, 2),
+    area_m2: roundTo(area, 2),
     needs,
-    water_l: round(water_l, 1),
-    water_us_gal: round(lToUsGal(water_l), 1),
+    water_l: roundTo(water_l, 1),
+    water_us_gal: roundTo(lToUsGal(water_l), 1),
     blend: {
-      cn_ratio: mix ? round(mix.cn_ratio, 1) : null,
-      moisture_pct: mix ? round(mix.moisture_pct, 1) : null,
+      cn_ratio: mix ? roundTo(mix.cn_ratio, 1) : null,
+      moisture_pct: mix ? roundTo(mix.moisture_pct, 1) : null,
       advice: mix ? blendAdvice(mix) : null,
     },
     timeline: timeline(input.start_date ?? todayUtc(now), latitude, { worms: worms !== null }),

@@ -1,15 +1,6 @@
 import { BAG_M3, BALE_EXPANSION_FACTOR, BALE_M3, MATERIALS, type MaterialCode } from "./facts";
+import { assertNonNegativeFinite, ceilWhole } from "./numbers";
 
-// Whole units are bought and carried, and a float a hair over a whole number must not
-// round up to an extra bag.
-const EPS = 1e-9;
-const wholeUnits = (x: number) => (x <= 0 ? 0 : Math.ceil(x - EPS));
-
-function assertNonNegativeFinite(name: string, value: number): void {
-  if (!Number.isFinite(value) || value < 0) {
-    throw new RangeError(`${name} must be a non-negative finite number, got ${value}`);
-  }
-}
 
 /** m³ of a layer `depth_cm` deep over `area_m2`. */
 export function layerVolume(area_m2: number, depth_cm: number): number {
@@ -34,7 +25,7 @@ export function massFromVolume(material: MaterialCode, m3: number, opts: { sprea
 export function bagsFor(m3: number, bag_m3: number = BAG_M3): number {
   assertNonNegativeFinite("m3", m3);
   if (!(bag_m3 > 0)) throw new RangeError("bag_m3 must be positive");
-  return wholeUnits(m3 / bag_m3);
+  return ceilWhole(m3 / bag_m3);
 }
 
 /** Bales needed to spread `m3_spread` on a bed: each bale covers bale_m3 × expansion once loosened. */
@@ -45,5 +36,5 @@ export function balesFor(
 ): number {
   assertNonNegativeFinite("m3_spread", m3_spread);
   if (!(bale_m3 > 0) || !(expansion >= 1)) throw new RangeError("bale_m3 must be positive and expansion at least 1");
-  return wholeUnits(m3_spread / (bale_m3 * expansion));
+  return ceilWhole(m3_spread / (bale_m3 * expansion));
 }
