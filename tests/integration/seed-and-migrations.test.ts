@@ -59,7 +59,7 @@ describe("migrations", () => {
     expect(afterDown).toEqual([]);
     await ctx.db.migrate.latest();
     const afterUp = (await ctx.db.raw("select name from sqlite_master where type = 'table'")).map((r: any) => r.name);
-    for (const t of [...TABLES, "reservations", "payments", "webhook_events", "email_outbox", "audit_log", "listing_photos", "verification_tokens"]) expect(afterUp).toContain(t);
+    for (const t of [...TABLES, "reviews", "reservations", "payments", "webhook_events", "email_outbox", "audit_log", "listing_photos", "verification_tokens"]) expect(afterUp).toContain(t);
   });
 
   it("make the audit log append-only and keep quantities in range", async () => {
