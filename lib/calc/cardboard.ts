@@ -1,6 +1,6 @@
 import type { Polygon, Position } from "geojson";
 import { polygonCentroid } from "./area";
-import { CARDBOARD_OVERLAP_CM, DEFAULT_CARDBOARD_SHEET } from "./facts";
+import { CARDBOARD_OVERLAP_CM, DEFAULT_CARDBOARD_SHEET, EARTH_MEAN_RADIUS_M } from "./facts";
 import { assertPositiveFinite, ceilWhole } from "./numbers";
 
 export type CardboardBed = { length_m: number; width_m: number } | { area_m2: number } | { polygon: Polygon };
@@ -68,9 +68,6 @@ export function cardboardFor(bed: CardboardBed, opts: CardboardOptions = {}): Ca
 
 type XY = [number, number];
 
-// Turf's mean Earth radius, so the local projection agrees with polygonArea.
-const EARTH_RADIUS_M = 6_371_008.8;
-
 /**
  * Equirectangular projection about the centroid, rotated so the longest edge of the outer
  * ring runs along x. Over a bed of at most a hectare the distortion is far below a sheet's
@@ -81,8 +78,8 @@ function projectToLocalMetres(geometry: Polygon): XY[][] {
   const k = Math.PI / 180;
   const cosLat = Math.cos(lat * k);
   const toXY = ([x, y]: Position): XY => [
-    (x - lng) * k * EARTH_RADIUS_M * cosLat,
-    (y - lat) * k * EARTH_RADIUS_M,
+    (x - lng) * k * EARTH_MEAN_RADIUS_M * cosLat,
+    (y - lat) * k * EARTH_MEAN_RADIUS_M,
   ];
   const rings = geometry.coordinates.map((ring) => ring.slice(0, -1).map(toXY));
   const angle = longestEdgeAngle(rings[0]);

@@ -26,6 +26,12 @@ export const FOOT_M = INCHES_PER_FOOT * INCH_M;
 export const YARD_M = FEET_PER_YARD * FOOT_M;
 export const US_GALLON_M3 = US_GALLON_IN3 * INCH_M ** 3;
 
+/**
+ * The sphere Turf measures on: 6,371,008.8 m, the IUGG/GRS80 mean radius rounded. Local
+ * projections use the same one so they agree with polygonArea.
+ */
+export const EARTH_MEAN_RADIUS_M = 6_371_008.8;
+
 // Density conversions, derived:
 //   1 lb/US gal = 0.45359237 kg / 0.003785411784 m³ = 119.826427 kg/m³
 //   1 lb/yd³    = 0.45359237 kg / 0.764554857984 m³ = 0.593276 kg/m³
