@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { profileSchema, signUpSchema } from "@/lib/validation/auth";
 import { roleDecisionSchema } from "@/lib/validation/moderation";
+import { matchSchema } from "@/lib/validation/match";
 
 export interface RouteDoc {
   method: "get" | "post" | "patch" | "put" | "delete";
@@ -26,5 +27,6 @@ export const API_ROUTES: RouteDoc[] = [
   { method: "patch", path: "/api/me", summary: "Update name, units, reminders and requested roles", tag: "accounts", auth: "signed-in", body: profileSchema, errors: [400, 401, 422] },
   { method: "get", path: "/api/council/members", summary: "Staff of my council", tag: "councils", auth: ["council"], errors: [401, 403] },
   { method: "get", path: "/api/moderation/role-requests", summary: "Roles waiting for a decision", tag: "moderation", auth: ["moderator"], errors: [401, 403] },
+  { method: "post", path: "/api/match", summary: "Plan pickups: nearby listings that cover needs or a saved bed, in visiting order and carloads", tag: "matching", auth: "public", body: matchSchema, errors: [400, 401, 404, 422] },
   { method: "post", path: "/api/moderation/role-requests/{userId}", summary: "Approve or refuse a requested role", tag: "moderation", auth: ["moderator"], body: roleDecisionSchema, errors: [400, 401, 403, 404, 409, 422] },
 ];
