@@ -3,7 +3,7 @@ import type { Knex } from "knex";
 import { db, type Db } from "@/db/index";
 import type { MaterialCode } from "@/lib/calc/facts";
 import { UNIT_PRICE_INDEX, UNIT_PRICE_SQL } from "@/migrations/20261201_004_listing_unit_price";
-import { boundingBox, distanceKm } from "./geo";
+import { type Box, boundingBox, distanceKm } from "./geo";
 import type { CandidateSource, CheapestRows } from "./search";
 import type { CandidateListing, LatLng, ListingUnit } from "./types";
 
@@ -51,9 +51,8 @@ const LEFT_EPS = 1e-9;
 const isPg = (q: Db) => q.client.config.client === "pg";
 const table = (q: Db, index: string) => (isPg(q) ? "listings" : q.raw(`listings INDEXED BY ${index}`));
 
-/** Active, with something left, not past its end date, inside the box around `origin`. */
-function reservable(q: Db, index: string, materials: readonly MaterialCode[], origin: LatLng, km: number, now: Date): Knex.QueryBuilder {
-  const box = boundingBox(origin, km);
+/** Active, with something left, not past its end date, inside the box. */
+function reservable(q: Db, index: string, materials: readonly MaterialCode[], box: Box, now: Date): Knex.QueryBuilder {
   return q
     .from(table(q, index))
     .select(...COLUMNS)
@@ -89,17 +88,34 @@ export interface CandidateQuery {
   now?: Date;
 }
 
+/** Every reservable listing of `materials` whose public point lies in `box`, with its distance from `origin`. */
+export async function findInBox(
+  materials: readonly MaterialCode[],
+  box: Box,
+  origin: LatLng,
+  opts: { now?: Date; maxUnitPrice?: number } = {},
+  q: Db = db(),
+): Promise<CandidateListing[]> {
+  if (!materials.length) return [];
+  const now = opts.now ?? new Date();
+  // Under a price cap the price index reads only the listings that cheap.
+  const rows: Row[] =
+    opts.maxUnitPrice === undefined
+      ? await reservable(q, "listings_search_box", materials, box, now)
+      : await reservable(q, UNIT_PRICE_INDEX, materials, box, now).whereRaw(`${UNIT_PRICE_SQL} <= ?`, [opts.maxUnitPrice]);
+  return rows.map((r) => toCandidate(r, origin));
+}
+
 /** Every reservable listing of `materials` within `radius_km` of `origin`, by its public point. */
 export async function findCandidates({ origin, radius_km, materials, now = new Date() }: CandidateQuery, q: Db = db()): Promise<CandidateListing[]> {
-  if (!materials.length) return [];
-  const rows: Row[] = await reservable(q, "listings_search_box", materials, origin, radius_km, now);
-  return rows.map((r) => toCandidate(r, origin)).filter((c) => c.distance_km <= radius_km);
+  const found = await findInBox(materials, boundingBox(origin, radius_km), origin, { now }, q);
+  return found.filter((c) => c.distance_km <= radius_km);
 }
 
 /** The same, cheapest per unit size first, reading at most `limit` rows of the index. */
 export async function findCheapest(query: CandidateQuery & { limit: number }, q: Db = db()): Promise<CheapestRows> {
   const { origin, radius_km, materials, limit, now = new Date() } = query;
-  const rows: Row[] = await reservable(q, UNIT_PRICE_INDEX, materials, origin, radius_km, now)
+  const rows: Row[] = await reservable(q, UNIT_PRICE_INDEX, materials, boundingBox(origin, radius_km), now)
     .select(q.raw(`${UNIT_PRICE_SQL} AS unit_price`))
     .orderByRaw(UNIT_PRICE_SQL)
     .limit(limit);
@@ -128,7 +144,7 @@ export async function nearestListings(
 /** Matching's view of the database. */
 export function databaseSource(q: Db = db(), now: Date = new Date()): CandidateSource {
   return {
-    within: (material, origin, radius_km) => findCandidates({ origin, radius_km, materials: [material], now }, q),
+    inBox: (materials, box, origin, maxUnitPrice) => findInBox(materials, box, origin, { now, maxUnitPrice }, q),
     cheapest: (material, origin, radius_km, limit) => findCheapest({ origin, radius_km, materials: [material], limit, now }, q),
   };
 }
