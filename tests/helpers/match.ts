@@ -46,3 +46,37 @@ export function randomCounty(seed: number, count: number, km: number, centre: La
     return listing(centre, { ...base, material: "worms", unit: "kg", unit_size: null, available: 1 + Math.floor(r() * 4), price_cents: pick([1800, 2400, 3000]) });
   });
 }
+
+/** A listing row written straight to the database, public point as given. */
+export async function insertListing(
+  q: import("knex").Knex,
+  row: { owner_id: string; material_code: string; unit: string; approx: LatLng } & Record<string, unknown>,
+): Promise<string> {
+  const { approx, ...rest } = row;
+  const id = (rest.id as string | undefined) ?? crypto.randomUUID();
+  const now = new Date().toISOString();
+  await q("listings").insert({
+    title: `Test ${row.material_code}`,
+    description: "",
+    status: "active",
+    unit_size: null,
+    unit_mass_kg: null,
+    quantity_total: 10,
+    price_cents: 0,
+    currency: "eur",
+    deposit_cents: 0,
+    max_per_reservation: null,
+    auto_accept: false,
+    lat: approx.lat,
+    lng: approx.lng,
+    address: "1 Test Lane",
+    approx_lat: approx.lat,
+    approx_lng: approx.lng,
+    quality: "{}",
+    created_at: now,
+    updated_at: now,
+    ...rest,
+    id,
+  });
+  return id;
+}
