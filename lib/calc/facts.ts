@@ -12,6 +12,8 @@ export const INCH_M = 0.0254;
 /** NIST HB44 App. C: 1 foot = 12 inches; 1 yard = 3 feet. */
 export const INCHES_PER_FOOT = 12;
 export const FEET_PER_YARD = 3;
+/** NIST HB44 App. C: 1 (statute) mile = 5,280 feet. */
+export const FEET_PER_MILE = 5280;
 /** NIST HB44 App. C: 1 US liquid gallon = 231 cubic inches exactly. */
 export const US_GALLON_IN3 = 231;
 /** NIST HB44 App. C: 1 avoirdupois pound = 0.45359237 kg exactly. */
