@@ -35,7 +35,10 @@ function Basemap() {
   }, []);
   if (!data) return null;
   return (
+    // In the tile pane, under every marker and line: it loads after them, and would
+    // otherwise be drawn on top and hide them.
     <GeoJSON
+      pane="tilePane"
       data={data}
       style={(f?: Feature) => STYLE[(f?.properties?.kind as string) ?? "land"] ?? {}}
       pointToLayer={() => null as never}

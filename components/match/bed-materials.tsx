@@ -74,7 +74,7 @@ export function BedMaterials({ bedId, bedPoint, system: defaultSystem }: { bedId
               {shown.map((n) => (
                 <li key={n.material} className="flex justify-between gap-2">
                   <span>{MATERIALS[n.material].name}</span>
-                  <span className="font-medium">{formatQuantity(n.quantity, n.unit, system)}</span>
+                  <span className="whitespace-nowrap font-medium">{formatQuantity(n.quantity, n.unit, system)}</span>
                 </li>
               ))}
             </ul>
@@ -108,7 +108,7 @@ export function BedMaterials({ bedId, bedPoint, system: defaultSystem }: { bedId
           </h2>
           <UnitToggle value={system} onChange={setSystem} />
         </div>
-        <PlanMap origin={origin} stops={(plan?.stops ?? []).map((s) => ({ ...s, title: plan?.allocations.find((a) => a.listing_id === s.listing_id)?.title }))} onPick={pick} />
+        <PlanMap origin={origin} stops={plan?.stops ?? []} onPick={pick} />
         {query.isFetching ? <Spinner label="Finding the nearest supplies" /> : null}
         {query.isError ? (
           <Notice tone="error" title="No plan this time">

@@ -75,7 +75,7 @@ export function MatchPlanner({ initial, run, system: defaultSystem, skipped }: {
           </h2>
           <UnitToggle value={system} onChange={setSystem} />
         </div>
-        <PlanMap origin={plan?.origin ?? origin} stops={(plan?.stops ?? []).map((s) => ({ ...s, title: plan?.allocations.find((a) => a.listing_id === s.listing_id)?.title }))} onPick={pick} />
+        <PlanMap origin={plan?.origin ?? origin} stops={plan?.stops ?? []} onPick={pick} />
         {query.isFetching ? <Spinner label="Finding the nearest supplies" /> : null}
         {query.isError ? (
           <Notice tone="error" title="No plan this time">

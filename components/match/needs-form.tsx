@@ -2,6 +2,7 @@
 import { useFieldArray, type UseFormReturn } from "react-hook-form";
 import { MATERIAL_CODES, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { formatQuantity, type UnitSystem } from "@/lib/calc/units";
+import { materialNoun } from "@/lib/match/format";
 import { MAX_NEEDS, MAX_RADIUS_KM } from "@/lib/match/defaults";
 import type { MatchInput, MatchRequest } from "@/lib/validation/match";
 import { NEED_UNIT_LABEL, NEED_UNITS } from "@/lib/match/units";
@@ -42,9 +43,9 @@ export function NeedsForm({ form, system, onSubmit, busy }: { form: NeedsFormApi
           const err = errors.needs?.[i];
           const unitId = `need-${i}-unit`;
           return (
-            <div key={f.id} className="grid grid-cols-[1fr_6rem_5rem_auto] items-start gap-2 rounded-lg bg-humus-50 p-2 ring-1 ring-humus-200" data-need-row={i}>
-              <div className="flex flex-col gap-1">
-                <label htmlFor={`need-${i}-material`} className="text-sm font-medium">
+            <div key={f.id} className="grid grid-cols-[minmax(0,1fr)_6rem] items-start gap-x-2 rounded-lg bg-humus-50 p-3 ring-1 ring-humus-200" data-need-row={i}>
+              <div className="col-span-2 mb-2 flex flex-col gap-1">
+                <label htmlFor={`need-${i}-material`} className="font-medium">
                   Material
                 </label>
                 <select
@@ -77,7 +78,7 @@ export function NeedsForm({ form, system, onSubmit, busy }: { form: NeedsFormApi
                 hint={system === "imperial" && quantity > 0 ? `≈ ${formatQuantity(quantity, unit, "imperial")}` : undefined}
               />
               <div className="flex flex-col gap-1">
-                <label htmlFor={unitId} className="text-sm font-medium">
+                <label htmlFor={unitId} className="font-medium">
                   Unit
                 </label>
                 <select id={unitId} className={selectClass} aria-describedby={err?.unit ? `${unitId}-error` : undefined} {...form.register(`needs.${i}.unit`)}>
@@ -91,7 +92,7 @@ export function NeedsForm({ form, system, onSubmit, busy }: { form: NeedsFormApi
                   {err?.unit?.message ?? err?.material?.message ?? ""}
                 </p>
               </div>
-              <Button variant="quiet" className="mt-7" onClick={() => remove(i)} aria-label={`Remove ${MATERIALS[material].name.toLowerCase()}`}>
+              <Button variant="quiet" className="col-span-2 justify-self-end text-sm" onClick={() => remove(i)} aria-label={`Remove ${materialNoun(material)}`}>
                 Remove
               </Button>
             </div>

@@ -1,7 +1,7 @@
 "use client";
 import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { formatQuantity, type UnitSystem } from "@/lib/calc/units";
-import { formatCents, formatListingQuantity } from "@/lib/match/format";
+import { formatCents, formatListingQuantity, materialNoun } from "@/lib/match/format";
 import type { Need } from "@/lib/match/types";
 import { Notice } from "@/components/ui/notice";
 import { ReserveAll } from "./reserve-all";
@@ -79,8 +79,8 @@ export function PickupPlan({
                     </p>
                     <p>
                       Take <strong>{formatListingQuantity(a.listing_quantity, a.listing_unit, system)}</strong>
-                      {a.listing_unit === a.unit ? "" : ` (${formatQuantity(a.quantity, a.unit, system)} of ${MATERIALS[a.material].name.toLowerCase()})`}
-                      {a.listing_unit === a.unit ? ` of ${MATERIALS[a.material].name.toLowerCase()}` : ""}
+                      {a.listing_unit === a.unit ? "" : ` (${formatQuantity(a.quantity, a.unit, system)} of ${materialNoun(a.material)})`}
+                      {a.listing_unit === a.unit ? ` of ${materialNoun(a.material)}` : ""}
                     </p>
                     <p className="text-sm text-humus-600">
                       {formatCents(a.cost_cents, a.currency)}

@@ -6,14 +6,14 @@ export interface MapStop {
   order: number;
   listing_id: string;
   location: LatLng;
-  title?: string;
 }
 
 /** The start point and the numbered stops, joined in visiting order and back to the start. */
 export function PlanMap({ origin, stops, onPick }: { origin: LatLng; stops: MapStop[]; onPick?: (p: LatLng) => void }) {
   const markers: MapMarker[] = [
     { id: "origin", lat: origin.lat, lng: origin.lng, tone: "origin", label: "Start and finish" },
-    ...stops.map((s) => ({ id: s.listing_id, lat: s.location.lat, lng: s.location.lng, order: s.order, tone: "listing" as const, label: `${s.order}. ${s.title ?? "Pickup"}` })),
+    // No hover label on a numbered stop: a Leaflet layer holds one tooltip, and the number is it.
+    ...stops.map((s) => ({ id: s.listing_id, lat: s.location.lat, lng: s.location.lng, order: s.order, tone: "listing" as const })),
   ];
   const loop = stops.length ? [origin, ...stops.map((s) => s.location), origin] : undefined;
   return (

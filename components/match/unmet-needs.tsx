@@ -1,6 +1,7 @@
 "use client";
-import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
+import type { MaterialCode } from "@/lib/calc/facts";
 import { formatQuantity, type UnitSystem } from "@/lib/calc/units";
+import { materialNoun } from "@/lib/match/format";
 import { MAX_RADIUS_KM } from "@/lib/match/defaults";
 import { NO_SUBSTITUTE, SUBSTITUTES } from "@/lib/match/substitutes";
 import type { Need } from "@/lib/match/types";
@@ -33,14 +34,14 @@ export function UnmetNeeds({
         {unmet.map((n) => (
           <li key={n.material} className="flex flex-col gap-2">
             <p>
-              Still missing <strong>{formatQuantity(n.quantity, n.unit, system)}</strong> of {MATERIALS[n.material].name.toLowerCase()}.
+              Still missing <strong>{formatQuantity(n.quantity, n.unit, system)}</strong> of {materialNoun(n.material)}.
             </p>
             <div className="flex flex-wrap gap-2">
               {(SUBSTITUTES[n.material] ?? [])
                 .filter((s) => s.material !== n.material)
                 .map((s) => (
                   <Button key={s.material} variant="secondary" onClick={() => onSubstitute(n, s.material)} title={s.why}>
-                    Use {MATERIALS[s.material].name.toLowerCase()} instead
+                    Use {materialNoun(s.material)} instead
                   </Button>
                 ))}
             </div>

@@ -1,3 +1,4 @@
+import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { formatQuantity, type UnitSystem } from "@/lib/calc/units";
 import type { ListingUnit, NeedUnit } from "./types";
 
@@ -14,4 +15,10 @@ export function formatListingQuantity(quantity: number, unit: ListingUnit, syste
   const counted = COUNTED[unit];
   if (counted) return `${quantity} ${quantity === 1 ? counted[0] : counted[1]}`;
   return formatQuantity(quantity, unit as NeedUnit, system);
+}
+
+/** A material's name inside a sentence: "composting worms (Eisenia fetida)", species kept as written. */
+export function materialNoun(code: MaterialCode): string {
+  const name = MATERIALS[code].name;
+  return name[0].toLowerCase() + name.slice(1);
 }

@@ -2,9 +2,10 @@
 // visiting order, the carloads and the cautions. Pure: no I/O, so it is tested and
 // benchmarked on its own.
 import { CAUTION_NOTES } from "@/lib/calc/cautions";
-import { MATERIALS, NIOSH_LIFT_LIMIT_KG, NIOSH_LIFT_LIMIT_LB, type MaterialCode } from "@/lib/calc/facts";
+import { NIOSH_LIFT_LIMIT_KG, NIOSH_LIFT_LIMIT_LB, type MaterialCode } from "@/lib/calc/facts";
 import { roundTo } from "@/lib/calc/numbers";
 import { kgToLb } from "@/lib/calc/units";
+import { materialNoun } from "./format";
 import { allocate, type AllocationResult } from "./allocate";
 import { type CostOptions, DEFAULT_COSTS, DEFAULT_VEHICLE } from "./defaults";
 import { splitTrips, type Vehicle } from "./trips";
@@ -49,7 +50,7 @@ function materialCautions(materials: Set<MaterialCode>): Caution[] {
 function liftingCaution(heavy: Allocation[]): Caution | null {
   if (!heavy.length) return null;
   const items = heavy
-    .map((a) => `${MATERIALS[a.material].name.toLowerCase()} at about ${Math.round(a.item_kg!)} kg (${Math.round(kgToLb(a.item_kg!))} lb) each`)
+    .map((a) => `${materialNoun(a.material)} at about ${Math.round(a.item_kg!)} kg (${Math.round(kgToLb(a.item_kg!))} lb) each`)
     .join("; ");
   return {
     kind: "lifting",
