@@ -54,6 +54,19 @@ export async function requireUser(req: NextRequest, roles?: readonly Role[]): Pr
   return checkRoles(user, roles);
 }
 
+/** Public route handlers that show more to some people: the signed-in person, or null (suspended counts as nobody). */
+export async function optionalRequestUser(req: NextRequest): Promise<SessionUser | null> {
+  const token = await getToken({ req, secret: AUTH_SECRET });
+  const id = typeof token?.uid === "string" ? token.uid : null;
+  if (!id) return null;
+  try {
+    return await loadSessionUser(id);
+  } catch (err) {
+    if (err instanceof ApiError && err.code === "suspended") return null;
+    throw err;
+  }
+}
+
 /** Pages and server actions: null when nobody is signed in. */
 export async function currentUser(): Promise<SessionUser | null> {
   const session = await getServerSession(authOptions);

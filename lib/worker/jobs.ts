@@ -1,4 +1,5 @@
 import { deliverOutbox } from "@/lib/mail/deliver-outbox";
+import { expireListings } from "@/lib/services/expire-listings";
 
 export type Clock = () => Date;
 
@@ -10,4 +11,8 @@ export interface Job {
 
 // Background work; each job keeps its state in the database, so a restart loses nothing.
 // Later features add theirs here (hold expiry, timeline reminders).
-export const jobs: Job[] = [{ name: "deliver-outbox", everyMs: 2_000, run: (clock) => deliverOutbox(clock) }];
+export const jobs: Job[] = [
+  { name: "deliver-outbox", everyMs: 2_000, run: (clock) => deliverOutbox(clock) },
+  // Reads already treat a listing past its end date as expired; this makes the row say so.
+  { name: "expire-listings", everyMs: 60_000, run: (clock) => expireListings(clock) },
+];
