@@ -245,7 +245,8 @@ export const browseQuerySchema = z
       .string()
       .trim()
       .transform((s) => s.split(",").map((m) => m.trim()).filter(Boolean))
-      .pipe(z.array(z.enum(MATERIAL_CODES, { error: `material must be one of: ${MATERIAL_CODES.join(", ")}.` })).max(MATERIAL_CODES.length))
+      .refine((list) => list.every((m) => (MATERIAL_CODES as readonly string[]).includes(m)), `material must be one of: ${MATERIAL_CODES.join(", ")}.`)
+      .transform((list) => list as MaterialCode[])
       .optional(),
     free: z
       .enum(["true", "false", "1", "0"], { error: "free must be true or false." })
