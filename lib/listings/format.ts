@@ -65,7 +65,7 @@ export interface WindowView {
   ends_at?: string | null;
 }
 
-/** "Saturdays 09:00–12:00" or "Sat 14 Mar 2027, 10:00–13:00 (UTC)". */
+/** "Saturdays 09:00–12:00" or "Sun, 14 Mar 2027, 10:00–13:00 (UTC)". */
 export function formatWindow(w: WindowView): string {
   if (w.kind === "weekly") return `${WEEKDAYS[w.weekday ?? 0]}s ${w.start_time}–${w.end_time}`;
   const start = new Date(w.starts_at ?? "");
