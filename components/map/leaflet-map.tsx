@@ -113,7 +113,13 @@ export function LeafletMap({ center, zoom = 13, markers = [], polygon, line, onC
             key={m.id}
             center={[m.lat, m.lng]}
             radius={m.order !== undefined ? 12 : 8}
-            pathOptions={{ color: m.tone === "origin" ? "#271c13" : "#40642e", weight: 2, fillColor: m.tone === "origin" ? "#d9962b" : "#6f9b55", fillOpacity: 0.9 }}
+            pathOptions={{
+              color: m.tone === "origin" ? "#271c13" : m.tone === "selected" ? "#93600f" : "#40642e",
+              weight: m.tone === "selected" ? 4 : 2,
+              fillColor: m.tone === "origin" ? "#d9962b" : m.tone === "selected" ? "#f0c36b" : "#6f9b55",
+              fillOpacity: 0.9,
+              className: m.className,
+            }}
             eventHandlers={m.onSelect ? { click: m.onSelect } : undefined}
           >
             {m.order !== undefined ? (

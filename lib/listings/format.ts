@@ -2,7 +2,7 @@
 // pickup times. Pure and free of server code, so the browse list, the detail page and the
 // form all say the same thing.
 import { formatQuantity, lToUsGal, m2ToFt2, m3ToFt3, kgToLb, type UnitSystem } from "@/lib/calc/units";
-import { LITRE_M3, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
+import { FOOT_M, LITRE_M3, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import type { ListingUnit } from "@/lib/validation/listings";
 
 const COUNT_WORDS: Record<"sheets" | "bags" | "bales", [string, string]> = {
@@ -43,6 +43,15 @@ export function describeUnitSize(unit: ListingUnit, unitSize: number | null, uni
   return null;
 }
 
+/** NIST HB44 App. C: 1 mile = 5,280 ft. */
+const MILE_KM = (5280 * FOOT_M) / 1000;
+
+/** "about 400 m" / "about 3.2 km", or miles for imperial readers. */
+export function formatDistance(km: number, system: UnitSystem = "metric"): string {
+  if (system === "imperial") return `about ${(km / MILE_KM).toFixed(1)} mi`;
+  return km < 1 ? `about ${Math.max(100, Math.round(km * 10) * 100)} m` : `about ${km.toFixed(1)} km`;
+}
+
 /** "Free", or the price with its currency, per unit. Fixed locale so server and browser agree. */
 export function formatMoney(cents: number, currency: string): string {
   return new Intl.NumberFormat("en-GB", { style: "currency", currency: currency.toUpperCase() }).format(cents / 100);
@@ -65,14 +74,18 @@ export interface WindowView {
   ends_at?: string | null;
 }
 
-/** "Saturdays 09:00–12:00" or "Sun, 14 Mar 2027, 10:00–13:00 (UTC)". */
+/**
+ * "Saturdays 09:00–12:00" or "Sun, 14 Mar 2027, 10:00–13:00". Pickup times are wall-clock
+ * times at the pickup place, weekly and dated alike; dated ones are stored as that wall
+ * clock written in UTC, so they read back exactly as the supplier typed them.
+ */
 export function formatWindow(w: WindowView): string {
   if (w.kind === "weekly") return `${WEEKDAYS[w.weekday ?? 0]}s ${w.start_time}–${w.end_time}`;
   const start = new Date(w.starts_at ?? "");
   const end = new Date(w.ends_at ?? "");
   const day = new Intl.DateTimeFormat("en-GB", { weekday: "short", day: "numeric", month: "short", year: "numeric", timeZone: "UTC" }).format(start);
   const time = (d: Date) => new Intl.DateTimeFormat("en-GB", { hour: "2-digit", minute: "2-digit", timeZone: "UTC" }).format(d);
-  return `${day}, ${time(start)}–${time(end)} (UTC)`;
+  return `${day}, ${time(start)}–${time(end)}`;
 }
 
 export function formatDay(iso: string | null): string | null {

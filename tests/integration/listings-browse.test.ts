@@ -174,7 +174,7 @@ describe("keyset pagination", () => {
     let cursor: string | null = null;
     const seen: string[] = [];
     do {
-      const [page] = await Promise.all([
+      const [page]: [{ items: { id: string }[]; next_cursor: string | null }, unknown] = await Promise.all([
         browse(`${qs}&limit=9${cursor ? `&cursor=${encodeURIComponent(cursor)}` : ""}`),
         post({ title: "Racing insert", location: { lat: CENTRE.lat + (Math.random() - 0.5) * 0.1, lng: CENTRE.lng + (Math.random() - 0.5) * 0.1 } }),
       ]);

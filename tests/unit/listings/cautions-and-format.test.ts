@@ -61,6 +61,6 @@ describe("how listings read", () => {
     expect(formatPrice(0, "eur", "bags")).toBe("Free");
     expect(formatPrice(450, "eur", "bales")).toBe("€4.50 a bale");
     expect(formatWindow({ kind: "weekly", weekday: 6, start_time: "09:00", end_time: "12:00" })).toBe("Saturdays 09:00–12:00");
-    expect(formatWindow({ kind: "dated", starts_at: "2027-03-14T10:00:00Z", ends_at: "2027-03-14T13:00:00Z" })).toBe("Sun, 14 Mar 2027, 10:00–13:00 (UTC)");
+    expect(formatWindow({ kind: "dated", starts_at: "2027-03-14T10:00:00Z", ends_at: "2027-03-14T13:00:00Z" })).toBe("Sun, 14 Mar 2027, 10:00–13:00");
   });
 });
