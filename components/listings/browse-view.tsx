@@ -62,13 +62,13 @@ export function BrowseView({ initial, system }: { initial: { filters: BrowseFilt
           update({ q: words });
         }}
       >
-        <label className="flex min-w-48 flex-1 flex-col gap-1 text-sm font-medium">
-          Words
-          <input type="search" value={words} onChange={(e) => setWords(e.target.value)} placeholder="oak, bales, tubs…" className={control} />
-        </label>
-        <label className="flex flex-col gap-1 text-sm font-medium">
-          Material
-          <select value={filters.material} onChange={(e) => update({ material: e.target.value as BrowseFilters["material"] })} className={control}>
+        <div className="flex min-w-48 flex-1 flex-col gap-1 text-sm font-medium">
+          <label htmlFor="browse-words">Words</label>
+          <input id="browse-words" type="search" value={words} onChange={(e) => setWords(e.target.value)} placeholder="oak, bales, tubs…" className={control} />
+        </div>
+        <div className="flex flex-col gap-1 text-sm font-medium">
+          <label htmlFor="browse-material">Material</label>
+          <select id="browse-material" value={filters.material} onChange={(e) => update({ material: e.target.value as BrowseFilters["material"] })} className={control}>
             <option value="">Any material</option>
             {MATERIAL_CODES.map((m) => (
               <option key={m} value={m}>
@@ -76,10 +76,10 @@ export function BrowseView({ initial, system }: { initial: { filters: BrowseFilt
               </option>
             ))}
           </select>
-        </label>
-        <label className="flex flex-col gap-1 text-sm font-medium">
-          Distance
-          <select value={filters.radius_km ?? ""} onChange={(e) => setRadius(e.target.value)} className={control}>
+        </div>
+        <div className="flex flex-col gap-1 text-sm font-medium">
+          <label htmlFor="browse-distance">Distance</label>
+          <select id="browse-distance" value={filters.radius_km ?? ""} onChange={(e) => setRadius(e.target.value)} className={control}>
             <option value="">Anywhere</option>
             {RADIUS_CHOICES.map((r) => (
               <option key={r} value={r}>
@@ -87,7 +87,7 @@ export function BrowseView({ initial, system }: { initial: { filters: BrowseFilt
               </option>
             ))}
           </select>
-        </label>
+        </div>
         <label className="flex min-h-11 items-center gap-2 text-sm font-medium">
           <input type="checkbox" checked={filters.free} onChange={(e) => update({ free: e.target.checked })} className="h-5 w-5" /> Free only
         </label>

@@ -99,7 +99,7 @@ export function ListingForm(props: Props) {
           <SelectField label="Counted by" {...register("unit")} error={errors.unit?.message}>
             {units.map((u) => (
               <option key={u} value={u}>
-                {UNIT_NAMES[u]} ({quantitySymbol(u, system)})
+                {u === "sheets" || u === "bags" || u === "bales" ? UNIT_NAMES[u] : `${UNIT_NAMES[u]} (${quantitySymbol(u, system)})`}
               </option>
             ))}
           </SelectField>

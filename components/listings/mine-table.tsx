@@ -62,7 +62,12 @@ function columnsFor(system: UnitSystem) {
     helper.accessor("status", { header: "Status", cell: (c) => <StatusBadge status={c.getValue()} /> }),
     helper.accessor("left", {
       header: "Left",
-      cell: (c) => `${formatListingQuantity(c.getValue(), c.row.original.unit, system)} of ${formatListingQuantity(c.row.original.total, c.row.original.unit, system)}`,
+      cell: (c) => (
+        <div className="flex flex-col">
+          <span>{formatListingQuantity(c.getValue(), c.row.original.unit, system)}</span>
+          <span className="text-xs text-humus-600">of {formatListingQuantity(c.row.original.total, c.row.original.unit, system)}</span>
+        </div>
+      ),
     }),
     helper.accessor("held", { header: "On hold", cell: (c) => formatListingQuantity(c.getValue(), c.row.original.unit, system) }),
     helper.accessor("updated_at", {
@@ -76,7 +81,7 @@ function columnsFor(system: UnitSystem) {
       cell: (c) => (
         <div className="flex flex-wrap items-start gap-2">
           {c.row.original.status !== "archived" && c.row.original.status !== "hidden" ? (
-            <Link href={`/listings/${c.row.original.id}/edit`} className="min-h-9 rounded-lg px-3 py-1.5 text-sm font-medium ring-1 ring-humus-300 hover:bg-humus-100" aria-label={`Edit “${c.row.original.title}”`}>
+            <Link href={`/listings/${c.row.original.id}/edit`} className="inline-flex min-h-9 items-center rounded-lg px-3 py-1.5 text-sm font-medium ring-1 ring-humus-300 hover:bg-humus-100" aria-label={`Edit “${c.row.original.title}”`}>
               Edit
             </Link>
           ) : null}

@@ -146,10 +146,8 @@ export function checkListingRules(l: Fields, ctx: z.RefinementCtx): void {
   if (counted && !isWhole(l.quantity)) issue("quantity", `Give a whole number of ${l.unit}.`);
   if (!counted && l.unit_size != null) issue("unit_size", "Only sheets, bags and bales have a size.");
   if (l.unit !== "bales" && l.unit_mass_kg != null) issue("unit_mass_kg", "Only a bale has a weight of its own.");
-  if (l.max_per_reservation != null) {
-    if (l.max_per_reservation > l.quantity) issue("max_per_reservation", "The most per person cannot be more than you have.");
-    if (counted && !isWhole(l.max_per_reservation)) issue("max_per_reservation", `Give a whole number of ${l.unit}.`);
-  }
+  // A cap above the quantity is allowed: it simply never binds (and stays right if the supplier adds more).
+  if (l.max_per_reservation != null && counted && !isWhole(l.max_per_reservation)) issue("max_per_reservation", `Give a whole number of ${l.unit}.`);
   if (l.available_from && l.available_until && startOfInstant(l.available_until) <= startOfInstant(l.available_from)) {
     issue("available_until", "The end must come after the start.");
   }

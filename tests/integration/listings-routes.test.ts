@@ -125,7 +125,7 @@ describe("bad input gets a 4xx with a message on the field", () => {
     ["a declaration for another material", { quality: { leaf_source: "garden", tape_removed: true } }, "quality"],
     ["worms without a species", { material: "worms", unit: "kg", quantity: 1, quality: {} }, "quality.species"],
     ["straw without its spray history", { material: "straw", unit: "bales", quantity: 4, quality: {} }, "quality.herbicide_history"],
-    ["more per person than there is", { max_per_reservation: 11 }, "max_per_reservation"],
+    ["half a bag per person", { max_per_reservation: 1.5 }, "max_per_reservation"],
     ["a bale weight on bags", { unit_mass_kg: 20 }, "unit_mass_kg"],
     ["seven photos", { photos: Array.from({ length: 7 }, () => photo) }, "photos"],
   ];
