@@ -1,22 +1,16 @@
-import { db, newId, nowIso, type Db } from "./index";
+import { db, groupBy, newId, nowIso, type Db } from "./index";
 import type { ListingPhotoRow } from "./types";
 
 const PHOTO_COLUMNS = ["id", "listing_id", "public_id", "width", "height", "format", "position", "created_at"];
 
 /** Photos of each listing, in the order the owner set. */
 export async function photosFor(listingIds: string[], q: Db = db()): Promise<Map<string, ListingPhotoRow[]>> {
-  const out = new Map<string, ListingPhotoRow[]>();
-  if (listingIds.length === 0) return out;
+  if (listingIds.length === 0) return new Map();
   const rows = (await q("listing_photos")
     .select(PHOTO_COLUMNS)
     .whereIn("listing_id", [...new Set(listingIds)])
     .orderBy([{ column: "listing_id" }, { column: "position" }, { column: "created_at" }])) as ListingPhotoRow[];
-  for (const r of rows) {
-    const list = out.get(r.listing_id) ?? [];
-    list.push(r);
-    out.set(r.listing_id, list);
-  }
-  return out;
+  return groupBy(rows, (r) => r.listing_id);
 }
 
 export async function countPhotos(listingId: string, q: Db = db()): Promise<number> {

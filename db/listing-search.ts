@@ -13,31 +13,15 @@
 import type { Knex } from "knex";
 import { EARTH_MEAN_RADIUS_M, type MaterialCode } from "@/lib/calc/facts";
 import { db, type Db } from "./index";
+import { LISTING_COLUMNS } from "./listings";
 import type { ListingRow } from "./types";
 
-const PUBLIC_COLUMNS = [
-  "id",
-  "owner_id",
-  "organisation_id",
-  "material_code",
-  "title",
-  "unit",
-  "unit_size",
-  "unit_mass_kg",
-  "quantity_total",
-  "quantity_held",
-  "quantity_collected",
-  "price_cents",
-  "currency",
-  "deposit_cents",
-  "approx_lat",
-  "approx_lng",
-  "available_from",
-  "available_until",
-  "created_at",
-] as const;
+// Everything but the exact point and the address.
+const PRIVATE_COLUMNS = ["lat", "lng", "address"] as const;
+type PublicColumn = Exclude<(typeof LISTING_COLUMNS)[number], (typeof PRIVATE_COLUMNS)[number]>;
+const PUBLIC_COLUMNS = LISTING_COLUMNS.filter((c): c is PublicColumn => !(PRIVATE_COLUMNS as readonly string[]).includes(c));
 
-export type PublicListingRow = Pick<ListingRow, (typeof PUBLIC_COLUMNS)[number]> & { distance_km: number | null };
+export type PublicListingRow = Pick<ListingRow, PublicColumn> & { distance_km: number | null };
 
 export interface SearchFilters {
   point?: { lat: number; lng: number };
@@ -122,7 +106,7 @@ export async function searchListings(f: SearchFilters, after: SearchCursor | nul
 function normalise(r: Record<string, unknown>): PublicListingRow {
   const row = r as unknown as PublicListingRow;
   // PostgreSQL hands timestamps back as Date objects; SQLite keeps the ISO text we wrote.
-  for (const k of ["available_from", "available_until", "created_at"] as const) {
+  for (const k of ["available_from", "available_until", "created_at", "updated_at"] as const) {
     const v = row[k] as unknown;
     if (v instanceof Date) (row as Record<string, unknown>)[k] = v.toISOString();
   }

@@ -1,22 +1,16 @@
-import { db, newId, type Db } from "./index";
+import { db, groupBy, newId, type Db } from "./index";
 import type { PickupWindowRow } from "./types";
 import type { PickupWindowInput } from "@/lib/validation/listings";
 
 const WINDOW_COLUMNS = ["id", "listing_id", "kind", "weekday", "start_time", "end_time", "starts_at", "ends_at"];
 
 export async function windowsFor(listingIds: string[], q: Db = db()): Promise<Map<string, PickupWindowRow[]>> {
-  const out = new Map<string, PickupWindowRow[]>();
-  if (listingIds.length === 0) return out;
+  if (listingIds.length === 0) return new Map();
   const rows = (await q("pickup_windows")
     .select(WINDOW_COLUMNS)
     .whereIn("listing_id", [...new Set(listingIds)])
     .orderBy([{ column: "kind", order: "desc" }, { column: "weekday" }, { column: "start_time" }, { column: "starts_at" }])) as PickupWindowRow[];
-  for (const r of rows) {
-    const list = out.get(r.listing_id) ?? [];
-    list.push(r);
-    out.set(r.listing_id, list);
-  }
-  return out;
+  return groupBy(rows, (r) => r.listing_id);
 }
 
 function toRow(listingId: string, w: PickupWindowInput): Omit<PickupWindowRow, "id"> {

@@ -54,10 +54,8 @@ export async function requireUser(req: NextRequest, roles?: readonly Role[]): Pr
   return checkRoles(user, roles);
 }
 
-/** Public route handlers that show more to some people: the signed-in person, or null (suspended counts as nobody). */
-export async function optionalRequestUser(req: NextRequest): Promise<SessionUser | null> {
-  const token = await getToken({ req, secret: AUTH_SECRET });
-  const id = typeof token?.uid === "string" ? token.uid : null;
+/** The person behind an id from a session, or null when there is none or they are suspended. */
+async function activeUserOrNull(id: string | null | undefined): Promise<SessionUser | null> {
   if (!id) return null;
   try {
     return await loadSessionUser(id);
@@ -67,17 +65,16 @@ export async function optionalRequestUser(req: NextRequest): Promise<SessionUser
   }
 }
 
+/** Public route handlers that show more to some people: the signed-in person, or null. */
+export async function optionalRequestUser(req: NextRequest): Promise<SessionUser | null> {
+  const token = await getToken({ req, secret: AUTH_SECRET });
+  return activeUserOrNull(typeof token?.uid === "string" ? token.uid : null);
+}
+
 /** Pages and server actions: null when nobody is signed in. */
 export async function currentUser(): Promise<SessionUser | null> {
   const session = await getServerSession(authOptions);
-  const id = session?.user?.id;
-  if (!id) return null;
-  try {
-    return await loadSessionUser(id);
-  } catch (err) {
-    if (err instanceof ApiError && err.code === "suspended") return null;
-    throw err;
-  }
+  return activeUserOrNull(session?.user?.id);
 }
 
 /** Server actions: the same 401/403 rules as route handlers. */

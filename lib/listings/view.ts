@@ -36,15 +36,7 @@ export interface PublicListingItem {
   available_until: string | null;
 }
 
-export interface PickupWindowView {
-  id: string;
-  kind: "weekly" | "dated";
-  weekday: number | null;
-  start_time: string | null;
-  end_time: string | null;
-  starts_at: string | null;
-  ends_at: string | null;
-}
+export type PickupWindowView = Omit<PickupWindowRow, "listing_id">;
 
 export interface ListingDetail extends Omit<PublicListingItem, "supplier"> {
   status: ListingStatus;
@@ -119,15 +111,7 @@ export async function presentItems(rows: PublicListingRow[], q: Db = db()): Prom
   return rows.map((r) => item(r, supplierOf(r), photoList(photos.get(r.id), "card"), r.distance_km));
 }
 
-const windowView = (w: PickupWindowRow): PickupWindowView => ({
-  id: w.id,
-  kind: w.kind,
-  weekday: w.weekday,
-  start_time: w.start_time,
-  end_time: w.end_time,
-  starts_at: w.starts_at,
-  ends_at: w.ends_at,
-});
+const windowView = ({ listing_id: _listing, ...w }: PickupWindowRow): PickupWindowView => w;
 
 function parseQuality(text: string): QualityInput {
   try {
