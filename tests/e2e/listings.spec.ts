@@ -141,7 +141,41 @@ test.describe.serial("listings", () => {
     expect((await api.json()).items).toHaveLength(0);
     await row.getByRole("button", { name: `Resume “${TITLE}”` }).click();
     await expect(row).toContainText("On offer");
+
+    // Edit: more bags, and the photos swapped back (saved at once in edit mode).
+    await row.getByRole("link", { name: `Edit “${TITLE}”` }).click();
+    await expect(s.getByRole("heading", { name: `Edit “${TITLE}”` })).toBeVisible();
+    await expect(s.getByLabel("Quantity (bags)")).toHaveValue("9");
+    const before = await s.getByRole("img", { name: "Photo 1" }).getAttribute("src");
+    await s.getByRole("button", { name: "Move photo 2 earlier" }).click();
+    await expect(s.getByRole("img", { name: "Photo 1" })).not.toHaveAttribute("src", before!);
+    await s.getByLabel("Quantity (bags)").fill("12");
+    await s.screenshot({ path: shots("edit"), fullPage: true });
+    await s.getByRole("button", { name: "Save changes" }).click();
+    await expect(s).toHaveURL(new RegExp(`/listings/${listingId}$`));
+    await expect(s.getByRole("definition").first()).toContainText("12 bags");
     await supplier.close();
+
+    // Someone else's listing is not there to edit.
+    const grower = await browser.newContext({ storageState: storageState("grower") });
+    const res = await (await grower.newPage()).goto(`/listings/${listingId}/edit`);
+    expect(res?.status()).toBe(404);
+    await grower.close();
+  });
+
+  test("browse works on a phone-sized screen", async ({ browser }) => {
+    const context = await browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
+    const page = await context.newPage();
+    await page.goto("/browse?material=straw");
+    await expect(page.getByRole("heading", { name: "Find material" })).toBeVisible();
+    await mapReady(page, "Map of the listings shown; points are approximate");
+    await expect(page.locator("article").first()).toBeVisible();
+    await page.screenshot({ path: shots("browse-phone"), fullPage: true });
+    await page.locator("article h3 a").first().click();
+    await expect(page.locator("[data-caution='herbicide']")).toContainText("beans or peas");
+    await expect(page.locator("[data-caution='lifting']")).toContainText("NIOSH");
+    await page.screenshot({ path: shots("detail-phone"), fullPage: true });
+    await context.close();
   });
 
   test("no public page or response carries an exact pickup point or address", async ({ playwright, baseURL }) => {
