@@ -1,4 +1,5 @@
 import { deliverOutbox } from "@/lib/mail/deliver-outbox";
+import { sendBedReminders } from "@/lib/services/send-bed-reminders";
 
 export type Clock = () => Date;
 
@@ -10,4 +11,7 @@ export interface Job {
 
 // Background work; each job keeps its state in the database, so a restart loses nothing.
 // Later features add theirs here (hold expiry, timeline reminders).
-export const jobs: Job[] = [{ name: "deliver-outbox", everyMs: 2_000, run: (clock) => deliverOutbox(clock) }];
+export const jobs: Job[] = [
+  { name: "deliver-outbox", everyMs: 2_000, run: (clock) => deliverOutbox(clock) },
+  { name: "bed-reminders", everyMs: 60_000, run: (clock) => sendBedReminders(clock) },
+];
