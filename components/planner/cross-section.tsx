@@ -32,8 +32,8 @@ export function CrossSection({ depths, system }: { depths: { cardboard: boolean;
         <text x="8" y={height - 12} fill="#f7f3ee" fontSize="12">old soil (not dug)</text>
         {bands.map((b) => (
           <g key={b.key}>
-            <rect x="40" y={b.y} width="280" height={b.h} fill={COLOURS[b.key as keyof typeof COLOURS]} stroke="#3b2b1d" strokeWidth="0.5" />
-            <text x="330" y={b.y + b.h / 2 + 4} fontSize="11" fill="#271c13" textAnchor="end" transform="translate(28 0)">
+            <rect x="40" y={b.y} width="250" height={b.h} fill={COLOURS[b.key as keyof typeof COLOURS]} stroke="#3b2b1d" strokeWidth="0.5" />
+            <text x="296" y={b.y + b.h / 2 + 4} fontSize="11" fill="#271c13">
               {b.label}
             </text>
             {b.h > 14 ? (
