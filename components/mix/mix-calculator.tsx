@@ -1,5 +1,5 @@
 "use client";
-import { useFieldArray, useForm } from "react-hook-form";
+import { useFieldArray, useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation } from "@tanstack/react-query";
 import { z } from "zod";
@@ -32,6 +32,7 @@ export function MixCalculator() {
   const rows = useFieldArray({ control: form.control, name: "components" });
   const mix = useMutation({ mutationFn: (v: Values) => apiFetch<BlendResult>("/api/blend", { method: "POST", body: v }) });
   const errs = form.formState.errors.components;
+  const chosen = useWatch({ control: form.control, name: "components" });
 
   return (
     <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_380px]">
@@ -50,7 +51,7 @@ export function MixCalculator() {
             </thead>
             <tbody>
               {rows.fields.map((f, i) => {
-                const material = form.watch(`components.${i}.material`);
+                const material = chosen?.[i]?.material;
                 const facts = material ? MATERIALS[material] : undefined;
                 const e = errs?.[i];
                 const msg = e?.mass_kg?.message ?? e?.moisture_pct?.message ?? e?.n_pct?.message ?? e?.cn_ratio?.message ?? e?.material?.message;

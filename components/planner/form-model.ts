@@ -6,6 +6,8 @@ import type { LatLng } from "@/components/map/types";
 
 /** What the planner form holds: sizes in the gardener's own units, layers as switches. */
 export interface PlanValues {
+  /** The units the numbers below are in. */
+  system: UnitSystem;
   shape: "rectangle" | "outline";
   length: string;
   width: string;
@@ -28,6 +30,7 @@ export function defaultPlanValues(system: UnitSystem, today: string): PlanValues
   const len = (m: number) => (system === "metric" ? fix(m, 2) : fix(mToFt(m), 1));
   const depth = (cm: number) => (system === "metric" ? fix(cm, 1) : fix(cmToIn(cm), 1));
   return {
+    system,
     shape: "rectangle",
     length: len(3),
     width: len(1.2),
@@ -49,11 +52,12 @@ export function convertValues(v: PlanValues, from: UnitSystem, to: UnitSystem): 
   if (from === to) return v;
   const len = (s: string) => (Number.isNaN(num(s)) ? s : to === "imperial" ? fix(mToFt(num(s)), 2) : fix(ftToM(num(s)), 2));
   const depth = (s: string) => (Number.isNaN(num(s)) ? s : to === "imperial" ? fix(cmToIn(num(s)), 1) : fix(inToCm(num(s)), 1));
-  return { ...v, length: len(v.length), width: len(v.width), overlap: depth(v.overlap), leaves_depth: depth(v.leaves_depth), straw_depth: depth(v.straw_depth) };
+  return { ...v, system: to, length: len(v.length), width: len(v.width), overlap: depth(v.overlap), leaves_depth: depth(v.leaves_depth), straw_depth: depth(v.straw_depth) };
 }
 
 /** The request POST /api/estimate takes, in SI, built from the form. */
-export function toRequest(v: PlanValues, system: UnitSystem): EstimateRequest {
+export function toRequest(v: PlanValues): EstimateRequest {
+  const system = v.system;
   const m = (s: string) => (system === "metric" ? num(s) : ftToM(num(s)));
   const cm = (s: string) => (system === "metric" ? num(s) : inToCm(num(s)));
   const ring = v.outline.map((p) => [p.lng, p.lat] as [number, number]);
@@ -90,12 +94,12 @@ const FIELD_FOR: [RegExp, keyof PlanValues][] = [
  * The form is checked by the same schema as the route handler: the values are turned
  * into the request and parsed, and each issue is shown beside its field.
  */
-export function planResolver(getSystem: () => UnitSystem): Resolver<PlanValues> {
+export function planResolver(): Resolver<PlanValues> {
   return async (values) => {
     if (values.shape === "outline" && values.outline.length < 3) {
       return { values: {}, errors: { outline: { type: "custom", message: "Click at least three corners of the bed on the map." } } as FieldErrors<PlanValues> };
     }
-    const parsed = estimateSchema.safeParse(toRequest(values, getSystem()));
+    const parsed = estimateSchema.safeParse(toRequest(values));
     if (parsed.success) return { values, errors: {} };
     const errors: Record<string, { type: string; message: string }> = {};
     for (const issue of parsed.error.issues) {

@@ -1,6 +1,6 @@
 "use client";
-import { useMemo, useRef, useState } from "react";
-import { useForm } from "react-hook-form";
+import { useMemo } from "react";
+import { useForm, useWatch } from "react-hook-form";
 import { useMutation } from "@tanstack/react-query";
 import Link from "next/link";
 import { apiFetch, isApiError } from "@/lib/api/client";
@@ -37,24 +37,19 @@ function matchHref(result: EstimateResult, where: { lat: number; lng: number } |
 }
 
 export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFormProps) {
-  const [system, setSystem] = useState<UnitSystem>(initialSystem);
-  const systemRef = useRef(system);
-  systemRef.current = system;
-  const resolver = useMemo(() => planResolver(() => systemRef.current), []);
+  const resolver = useMemo(() => planResolver(), []);
   const form = useForm<PlanValues>({ resolver, defaultValues: bed?.values ?? defaultPlanValues(initialSystem, today) });
-  const { register, watch, setValue, getValues, formState } = form;
-  const shape = watch("shape");
-  const outline = watch("outline");
-  const location = watch("location");
-
-  const estimate = useMutation({
-    mutationFn: (values: PlanValues) => apiFetch<EstimateResult>("/api/estimate", { method: "POST", body: toRequest(values, systemRef.current) }),
+  const { register, setValue, getValues, formState, control } = form;
+  const [system, shape, outline, location, cardboardOn, leavesOn, strawOn] = useWatch({
+    control,
+    name: ["system", "shape", "outline", "location", "cardboard_on", "leaves_on", "straw_on"],
   });
 
-  const switchUnits = (u: UnitSystem) => {
-    form.reset(convertValues(getValues(), system, u), { keepErrors: false });
-    setSystem(u);
-  };
+  const estimate = useMutation({
+    mutationFn: (values: PlanValues) => apiFetch<EstimateResult>("/api/estimate", { method: "POST", body: toRequest(values) }),
+  });
+
+  const switchUnits = (u: UnitSystem) => form.reset(convertValues(getValues(), getValues("system"), u), { keepErrors: false });
 
   const onMapClick = (p: { lat: number; lng: number }) => {
     if (getValues("shape") === "outline") setValue("outline", [...getValues("outline"), p], { shouldValidate: formState.isSubmitted });
@@ -122,15 +117,15 @@ export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFor
         <fieldset className="flex flex-col gap-3 rounded-lg bg-white p-4 ring-1 ring-humus-200">
           <legend className="px-1 font-semibold">Layers, bottom to top</legend>
           <LayerSwitch label="Cardboard" {...register("cardboard_on")} />
-          {watch("cardboard_on") ? (
+          {cardboardOn ? (
             <Field label={`Seam overlap (${unitDepth})`} hint="Usually about 15 cm (6 in)." inputMode="decimal" {...register("overlap")} error={errors.overlap?.message} />
           ) : null}
           <LayerSwitch label="Leaves" {...register("leaves_on")} />
-          {watch("leaves_on") ? (
+          {leavesOn ? (
             <Field label={`Leaf depth (${unitDepth})`} hint="Usually 10–15 cm (4–6 in)." inputMode="decimal" {...register("leaves_depth")} error={errors.leaves_depth?.message} />
           ) : null}
           <LayerSwitch label="Straw on top" {...register("straw_on")} />
-          {watch("straw_on") ? (
+          {strawOn ? (
             <Field label={`Straw depth (${unitDepth})`} hint="Usually about 5 cm (2 in)." inputMode="decimal" {...register("straw_depth")} error={errors.straw_depth?.message} />
           ) : null}
           <LayerSwitch label="Composting worms, a week or two later" {...register("worms_on")} />
@@ -164,7 +159,7 @@ export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFor
                 Find these materials nearby
               </Link>
             </div>
-            {canSave ? <SaveBed request={toRequest(getValues(), system)} location={where ?? null} bed={bed} /> : null}
+            {canSave ? <SaveBed request={toRequest(getValues())} location={where ?? null} bed={bed} /> : null}
             {!canSave ? (
               <p className="text-sm text-humus-700">
                 <Link href="/sign-in?callbackUrl=%2Fplan" className="text-moss-700 underline">Sign in</Link> to save this bed and get its reminders by e-mail.

@@ -27,6 +27,22 @@ test("a visitor plans a bed and switches units", async ({ page }) => {
   await expect(page.locator("#field-width-error")).not.toBeEmpty();
 });
 
+test("a visitor draws a bed on the map", async ({ page }) => {
+  await page.goto("/plan");
+  await page.getByLabel("Draw it on the map").check();
+  const map = page.getByRole("region", { name: /click each corner/ });
+  await expect(map.locator(".leaflet-container")).toBeVisible();
+  const box = (await map.boundingBox())!;
+  for (const [fx, fy] of [[0.3, 0.3], [0.7, 0.3], [0.7, 0.7], [0.3, 0.7]]) {
+    await page.mouse.click(box.x + box.width * fx, box.y + box.height * fy);
+  }
+  await expect(page.getByText("4 corners placed.")).toBeVisible();
+  await page.getByRole("button", { name: "Work out what it takes" }).click();
+  await expect(page.locator("tr[data-material='cardboard']")).toBeVisible();
+  const area = await page.locator("dt:has-text('Bed area') + dd").textContent();
+  expect(Number.parseFloat(area!.replace(/,/g, ""))).toBeGreaterThan(0);
+});
+
 test("a gardener saves a bed, downloads its calendar, and gets the reminder on the day", async ({ browser }) => {
   const context = await browser.newContext({ storageState: storageState("gardener"), acceptDownloads: true });
   const page = await context.newPage();
