@@ -4,6 +4,7 @@
 set -euo pipefail
 cd "$(dirname "$0")/../.."
 
+export NEXT_TELEMETRY_DISABLED=1
 CHROMIUM="${CHROMIUM_PATH:-/usr/bin/chromium}"
 if [ ! -x "$CHROMIUM" ]; then
   if [ "$(id -u)" = "0" ] && command -v apt-get >/dev/null; then
