@@ -1,5 +1,6 @@
 import { deliverOutbox } from "@/lib/mail/deliver-outbox";
 import { expireListings } from "@/lib/services/expire-listings";
+import { sendBedReminders } from "@/lib/services/send-bed-reminders";
 
 export type Clock = () => Date;
 
@@ -15,4 +16,5 @@ export const jobs: Job[] = [
   { name: "deliver-outbox", everyMs: 2_000, run: (clock) => deliverOutbox(clock) },
   // Reads already treat a listing past its end date as expired; this makes the row say so.
   { name: "expire-listings", everyMs: 60_000, run: (clock) => expireListings(clock) },
+  { name: "bed-reminders", everyMs: 60_000, run: (clock) => sendBedReminders(clock) },
 ];
