@@ -1,7 +1,7 @@
 "use client";
 import { useEffect, useState } from "react";
 import { useRouter } from "next/navigation";
-import { useForm, type FieldPath, type Resolver } from "react-hook-form";
+import { useForm, useWatch, type FieldPath, type Resolver } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { Button } from "@/components/ui/button";
 import { Field, GroupError, SelectField, TextAreaField } from "@/components/ui/field";
@@ -31,11 +31,9 @@ export function ListingForm(props: Props) {
   const resolver: Resolver<ListingFormState> = (values, context, options) =>
     schemaResolver(toBody(values, system) as never, context, options as never) as never;
   const form = useForm<ListingFormState>({ resolver, defaultValues: props.mode === "edit" ? props.initial : emptyForm() });
-  const { register, watch, setValue, formState } = form;
+  const { register, setValue, formState } = form;
   const errors = formState.errors;
-  const material = watch("material");
-  const unit = watch("unit");
-  const priced = watch("priced");
+  const [material, unit, priced, location] = useWatch({ control: form.control, name: ["material", "unit", "priced", "location"] });
   const units = UNITS_BY_MATERIAL[material];
   const sizeField = unitSizeField(unit, system);
   const symbol = quantitySymbol(unit, system);
@@ -150,7 +148,7 @@ export function ListingForm(props: Props) {
 
       <section className="flex flex-col gap-4" aria-labelledby="where-title">
         <h2 id="where-title" className="text-xl font-semibold">Where and when</h2>
-        <LocationPicker value={watch("location")} onChange={(p) => setValue("location", p, { shouldValidate: formState.isSubmitted })} error={locationError} />
+        <LocationPicker value={location} onChange={(p) => setValue("location", p, { shouldValidate: formState.isSubmitted })} error={locationError} />
         <Field label="Pickup address" {...register("address")} error={errors.address?.message} hint="Shown only to people whose reservation you confirm." autoComplete="street-address" />
         <div className="grid gap-3 sm:grid-cols-2">
           <Field label="Available from (optional)" type="date" {...register("available_from")} error={errors.available_from?.message} />

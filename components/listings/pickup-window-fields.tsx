@@ -1,5 +1,5 @@
 "use client";
-import { useFieldArray, type UseFormReturn } from "react-hook-form";
+import { useFieldArray, useWatch, type UseFormReturn } from "react-hook-form";
 import { GroupError } from "@/components/ui/field";
 import { WEEKDAYS } from "@/lib/listings/format";
 import type { ListingFormState } from "./form-values";
@@ -10,12 +10,13 @@ const input = "min-h-11 rounded-lg border border-humus-300 bg-white px-3";
 export function PickupWindowFields({ form }: { form: UseFormReturn<ListingFormState> }) {
   const { fields, append, remove } = useFieldArray({ control: form.control, name: "pickup_windows" });
   const errors = form.formState.errors.pickup_windows;
+  const kinds = useWatch({ control: form.control, name: "pickup_windows" }).map((w) => w?.kind);
   return (
     <fieldset className="flex flex-col gap-3">
       <legend className="font-medium">When people can collect</legend>
       <p className="text-sm text-humus-600">Local time at the pickup point.</p>
       {fields.map((f, i) => {
-        const kind = form.watch(`pickup_windows.${i}.kind`);
+        const kind = kinds[i] ?? f.kind;
         const e = errors?.[i];
         const message = e?.end_time?.message ?? e?.ends_at?.message ?? e?.start_time?.message ?? e?.starts_at?.message ?? e?.weekday?.message ?? e?.message;
         return (

@@ -1,5 +1,5 @@
 "use client";
-import type { UseFormReturn } from "react-hook-form";
+import { useWatch, type UseFormReturn } from "react-hook-form";
 import { GroupError } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { listingCautions } from "@/lib/calc/cautions";
@@ -27,9 +27,8 @@ function Radios({ form, name, options, legend, error }: { form: UseFormReturn<Li
 /** What the supplier declares about this material, and the cautions gardeners will read because of it. */
 export function QualityFields({ form, material }: { form: UseFormReturn<ListingFormState>; material: MaterialCode }) {
   const errors = form.formState.errors.quality;
-  const q = form.watch("quality");
-  const unit = form.watch("unit");
-  const mass = Number(form.watch("unit_mass_kg")) || null;
+  const [q, unit, massText] = useWatch({ control: form.control, name: ["quality", "unit", "unit_mass_kg"] });
+  const mass = Number(massText) || null;
   const cautions = listingCautions({ material, unit, unit_mass_kg: mass, quality: { ...q, tape_removed: q.tape_removed, herbicide_history: q.herbicide_history || undefined } });
   return (
     <div className="flex flex-col gap-3">
