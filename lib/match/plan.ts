@@ -1,7 +1,7 @@
 // The whole pickup plan from needs and candidate listings: what to take from where, the
 // visiting order, the carloads and the cautions. Pure: no I/O, so it is tested and
 // benchmarked on its own.
-import { CAUTION_NOTES } from "@/lib/calc/cautions";
+import { CAUTION_TEXT } from "@/lib/calc/cautions";
 import { NIOSH_LIFT_LIMIT_KG, NIOSH_LIFT_LIMIT_LB, type MaterialCode } from "@/lib/calc/facts";
 import { roundTo } from "@/lib/calc/numbers";
 import { kgToLb } from "@/lib/calc/units";
@@ -39,11 +39,11 @@ export function resolveCosts(costs?: Partial<CostOptions>): CostOptions {
 
 function materialCautions(materials: Set<MaterialCode>): Caution[] {
   const notes: string[] = [];
-  if (materials.has("cardboard")) notes.push(CAUTION_NOTES.cardboard);
-  if (materials.has("leaves")) notes.push(CAUTION_NOTES.leaves);
-  if (["straw", "manure", "grass_clippings", "compost"].some((m) => materials.has(m as MaterialCode))) notes.push(CAUTION_NOTES.herbicide);
-  if (materials.has("worms")) notes.push(CAUTION_NOTES.worms);
-  if (materials.size) notes.push(CAUTION_NOTES.gloves, CAUTION_NOTES.defer);
+  if (materials.has("cardboard")) notes.push(CAUTION_TEXT.cardboard);
+  if (materials.has("leaves")) notes.push(CAUTION_TEXT.roadsideLeaves);
+  if (["straw", "manure", "grass_clippings", "compost"].some((m) => materials.has(m as MaterialCode))) notes.push(CAUTION_TEXT.herbicide);
+  if (materials.has("worms")) notes.push(CAUTION_TEXT.worms);
+  if (materials.size) notes.push(CAUTION_TEXT.gloves, CAUTION_TEXT.defer);
   return notes.map((message) => ({ kind: "material" as const, message }));
 }
 

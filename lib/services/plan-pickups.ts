@@ -1,29 +1,23 @@
 import "server-only";
 import { ApiError, notFound } from "@/lib/api/errors";
 import type { SessionUser } from "@/lib/auth/current-user";
-import { estimate } from "@/lib/calc/estimate";
 import { databaseSource, listingSummaries } from "@/lib/match/candidates";
 import { searchPlan } from "@/lib/match/search";
 import type { LatLng, Need } from "@/lib/match/types";
-import { estimateSchema } from "@/lib/validation/estimate";
+import { bedEstimate, toBedView } from "@/lib/services/bed-view";
 import type { MatchInput } from "@/lib/validation/match";
-import { type BedRow, findOwnBed } from "@/db/beds";
+import { type BedRow, findBed } from "@/db/beds";
 
-/** What a saved bed needs, from its stored outline and layers through the bed estimate. */
-export function bedNeeds(bed: Pick<BedRow, "shape" | "recipe" | "lat">): Need[] {
-  let shape: unknown;
-  let layers: unknown;
+/** What a saved bed needs: its own estimate (the bed page's), as needs. */
+export function bedNeeds(row: BedRow): Need[] {
+  let needs: Need[];
   try {
-    shape = JSON.parse(bed.shape);
-    layers = JSON.parse(bed.recipe || "{}");
+    needs = bedEstimate(toBedView(row)).needs.map((n) => ({ material: n.material, quantity: n.quantity, unit: n.unit }));
   } catch {
-    shape = undefined;
+    // A row written before a rule changed, or by hand: say so rather than fail.
+    throw new ApiError("invalid_state", "This bed's saved size or layers cannot be read. Open the bed, check it and save it again.");
   }
-  const parsed = estimateSchema.safeParse({ bed: shape, layers, ...(bed.lat === null ? {} : { latitude: bed.lat }) });
-  if (!parsed.success) throw new ApiError("invalid_state", "This bed's saved size or layers cannot be read. Open the bed, check it and save it again.");
-  return estimate(parsed.data)
-    .needs.filter((n) => n.quantity > 0)
-    .map((n) => ({ material: n.material, quantity: n.quantity, unit: n.unit }));
+  return needs.filter((n) => n.quantity > 0);
 }
 
 /** POST /api/match: the pickup plan for ad-hoc needs, or for one of the signed-in gardener's beds. */
@@ -33,7 +27,7 @@ export async function planPickups(input: MatchInput, user: SessionUser | null) {
   let bed: { id: string; name: string } | null = null;
   if (input.bed_id) {
     if (!user) throw new ApiError("unauthenticated", "Sign in to find materials for a saved bed.");
-    const row = await findOwnBed(input.bed_id, user.id);
+    const row = await findBed(input.bed_id, user.id);
     if (!row) throw notFound("That bed");
     bed = { id: row.id, name: row.name };
     needs ??= bedNeeds(row);

@@ -4,10 +4,10 @@ import { navFor } from "@/lib/auth/navigation";
 describe("navigation by role", () => {
   const labels = (roles: Parameters<typeof navFor>[0]) => navFor(roles).map((l) => l.href);
   it("shows visitors only the public entries", () => {
-    expect(labels(null)).toEqual(["/plan"]);
+    expect(labels(null)).toEqual(["/plan", "/mix", "/browse"]);
   });
   it("adds each role's own area", () => {
-    expect(labels(["gardener"])).toEqual(["/plan", "/beds"]);
+    expect(labels(["gardener"])).toEqual(["/plan", "/mix", "/browse", "/beds"]);
     expect(labels(["supplier"])).toContain("/listings/mine");
     expect(labels(["council"])).toEqual(expect.arrayContaining(["/council", "/listings/mine"]));
     expect(labels(["moderator"])).toContain("/moderation");

@@ -3,7 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { pageUser } from "@/lib/auth/page-guard";
 import { formatQuantity } from "@/lib/calc/units";
-import { findOwnBed } from "@/db/beds";
+import { findBed } from "@/db/beds";
 import { PageHeading } from "@/components/ui/empty-state";
 import { BedMaterials } from "@/components/match/bed-materials";
 
@@ -12,7 +12,7 @@ export const metadata: Metadata = { title: "Find materials" };
 export default async function BedMaterialsPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const user = await pageUser(`/beds/${id}/materials`);
-  const bed = await findOwnBed(id, user.id);
+  const bed = await findBed(id, user.id);
   if (!bed) notFound();
   const point = bed.lat === null || bed.lng === null ? null : { lat: Number(bed.lat), lng: Number(bed.lng) };
   return (
