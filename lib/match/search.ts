@@ -192,23 +192,38 @@ export async function searchPlan(
     searched[i].push(...fresh);
     return found;
   };
-  const widen = (i: number, km: number) => {
-    ring[i] = Math.min(radius_km, km);
-    return read(i, [{ centre: origin, km: ring[i], cap: Infinity }]);
+  /** Grow the rings of needs `idx` to `km` around the origin, in one query for them all. */
+  const widen = async (idx: number[], km: number) => {
+    const r = Math.min(radius_km, km);
+    queries++;
+    for (const c of await source.inBox(idx.map((i) => merged[i].material), boundingBox(origin, r), origin)) {
+      if (c.distance_km <= radius_km) pool.set(c.id, c);
+    }
+    for (const i of idx) {
+      ring[i] = r;
+      searched[i].push({ centre: origin, km: r, cap: Infinity });
+    }
   };
 
-  // 1. Rings that hold a few times each need, in several listings.
-  for (let i = 0; i < merged.length; i++) {
-    const n = merged[i];
-    await widen(i, opts.start_km ?? START_KM);
-    for (let step = 0; step < MAX_STEPS && ring[i] < radius_km; step++) {
-      const options = buildOptions([n], [...pool.values()]);
+  // 1. Rings that hold a few times each need, in several listings. Needs still short grow
+  //    together, aiming straight for the ring that should hold enough (listings grow with
+  //    the area), so a sparse county takes a few queries, not a few per need.
+  let short = merged.map((_, i) => i);
+  await widen(short, opts.start_km ?? START_KM);
+  for (let step = 0; step < MAX_STEPS && short.length; step++) {
+    const candidates = [...pool.values()];
+    let grow = 0;
+    short = short.filter((i) => {
+      const n = merged[i];
+      if (ring[i] >= radius_km) return false;
+      const options = buildOptions([n], candidates);
       const supply = options.reduce((s, o) => s + o.supply, 0);
-      if (supply >= SUPPLY_FACTOR * n.quantity && options.length >= MIN_LISTINGS) break;
-      // Listings grow with the area: aim straight for the ring that should hold enough.
-      const short = Math.max((SUPPLY_FACTOR * n.quantity) / Math.max(supply, EPS), MIN_LISTINGS / Math.max(options.length, EPS));
-      await widen(i, ring[i] * Math.min(4, Math.max(1.5, 1.2 * Math.sqrt(short))));
-    }
+      if (supply >= SUPPLY_FACTOR * n.quantity && options.length >= MIN_LISTINGS) return false;
+      const lack = Math.max((SUPPLY_FACTOR * n.quantity) / Math.max(supply, EPS), MIN_LISTINGS / Math.max(options.length, EPS));
+      grow = Math.max(grow, Math.min(4, Math.max(1.5, 1.2 * Math.sqrt(lack))));
+      return true;
+    });
+    if (short.length) await widen(short, Math.max(...short.map((i) => ring[i])) * grow);
   }
 
   let planned = [...pool.values()];
