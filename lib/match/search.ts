@@ -77,6 +77,8 @@ const MAX_STEPS = 12;
 const MERGE_SLACK = 1.5;
 /** Neighbourhoods smaller than this are not worth a query. */
 const MIN_LOOK_KM = 0.1;
+/** The least a ring grows by in one step of the widening search, km. */
+const STEP_KM = 2;
 const EPS = 1e-6;
 
 /**
@@ -255,21 +257,26 @@ export async function searchPlan(
     //    covers x of the need at p a unit, the rest bought at the least price p₀, saves
     //    nothing unless x(p − p₀) < slack: so only p < p₀ + slack / quantity is read.
     let found = false;
+    let pending = false;
     for (let i = 0; i < merged.length; i++) {
       if (result.covered[i] <= EPS) continue;
       const share = needShare(result, planned, origin, i, costs);
       const floor = cheapestFor.get(i);
       const slack = share.cents - (floor?.cents ?? 0) - costs.cost_per_stop_cents;
       if (slack <= EPS) continue;
-      const km = costs.cost_per_km_cents > 0 ? Math.min(radius_km, slack / (2 * costs.cost_per_km_cents)) : radius_km;
+      const reach = costs.cost_per_km_cents > 0 ? Math.min(radius_km, slack / (2 * costs.cost_per_km_cents)) : radius_km;
+      // At most double each step: what turns up nearer usually shrinks the slack, and
+      // with it how far there is left to look.
+      const km = Math.min(reach, Math.max(2 * ring[i], STEP_KM));
+      if (km < reach - EPS) pending = true;
       const factor = unitPriceFactor(merged[i].material, merged[i].unit);
       const cap = floor && floor.cents > 0 && factor > 0 ? (floor.least_ppu + slack / merged[i].quantity) / factor : Infinity;
       if (km > ring[i]) ring[i] = km;
       const disks = [{ centre: origin, km: ring[i], cap }, ...share.others.map((o) => ({ centre: o.location, km, cap }))];
       if (await read(i, disks)) found = true;
     }
-    if (!found) break;
-    replan();
+    if (!found && !pending) break;
+    if (found) replan();
   }
 
   return {
