@@ -76,7 +76,7 @@ interface Target {
 
 export async function runHttpBench(dbFile: string, needs: Need[]): Promise<void> {
   if (!fs.existsSync(path.join(ROOT, ".next", "BUILD_ID")) || process.env.BENCH_BUILD === "1") {
-    console.log("[bench] no production build yet: running next build (a few minutes on 2 cores)");
+    console.log("[bench] building for production first: next build (a few minutes on 2 cores)");
     const built = spawnSync("npx", ["next", "build"], { cwd: ROOT, stdio: "inherit" });
     if (built.status !== 0) throw new Error("next build failed");
   }
