@@ -6,21 +6,11 @@ import fs from "node:fs";
 import net from "node:net";
 import os from "node:os";
 import path from "node:path";
+import autocannon from "autocannon";
 import type { Need } from "@/lib/match/types";
 import { prng } from "@/seeds/ids";
 import { at, HALF_SIDE_KM } from "./dataset";
 
-// autocannon ships no types; only run() and its result's latency and requests are used.
-// eslint-disable-next-line @typescript-eslint/no-require-imports
-const autocannon = require("autocannon") as (opts: Record<string, unknown>) => Promise<AutocannonResult>;
-
-interface AutocannonResult {
-  requests: { average: number };
-  latency: { p50: number; p97_5: number; p99: number };
-  non2xx: number;
-  errors: number;
-  timeouts: number;
-}
 
 const ROOT = path.resolve(__dirname, "../..");
 const SECONDS = Number(process.env.BENCH_HTTP_SECONDS ?? 10);

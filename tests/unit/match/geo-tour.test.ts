@@ -1,14 +1,13 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { destination } from "@turf/turf";
+import { Geodesic } from "geographiclib-geodesic";
 import { boundingBox, distanceKm, inBox } from "@/lib/match/geo";
 import { distanceMatrix, loopLength, nearestNeighbourOrder, planTour, twoOpt } from "@/lib/match/tour";
 
 // An independent reference for distances: GeographicLib's ellipsoidal geodesics on WGS84
 // (C. F. F. Karney, "Algorithms for geodesics", J. Geodesy 87, 2013), npm geographiclib-geodesic.
-// eslint-disable-next-line @typescript-eslint/no-require-imports
-const { Geodesic } = require("geographiclib-geodesic");
-const geodesicKm = (a: { lat: number; lng: number }, b: { lat: number; lng: number }) => Geodesic.WGS84.Inverse(a.lat, a.lng, b.lat, b.lng).s12 / 1000;
+const geodesicKm = (a: { lat: number; lng: number }, b: { lat: number; lng: number }) => Geodesic.WGS84.Inverse(a.lat, a.lng, b.lat, b.lng).s12! / 1000;
 
 const point = fc.record({ lat: fc.double({ min: -70, max: 70, noNaN: true }), lng: fc.double({ min: -179, max: 179, noNaN: true }) });
 const near = (centre: { lat: number; lng: number }, km: number) =>
