@@ -8,13 +8,10 @@ import type { LatLng, Need } from "@/lib/match/types";
 import { matchSchema, needsToParam, type MatchRequest } from "@/lib/validation/match";
 import { DEFAULT_CENTER } from "@/components/map/types";
 import { Button, buttonClass } from "@/components/ui/button";
-import { Spinner } from "@/components/ui/empty-state";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { PickupPlan } from "./pickup-plan";
-import { PlanMap } from "./plan-map";
+import { PlanPanel } from "./plan-panel";
 import { replaceNeed } from "./replace-need";
-import { UnitToggle } from "./unit-toggle";
 import { useMatch } from "./use-match";
 
 /** "Find materials" for a saved bed: its own needs and point, a radius to try, and the plan. */
@@ -101,22 +98,7 @@ export function BedMaterials({ bedId, bedPoint, system: defaultSystem }: { bedId
         </form>
         {!bedPoint ? <Notice tone="caution">This bed has no location yet: tap the map where you will start from.</Notice> : null}
       </aside>
-      <section aria-labelledby="plan-title" className="flex min-w-0 flex-col gap-4">
-        <div className="flex flex-wrap items-center justify-between gap-2">
-          <h2 id="plan-title" className="text-2xl font-bold">
-            Pickup plan
-          </h2>
-          <UnitToggle value={system} onChange={setSystem} />
-        </div>
-        <PlanMap origin={origin} stops={plan?.stops ?? []} onPick={pick} />
-        {query.isFetching ? <Spinner label="Finding the nearest supplies" /> : null}
-        {query.isError ? (
-          <Notice tone="error" title="No plan this time">
-            {(query.error as Error).message}
-          </Notice>
-        ) : null}
-        {plan && !query.isFetching ? <PickupPlan plan={plan} system={system} bedId={bedId} onWiden={widen} onSubstitute={substitute} /> : null}
-      </section>
+      <PlanPanel title="Pickup plan" query={query} origin={origin} system={system} onSystem={setSystem} onPick={pick} onWiden={widen} onSubstitute={substitute} bedId={bedId} />
     </div>
   );
 }

@@ -8,13 +8,11 @@ import type { UnitSystem } from "@/lib/calc/units";
 import type { Need } from "@/lib/match/types";
 import { matchSchema, needsToParam, type MatchInput, type MatchRequest } from "@/lib/validation/match";
 import { DEFAULT_CENTER } from "@/components/map/types";
-import { EmptyState, Spinner } from "@/components/ui/empty-state";
+import { EmptyState } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";
 import { NeedsForm } from "./needs-form";
-import { PickupPlan } from "./pickup-plan";
-import { PlanMap } from "./plan-map";
+import { PlanPanel } from "./plan-panel";
 import { replaceNeed } from "./replace-need";
-import { UnitToggle } from "./unit-toggle";
 import { useMatch } from "./use-match";
 
 const finite = (x: unknown): x is number => typeof x === "number" && Number.isFinite(x);
@@ -43,7 +41,6 @@ export function MatchPlanner({ initial, run, system: defaultSystem, skipped }: {
 
   const watched = form.watch("origin");
   const origin = watched && finite(watched.lat) && finite(watched.lng) ? { lat: watched.lat, lng: watched.lng } : DEFAULT_CENTER;
-  const plan = query.data;
 
   const pick = (p: { lat: number; lng: number }) => {
     form.setValue("origin.lat", Number(p.lat.toFixed(6)), { shouldValidate: form.formState.isSubmitted });
@@ -68,27 +65,23 @@ export function MatchPlanner({ initial, run, system: defaultSystem, skipped }: {
         ) : null}
         <NeedsForm form={form} system={system} onSubmit={submit} busy={query.isFetching} />
       </aside>
-      <section aria-labelledby="plan-title" className="flex min-w-0 flex-col gap-4">
-        <div className="flex flex-wrap items-center justify-between gap-2">
-          <h2 id="plan-title" className="text-2xl font-bold">
-            Your pickup plan
-          </h2>
-          <UnitToggle value={system} onChange={setSystem} />
-        </div>
-        <PlanMap origin={plan?.origin ?? origin} stops={plan?.stops ?? []} onPick={pick} />
-        {query.isFetching ? <Spinner label="Finding the nearest supplies" /> : null}
-        {query.isError ? (
-          <Notice tone="error" title="No plan this time">
-            {(query.error as Error).message}
-          </Notice>
-        ) : null}
-        {!request && !query.isFetching ? (
-          <EmptyState title="Tell us what the bed needs">
-            Add each material and how much of it, set where you start from (or tap the map), and we will find the nearby listings that cover it with the fewest, shortest, cheapest pickups.
-          </EmptyState>
-        ) : null}
-        {plan && !query.isFetching ? <PickupPlan plan={plan} system={system} onWiden={widen} onSubstitute={substitute} /> : null}
-      </section>
+      <PlanPanel
+        title="Your pickup plan"
+        query={query}
+        origin={origin}
+        system={system}
+        onSystem={setSystem}
+        onPick={pick}
+        onWiden={widen}
+        onSubstitute={substitute}
+        empty={
+          request ? null : (
+            <EmptyState title="Tell us what the bed needs">
+              Add each material and how much of it, set where you start from (or tap the map), and we will find the nearby listings that cover it with the fewest, shortest, cheapest pickups.
+            </EmptyState>
+          )
+        }
+      />
     </div>
   );
 }
