@@ -62,3 +62,100 @@ export interface AuditRow {
   after: string | null;
   created_at: string;
 }
+
+export interface InviteRow {
+  id: string;
+  organisation_id: string;
+  email: string;
+  token_hash: string;
+  invited_by: string;
+  status: "pending" | "accepted" | "revoked";
+  expires_at: string;
+  accepted_by: string | null;
+  accepted_at: string | null;
+  created_at: string;
+}
+
+export interface GiveawayDayRow {
+  id: string;
+  organisation_id: string;
+  created_by: string;
+  material_code: string;
+  title: string;
+  notes: string;
+  date: string;
+  time_zone: string;
+  lat: number;
+  lng: number;
+  address: string;
+  approx_lat: number;
+  approx_lng: number;
+  unit: "bags" | "m3";
+  unit_size: number | null;
+  household_cap: number;
+  booking_opens_at: string;
+  booking_closes_at: string;
+  cancel_cutoff_hours: number;
+  deposit_cents: number;
+  currency: string;
+  status: "scheduled" | "cancelled";
+  cancel_reason: string | null;
+  cancelled_at: string | null;
+  created_at: string;
+  updated_at: string;
+}
+
+export interface GiveawaySlotRow {
+  id: string;
+  day_id: string;
+  starts_at: string;
+  ends_at: string;
+  capacity: number;
+  booked: number;
+  created_at: string;
+}
+
+export type BookingStatus = "booked" | "cancelled" | "checked_in" | "no_show";
+
+export interface GiveawayBookingRow {
+  id: string;
+  day_id: string;
+  slot_id: string;
+  user_id: string;
+  quantity: number;
+  status: BookingStatus;
+  deposit_cents: number;
+  deposit_status: "none" | "recorded" | "released" | "forfeit";
+  currency: string;
+  checked_in_at: string | null;
+  checked_in_by: string | null;
+  cancelled_at: string | null;
+  created_at: string;
+  updated_at: string;
+}
+
+export type ReportReason = "contaminated" | "misdescribed" | "no_show" | "unsafe" | "other";
+
+export interface ReportRow {
+  id: string;
+  reporter_id: string;
+  subject_type: "listing" | "user";
+  listing_id: string | null;
+  subject_user_id: string | null;
+  reason: ReportReason;
+  text: string;
+  status: "open" | "closed";
+  outcome_note: string | null;
+  closed_by: string | null;
+  closed_at: string | null;
+  created_at: string;
+}
+
+export interface GrowerShippingRow {
+  user_id: string;
+  ship_weekdays: string;
+  paused: boolean | 0 | 1;
+  pause_reason: "heat" | "frost" | "other" | null;
+  pause_note: string | null;
+  updated_at: string;
+}

@@ -77,3 +77,16 @@ export async function requireCurrentUser(roles?: readonly Role[]): Promise<Sessi
 export function hasRole(user: SessionUser | null, ...roles: Role[]): boolean {
   return !!user && roles.some((r) => user.roles.includes(r));
 }
+
+/** Public route handlers that show a little more to a signed-in person: null for visitors (and suspended accounts). */
+export async function optionalUser(req: NextRequest): Promise<SessionUser | null> {
+  const token = await getToken({ req, secret: AUTH_SECRET });
+  const id = typeof token?.uid === "string" ? token.uid : null;
+  if (!id) return null;
+  try {
+    return await loadSessionUser(id);
+  } catch (err) {
+    if (err instanceof ApiError && err.code === "suspended") return null;
+    throw err;
+  }
+}

@@ -10,6 +10,14 @@ export interface CautionLayers {
   worms: boolean;
 }
 
+// A Wisconsin yard-waste study found lead and chromium in curb-vacuumed leaves.
+const ROADSIDE_LEAVES =
+  "Leaves vacuumed up from the kerb or roadside can bring litter and road runoff with them, lead and chromium included; leaves raked from gardens and parks are the safer pick.";
+// Legionella and other microbes in soil, compost and manure (WHS Queensland).
+const GLOVES = "Wear gloves with soil, compost and manure, dampen anything dusty, and wash your hands afterwards.";
+const LOCAL_RULES_FIRST =
+  "These are general notes, not advice for your site: your local rules come first, and a licensed professional can advise where you need it.";
+
 const baleKg = (lb: number) => Math.round(lb * POUND_KG);
 
 export function estimateCautions(layers: CautionLayers): string[] {
@@ -19,10 +27,7 @@ export function estimateCautions(layers: CautionLayers): string[] {
     notes.push("Pull off tape, staples and plastic first, and leave out glossy, waxed or coated board.");
   }
   if (layers.leaves) {
-    // A Wisconsin yard-waste study found lead and chromium in curb-vacuumed leaves.
-    notes.push(
-      "Leaves vacuumed up from the kerb or roadside can bring litter and road runoff with them, lead and chromium included; leaves raked from gardens and parks are the safer pick.",
-    );
+    notes.push(ROADSIDE_LEAVES);
   }
   if (layers.straw) {
     // NC State Extension "Herbicide Carryover"; bean/pea pot test per WSU Whatcom County Extension.
@@ -38,11 +43,25 @@ export function estimateCautions(layers: CautionLayers): string[] {
       "Worms are live animals, and some earthworm species are invasive in some regions. Buy from a grower who can tell you the species, and follow your local rules.",
     );
   }
-  // General to every bed: Legionella and other microbes in soil, compost and manure (WHS Queensland).
-  notes.push("Wear gloves with soil, compost and manure, dampen anything dusty, and wash your hands afterwards.");
+  // General to every bed.
+  notes.push(GLOVES);
   notes.push("Check for local watering restrictions before you soak the bed.");
-  notes.push(
-    "These are general notes, not advice for your site: your local rules come first, and a licensed professional can advise where you need it.",
-  );
+  notes.push(LOCAL_RULES_FIRST);
+  return notes;
+}
+
+/** What a household collecting from a council giveaway day should know about the material. */
+export function giveawayCautions(material: string): string[] {
+  const notes: string[] = [];
+  if (material === "leaves") notes.push(ROADSIDE_LEAVES);
+  if (material === "compost") {
+    // NC State Extension "Herbicide Carryover"; bean/pea pot test per WSU Whatcom County Extension.
+    notes.push(
+      "Compost made from garden waste can carry weedkiller residues that survive composting. Ask staff about the source, and try a few beans or peas in a pot of it before filling a whole bed.",
+    );
+  }
+  if (material === "wood_chips") notes.push("Fresh chips suit paths and the top of a bed; dug in, they hold back nitrogen while they rot (common practice).");
+  notes.push(GLOVES);
+  notes.push(LOCAL_RULES_FIRST);
   return notes;
 }

@@ -1,0 +1,51 @@
+import "server-only";
+import { db } from "@/db/index";
+import { findBooking, findDay, findSlot, releaseSlotPlace, setBookingStatus } from "@/db/giveaways";
+import { findOrganisation } from "@/db/organisations";
+import { findUserById } from "@/db/users";
+import { enqueueEmail } from "@/db/outbox";
+import { ApiError, notFound } from "@/lib/api/errors";
+import { appUrl } from "@/lib/app-url";
+import { formatGiveawayQuantity } from "@/lib/format/money";
+import { giveawayBookingCancelledEmail } from "@/lib/mail/templates/giveaway";
+import { longDate, readableDateTime, wallTime } from "@/lib/time/zoned";
+import { cancelDeadline } from "./giveaway-view";
+
+/** A household cancels its own booking, up to the day's cut-off before the slot. */
+export async function cancelGiveawayBooking(userId: string, dayId: string, bookingId: string, clock: () => Date = () => new Date()) {
+  const booking = await findBooking(bookingId);
+  // Someone else's booking is not found, whatever its id.
+  if (!booking || booking.user_id !== userId || booking.day_id !== dayId) throw notFound("That booking");
+  const day = (await findDay(dayId))!;
+  const slot = (await findSlot(booking.slot_id, dayId))!;
+  if (booking.status !== "booked") throw new ApiError("invalid_state", `This booking is ${booking.status.replace("_", " ")} and cannot be cancelled.`);
+  const deadline = cancelDeadline(slot.starts_at, day.cancel_cutoff_hours);
+  if (clock().getTime() > deadline.getTime()) {
+    throw new ApiError("invalid_state", `Bookings for this day can be cancelled until ${day.cancel_cutoff_hours} hours before the slot (${readableDateTime(deadline.toISOString(), day.time_zone)}). Please tell the council if you cannot come.`);
+  }
+  return db().transaction(async (trx) => {
+    const changed = await setBookingStatus(
+      { id: bookingId, user_id: userId },
+      ["booked"],
+      "cancelled",
+      { cancelled_at: clock().toISOString(), deposit_status: booking.deposit_status === "recorded" ? "released" : booking.deposit_status },
+      trx,
+    );
+    if (!changed) throw new ApiError("invalid_state", "This booking has just changed; reload the page.");
+    await releaseSlotPlace(slot.id, trx);
+    const [user, org] = await Promise.all([findUserById(userId, trx), findOrganisation(day.organisation_id, trx)]);
+    if (user) {
+      const mail = giveawayBookingCancelledEmail({
+        name: user.display_name,
+        title: day.title,
+        organisation: org?.name ?? "the council",
+        dateLabel: longDate(day.date),
+        slotLabel: `${wallTime(slot.starts_at, day.time_zone)}–${wallTime(slot.ends_at, day.time_zone)}`,
+        quantityLabel: formatGiveawayQuantity(booking.quantity, day.unit),
+        pageUrl: `${appUrl()}/giveaways`,
+      });
+      await enqueueEmail({ to: user.email, ...mail, template: "giveaway_booking_cancelled", dedupe_key: `giveaway-booking-cancelled:${bookingId}` }, trx);
+    }
+    return (await findBooking(bookingId, trx))!;
+  });
+}
