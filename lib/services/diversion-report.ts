@@ -39,7 +39,13 @@ export async function platformDivertedKg(): Promise<number> {
   return (await diversionReport(null)).total_kg;
 }
 
-export function diversionCsv(report: DiversionReport): string {
+export function diversionCsv(report: DiversionReport, by: "month" | "day" = "month"): string {
+  if (by === "day") {
+    return toCsv(
+      ["date", "giveaway_day", "material", "kg", "m3", "households"],
+      report.by_day.map((d) => [d.date, d.title, d.material, d.kg, d.m3, d.households]),
+    );
+  }
   return toCsv(
     ["month", "material", "kg", "m3", "households", "collections"],
     report.by_month.map((m) => [m.month, m.material, m.kg, m.m3, m.households, m.collections]),

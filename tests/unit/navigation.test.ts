@@ -4,13 +4,18 @@ import { navFor } from "@/lib/auth/navigation";
 describe("navigation by role", () => {
   const labels = (roles: Parameters<typeof navFor>[0]) => navFor(roles).map((l) => l.href);
   it("shows visitors only the public entries", () => {
-    expect(labels(null)).toEqual(["/plan", "/mix"]);
+    expect(labels(null)).toEqual(["/plan", "/mix", "/giveaways"]);
   });
   it("adds each role's own area", () => {
-    expect(labels(["gardener"])).toEqual(["/plan", "/mix", "/beds"]);
+    expect(labels(["gardener"])).toEqual(["/plan", "/mix", "/giveaways", "/beds"]);
     expect(labels(["supplier"])).toContain("/listings/mine");
     expect(labels(["council"])).toEqual(expect.arrayContaining(["/council", "/listings/mine"]));
     expect(labels(["moderator"])).toContain("/moderation");
     expect(labels(["gardener"])).not.toContain("/council");
+    expect(labels(["grower"])).toEqual(expect.arrayContaining(["/grower", "/reports"]));
+    expect(labels(["supplier"])).toContain("/reports");
+    expect(labels(["gardener"])).not.toContain("/reports");
+    expect(labels(["council"])).toContain("/reports");
+    expect(labels(["moderator"])).not.toContain("/grower");
   });
 });

@@ -6,8 +6,9 @@ import { diversionQuerySchema } from "@/lib/validation/reports";
 import { diversionCsv, diversionReport } from "@/lib/services/diversion-report";
 import { diversionScopeOf } from "@/lib/services/diversion-scope";
 
-// GET /api/reports/diversion.csv — the same figures by month and material, for a spreadsheet.
+// GET /api/reports/diversion.csv?by=month|day — the same figures by month and material, or by giveaway day.
 export const GET = withAuth(async ({ req, user }) => {
   const query = parseInput(diversionQuerySchema, Object.fromEntries(req.nextUrl.searchParams));
-  return csvResponse(diversionCsv(await diversionReport(diversionScopeOf(user), query)), "duffbank-diversion.csv");
+  const report = await diversionReport(diversionScopeOf(user), query);
+  return csvResponse(diversionCsv(report, query.by), `duffbank-diversion-by-${query.by}.csv`);
 }, LISTING_ROLES);
