@@ -89,7 +89,7 @@ export function cancelDeadline(slotStartsAt: string, cutoffHours: number): Date 
 }
 
 /** Booking state of a day at `now`, for the page and for the rule in the service. */
-export function bookingWindowState(day: Pick<GiveawayDayRow, "booking_opens_at" | "booking_closes_at" | "status">, now: Date): "open" | "not_yet" | "closed" | "cancelled" {
+export function bookingWindowState(day: { booking_opens_at: string; booking_closes_at: string; status: string }, now: Date): "open" | "not_yet" | "closed" | "cancelled" {
   if (day.status === "cancelled") return "cancelled";
   if (now.getTime() < Date.parse(day.booking_opens_at)) return "not_yet";
   if (now.getTime() >= Date.parse(day.booking_closes_at)) return "closed";
