@@ -30,6 +30,8 @@ export interface BookingPanelProps {
   windowLabel: string;
   signedIn: boolean;
   booking: VisitorBooking | null;
+  /** The server's "now" when the page was made (ISO), so the render stays pure. */
+  now: string;
 }
 
 export function BookingPanel(p: BookingPanelProps) {
@@ -122,7 +124,7 @@ function BookForm(p: BookingPanelProps) {
 function MyBooking(p: BookingPanelProps & { booking: VisitorBooking }) {
   const action = useApiAction();
   const b = p.booking;
-  const canCancel = b.status === "booked" && Date.now() < Date.parse(b.cancel_until);
+  const canCancel = b.status === "booked" && Date.parse(p.now) < Date.parse(b.cancel_until);
   return (
     <section aria-labelledby="booked-title" className="flex flex-col gap-3 rounded-lg bg-moss-50 p-4 ring-1 ring-moss-300">
       <h2 id="booked-title" className="text-lg font-semibold">

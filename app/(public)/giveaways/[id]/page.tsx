@@ -60,6 +60,7 @@ export default async function GiveawayPage({ params }: { params: Promise<{ id: s
             windowLabel={windowLabel(day, now)}
             signedIn={!!user}
             booking={booking}
+            now={now.toISOString()}
           />
           {day.notes ? (
             <section aria-labelledby="notes-title" className="rounded-lg bg-white p-4 ring-1 ring-humus-200">

@@ -1,0 +1,75 @@
+import type { Metadata } from "next";
+import { pageUser } from "@/lib/auth/page-guard";
+import { cultureStock, growerShipping } from "@/lib/services/grower-shipping";
+import { formatMoney } from "@/lib/format/money";
+import { EmptyState, PageHeading } from "@/components/ui/empty-state";
+import { Notice } from "@/components/ui/notice";
+import { ShippingForm } from "@/components/grower/shipping-form";
+import { ShippingNotice } from "@/components/grower/shipping-notice";
+import { CultureForm } from "@/components/grower/culture-form";
+
+export const metadata: Metadata = { title: "Worm cultures" };
+export const dynamic = "force-dynamic";
+
+export default async function GrowerPage() {
+  const user = await pageUser("/grower", ["grower"]);
+  const [stock, shipping] = await Promise.all([cultureStock(user.id), growerShipping(user.id)]);
+  return (
+    <div className="flex flex-col gap-6">
+      <PageHeading title="Worm cultures" lead="Stock left on each live-culture listing, the days you post, and a pause for heat or frost that buyers see on your listings." />
+      <Notice tone="caution" title="Live animals">
+        Worms suffer in hot or freezing parcels: extension guidance puts their comfortable range at about 55–78 °F (13–26 °C). Some earthworm species are
+        invasive in some regions — name the species on every listing, and buyers should follow their local rules.
+      </Notice>
+
+      <section aria-labelledby="stock-title" className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
+        <h2 id="stock-title" className="mb-3 text-lg font-semibold">
+          Stock left
+        </h2>
+        {stock.length === 0 ? (
+          <EmptyState title="No worm listings yet">List a culture by the kilogram under “What I&apos;m giving”; it appears here with its stock.</EmptyState>
+        ) : (
+          <ul className="flex flex-col gap-4">
+            {stock.map((s) => (
+              <li key={s.id} className="grid gap-4 border-t border-humus-100 pt-4 first:border-0 first:pt-0 md:grid-cols-[1fr_minmax(0,360px)]" data-listing={s.id}>
+                <div>
+                  <h3 className="font-semibold">{s.title}</h3>
+                  <p className="text-sm text-humus-700">
+                    {s.status} · {formatMoney(s.price_cents, s.currency)} a kg
+                  </p>
+                  <p className="mt-2 text-2xl font-bold">{s.kg_left.toLocaleString("en-GB")} kg left</p>
+                  <p className="text-sm text-humus-700">
+                    About {s.estimated_count.toLocaleString("en-GB")} worms (roughly 1,000 a pound — common practice, not a count){s.kg_held ? ` · ${s.kg_held} kg on hold` : ""}
+                  </p>
+                  {!s.species ? <p className="mt-2 font-medium text-ember-800">No species named yet: buyers need it. Add it here.</p> : null}
+                </div>
+                <CultureForm listingId={s.id} title={s.title} initial={{ species: s.species, ships: s.ships, pickup: s.pickup }} />
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
+
+      <section aria-labelledby="ship-title" className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
+        <h2 id="ship-title" className="mb-3 text-lg font-semibold">
+          Shipping days
+        </h2>
+        <p className="mb-2 text-sm text-humus-700">What buyers read now:</p>
+        <ShippingNotice shipping={shipping} />
+        <div className="mt-4">
+          <ShippingForm initial={{ ship_weekdays: shipping.ship_weekdays, paused: shipping.paused, pause_reason: shipping.pause_reason, pause_note: shipping.pause_note }} />
+        </div>
+      </section>
+
+      <section aria-labelledby="orders-title" className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
+        <h2 id="orders-title" className="mb-3 text-lg font-semibold">
+          Open orders
+        </h2>
+        <EmptyState title="Orders are not built yet">
+          Paid worm orders (paid → packed → shipped → delivered, with the care sheet by e-mail) arrive with the payments work. Until then nothing is sold
+          through this page.
+        </EmptyState>
+      </section>
+    </div>
+  );
+}
