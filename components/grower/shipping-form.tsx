@@ -2,7 +2,7 @@
 import { Controller, useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { z } from "zod";
-import { PAUSE_REASON_LABELS, PAUSE_REASONS, shippingSchema, WEEKDAY_NAMES } from "@/lib/validation/grower";
+import { PAUSE_REASON_CHOICES, PAUSE_REASONS, shippingSchema, WEEKDAY_NAMES } from "@/lib/validation/grower";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { useApiAction } from "@/components/ui/use-api-action";
@@ -55,7 +55,7 @@ export function ShippingForm({ initial }: { initial: { ship_weekdays: number[]; 
             <legend className="font-medium">Because of</legend>
             {PAUSE_REASONS.map((r) => (
               <label key={r} className="flex min-h-11 items-center gap-2">
-                <input type="radio" value={r} className="h-5 w-5" {...form.register("pause_reason")} /> {PAUSE_REASON_LABELS[r]}
+                <input type="radio" value={r} className="h-5 w-5" {...form.register("pause_reason")} /> {PAUSE_REASON_CHOICES[r]}
               </label>
             ))}
           </fieldset>

@@ -16,11 +16,11 @@ const W = 640;
 const H = 260;
 const PAD = { top: 16, right: 12, bottom: 36, left: 56 };
 
-/** A "nice" axis top: 1, 2 or 5 times a power of ten at or above `max`. */
+/** A round axis top at or above `max` (1, 2, 3, 4, 5, 6 or 8 times a power of ten), so the quarter lines read easily. */
 export function niceMax(max: number): number {
   if (!(max > 0)) return 1;
   const p = 10 ** Math.floor(Math.log10(max));
-  return ([1, 2, 5, 10].find((m) => m * p >= max) ?? 10) * p;
+  return ([1, 2, 3, 4, 5, 6, 8, 10].find((m) => m * p >= max) ?? 10) * p;
 }
 
 const fmt = (n: number) => (n >= 100 ? Math.round(n).toLocaleString("en-GB") : Number(n.toFixed(1)).toLocaleString("en-GB"));

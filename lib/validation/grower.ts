@@ -2,7 +2,10 @@ import { z } from "zod";
 
 export const WEEKDAY_NAMES = ["Sunday", "Monday", "Tuesday", "Wednesday", "Thursday", "Friday", "Saturday"] as const;
 export const PAUSE_REASONS = ["heat", "frost", "other"] as const;
+/** As a buyer reads it: "paused because of …". */
 export const PAUSE_REASON_LABELS: Record<(typeof PAUSE_REASONS)[number], string> = { heat: "a heatwave", frost: "frost", other: "the weather" };
+/** As the grower picks it. */
+export const PAUSE_REASON_CHOICES: Record<(typeof PAUSE_REASONS)[number], string> = { heat: "Heat", frost: "Frost", other: "Other weather" };
 
 export const shippingSchema = z
   .object({
