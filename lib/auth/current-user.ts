@@ -57,7 +57,11 @@ export async function requireUser(req: NextRequest, roles?: readonly Role[]): Pr
 /** Pages and server actions: null when nobody is signed in. */
 export async function currentUser(): Promise<SessionUser | null> {
   const session = await getServerSession(authOptions);
-  const id = session?.user?.id;
+  return userUnlessSuspended(session?.user?.id ?? null);
+}
+
+/** A suspended account reads as signed out where signing in is optional. */
+async function userUnlessSuspended(id: string | null): Promise<SessionUser | null> {
   if (!id) return null;
   try {
     return await loadSessionUser(id);
@@ -81,12 +85,5 @@ export function hasRole(user: SessionUser | null, ...roles: Role[]): boolean {
 /** Public route handlers that show a little more to a signed-in person: null for visitors (and suspended accounts). */
 export async function optionalUser(req: NextRequest): Promise<SessionUser | null> {
   const token = await getToken({ req, secret: AUTH_SECRET });
-  const id = typeof token?.uid === "string" ? token.uid : null;
-  if (!id) return null;
-  try {
-    return await loadSessionUser(id);
-  } catch (err) {
-    if (err instanceof ApiError && err.code === "suspended") return null;
-    throw err;
-  }
+  return userUnlessSuspended(typeof token?.uid === "string" ? token.uid : null);
 }

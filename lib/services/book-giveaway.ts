@@ -9,8 +9,8 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
 import { giveawayCautions } from "@/lib/calc/cautions";
 import { formatGiveawayQuantity, formatMoney } from "@/lib/format/money";
-import { giveawayBookedEmail } from "@/lib/mail/templates/giveaway";
-import { longDate, readableDateTime, wallTime } from "@/lib/time/zoned";
+import { bookingParts, giveawayBookedEmail } from "@/lib/mail/templates/giveaway";
+import { readableDateTime } from "@/lib/time/zoned";
 import { bookingWindowState, cancelDeadline } from "./giveaway-view";
 import { calendarToken } from "./giveaway-calendar";
 
@@ -77,17 +77,11 @@ async function enqueueBookedEmail(day: GiveawayDayRow, slot: GiveawaySlotRow, bo
   if (!user) return;
   const base = appUrl();
   const mail = giveawayBookedEmail({
-    name: user.display_name,
-    title: day.title,
-    organisation: org?.name ?? "The council",
-    dateLabel: longDate(day.date),
-    slotLabel: `${wallTime(slot.starts_at, day.time_zone)}–${wallTime(slot.ends_at, day.time_zone)}`,
-    quantityLabel: formatGiveawayQuantity(booking.quantity, day.unit),
+    ...bookingParts({ name: user.display_name, organisation: org?.name ?? "The council", pageUrl: `${base}/giveaways/${day.id}`, day, slot, quantity: booking.quantity }),
     address: day.address,
     cancelBy: readableDateTime(cancelDeadline(slot.starts_at, day.cancel_cutoff_hours).toISOString(), day.time_zone),
     depositNote: booking.deposit_cents > 0 ? `A no-show deposit of ${formatMoney(booking.deposit_cents, booking.currency)} is recorded on this booking. ${DEPOSIT_NOT_TAKEN_NOTE}` : null,
     calendarUrl: `${base}/api/giveaways/${day.id}/bookings/${booking.id}/calendar.ics?t=${calendarToken(booking.id)}`,
-    pageUrl: `${base}/giveaways/${day.id}`,
     cautions: giveawayCautions(day.material_code),
   });
   await enqueueEmail({ to: user.email, ...mail, template: "giveaway_booked", dedupe_key: `giveaway-booked:${booking.id}` }, trx);

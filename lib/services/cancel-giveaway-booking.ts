@@ -6,9 +6,8 @@ import { findUserById } from "@/db/users";
 import { enqueueEmail } from "@/db/outbox";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
-import { formatGiveawayQuantity } from "@/lib/format/money";
-import { giveawayBookingCancelledEmail } from "@/lib/mail/templates/giveaway";
-import { longDate, readableDateTime, wallTime } from "@/lib/time/zoned";
+import { bookingParts, giveawayBookingCancelledEmail } from "@/lib/mail/templates/giveaway";
+import { readableDateTime } from "@/lib/time/zoned";
 import { cancelDeadline } from "./giveaway-view";
 
 /** A household cancels its own booking, up to the day's cut-off before the slot. */
@@ -35,15 +34,9 @@ export async function cancelGiveawayBooking(userId: string, dayId: string, booki
     await releaseSlotPlace(slot.id, trx);
     const [user, org] = await Promise.all([findUserById(userId, trx), findOrganisation(day.organisation_id, trx)]);
     if (user) {
-      const mail = giveawayBookingCancelledEmail({
-        name: user.display_name,
-        title: day.title,
-        organisation: org?.name ?? "the council",
-        dateLabel: longDate(day.date),
-        slotLabel: `${wallTime(slot.starts_at, day.time_zone)}–${wallTime(slot.ends_at, day.time_zone)}`,
-        quantityLabel: formatGiveawayQuantity(booking.quantity, day.unit),
-        pageUrl: `${appUrl()}/giveaways`,
-      });
+      const mail = giveawayBookingCancelledEmail(
+        bookingParts({ name: user.display_name, organisation: org?.name ?? "the council", pageUrl: `${appUrl()}/giveaways`, day, slot, quantity: booking.quantity }),
+      );
       await enqueueEmail({ to: user.email, ...mail, template: "giveaway_booking_cancelled", dedupe_key: `giveaway-booking-cancelled:${bookingId}` }, trx);
     }
     return (await findBooking(bookingId, trx))!;

@@ -5,9 +5,8 @@ import { enqueueEmail } from "@/db/outbox";
 import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
-import { formatGiveawayQuantity, formatMoney } from "@/lib/format/money";
-import { giveawayDayCancelledEmail } from "@/lib/mail/templates/giveaway";
-import { longDate, wallTime } from "@/lib/time/zoned";
+import { formatMoney } from "@/lib/format/money";
+import { bookingParts, giveawayDayCancelledEmail } from "@/lib/mail/templates/giveaway";
 import { staffDayView } from "./giveaway-view";
 import { DEPOSIT_NOT_TAKEN_NOTE } from "./book-giveaway";
 import type { CouncilContext } from "./council-access";
@@ -29,13 +28,7 @@ export async function cancelGiveaway(ctx: CouncilContext, dayId: string, reason:
           ? `The no-show deposit of ${formatMoney(b.deposit_cents, day.currency)} on your booking is released. ${DEPOSIT_NOT_TAKEN_NOTE}`
           : "There was no deposit on this booking, so there is nothing to release or refund.";
       const mail = giveawayDayCancelledEmail({
-        name: b.name,
-        title: day.title,
-        organisation: ctx.organisationName,
-        dateLabel: longDate(day.date),
-        slotLabel: `${wallTime(b.starts_at, day.time_zone)}–${wallTime(b.ends_at, day.time_zone)}`,
-        quantityLabel: formatGiveawayQuantity(b.quantity, day.unit),
-        pageUrl: `${appUrl()}/giveaways`,
+        ...bookingParts({ name: b.name, organisation: ctx.organisationName, pageUrl: `${appUrl()}/giveaways`, day, slot: b, quantity: b.quantity }),
         reason,
         depositNote,
       });

@@ -13,6 +13,7 @@ import { buttonClass } from "@/components/ui/button";
 import { StaffPanel } from "@/components/council/staff-panel";
 import { DaysTable } from "@/components/council/days-table";
 import { formatKg } from "@/components/reports/format";
+import { Panel } from "@/components/ui/panel";
 
 export const metadata: Metadata = { title: "Council desk" };
 export const dynamic = "force-dynamic";
@@ -36,10 +37,7 @@ export default async function CouncilPage() {
         </Link>
       </div>
 
-      <section aria-labelledby="days-title" className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
-        <h2 id="days-title" className="mb-3 text-lg font-semibold">
-          Giveaway days
-        </h2>
+      <Panel id="days" title="Giveaway days">
         {upcoming.length ? (
           <DaysTable days={upcoming} caption="Coming up" />
         ) : (
@@ -53,17 +51,9 @@ export default async function CouncilPage() {
             <DaysTable days={past} caption="Past days" />
           </details>
         ) : null}
-      </section>
+      </Panel>
 
-      <section aria-labelledby="kept-title" className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
-        <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2">
-          <h2 id="kept-title" className="text-lg font-semibold">
-            Kept out of the bin
-          </h2>
-          <Link href="/reports" className="font-semibold text-moss-700 underline underline-offset-4">
-            Charts and CSV
-          </Link>
-        </div>
+      <Panel id="kept" title="Kept out of the bin" action={<Link href="/reports" className="font-semibold text-moss-700 underline underline-offset-4">Charts and CSV</Link>}>
         <p>
           <strong className="text-2xl">{formatKg(report.total_kg)}</strong> collected by <strong>{report.households}</strong>{" "}
           {report.households === 1 ? "household" : "households"}, from your listings and checked-in giveaway bookings.
@@ -95,14 +85,11 @@ export default async function CouncilPage() {
         ) : (
           <p className="mt-2 text-sm text-humus-600">Figures appear once households are checked in at a giveaway day.</p>
         )}
-      </section>
+      </Panel>
 
-      <section aria-labelledby="staff-title" className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
-        <h2 id="staff-title" className="mb-3 text-lg font-semibold">
-          Staff
-        </h2>
+      <Panel id="staff" title="Staff">
         <StaffPanel members={members} invites={invites} isOwner={ctx.isOwner} me={user.id} />
-      </section>
+      </Panel>
     </div>
   );
 }

@@ -7,6 +7,7 @@ import { Notice } from "@/components/ui/notice";
 import { ShippingForm } from "@/components/grower/shipping-form";
 import { ShippingNotice } from "@/components/grower/shipping-notice";
 import { CultureForm } from "@/components/grower/culture-form";
+import { Panel } from "@/components/ui/panel";
 
 export const metadata: Metadata = { title: "Worm cultures" };
 export const dynamic = "force-dynamic";
@@ -22,10 +23,7 @@ export default async function GrowerPage() {
         invasive in some regions — name the species on every listing, and buyers should follow their local rules.
       </Notice>
 
-      <section aria-labelledby="stock-title" className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
-        <h2 id="stock-title" className="mb-3 text-lg font-semibold">
-          Stock left
-        </h2>
+      <Panel id="stock" title="Stock left">
         {stock.length === 0 ? (
           <EmptyState title="No worm listings yet">List a culture by the kilogram under “What I&apos;m giving”; it appears here with its stock.</EmptyState>
         ) : (
@@ -48,28 +46,22 @@ export default async function GrowerPage() {
             ))}
           </ul>
         )}
-      </section>
+      </Panel>
 
-      <section aria-labelledby="ship-title" className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
-        <h2 id="ship-title" className="mb-3 text-lg font-semibold">
-          Shipping days
-        </h2>
+      <Panel id="ship" title="Shipping days">
         <p className="mb-2 text-sm text-humus-700">What buyers read now:</p>
         <ShippingNotice shipping={shipping} />
         <div className="mt-4">
           <ShippingForm initial={{ ship_weekdays: shipping.ship_weekdays, paused: shipping.paused, pause_reason: shipping.pause_reason, pause_note: shipping.pause_note }} />
         </div>
-      </section>
+      </Panel>
 
-      <section aria-labelledby="orders-title" className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
-        <h2 id="orders-title" className="mb-3 text-lg font-semibold">
-          Open orders
-        </h2>
+      <Panel id="orders" title="Open orders">
         <EmptyState title="Orders are not built yet">
           Paid worm orders (paid → packed → shipped → delivered, with the care sheet by e-mail) arrive with the payments work. Until then nothing is sold
           through this page.
         </EmptyState>
-      </section>
+      </Panel>
     </div>
   );
 }

@@ -9,6 +9,7 @@ import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button";
 import { MATERIAL_COLORS, StackedBarChart, type ChartSeries } from "@/components/reports/bar-chart";
 import { formatKg } from "@/components/reports/format";
+import { Panel } from "@/components/ui/panel";
 
 export const metadata: Metadata = { title: "What I've passed on" };
 export const dynamic = "force-dynamic";
@@ -43,15 +44,7 @@ export default async function ReportsPage() {
             <Stat label="Volume" value={`${report.total_m3.toFixed(2)} m³`} />
             <Stat label="Households served" value={String(report.households)} />
           </section>
-          <section aria-labelledby="month-title" className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
-            <div className="mb-2 flex flex-wrap items-baseline justify-between gap-2">
-              <h2 id="month-title" className="text-lg font-semibold">
-                By month and material
-              </h2>
-              <a href="/api/reports/diversion.csv" className={buttonClass("secondary")}>
-                Download CSV
-              </a>
-            </div>
+          <Panel id="month" title="By month and material" action={<a href="/api/reports/diversion.csv" className={buttonClass("secondary")}>Download CSV</a>}>
             <StackedBarChart id="by-month" title="Kilograms passed on each month, by material" unit="kg" columns={columns} series={series} />
             <table className="mt-4 w-full text-left text-sm">
               <caption className="sr-only">The figures in the chart</caption>
@@ -76,17 +69,9 @@ export default async function ReportsPage() {
                 ))}
               </tbody>
             </table>
-          </section>
+          </Panel>
           {isCouncil ? (
-            <section aria-labelledby="day-title" className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
-              <div className="mb-2 flex flex-wrap items-baseline justify-between gap-2">
-                <h2 id="day-title" className="text-lg font-semibold">
-                  By giveaway day
-                </h2>
-                <a href="/api/reports/diversion.csv?by=day" className={buttonClass("secondary")}>
-                  Download CSV by day
-                </a>
-              </div>
+            <Panel id="day" title="By giveaway day" action={<a href="/api/reports/diversion.csv?by=day" className={buttonClass("secondary")}>Download CSV by day</a>}>
               {report.by_day.length ? (
                 <>
                   <StackedBarChart
@@ -110,7 +95,7 @@ export default async function ReportsPage() {
               ) : (
                 <p className="text-humus-700">No households checked in at a giveaway day yet.</p>
               )}
-            </section>
+            </Panel>
           ) : null}
           <section aria-labelledby="src-title" className="text-sm text-humus-700">
             <h2 id="src-title" className="font-semibold text-humus-900">

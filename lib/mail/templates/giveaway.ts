@@ -1,6 +1,8 @@
 import { renderEmail } from "../layout";
+import { formatGiveawayQuantity } from "@/lib/format/money";
+import { longDate, wallTime } from "@/lib/time/zoned";
 
-interface BookingParts {
+export interface BookingParts {
   name: string;
   title: string;
   organisation: string;
@@ -8,6 +10,26 @@ interface BookingParts {
   slotLabel: string;
   quantityLabel: string;
   pageUrl: string;
+}
+
+/** The words every giveaway-booking e-mail shares: who, which day, which slot, how much. */
+export function bookingParts(p: {
+  name: string;
+  organisation: string;
+  pageUrl: string;
+  day: { title: string; date: string; time_zone: string; unit: "bags" | "m3" };
+  slot: { starts_at: string; ends_at: string };
+  quantity: number;
+}): BookingParts {
+  return {
+    name: p.name,
+    title: p.day.title,
+    organisation: p.organisation,
+    dateLabel: longDate(p.day.date),
+    slotLabel: `${wallTime(p.slot.starts_at, p.day.time_zone)}–${wallTime(p.slot.ends_at, p.day.time_zone)}`,
+    quantityLabel: formatGiveawayQuantity(p.quantity, p.day.unit),
+    pageUrl: p.pageUrl,
+  };
 }
 
 /** Booked: the exact place (only booked households see it), the cut-off, and the calendar file. */

@@ -11,6 +11,7 @@ import { DayForm } from "@/components/giveaways/day-form";
 import { valuesFromDay } from "@/components/giveaways/day-form-model";
 import { SlotEditor } from "@/components/giveaways/slot-editor";
 import { CancelDayForm } from "@/components/giveaways/cancel-day-form";
+import { Panel } from "@/components/ui/panel";
 
 export const metadata: Metadata = { title: "Giveaway day" };
 export const dynamic = "force-dynamic";
@@ -61,21 +62,15 @@ export default async function CouncilDayPage({ params }: { params: Promise<{ id:
         <strong>{totals.households}</strong> households booked, <strong>{totals.checked_in}</strong> checked in; {formatGiveawayQuantity(totals.quantity, day.unit)} asked for.
       </p>
 
-      <section aria-labelledby="slots-title" className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
-        <h2 id="slots-title" className="mb-3 text-lg font-semibold">
-          Time slots
-        </h2>
+      <Panel id="slots" title="Time slots">
         <SlotEditor dayId={id} slots={day.slots} timeZone={day.time_zone} editable={live} />
-      </section>
+      </Panel>
 
       {live ? (
         <>
-          <section aria-labelledby="edit-title" className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
-            <h2 id="edit-title" className="mb-3 text-lg font-semibold">
-              Change the day
-            </h2>
+          <Panel id="edit" title="Change the day">
             <DayForm mode="edit" dayId={id} initial={valuesFromDay(day)} locked={booked > 0} />
-          </section>
+          </Panel>
           <section aria-labelledby="cancel-title" className="rounded-leaf bg-white p-6 ring-1 ring-ember-600/40">
             <h2 id="cancel-title" className="mb-3 text-lg font-semibold">
               Call the day off
