@@ -1,6 +1,6 @@
 "use client";
 import "leaflet/dist/leaflet.css";
-import { useEffect, useRef, useState } from "react";
+import { useEffect, useState } from "react";
 import { CircleMarker, GeoJSON, MapContainer, Polygon, Polyline, TileLayer, Tooltip, useMap, useMapEvents } from "react-leaflet";
 import type { Feature, FeatureCollection } from "geojson";
 import type { PathOptions } from "leaflet";
@@ -91,24 +91,6 @@ function FitTo({ points }: { points?: { lat: number; lng: number }[] }) {
   return null;
 }
 
-/**
- * MapContainer reads `zoom` once; when a page asks for another zoom later (the planner goes
- * from "where is the bed" to "draw its corners"), follow it. Before this, whether the planner
- * opened at street or town level depended on whether Leaflet loaded before the switch.
- */
-function FollowZoom({ zoom }: { zoom: number }) {
-  const map = useMap();
-  const first = useRef(true);
-  useEffect(() => {
-    if (first.current) {
-      first.current = false;
-      return;
-    }
-    map.setZoom(zoom);
-  }, [map, zoom]);
-  return null;
-}
-
 export function LeafletMap({ center, zoom = 13, markers = [], polygon, line, onClick, fitTo, label, className = "h-80" }: MapProps) {
   return (
     <div className={`overflow-hidden rounded-lg ring-1 ring-humus-200 ${className}`} role="region" aria-label={label}>
@@ -117,7 +99,6 @@ export function LeafletMap({ center, zoom = 13, markers = [], polygon, line, onC
         {TILE_URL ? null : <Labels />}
         <ClickCatcher onClick={onClick} />
         <FitTo points={fitTo} />
-        <FollowZoom zoom={zoom} />
         {polygon && polygon.length > 0 ? (
           polygon.length > 2 ? (
             <Polygon positions={polygon.map((p) => [p.lat, p.lng])} pathOptions={{ color: "#40642e", weight: 3, fillColor: "#94b97c", fillOpacity: 0.45 }} />
