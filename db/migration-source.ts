@@ -1,12 +1,14 @@
 import type { Knex } from "knex";
 import * as core from "../migrations/20261201_001_core";
 import * as reviews from "../migrations/20261201_002_reviews";
+import * as reservations from "../migrations/20261201_005_reservations";
 
 // Migrations are listed here rather than found on disk so that the same list runs under
 // the CLI script, Vitest and the bundled Next.js server alike. Add new ones at the end.
 const migrations: Record<string, Knex.Migration> = {
   "20261201_001_core": core,
   "20261201_002_reviews": reviews,
+  "20261201_005_reservations": reservations,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

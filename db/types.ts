@@ -62,3 +62,71 @@ export interface AuditRow {
   after: string | null;
   created_at: string;
 }
+
+export interface ReservationRow {
+  id: string;
+  listing_id: string;
+  gardener_id: string;
+  bed_id: string | null;
+  pickup_window_id: string | null;
+  group_id: string | null;
+  quantity: number;
+  status: "held" | "confirmed" | "collected" | "declined" | "cancelled" | "expired" | "no_show";
+  payment_state: "none" | "awaiting" | "paid" | "authorised" | "released" | "captured" | "refunded";
+  hold_expires_at: string | null;
+  pickup_code: string | null;
+  pickup_at: string | null;
+  pickup_by: string | null;
+  amount_cents: number;
+  deposit_cents: number;
+  currency: string;
+  confirmed_at: string | null;
+  closed_at: string | null;
+  cancelled_by: "gardener" | "supplier" | null;
+  expiry_warned_at: string | null;
+  pickup_reminded_at: string | null;
+  created_at: string;
+  updated_at: string;
+}
+
+export interface PaymentRow {
+  id: string;
+  reservation_id: string;
+  parent_id: string | null;
+  kind: "payment" | "deposit" | "refund";
+  provider: string;
+  provider_ref: string | null; // checkout session id, or refund id
+  payment_intent_id: string | null;
+  checkout_url: string | null;
+  // creating | open | expired | authorised | paid | released | captured | refunded (refunds: pending | succeeded | failed)
+  status: string;
+  amount_cents: number;
+  captured_cents: number;
+  refunded_cents: number;
+  currency: string;
+  idempotency_key: string;
+  last_error: string | null;
+  pending_action: "expire" | "release" | "capture" | "refund" | null;
+  action_attempts: number;
+  next_action_at: string | null;
+  created_at: string;
+  updated_at: string;
+}
+
+export interface ReservationEventRow {
+  id: number;
+  reservation_id: string;
+  from_status: string | null;
+  to_status: string;
+  actor_id: string | null;
+  note: string | null;
+  created_at: string;
+}
+
+export interface ReservationMessageRow {
+  id: string;
+  reservation_id: string;
+  author_id: string;
+  body: string;
+  created_at: string;
+}

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { profileSchema, signUpSchema } from "@/lib/validation/auth";
 import { roleDecisionSchema } from "@/lib/validation/moderation";
+import { cancelSchema, collectSchema, confirmSchema, createReservationSchema, declineSchema, messageSchema, noShowSchema, reviewSchema } from "@/lib/validation/reservations";
 
 export interface RouteDoc {
   method: "get" | "post" | "patch" | "put" | "delete";
@@ -27,4 +28,18 @@ export const API_ROUTES: RouteDoc[] = [
   { method: "get", path: "/api/council/members", summary: "Staff of my council", tag: "councils", auth: ["council"], errors: [401, 403] },
   { method: "get", path: "/api/moderation/role-requests", summary: "Roles waiting for a decision", tag: "moderation", auth: ["moderator"], errors: [401, 403] },
   { method: "post", path: "/api/moderation/role-requests/{userId}", summary: "Approve or refuse a requested role", tag: "moderation", auth: ["moderator"], body: roleDecisionSchema, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "post", path: "/api/reservations", summary: "Hold a quantity of a listing (or several, all or nothing) for a gardener", tag: "reservations", auth: ["gardener"], body: createReservationSchema, status: 201, responseDescription: "{ reservation, checkout_url? } or { reservations, checkout_url? }", errors: [400, 401, 403, 404, 409, 422] },
+  { method: "get", path: "/api/reservations", summary: "My reservations (as a gardener)", tag: "reservations", auth: "signed-in", errors: [401] },
+  { method: "get", path: "/api/reservations/{id}", summary: "One reservation as its gardener or supplier sees it", tag: "reservations", auth: "signed-in", errors: [401, 404] },
+  { method: "post", path: "/api/reservations/{id}/confirm", summary: "Accept a held request (supplier)", tag: "reservations", auth: ["supplier", "grower", "council"], body: confirmSchema, errors: [401, 403, 404, 409] },
+  { method: "post", path: "/api/reservations/{id}/decline", summary: "Decline a held request (supplier); money is returned", tag: "reservations", auth: ["supplier", "grower", "council"], body: declineSchema, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "post", path: "/api/reservations/{id}/cancel", summary: "Cancel (either side; a late cancellation by the gardener keeps the deposit)", tag: "reservations", auth: "signed-in", body: cancelSchema, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "post", path: "/api/reservations/{id}/collect", summary: "Record the pickup, with the gardener's code or without (supplier)", tag: "reservations", auth: ["supplier", "grower", "council"], body: collectSchema, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "post", path: "/api/reservations/{id}/no-show", summary: "Record that nobody came, after the pickup time (supplier); a deposit is captured", tag: "reservations", auth: ["supplier", "grower", "council"], body: noShowSchema, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "post", path: "/api/reservations/{id}/checkout", summary: "The payment page for a reservation still to be paid", tag: "reservations", auth: ["gardener"], response: z.object({ checkout_url: z.string() }), errors: [401, 403, 404, 409] },
+  { method: "get", path: "/api/reservations/{id}/messages", summary: "The message thread of a reservation", tag: "reservations", auth: "signed-in", errors: [401, 404] },
+  { method: "post", path: "/api/reservations/{id}/messages", summary: "Send a message to the other side (e-mailed; rate limited)", tag: "reservations", auth: "signed-in", body: messageSchema, status: 201, errors: [400, 401, 404, 409, 422, 429] },
+  { method: "post", path: "/api/reservations/{id}/review", summary: "Rate the other side once after collection", tag: "reservations", auth: "signed-in", body: reviewSchema, status: 201, errors: [400, 401, 404, 409, 422] },
+  { method: "get", path: "/api/requests", summary: "Reservations on my (or my organisation's) listings", tag: "reservations", auth: ["supplier", "grower", "council"], errors: [401, 403] },
+  { method: "post", path: "/api/webhooks/stripe", summary: "Stripe's signed events (Stripe-Signature); each applied once", tag: "payments", auth: "public", errors: [400, 500] },
 ];

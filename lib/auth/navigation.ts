@@ -9,7 +9,9 @@ export interface NavLink {
 const LINKS: { href: string; label: string; roles: Role[] | "public" }[] = [
   { href: "/plan", label: "Plan a bed", roles: "public" },
   { href: "/beds", label: "My beds", roles: ["gardener"] },
+  { href: "/reservations", label: "My reservations", roles: ["gardener"] },
   { href: "/listings/mine", label: "What I'm giving", roles: ["supplier", "grower", "council"] },
+  { href: "/requests", label: "Requests", roles: ["supplier", "grower", "council"] },
   { href: "/council", label: "Council desk", roles: ["council"] },
   { href: "/moderation", label: "Moderation", roles: ["moderator"] },
 ];

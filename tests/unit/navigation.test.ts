@@ -7,9 +7,12 @@ describe("navigation by role", () => {
     expect(labels(null)).toEqual(["/plan"]);
   });
   it("adds each role's own area", () => {
-    expect(labels(["gardener"])).toEqual(["/plan", "/beds"]);
-    expect(labels(["supplier"])).toContain("/listings/mine");
-    expect(labels(["council"])).toEqual(expect.arrayContaining(["/council", "/listings/mine"]));
+    expect(labels(["gardener"])).toEqual(["/plan", "/beds", "/reservations"]);
+    expect(labels(["supplier"])).toEqual(["/plan", "/listings/mine", "/requests"]);
+    expect(labels(["grower"])).toContain("/requests");
+    expect(labels(["council"])).toEqual(expect.arrayContaining(["/council", "/listings/mine", "/requests"]));
+    expect(labels(["council"])).not.toContain("/reservations");
+    expect(labels(["moderator"])).not.toContain("/requests");
     expect(labels(["moderator"])).toContain("/moderation");
     expect(labels(["gardener"])).not.toContain("/council");
   });
