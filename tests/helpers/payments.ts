@@ -11,6 +11,8 @@ export const TEST_WEBHOOK_SECRET = "whsec_duffbank_local";
 
 export interface PaymentsHarness {
   fake: StripeFake;
+  /** Where the fake posts its webhooks (set it back after a test turned them off). */
+  webhookUrl: string;
   /** Status codes the webhook route answered, in arrival order. */
   answers: number[];
   close(): Promise<void>;
@@ -38,6 +40,7 @@ export async function startPayments(): Promise<PaymentsHarness> {
   resetStripe();
   return {
     fake,
+    webhookUrl: url,
     answers,
     close: async () => {
       await fake.close();
