@@ -16,7 +16,7 @@
 
 export const DEFAULT_HOLD_MINUTES = 30;
 /** An operator (or a demo) may shorten or lengthen the hold; tests use a moved clock instead. */
-export function holdMinutes(env: NodeJS.ProcessEnv = process.env): number {
+export function holdMinutes(env: Record<string, string | undefined> = process.env): number {
   const n = Number(env.HOLD_MINUTES);
   return Number.isFinite(n) && n > 0 ? n : DEFAULT_HOLD_MINUTES;
 }

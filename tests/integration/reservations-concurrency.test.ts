@@ -25,10 +25,10 @@ afterAll(() => ctx.close());
 async function burst(listingId: string, processes: number, perProcess: number, sizes: number[], gardeners: string[]): Promise<string[]> {
   const startAt = Date.now() + 4000; // time for every process to start and open its connection
   const script = path.resolve(__dirname, "../helpers/reserve-burst.ts");
-  const env = { ...process.env, NODE_ENV: "test", DATABASE_FILE: ctx.file };
+  const env = { ...process.env, NODE_ENV: "test", DATABASE_FILE: ctx.file } as NodeJS.ProcessEnv;
   const outs = await Promise.all(
     Array.from({ length: processes }, () =>
-      run(process.execPath, ["--conditions=react-server", "--import", "tsx", script, listingId, String(perProcess), String(startAt), sizes.join(","), gardeners.join(",")], { env, cwd: path.resolve(__dirname, "../..") }),
+      run(process.execPath, ["--conditions=react-server", "--import", "tsx", script, listingId, String(perProcess), String(startAt), sizes.join(","), gardeners.join(",")], { env, cwd: path.resolve(__dirname, "../.."), encoding: "utf8" }),
     ),
   );
   return outs.flatMap((o) => JSON.parse(o.stdout) as string[]);

@@ -92,7 +92,7 @@ describe("POST /api/reservations (one listing)", () => {
     expect(new Date(r.pickup.ends_by).getTime() - new Date(r.pickup.starts_at).getTime()).toBe(3 * 3_600_000);
   });
 
-  const cases: { name: string; body: () => Promise<unknown> | unknown; as?: () => string | null; status: number; code: string; field?: string }[] = [
+  const cases: { name: string; body: unknown; as?: () => string | null; status: number; code: string; field?: string }[] = [
     { name: "not signed in", body: async () => ({ listing_id: (await createListing()).id, quantity: 1 }), as: () => null, status: 401, code: "unauthenticated" },
     { name: "a supplier without the gardener role", body: async () => ({ listing_id: (await createListing()).id, quantity: 1 }), as: () => supplierOnly.id, status: 403, code: "forbidden" },
     { name: "no quantity", body: async () => ({ listing_id: (await createListing()).id }), status: 422, code: "invalid_input", field: "quantity" },
