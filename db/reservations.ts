@@ -179,23 +179,24 @@ export async function heldDueToExpire(now: string, limit = 50, q: Db = db()): Pr
   return q<ReservationRow>("reservations").select("*").where("status", "held").andWhere("hold_expires_at", "<=", now).orderBy("hold_expires_at").limit(limit);
 }
 
-export async function heldDueForWarning(now: string, warnBefore: string, limit = 50, q: Db = db()): Promise<ReservationRow[]> {
+/**
+ * Reservations in `status` whose `timeColumn` falls in (after, until] and whose `marker`
+ * column is still empty: the ones a once-only reminder has not reached yet.
+ */
+export async function dueForNotice(
+  status: "held" | "confirmed",
+  timeColumn: "hold_expires_at" | "pickup_at",
+  marker: "expiry_warned_at" | "pickup_reminded_at",
+  after: string,
+  until: string,
+  limit = 50,
+  q: Db = db(),
+): Promise<ReservationRow[]> {
   return q<ReservationRow>("reservations")
     .select("*")
-    .where("status", "held")
-    .whereNull("expiry_warned_at")
-    .andWhere("hold_expires_at", ">", now)
-    .andWhere("hold_expires_at", "<=", warnBefore)
+    .where("status", status)
+    .whereNull(marker)
+    .andWhere(timeColumn, ">", after)
+    .andWhere(timeColumn, "<=", until)
     .limit(limit);
 }
-
-export async function confirmedDueForReminder(now: string, remindBefore: string, limit = 50, q: Db = db()): Promise<ReservationRow[]> {
-  return q<ReservationRow>("reservations")
-    .select("*")
-    .where("status", "confirmed")
-    .whereNull("pickup_reminded_at")
-    .andWhere("pickup_at", ">", now)
-    .andWhere("pickup_at", "<=", remindBefore)
-    .limit(limit);
-}
-

@@ -3,7 +3,7 @@ import type { Knex } from "knex";
 import { writeTransaction } from "@/db/write-transaction";
 import { db } from "@/db/index";
 import { reservationContext } from "@/db/reservation-context";
-import { confirmedDueForReminder, heldDueForWarning, heldDueToExpire } from "@/db/reservations";
+import { dueForNotice, heldDueToExpire } from "@/db/reservations";
 import type { ReservationRow } from "@/db/types";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { runPaymentActions } from "@/lib/payments/actions";
@@ -41,32 +41,33 @@ export async function expireHolds(clock: Clock = () => new Date(), q: Knex = db(
   return { expired };
 }
 
+type Notice = { status: "held" | "confirmed"; time: "hold_expires_at" | "pickup_at"; marker: "expiry_warned_at" | "pickup_reminded_at"; aheadMs: number };
+
+/** Sends one kind of notice to every reservation due for it, each once: the marker column is claimed first. */
+async function sendNotices(q: Knex, n: Notice, now: Date, send: (trx: Knex.Transaction, r: ReservationRow) => Promise<void>): Promise<number> {
+  const at = now.toISOString();
+  let sent = 0;
+  for (const r of await dueForNotice(n.status, n.time, n.marker, at, new Date(now.getTime() + n.aheadMs).toISOString(), 100, q)) {
+    const claimed = await writeTransaction(q, async (trx) => {
+      const won = await trx("reservations").where({ id: r.id, status: n.status }).whereNull(n.marker).update({ [n.marker]: at });
+      if (won === 1) await send(trx, r);
+      return won === 1;
+    });
+    if (claimed) sent++;
+  }
+  return sent;
+}
+
 /** "Your hold ends soon" and "pickup tomorrow", each sent once (marker column + dedupe key). */
 export async function sendReservationReminders(clock: Clock = () => new Date(), q: Knex = db()): Promise<{ warned: number; reminded: number }> {
   const now = clock();
-  const at = now.toISOString();
-  let warned = 0;
-  let reminded = 0;
-  const warnBefore = new Date(now.getTime() + EXPIRY_WARNING_MINUTES * 60_000).toISOString();
-  for (const r of await heldDueForWarning(at, warnBefore, 100, q)) {
-    await writeTransaction(q, async (trx) => {
-      const n = await trx("reservations").where({ id: r.id, status: "held" }).whereNull("expiry_warned_at").update({ expiry_warned_at: at });
-      if (n !== 1) return;
-      const ctx = (await reservationContext(r.id, trx))!;
-      // Whoever has the next move hears about it: the gardener to pay, or the supplier to answer.
-      await mailReservation(trx, "expiring", ctx, [r.payment_state === "awaiting" ? "gardener" : "supplier"], {}, r.hold_expires_at ?? "");
-      warned++;
-    });
-  }
-  const remindBefore = new Date(now.getTime() + PICKUP_REMINDER_HOURS * 3_600_000).toISOString();
-  for (const r of await confirmedDueForReminder(at, remindBefore, 100, q)) {
-    await writeTransaction(q, async (trx) => {
-      const n = await trx("reservations").where({ id: r.id, status: "confirmed" }).whereNull("pickup_reminded_at").update({ pickup_reminded_at: at });
-      if (n !== 1) return;
-      const ctx = (await reservationContext(r.id, trx))!;
-      await mailReservation(trx, "reminder", ctx, ctx.gardener.reminders_opt_out ? ["supplier"] : ["gardener", "supplier"]);
-      reminded++;
-    });
-  }
+  const warned = await sendNotices(q, { status: "held", time: "hold_expires_at", marker: "expiry_warned_at", aheadMs: EXPIRY_WARNING_MINUTES * 60_000 }, now, async (trx, r) => {
+    // Whoever has the next move hears about it: the gardener to pay, or the supplier to answer.
+    await mailReservation(trx, "expiring", (await reservationContext(r.id, trx))!, [r.payment_state === "awaiting" ? "gardener" : "supplier"], {}, r.hold_expires_at ?? "");
+  });
+  const reminded = await sendNotices(q, { status: "confirmed", time: "pickup_at", marker: "pickup_reminded_at", aheadMs: PICKUP_REMINDER_HOURS * 3_600_000 }, now, async (trx, r) => {
+    const ctx = (await reservationContext(r.id, trx))!;
+    await mailReservation(trx, "reminder", ctx, ctx.gardener.reminders_opt_out ? ["supplier"] : ["gardener", "supplier"]);
+  });
   return { warned, reminded };
 }
