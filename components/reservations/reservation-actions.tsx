@@ -50,7 +50,8 @@ export function ReservationActions({ id, side, actions, canPay, cancelNote }: Pr
             They did not come
           </Button>
         ) : null}
-        {actions.includes("cancel") ? (
+        {/* A supplier turns down a held request with Decline; Cancel is for after accepting. */}
+        {actions.includes("cancel") && !(side === "supplier" && actions.includes("decline")) ? (
           <Button variant="secondary" onClick={() => setOpen(open === "cancel" ? null : "cancel")} aria-expanded={open === "cancel"} disabled={!!busy}>
             Cancel reservation
           </Button>

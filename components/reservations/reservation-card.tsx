@@ -2,7 +2,7 @@ import type { ReservationView } from "@/lib/reservations/view";
 import { formatMoney } from "@/lib/payments/money";
 import { quantityLabel } from "@/lib/reservations/labels";
 import { formatLocal } from "@/lib/reservations/pickup-times";
-import { CANCEL_NOTICE_HOURS } from "@/lib/reservations/policy";
+import { CANCEL_NOTICE_HOURS, STATUS_LABELS } from "@/lib/reservations/policy";
 import { StatusBadge } from "./status-badge";
 import { ReservationActions } from "./reservation-actions";
 import { MessagesPanel } from "./message-thread";
@@ -144,9 +144,9 @@ export function ReservationCard({ v }: { v: ReservationView }) {
         <ol className="flex flex-col gap-1 border-t border-humus-200 p-3 text-sm">
           {v.history.map((h, i) => (
             <li key={i}>
-              <span className="text-humus-600">{formatLocal(h.at)}</span> · {h.from === h.to ? "Still on hold" : h.from ? `${h.to.replace("_", " ")}` : "Reserved"}
+              <span className="text-humus-600">{formatLocal(h.at)}</span> · {h.from === h.to ? (h.note ?? "Updated") : h.from ? STATUS_LABELS[h.to as keyof typeof STATUS_LABELS] : "Reserved"}
               {h.by !== "duffbank" ? ` by ${h.by === v.side ? "you" : BY[h.by]}` : ""}
-              {h.note ? ` — ${h.note}` : ""}
+              {h.note && h.from !== h.to ? ` — ${h.note}` : ""}
             </li>
           ))}
         </ol>

@@ -17,6 +17,7 @@ export function ReviewForm({ id, subject }: { id: string; subject: string }) {
     await run("review", values);
   });
   const ratingError = form.formState.errors.rating?.message;
+  const rating = form.watch("rating");
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-2 rounded-lg bg-litter-100 p-3">
       <fieldset aria-describedby={`rating-error-${id}`}>
@@ -24,7 +25,8 @@ export function ReviewForm({ id, subject }: { id: string; subject: string }) {
         <div className="mt-1 flex flex-wrap gap-2">
           {[1, 2, 3, 4, 5].map((n) => (
             <label key={n} className="flex min-h-11 cursor-pointer items-center gap-1 rounded-lg bg-white px-3 ring-1 ring-humus-300 has-[:checked]:bg-moss-600 has-[:checked]:text-white has-[:focus-visible]:ring-2 has-[:focus-visible]:ring-litter-500">
-              <input type="radio" value={n} className="sr-only" {...form.register("rating", { setValueAs: (v) => (v === "" || v === undefined || v === null ? undefined : Number(v)) })} />
+              {/* Set as a number by hand: react-hook-form's setValueAs does not apply to radios. */}
+              <input type="radio" name={`rating-${id}`} value={n} className="sr-only" checked={rating === n} onChange={() => form.setValue("rating", n, { shouldValidate: form.formState.isSubmitted })} />
               <span aria-hidden="true">{"★".repeat(n)}</span>
               <span className="sr-only">{`${n} of 5, ${WORDS[n].toLowerCase()}`}</span>
             </label>

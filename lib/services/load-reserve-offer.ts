@@ -4,6 +4,7 @@ import { availableOf, listingsForReservation, pickupWindowsOf } from "@/db/reser
 import { ratingsFor } from "@/db/reviews";
 import { nextOccurrence, windowLabel } from "@/lib/reservations/pickup-times";
 import { holdMinutes } from "@/lib/reservations/policy";
+import { WHOLE_UNITS } from "@/lib/reservations/labels";
 
 /** What the reserve page shows about a listing: public facts only, never the address. */
 export async function loadReserveOffer(listingId: string, now = new Date()) {
@@ -23,7 +24,8 @@ export async function loadReserveOffer(listingId: string, now = new Date()) {
     unit: l.unit,
     unit_size: l.unit_size,
     unit_mass_kg: l.unit_mass_kg,
-    available: availableOf(l),
+    // Nobody can take 0.7 of a bale, whatever the listing's total says.
+    available: WHOLE_UNITS.has(l.unit) ? Math.floor(availableOf(l) + 1e-9) : availableOf(l),
     max_per_reservation: l.max_per_reservation,
     price_cents: l.price_cents,
     // Deposits apply to free listings only (lib/reservations/policy.ts).
@@ -35,6 +37,7 @@ export async function loadReserveOffer(listingId: string, now = new Date()) {
     windows: windows
       .map((w) => ({ id: w.id, label: windowLabel(w), next: nextOccurrence(w, now) }))
       .filter((w) => w.next)
+      .sort((a, b) => a.next!.start.getTime() - b.next!.start.getTime())
       .map((w) => ({ id: w.id, label: w.label, next_start: w.next!.start.toISOString(), next_end: w.next!.end.toISOString() })),
   };
 }

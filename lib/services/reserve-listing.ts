@@ -101,7 +101,8 @@ export async function reserveListings(input: ReserveInput, deps: ReserveDeps = {
       if (!(await holdQuantity(c.listing.id, c.item.quantity, trx))) {
         const fresh = (await listingsForReservation([c.listing.id], trx))[0];
         if (fresh.status !== "active") throw new ApiError("invalid_state", `“${fresh.title}” is not taking reservations right now.`);
-        throw new ApiError("insufficient_quantity", `Only ${quantityLabel(availableOf(fresh), fresh.unit)} of “${fresh.title}” is left.`);
+        const left = WHOLE_UNITS.has(fresh.unit) ? Math.floor(availableOf(fresh) + 1e-9) : availableOf(fresh);
+        throw new ApiError("insufficient_quantity", left > 0 ? `Only ${quantityLabel(left, fresh.unit)} of “${fresh.title}” is left.` : `Nothing of “${fresh.title}” is left.`);
       }
       const owes = c.amount > 0 || c.deposit > 0;
       const row: ReservationRow = {

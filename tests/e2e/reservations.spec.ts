@@ -137,14 +137,15 @@ test("a gardener pays for straw, the farm accepts, the pickup code closes it, an
 
   await g.page.reload();
   const done = card(g.page, `2 bales of ${straw.title}`);
-  await done.getByText("5 of 5, excellent").click();
+  await done.locator("label").filter({ hasText: "5 of 5, excellent" }).click();
+  await expect(done.getByRole("radio", { name: "5 of 5, excellent" })).toBeChecked();
   await done.getByLabel("A line about it (optional)").fill("Dry bales, easy pickup.");
   await done.getByRole("button", { name: "Send review" }).click();
   await expect(done.getByText(/You rated Hartwell Farm ★★★★★/)).toBeVisible();
 
   await farm.page.reload();
   const theirs = card(farm.page, `2 bales of ${straw.title}`);
-  await theirs.getByText("4 of 5, good").click();
+  await theirs.locator("label").filter({ hasText: "4 of 5, good" }).click();
   await theirs.getByRole("button", { name: "Send review" }).click();
   await expect(theirs.getByText(/You rated Ines Okafor ★★★★/)).toBeVisible();
   await expect(theirs.getByText(/Ines Okafor rated you ★★★★★/)).toBeVisible();
