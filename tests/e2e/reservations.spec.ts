@@ -125,6 +125,19 @@ test("a gardener pays for straw, the farm accepts, the pickup code closes it, an
   await expect(mine.getByTestId("pickup-address")).toHaveText(straw.address);
   await g.page.screenshot({ path: shots("my-reservations-confirmed"), fullPage: true });
 
+  // A message each way; each is e-mailed to the other side.
+  await mine.getByText("Messages with Hartwell Farm").click();
+  await expect(mine.getByText(/No messages yet/)).toBeVisible();
+  await mine.getByLabel("Message to Hartwell Farm").fill("I can come on Saturday with a trailer.");
+  await mine.getByRole("button", { name: "Send" }).click();
+  await expect(mine.getByRole("list", { name: "Messages" })).toContainText("I can come on Saturday with a trailer.");
+  const note = await latestMail(request, "hartwell@duffbank.test", /^New message about 2 bales/);
+  expect(note.text).toContain("I can come on Saturday with a trailer.");
+  await g.page.setViewportSize({ width: 390, height: 844 });
+  await mine.getByText("Status history").click();
+  await expect(mine.getByText(/Payment received/)).toBeVisible();
+  await g.page.screenshot({ path: shots("my-reservations-phone"), fullPage: true });
+
   await farm.page.reload();
   const atGate = card(farm.page, `2 bales of ${straw.title}`);
   await atGate.getByLabel("Pickup code").fill("WRONG1");
@@ -187,7 +200,7 @@ test("a declined card holds the bales only until the hold runs out", async ({ br
   });
   expect(sql("select quantity_held from listings where id = ?", straw.id)[0].quantity_held).toBe(heldBefore);
   await g.page.reload();
-  await expect(card(g.page, `3 bales of ${straw.title}`).getByText("Hold ran out")).toBeVisible();
+  await expect(card(g.page, `3 bales of ${straw.title}`).getByText("Hold ran out", { exact: true })).toBeVisible();
   // The checkout closed with it: the old link takes no money.
   await g.page.goto(checkoutUrl);
   await expect(g.page.getByRole("heading", { name: "This payment link has expired" })).toBeVisible();
