@@ -12,23 +12,28 @@ import { seedId } from "./ids";
 
 const CREATED = "2026-11-01T09:00:00.000Z";
 
+/** The materials table follows lib/calc's facts; listings refer to it, so tests load it too. */
+export async function seedMaterials(knex: Knex): Promise<void> {
+  for (const m of Object.values(MATERIALS)) {
+    await knex("materials")
+      .insert({
+        code: m.code,
+        name: m.name,
+        n_pct: m.n_pct,
+        cn_ratio: m.cn_ratio,
+        moisture_pct: m.moisture_pct,
+        bulk_density_kg_m3: m.bulk_density_kg_m3,
+        default_unit: m.default_unit,
+        source: m.source,
+      })
+      .onConflict("code")
+      .merge();
+  }
+}
+
 export async function seed(knex: Knex): Promise<Record<string, number>> {
   await knex.transaction(async (trx) => {
-    for (const m of Object.values(MATERIALS)) {
-      await trx("materials")
-        .insert({
-          code: m.code,
-          name: m.name,
-          n_pct: m.n_pct,
-          cn_ratio: m.cn_ratio,
-          moisture_pct: m.moisture_pct,
-          bulk_density_kg_m3: m.bulk_density_kg_m3,
-          default_unit: m.default_unit,
-          source: m.source,
-        })
-        .onConflict("code")
-        .merge();
-    }
+    await seedMaterials(trx);
 
     for (const org of ORGANISATIONS) {
       await trx("organisations")

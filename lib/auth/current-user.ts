@@ -54,10 +54,8 @@ export async function requireUser(req: NextRequest, roles?: readonly Role[]): Pr
   return checkRoles(user, roles);
 }
 
-/** Pages and server actions: null when nobody is signed in. */
-export async function currentUser(): Promise<SessionUser | null> {
-  const session = await getServerSession(authOptions);
-  const id = session?.user?.id;
+/** The person behind an id from a session, or null when there is none or they are suspended. */
+async function activeUserOrNull(id: string | null | undefined): Promise<SessionUser | null> {
   if (!id) return null;
   try {
     return await loadSessionUser(id);
@@ -65,6 +63,18 @@ export async function currentUser(): Promise<SessionUser | null> {
     if (err instanceof ApiError && err.code === "suspended") return null;
     throw err;
   }
+}
+
+/** Public route handlers that show more to some people: the signed-in person, or null. */
+export async function optionalRequestUser(req: NextRequest): Promise<SessionUser | null> {
+  const token = await getToken({ req, secret: AUTH_SECRET });
+  return activeUserOrNull(typeof token?.uid === "string" ? token.uid : null);
+}
+
+/** Pages and server actions: null when nobody is signed in. */
+export async function currentUser(): Promise<SessionUser | null> {
+  const session = await getServerSession(authOptions);
+  return activeUserOrNull(session?.user?.id);
 }
 
 /** Server actions: the same 401/403 rules as route handlers. */

@@ -8,6 +8,8 @@ export interface NavLink {
 // Each entry appears once a person holds one of its roles; public entries always appear.
 const LINKS: { href: string; label: string; roles: Role[] | "public" }[] = [
   { href: "/plan", label: "Plan a bed", roles: "public" },
+  { href: "/mix", label: "Mix calculator", roles: "public" },
+  { href: "/browse", label: "Browse", roles: "public" },
   { href: "/beds", label: "My beds", roles: ["gardener"] },
   { href: "/reservations", label: "My reservations", roles: ["gardener"] },
   { href: "/listings/mine", label: "What I'm giving", roles: ["supplier", "grower", "council"] },

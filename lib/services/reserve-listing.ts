@@ -100,7 +100,8 @@ export async function reserveListings(input: ReserveInput, deps: ReserveDeps = {
       // here and parallel requests queue for it instead of failing on a stale snapshot.
       if (!(await holdQuantity(c.listing.id, c.item.quantity, trx))) {
         const fresh = (await listingsForReservation([c.listing.id], trx))[0];
-        if (fresh.status !== "active") throw new ApiError("invalid_state", `“${fresh.title}” is not taking reservations right now.`);
+        // "gone" is what the listings' trigger calls an active listing with nothing left.
+        if (fresh.status !== "active" && fresh.status !== "gone") throw new ApiError("invalid_state", `“${fresh.title}” is not taking reservations right now.`);
         const left = WHOLE_UNITS.has(fresh.unit) ? Math.floor(availableOf(fresh) + 1e-9) : availableOf(fresh);
         throw new ApiError("insufficient_quantity", left > 0 ? `Only ${quantityLabel(left, fresh.unit)} of “${fresh.title}” is left.` : `Nothing of “${fresh.title}” is left.`);
       }

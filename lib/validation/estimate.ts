@@ -36,7 +36,7 @@ const polygonGeometry = z.object({
     .max(MAX_RINGS),
 });
 
-const bedSchema = z
+export const bedSchema = z
   .object({
     length_m: side("length").optional(),
     width_m: side("width").optional(),

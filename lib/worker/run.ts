@@ -4,9 +4,22 @@
 // `npm run worker -- --once expire-holds [more job names]` runs the named jobs once and
 // exits: with DUFFBANK_CLOCK set it is how a test (or an operator) runs a job "later" on
 // a real database. It is a command on the machine, not reachable through the web app.
+import fs from "node:fs";
 import { jobs, type Clock } from "./jobs";
 
-const clock: Clock = () => (process.env.DUFFBANK_CLOCK ? new Date(process.env.DUFFBANK_CLOCK) : new Date());
+// The worker's idea of "now". DUFFBANK_CLOCK fixes it; DUFFBANK_CLOCK_FILE (set only by the
+// end-to-end run) is read on every tick so a test can move time forward. Neither is set in
+// production, where this is the system clock.
+const clock: Clock = () => {
+  const file = process.env.DUFFBANK_CLOCK_FILE;
+  if (file && fs.existsSync(file)) {
+    const t = new Date(fs.readFileSync(file, "utf8").trim());
+    if (!Number.isNaN(t.getTime())) return t;
+  }
+  return process.env.DUFFBANK_CLOCK ? new Date(process.env.DUFFBANK_CLOCK) : new Date();
+};
+// The end-to-end run ticks every job quickly; normal runs use each job's own interval.
+const INTERVAL_OVERRIDE_MS = Number(process.env.WORKER_INTERVAL_MS ?? 0);
 let stopping = false;
 
 async function loop(job: (typeof jobs)[number]) {
@@ -16,7 +29,7 @@ async function loop(job: (typeof jobs)[number]) {
     } catch (err) {
       console.error(`[worker] ${job.name} failed:`, (err as Error).message);
     }
-    await new Promise((r) => setTimeout(r, job.everyMs));
+    await new Promise((r) => setTimeout(r, INTERVAL_OVERRIDE_MS || job.everyMs));
   }
 }
 

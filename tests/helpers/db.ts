@@ -6,7 +6,7 @@ import { configFor } from "@/knexfile";
 import { setDb } from "@/db/index";
 
 /** A freshly migrated SQLite file of its own, wired in as the app's database. */
-export async function freshDb(opts: { seed?: boolean } = {}): Promise<{ db: Knex; file: string; close: () => Promise<void> }> {
+export async function freshDb(opts: { seed?: boolean; materials?: boolean } = {}): Promise<{ db: Knex; file: string; close: () => Promise<void> }> {
   const file = path.join(os.tmpdir(), `duffbank-it-${process.pid}-${Date.now()}-${Math.random().toString(36).slice(2)}.sqlite`);
   const base = configFor("test");
   const instance = knex({ ...base, connection: { filename: file } });
@@ -14,6 +14,9 @@ export async function freshDb(opts: { seed?: boolean } = {}): Promise<{ db: Knex
   if (opts.seed) {
     const { seed } = await import("@/seeds/demo");
     await seed(instance);
+  } else if (opts.materials) {
+    const { seedMaterials } = await import("@/seeds/demo");
+    await seedMaterials(instance);
   }
   setDb(instance);
   return {

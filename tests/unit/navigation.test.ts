@@ -4,11 +4,11 @@ import { navFor } from "@/lib/auth/navigation";
 describe("navigation by role", () => {
   const labels = (roles: Parameters<typeof navFor>[0]) => navFor(roles).map((l) => l.href);
   it("shows visitors only the public entries", () => {
-    expect(labels(null)).toEqual(["/plan"]);
+    expect(labels(null)).toEqual(["/plan", "/mix", "/browse"]);
   });
   it("adds each role's own area", () => {
-    expect(labels(["gardener"])).toEqual(["/plan", "/beds", "/reservations"]);
-    expect(labels(["supplier"])).toEqual(["/plan", "/listings/mine", "/requests"]);
+    expect(labels(["gardener"])).toEqual(["/plan", "/mix", "/browse", "/beds", "/reservations"]);
+    expect(labels(["supplier"])).toEqual(["/plan", "/mix", "/browse", "/listings/mine", "/requests"]);
     expect(labels(["grower"])).toContain("/requests");
     expect(labels(["council"])).toEqual(expect.arrayContaining(["/council", "/listings/mine", "/requests"]));
     expect(labels(["council"])).not.toContain("/reservations");

@@ -39,10 +39,10 @@ export default async function ReservePage({ params }: { params: Promise<{ id: st
       <PageHeading title={`Reserve: ${offer.title}`} lead={lead} />
       {offer.owner_id === user.id ? (
         <Notice title="This is your own listing">There is nothing to reserve here; requests from gardeners appear under Requests.</Notice>
+      ) : offer.status === "gone" || (offer.status === "active" && offer.available <= 0) ? (
+        <EmptyState title="All of it is spoken for" action={back}>Holds that are not paid or accepted in time run out, so check back later.</EmptyState>
       ) : offer.status !== "active" ? (
         <EmptyState title="Not taking reservations" action={back}>This listing is {offer.status} at the moment.</EmptyState>
-      ) : offer.available <= 0 ? (
-        <EmptyState title="All of it is spoken for" action={back}>Holds that are not paid or accepted in time run out, so check back later.</EmptyState>
       ) : (
         <div className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
           <p className="mb-4 text-sm text-humus-700">

@@ -1,0 +1,25 @@
+import { notFound } from "next/navigation";
+import type { Metadata } from "next";
+import { pageUser } from "@/lib/auth/page-guard";
+import { findBed } from "@/db/beds";
+import { toBedView } from "@/lib/services/bed-view";
+import { PageHeading } from "@/components/ui/empty-state";
+import { PlanForm } from "@/components/planner/plan-form";
+import { valuesFromBed } from "@/components/planner/form-model";
+
+export const metadata: Metadata = { title: "Change a bed" };
+
+export default async function EditBedPage({ params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const user = await pageUser(`/beds/${id}/edit`, ["gardener"]);
+  const row = await findBed(id, user.id);
+  if (!row) notFound();
+  const bed = toBedView(row);
+  const today = new Date().toISOString().slice(0, 10);
+  return (
+    <div>
+      <PageHeading title={`Change ${bed.name}`} lead="Adjust the size or the layers, work it out again, then save." />
+      <PlanForm system={user.unit_system} today={today} canSave bed={{ id: bed.id, name: bed.name, values: valuesFromBed(bed, user.unit_system, today) }} />
+    </div>
+  );
+}

@@ -1,0 +1,18 @@
+import { withAuth } from "@/lib/api/handler";
+import { notFound } from "@/lib/api/errors";
+import { findBed } from "@/db/beds";
+import { bedEstimate, toBedView } from "@/lib/services/bed-view";
+import { bedCalendar } from "@/lib/services/bed-calendar";
+import { appUrl } from "@/lib/app-url";
+
+// GET /api/beds/:id/calendar.ics — the bed's timeline for a calendar app.
+export const GET = withAuth<{ id: string }>(async ({ params, user }) => {
+  const row = await findBed(params.id, user.id);
+  if (!row) throw notFound("That bed");
+  const bed = toBedView(row);
+  const ics = bedCalendar(bed, bedEstimate(bed).timeline, appUrl());
+  const filename = `${bed.name.replace(/[^a-z0-9]+/gi, "-").toLowerCase() || "bed"}.ics`;
+  return new Response(ics, {
+    headers: { "content-type": "text/calendar; charset=utf-8", "content-disposition": `attachment; filename="${filename}"` },
+  });
+}, ["gardener"]);

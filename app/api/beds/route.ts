@@ -1,0 +1,20 @@
+import { NextResponse } from "next/server";
+import { readJson, withAuth } from "@/lib/api/handler";
+import { parseInput } from "@/lib/api/errors";
+import { createBedSchema } from "@/lib/validation/beds";
+import { createBed } from "@/lib/services/save-bed";
+import { listBeds } from "@/db/beds";
+import { bedEstimate, toBedView } from "@/lib/services/bed-view";
+
+// GET /api/beds — my beds.
+export const GET = withAuth(async ({ user }) => {
+  const beds = (await listBeds(user.id)).map(toBedView);
+  return NextResponse.json({ items: beds });
+}, ["gardener"]);
+
+// POST /api/beds — save a bed with its shape, recipe and start date.
+export const POST = withAuth(async ({ req, user }) => {
+  const input = parseInput(createBedSchema, await readJson(req));
+  const bed = await createBed(user.id, input);
+  return NextResponse.json({ bed, estimate: bedEstimate(bed) }, { status: 201 });
+}, ["gardener"]);

@@ -1,0 +1,184 @@
+"use client";
+import { useMemo } from "react";
+import { useForm, useWatch } from "react-hook-form";
+import { useMutation } from "@tanstack/react-query";
+import Link from "next/link";
+import { apiFetch, isApiError } from "@/lib/api/client";
+import type { EstimateResult } from "@/lib/calc/estimate";
+import type { UnitSystem } from "@/lib/calc/units";
+import { DuffMap } from "@/components/map/map";
+import { DEFAULT_CENTER } from "@/components/map/types";
+import { Field } from "@/components/ui/field";
+import { Button, buttonClass } from "@/components/ui/button";
+import { Notice } from "@/components/ui/notice";
+import { Spinner } from "@/components/ui/empty-state";
+import { convertValues, defaultPlanValues, planResolver, toRequest, type PlanValues } from "./form-model";
+import { EstimateView } from "./estimate-view";
+import { UnitToggle } from "./unit-toggle";
+import { SaveBed } from "./save-bed";
+
+export interface PlanFormProps {
+  system: UnitSystem;
+  today: string;
+  /** Signed-in gardeners can save; `bed` means editing that saved bed. */
+  canSave: boolean;
+  bed?: { id: string; name: string; values: PlanValues };
+}
+
+/** Builds the link to the match page from the estimate's needs. */
+function matchHref(result: EstimateResult, where: { lat: number; lng: number } | null): string {
+  const needs = result.needs.map((n) => `${n.material}:${n.quantity}:${n.unit}`).join(",");
+  const p = new URLSearchParams({ needs, radius_km: "15" });
+  if (where) {
+    p.set("lat", String(where.lat));
+    p.set("lng", String(where.lng));
+  }
+  return `/match?${p}`;
+}
+
+export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFormProps) {
+  const resolver = useMemo(() => planResolver(), []);
+  const form = useForm<PlanValues>({ resolver, defaultValues: bed?.values ?? defaultPlanValues(initialSystem, today) });
+  const { register, setValue, getValues, formState, control } = form;
+  const [system, shape, outline, location, cardboardOn, leavesOn, strawOn] = useWatch({
+    control,
+    name: ["system", "shape", "outline", "location", "cardboard_on", "leaves_on", "straw_on"],
+  });
+
+  const estimate = useMutation({
+    mutationFn: (values: PlanValues) => apiFetch<EstimateResult>("/api/estimate", { method: "POST", body: toRequest(values) }),
+  });
+
+  const switchUnits = (u: UnitSystem) => form.reset(convertValues(getValues(), getValues("system"), u), { keepErrors: false });
+
+  const onMapClick = (p: { lat: number; lng: number }) => {
+    if (getValues("shape") === "outline") setValue("outline", [...getValues("outline"), p], { shouldValidate: formState.isSubmitted });
+    else setValue("location", p);
+  };
+
+  const unitLen = system === "metric" ? "m" : "ft";
+  const unitDepth = system === "metric" ? "cm" : "in";
+  const errors = formState.errors;
+  const result = estimate.data;
+  const where = shape === "outline" && outline.length ? outline[0] : location;
+
+  return (
+    <div className="grid gap-8 lg:grid-cols-[minmax(0,420px)_1fr]">
+      <form onSubmit={form.handleSubmit((v) => estimate.mutate(v))} noValidate className="flex flex-col gap-4" aria-label="Bed planner">
+        <div className="flex flex-wrap items-center justify-between gap-2">
+          <h2 className="text-lg font-semibold">The bed</h2>
+          <UnitToggle value={system} onChange={switchUnits} />
+        </div>
+        <fieldset className="flex gap-4">
+          <legend className="sr-only">Shape</legend>
+          <label className="flex items-center gap-2">
+            <input type="radio" value="rectangle" {...register("shape")} className="h-5 w-5" /> Length × width
+          </label>
+          <label className="flex items-center gap-2">
+            <input type="radio" value="outline" {...register("shape")} className="h-5 w-5" /> Draw it on the map
+          </label>
+        </fieldset>
+
+        {shape === "rectangle" ? (
+          <div className="grid grid-cols-2 gap-3">
+            <Field label={`Length (${unitLen})`} inputMode="decimal" {...register("length")} error={errors.length?.message} />
+            <Field label={`Width (${unitLen})`} inputMode="decimal" {...register("width")} error={errors.width?.message} />
+          </div>
+        ) : null}
+
+        <div className="flex flex-col gap-2">
+          <DuffMap
+            // A map takes its zoom only when it mounts: a fresh one per shape, so drawing starts close in.
+            key={shape}
+            label={shape === "outline" ? "Map: click each corner of the bed" : "Map: click where the bed is"}
+            center={where ?? DEFAULT_CENTER}
+            zoom={shape === "outline" ? 17 : 13}
+            polygon={shape === "outline" ? outline : undefined}
+            markers={shape === "rectangle" && location ? [{ id: "bed", ...location, label: "The bed", tone: "origin" }] : []}
+            onClick={onMapClick}
+            className="h-72"
+          />
+          {shape === "outline" ? (
+            <div className="flex flex-wrap items-center gap-2 text-sm">
+              <span>{outline.length} corners placed.</span>
+              <Button variant="secondary" onClick={() => setValue("outline", outline.slice(0, -1))} disabled={!outline.length}>
+                Undo last corner
+              </Button>
+              <Button variant="secondary" onClick={() => setValue("outline", [])} disabled={!outline.length}>
+                Start again
+              </Button>
+            </div>
+          ) : (
+            <p className="text-sm text-humus-600">{location ? "Bed placed on the map: matching will search from here." : "Optional: click the map where the bed is, to find material near it."}</p>
+          )}
+          <p id="field-outline-error" aria-live="polite" className="min-h-5 text-sm text-ember-600">
+            {errors.outline?.message ?? ""}
+          </p>
+        </div>
+
+        <fieldset className="flex flex-col gap-3 rounded-lg bg-white p-4 ring-1 ring-humus-200">
+          <legend className="px-1 font-semibold">Layers, bottom to top</legend>
+          <LayerSwitch label="Cardboard" {...register("cardboard_on")} />
+          {cardboardOn ? (
+            <Field label={`Seam overlap (${unitDepth})`} hint="Usually about 15 cm (6 in)." inputMode="decimal" {...register("overlap")} error={errors.overlap?.message} />
+          ) : null}
+          <LayerSwitch label="Leaves" {...register("leaves_on")} />
+          {leavesOn ? (
+            <Field label={`Leaf depth (${unitDepth})`} hint="Usually 10–15 cm (4–6 in)." inputMode="decimal" {...register("leaves_depth")} error={errors.leaves_depth?.message} />
+          ) : null}
+          <LayerSwitch label="Straw on top" {...register("straw_on")} />
+          {strawOn ? (
+            <Field label={`Straw depth (${unitDepth})`} hint="Usually about 5 cm (2 in)." inputMode="decimal" {...register("straw_depth")} error={errors.straw_depth?.message} />
+          ) : null}
+          <LayerSwitch label="Composting worms, a week or two later" {...register("worms_on")} />
+        </fieldset>
+
+        <Field label="Build day" type="date" {...register("start_date")} error={errors.start_date?.message} />
+
+        <Button type="submit" disabled={estimate.isPending}>
+          {estimate.isPending ? "Working it out…" : "Work out what it takes"}
+        </Button>
+      </form>
+
+      <section aria-labelledby="result-title" className="flex flex-col gap-4">
+        <h2 id="result-title" className="text-lg font-semibold">
+          What your bed needs
+        </h2>
+        {estimate.isPending ? <Spinner label="Working it out" /> : null}
+        {estimate.isError ? (
+          <Notice tone="error">{isApiError(estimate.error) ? estimate.error.message : "The estimate could not be made. Please try again."}</Notice>
+        ) : null}
+        {!result && !estimate.isPending && !estimate.isError ? (
+          <p className="rounded-leaf border border-dashed border-humus-300 p-6 text-humus-700">
+            Give the bed&apos;s size and layers, then press <strong>Work out what it takes</strong>. You will get the amount of each layer, the water for the first soak, how fast
+            it will break down, and a year of checks.
+          </p>
+        ) : null}
+        {result ? (
+          <>
+            <div className="flex flex-wrap gap-3">
+              <Link className={buttonClass("secondary")} href={bed ? `/beds/${bed.id}/materials` : matchHref(result, where ?? result.centroid ?? null)}>
+                Find these materials nearby
+              </Link>
+            </div>
+            {canSave ? <SaveBed request={toRequest(getValues())} location={where ?? null} bed={bed} /> : null}
+            {!canSave ? (
+              <p className="text-sm text-humus-700">
+                <Link href="/sign-in?callbackUrl=%2Fplan" className="text-moss-700 underline">Sign in</Link> to save this bed and get its reminders by e-mail.
+              </p>
+            ) : null}
+            <EstimateView result={result} system={system} />
+          </>
+        ) : null}
+      </section>
+    </div>
+  );
+}
+
+function LayerSwitch({ label, ...props }: { label: string } & React.InputHTMLAttributes<HTMLInputElement>) {
+  return (
+    <label className="flex items-center gap-3 font-medium">
+      <input type="checkbox" className="h-5 w-5" {...props} /> {label}
+    </label>
+  );
+}

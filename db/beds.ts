@@ -1,0 +1,53 @@
+import { db, newId, nowIso, type Db } from "./index";
+
+export interface BedRow {
+  id: string;
+  owner_id: string;
+  name: string;
+  shape: string;
+  area_m2: number;
+  lat: number | null;
+  lng: number | null;
+  recipe: string;
+  start_date: string | null;
+  created_at: string;
+  updated_at: string;
+}
+
+const COLUMNS = ["id", "owner_id", "name", "shape", "area_m2", "lat", "lng", "recipe", "start_date", "created_at", "updated_at"];
+
+export type BedWrite = Pick<BedRow, "name" | "shape" | "area_m2" | "lat" | "lng" | "recipe" | "start_date">;
+
+/** Someone else's bed is simply not found. */
+export async function findBed(id: string, ownerId: string, q: Db = db()): Promise<BedRow | undefined> {
+  return (await q("beds").first(COLUMNS).where({ id, owner_id: ownerId })) as BedRow | undefined;
+}
+
+export async function listBeds(ownerId: string, q: Db = db()): Promise<BedRow[]> {
+  return q("beds").select(COLUMNS).where({ owner_id: ownerId }).orderBy("created_at", "desc");
+}
+
+export async function insertBed(ownerId: string, row: BedWrite, q: Db = db()): Promise<string> {
+  const id = newId();
+  const now = nowIso();
+  await q("beds").insert({ id, owner_id: ownerId, ...row, created_at: now, updated_at: now });
+  return id;
+}
+
+export async function updateBed(id: string, ownerId: string, patch: Partial<BedWrite>, q: Db = db()): Promise<number> {
+  return q("beds").where({ id, owner_id: ownerId }).update({ ...patch, updated_at: nowIso() });
+}
+
+export async function deleteBed(id: string, ownerId: string, q: Db = db()): Promise<number> {
+  return q("beds").where({ id, owner_id: ownerId }).delete();
+}
+
+/** Beds with a start date whose owners take reminders, for the reminder job. */
+export async function bedsForReminders(q: Db = db()) {
+  return q("beds as b")
+    .join("users as u", "u.id", "b.owner_id")
+    .select("b.id", "b.name", "b.shape", "b.recipe", "b.lat", "b.lng", "b.start_date", "u.email", "u.display_name")
+    .whereNotNull("b.start_date")
+    .andWhere("u.reminders_opt_out", false)
+    .whereNull("u.suspended_at");
+}

@@ -1,0 +1,14 @@
+import next from "eslint-config-next";
+
+const config = [
+  ...next,
+  { ignores: [".next/**", "node_modules/**", "test-results/**", "public/**"] },
+  {
+    rules: {
+      // Tests and fakes parse loosely typed JSON on purpose.
+      "@typescript-eslint/no-explicit-any": "off",
+    },
+  },
+];
+
+export default config;

@@ -1,0 +1,33 @@
+import { bedsForReminders, type BedRow } from "@/db/beds";
+import { enqueueEmail } from "@/db/outbox";
+import { db } from "@/db/index";
+import { appUrl } from "@/lib/app-url";
+import { bedEstimate, toBedView } from "./bed-view";
+import { bedReminderEmail } from "@/lib/mail/templates/bed-reminder";
+
+/**
+ * A step is mailed on its day, or within this many days after if the worker was down.
+ * Older steps are not mailed at all, so saving a bed with a past start date does not
+ * bring a pile of stale reminders.
+ */
+export const REMINDER_GRACE_DAYS = 3;
+
+const dayMs = 86_400_000;
+
+/** Puts each due timeline step of every bed in the outbox once (the dedupe key makes repeats harmless). */
+export async function sendBedReminders(clock: () => Date = () => new Date()): Promise<number> {
+  const now = clock();
+  const today = now.toISOString().slice(0, 10);
+  const earliest = new Date(now.getTime() - REMINDER_GRACE_DAYS * dayMs).toISOString().slice(0, 10);
+  let queued = 0;
+  for (const row of await bedsForReminders()) {
+    const bed = toBedView(row as unknown as BedRow);
+    for (const step of bedEstimate(bed, now).timeline) {
+      if (step.date > today || step.date < earliest) continue;
+      const mail = bedReminderEmail({ name: row.display_name, bedName: bed.name, title: step.title, detail: step.detail, date: step.date, url: `${appUrl()}/beds/${bed.id}` });
+      await enqueueEmail({ to: row.email, ...mail, template: "bed_reminder", dedupe_key: `bed-reminder:${bed.id}:${step.key}:${step.date}` }, db());
+      queued++;
+    }
+  }
+  return queued;
+}

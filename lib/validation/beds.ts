@@ -1,0 +1,23 @@
+import { z } from "zod";
+import { bedSchema, layersSchema } from "./estimate";
+import { isCalendarDate } from "@/lib/calc/timeline";
+
+const location = z.object({
+  lat: z.number({ error: "latitude must be a number" }).min(-90, "latitude must be between -90 and 90").max(90, "latitude must be between -90 and 90"),
+  lng: z.number({ error: "longitude must be a number" }).min(-180, "longitude must be between -180 and 180").max(180, "longitude must be between -180 and 180"),
+});
+
+/** A saved bed: its shape and recipe are exactly what POST /api/estimate takes. */
+export const createBedSchema = z.object({
+  name: z.string({ error: "Give the bed a name." }).trim().min(1, "Give the bed a name.").max(80, "Use at most 80 characters."),
+  bed: bedSchema,
+  layers: layersSchema.optional(),
+  start_date: z.string().refine(isCalendarDate, "Give a real date as YYYY-MM-DD").nullable().optional(),
+  /** Where the bed is; taken from the outline when it has one. */
+  location: location.nullable().optional(),
+});
+
+export const updateBedSchema = createBedSchema.partial();
+
+export type CreateBedInput = z.infer<typeof createBedSchema>;
+export type UpdateBedInput = z.infer<typeof updateBedSchema>;

@@ -1,0 +1,120 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { freshDb } from "../helpers/db";
+import { call, request } from "../helpers/http";
+import { createUser } from "../factories";
+import * as beds from "@/app/api/beds/route";
+import * as bed from "@/app/api/beds/[id]/route";
+import * as calendar from "@/app/api/beds/[id]/calendar.ics/route";
+import { sendBedReminders } from "@/lib/services/send-bed-reminders";
+import { updateUser } from "@/db/users";
+
+let ctx: Awaited<ReturnType<typeof freshDb>>;
+let ada: string;
+let bo: string;
+let supplierOnly: string;
+
+beforeAll(async () => {
+  ctx = await freshDb();
+  ada = (await createUser({ roles: ["gardener"] })).id;
+  bo = (await createUser({ roles: ["gardener"] })).id;
+  supplierOnly = (await createUser({ roles: ["supplier"] })).id;
+});
+afterAll(() => ctx.close());
+
+const good = { name: "Front strip", bed: { length_m: 3, width_m: 1.2 }, start_date: "2027-03-01", location: { lat: 52.2, lng: 0.85 } };
+
+describe("beds: save, list, read, change, delete", () => {
+  let id: string;
+  it("saves a bed and answers with its estimate", async () => {
+    const res = await call(beds.POST as never, await request("/api/beds", { body: good, as: ada }));
+    expect(res.status).toBe(201);
+    id = res.json.bed.id;
+    expect(res.json.bed).toMatchObject({ name: "Front strip", area_m2: 3.6, start_date: "2027-03-01", location: { lat: 52.2, lng: 0.85 } });
+    expect(res.json.estimate.needs.find((n: { material: string }) => n.material === "leaves").quantity).toBe(0.45);
+  });
+  it("lists only my beds", async () => {
+    const mine = await call(beds.GET as never, await request("/api/beds", { as: ada }));
+    expect(mine.json.items.map((b: { id: string }) => b.id)).toEqual([id]);
+    const theirs = await call(beds.GET as never, await request("/api/beds", { as: bo }));
+    expect(theirs.json.items).toEqual([]);
+  });
+  it("changes the recipe and the estimate follows", async () => {
+    const res = await call(bed.PATCH as never, await request(`/api/beds/${id}`, { method: "PATCH", body: { layers: { leaves: { depth_cm: 20 }, straw: false } }, as: ada }), { id });
+    expect(res.status).toBe(200);
+    const leaves = res.json.estimate.needs.find((n: { material: string }) => n.material === "leaves");
+    expect(leaves.quantity).toBeCloseTo(0.72, 6); // 3.6 m² × 0.20 m
+    expect(res.json.estimate.needs.some((n: { material: string }) => n.material === "straw")).toBe(false);
+  });
+  it("gives the timeline as an iCalendar file", async () => {
+    const res = await calendar.GET(await request(`/api/beds/${id}/calendar.ics`, { as: ada }), { params: Promise.resolve({ id }) });
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-type")).toContain("text/calendar");
+    const text = await res.text();
+    expect(text).toMatch(/^BEGIN:VCALENDAR/);
+    expect(text).toContain("DTSTART;VALUE=DATE:20270301");
+    expect(text.match(/BEGIN:VEVENT/g)!.length).toBeGreaterThan(6);
+  });
+
+  // Table-driven: who may touch the bed, and what bad input gets.
+  const ACCESS: [string, () => string | null, number][] = [
+    ["anonymous", () => null, 401],
+    ["a supplier without the gardener role", () => supplierOnly, 403],
+    ["another gardener", () => bo, 404],
+  ];
+  for (const [who, as, status] of ACCESS) {
+    it(`${who} gets ${status} on read, change, delete and calendar`, async () => {
+      const u = as();
+      expect((await call(bed.GET as never, await request(`/api/beds/${id}`, { as: u }), { id })).status).toBe(status);
+      expect((await call(bed.PATCH as never, await request(`/api/beds/${id}`, { method: "PATCH", body: { name: "Mine now" }, as: u }), { id })).status).toBe(status);
+      expect((await call(bed.DELETE as never, await request(`/api/beds/${id}`, { method: "DELETE", as: u }), { id })).status).toBe(status);
+      expect((await call(calendar.GET as never, await request(`/api/beds/${id}/calendar.ics`, { as: u }), { id })).status).toBe(status);
+    });
+  }
+  const BAD: [string, unknown, string][] = [
+    ["no name", { ...good, name: "" }, "name"],
+    ["a bed too big", { ...good, bed: { length_m: 500, width_m: 500 } }, "bed"],
+    ["a bad date", { ...good, start_date: "01/03/2027" }, "start_date"],
+    ["a location off the globe", { ...good, location: { lat: 91, lng: 0 } }, "location.lat"],
+  ];
+  for (const [label, body, field] of BAD) {
+    it(`422 on ${field}: ${label}`, async () => {
+      const res = await call(beds.POST as never, await request("/api/beds", { body, as: ada }));
+      expect(res.status).toBe(422);
+      expect(Object.keys(res.json.error.fields).some((k) => k === field || k.startsWith(`${field}.`))).toBe(true);
+    });
+  }
+  it("deletes the bed for its owner", async () => {
+    expect((await call(bed.DELETE as never, await request(`/api/beds/${id}`, { method: "DELETE", as: ada }), { id })).status).toBe(204);
+    expect((await call(bed.GET as never, await request(`/api/beds/${id}`, { as: ada }), { id })).status).toBe(404);
+  });
+});
+
+describe("timeline reminders", () => {
+  it("queue each step once on its day, skip old ones, and respect the opt-out", async () => {
+    await call(beds.POST as never, await request("/api/beds", { body: { ...good, name: "Reminder bed", start_date: "2027-03-01" }, as: bo }));
+    const outbox = () => ctx.db("email_outbox").where({ template: "bed_reminder" }).select("subject", "dedupe_key");
+
+    // The day before building: nothing is due.
+    await sendBedReminders(() => new Date("2027-02-28T08:00:00Z"));
+    expect(await outbox()).toHaveLength(0);
+
+    // Build day: one reminder; running again the same day adds nothing.
+    await sendBedReminders(() => new Date("2027-03-01T08:00:00Z"));
+    await sendBedReminders(() => new Date("2027-03-01T18:00:00Z"));
+    expect((await outbox()).map((m) => m.subject)).toEqual(["Reminder bed: Build day"]);
+
+    // Day 3 brings the first squeeze test.
+    await sendBedReminders(() => new Date("2027-03-04T08:00:00Z"));
+    expect((await outbox()).length).toBe(2);
+
+    // Weeks later, the stale steps between are not sent in a heap.
+    await sendBedReminders(() => new Date("2027-06-01T08:00:00Z"));
+    const subjects = (await outbox()).map((m) => m.subject);
+    expect(subjects).toHaveLength(3);
+    expect(subjects[2]).toContain("sunk");
+
+    await updateUser(bo, { reminders_opt_out: true });
+    await sendBedReminders(() => new Date("2027-09-01T08:00:00Z"));
+    expect(await outbox()).toHaveLength(3);
+  });
+});
