@@ -1,6 +1,6 @@
 "use client";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import type { z } from "zod";
@@ -30,7 +30,7 @@ export function ReserveForm({ offer, unitSystem, cautions }: { offer: ReserveOff
     resolver: zodResolver(reserveOneSchema),
     defaultValues: { listing_id: offer.id, quantity: 1, pickup_window_id: offer.windows[0]?.id ?? null, bed_id: null },
   });
-  const quantity = Number(form.watch("quantity"));
+  const quantity = Number(useWatch({ control: form.control, name: "quantity" }));
   const price = priceFor(offer.price_cents, Number.isFinite(quantity) ? quantity : 0);
   const equivalent = equivalentOf(offer, quantity, unitSystem);
   const limit = offer.max_per_reservation !== null ? Math.min(offer.max_per_reservation, offer.available) : offer.available;

@@ -1,5 +1,5 @@
 "use client";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { reviewSchema } from "@/lib/validation/reservations";
@@ -17,7 +17,7 @@ export function ReviewForm({ id, subject }: { id: string; subject: string }) {
     await run("review", values);
   });
   const ratingError = form.formState.errors.rating?.message;
-  const rating = form.watch("rating");
+  const rating = useWatch({ control: form.control, name: "rating" });
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-2 rounded-lg bg-litter-100 p-3">
       <fieldset aria-describedby={`rating-error-${id}`}>
