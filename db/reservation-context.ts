@@ -1,6 +1,7 @@
 import { db, type Db } from "./index";
 import type { ReservationRow } from "./types";
-import { pickupWindowsOf, type PickupWindowRow } from "./reservations";
+import { pickupWindowsOf } from "./reservations";
+import type { PickupWindowRow } from "./types";
 
 /** A reservation with what its pages and e-mails need about the listing and both people. */
 export interface ReservationContext extends ReservationRow {

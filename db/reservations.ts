@@ -1,6 +1,10 @@
 import type { Knex } from "knex";
 import { db, type Db } from "./index";
-import type { ReservationEventRow, ReservationRow } from "./types";
+import { LISTING_COLUMNS } from "./listings";
+import { windowsFor } from "./pickup-windows";
+import type { ListingRow, PickupWindowRow, ReservationEventRow, ReservationRow } from "./types";
+
+export type { PickupWindowRow };
 
 // Reservations, their status history, and the listing quantities they move. Every change
 // of a listing's quantity is one conditional UPDATE, so concurrent requests cannot hold
@@ -8,49 +12,8 @@ import type { ReservationEventRow, ReservationRow } from "./types";
 
 const EPSILON = 1e-9;
 
-export interface ListingForReservation {
-  id: string;
-  owner_id: string;
-  organisation_id: string | null;
-  material_code: string;
-  title: string;
-  status: string;
-  unit: "sheets" | "m2" | "bags" | "m3" | "bales" | "kg";
-  unit_size: number | null;
-  unit_mass_kg: number | null;
-  quantity_total: number;
-  quantity_held: number;
-  quantity_collected: number;
-  price_cents: number;
-  currency: string;
-  deposit_cents: number;
-  max_per_reservation: number | null;
-  auto_accept: boolean | 0 | 1;
-  approx_lat: number;
-  approx_lng: number;
-}
-
-const LISTING_COLUMNS = [
-  "id",
-  "owner_id",
-  "organisation_id",
-  "material_code",
-  "title",
-  "status",
-  "unit",
-  "unit_size",
-  "unit_mass_kg",
-  "quantity_total",
-  "quantity_held",
-  "quantity_collected",
-  "price_cents",
-  "currency",
-  "deposit_cents",
-  "max_per_reservation",
-  "auto_accept",
-  "approx_lat",
-  "approx_lng",
-];
+/** The listing as the reservation code reads it: the listings repository's own row. */
+export type ListingForReservation = ListingRow;
 
 export async function listingsForReservation(ids: string[], q: Db = db()): Promise<ListingForReservation[]> {
   return q("listings").select(LISTING_COLUMNS).whereIn("id", ids);
@@ -94,22 +57,9 @@ export async function collectQuantity(listingId: string, quantity: number, q: Db
   if (n !== 1) throw new Error(`listing ${listingId} holds less than ${quantity}`);
 }
 
-export interface PickupWindowRow {
-  id: string;
-  listing_id: string;
-  kind: "weekly" | "dated";
-  weekday: number | null;
-  start_time: string | null;
-  end_time: string | null;
-  starts_at: string | null;
-  ends_at: string | null;
-}
-
+/** Every pickup window of these listings, in one list. */
 export async function pickupWindowsOf(listingIds: string[], q: Db = db()): Promise<PickupWindowRow[]> {
-  return q("pickup_windows")
-    .select("id", "listing_id", "kind", "weekday", "start_time", "end_time", "starts_at", "ends_at")
-    .whereIn("listing_id", listingIds)
-    .orderBy([{ column: "kind" }, { column: "weekday" }, { column: "starts_at" }]);
+  return [...(await windowsFor(listingIds, q)).values()].flat();
 }
 
 export async function insertReservation(row: ReservationRow, q: Db = db()): Promise<void> {

@@ -1,8 +1,5 @@
-// Money is integer cents plus a currency everywhere; this is how people read it.
-
-export function formatMoney(cents: number, currency: string): string {
-  return new Intl.NumberFormat("en-GB", { style: "currency", currency: currency.toUpperCase() }).format(cents / 100);
-}
+// Money is integer cents plus a currency everywhere; how it reads is lib/listings/format.ts.
+export { formatMoney } from "@/lib/listings/format";
 
 // Stripe's smallest card charge per currency (docs.stripe.com/currencies, "Minimum and
 // maximum charge amounts"; from memory). Checked before holding, so a too-small total is a

@@ -1,22 +1,13 @@
 // How a reservation's quantity and money read in pages and e-mails.
-import { formatMoney } from "@/lib/payments/money";
-
-const UNIT_WORDS: Record<string, [string, string]> = {
-  sheets: ["sheet", "sheets"],
-  bags: ["bag", "bags"],
-  bales: ["bale", "bales"],
-  kg: ["kg", "kg"],
-  m3: ["m³", "m³"],
-  m2: ["m²", "m²"],
-};
+import { formatListingQuantity, formatMoney } from "@/lib/listings/format";
+import type { ListingUnit } from "@/lib/validation/listings";
 
 /** Units counted in whole pieces: nobody collects half a bale. */
 export const WHOLE_UNITS = new Set(["sheets", "bags", "bales"]);
 
+/** "3 bales", "0.5 kg": e-mails and history read in the listing's own unit. */
 export function quantityLabel(quantity: number, unit: string): string {
-  const [one, many] = UNIT_WORDS[unit] ?? [unit, unit];
-  const n = Number(quantity.toFixed(2));
-  return `${n.toLocaleString("en-GB")} ${n === 1 ? one : many}`;
+  return formatListingQuantity(quantity, unit as ListingUnit);
 }
 
 export function whatLabel(r: { quantity: number; listing: { unit: string; title: string } }): string {

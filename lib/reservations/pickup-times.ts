@@ -1,5 +1,8 @@
-// Pickup windows are written in the supplier's local wall-clock time ("Saturdays 09:00–12:00");
-// reservations store instants. This turns one into the other for the town's time zone.
+// Pickup windows are written in the supplier's local wall-clock time: weekly ones as
+// "Saturdays 09:00–12:00", dated ones as that wall clock written in UTC (the listings'
+// convention, lib/listings/format.ts). Reservations store instants; this turns one into
+// the other for the town's time zone.
+import { formatWindow } from "@/lib/listings/format";
 
 export const PICKUP_TIME_ZONE = process.env.PICKUP_TIME_ZONE ?? "Europe/London";
 
@@ -23,7 +26,6 @@ interface LocalParts {
 }
 
 const WEEKDAYS = ["Sun", "Mon", "Tue", "Wed", "Thu", "Fri", "Sat"];
-export const WEEKDAY_NAMES = ["Sunday", "Monday", "Tuesday", "Wednesday", "Thursday", "Friday", "Saturday"];
 
 function localParts(at: Date, tz: string): LocalParts {
   const parts = new Intl.DateTimeFormat("en-GB", {
@@ -67,8 +69,9 @@ export function zonedTime(year: number, month: number, day: number, hhmm: string
 export function nextOccurrence(w: PickupWindow, now: Date, tz = PICKUP_TIME_ZONE): { start: Date; end: Date } | null {
   if (w.kind === "dated") {
     if (!w.starts_at || !w.ends_at) return null;
-    const end = new Date(w.ends_at);
-    return end > now ? { start: new Date(w.starts_at), end } : null;
+    const start = wallClockToInstant(w.starts_at, tz);
+    const end = wallClockToInstant(w.ends_at, tz);
+    return end > now ? { start, end } : null;
   }
   if (w.weekday === null || !w.start_time || !w.end_time) return null;
   const today = localParts(now, tz);
@@ -84,10 +87,15 @@ export function nextOccurrence(w: PickupWindow, now: Date, tz = PICKUP_TIME_ZONE
   return null;
 }
 
-export function windowLabel(w: PickupWindow, tz = PICKUP_TIME_ZONE): string {
-  if (w.kind === "weekly") return `${WEEKDAY_NAMES[w.weekday ?? 0]}s, ${w.start_time}–${w.end_time}`;
-  if (!w.starts_at || !w.ends_at) return "Dated window";
-  return `${formatLocal(w.starts_at, tz)}–${formatLocal(w.ends_at, tz, { timeOnly: true })}`;
+/** A dated window's stored time is the local wall clock written as UTC; this is the real instant. */
+function wallClockToInstant(stored: string, tz: string): Date {
+  const d = new Date(stored);
+  const hhmm = `${String(d.getUTCHours()).padStart(2, "0")}:${String(d.getUTCMinutes()).padStart(2, "0")}`;
+  return zonedTime(d.getUTCFullYear(), d.getUTCMonth() + 1, d.getUTCDate(), hhmm, tz);
+}
+
+export function windowLabel(w: PickupWindow): string {
+  return formatWindow(w);
 }
 
 /** "Sat 12 Dec, 09:00" in the town's time zone, the same on the server and in the browser. */

@@ -43,6 +43,7 @@ async function check(input: ReserveInput, q: Knex, now: Date): Promise<Checked[]
   const ids = input.items.map((i) => i.listing_id);
   const listings = new Map((await listingsForReservation(ids, q)).map((l) => [l.id, l]));
   const windows = await pickupWindowsOf(ids, q);
+  const myOrgs = new Set<string>(await q("memberships").where({ user_id: input.gardenerId }).pluck("organisation_id"));
   const fields: FieldErrors = {};
   const seen = new Set<string>();
   const out: Checked[] = [];
@@ -50,7 +51,9 @@ async function check(input: ReserveInput, q: Knex, now: Date): Promise<Checked[]
     const f = input.fieldPrefix(i);
     const listing = listings.get(item.listing_id);
     if (!listing || listing.status === "draft" || listing.status === "hidden") throw new ApiError("not_found", "That listing was not found.");
-    if (listing.owner_id === input.gardenerId) throw new ApiError("conflict", "This is your own listing: there is nothing to reserve.");
+    if (listing.owner_id === input.gardenerId || (listing.organisation_id && myOrgs.has(listing.organisation_id))) {
+      throw new ApiError("conflict", "This is your own listing (or your organisation's): there is nothing to reserve.");
+    }
     if (seen.has(listing.id)) fields[`${f}listing_id`] = "This listing is in the list twice; reserve it once with the total.";
     seen.add(listing.id);
     if (WHOLE_UNITS.has(listing.unit) && !Number.isInteger(item.quantity)) {

@@ -87,7 +87,7 @@ describe("POST /api/reservations (one listing)", () => {
     expect(res.status).toBe(201);
     const r = res.json.reservation;
     expect(r.pickup_window_id).toBe(l.windowIds[0]);
-    expect(r.pickup.window).toBe("Saturdays, 09:00–12:00");
+    expect(r.pickup.window).toBe("Saturdays 09:00–12:00");
     expect(new Date(r.pickup.starts_at).getUTCDay()).toBe(6);
     expect(new Date(r.pickup.ends_by).getTime() - new Date(r.pickup.starts_at).getTime()).toBe(3 * 3_600_000);
   });
@@ -106,6 +106,7 @@ describe("POST /api/reservations (one listing)", () => {
     { name: "a draft listing", body: async () => ({ listing_id: (await createListing({ status: "draft" })).id, quantity: 1 }), status: 404, code: "not_found" },
     { name: "a paused listing", body: async () => ({ listing_id: (await createListing({ status: "paused" })).id, quantity: 1 }), status: 409, code: "invalid_state" },
     { name: "my own listing", body: async () => ({ listing_id: (await createListing({ ownerId: gardener.id })).id, quantity: 1 }), status: 409, code: "conflict" },
+    { name: "my organisation's listing", body: async () => { const boss = await createUser({ roles: ["council"] }); await ctx.db("memberships").insert({ organisation_id: boss.orgId, user_id: gardener.id, org_role: "staff", created_at: new Date().toISOString() }); return { listing_id: (await createListing({ ownerId: boss.id, organisationId: boss.orgId })).id, quantity: 1 }; }, status: 409, code: "conflict" },
     { name: "another listing's window", body: async () => ({ listing_id: (await createListing()).id, quantity: 1, pickup_window_id: (await createListing({ windows: [{ kind: "weekly", weekday: 1, start_time: "09:00", end_time: "10:00" }] })).windowIds[0] }), status: 422, code: "invalid_input", field: "pickup_window_id" },
     { name: "a dated window in the past", body: async () => { const l = await createListing({ windows: [{ kind: "dated", starts_at: "2020-01-01T09:00:00Z", ends_at: "2020-01-01T10:00:00Z" }] }); return { listing_id: l.id, quantity: 1, pickup_window_id: l.windowIds[0] }; }, status: 422, code: "invalid_input", field: "pickup_window_id" },
     { name: "someone else's bed", body: async () => ({ listing_id: (await createListing()).id, quantity: 1, bed_id: "not-my-bed" }), status: 422, code: "invalid_input", field: "bed_id" },

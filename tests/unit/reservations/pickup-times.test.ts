@@ -32,12 +32,19 @@ describe("local pickup times", () => {
 
   it("takes a dated window while it has not ended", () => {
     const d = { id: "d", kind: "dated" as const, weekday: null, start_time: null, end_time: null, starts_at: "2026-12-12T09:00:00Z", ends_at: "2026-12-12T13:00:00Z" };
-    expect(nextOccurrence(d, new Date("2026-12-12T12:00:00Z"))).not.toBeNull();
-    expect(nextOccurrence(d, new Date("2026-12-12T13:00:01Z"))).toBeNull();
+    expect(nextOccurrence(d, new Date("2026-12-12T12:00:00Z"), "Europe/London")).not.toBeNull();
+    expect(nextOccurrence(d, new Date("2026-12-12T13:00:01Z"), "Europe/London")).toBeNull();
+  });
+
+  it("reads a dated window's time as the local wall clock (stored in UTC digits), BST included", () => {
+    // "Sat 4 July 2026, 10:00–13:00" as the supplier typed it is 09:00–12:00 UTC on British Summer Time.
+    const d = { id: "d", kind: "dated" as const, weekday: null, start_time: null, end_time: null, starts_at: "2026-07-04T10:00:00Z", ends_at: "2026-07-04T13:00:00Z" };
+    const occ = nextOccurrence(d, new Date("2026-07-01T00:00:00Z"), "Europe/London")!;
+    expect([occ.start.toISOString(), occ.end.toISOString()]).toEqual(["2026-07-04T09:00:00.000Z", "2026-07-04T12:00:00.000Z"]);
   });
 
   it("labels windows in the town's words", () => {
-    expect(windowLabel(weekly(6, "09:00", "12:00"))).toBe("Saturdays, 09:00–12:00");
+    expect(windowLabel(weekly(6, "09:00", "12:00"))).toBe("Saturdays 09:00–12:00");
     expect(formatLocal("2026-12-05T09:00:00Z", "Europe/London")).toBe("Sat 5 Dec, 09:00");
   });
 });
