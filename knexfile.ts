@@ -3,7 +3,9 @@ import path from "node:path";
 import type { Knex } from "knex";
 import { migrationSource } from "./db/migration-source";
 
-const root = __dirname;
+// npm scripts, tests and the server all run from the project root; __dirname would point
+// into the build output once Next.js bundles this file.
+const root = process.cwd();
 
 /** SQLite connections: referential integrity on, WAL so readers never block the writer. */
 export function sqliteAfterCreate(conn: { pragma: (sql: string) => unknown }, done: (err: Error | null, conn: unknown) => void) {

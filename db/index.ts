@@ -29,3 +29,14 @@ export function newId(): string {
 export function nowIso(clock: () => Date = () => new Date()): string {
   return clock().toISOString();
 }
+
+/** Rows grouped by a key, keeping their order: the shape "photos of each listing" takes. */
+export function groupBy<T>(rows: T[], key: (row: T) => string): Map<string, T[]> {
+  const out = new Map<string, T[]>();
+  for (const r of rows) {
+    const list = out.get(key(r));
+    if (list) list.push(r);
+    else out.set(key(r), [r]);
+  }
+  return out;
+}

@@ -1,6 +1,8 @@
 import type { Knex } from "knex";
 import * as core from "../migrations/20261201_001_core";
 import * as reviews from "../migrations/20261201_002_reviews";
+import * as listingSearch from "../migrations/20261201_003_listing_search";
+import * as reservations from "../migrations/20261201_005_reservations";
 import * as community from "../migrations/20261201_006_community";
 
 // Migrations are listed here rather than found on disk so that the same list runs under
@@ -8,6 +10,8 @@ import * as community from "../migrations/20261201_006_community";
 const migrations: Record<string, Knex.Migration> = {
   "20261201_001_core": core,
   "20261201_002_reviews": reviews,
+  "20261201_003_listing_search": listingSearch,
+  "20261201_005_reservations": reservations,
   "20261201_006_community": community,
 };
 

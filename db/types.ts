@@ -1,5 +1,6 @@
 // Row types, one place for every table's columns as stored.
 import type { Role } from "@/lib/auth/roles";
+import type { MaterialCode } from "@/lib/calc/facts";
 
 export interface UserRow {
   id: string;
@@ -60,6 +61,131 @@ export interface AuditRow {
   subject_id: string | null;
   before: string | null;
   after: string | null;
+  created_at: string;
+}
+
+export type ListingStatus = "draft" | "active" | "paused" | "archived" | "gone" | "expired" | "hidden";
+
+export interface ListingRow {
+  id: string;
+  owner_id: string;
+  organisation_id: string | null;
+  material_code: MaterialCode;
+  title: string;
+  description: string;
+  status: ListingStatus;
+  unit: "sheets" | "m2" | "bags" | "m3" | "bales" | "kg";
+  unit_size: number | null;
+  unit_mass_kg: number | null;
+  quantity_total: number;
+  quantity_held: number;
+  quantity_collected: number;
+  price_cents: number;
+  currency: string;
+  deposit_cents: number;
+  max_per_reservation: number | null;
+  auto_accept: boolean | 0 | 1;
+  /** Exact pickup point and address: never in a public response. */
+  lat: number;
+  lng: number;
+  address: string;
+  approx_lat: number;
+  approx_lng: number;
+  available_from: string | null;
+  available_until: string | null;
+  /** JSON text of the material's quality declarations. */
+  quality: string;
+  created_at: string;
+  updated_at: string;
+}
+
+export interface ListingPhotoRow {
+  id: string;
+  listing_id: string;
+  public_id: string;
+  width: number;
+  height: number;
+  format: "jpg" | "png" | "webp";
+  position: number;
+  created_at: string;
+}
+
+export interface PickupWindowRow {
+  id: string;
+  listing_id: string;
+  kind: "weekly" | "dated";
+  weekday: number | null;
+  start_time: string | null;
+  end_time: string | null;
+  starts_at: string | null;
+  ends_at: string | null;
+}
+
+export interface ReservationRow {
+  id: string;
+  listing_id: string;
+  gardener_id: string;
+  bed_id: string | null;
+  pickup_window_id: string | null;
+  group_id: string | null;
+  quantity: number;
+  status: "held" | "confirmed" | "collected" | "declined" | "cancelled" | "expired" | "no_show";
+  payment_state: "none" | "awaiting" | "paid" | "authorised" | "released" | "captured" | "refunded";
+  hold_expires_at: string | null;
+  pickup_code: string | null;
+  pickup_at: string | null;
+  pickup_by: string | null;
+  amount_cents: number;
+  deposit_cents: number;
+  currency: string;
+  confirmed_at: string | null;
+  closed_at: string | null;
+  cancelled_by: "gardener" | "supplier" | null;
+  expiry_warned_at: string | null;
+  pickup_reminded_at: string | null;
+  created_at: string;
+  updated_at: string;
+}
+
+export interface PaymentRow {
+  id: string;
+  reservation_id: string;
+  parent_id: string | null;
+  kind: "payment" | "deposit" | "refund";
+  provider: string;
+  provider_ref: string | null; // checkout session id, or refund id
+  payment_intent_id: string | null;
+  checkout_url: string | null;
+  // creating | open | expired | authorised | paid | released | captured | refunded (refunds: pending | succeeded | failed)
+  status: string;
+  amount_cents: number;
+  captured_cents: number;
+  refunded_cents: number;
+  currency: string;
+  idempotency_key: string;
+  last_error: string | null;
+  pending_action: "expire" | "release" | "capture" | "refund" | null;
+  action_attempts: number;
+  next_action_at: string | null;
+  created_at: string;
+  updated_at: string;
+}
+
+export interface ReservationEventRow {
+  id: number;
+  reservation_id: string;
+  from_status: string | null;
+  to_status: string;
+  actor_id: string | null;
+  note: string | null;
+  created_at: string;
+}
+
+export interface ReservationMessageRow {
+  id: string;
+  reservation_id: string;
+  author_id: string;
+  body: string;
   created_at: string;
 }
 

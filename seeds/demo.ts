@@ -13,7 +13,7 @@ import { seedCommunity } from "./community";
 
 const CREATED = "2026-11-01T09:00:00.000Z";
 
-/** The materials table follows lib/calc's facts, on every run. */
+/** The materials table follows lib/calc's facts; listings refer to it, so tests load it too. */
 export async function seedMaterials(knex: Knex): Promise<void> {
   for (const m of Object.values(MATERIALS)) {
     await knex("materials")

@@ -47,6 +47,11 @@ const TEMPLATES: Template[] = [
   { owner: "council", org: "council", material: "compost", titles: ["Green-waste compost, sieved"], description: "Compost from the town's garden-waste collection, sieved to 10 mm.", unit: "m3", unit_size: null, unit_mass_kg: null, quantity_total: 12, price_cents: 0, deposit_cents: 0, max_per_reservation: 0.5, quality: { herbicide_history: "unknown" }, auto_accept: true },
 ];
 
+/** Sheets, bags and bales come whole (as the listing form insists); the rest to a tenth. */
+function wholeIfCounted(unit: DemoListing["unit"], x: number): number {
+  return unit === "sheets" || unit === "bags" || unit === "bales" ? Math.max(1, Math.round(x)) : Math.max(1, Math.round(x * 10) / 10);
+}
+
 /** The demo's listings: each template placed one or more times around Fernhollow. */
 export function demoListings(): DemoListing[] {
   const rand = prng(20261201);
@@ -65,7 +70,7 @@ export function demoListings(): DemoListing[] {
         ...rest,
         key: `listing-${++n}`,
         title: titles[i % titles.length],
-        quantity_total: Math.max(1, Math.round(t.quantity_total * (0.6 + rand() * 0.8) * 10) / 10),
+        quantity_total: wholeIfCounted(t.unit, t.quantity_total * (0.6 + rand() * 0.8)),
         lat: Math.round(lat * 1e6) / 1e6,
         lng: Math.round(lng * 1e6) / 1e6,
         address: `${1 + Math.floor(rand() * 90)} ${STREETS[Math.floor(rand() * STREETS.length)]}, ${TOWN.name}`,

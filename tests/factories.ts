@@ -76,3 +76,22 @@ export async function createReservation(opts: { listing_id: string; gardener_id:
   await db()("reservations").insert({ id, listing_id: opts.listing_id, gardener_id: opts.gardener_id, quantity: opts.quantity, status: opts.status, created_at: at, updated_at: at });
   return { id };
 }
+
+/** A valid POST /api/listings body (leaf bags near the demo town's centre), with overrides. */
+export function listingBody(overrides: Record<string, unknown> = {}) {
+  return {
+    material: "leaves",
+    title: "Bagged oak leaves",
+    description: "Raked from the back lawn, dry, in paper sacks.",
+    unit: "bags",
+    quantity: 10,
+    price_cents: 0,
+    currency: "eur",
+    deposit_cents: 0,
+    location: { lat: 52.2051, lng: 0.8472 },
+    address: "7 Test Lane, Fernhollow",
+    quality: { leaf_source: "garden" },
+    pickup_windows: [{ kind: "weekly", weekday: 6, start_time: "09:00", end_time: "12:00" }],
+    ...overrides,
+  };
+}

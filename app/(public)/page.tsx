@@ -31,6 +31,9 @@ export default async function Home() {
             <Link href="/plan" className={buttonClass("primary")}>
               Plan a bed
             </Link>
+            <Link href="/browse" className={buttonClass("secondary")}>
+              Find material nearby
+            </Link>
             <Link href="/sign-up" className={buttonClass("secondary")}>
               I have material to give
             </Link>

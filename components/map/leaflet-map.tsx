@@ -1,7 +1,7 @@
 "use client";
 import "leaflet/dist/leaflet.css";
 import { useEffect, useState } from "react";
-import { CircleMarker, GeoJSON, MapContainer, Polygon, Polyline, TileLayer, Tooltip, useMap, useMapEvents } from "react-leaflet";
+import { CircleMarker, GeoJSON, MapContainer, Pane, Polygon, Polyline, TileLayer, Tooltip, useMap, useMapEvents } from "react-leaflet";
 import type { Feature, FeatureCollection } from "geojson";
 import type { PathOptions } from "leaflet";
 import type { MapProps } from "./types";
@@ -65,7 +65,7 @@ function Labels() {
   return (
     <>
       {labels.map((l) => (
-        <CircleMarker key={l.name} center={[l.lat, l.lng]} radius={0} interactive={false}>
+        <CircleMarker key={l.name} center={[l.lat, l.lng]} radius={0} interactive={false} pathOptions={{ opacity: 0, fillOpacity: 0 }}>
           <Tooltip permanent direction="center" className="duff-place-label">
             {l.name}
           </Tooltip>
@@ -95,7 +95,15 @@ export function LeafletMap({ center, zoom = 13, markers = [], polygon, line, onC
   return (
     <div className={`overflow-hidden rounded-lg ring-1 ring-humus-200 ${className}`} role="region" aria-label={label}>
       <MapContainer center={[center.lat, center.lng]} zoom={zoom} minZoom={10} maxZoom={18} className="h-full w-full" style={{ background: "#f3ede4" }} attributionControl={!!TILE_URL}>
-        {TILE_URL ? <TileLayer url={TILE_URL} attribution={process.env.NEXT_PUBLIC_TILE_ATTRIBUTION ?? ""} /> : <Basemap />}
+        {TILE_URL ? (
+          <TileLayer url={TILE_URL} attribution={process.env.NEXT_PUBLIC_TILE_ATTRIBUTION ?? ""} />
+        ) : (
+          // Its own pane under the markers: the drawing arrives after the markers are placed and
+          // would otherwise be painted over them.
+          <Pane name="duff-basemap" style={{ zIndex: 250 }}>
+            <Basemap />
+          </Pane>
+        )}
         {TILE_URL ? null : <Labels />}
         <ClickCatcher onClick={onClick} />
         <FitTo points={fitTo} />
@@ -113,7 +121,14 @@ export function LeafletMap({ center, zoom = 13, markers = [], polygon, line, onC
             key={m.id}
             center={[m.lat, m.lng]}
             radius={m.order !== undefined ? 12 : 8}
-            pathOptions={{ color: m.tone === "origin" ? "#271c13" : "#40642e", weight: 2, fillColor: m.tone === "origin" ? "#d9962b" : "#6f9b55", fillOpacity: 0.9 }}
+            pathOptions={{
+              color: m.tone === "origin" ? "#271c13" : m.tone === "selected" ? "#93600f" : "#40642e",
+              weight: m.tone === "selected" ? 4 : 2,
+              fillColor: m.tone === "origin" ? "#d9962b" : m.tone === "selected" ? "#f0c36b" : "#6f9b55",
+              fillOpacity: 0.9,
+            }}
+            // Read once, when Leaflet creates the path; pathOptions updates cannot change it.
+            className={m.className}
             eventHandlers={m.onSelect ? { click: m.onSelect } : undefined}
           >
             {m.order !== undefined ? (

@@ -8,8 +8,10 @@ export interface MapMarker extends LatLng {
   label?: string;
   /** A visiting order number drawn on the marker. */
   order?: number;
-  tone?: "listing" | "origin";
+  tone?: "listing" | "origin" | "selected";
   onSelect?: () => void;
+  /** Class on the marker's SVG path, so a page (or a test) can find a listing's marker. */
+  className?: string;
 }
 
 export interface MapProps {

@@ -88,6 +88,8 @@ export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFor
 
         <div className="flex flex-col gap-2">
           <DuffMap
+            // A map takes its zoom only when it mounts: a fresh one per shape, so drawing starts close in.
+            key={shape}
             label={shape === "outline" ? "Map: click each corner of the bed" : "Map: click where the bed is"}
             center={where ?? DEFAULT_CENTER}
             zoom={shape === "outline" ? 17 : 13}

@@ -1,40 +1,85 @@
-import { forwardRef, type InputHTMLAttributes, type ReactNode } from "react";
+import { forwardRef, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from "react";
 
-interface FieldProps extends InputHTMLAttributes<HTMLInputElement> {
+interface ShellProps {
   label: string;
   name: string;
+  id?: string;
   error?: string;
   hint?: ReactNode;
 }
 
-/** A labelled input whose error is linked by aria-describedby and announced when it appears. */
-export const Field = forwardRef<HTMLInputElement, FieldProps>(function Field({ label, name, error, hint, id, className = "", ...props }, ref) {
+/** Ids and wiring shared by every labelled control: the hint and the error are linked by aria-describedby. */
+function describe({ name, id, error, hint }: ShellProps) {
   const inputId = id ?? `field-${name}`;
   const errorId = `${inputId}-error`;
   const hintId = `${inputId}-hint`;
   const describedBy = [hint ? hintId : null, error ? errorId : null].filter(Boolean).join(" ") || undefined;
+  return { inputId, errorId, hintId, describedBy };
+}
+
+function Shell({ label, error, hint, ids, children }: ShellProps & { ids: ReturnType<typeof describe>; children: ReactNode }) {
   return (
     <div className="flex flex-col gap-1">
-      <label htmlFor={inputId} className="font-medium">
+      <label htmlFor={ids.inputId} className="font-medium">
         {label}
       </label>
       {hint ? (
-        <p id={hintId} className="text-sm text-humus-600">
+        <p id={ids.hintId} className="text-sm text-humus-600">
           {hint}
         </p>
       ) : null}
-      <input
-        ref={ref}
-        id={inputId}
-        name={name}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy}
-        className={`min-h-11 rounded-lg border bg-white px-3 py-2 ${error ? "border-ember-600" : "border-humus-300"} ${className}`}
-        {...props}
-      />
-      <p id={errorId} aria-live="polite" className="min-h-5 text-sm text-ember-600">
+      {children}
+      <p id={ids.errorId} aria-live="polite" className="min-h-5 text-sm text-ember-600">
         {error ?? ""}
       </p>
     </div>
   );
+}
+
+const controlClass = (error: string | undefined, extra: string) =>
+  `min-h-11 rounded-lg border bg-white px-3 py-2 ${error ? "border-ember-600" : "border-humus-300"} ${extra}`;
+
+interface FieldProps extends Omit<InputHTMLAttributes<HTMLInputElement>, "name">, ShellProps {}
+
+/** A labelled input whose error is linked by aria-describedby and announced when it appears. */
+export const Field = forwardRef<HTMLInputElement, FieldProps>(function Field({ label, name, error, hint, id, className = "", ...props }, ref) {
+  const ids = describe({ label, name, error, hint, id });
+  return (
+    <Shell label={label} name={name} error={error} hint={hint} ids={ids}>
+      <input ref={ref} id={ids.inputId} name={name} aria-invalid={error ? true : undefined} aria-describedby={ids.describedBy} className={controlClass(error, className)} {...props} />
+    </Shell>
+  );
 });
+
+interface SelectFieldProps extends Omit<SelectHTMLAttributes<HTMLSelectElement>, "name">, ShellProps {}
+
+export const SelectField = forwardRef<HTMLSelectElement, SelectFieldProps>(function SelectField({ label, name, error, hint, id, className = "", children, ...props }, ref) {
+  const ids = describe({ label, name, error, hint, id });
+  return (
+    <Shell label={label} name={name} error={error} hint={hint} ids={ids}>
+      <select ref={ref} id={ids.inputId} name={name} aria-invalid={error ? true : undefined} aria-describedby={ids.describedBy} className={controlClass(error, className)} {...props}>
+        {children}
+      </select>
+    </Shell>
+  );
+});
+
+interface TextAreaFieldProps extends Omit<TextareaHTMLAttributes<HTMLTextAreaElement>, "name">, ShellProps {}
+
+export const TextAreaField = forwardRef<HTMLTextAreaElement, TextAreaFieldProps>(function TextAreaField({ label, name, error, hint, id, className = "", ...props }, ref) {
+  const ids = describe({ label, name, error, hint, id });
+  return (
+    <Shell label={label} name={name} error={error} hint={hint} ids={ids}>
+      <textarea ref={ref} id={ids.inputId} name={name} aria-invalid={error ? true : undefined} aria-describedby={ids.describedBy} className={controlClass(error, className)} {...props} />
+    </Shell>
+  );
+});
+
+/** The error line for a group of radios or checkboxes, announced when it appears. */
+export function GroupError({ id, error }: { id: string; error?: string }) {
+  return (
+    <p id={id} aria-live="polite" className="min-h-5 text-sm text-ember-600">
+      {error ?? ""}
+    </p>
+  );
+}

@@ -54,14 +54,8 @@ export async function requireUser(req: NextRequest, roles?: readonly Role[]): Pr
   return checkRoles(user, roles);
 }
 
-/** Pages and server actions: null when nobody is signed in. */
-export async function currentUser(): Promise<SessionUser | null> {
-  const session = await getServerSession(authOptions);
-  return userUnlessSuspended(session?.user?.id ?? null);
-}
-
-/** A suspended account reads as signed out where signing in is optional. */
-async function userUnlessSuspended(id: string | null): Promise<SessionUser | null> {
+/** The person behind an id from a session, or null when there is none or they are suspended. */
+async function activeUserOrNull(id: string | null | undefined): Promise<SessionUser | null> {
   if (!id) return null;
   try {
     return await loadSessionUser(id);
@@ -69,6 +63,18 @@ async function userUnlessSuspended(id: string | null): Promise<SessionUser | nul
     if (err instanceof ApiError && err.code === "suspended") return null;
     throw err;
   }
+}
+
+/** Public route handlers that show more to some people: the signed-in person, or null. */
+export async function optionalRequestUser(req: NextRequest): Promise<SessionUser | null> {
+  const token = await getToken({ req, secret: AUTH_SECRET });
+  return activeUserOrNull(typeof token?.uid === "string" ? token.uid : null);
+}
+
+/** Pages and server actions: null when nobody is signed in. */
+export async function currentUser(): Promise<SessionUser | null> {
+  const session = await getServerSession(authOptions);
+  return activeUserOrNull(session?.user?.id);
 }
 
 /** Server actions: the same 401/403 rules as route handlers. */
@@ -80,10 +86,4 @@ export async function requireCurrentUser(roles?: readonly Role[]): Promise<Sessi
 
 export function hasRole(user: SessionUser | null, ...roles: Role[]): boolean {
   return !!user && roles.some((r) => user.roles.includes(r));
-}
-
-/** Public route handlers that show a little more to a signed-in person: null for visitors (and suspended accounts). */
-export async function optionalUser(req: NextRequest): Promise<SessionUser | null> {
-  const token = await getToken({ req, secret: AUTH_SECRET });
-  return userUnlessSuspended(typeof token?.uid === "string" ? token.uid : null);
 }

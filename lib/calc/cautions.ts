@@ -1,6 +1,6 @@
 // Short safety notes for the layers chosen. They point at real hazards and then step aside:
 // local rules and licensed advice outrank anything written here.
-import { BALE_MASS_LB, NIOSH_LIFT_LIMIT_KG, NIOSH_LIFT_LIMIT_LB, POUND_KG } from "./facts";
+import { BALE_MASS_LB, NIOSH_LIFT_LIMIT_KG, NIOSH_LIFT_LIMIT_LB, POUND_KG, type MaterialCode } from "./facts";
 
 export interface CautionLayers {
   cardboard: boolean;
@@ -10,50 +10,110 @@ export interface CautionLayers {
   worms: boolean;
 }
 
-// A Wisconsin yard-waste study found lead and chromium in curb-vacuumed leaves.
-const ROADSIDE_LEAVES =
-  "Leaves vacuumed up from the kerb or roadside can bring litter and road runoff with them, lead and chromium included; leaves raked from gardens and parks are the safer pick.";
-// Legionella and other microbes in soil, compost and manure (WHS Queensland).
-const GLOVES = "Wear gloves with soil, compost and manure, dampen anything dusty, and wash your hands afterwards.";
-const LOCAL_RULES_FIRST =
-  "These are general notes, not advice for your site: your local rules come first, and a licensed professional can advise where you need it.";
-
 const baleKg = (lb: number) => Math.round(lb * POUND_KG);
+
+// The words of each caution, shared by the bed estimate and the listing pages.
+export const CAUTION_TEXT = {
+  // Common practice; coated board also slows water and air getting through.
+  cardboard: "Pull off tape, staples and plastic first, and leave out glossy, waxed or coated board.",
+  // A Wisconsin yard-waste study found lead and chromium in curb-vacuumed leaves.
+  roadsideLeaves:
+    "Leaves vacuumed up from the kerb or roadside can bring litter and road runoff with them, lead and chromium included; leaves raked from gardens and parks are the safer pick.",
+  // NC State Extension "Herbicide Carryover"; bean/pea pot test per WSU Whatcom County Extension.
+  herbicide:
+    "Straw (like hay, manure and clippings) can carry weedkiller residues that survive composting and stunt vegetables. Ask the supplier what was sprayed, and grow a few beans or peas in pots of it for two or three weeks before you build.",
+  smallBale: `A small bale weighs about ${baleKg(BALE_MASS_LB.min)}–${baleKg(BALE_MASS_LB.max)} kg (${BALE_MASS_LB.min}–${BALE_MASS_LB.max} lb), at or over the ${NIOSH_LIFT_LIMIT_KG} kg (${NIOSH_LIFT_LIMIT_LB} lb) NIOSH limit for one lift: keep it close, bend your knees, and share the lift with a second person.`,
+  worms:
+    "Worms are live animals, and some earthworm species are invasive in some regions. Buy from a grower who can tell you the species, and follow your local rules.",
+  // General to every bed: Legionella and other microbes in soil, compost and manure (WHS Queensland).
+  gloves: "Wear gloves with soil, compost and manure, dampen anything dusty, and wash your hands afterwards.",
+  watering: "Check for local watering restrictions before you soak the bed.",
+  defer:
+    "These are general notes, not advice for your site: your local rules come first, and a licensed professional can advise where you need it.",
+} as const;
 
 export function estimateCautions(layers: CautionLayers): string[] {
   const notes: string[] = [];
-  if (layers.cardboard) {
-    // Common practice; coated board also slows water and air getting through.
-    notes.push("Pull off tape, staples and plastic first, and leave out glossy, waxed or coated board.");
-  }
-  if (layers.leaves) {
-    notes.push(ROADSIDE_LEAVES);
-  }
-  if (layers.straw) {
-    // NC State Extension "Herbicide Carryover"; bean/pea pot test per WSU Whatcom County Extension.
-    notes.push(
-      "Straw (like hay, manure and clippings) can carry weedkiller residues that survive composting and stunt vegetables. Ask the supplier what was sprayed, and grow a few beans or peas in pots of it for two or three weeks before you build.",
-    );
-    notes.push(
-      `A small bale weighs about ${baleKg(BALE_MASS_LB.min)}–${baleKg(BALE_MASS_LB.max)} kg (${BALE_MASS_LB.min}–${BALE_MASS_LB.max} lb), at or over the ${NIOSH_LIFT_LIMIT_KG} kg (${NIOSH_LIFT_LIMIT_LB} lb) NIOSH limit for one lift: keep it close, bend your knees, and share the lift with a second person.`,
-    );
-  }
-  if (layers.worms) {
-    notes.push(
-      "Worms are live animals, and some earthworm species are invasive in some regions. Buy from a grower who can tell you the species, and follow your local rules.",
-    );
-  }
-  // General to every bed.
-  notes.push(GLOVES);
-  notes.push("Check for local watering restrictions before you soak the bed.");
-  notes.push(LOCAL_RULES_FIRST);
+  if (layers.cardboard) notes.push(CAUTION_TEXT.cardboard);
+  if (layers.leaves) notes.push(CAUTION_TEXT.roadsideLeaves);
+  if (layers.straw) notes.push(CAUTION_TEXT.herbicide, CAUTION_TEXT.smallBale);
+  if (layers.worms) notes.push(CAUTION_TEXT.worms);
+  notes.push(CAUTION_TEXT.gloves, CAUTION_TEXT.watering, CAUTION_TEXT.defer);
   return notes;
+}
+
+export interface ListingCaution {
+  kind: "cardboard" | "roadside" | "herbicide" | "lifting" | "worms" | "gloves" | "defer";
+  text: string;
+}
+
+export interface ListingCautionInput {
+  material: MaterialCode;
+  unit: string;
+  unit_mass_kg: number | null;
+  quality: { tape_removed?: boolean; no_glossy_print?: boolean; herbicide_history?: string; leaf_source?: string; species?: string };
+}
+
+const MATERIAL_WORD: Partial<Record<MaterialCode, string>> = {
+  straw: "Straw",
+  manure: "Manure",
+  grass_clippings: "Grass clippings",
+  compost: "Compost",
+};
+
+/**
+ * The cautions a listing's page shows beside the material, from what it is and what its
+ * supplier declared. Sources as in CAUTION_TEXT; herbicide carryover (NC State Extension,
+ * UF/IFAS SS-AGR-415) and the bean or pea pot test (WSU Whatcom County Extension).
+ */
+export function listingCautions(l: ListingCautionInput): ListingCaution[] {
+  const out: ListingCaution[] = [];
+  const q = l.quality;
+  if (l.material === "cardboard") {
+    const said = q.tape_removed === false || q.no_glossy_print === false ? " The supplier says some of it still has tape or glossy print." : "";
+    out.push({ kind: "cardboard", text: CAUTION_TEXT.cardboard + said });
+  }
+  if (l.material === "leaves") {
+    const said = q.leaf_source === "roadside" ? " The supplier says these came from a street or roadside." : "";
+    out.push({ kind: "roadside", text: CAUTION_TEXT.roadsideLeaves + said });
+  }
+  const word = MATERIAL_WORD[l.material];
+  if (word) {
+    const said =
+      q.herbicide_history === "known_untreated"
+        ? " The supplier says it is known to be unsprayed."
+        : " The supplier does not know what was sprayed.";
+    out.push({
+      kind: "herbicide",
+      text:
+        `${word} can carry weedkiller residues (aminopyralid, clopyralid and similar) that survive composting and stunt beans, peas, tomatoes and potatoes.` +
+        `${said} Before you build, grow a few beans or peas in pots of it beside pots of plain compost for two or three weeks and compare.`,
+    });
+  }
+  if (l.unit === "bales") {
+    const kg = l.unit_mass_kg;
+    out.push({
+      kind: "lifting",
+      text:
+        kg == null
+          ? CAUTION_TEXT.smallBale
+          : kg > NIOSH_LIFT_LIMIT_KG
+            ? `Each bale weighs about ${Math.round(kg)} kg (${Math.round(kg / POUND_KG)} lb), over the ${NIOSH_LIFT_LIMIT_KG} kg (${NIOSH_LIFT_LIMIT_LB} lb) NIOSH limit for one lift: keep it close, bend your knees, and share the lift with a second person.`
+            : `Each bale weighs about ${Math.round(kg)} kg (${Math.round(kg / POUND_KG)} lb), under the ${NIOSH_LIFT_LIMIT_KG} kg (${NIOSH_LIFT_LIMIT_LB} lb) NIOSH limit for one lift in ideal conditions: still keep it close and bend your knees.`,
+    });
+  }
+  if (l.material === "worms") {
+    out.push({ kind: "worms", text: `${q.species ? `The grower names the species as ${q.species}. ` : ""}${CAUTION_TEXT.worms}` });
+  }
+  if (l.material !== "cardboard") out.push({ kind: "gloves", text: CAUTION_TEXT.gloves });
+  out.push({ kind: "defer", text: CAUTION_TEXT.defer });
+  return out;
 }
 
 /** What a household collecting from a council giveaway day should know about the material. */
 export function giveawayCautions(material: string): string[] {
   const notes: string[] = [];
-  if (material === "leaves") notes.push(ROADSIDE_LEAVES);
+  if (material === "leaves") notes.push(CAUTION_TEXT.roadsideLeaves);
   if (material === "compost") {
     // NC State Extension "Herbicide Carryover"; bean/pea pot test per WSU Whatcom County Extension.
     notes.push(
@@ -61,7 +121,7 @@ export function giveawayCautions(material: string): string[] {
     );
   }
   if (material === "wood_chips") notes.push("Fresh chips suit paths and the top of a bed; dug in, they hold back nitrogen while they rot (common practice).");
-  notes.push(GLOVES);
-  notes.push(LOCAL_RULES_FIRST);
+  notes.push(CAUTION_TEXT.gloves);
+  notes.push(CAUTION_TEXT.defer);
   return notes;
 }

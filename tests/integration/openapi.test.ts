@@ -32,3 +32,11 @@ describe("GET /api/openapi.json", () => {
     expect(schema.properties.password.minLength).toBe(10);
   });
 });
+
+describe("the OpenAPI document", () => {
+  it("validates as OpenAPI 3.1 with a standard parser", async () => {
+    const { default: SwaggerParser } = await import("@apidevtools/swagger-parser");
+    const doc = structuredClone(openApiDocument());
+    await expect(SwaggerParser.validate(doc as never)).resolves.toBeTruthy();
+  });
+});

@@ -1,53 +1,53 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { pageUser } from "@/lib/auth/page-guard";
-import { db } from "@/db/index";
-import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { LISTING_ROLES } from "@/lib/auth/roles";
+import { listingsManagedBy } from "@/db/listings";
+import { effectiveStatus, quantityLeft } from "@/lib/listings/status";
+import { buttonClass } from "@/components/ui/button";
+import { EmptyState, PageHeading } from "@/components/ui/empty-state";
+import { MineTable, type MineRow } from "@/components/listings/mine-table";
 
 export const metadata: Metadata = { title: "What I'm giving" };
 
 export default async function MyListingsPage() {
   const user = await pageUser("/listings/mine", LISTING_ROLES);
-  const rows: { id: string; title: string; status: string; unit: string; quantity_total: number; quantity_held: number; quantity_collected: number }[] = await db()("listings")
-    .select("id", "title", "status", "unit", "quantity_total", "quantity_held", "quantity_collected")
-    .where((q) => {
-      q.where("owner_id", user.id);
-      if (user.organisation) q.orWhere("organisation_id", user.organisation.id);
-    })
-    .orderBy("updated_at", "desc");
+  const now = new Date();
+  const rows: MineRow[] = (await listingsManagedBy(user.id)).map((l) => ({
+    id: l.id,
+    title: l.title,
+    material: l.material_code,
+    status: effectiveStatus(l.status, l.available_until, now),
+    unit: l.unit,
+    left: quantityLeft(l),
+    total: l.quantity_total,
+    held: l.quantity_held,
+    updated_at: l.updated_at,
+  }));
   return (
-    <div>
-      <PageHeading title="What I'm giving" lead="Your listings, how much is left, and what is on hold." />
+    <div className="flex flex-col gap-4">
+      <div className="flex flex-wrap items-start justify-between gap-4">
+        <PageHeading
+          title="What I'm giving"
+          lead={user.organisation ? `Your listings and ${user.organisation.name}'s: how much is left, what is on hold.` : "Your listings, how much is left, and what is on hold."}
+        />
+        <Link href="/listings/new" className={buttonClass("primary")}>
+          Post a listing
+        </Link>
+      </div>
       {rows.length === 0 ? (
-        <EmptyState title="Nothing listed yet">When you post spare leaves, boxes or bales, they appear here.</EmptyState>
+        <EmptyState
+          title="Nothing listed yet"
+          action={
+            <Link href="/listings/new" className={buttonClass("primary")}>
+              Post your first listing
+            </Link>
+          }
+        >
+          When you post spare leaves, boxes or bales, they appear here with how much is left.
+        </EmptyState>
       ) : (
-        <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-humus-200">
-          <table className="w-full text-left text-sm">
-            <caption className="sr-only">My listings</caption>
-            <thead className="bg-humus-100">
-              <tr>
-                <th scope="col" className="p-3">Listing</th>
-                <th scope="col" className="p-3">Status</th>
-                <th scope="col" className="p-3">Left</th>
-                <th scope="col" className="p-3">On hold</th>
-              </tr>
-            </thead>
-            <tbody>
-              {rows.map((r) => (
-                <tr key={r.id} className="border-t border-humus-100">
-                  <td className="p-3 font-medium">{r.title}</td>
-                  <td className="p-3">{r.status}</td>
-                  <td className="p-3">
-                    {Math.max(0, r.quantity_total - r.quantity_held - r.quantity_collected)} {r.unit}
-                  </td>
-                  <td className="p-3">
-                    {r.quantity_held} {r.unit}
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <MineTable rows={rows} system={user.unit_system} />
       )}
     </div>
   );

@@ -1,0 +1,176 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { cache } from "react";
+import { currentUser, hasRole } from "@/lib/auth/current-user";
+import { ApiError } from "@/lib/api/errors";
+import { getListing } from "@/lib/services/get-listing";
+import type { ManagedListingDetail } from "@/lib/listings/view";
+import { describeUnitSize, formatDay, formatListingQuantity, formatMoney, formatPrice, formatWindow, materialName } from "@/lib/listings/format";
+import { APPROX_MAX_M } from "@/lib/geo/approximate";
+import { buttonClass } from "@/components/ui/button";
+import { Notice } from "@/components/ui/notice";
+import { DuffMap } from "@/components/map/map";
+import { MaterialArt } from "@/components/listings/material-art";
+import { StatusActions } from "@/components/listings/status-actions";
+import { StatusBadge, VerifiedBadge } from "@/components/listings/status-badge";
+import { QualityList } from "@/components/listings/quality-list";
+
+// One read per request for both the title and the page.
+const load = cache(async (id: string) => {
+  const viewer = await currentUser();
+  try {
+    return { viewer, listing: await getListing(id, viewer?.id ?? null) };
+  } catch (err) {
+    if (err instanceof ApiError && err.code === "not_found") return null;
+    throw err;
+  }
+});
+
+export async function generateMetadata({ params }: { params: Promise<{ id: string }> }): Promise<Metadata> {
+  const found = await load((await params).id);
+  return { title: found ? found.listing.title : "Listing not found" };
+}
+
+function Fact({ label, children }: { label: string; children: React.ReactNode }) {
+  return (
+    <div className="flex flex-col">
+      <dt className="text-sm text-humus-600">{label}</dt>
+      <dd className="font-medium">{children}</dd>
+    </div>
+  );
+}
+
+export default async function ListingPage({ params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const found = await load(id);
+  if (!found) notFound();
+  const { viewer, listing } = found;
+  const system = viewer?.unit_system ?? "metric";
+  const managed = "can_manage" in listing ? (listing as ManagedListingDetail) : null;
+  const size = describeUnitSize(listing.unit, listing.unit_size, listing.unit_mass_kg, system);
+  const rating = listing.supplier.rating;
+  const [cover, ...more] = listing.photos;
+
+  return (
+    <article className="flex flex-col gap-6">
+      <Link href="/browse" className="text-sm text-moss-700 underline">
+        ← All listings
+      </Link>
+      <header className="flex flex-col gap-2">
+        <p className="text-sm font-semibold uppercase tracking-wide text-moss-700">{materialName(listing.material)}</p>
+        <h1 className="text-3xl font-bold tracking-tight">{listing.title}</h1>
+        <div className="flex flex-wrap items-center gap-2 text-humus-700">
+          {listing.status !== "active" ? <StatusBadge status={listing.status} /> : null}
+          <span>
+            from <span className="font-medium">{listing.supplier.name}</span>
+          </span>
+          {listing.supplier.verified ? <VerifiedBadge /> : null}
+          <span className="text-sm">{rating ? `★ ${rating.average.toFixed(1)} from ${rating.count} review${rating.count === 1 ? "" : "s"}` : "No reviews yet"}</span>
+        </div>
+      </header>
+
+      <div className="grid gap-6 md:grid-cols-[minmax(0,1.3fr)_minmax(0,1fr)]">
+        <div className="flex flex-col gap-4">
+          <figure className="overflow-hidden rounded-leaf bg-humus-100 ring-1 ring-humus-200">
+            {cover ? (
+              // eslint-disable-next-line @next/next/no-img-element
+              <img src={cover.url} width={cover.width} height={cover.height} alt={`Photo 1 of ${listing.photos.length}: ${listing.title}`} className="h-auto w-full" />
+            ) : (
+              <MaterialArt material={listing.material} className="aspect-[4/3] w-full" />
+            )}
+          </figure>
+          {more.length ? (
+            <ul className="grid grid-cols-2 gap-3 sm:grid-cols-3" aria-label="More photos">
+              {more.map((p, i) => (
+                <li key={p.url}>
+                  {/* eslint-disable-next-line @next/next/no-img-element */}
+                  <img src={p.url} width={p.width} height={p.height} alt={`Photo ${i + 2} of ${listing.photos.length}: ${listing.title}`} loading="lazy" className="h-auto w-full rounded ring-1 ring-humus-200" />
+                </li>
+              ))}
+            </ul>
+          ) : null}
+          {listing.description ? <p className="whitespace-pre-line text-humus-800">{listing.description}</p> : null}
+          <section aria-labelledby="care-title" className="flex flex-col gap-2">
+            <h2 id="care-title" className="text-lg font-semibold">Before you collect</h2>
+            <Notice tone="caution">
+              <ul className="flex list-disc flex-col gap-1 pl-5">
+                {listing.cautions.map((c) => (
+                  <li key={c.kind} data-caution={c.kind}>
+                    {c.text}
+                  </li>
+                ))}
+              </ul>
+            </Notice>
+          </section>
+        </div>
+
+        <aside className="flex flex-col gap-4">
+          <dl className="grid grid-cols-2 gap-4 rounded-lg bg-white p-4 ring-1 ring-humus-200">
+            <Fact label="Left">
+              {formatListingQuantity(listing.quantity_available, listing.unit, system)}
+              {size ? <span className="block text-sm font-normal text-humus-600">{size}</span> : null}
+            </Fact>
+            <Fact label="Price">{formatPrice(listing.price_cents, listing.currency, listing.unit)}</Fact>
+            <Fact label="No-show deposit">{listing.deposit_cents > 0 ? `${formatMoney(listing.deposit_cents, listing.currency)}, refunded on pickup` : "None"}</Fact>
+            {listing.max_per_reservation ? <Fact label="Most per person">{formatListingQuantity(listing.max_per_reservation, listing.unit, system)}</Fact> : null}
+            {listing.available_from ? <Fact label="Available from">{formatDay(listing.available_from)}</Fact> : null}
+            {listing.available_until ? <Fact label="Available until">{formatDay(listing.available_until)}</Fact> : null}
+          </dl>
+
+          <section aria-labelledby="windows-title" className="rounded-lg bg-white p-4 ring-1 ring-humus-200">
+            <h2 id="windows-title" className="font-semibold">Pickup times</h2>
+            {listing.pickup_windows.length ? (
+              <ul className="mt-1 list-disc pl-5">
+                {listing.pickup_windows.map((w) => (
+                  <li key={w.id}>{formatWindow(w)}</li>
+                ))}
+              </ul>
+            ) : (
+              <p className="text-humus-700">Arrange a time when you reserve.</p>
+            )}
+          </section>
+
+          <QualityList material={listing.material} quality={listing.quality} />
+
+          <section aria-labelledby="where-title" className="flex flex-col gap-2">
+            <h2 id="where-title" className="font-semibold">Roughly where</h2>
+            <DuffMap center={listing.location} zoom={14} markers={[{ id: listing.id, ...listing.location, label: "Approximate pickup area" }]} label="Map of the approximate pickup area" className="h-56" />
+            <p className="text-sm text-humus-600">
+              The point is within about {APPROX_MAX_M} m of the pickup. The exact address is shared once the supplier confirms your reservation.
+            </p>
+          </section>
+
+          {managed ? (
+            <section aria-labelledby="owner-title" className="flex flex-col gap-3 rounded-lg bg-moss-50 p-4 ring-1 ring-moss-300">
+              <h2 id="owner-title" className="font-semibold">Only you see this</h2>
+              <p>
+                Pickup address: <span className="font-medium">{managed.pickup.address}</span>
+                <span className="block text-sm text-humus-600">
+                  Exact point {managed.pickup.location.lat.toFixed(5)}, {managed.pickup.location.lng.toFixed(5)} · {formatListingQuantity(managed.quantity_held, listing.unit, system)} on hold ·{" "}
+                  {formatListingQuantity(managed.quantity_collected, listing.unit, system)} collected
+                </span>
+              </p>
+              <div className="flex flex-wrap items-center gap-3">
+                <Link href={`/listings/${listing.id}/edit`} className={buttonClass("primary")}>
+                  Edit
+                </Link>
+                <StatusActions id={listing.id} status={listing.status} title={listing.title} />
+              </div>
+            </section>
+          ) : listing.status === "active" && hasRole(viewer, "gardener") ? (
+            <Link href={`/listings/${listing.id}/reserve`} className={buttonClass("primary")}>
+              Reserve
+            </Link>
+          ) : listing.status === "active" && !viewer ? (
+            <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`/listings/${listing.id}`)}`} className={buttonClass("secondary")}>
+              Sign in to reserve
+            </Link>
+          ) : listing.status !== "active" ? (
+            <Notice>This listing is not taking reservations right now.</Notice>
+          ) : null}
+        </aside>
+      </div>
+    </article>
+  );
+}

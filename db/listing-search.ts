@@ -1,0 +1,115 @@
+// The public browse query: active listings with something left, filtered by material,
+// price and words, near a point or newest first, one keyset page at a time.
+//
+// It reads only public columns — the exact point and the address are never selected — and
+// measures distance from the approximate point, so nothing derived from the exact one can
+// leak through ordering either.
+//
+// Keyset pagination: a page starts strictly after the last row of the one before in a total
+// order ((distance, id) near a point, (created_at desc, id desc) otherwise). A row inserted
+// meanwhile lands before or after the cursor but never shifts the rows that were already
+// there, so paging through never repeats or skips one (offset paging would). Text relevance
+// is not used as an order: it changes as other listings are added.
+import type { Knex } from "knex";
+import { EARTH_MEAN_RADIUS_M, type MaterialCode } from "@/lib/calc/facts";
+import { db, type Db } from "./index";
+import { LISTING_COLUMNS } from "./listings";
+import type { ListingRow } from "./types";
+
+// Everything but the exact point and the address.
+const PRIVATE_COLUMNS = ["lat", "lng", "address"] as const;
+type PublicColumn = Exclude<(typeof LISTING_COLUMNS)[number], (typeof PRIVATE_COLUMNS)[number]>;
+const PUBLIC_COLUMNS = LISTING_COLUMNS.filter((c): c is PublicColumn => !(PRIVATE_COLUMNS as readonly string[]).includes(c));
+
+export type PublicListingRow = Pick<ListingRow, PublicColumn> & { distance_km: number | null };
+
+export interface SearchFilters {
+  point?: { lat: number; lng: number };
+  radiusKm: number;
+  materials?: MaterialCode[];
+  free?: boolean;
+  /** Words to find, already reduced to letters and digits. */
+  words?: string[];
+  now: string;
+}
+
+export type SearchCursor = { by: "distance"; d: number; id: string } | { by: "newest"; t: string; id: string };
+
+const R_KM = EARTH_MEAN_RADIUS_M / 1000;
+const DEG = Math.PI / 180;
+
+// Haversine on the same sphere Turf uses. Plain SQL functions that SQLite (built with its
+// math functions, as better-sqlite3 is) and PostgreSQL both have.
+const DISTANCE_SQL =
+  `2 * ${R_KM} * asin(sqrt(power(sin(radians(approx_lat - ?) / 2), 2) + ` +
+  "cos(radians(?)) * cos(radians(approx_lat)) * power(sin(radians(approx_lng - ?) / 2), 2)))";
+
+/** A latitude/longitude box that holds every point within `radiusKm` (the index prefilter). */
+export function boundingBox(lat: number, lng: number, radiusKm: number) {
+  const angular = radiusKm / R_KM;
+  const dLat = (angular / DEG) * 1.001;
+  const s = Math.sin(angular) / Math.cos(lat * DEG);
+  // Past a pole the circle wraps every longitude.
+  const dLng = s >= 1 ? 180 : (Math.asin(s) / DEG) * 1.001;
+  return { minLat: lat - dLat, maxLat: lat + dLat, minLng: lng - dLng, maxLng: lng + dLng, wrapsLng: lng - dLng < -180 || lng + dLng > 180 };
+}
+
+function isPg(q: Db) {
+  return (q as Knex).client.config.client === "pg";
+}
+
+function textFilter(b: Knex.QueryBuilder, words: string[], q: Db) {
+  if (isPg(q)) {
+    b.whereRaw("to_tsvector('english', coalesce(title, '') || ' ' || coalesce(description, '')) @@ to_tsquery('english', ?)", [
+      words.map((w) => `${w}:*`).join(" & "),
+    ]);
+  } else {
+    // Each word quoted (so FTS5 syntax in a search cannot do anything) and prefix-matched.
+    b.whereRaw("listings.id IN (SELECT listing_id FROM listing_search WHERE listing_search MATCH ?)", [words.map((w) => `"${w}"*`).join(" ")]);
+  }
+}
+
+export async function searchListings(f: SearchFilters, after: SearchCursor | null, limit: number, q: Db = db()): Promise<PublicListingRow[]> {
+  const base = q("listings")
+    .where("listings.status", "active")
+    .andWhereRaw("quantity_total - quantity_held - quantity_collected > ?", [1e-9])
+    .andWhere((b) => b.whereNull("available_until").orWhere("available_until", ">", f.now));
+  if (f.materials?.length) base.whereIn("material_code", f.materials);
+  if (f.free) base.where("price_cents", 0);
+  if (f.words?.length) textFilter(base, f.words, q);
+
+  if (!f.point) {
+    base.select(PUBLIC_COLUMNS.map((c) => `listings.${c}`)).select(q.raw("NULL as distance_km"));
+    if (after?.by === "newest") {
+      base.andWhere((b) => b.where("created_at", "<", after.t).orWhere((b2) => b2.where("created_at", after.t).andWhere("listings.id", "<", after.id)));
+    }
+    const rows = await base.orderBy([{ column: "created_at", order: "desc" }, { column: "listings.id", order: "desc" }]).limit(limit);
+    return rows.map(normalise);
+  }
+
+  const { lat, lng } = f.point;
+  const box = boundingBox(lat, lng, f.radiusKm);
+  base.whereBetween("approx_lat", [box.minLat, box.maxLat]);
+  if (!box.wrapsLng) base.whereBetween("approx_lng", [box.minLng, box.maxLng]);
+  base.select(PUBLIC_COLUMNS.map((c) => `listings.${c}`)).select(q.raw(`${DISTANCE_SQL} as distance_km`, [lat, lat, lng]));
+
+  const outer = q.select("*").from(base.as("near")).where("distance_km", "<=", f.radiusKm);
+  if (after?.by === "distance") {
+    // The cursor carries the distance exactly as the database computed it, and the same
+    // expression over the same numbers gives the same double, so ties compare equal.
+    outer.andWhere((b) => b.where("distance_km", ">", after.d).orWhere((b2) => b2.where("distance_km", after.d).andWhere("id", ">", after.id)));
+  }
+  const rows = await outer.orderBy([{ column: "distance_km" }, { column: "id" }]).limit(limit);
+  return rows.map(normalise);
+}
+
+function normalise(r: Record<string, unknown>): PublicListingRow {
+  const row = r as unknown as PublicListingRow;
+  // PostgreSQL hands timestamps back as Date objects; SQLite keeps the ISO text we wrote.
+  for (const k of ["available_from", "available_until", "created_at", "updated_at"] as const) {
+    const v = row[k] as unknown;
+    if (v instanceof Date) (row as Record<string, unknown>)[k] = v.toISOString();
+  }
+  row.distance_km = row.distance_km === null || row.distance_km === undefined ? null : Number(row.distance_km);
+  return row;
+}

@@ -1,0 +1,104 @@
+// How listings read on screen: quantities in the reader's unit system, unit sizes, money and
+// pickup times. Pure and free of server code, so the browse list, the detail page and the
+// form all say the same thing.
+import { formatQuantity, lToUsGal, m2ToFt2, m3ToFt3, kgToLb, type UnitSystem } from "@/lib/calc/units";
+import { FOOT_M, LITRE_M3, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
+import type { ListingUnit } from "@/lib/validation/listings";
+
+const COUNT_WORDS: Record<"sheets" | "bags" | "bales", [string, string]> = {
+  sheets: ["sheet", "sheets"],
+  bags: ["bag", "bags"],
+  bales: ["bale", "bales"],
+};
+
+const trim = (x: number, places = 2) => String(Number(x.toFixed(places)));
+
+export function materialName(code: string): string {
+  return MATERIALS[code as MaterialCode]?.name ?? code;
+}
+
+/** "14 bags", "2.5 m³" or, for imperial readers, "3.27 yd³". */
+export function formatListingQuantity(quantity: number, unit: ListingUnit, system: UnitSystem = "metric"): string {
+  if (unit === "sheets" || unit === "bags" || unit === "bales") {
+    const [one, many] = COUNT_WORDS[unit];
+    return `${trim(quantity)} ${Math.abs(quantity - 1) < 1e-9 ? one : many}`;
+  }
+  return formatQuantity(quantity, unit, system);
+}
+
+/** What one sheet, bag or bale holds, e.g. "113 L bags" or "bales of 5.25 ft³, about 44 lb". */
+export function describeUnitSize(unit: ListingUnit, unitSize: number | null, unitMassKg: number | null, system: UnitSystem = "metric"): string | null {
+  const imperial = system === "imperial";
+  if (unit === "sheets" && unitSize) return `each sheet about ${imperial ? `${trim(m2ToFt2(unitSize), 1)} ft²` : `${trim(unitSize)} m²`}`;
+  if (unit === "bags" && unitSize) {
+    const litres = unitSize / LITRE_M3;
+    return `bags of about ${imperial ? `${trim(lToUsGal(litres), 0)} US gal` : `${trim(litres, 0)} L`}`;
+  }
+  if (unit === "bales") {
+    const parts: string[] = [];
+    if (unitSize) parts.push(imperial ? `${trim(m3ToFt3(unitSize))} ft³` : `${trim(unitSize, 3)} m³`);
+    if (unitMassKg) parts.push(`about ${imperial ? `${trim(kgToLb(unitMassKg), 0)} lb` : `${trim(unitMassKg, 1)} kg`}`);
+    return parts.length ? `bales of ${parts.join(", ")}` : null;
+  }
+  return null;
+}
+
+/** NIST HB44 App. C: 1 mile = 5,280 ft. */
+const MILE_KM = (5280 * FOOT_M) / 1000;
+
+/** "about 400 m" / "about 3.2 km", or miles for imperial readers. */
+export function formatDistance(km: number, system: UnitSystem = "metric"): string {
+  if (system === "imperial") return `about ${(km / MILE_KM).toFixed(1)} mi`;
+  return km < 1 ? `about ${Math.max(100, Math.round(km * 10) * 100)} m` : `about ${km.toFixed(1)} km`;
+}
+
+/** "Free", or the price with its currency, per unit. Fixed locale so server and browser agree. */
+export function formatMoney(cents: number, currency: string): string {
+  return new Intl.NumberFormat("en-GB", { style: "currency", currency: currency.toUpperCase() }).format(cents / 100);
+}
+
+export function formatPrice(cents: number, currency: string, unit: ListingUnit): string {
+  if (cents === 0) return "Free";
+  const per = unit === "sheets" || unit === "bags" || unit === "bales" ? COUNT_WORDS[unit][0] : unit === "m3" ? "m³" : unit === "m2" ? "m²" : "kg";
+  return `${formatMoney(cents, currency)} a ${per}`;
+}
+
+export const WEEKDAYS = ["Sunday", "Monday", "Tuesday", "Wednesday", "Thursday", "Friday", "Saturday"] as const;
+
+export interface WindowView {
+  kind: "weekly" | "dated";
+  weekday?: number | null;
+  start_time?: string | null;
+  end_time?: string | null;
+  starts_at?: string | null;
+  ends_at?: string | null;
+}
+
+/**
+ * "Saturdays 09:00–12:00" or "Sun, 14 Mar 2027, 10:00–13:00". Pickup times are wall-clock
+ * times at the pickup place, weekly and dated alike; dated ones are stored as that wall
+ * clock written in UTC, so they read back exactly as the supplier typed them.
+ */
+export function formatWindow(w: WindowView): string {
+  if (w.kind === "weekly") return `${WEEKDAYS[w.weekday ?? 0]}s ${w.start_time}–${w.end_time}`;
+  const start = new Date(w.starts_at ?? "");
+  const end = new Date(w.ends_at ?? "");
+  const day = new Intl.DateTimeFormat("en-GB", { weekday: "short", day: "numeric", month: "short", year: "numeric", timeZone: "UTC" }).format(start);
+  const time = (d: Date) => new Intl.DateTimeFormat("en-GB", { hour: "2-digit", minute: "2-digit", timeZone: "UTC" }).format(d);
+  return `${day}, ${time(start)}–${time(end)}`;
+}
+
+export function formatDay(iso: string | null): string | null {
+  if (!iso) return null;
+  return new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" }).format(new Date(iso));
+}
+
+export const STATUS_LABELS: Record<string, string> = {
+  draft: "Draft",
+  active: "On offer",
+  paused: "Paused",
+  archived: "Archived",
+  gone: "All taken",
+  expired: "Ended",
+  hidden: "Hidden by a moderator",
+};

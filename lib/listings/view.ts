@@ -1,0 +1,159 @@
+import "server-only";
+// What the world sees of a listing. Every public shape is built here and nowhere else, from
+// the approximate point only; the exact point and address are added in one place, for the
+// people who manage the listing, so a page or route cannot leak them by accident.
+import type { Db } from "@/db/index";
+import { db } from "@/db/index";
+import { organisationNames, suppliersOf } from "@/db/listings";
+import { photosFor } from "@/db/listing-photos";
+import { windowsFor } from "@/db/pickup-windows";
+import { ratingsFor } from "@/db/reviews";
+import type { ListingPhotoRow, ListingRow, ListingStatus, PickupWindowRow } from "@/db/types";
+import type { PublicListingRow } from "@/db/listing-search";
+import { listingCautions, type ListingCaution } from "@/lib/calc/cautions";
+import type { MaterialCode } from "@/lib/calc/facts";
+import { photoUrl, type PhotoSize, type PhotoVariant } from "@/lib/media/photo-urls";
+import type { ListingUnit, QualityInput } from "@/lib/validation/listings";
+import { effectiveStatus, quantityLeft } from "./status";
+
+export interface PublicListingItem {
+  id: string;
+  material: MaterialCode;
+  title: string;
+  quantity_available: number;
+  unit: ListingUnit;
+  /** m² a sheet, m³ a bag or bale; null for m², m³ and kg. */
+  unit_size: number | null;
+  unit_mass_kg: number | null;
+  price_cents: number;
+  currency: string;
+  deposit_cents: number;
+  distance_km: number | null;
+  /** The approximate public point, a stable few hundred metres from the real one. */
+  location: { lat: number; lng: number };
+  supplier: { id: string; name: string; verified: boolean };
+  photos: PhotoVariant[];
+  available_until: string | null;
+}
+
+export type PickupWindowView = Omit<PickupWindowRow, "listing_id">;
+
+export interface ListingDetail extends Omit<PublicListingItem, "supplier"> {
+  status: ListingStatus;
+  description: string;
+  available_from: string | null;
+  max_per_reservation: number | null;
+  auto_accept: boolean;
+  quality: QualityInput;
+  cautions: ListingCaution[];
+  pickup_windows: PickupWindowView[];
+  thumbnails: PhotoVariant[];
+  supplier: PublicListingItem["supplier"] & { rating: { average: number; count: number } | null };
+  created_at: string;
+  updated_at: string;
+}
+
+/** The detail as its owner (or a member of its organisation) sees it. */
+export interface ManagedListingDetail extends ListingDetail {
+  can_manage: true;
+  pickup: { address: string; location: { lat: number; lng: number } };
+  quantity_total: number;
+  quantity_held: number;
+  quantity_collected: number;
+  photo_records: { id: string; public_id: string; width: number; height: number; format: string; url: string }[];
+}
+
+type Row = Pick<
+  ListingRow,
+  | "id" | "owner_id" | "organisation_id" | "material_code" | "title" | "unit" | "unit_size" | "unit_mass_kg"
+  | "quantity_total" | "quantity_held" | "quantity_collected" | "price_cents" | "currency" | "deposit_cents"
+  | "approx_lat" | "approx_lng" | "available_until"
+>;
+
+const photoList = (rows: ListingPhotoRow[] | undefined, size: PhotoSize) => (rows ?? []).map((p) => photoUrl(p, size));
+
+async function suppliersFor(rows: Row[], q: Db) {
+  const [people, orgs] = await Promise.all([
+    suppliersOf(rows.map((r) => r.owner_id), q),
+    organisationNames(rows.map((r) => r.organisation_id ?? ""), q),
+  ]);
+  return (r: Row) => {
+    const person = people.get(r.owner_id) ?? { id: r.owner_id, name: "A Duffbank member", verified: false };
+    // A council's listings are the council's, whichever staff member typed them in.
+    return { ...person, name: (r.organisation_id && orgs.get(r.organisation_id)) || person.name };
+  };
+}
+
+function item(r: Row, supplier: PublicListingItem["supplier"], photos: PhotoVariant[], distanceKm: number | null): PublicListingItem {
+  return {
+    id: r.id,
+    material: r.material_code,
+    title: r.title,
+    quantity_available: quantityLeft(r),
+    unit: r.unit,
+    unit_size: r.unit_size,
+    unit_mass_kg: r.unit_mass_kg,
+    price_cents: r.price_cents,
+    currency: r.currency,
+    deposit_cents: r.deposit_cents,
+    // Shown to 10 m: finer would only suggest a precision the approximate point does not have.
+    distance_km: distanceKm === null ? null : Math.round(distanceKm * 100) / 100,
+    location: { lat: r.approx_lat, lng: r.approx_lng },
+    supplier,
+    photos,
+    available_until: r.available_until,
+  };
+}
+
+/** Browse results as the API and the browse page return them. */
+export async function presentItems(rows: PublicListingRow[], q: Db = db()): Promise<PublicListingItem[]> {
+  const [supplierOf, photos] = await Promise.all([suppliersFor(rows, q), photosFor(rows.map((r) => r.id), q)]);
+  return rows.map((r) => item(r, supplierOf(r), photoList(photos.get(r.id), "card"), r.distance_km));
+}
+
+const windowView = ({ listing_id: _listing, ...w }: PickupWindowRow): PickupWindowView => w;
+
+function parseQuality(text: string): QualityInput {
+  try {
+    const v = JSON.parse(text);
+    return v && typeof v === "object" ? v : {};
+  } catch {
+    return {};
+  }
+}
+
+export async function presentDetail(r: ListingRow, opts: { manage: boolean; now?: Date }, q: Db = db()): Promise<ListingDetail | ManagedListingDetail> {
+  const [supplierOf, photos, windows, ratings] = await Promise.all([
+    suppliersFor([r], q),
+    photosFor([r.id], q),
+    windowsFor([r.id], q),
+    ratingsFor([r.owner_id], q),
+  ]);
+  const quality = parseQuality(r.quality);
+  const photoRows = photos.get(r.id) ?? [];
+  const detail: ListingDetail = {
+    ...item(r, supplierOf(r), photoList(photoRows, "large"), null),
+    supplier: { ...supplierOf(r), rating: ratings.get(r.owner_id) ?? null },
+    status: effectiveStatus(r.status, r.available_until, opts.now),
+    description: r.description,
+    available_from: r.available_from,
+    max_per_reservation: r.max_per_reservation,
+    auto_accept: Boolean(r.auto_accept),
+    quality,
+    cautions: listingCautions({ material: r.material_code, unit: r.unit, unit_mass_kg: r.unit_mass_kg, quality }),
+    pickup_windows: (windows.get(r.id) ?? []).map(windowView),
+    thumbnails: photoList(photoRows, "thumb"),
+    created_at: r.created_at,
+    updated_at: r.updated_at,
+  };
+  if (!opts.manage) return detail;
+  return {
+    ...detail,
+    can_manage: true,
+    pickup: { address: r.address, location: { lat: r.lat, lng: r.lng } },
+    quantity_total: r.quantity_total,
+    quantity_held: r.quantity_held,
+    quantity_collected: r.quantity_collected,
+    photo_records: photoRows.map((p) => ({ id: p.id, public_id: p.public_id, width: p.width, height: p.height, format: p.format, url: photoUrl(p, "thumb").url })),
+  };
+}

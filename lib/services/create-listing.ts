@@ -1,0 +1,63 @@
+import "server-only";
+import { db, newId } from "@/db/index";
+import { insertListing } from "@/db/listings";
+import { insertPhotos } from "@/db/listing-photos";
+import { replaceWindows } from "@/db/pickup-windows";
+import { recordAudit } from "@/db/audit";
+import { ApiError } from "@/lib/api/errors";
+import type { SessionUser } from "@/lib/auth/current-user";
+import { approximatePoint } from "@/lib/geo/approximate";
+import { checkUploadedPhotos } from "@/lib/media/verify-upload";
+import { COUNTED_UNITS, defaultUnitSize, type CreateListingInput } from "@/lib/validation/listings";
+import { listingDates } from "@/lib/listings/dates";
+
+/** Posts a listing with its pickup windows and photos in one transaction: all of it or none. */
+export async function createListing(user: SessionUser, input: CreateListingInput, now: Date = new Date()): Promise<{ id: string }> {
+  // Selling live animals needs the grower role, which a moderator grants after a check.
+  if (input.material === "worms" && !user.roles.includes("grower")) {
+    throw new ApiError("forbidden", "Only worm growers can list live worms. Ask for the role on your profile.");
+  }
+  const dates = listingDates(input.available_from, input.available_until, now, input.status === "active");
+  checkUploadedPhotos(user.id, input.photos);
+
+  const id = newId();
+  const approx = approximatePoint(id, input.location.lat, input.location.lng);
+  const counted = COUNTED_UNITS.includes(input.unit);
+  await db().transaction(async (trx) => {
+    await insertListing(
+      {
+        id,
+        owner_id: user.id,
+        organisation_id: user.organisation?.id ?? null,
+        material_code: input.material,
+        title: input.title,
+        description: input.description,
+        status: input.status,
+        unit: input.unit,
+        unit_size: counted ? (input.unit_size ?? defaultUnitSize(input.unit)) : null,
+        unit_mass_kg: input.unit === "bales" ? (input.unit_mass_kg ?? null) : null,
+        quantity_total: input.quantity,
+        quantity_held: 0,
+        quantity_collected: 0,
+        price_cents: input.price_cents,
+        currency: input.currency,
+        deposit_cents: input.deposit_cents,
+        max_per_reservation: input.max_per_reservation ?? null,
+        auto_accept: input.auto_accept,
+        lat: input.location.lat,
+        lng: input.location.lng,
+        address: input.address,
+        approx_lat: approx.lat,
+        approx_lng: approx.lng,
+        available_from: dates.from,
+        available_until: dates.until,
+        quality: JSON.stringify(input.quality),
+      },
+      trx,
+    );
+    await replaceWindows(id, input.pickup_windows, trx);
+    await insertPhotos(id, input.photos, 0, trx);
+    await recordAudit({ actor_id: user.id, action: "listing.create", subject_type: "listing", subject_id: id, after: { status: input.status, material: input.material } }, trx);
+  });
+  return { id };
+}
