@@ -3,7 +3,8 @@ import { db, type Db } from "./index";
 export interface CollectedRow {
   quantity: number;
   household: string;
-  at: string;
+  /** An ISO string on SQLite; PostgreSQL hands timestamps back as Date. */
+  at: string | Date;
   material_code: string;
   unit: string;
   unit_size: number | null;
@@ -22,13 +23,13 @@ export interface DiversionScope {
 
 /**
  * Collected reservations in listing units, with the listing's unit and size. The month is
- * taken from updated_at, which is when the reservation last changed — for a collected one,
- * its collection. Without a scope: the whole platform.
+ * the reservation's closed_at (set when it is collected), or updated_at for a row written
+ * before that column existed. Without a scope: the whole platform.
  */
 export async function collectedReservations(scope: DiversionScope | null, q: Db = db()): Promise<CollectedRow[]> {
   const query = q("reservations as r")
     .join("listings as l", "l.id", "r.listing_id")
-    .select("r.quantity", "r.gardener_id as household", "r.updated_at as at", "l.material_code", "l.unit", "l.unit_size")
+    .select("r.quantity", "r.gardener_id as household", q.raw("COALESCE(r.closed_at, r.updated_at) as at"), "l.material_code", "l.unit", "l.unit_size")
     .where("r.status", "collected");
   if (scope) {
     query.where((w) => {

@@ -1,4 +1,4 @@
-import { db, nowIso, type Db } from "./index";
+import { db, type Db } from "./index";
 
 // The few listing reads and writes moderation and the home page need. The listings feature
 // owns the rest of the table; browse and match share its rule that only status 'active'
@@ -37,9 +37,4 @@ export async function countVisibleListings(q: Db = db()): Promise<number> {
     .andWhereRaw("quantity_total - quantity_held - quantity_collected > 0")
     .count({ n: "*" });
   return Number(n);
-}
-
-/** Moves a listing from `from` to `to`; 0 when it was not in `from` any more. */
-export async function setListingStatus(id: string, from: string, to: string, q: Db = db()): Promise<number> {
-  return q("listings").where({ id, status: from }).update({ status: to, updated_at: nowIso() });
 }

@@ -19,9 +19,3 @@ export async function pendingRoleRequests(q: Db = db()) {
 export async function findOrganisation(id: string, q: Db = db()): Promise<{ id: string; name: string; kind: string } | undefined> {
   return q("organisations").first("id", "name", "kind").where({ id });
 }
-
-export async function organisationNames(ids: string[], q: Db = db()): Promise<Map<string, string>> {
-  if (!ids.length) return new Map();
-  const rows: { id: string; name: string }[] = await q("organisations").select("id", "name").whereIn("id", [...new Set(ids)]);
-  return new Map(rows.map((r) => [r.id, r.name]));
-}

@@ -70,10 +70,10 @@ export async function createListing(opts: {
 }
 
 /** A reservation row as the reservations feature leaves it (for reports that read them). */
-export async function createReservation(opts: { listing_id: string; gardener_id: string; quantity: number; status: string; updated_at?: string }) {
+export async function createReservation(opts: { listing_id: string; gardener_id: string; quantity: number; status: string; updated_at?: string; closed_at?: string }) {
   const id = newId();
   const at = opts.updated_at ?? nowIso();
-  await db()("reservations").insert({ id, listing_id: opts.listing_id, gardener_id: opts.gardener_id, quantity: opts.quantity, status: opts.status, created_at: at, updated_at: at });
+  await db()("reservations").insert({ id, listing_id: opts.listing_id, gardener_id: opts.gardener_id, quantity: opts.quantity, status: opts.status, created_at: at, updated_at: at, closed_at: opts.closed_at ?? null });
   return { id };
 }
 

@@ -1,6 +1,6 @@
 "use client";
 import { useMemo, useState } from "react";
-import { formatGiveawayQuantity } from "@/lib/format/money";
+import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { wallTime } from "@/lib/time/zoned";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";

@@ -1,7 +1,8 @@
 import Link from "next/link";
 import type { PublicDayView } from "@/lib/services/giveaway-view";
 import { bookingWindowState } from "@/lib/services/giveaway-view";
-import { formatGiveawayQuantity, formatMoney } from "@/lib/format/money";
+import { formatGiveawayQuantity } from "@/lib/format/giveaway";
+import { formatMoney } from "@/lib/payments/money";
 import { longDate, readableDateTime, wallTime } from "@/lib/time/zoned";
 
 export function windowLabel(day: PublicDayView, now: Date): string {

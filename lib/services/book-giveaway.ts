@@ -1,5 +1,6 @@
 import "server-only";
 import { db } from "@/db/index";
+import { isUniqueViolation, writeTransaction } from "@/db/write-transaction";
 import { findDay, findSlot, insertBooking, liveBookingFor, takeSlotPlace } from "@/db/giveaways";
 import { findOrganisation } from "@/db/organisations";
 import { findUserById } from "@/db/users";
@@ -8,7 +9,8 @@ import type { GiveawayBookingRow, GiveawayDayRow, GiveawaySlotRow } from "@/db/t
 import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
 import { giveawayCautions } from "@/lib/calc/cautions";
-import { formatGiveawayQuantity, formatMoney } from "@/lib/format/money";
+import { formatGiveawayQuantity } from "@/lib/format/giveaway";
+import { formatMoney } from "@/lib/payments/money";
 import { bookingParts, giveawayBookedEmail } from "@/lib/mail/templates/giveaway";
 import { readableDateTime } from "@/lib/time/zoned";
 import { bookingWindowState, cancelDeadline } from "./giveaway-view";
@@ -48,7 +50,7 @@ export async function bookGiveaway(userId: string, dayId: string, input: BookInp
   if (await liveBookingFor(dayId, userId)) throw householdLimit();
   if (slot.booked >= slot.capacity) throw slotFull();
 
-  const booking = await db().transaction(async (trx) => {
+  const booking = await writeTransaction(db(), async (trx) => {
     // The conditional UPDATE is the transaction's first statement, so on SQLite it takes the
     // write lock before anything is read, and on PostgreSQL it locks the slot row.
     if (!(await takeSlotPlace(slot.id, dayId, trx))) throw slotFull();
@@ -60,7 +62,7 @@ export async function bookGiveaway(userId: string, dayId: string, input: BookInp
         trx,
       );
     } catch (err) {
-      if (/unique|duplicate/i.test(String((err as Error).message))) throw householdLimit();
+      if (isUniqueViolation(err)) throw householdLimit();
       throw err;
     }
     await enqueueBookedEmail(day, slot, row, trx);

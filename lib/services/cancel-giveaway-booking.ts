@@ -1,5 +1,6 @@
 import "server-only";
 import { db } from "@/db/index";
+import { writeTransaction } from "@/db/write-transaction";
 import { findBooking, findDay, findSlot, releaseSlotPlace, setBookingStatus } from "@/db/giveaways";
 import { findOrganisation } from "@/db/organisations";
 import { findUserById } from "@/db/users";
@@ -22,7 +23,7 @@ export async function cancelGiveawayBooking(userId: string, dayId: string, booki
   if (clock().getTime() > deadline.getTime()) {
     throw new ApiError("invalid_state", `Bookings for this day can be cancelled until ${day.cancel_cutoff_hours} hours before the slot (${readableDateTime(deadline.toISOString(), day.time_zone)}). Please tell the council if you cannot come.`);
   }
-  return db().transaction(async (trx) => {
+  return writeTransaction(db(), async (trx) => {
     const changed = await setBookingStatus(
       { id: bookingId, user_id: userId },
       ["booked"],

@@ -1,11 +1,12 @@
 import "server-only";
 import { db } from "@/db/index";
+import { writeTransaction } from "@/db/write-transaction";
 import { cancelOrgDay, findOrgDay, recountSlots, setBookingStatus, sheetFor, slotsOf } from "@/db/giveaways";
 import { enqueueEmail } from "@/db/outbox";
 import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
-import { formatMoney } from "@/lib/format/money";
+import { formatMoney } from "@/lib/payments/money";
 import { bookingParts, giveawayDayCancelledEmail } from "@/lib/mail/templates/giveaway";
 import { staffDayView } from "./giveaway-view";
 import { DEPOSIT_NOT_TAKEN_NOTE } from "./book-giveaway";
@@ -13,7 +14,7 @@ import type { CouncilContext } from "./council-access";
 
 /** Calls a day off: every live booking is cancelled, its deposit released, its household e-mailed — all or nothing. */
 export async function cancelGiveaway(ctx: CouncilContext, dayId: string, reason: string, clock: () => Date = () => new Date()) {
-  return db().transaction(async (trx) => {
+  return writeTransaction(db(), async (trx) => {
     if (!(await cancelOrgDay(dayId, ctx.organisationId, reason, trx))) {
       if (!(await findOrgDay(dayId, ctx.organisationId, trx))) throw notFound("That giveaway day");
       throw new ApiError("invalid_state", "That day is already cancelled.");

@@ -1,5 +1,6 @@
 import "server-only";
 import { db } from "@/db/index";
+import { writeTransaction } from "@/db/write-transaction";
 import { deleteEmptySlot, findSlot, insertSlots, resizeSlot, slotsOf } from "@/db/giveaways";
 import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
@@ -10,7 +11,7 @@ import { scheduledOrgDay } from "./update-giveaway";
 import type { CouncilContext } from "./council-access";
 
 export async function addGiveawaySlots(ctx: CouncilContext, dayId: string, slots: SlotInput[]): Promise<SlotView[]> {
-  return db().transaction(async (trx) => {
+  return writeTransaction(db(), async (trx) => {
     const day = await scheduledOrgDay(ctx, dayId, trx);
     const ids = await insertSlots(dayId, slotInstants(day.date, day.time_zone, slots), trx);
     const added = (await slotsOf([dayId], trx)).filter((s) => ids.includes(s.id));
@@ -20,7 +21,7 @@ export async function addGiveawaySlots(ctx: CouncilContext, dayId: string, slots
 }
 
 export async function resizeGiveawaySlot(ctx: CouncilContext, dayId: string, slotId: string, capacity: number): Promise<SlotView> {
-  return db().transaction(async (trx) => {
+  return writeTransaction(db(), async (trx) => {
     await scheduledOrgDay(ctx, dayId, trx);
     const before = await findSlot(slotId, dayId, trx);
     if (!before) throw notFound("That slot");
@@ -34,7 +35,7 @@ export async function resizeGiveawaySlot(ctx: CouncilContext, dayId: string, slo
 }
 
 export async function removeGiveawaySlot(ctx: CouncilContext, dayId: string, slotId: string): Promise<void> {
-  await db().transaction(async (trx) => {
+  await writeTransaction(db(), async (trx) => {
     await scheduledOrgDay(ctx, dayId, trx);
     const before = await findSlot(slotId, dayId, trx);
     if (!before) throw notFound("That slot");

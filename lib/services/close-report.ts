@@ -1,5 +1,6 @@
 import "server-only";
 import { db } from "@/db/index";
+import { writeTransaction } from "@/db/write-transaction";
 import { closeReportRow, findReport } from "@/db/reports";
 import { findListingBrief } from "@/db/listing-status";
 import { findUserById } from "@/db/users";
@@ -20,7 +21,7 @@ const ACTION_WORDS: Record<string, string> = {
 
 /** Closes a report with a note and tells the reporter the outcome, through the outbox, in one transaction. */
 export async function closeReport(moderatorId: string, reportId: string, note: string) {
-  return db().transaction(async (trx) => {
+  return writeTransaction(db(), async (trx) => {
     const report = await findReport(reportId, trx);
     if (!report) throw notFound("That report");
     if (!(await closeReportRow(reportId, moderatorId, note, trx))) throw new ApiError("invalid_state", "That report is already closed.");

@@ -1,5 +1,6 @@
 import "server-only";
 import { db, newId } from "@/db/index";
+import { writeTransaction } from "@/db/write-transaction";
 import { insertDay, insertSlots, slotsOf, findDay } from "@/db/giveaways";
 import { recordAudit } from "@/db/audit";
 import { ApiError } from "@/lib/api/errors";
@@ -31,7 +32,7 @@ export async function createGiveaway(ctx: CouncilContext, input: CreateGiveawayI
   }
   const id = newId();
   const approx = approximatePoint(id, input.location.lat, input.location.lng);
-  return db().transaction(async (trx) => {
+  return writeTransaction(db(), async (trx) => {
     await insertDay(
       {
         id,

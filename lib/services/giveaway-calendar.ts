@@ -2,7 +2,7 @@ import { createHmac, timingSafeEqual } from "node:crypto";
 import { createEvents, type DateArray } from "ics";
 import { AUTH_SECRET } from "@/lib/auth/config";
 import { ApiError } from "@/lib/api/errors";
-import { formatGiveawayQuantity } from "@/lib/format/money";
+import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 
 // The calendar link in a booking e-mail must open in a calendar app that has no Duffbank
 // session, so it carries a token tied to the booking instead (keyed with the session secret).

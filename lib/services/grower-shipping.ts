@@ -1,5 +1,6 @@
 import "server-only";
 import { db } from "@/db/index";
+import { writeTransaction } from "@/db/write-transaction";
 import { findShipping, saveShipping, updateWormQuality, wormListingsOf } from "@/db/grower-shipping";
 import { recordAudit } from "@/db/audit";
 import { notFound } from "@/lib/api/errors";
@@ -34,7 +35,7 @@ export async function growerShipping(userId: string): Promise<ShippingView> {
 }
 
 export async function saveGrowerShipping(userId: string, input: ShippingInput): Promise<ShippingView> {
-  return db().transaction(async (trx) => {
+  return writeTransaction(db(), async (trx) => {
     const before = await findShipping(userId, trx);
     const row = {
       user_id: userId,
@@ -86,7 +87,7 @@ export async function cultureStock(userId: string): Promise<CultureStock[]> {
 }
 
 export async function saveCulture(userId: string, listingId: string, input: CultureInput) {
-  return db().transaction(async (trx) => {
+  return writeTransaction(db(), async (trx) => {
     const listing = (await wormListingsOf(userId, trx)).find((l) => l.id === listingId);
     if (!listing) throw notFound("That worm listing");
     const before = safeJson(listing.quality);

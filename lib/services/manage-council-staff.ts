@@ -1,6 +1,7 @@
 import "server-only";
 import { createHash, randomBytes } from "node:crypto";
 import { db } from "@/db/index";
+import { writeTransaction } from "@/db/write-transaction";
 import { addMembership, closeInvites, findInviteByTokenHash, findOrgInvite, insertInvite, pendingInvites, removeMembership } from "@/db/invites";
 import { findOrganisation } from "@/db/organisations";
 import { findUserByEmail, membershipsOf, normaliseEmail, removeRole, setRole } from "@/db/users";
@@ -41,7 +42,7 @@ export async function inviteStaff(ctx: CouncilContext, inviterName: string, rawE
   const token = randomBytes(32).toString("base64url");
   const now = clock();
   const expires_at = new Date(now.getTime() + INVITE_TTL_DAYS * 86_400_000).toISOString();
-  return db().transaction(async (trx) => {
+  return writeTransaction(db(), async (trx) => {
     // A new invitation replaces any still waiting for the same address.
     await closeInvites({ organisation_id: ctx.organisationId, email }, "revoked", {}, trx);
     const invite = await insertInvite({ organisation_id: ctx.organisationId, email, token_hash: hashToken(token), invited_by: ctx.userId, expires_at }, trx);
@@ -62,7 +63,7 @@ export async function listInvites(ctx: CouncilContext, clock: () => Date = () =>
 }
 
 export async function revokeInvite(ctx: CouncilContext, inviteId: string): Promise<InviteView> {
-  return db().transaction(async (trx) => {
+  return writeTransaction(db(), async (trx) => {
     const before = await findOrgInvite(inviteId, ctx.organisationId, trx);
     if (!before) throw notFound("That invitation");
     if (!(await closeInvites({ id: inviteId, organisation_id: ctx.organisationId }, "revoked", {}, trx))) {
@@ -95,7 +96,7 @@ export async function acceptInvite(user: { id: string; email: string }, token: s
   if (Date.parse(invite.expires_at) <= clock().getTime()) throw new ApiError("invalid_state", "This invitation has expired. Ask for a new one.");
   const orgs = await membershipsOf(user.id);
   if (orgs.some((m) => m.organisation_id !== invite.organisation_id)) throw new ApiError("conflict", "Your account already belongs to another organisation.");
-  return db().transaction(async (trx) => {
+  return writeTransaction(db(), async (trx) => {
     const now = clock().toISOString();
     if (!(await closeInvites({ id: invite.id, organisation_id: invite.organisation_id }, "accepted", { accepted_by: user.id, accepted_at: now }, trx))) {
       throw new ApiError("invalid_state", "This invitation has just been used or withdrawn.");
@@ -113,7 +114,7 @@ export async function acceptInvite(user: { id: string; email: string }, token: s
 /** The owner removes a staff member: the membership goes, and the council role with it. */
 export async function removeStaff(ctx: CouncilContext, userId: string) {
   if (userId === ctx.userId) throw new ApiError("invalid_state", "You cannot remove yourself; the account owner stays.");
-  return db().transaction(async (trx) => {
+  return writeTransaction(db(), async (trx) => {
     const member = (await membershipsOf(userId, trx)).find((m) => m.organisation_id === ctx.organisationId);
     if (!member) throw notFound("That staff member");
     if (member.org_role === "owner") throw new ApiError("invalid_state", "The account owner cannot be removed.");

@@ -1,7 +1,10 @@
 import "server-only";
 import { db } from "@/db/index";
+import { writeTransaction } from "@/db/write-transaction";
 import { findUserById, rolesOf, updateUser } from "@/db/users";
-import { findListingBrief, setListingStatus } from "@/db/listing-status";
+import { findListingBrief } from "@/db/listing-status";
+import { moveStatus } from "@/db/listings";
+import type { ListingStatus } from "@/db/types";
 import { lastAudit, recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { LISTING_ROLES } from "@/lib/auth/roles";
@@ -13,10 +16,10 @@ export type ListingAction = "hide" | "restore";
 export type UserAction = "suspend" | "restore" | "verify" | "unverify";
 
 export async function moderateListing(moderatorId: string, listingId: string, action: ListingAction, note: string, reportId?: string) {
-  return db().transaction(async (trx) => {
+  return writeTransaction(db(), async (trx) => {
     const before = await findListingBrief(listingId, trx);
     if (!before) throw notFound("That listing");
-    let to: string;
+    let to: ListingStatus;
     if (action === "hide") {
       if (before.status === "hidden") throw new ApiError("invalid_state", "That listing is already hidden.");
       to = "hidden";
@@ -24,10 +27,10 @@ export async function moderateListing(moderatorId: string, listingId: string, ac
       if (before.status !== "hidden") throw new ApiError("invalid_state", "That listing is not hidden.");
       // Back to what it was before it was hidden; paused when that is unknown, so its owner decides.
       const hid = await lastAudit("listing", listingId, "listing.hide", trx);
-      const was = hid?.before ? (JSON.parse(hid.before) as { status?: string }).status : undefined;
+      const was = hid?.before ? (JSON.parse(hid.before) as { status?: ListingStatus }).status : undefined;
       to = was && was !== "hidden" ? was : "paused";
     }
-    if (!(await setListingStatus(listingId, before.status, to, trx))) throw new ApiError("invalid_state", "That listing has just changed; reload and try again.");
+    if (!(await moveStatus(listingId, [before.status as ListingStatus], to, trx))) throw new ApiError("invalid_state", "That listing has just changed; reload and try again.");
     await recordAudit(
       { actor_id: moderatorId, action: `listing.${action}`, subject_type: "listing", subject_id: listingId, before: { status: before.status, title: before.title }, after: { status: to, note, report_id: reportId ?? null } },
       trx,
@@ -40,7 +43,7 @@ export async function moderateUser(moderatorId: string, userId: string, action: 
   if (userId === moderatorId && (action === "suspend" || action === "verify")) {
     throw new ApiError("invalid_state", "Another moderator has to do that for your own account.");
   }
-  return db().transaction(async (trx) => {
+  return writeTransaction(db(), async (trx) => {
     const user = await findUserById(userId, trx);
     if (!user) throw notFound("That person");
     const now = clock().toISOString();

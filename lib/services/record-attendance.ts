@@ -1,5 +1,6 @@
 import "server-only";
 import { db } from "@/db/index";
+import { writeTransaction } from "@/db/write-transaction";
 import { findBooking, findOrgDay, setBookingStatus } from "@/db/giveaways";
 import { recordAudit } from "@/db/audit";
 import type { GiveawayBookingRow } from "@/db/types";
@@ -14,7 +15,7 @@ type Attendance = "checked_in" | "booked" | "no_show";
  * on arrival, "forfeit" on a no-show — as a record only, since none is taken yet.
  */
 export async function recordAttendance(ctx: CouncilContext, dayId: string, bookingId: string, status: Attendance, clock: () => Date = () => new Date()) {
-  return db().transaction(async (trx) => {
+  return writeTransaction(db(), async (trx) => {
     const day = await findOrgDay(dayId, ctx.organisationId, trx);
     if (!day) throw notFound("That giveaway day");
     const before = await findBooking(bookingId, trx);

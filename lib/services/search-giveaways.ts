@@ -1,7 +1,7 @@
 import "server-only";
 import { distance, point } from "@turf/turf";
 import { slotsOf, upcomingDays } from "@/db/giveaways";
-import { organisationNames } from "@/db/organisations";
+import { organisationNames } from "@/db/listings";
 import { addDays, localDate } from "@/lib/time/zoned";
 import { publicDayView, type PublicDayView } from "./giveaway-view";
 

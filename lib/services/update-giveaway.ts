@@ -1,5 +1,6 @@
 import "server-only";
 import { db } from "@/db/index";
+import { writeTransaction } from "@/db/write-transaction";
 import { findOrgDay, shiftSlots, slotsOf, updateOrgDay } from "@/db/giveaways";
 import { recordAudit } from "@/db/audit";
 import type { GiveawayDayRow } from "@/db/types";
@@ -23,7 +24,7 @@ export async function scheduledOrgDay(ctx: CouncilContext, dayId: string, trx: P
 }
 
 export async function updateGiveaway(ctx: CouncilContext, dayId: string, input: UpdateGiveawayInput, clock: () => Date = () => new Date()) {
-  return db().transaction(async (trx) => {
+  return writeTransaction(db(), async (trx) => {
     const before = await scheduledOrgDay(ctx, dayId, trx);
     const slots = await slotsOf([dayId], trx);
     const booked = slots.reduce((n, s) => n + s.booked, 0);

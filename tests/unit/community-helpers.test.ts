@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { toCsv } from "@/lib/format/csv";
-import { formatGiveawayQuantity, formatMoney } from "@/lib/format/money";
+import { formatGiveawayQuantity } from "@/lib/format/giveaway";
+import { formatMoney } from "@/lib/payments/money";
 import { addDays, localDate, wallTime, zonedToUtc } from "@/lib/time/zoned";
 import { bookingWindowState, cancelDeadline } from "@/lib/services/giveaway-view";
 

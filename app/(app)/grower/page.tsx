@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
 import { cultureStock, growerShipping } from "@/lib/services/grower-shipping";
-import { formatMoney } from "@/lib/format/money";
+import { formatMoney } from "@/lib/payments/money";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";
 import { ShippingForm } from "@/components/grower/shipping-form";

@@ -3,7 +3,7 @@ import type { Metadata } from "next";
 import { currentUser } from "@/lib/auth/current-user";
 import { searchGiveaways } from "@/lib/services/search-giveaways";
 import { bookingsOf } from "@/db/giveaways";
-import { formatGiveawayQuantity } from "@/lib/format/money";
+import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { addDays, longDate, wallTime } from "@/lib/time/zoned";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { DayCard } from "@/components/giveaways/day-card";

@@ -1,5 +1,5 @@
 import { renderEmail } from "../layout";
-import { formatGiveawayQuantity } from "@/lib/format/money";
+import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { longDate, wallTime } from "@/lib/time/zoned";
 
 export interface BookingParts {

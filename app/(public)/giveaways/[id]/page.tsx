@@ -5,7 +5,7 @@ import { ApiError } from "@/lib/api/errors";
 import { giveawayForVisitor } from "@/lib/services/giveaway-for-visitor";
 import { bookingWindowState } from "@/lib/services/giveaway-view";
 import { giveawayCautions } from "@/lib/calc/cautions";
-import { formatGiveawayQuantity } from "@/lib/format/money";
+import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { longDate, wallTime } from "@/lib/time/zoned";
 import { PageHeading } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";

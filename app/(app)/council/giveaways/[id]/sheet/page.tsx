@@ -2,7 +2,7 @@ import Link from "next/link";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
 import { sheetForPage } from "@/lib/services/council-day-page";
-import { formatGiveawayQuantity } from "@/lib/format/money";
+import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { longDate, wallTime } from "@/lib/time/zoned";
 import { buttonClass } from "@/components/ui/button";
 import { PrintButton } from "@/components/giveaways/print-button";
