@@ -118,19 +118,21 @@ test("council staff create a day with slots, a gardener books, staff check them 
   await gardener.close();
 });
 
-test("a moderator hides a reported listing and it is gone from the public listing query", async ({ browser }) => {
-  // The browse page belongs to the listings work; here the public figure that counts active
-  // listings (the same status filter browse and match use) and the listing's own report page show it.
+test("a moderator hides a reported listing and it is gone from browse", async ({ browser }) => {
   const listingId = seedId("listing-1");
   const visitor = await browser.newContext();
   const home = await visitor.newPage();
   await home.goto("/");
   const before = Number(await home.getByTestId("on-offer").textContent());
   expect(before).toBeGreaterThan(30);
+  await home.goto("/browse?q=oak");
+  await expect(home.locator(`#listing-${listingId}`)).toBeVisible();
 
+  // A gardener reports it from the listing's page.
   const gardener = await browser.newContext({ storageState: storageState("gardener") });
   const g = await gardener.newPage();
-  await g.goto(`/report?listing=${listingId}`);
+  await g.goto(`/listings/${listingId}`);
+  await g.getByRole("link", { name: "Report a problem with this listing" }).click();
   await g.getByLabel(/Contaminated material/).check();
   await g.getByLabel("What happened").fill("Three of the bags were full of crisp packets and a broken bottle.");
   await g.screenshot({ path: shot("report-form"), fullPage: true });
@@ -152,8 +154,12 @@ test("a moderator hides a reported listing and it is gone from the public listin
   await card.getByRole("button", { name: "Close the report" }).click();
   await expect(m.locator("[data-report]").filter({ hasText: "broken bottle" })).toHaveCount(0);
 
-  // Gone from the public count, and the reporter hears the outcome.
-  await home.reload();
+  // Gone from browse, the listing page and the public count; the reporter hears the outcome.
+  await home.goto("/browse?q=oak");
+  await expect(home.locator("article").first()).toBeVisible();
+  await expect(home.locator(`#listing-${listingId}`)).toHaveCount(0);
+  expect((await home.goto(`/listings/${listingId}`))?.status()).toBe(404);
+  await home.goto("/");
   await expect(home.getByTestId("on-offer")).toHaveText(String(before - 1));
   const outcome = await mailTo(g.request, DEMO.gardener.email, "outcome");
   expect(outcome.text).toContain("We hid the listing and wrote to the supplier.");

@@ -12,6 +12,8 @@ import * as listingMod from "@/app/api/moderation/listings/[id]/route";
 import * as userMod from "@/app/api/moderation/users/[id]/route";
 import * as audit from "@/app/api/moderation/audit/route";
 import { countVisibleListings, findVisibleListing } from "@/db/listing-status";
+import * as browse from "@/app/api/listings/route";
+import * as listingDetail from "@/app/api/listings/[id]/route";
 import { authOptions } from "@/lib/auth/options";
 import { hashPassword } from "@/lib/auth/password";
 import { REPORTS_PER_DAY } from "@/lib/services/file-report";
@@ -86,19 +88,39 @@ describe("the moderator queue", () => {
   });
 });
 
+/** Every listing id browse returns near the test listings, page after page. */
+async function browsed(): Promise<string[]> {
+  const ids: string[] = [];
+  let cursor: string | null = null;
+  do {
+    const res = await call(browse.GET as never, await request(`/api/listings?lat=52.2&lng=0.85&radius_km=5&limit=50${cursor ? `&cursor=${cursor}` : ""}`));
+    expect(res.status).toBe(200);
+    ids.push(...res.json.items.map((i: { id: string }) => i.id));
+    cursor = res.json.next_cursor;
+  } while (cursor);
+  return ids;
+}
+
 describe("hiding a listing", () => {
   it("takes it out of every public listing query, and restoring brings it back", async () => {
     const visibleBefore = await countVisibleListings();
     expect(await findVisibleListing(listing)).toBeTruthy();
+    expect(await browsed()).toContain(listing);
+    expect((await call(listingDetail.GET as never, await request(`/api/listings/${listing}`), { id: listing })).status).toBe(200);
     const res = await modListing(p.mod, listing, { action: "hide", note: "Contaminated with litter, per two reports." });
     expect(res.status).toBe(200);
     expect(res.json.listing.status).toBe("hidden");
     expect(await findVisibleListing(listing)).toBeUndefined();
     expect(await countVisibleListings()).toBe(visibleBefore - 1);
+    // Browse (GET /api/listings, the listings work's own query) and the detail page's route
+    // leave it out too; before hiding, both had it.
+    expect(await browsed()).not.toContain(listing);
+    expect((await call(listingDetail.GET as never, await request(`/api/listings/${listing}`), { id: listing })).status).toBe(404);
     expect((await modListing(p.mod, listing, { action: "hide", note: "Again." })).status).toBe(409);
     const back = await modListing(p.mod, listing, { action: "restore", note: "Owner cleaned the bags." });
     expect(back.json.listing.status).toBe("active");
     expect(await countVisibleListings()).toBe(visibleBefore);
+    expect(await browsed()).toContain(listing);
     await modListing(p.mod, listing, { action: "hide", note: "Hidden again for the report below." });
   });
   it("is for moderators only, with a note, on a listing that exists", async () => {
