@@ -1,5 +1,6 @@
 // Wall-clock times in a named zone (a giveaway day's "09:30 in Fernhollow") to and from
 // UTC instants, with the zone database built into Intl: no date library needed.
+import { zonedTime } from "@/lib/reservations/pickup-times";
 
 /** Where the demo and a new council day default to (the invented town sits in England). */
 export const DEFAULT_TIME_ZONE = "Europe/London";
@@ -13,31 +14,10 @@ export function isTimeZone(tz: string): boolean {
   }
 }
 
-/** How far the zone's wall clock is ahead of UTC at `instant`, in ms. */
-function offsetMs(instant: Date, tz: string): number {
-  const parts = new Intl.DateTimeFormat("en-US", {
-    timeZone: tz,
-    hourCycle: "h23",
-    year: "numeric",
-    month: "2-digit",
-    day: "2-digit",
-    hour: "2-digit",
-    minute: "2-digit",
-    second: "2-digit",
-  }).formatToParts(instant);
-  const get = (type: string) => Number(parts.find((p) => p.type === type)?.value);
-  const asUtc = Date.UTC(get("year"), get("month") - 1, get("day"), get("hour"), get("minute"), get("second"));
-  return asUtc - Math.floor(instant.getTime() / 1000) * 1000;
-}
-
-/** The UTC instant of `time` (HH:MM) on `date` (YYYY-MM-DD) in `tz`. */
+/** The UTC instant of `time` (HH:MM) on `date` (YYYY-MM-DD) in `tz`; the reservations' converter does the work. */
 export function zonedToUtc(date: string, time: string, tz: string): Date {
   const [y, m, d] = date.split("-").map(Number);
-  const [hh, mm] = time.split(":").map(Number);
-  const wall = Date.UTC(y, m - 1, d, hh, mm);
-  // Two passes settle the offset on either side of a clock change.
-  const first = wall - offsetMs(new Date(wall), tz);
-  return new Date(wall - offsetMs(new Date(first), tz));
+  return zonedTime(y, m, d, time, tz);
 }
 
 /** HH:MM of an instant on the zone's wall clock. */
