@@ -1,3 +1,4 @@
+import Link from "next/link";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
 import { cultureStock, growerShipping } from "@/lib/services/grower-shipping";
@@ -57,9 +58,9 @@ export default async function GrowerPage() {
       </Panel>
 
       <Panel id="orders" title="Open orders">
-        <EmptyState title="Orders are not built yet">
-          Paid worm orders (paid → packed → shipped → delivered, with the care sheet by e-mail) arrive with the payments work. Until then nothing is sold
-          through this page.
+        <EmptyState title="Posted orders are not built yet" action={<Link href="/requests" className="font-semibold text-moss-700 underline underline-offset-4">Reservations of your cultures</Link>}>
+          Orders that follow a parcel (packed → shipped → delivered, with the care sheet by e-mail) come in a later step. Until then, people reserve and pay for
+          a culture like any listing, and you find them under Requests.
         </EmptyState>
       </Panel>
     </div>
