@@ -2,6 +2,7 @@ import type { Knex } from "knex";
 import * as core from "../migrations/20261201_001_core";
 import * as reviews from "../migrations/20261201_002_reviews";
 import * as listingSearch from "../migrations/20261201_003_listing_search";
+import * as listingUnitPrice from "../migrations/20261201_004_listing_unit_price";
 import * as reservations from "../migrations/20261201_005_reservations";
 import * as community from "../migrations/20261201_006_community";
 
@@ -11,6 +12,7 @@ const migrations: Record<string, Knex.Migration> = {
   "20261201_001_core": core,
   "20261201_002_reviews": reviews,
   "20261201_003_listing_search": listingSearch,
+  "20261201_004_listing_unit_price": listingUnitPrice,
   "20261201_005_reservations": reservations,
   "20261201_006_community": community,
 };

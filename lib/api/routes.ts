@@ -29,6 +29,7 @@ import { acceptInviteSchema, inviteSchema } from "@/lib/validation/council";
 import { auditQuerySchema, closeReportSchema, listingModerationSchema, reportQueueQuerySchema, reportSchema, userModerationSchema } from "@/lib/validation/moderation";
 import { diversionQuerySchema } from "@/lib/validation/reports";
 import { cultureSchema, shippingSchema } from "@/lib/validation/grower";
+import { matchSchema } from "@/lib/validation/match";
 
 export interface RouteDoc {
   method: "get" | "post" | "patch" | "put" | "delete";
@@ -63,6 +64,7 @@ export const API_ROUTES: RouteDoc[] = [
   { method: "delete", path: "/api/listings/{id}/photos", summary: "Remove a photo", tag: "listings", auth: ["supplier", "grower", "council"], body: removePhotoSchema, errors: [400, 401, 403, 404, 422] },
   { method: "patch", path: "/api/listings/{id}/photos", summary: "Reorder photos; the first is the cover", tag: "listings", auth: ["supplier", "grower", "council"], body: reorderPhotosSchema, errors: [400, 401, 403, 404, 422] },
   { method: "post", path: "/api/media/sign", summary: "Sign one browser upload of a listing photo", tag: "listings", auth: ["supplier", "grower", "council"], errors: [401, 403] },
+  { method: "post", path: "/api/match", summary: "Plan pickups: nearby listings that cover needs or a saved bed, in visiting order and carloads", tag: "matching", auth: "public", body: matchSchema, errors: [400, 401, 404, 422] },
   { method: "post", path: "/api/moderation/role-requests/{userId}", summary: "Approve or refuse a requested role", tag: "moderation", auth: ["moderator"], body: roleDecisionSchema, errors: [400, 401, 403, 404, 409, 422] },
   { method: "post", path: "/api/estimate", summary: "Quantities, water, C:N, timeline and cautions for a bed", tag: "planning", auth: "public", body: estimateSchema, errors: [400, 422] },
   { method: "post", path: "/api/blend", summary: "C:N and moisture of a mix, and water to a target", tag: "planning", auth: "public", body: blendSchema, errors: [400, 422] },

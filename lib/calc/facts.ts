@@ -12,6 +12,8 @@ export const INCH_M = 0.0254;
 /** NIST HB44 App. C: 1 foot = 12 inches; 1 yard = 3 feet. */
 export const INCHES_PER_FOOT = 12;
 export const FEET_PER_YARD = 3;
+/** NIST HB44 App. C: 1 (statute) mile = 5,280 feet. */
+export const FEET_PER_MILE = 5280;
 /** NIST HB44 App. C: 1 US liquid gallon = 231 cubic inches exactly. */
 export const US_GALLON_IN3 = 231;
 /** NIST HB44 App. C: 1 avoirdupois pound = 0.45359237 kg exactly. */
@@ -307,3 +309,19 @@ export const TOP_UP_SEASONS = {
 } as const;
 /** A top-up within a month of building only repeats the build (common practice, no source). */
 export const TOP_UP_MIN_DAYS_AFTER_BUILD = 30;
+
+// ---------------------------------------------------------------------------------------
+// Carrying material home
+// ---------------------------------------------------------------------------------------
+
+/**
+ * Single-wall corrugated board is about 4 mm thick (C flute; from memory), so a flat stack
+ * of it takes 4 L per m². Used only to size a car load.
+ */
+export const CARDBOARD_THICKNESS_M = 0.004;
+
+/**
+ * What a small car carries: a hatchback's boot holds about 300–400 L with the rear seats up,
+ * and after the driver about 300 kg of payload is left (from memory). Overridable per plan.
+ */
+export const SMALL_CAR_LOAD = { load_l: 400, load_kg: 300 } as const;

@@ -1,14 +1,15 @@
 // Everything is stored and computed in SI; this is the one place that turns it into what a
 // gardener reads. Every factor comes from the exact NIST definitions in facts.ts.
-import { FOOT_M, INCH_M, LITRE_M3, POUND_KG, US_GALLON_M3, YARD_M } from "./facts";
+import { FEET_PER_MILE, FOOT_M, INCH_M, LITRE_M3, POUND_KG, US_GALLON_M3, YARD_M } from "./facts";
 
 export type UnitSystem = "metric" | "imperial";
-export type DisplayUnit = "m" | "m2" | "m3" | "cm" | "l" | "kg";
+export type DisplayUnit = "m" | "km" | "m2" | "m3" | "cm" | "l" | "kg";
 
 const FT3_M3 = FOOT_M ** 3;
 const YD3_M3 = YARD_M ** 3;
 
 export const mToFt = (m: number) => m / FOOT_M;
+export const kmToMi = (km: number) => (km * 1000) / (FEET_PER_MILE * FOOT_M);
 export const ftToM = (ft: number) => ft * FOOT_M;
 export const m2ToFt2 = (m2: number) => m2 / FOOT_M ** 2;
 export const ft2ToM2 = (ft2: number) => ft2 * FOOT_M ** 2;
@@ -33,6 +34,8 @@ export function toDisplay(
   switch (unit) {
     case "m":
       return { value: mToFt(value), symbol: "ft" };
+    case "km":
+      return { value: kmToMi(value), symbol: "mi" };
     case "m2":
       return { value: m2ToFt2(value), symbol: "ft²" };
     case "cm":
@@ -51,6 +54,7 @@ export function toDisplay(
 
 const METRIC_SYMBOL: Record<DisplayUnit, string> = {
   m: "m",
+  km: "km",
   m2: "m²",
   m3: "m³",
   cm: "cm",

@@ -6,6 +6,7 @@ import {
   ftToM,
   inToCm,
   kgToLb,
+  kmToMi,
   lbToKg,
   lToUsGal,
   m2ToFt2,
@@ -48,6 +49,7 @@ describe("conversions against NIST HB44 Appendix C", () => {
     expect(cmToIn(2.54)).toBeCloseTo(1, 12);
     expect(kgToLb(0.45359237)).toBeCloseTo(1, 12);
     expect(lbToKg(51)).toBeCloseTo(23.133, 3); // NIOSH 51 lb
+    expect(kmToMi(1.609344)).toBeCloseTo(1, 12); // NIST HB44: 1 mile = 5,280 ft = 1,609.344 m
     expect(m3ToYd3(0.764554857984)).toBeCloseTo(1, 12);
   });
 
@@ -76,6 +78,8 @@ describe("formatQuantity", () => {
     expect(formatQuantity(23, "kg", "imperial")).toBe("50.7 lb"); // 23 / 0.45359237 = 50.71
     expect(formatQuantity(3.785411784, "l", "imperial")).toBe("1 US gal");
     expect(formatQuantity(10, "m2", "imperial")).toBe("108 ft²"); // 107.64
+    expect(formatQuantity(11.2, "km", "imperial")).toBe("6.96 mi"); // 11.2 / 1.609344 = 6.959
+    expect(formatQuantity(11.2, "km", "metric")).toBe("11.2 km");
   });
 
   it("uses cubic feet below a cubic yard and cubic yards from one up", () => {

@@ -1,0 +1,122 @@
+"use client";
+import Link from "next/link";
+import { useState } from "react";
+import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
+import { formatQuantity, type UnitSystem } from "@/lib/calc/units";
+import { DEFAULT_RADIUS_KM, MAX_RADIUS_KM } from "@/lib/match/defaults";
+import type { LatLng, Need } from "@/lib/match/types";
+import { matchSchema, needsToParam, type MatchRequest } from "@/lib/validation/match";
+import { DEFAULT_CENTER } from "@/components/map/types";
+import { Button, buttonClass } from "@/components/ui/button";
+import { Spinner } from "@/components/ui/empty-state";
+import { Field } from "@/components/ui/field";
+import { Notice } from "@/components/ui/notice";
+import { PickupPlan } from "./pickup-plan";
+import { PlanMap } from "./plan-map";
+import { replaceNeed } from "./replace-need";
+import { UnitToggle } from "./unit-toggle";
+import { useMatch } from "./use-match";
+
+/** "Find materials" for a saved bed: its own needs and point, a radius to try, and the plan. */
+export function BedMaterials({ bedId, bedPoint, system: defaultSystem }: { bedId: string; bedPoint: LatLng | null; system: UnitSystem }) {
+  const [system, setSystem] = useState<UnitSystem>(defaultSystem);
+  const [start, setStart] = useState<LatLng | null>(bedPoint);
+  const [radius, setRadius] = useState(String(DEFAULT_RADIUS_KM));
+  const [radiusError, setRadiusError] = useState<string | undefined>();
+  const [needs, setNeeds] = useState<Need[] | null>(null);
+  const [request, setRequest] = useState<MatchRequest | null>(bedPoint ? { bed_id: bedId, radius_km: DEFAULT_RADIUS_KM } : null);
+  const query = useMatch(request);
+  const plan = query.data;
+
+  const run = (over: { radius_km?: number; needs?: Need[] | null; origin?: LatLng | null } = {}) => {
+    const origin = over.origin === undefined ? start : over.origin;
+    const chosen = over.needs === undefined ? needs : over.needs;
+    const body = { bed_id: bedId, radius_km: over.radius_km ?? Number(radius), ...(chosen ? { needs: chosen } : {}), ...(origin && origin !== bedPoint ? { origin } : {}) };
+    // The same schema as the handler, so the message here is the one the server would give.
+    const parsed = matchSchema.safeParse(body);
+    if (!parsed.success) {
+      const issue = parsed.error.issues.find((i) => i.path[0] === "radius_km") ?? parsed.error.issues[0];
+      setRadiusError(issue.message);
+      return;
+    }
+    setRadiusError(undefined);
+    setRequest(body);
+  };
+
+  const widen = (km: number) => {
+    setRadius(String(km));
+    run({ radius_km: km });
+  };
+  const substitute = (short: Need, material: MaterialCode) => {
+    const next = replaceNeed(needs ?? plan?.needs ?? [], short, material);
+    setNeeds(next);
+    run({ needs: next });
+  };
+  const pick = (p: LatLng) => {
+    const next = { lat: Number(p.lat.toFixed(6)), lng: Number(p.lng.toFixed(6)) };
+    setStart(next);
+    run({ origin: next });
+  };
+
+  const shown = plan?.needs ?? needs ?? [];
+  const origin = plan?.origin ?? start ?? DEFAULT_CENTER;
+  const editHref = `/match?${new URLSearchParams({ lat: String(origin.lat), lng: String(origin.lng), radius_km: radius, needs: needsToParam(shown) })}`;
+
+  return (
+    <div className="grid gap-6 lg:grid-cols-[minmax(0,22rem)_minmax(0,1fr)]">
+      <aside className="flex flex-col gap-4 rounded-leaf bg-white p-5 ring-1 ring-humus-200">
+        <section aria-labelledby="needs-title">
+          <h2 id="needs-title" className="text-lg font-semibold">
+            What this bed needs
+          </h2>
+          {shown.length ? (
+            <ul className="mt-2 flex flex-col gap-1">
+              {shown.map((n) => (
+                <li key={n.material} className="flex justify-between gap-2">
+                  <span>{MATERIALS[n.material].name}</span>
+                  <span className="whitespace-nowrap font-medium">{formatQuantity(n.quantity, n.unit, system)}</span>
+                </li>
+              ))}
+            </ul>
+          ) : (
+            <p className="mt-2 text-humus-600">Worked out from the bed's size and layers when the plan loads.</p>
+          )}
+          {needs ? <p className="mt-2 text-sm text-humus-600">Changed from the bed's own list for this search.</p> : null}
+          <Link href={editHref} className={`${buttonClass("quiet")} mt-2 inline-block text-sm`}>
+            Change these amounts in the planner
+          </Link>
+        </section>
+        <form
+          onSubmit={(e) => {
+            e.preventDefault();
+            run();
+          }}
+          noValidate
+          className="flex flex-col gap-2"
+        >
+          <Field label="Look within (km)" name="radius_km" type="number" inputMode="decimal" step="any" min={1} max={MAX_RADIUS_KM} value={radius} onChange={(e) => setRadius(e.target.value)} error={radiusError} />
+          <Button type="submit" disabled={query.isFetching || !start}>
+            {query.isFetching ? "Finding…" : "Find materials"}
+          </Button>
+        </form>
+        {!bedPoint ? <Notice tone="caution">This bed has no location yet: tap the map where you will start from.</Notice> : null}
+      </aside>
+      <section aria-labelledby="plan-title" className="flex min-w-0 flex-col gap-4">
+        <div className="flex flex-wrap items-center justify-between gap-2">
+          <h2 id="plan-title" className="text-2xl font-bold">
+            Pickup plan
+          </h2>
+          <UnitToggle value={system} onChange={setSystem} />
+        </div>
+        <PlanMap origin={origin} stops={plan?.stops ?? []} onPick={pick} />
+        {query.isFetching ? <Spinner label="Finding the nearest supplies" /> : null}
+        {query.isError ? (
+          <Notice tone="error" title="No plan this time">
+            {(query.error as Error).message}
+          </Notice>
+        ) : null}
+        {plan && !query.isFetching ? <PickupPlan plan={plan} system={system} bedId={bedId} onWiden={widen} onSubstitute={substitute} /> : null}
+      </section>
+    </div>
+  );
+}

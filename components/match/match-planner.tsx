@@ -1,0 +1,94 @@
+"use client";
+import { useEffect, useState } from "react";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { usePathname, useRouter } from "next/navigation";
+import type { MaterialCode } from "@/lib/calc/facts";
+import type { UnitSystem } from "@/lib/calc/units";
+import type { Need } from "@/lib/match/types";
+import { matchSchema, needsToParam, type MatchInput, type MatchRequest } from "@/lib/validation/match";
+import { DEFAULT_CENTER } from "@/components/map/types";
+import { EmptyState, Spinner } from "@/components/ui/empty-state";
+import { Notice } from "@/components/ui/notice";
+import { NeedsForm } from "./needs-form";
+import { PickupPlan } from "./pickup-plan";
+import { PlanMap } from "./plan-map";
+import { replaceNeed } from "./replace-need";
+import { UnitToggle } from "./unit-toggle";
+import { useMatch } from "./use-match";
+
+const finite = (x: unknown): x is number => typeof x === "number" && Number.isFinite(x);
+
+/** The public planner: needs from the URL or the form, a start point picked on the map, and the plan. */
+export function MatchPlanner({ initial, run, system: defaultSystem, skipped }: { initial: MatchRequest; run: boolean; system: UnitSystem; skipped: number }) {
+  const router = useRouter();
+  const pathname = usePathname();
+  const [system, setSystem] = useState<UnitSystem>(defaultSystem);
+  const [request, setRequest] = useState<MatchRequest | null>(null);
+  const form = useForm<MatchRequest, unknown, MatchInput>({ resolver: zodResolver(matchSchema), defaultValues: initial, mode: "onSubmit" });
+  const query = useMatch(request);
+
+  const submit = form.handleSubmit((v) => {
+    const next = { needs: v.needs, origin: v.origin, radius_km: v.radius_km };
+    const params = new URLSearchParams({ lat: String(v.origin!.lat), lng: String(v.origin!.lng), radius_km: String(v.radius_km), needs: needsToParam(v.needs ?? []) });
+    router.replace(`${pathname}?${params}`, { scroll: false });
+    setRequest(next);
+  });
+
+  useEffect(() => {
+    if (run) void submit();
+    // Only the needs that came in the URL run by themselves, once.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, []);
+
+  const watched = form.watch("origin");
+  const origin = watched && finite(watched.lat) && finite(watched.lng) ? { lat: watched.lat, lng: watched.lng } : DEFAULT_CENTER;
+  const plan = query.data;
+
+  const pick = (p: { lat: number; lng: number }) => {
+    form.setValue("origin.lat", Number(p.lat.toFixed(6)), { shouldValidate: form.formState.isSubmitted });
+    form.setValue("origin.lng", Number(p.lng.toFixed(6)), { shouldValidate: form.formState.isSubmitted });
+  };
+  const widen = (km: number) => {
+    form.setValue("radius_km", km);
+    void submit();
+  };
+  const substitute = (short: Need, material: MaterialCode) => {
+    form.reset({ ...form.getValues(), needs: replaceNeed((form.getValues("needs") ?? []) as Need[], short, material) });
+    void submit();
+  };
+
+  return (
+    <div className="grid gap-6 lg:grid-cols-[minmax(0,24rem)_minmax(0,1fr)]">
+      <aside className="rounded-leaf bg-white p-5 ring-1 ring-humus-200">
+        {skipped > 0 ? (
+          <div className="mb-3">
+            <Notice tone="caution">{skipped === 1 ? "One need in the link could not be read and was left out." : `${skipped} needs in the link could not be read and were left out.`}</Notice>
+          </div>
+        ) : null}
+        <NeedsForm form={form} system={system} onSubmit={submit} busy={query.isFetching} />
+      </aside>
+      <section aria-labelledby="plan-title" className="flex min-w-0 flex-col gap-4">
+        <div className="flex flex-wrap items-center justify-between gap-2">
+          <h2 id="plan-title" className="text-2xl font-bold">
+            Your pickup plan
+          </h2>
+          <UnitToggle value={system} onChange={setSystem} />
+        </div>
+        <PlanMap origin={plan?.origin ?? origin} stops={plan?.stops ?? []} onPick={pick} />
+        {query.isFetching ? <Spinner label="Finding the nearest supplies" /> : null}
+        {query.isError ? (
+          <Notice tone="error" title="No plan this time">
+            {(query.error as Error).message}
+          </Notice>
+        ) : null}
+        {!request && !query.isFetching ? (
+          <EmptyState title="Tell us what the bed needs">
+            Add each material and how much of it, set where you start from (or tap the map), and we will find the nearby listings that cover it with the fewest, shortest, cheapest pickups.
+          </EmptyState>
+        ) : null}
+        {plan && !query.isFetching ? <PickupPlan plan={plan} system={system} onWiden={widen} onSubstitute={substitute} /> : null}
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,135 @@
+"use client";
+import { useFieldArray, type UseFormReturn } from "react-hook-form";
+import { MATERIAL_CODES, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
+import { formatQuantity, type UnitSystem } from "@/lib/calc/units";
+import { materialNoun } from "@/lib/match/format";
+import { MAX_NEEDS, MAX_RADIUS_KM } from "@/lib/match/defaults";
+import type { MatchInput, MatchRequest } from "@/lib/validation/match";
+import { NEED_UNIT_LABEL, NEED_UNITS } from "@/lib/match/units";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+
+/** The form holds what POST /api/match takes, checked by the same schema. */
+export type NeedsFormValues = MatchRequest;
+export type NeedsFormApi = UseFormReturn<MatchRequest, unknown, MatchInput>;
+
+const selectClass = "min-h-11 rounded-lg border border-humus-300 bg-white px-2 py-2";
+
+/** The needs, the start point and the radius, as one form; the map beside it moves the start. */
+export function NeedsForm({ form, system, onSubmit, busy }: { form: NeedsFormApi; system: UnitSystem; onSubmit: () => void; busy: boolean }) {
+  const { fields, append, remove } = useFieldArray({ control: form.control, name: "needs" });
+  const errors = form.formState.errors;
+  const needs = form.watch("needs") ?? [];
+
+  const locateMe = () =>
+    navigator.geolocation?.getCurrentPosition((pos) => {
+      form.setValue("origin.lat", Number(pos.coords.latitude.toFixed(6)), { shouldValidate: true });
+      form.setValue("origin.lng", Number(pos.coords.longitude.toFixed(6)), { shouldValidate: true });
+    });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label="What the bed needs">
+      <fieldset className="flex flex-col gap-3">
+        <legend className="mb-1 text-lg font-semibold">What the bed needs</legend>
+        {errors.needs?.message || errors.needs?.root?.message ? (
+          <p role="alert" className="text-sm text-ember-600">
+            {errors.needs?.message ?? errors.needs?.root?.message}
+          </p>
+        ) : null}
+        {fields.map((f, i) => {
+          const material = needs[i]?.material ?? f.material;
+          const quantity = Number(needs[i]?.quantity);
+          const unit = needs[i]?.unit ?? f.unit;
+          const err = errors.needs?.[i];
+          const unitId = `need-${i}-unit`;
+          return (
+            <div key={f.id} className="grid grid-cols-[minmax(0,1fr)_6rem] items-start gap-x-2 rounded-lg bg-humus-50 p-3 ring-1 ring-humus-200" data-need-row={i}>
+              <div className="col-span-2 mb-2 flex flex-col gap-1">
+                <label htmlFor={`need-${i}-material`} className="font-medium">
+                  Material
+                </label>
+                <select
+                  id={`need-${i}-material`}
+                  className={selectClass}
+                  {...form.register(`needs.${i}.material`, {
+                    onChange: (e) => {
+                      const allowed = NEED_UNITS[e.target.value as MaterialCode];
+                      const now = form.getValues(`needs.${i}.unit`);
+                      if (!now || !allowed.includes(now)) form.setValue(`needs.${i}.unit`, allowed[0]);
+                    },
+                  })}
+                >
+                  {MATERIAL_CODES.map((m) => (
+                    <option key={m} value={m}>
+                      {MATERIALS[m].name}
+                    </option>
+                  ))}
+                </select>
+              </div>
+              <Field
+                label="Amount"
+                id={`need-${i}-quantity`}
+                type="number"
+                inputMode="decimal"
+                step="any"
+                min={0}
+                {...form.register(`needs.${i}.quantity`, { valueAsNumber: true })}
+                error={err?.quantity?.message}
+                hint={system === "imperial" && quantity > 0 ? `≈ ${formatQuantity(quantity, unit, "imperial")}` : undefined}
+              />
+              <div className="flex flex-col gap-1">
+                <label htmlFor={unitId} className="font-medium">
+                  Unit
+                </label>
+                <select id={unitId} className={selectClass} aria-describedby={err?.unit ? `${unitId}-error` : undefined} {...form.register(`needs.${i}.unit`)}>
+                  {NEED_UNITS[material].map((u) => (
+                    <option key={u} value={u}>
+                      {NEED_UNIT_LABEL[u]}
+                    </option>
+                  ))}
+                </select>
+                <p id={`${unitId}-error`} aria-live="polite" className="text-sm text-ember-600">
+                  {err?.unit?.message ?? err?.material?.message ?? ""}
+                </p>
+              </div>
+              <Button variant="quiet" className="col-span-2 justify-self-end text-sm" onClick={() => remove(i)} aria-label={`Remove ${materialNoun(material)}`}>
+                Remove
+              </Button>
+            </div>
+          );
+        })}
+        {fields.length < MAX_NEEDS ? (
+          <Button variant="secondary" className="self-start" onClick={() => append({ material: "leaves", quantity: 0.5, unit: "m3" })}>
+            Add a material
+          </Button>
+        ) : null}
+      </fieldset>
+
+      <fieldset className="flex flex-col gap-2">
+        <legend className="mb-1 text-lg font-semibold">Where you start</legend>
+        <div className="grid grid-cols-2 gap-2">
+          <Field label="Latitude" type="number" step="any" inputMode="decimal" {...form.register("origin.lat", { valueAsNumber: true })} error={errors.origin?.lat?.message ?? errors.origin?.message} />
+          <Field label="Longitude" type="number" step="any" inputMode="decimal" {...form.register("origin.lng", { valueAsNumber: true })} error={errors.origin?.lng?.message} />
+        </div>
+        <Button variant="quiet" className="self-start" onClick={locateMe}>
+          Use where I am now
+        </Button>
+      </fieldset>
+
+      <Field
+        label="Look within (km)"
+        type="number"
+        step="any"
+        inputMode="decimal"
+        min={1}
+        max={MAX_RADIUS_KM}
+        {...form.register("radius_km", { valueAsNumber: true })}
+        error={errors.radius_km?.message}
+        hint={`Up to ${MAX_RADIUS_KM} km.`}
+      />
+      <Button type="submit" disabled={busy}>
+        {busy ? "Finding…" : "Find materials"}
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,132 @@
+"use client";
+import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
+import { formatQuantity, type UnitSystem } from "@/lib/calc/units";
+import { formatCents, formatListingQuantity, materialNoun } from "@/lib/match/format";
+import type { Need } from "@/lib/match/types";
+import { Notice } from "@/components/ui/notice";
+import { ReserveAll } from "./reserve-all";
+import { UnmetNeeds } from "./unmet-needs";
+import type { PickupPlan as Plan } from "./use-match";
+
+function Totals({ plan, system }: { plan: Plan; system: UnitSystem }) {
+  const t = plan.totals;
+  const items = [
+    ["Stops", String(t.stops)],
+    ["Driving", formatQuantity(plan.driving_distance_km, "km", system)],
+    ["Trips", `${t.trips} ${t.trips === 1 ? "carload" : "carloads"}`],
+    ["To pay suppliers", formatCents(t.price_cents, t.currency)],
+  ];
+  return (
+    <dl className="grid grid-cols-2 gap-3 sm:grid-cols-4">
+      {items.map(([k, v]) => (
+        <div key={k} className="rounded-lg bg-white p-3 ring-1 ring-humus-200">
+          <dt className="text-sm text-humus-600">{k}</dt>
+          <dd className="text-lg font-semibold" data-total={k}>
+            {v}
+          </dd>
+        </div>
+      ))}
+    </dl>
+  );
+}
+
+export function PickupPlan({
+  plan,
+  system,
+  bedId,
+  onWiden,
+  onSubstitute,
+}: {
+  plan: Plan;
+  system: UnitSystem;
+  bedId?: string;
+  onWiden: (km: number) => void;
+  onSubstitute: (need: Need, material: MaterialCode) => void;
+}) {
+  const byId = new Map(plan.allocations.map((a) => [a.listing_id, a]));
+  const orderOf = new Map(plan.stops.map((s) => [s.listing_id, s.order]));
+  const lifting = plan.cautions.filter((c) => c.kind !== "material");
+  const general = plan.cautions.filter((c) => c.kind === "material");
+  return (
+    <div className="flex flex-col gap-5">
+      <Totals plan={plan} system={system} />
+      <p className="text-sm text-humus-600">
+        The loop through the stops is {formatQuantity(plan.total_distance_km, "km", system)}
+        {plan.trips.length > 1 ? `; carrying it all takes ${plan.trips.length} trips from the start, ${formatQuantity(plan.driving_distance_km, "km", system)} in all` : ""}.
+        Driving counted at {formatCents(plan.totals.travel_cents, plan.totals.currency)}, stops at {formatCents(plan.totals.stop_cents, plan.totals.currency)}.
+      </p>
+
+      <UnmetNeeds unmet={plan.unmet} radiusKm={plan.radius_km} system={system} onWiden={onWiden} onSubstitute={onSubstitute} />
+
+      {plan.stops.length ? (
+        <section aria-labelledby="stops-title">
+          <h3 id="stops-title" className="mb-2 text-lg font-semibold">
+            Pickups in order
+          </h3>
+          <ol className="flex flex-col gap-2">
+            {plan.stops.map((s) => {
+              const a = byId.get(s.listing_id)!;
+              return (
+                <li key={s.listing_id} className="flex gap-3 rounded-lg bg-white p-3 ring-1 ring-humus-200" data-stop={s.order}>
+                  <span className="flex h-9 w-9 shrink-0 items-center justify-center rounded-full bg-moss-600 font-bold text-white" aria-label={`Stop ${s.order}`}>
+                    {s.order}
+                  </span>
+                  <div className="flex min-w-0 flex-1 flex-col gap-0.5">
+                    <p className="font-semibold">{a.title ?? MATERIALS[a.material].name}</p>
+                    <p className="text-sm text-humus-700">
+                      {a.supplier ? `${a.supplier} · ` : ""}
+                      {formatQuantity(a.distance_km, "km", system)} from the start
+                    </p>
+                    <p>
+                      Take <strong>{formatListingQuantity(a.listing_quantity, a.listing_unit, system)}</strong>
+                      {a.listing_unit === a.unit ? "" : ` (${formatQuantity(a.quantity, a.unit, system)} of ${materialNoun(a.material)})`}
+                      {a.listing_unit === a.unit ? ` of ${materialNoun(a.material)}` : ""}
+                    </p>
+                    <p className="text-sm text-humus-600">
+                      {formatCents(a.cost_cents, a.currency)}
+                      {a.deposit_cents ? ` · ${formatCents(a.deposit_cents, a.currency)} refundable deposit` : ""} · about {formatQuantity(a.load_kg, "kg", system)}, {formatQuantity(a.load_l, "l", system)}
+                    </p>
+                  </div>
+                </li>
+              );
+            })}
+          </ol>
+        </section>
+      ) : null}
+
+      {plan.trips.length > 1 ? (
+        <section aria-labelledby="trips-title">
+          <h3 id="trips-title" className="mb-2 text-lg font-semibold">
+            Carloads
+          </h3>
+          <ul className="flex flex-col gap-1 text-sm">
+            {plan.trips.map((t, i) => (
+              <li key={i}>
+                Trip {i + 1}: stop{t.stops.length > 1 ? "s" : ""} {t.stops.map((id) => orderOf.get(id)).join(", ")} — {formatQuantity(t.load_l, "l", system)},{" "}
+                {formatQuantity(t.load_kg, "kg", system)}, {formatQuantity(t.distance_km, "km", system)}
+              </li>
+            ))}
+          </ul>
+        </section>
+      ) : null}
+
+      {lifting.map((c) => (
+        <Notice key={c.message} tone="caution" title={c.kind === "lifting" ? "Heavy lifting" : "Too big for the car"}>
+          {c.message}
+          {c.listing_ids?.length ? ` (stop ${c.listing_ids.map((id) => orderOf.get(id)).join(", ")})` : ""}
+        </Notice>
+      ))}
+      {general.length ? (
+        <Notice tone="caution" title="Before you collect">
+          <ul className="list-disc pl-5">
+            {general.map((c) => (
+              <li key={c.message}>{c.message}</li>
+            ))}
+          </ul>
+        </Notice>
+      ) : null}
+
+      {plan.allocations.length ? <ReserveAll items={plan.allocations.map((a) => ({ listing_id: a.listing_id, quantity: a.listing_quantity }))} bedId={bedId} /> : null}
+    </div>
+  );
+}

@@ -1,0 +1,28 @@
+"use client";
+import { useMutation, useQuery } from "@tanstack/react-query";
+import { apiFetch } from "@/lib/api/client";
+import type { PickupPlanResponse } from "@/lib/services/plan-pickups";
+import type { MatchRequest } from "@/lib/validation/match";
+
+export type PickupPlan = PickupPlanResponse;
+
+/** The pickup plan for a request; nothing is asked until there is one. */
+export function useMatch(request: MatchRequest | null) {
+  return useQuery({
+    queryKey: ["match", request],
+    queryFn: ({ signal }) => apiFetch<PickupPlan>("/api/match", { body: request, signal }),
+    enabled: request !== null,
+    retry: false,
+    staleTime: 60_000,
+  });
+}
+
+export interface ReserveAllBody {
+  items: { listing_id: string; quantity: number }[];
+  bed_id?: string;
+}
+
+/** Hands a plan's allocations to the reservation flow. */
+export function useReserveAll() {
+  return useMutation({ mutationFn: (body: ReserveAllBody) => apiFetch("/api/reservations", { body }) });
+}

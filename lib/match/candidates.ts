@@ -1,0 +1,166 @@
+import "server-only";
+import type { Knex } from "knex";
+import { db, type Db } from "@/db/index";
+import type { MaterialCode } from "@/lib/calc/facts";
+import { UNIT_PRICE_INDEX, UNIT_PRICE_SQL } from "@/migrations/20261201_004_listing_unit_price";
+import { type Box, boundingBox, distanceKm } from "./geo";
+import type { CandidateSource, CheapestRows } from "./search";
+import type { CandidateListing, LatLng, ListingUnit } from "./types";
+
+// The one query module of matching. Every query names its index: a box on the public
+// point through listings_search_box (status, material_code, approx_lat, approx_lng), or the
+// price order through listings_unit_price; then Turf's exact distance decides. None reads
+// the whole table. SQLite is told which index to use; PostgreSQL's planner picks its own.
+
+const COLUMNS = [
+  "id",
+  "material_code",
+  "unit",
+  "unit_size",
+  "unit_mass_kg",
+  "quantity_total",
+  "quantity_held",
+  "quantity_collected",
+  "max_per_reservation",
+  "price_cents",
+  "currency",
+  "approx_lat",
+  "approx_lng",
+] as const;
+
+interface Row {
+  id: string;
+  material_code: MaterialCode;
+  unit: ListingUnit;
+  unit_size: number | null;
+  unit_mass_kg: number | null;
+  quantity_total: number;
+  quantity_held: number;
+  quantity_collected: number;
+  max_per_reservation: number | null;
+  price_cents: number;
+  currency: string;
+  approx_lat: number;
+  approx_lng: number;
+  unit_price?: number;
+}
+
+// Float quantities can leave a residue like 1e-12 behind a full reservation.
+const LEFT_EPS = 1e-9;
+
+const isPg = (q: Db) => q.client.config.client === "pg";
+const table = (q: Db, index: string) => (isPg(q) ? "listings" : q.raw(`listings INDEXED BY ${index}`));
+
+/** Active, with something left, not past its end date, inside the box. */
+function reservable(q: Db, index: string, materials: readonly MaterialCode[], box: Box, now: Date): Knex.QueryBuilder {
+  return q
+    .from(table(q, index))
+    .select(...COLUMNS)
+    .where("status", "active")
+    .whereIn("material_code", [...materials])
+    .whereBetween("approx_lat", [box.minLat, box.maxLat])
+    .whereBetween("approx_lng", [box.minLng, box.maxLng])
+    .whereRaw("quantity_total - quantity_held - quantity_collected > ?", [LEFT_EPS])
+    .where((w) => w.whereNull("available_until").orWhere("available_until", ">", now.toISOString()));
+}
+
+function toCandidate(r: Row, origin: LatLng): CandidateListing {
+  const location = { lat: Number(r.approx_lat), lng: Number(r.approx_lng) };
+  return {
+    id: r.id,
+    material: r.material_code,
+    unit: r.unit,
+    unit_size: r.unit_size === null ? null : Number(r.unit_size),
+    unit_mass_kg: r.unit_mass_kg === null ? null : Number(r.unit_mass_kg),
+    available: Number(r.quantity_total) - Number(r.quantity_held) - Number(r.quantity_collected),
+    max_per_reservation: r.max_per_reservation === null ? null : Number(r.max_per_reservation),
+    price_cents: Number(r.price_cents),
+    currency: r.currency,
+    location,
+    distance_km: distanceKm(origin, location),
+  };
+}
+
+export interface CandidateQuery {
+  origin: LatLng;
+  radius_km: number;
+  materials: readonly MaterialCode[];
+  now?: Date;
+}
+
+/** Every reservable listing of `materials` whose public point lies in `box`, with its distance from `origin`. */
+export async function findInBox(
+  materials: readonly MaterialCode[],
+  box: Box,
+  origin: LatLng,
+  opts: { now?: Date; maxUnitPrice?: number } = {},
+  q: Db = db(),
+): Promise<CandidateListing[]> {
+  if (!materials.length) return [];
+  const now = opts.now ?? new Date();
+  // Under a price cap the price index reads only the listings that cheap.
+  const rows: Row[] =
+    opts.maxUnitPrice === undefined
+      ? await reservable(q, "listings_search_box", materials, box, now)
+      : await reservable(q, UNIT_PRICE_INDEX, materials, box, now).whereRaw(`${UNIT_PRICE_SQL} <= ?`, [opts.maxUnitPrice]);
+  return rows.map((r) => toCandidate(r, origin));
+}
+
+/** Every reservable listing of `materials` within `radius_km` of `origin`, by its public point. */
+export async function findCandidates({ origin, radius_km, materials, now = new Date() }: CandidateQuery, q: Db = db()): Promise<CandidateListing[]> {
+  const found = await findInBox(materials, boundingBox(origin, radius_km), origin, { now }, q);
+  return found.filter((c) => c.distance_km <= radius_km);
+}
+
+/** The same, cheapest per unit size first, reading at most `limit` rows of the index. */
+export async function findCheapest(query: CandidateQuery & { limit: number }, q: Db = db()): Promise<CheapestRows> {
+  const { origin, radius_km, materials, limit, now = new Date() } = query;
+  const rows: Row[] = await reservable(q, UNIT_PRICE_INDEX, materials, boundingBox(origin, radius_km), now)
+    .select(q.raw(`${UNIT_PRICE_SQL} AS unit_price`))
+    .orderByRaw(UNIT_PRICE_SQL)
+    .limit(limit);
+  const last = rows.length === limit ? Number(rows[rows.length - 1].unit_price) : null;
+  return { rows: rows.map((r) => toCandidate(r, origin)).filter((c) => c.distance_km <= radius_km), last_unit_price: last };
+}
+
+/**
+ * The `limit` nearest reservable listings within `radius_km`, nearest first: boxes that
+ * double until they hold `limit` listings inside their circle (nothing outside a circle
+ * can be nearer than what is in it) or reach the radius.
+ */
+export async function nearestListings(
+  query: CandidateQuery & { limit: number; start_km?: number },
+  q: Db = db(),
+): Promise<CandidateListing[]> {
+  const { radius_km, limit } = query;
+  let km = Math.min(radius_km, query.start_km ?? 1);
+  for (;;) {
+    const found = await findCandidates({ ...query, radius_km: km }, q);
+    if (found.length >= limit || km >= radius_km) return found.sort((a, b) => a.distance_km - b.distance_km).slice(0, limit);
+    km = Math.min(radius_km, km * 2);
+  }
+}
+
+/** Matching's view of the database. */
+export function databaseSource(q: Db = db(), now: Date = new Date()): CandidateSource {
+  return {
+    inBox: (materials, box, origin, maxUnitPrice) => findInBox(materials, box, origin, { now, maxUnitPrice }, q),
+    cheapest: (material, origin, radius_km, limit) => findCheapest({ origin, radius_km, materials: [material], limit, now }, q),
+  };
+}
+
+export interface ListingSummary {
+  title: string;
+  supplier: string;
+  deposit_cents: number;
+}
+
+/** What a plan shows beside each pickup, for the listings it chose (public fields only). */
+export async function listingSummaries(ids: readonly string[], q: Db = db()): Promise<Record<string, ListingSummary>> {
+  if (!ids.length) return {};
+  const rows: { id: string; title: string; deposit_cents: number; supplier: string }[] = await q("listings as l")
+    .join("users as u", "u.id", "l.owner_id")
+    .select("l.id", "l.title", "l.deposit_cents", "u.display_name as supplier")
+    .whereIn("l.id", [...ids]);
+  return Object.fromEntries(rows.map((r) => [r.id, { title: r.title, supplier: r.supplier, deposit_cents: Number(r.deposit_cents) }]));
+}

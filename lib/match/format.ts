@@ -1,0 +1,24 @@
+import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
+import { formatQuantity, type UnitSystem } from "@/lib/calc/units";
+import type { ListingUnit, NeedUnit } from "./types";
+
+/** Integer cents as money, e.g. "€4.50"; free is "free". */
+export function formatCents(cents: number, currency: string): string {
+  if (cents === 0) return "free";
+  return new Intl.NumberFormat("en-GB", { style: "currency", currency: currency.toUpperCase() }).format(cents / 100);
+}
+
+const COUNTED: Partial<Record<ListingUnit, [string, string]>> = { sheets: ["sheet", "sheets"], bags: ["bag", "bags"], bales: ["bale", "bales"] };
+
+/** A quantity in the listing's own unit: "8 sheets", "1 bale", or a measure in the reader's units. */
+export function formatListingQuantity(quantity: number, unit: ListingUnit, system: UnitSystem): string {
+  const counted = COUNTED[unit];
+  if (counted) return `${quantity} ${quantity === 1 ? counted[0] : counted[1]}`;
+  return formatQuantity(quantity, unit as NeedUnit, system);
+}
+
+/** A material's name inside a sentence: "composting worms (Eisenia fetida)", species kept as written. */
+export function materialNoun(code: MaterialCode): string {
+  const name = MATERIALS[code].name;
+  return name[0].toLowerCase() + name.slice(1);
+}

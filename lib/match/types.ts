@@ -1,0 +1,101 @@
+import type { MaterialCode } from "@/lib/calc/facts";
+
+export interface LatLng {
+  lat: number;
+  lng: number;
+}
+
+/** The unit a need is measured in: cardboard by area, loose layers by spread volume, worms by weight. */
+export type NeedUnit = "m2" | "m3" | "kg";
+/** The unit a listing is offered in (listings.unit). */
+export type ListingUnit = "sheets" | "m2" | "bags" | "m3" | "bales" | "kg";
+
+export interface Need {
+  material: MaterialCode;
+  quantity: number;
+  unit: NeedUnit;
+}
+
+/** A listing as matching sees it: its public point, what is left, and its price. */
+export interface CandidateListing {
+  id: string;
+  material: MaterialCode;
+  unit: ListingUnit;
+  /** m² a sheet, m³ a bag or bale; null for m2, m3 and kg listings (and taken as the default size for the others). */
+  unit_size: number | null;
+  /** kg a bale, when the supplier says. */
+  unit_mass_kg: number | null;
+  /** Listing units still free to reserve: total − held − collected. */
+  available: number;
+  max_per_reservation: number | null;
+  /** Per listing unit. */
+  price_cents: number;
+  currency: string;
+  /** The approximate public point, never the exact one. */
+  location: LatLng;
+  /** Great-circle distance from the origin to `location`. */
+  distance_km: number;
+}
+
+export interface Allocation {
+  listing_id: string;
+  material: MaterialCode;
+  /** What this pickup gives, in the need's unit (whole units can give a little more than asked). */
+  quantity: number;
+  unit: NeedUnit;
+  /** What to reserve, in the listing's unit. */
+  listing_quantity: number;
+  listing_unit: ListingUnit;
+  distance_km: number;
+  /** Price of this pickup: price_cents × listing_quantity. */
+  cost_cents: number;
+  currency: string;
+  load_l: number;
+  load_kg: number;
+  /** kg of one sheet, bag or bale; null for loose material. */
+  item_kg: number | null;
+}
+
+export interface Stop {
+  order: number;
+  listing_id: string;
+  location: LatLng;
+}
+
+export interface Trip {
+  stops: string[];
+  load_l: number;
+  load_kg: number;
+  distance_km: number;
+}
+
+export interface Caution {
+  kind: "lifting" | "oversize" | "material";
+  message: string;
+  listing_ids?: string[];
+}
+
+export interface PlanTotals {
+  price_cents: number;
+  travel_cents: number;
+  stop_cents: number;
+  /** What the plan minimises: price + travel + stops. */
+  cost_cents: number;
+  currency: string;
+  stops: number;
+  trips: number;
+}
+
+export interface MatchPlan {
+  needs: Need[];
+  allocations: Allocation[];
+  unmet: Need[];
+  stops: Stop[];
+  /** The visiting loop through `stops` from the origin and back, km. */
+  total_distance_km: number;
+  /** The distance actually driven when the load takes several trips, km. */
+  driving_distance_km: number;
+  trips: Trip[];
+  totals: PlanTotals;
+  cautions: Caution[];
+}

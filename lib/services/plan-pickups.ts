@@ -1,0 +1,58 @@
+import "server-only";
+import { ApiError, notFound } from "@/lib/api/errors";
+import type { SessionUser } from "@/lib/auth/current-user";
+import { databaseSource, listingSummaries } from "@/lib/match/candidates";
+import { searchPlan } from "@/lib/match/search";
+import type { LatLng, Need } from "@/lib/match/types";
+import { bedEstimate, toBedView } from "@/lib/services/bed-view";
+import type { MatchInput } from "@/lib/validation/match";
+import { type BedRow, findBed } from "@/db/beds";
+
+/** What a saved bed needs: its own estimate (the bed page's), as needs. */
+export function bedNeeds(row: BedRow): Need[] {
+  let needs: Need[];
+  try {
+    needs = bedEstimate(toBedView(row)).needs.map((n) => ({ material: n.material, quantity: n.quantity, unit: n.unit }));
+  } catch {
+    // A row written before a rule changed, or by hand: say so rather than fail.
+    throw new ApiError("invalid_state", "This bed's saved size or layers cannot be read. Open the bed, check it and save it again.");
+  }
+  return needs.filter((n) => n.quantity > 0);
+}
+
+/** POST /api/match: the pickup plan for ad-hoc needs, or for one of the signed-in gardener's beds. */
+export async function planPickups(input: MatchInput, user: SessionUser | null) {
+  let needs = input.needs as Need[] | undefined;
+  let origin: LatLng | undefined = input.origin;
+  let bed: { id: string; name: string } | null = null;
+  if (input.bed_id) {
+    if (!user) throw new ApiError("unauthenticated", "Sign in to find materials for a saved bed.");
+    const row = await findBed(input.bed_id, user.id);
+    if (!row) throw notFound("That bed");
+    bed = { id: row.id, name: row.name };
+    needs ??= bedNeeds(row);
+    if (!origin) {
+      if (row.lat === null || row.lng === null) {
+        throw new ApiError("invalid_input", "This bed has no location yet.", { origin: "Give the origin as {lat, lng}, or add the bed's location" });
+      }
+      origin = { lat: Number(row.lat), lng: Number(row.lng) };
+    }
+  }
+  if (!needs || !origin) throw new ApiError("invalid_input", "Some fields need another look.", { needs: "Give the needs and the origin" });
+
+  const { plan, stats } = await searchPlan(needs, origin, input.radius_km, databaseSource(), {
+    costs: { cost_per_km_cents: input.cost_per_km_cents, cost_per_stop_cents: input.cost_per_stop_cents },
+    vehicle: input.vehicle,
+  });
+  const details = await listingSummaries(plan.allocations.map((a) => a.listing_id));
+  return {
+    ...plan,
+    allocations: plan.allocations.map((a) => ({ ...a, ...details[a.listing_id] })),
+    origin,
+    radius_km: input.radius_km,
+    bed,
+    search: stats,
+  };
+}
+
+export type PickupPlanResponse = Awaited<ReturnType<typeof planPickups>>;

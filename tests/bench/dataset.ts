@@ -1,0 +1,100 @@
+// A synthetic county for the benchmark: listings clustered around a dozen invented
+// villages plus a scatter of farms, over about 50 × 50 km centred on Fernhollow, with a
+// material mix, units, prices and statuses like the demo's. Written to its own SQLite file.
+import fs from "node:fs";
+import knex, { type Knex } from "knex";
+import { configFor } from "@/knexfile";
+import { BAG_M3, BALE_M3, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
+import { approximatePoint } from "@/lib/geo/approximate";
+import { prng } from "@/seeds/ids";
+
+export const CENTRE = { lat: 52.205, lng: 0.847 };
+export const HALF_SIDE_KM = 25;
+const KM_PER_DEG_LAT = 111.2;
+const KM_PER_DEG_LNG = KM_PER_DEG_LAT * Math.cos((CENTRE.lat * Math.PI) / 180);
+
+/** A point `x`, `y` km east and north of the centre. */
+export const at = (x: number, y: number) => ({ lat: CENTRE.lat + y / KM_PER_DEG_LAT, lng: CENTRE.lng + x / KM_PER_DEG_LNG });
+
+type Unit = "sheets" | "m2" | "bags" | "m3" | "bales" | "kg";
+interface Kind {
+  material: MaterialCode;
+  share: number;
+  make: (r: () => number) => { unit: Unit; unit_size: number | null; unit_mass_kg: number | null; qty: number; price: number; max: number | null };
+}
+
+const pick = <T,>(r: () => number, xs: T[]) => xs[Math.floor(r() * xs.length)];
+const free = (r: () => number, p: number, priced: () => number) => (r() < p ? 0 : priced());
+
+// Shares roughly as in the demo town: leaves and cardboard common, worms and straw scarcer.
+const KINDS: Kind[] = [
+  { material: "leaves", share: 0.24, make: (r) => (r() < 0.7
+    ? { unit: "bags", unit_size: BAG_M3, unit_mass_kg: null, qty: 2 + Math.floor(r() * 14), price: free(r, 0.85, () => pick(r, [50, 100, 150])), max: r() < 0.4 ? 10 : null }
+    : { unit: "m3", unit_size: null, unit_mass_kg: null, qty: 1 + Math.floor(r() * 30), price: 0, max: pick(r, [1, 1.5, 2, null]) }) },
+  { material: "cardboard", share: 0.2, make: (r) => (r() < 0.85
+    ? { unit: "sheets", unit_size: pick(r, [0.5, 0.6, 0.8, 1.0]), unit_mass_kg: null, qty: 5 + Math.floor(r() * 40), price: 0, max: r() < 0.5 ? 20 : null }
+    : { unit: "m2", unit_size: null, unit_mass_kg: null, qty: 5 + Math.floor(r() * 30), price: 0, max: null }) },
+  { material: "wood_chips", share: 0.1, make: (r) => ({ unit: "m3", unit_size: null, unit_mass_kg: null, qty: 2 + Math.floor(r() * 25), price: free(r, 0.8, () => pick(r, [500, 1000])), max: pick(r, [2, 3, null]) }) },
+  { material: "straw", share: 0.09, make: (r) => ({ unit: "bales", unit_size: BALE_M3, unit_mass_kg: pick(r, [16, 18, 20, 22, 25]), qty: 2 + Math.floor(r() * 40), price: pick(r, [300, 350, 400, 450, 500, 600]), max: pick(r, [5, 10, 12, null]) }) },
+  { material: "grass_clippings", share: 0.09, make: (r) => ({ unit: "bags", unit_size: BAG_M3, unit_mass_kg: null, qty: 1 + Math.floor(r() * 6), price: 0, max: null }) },
+  { material: "coffee_grounds", share: 0.08, make: (r) => (r() < 0.8
+    ? { unit: "kg", unit_size: null, unit_mass_kg: null, qty: 5 + Math.floor(r() * 40), price: 0, max: pick(r, [10, 20, null]) }
+    : { unit: "bags", unit_size: 0.02, unit_mass_kg: null, qty: 2 + Math.floor(r() * 10), price: 0, max: null }) },
+  { material: "manure", share: 0.07, make: (r) => (r() < 0.6
+    ? { unit: "bags", unit_size: 0.04, unit_mass_kg: null, qty: 5 + Math.floor(r() * 30), price: free(r, 0.5, () => pick(r, [100, 150, 200])), max: 10 }
+    : { unit: "m3", unit_size: null, unit_mass_kg: null, qty: 1 + Math.floor(r() * 10), price: free(r, 0.6, () => pick(r, [1500, 2500])), max: 2 }) },
+  { material: "worms", share: 0.07, make: (r) => ({ unit: "kg", unit_size: null, unit_mass_kg: null, qty: 1 + Math.floor(r() * 8), price: pick(r, [1800, 2200, 2600, 3000, 3200, 3600]), max: pick(r, [1, 2, 3, null]) }) },
+  { material: "compost", share: 0.06, make: (r) => ({ unit: "m3", unit_size: null, unit_mass_kg: null, qty: 1 + Math.floor(r() * 12), price: free(r, 0.5, () => pick(r, [2000, 3000])), max: pick(r, [0.5, 1, null]) }) },
+];
+
+const STATUSES: [string, number][] = [["active", 0.88], ["paused", 0.04], ["hidden", 0.03], ["archived", 0.02], ["expired", 0.02], ["gone", 0.01]];
+
+function weighted<T>(r: () => number, xs: [T, number][]): T {
+  let u = r();
+  for (const [x, w] of xs) if ((u -= w) < 0) return x;
+  return xs[xs.length - 1][0];
+}
+
+// Gaussian from two uniforms (Box–Muller).
+const gauss = (r: () => number) => Math.sqrt(-2 * Math.log(1 - r())) * Math.cos(2 * Math.PI * r());
+
+export async function buildDataset(file: string, size: number): Promise<Knex> {
+  for (const f of [file, `${file}-wal`, `${file}-shm`]) fs.rmSync(f, { force: true });
+  const k = knex({ ...configFor("test"), connection: { filename: file } });
+  await k.migrate.latest();
+  const r = prng(size);
+  const created = "2026-11-01T09:00:00.000Z";
+  await k("materials").insert(Object.values(MATERIALS).map((m) => ({ code: m.code, name: m.name, n_pct: m.n_pct, cn_ratio: m.cn_ratio, moisture_pct: m.moisture_pct, bulk_density_kg_m3: m.bulk_density_kg_m3, default_unit: m.default_unit, source: m.source })));
+  const owners = Array.from({ length: 200 }, (_, i) => `bench-owner-${i}`);
+  await k.batchInsert("users", owners.map((id, i) => ({ id, email: `bench${i}@bench.invalid`, display_name: `Bench supplier ${i}`, unit_system: "metric", reminders_opt_out: false, created_at: created, updated_at: created })), 100);
+
+  const villages = Array.from({ length: 12 }, () => ({ ...at((r() * 2 - 1) * 20, (r() * 2 - 1) * 20), spread: 1 + r() * 3 }));
+  const kinds: [Kind, number][] = KINDS.map((kd) => [kd, kd.share]);
+  const now = Date.now();
+  const rows: Record<string, unknown>[] = [];
+  for (let i = 0; i < size; i++) {
+    // Seven in ten listings are in a village, the rest anywhere in the county.
+    let p: { lat: number; lng: number };
+    if (r() < 0.7) {
+      const v = pick(r, villages);
+      p = at(Math.max(-HALF_SIDE_KM, Math.min(HALF_SIDE_KM, (v.lng - CENTRE.lng) * KM_PER_DEG_LNG + gauss(r) * v.spread)), Math.max(-HALF_SIDE_KM, Math.min(HALF_SIDE_KM, (v.lat - CENTRE.lat) * KM_PER_DEG_LAT + gauss(r) * v.spread)));
+    } else p = at((r() * 2 - 1) * HALF_SIDE_KM, (r() * 2 - 1) * HALF_SIDE_KM);
+    const kind = weighted(r, kinds);
+    const m = kind.make(r);
+    const id = `bench-${size}-${i}`;
+    const approx = approximatePoint(id, p.lat, p.lng);
+    const held = r() < 0.1 ? m.qty : r() < 0.2 ? Math.floor(m.qty / 2) : 0;
+    rows.push({
+      id, owner_id: pick(r, owners), material_code: kind.material, title: `${MATERIALS[kind.material].name} ${i}`, description: "", status: weighted(r, STATUSES),
+      unit: m.unit, unit_size: m.unit_size, unit_mass_kg: m.unit_mass_kg, quantity_total: m.qty, quantity_held: held, quantity_collected: 0,
+      price_cents: m.price, currency: "eur", deposit_cents: 0, max_per_reservation: m.max, auto_accept: r() < 0.5,
+      lat: p.lat, lng: p.lng, address: `${i} Bench Lane`, approx_lat: approx.lat, approx_lng: approx.lng,
+      available_from: created, available_until: new Date(now + (r() < 0.05 ? -1 : 1) * (1 + r() * 200) * 86_400_000).toISOString(),
+      quality: "{}", created_at: created, updated_at: created,
+    });
+  }
+  await k.transaction(async (trx) => {
+    for (let i = 0; i < rows.length; i += 500) await trx("listings").insert(rows.slice(i, i + 500));
+  });
+  return k;
+}

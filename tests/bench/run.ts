@@ -1,0 +1,129 @@
+// npm run bench — matching at 1k, 10k and 100k listings against a naive full scan, then the
+// HTTP throughput of /api/match and /api/listings against /api/health on a production build.
+// Environment: BENCH_SIZES=1000,10000 to run fewer sizes; BENCH_HTTP=0 to skip the HTTP part.
+import os from "node:os";
+import path from "node:path";
+import { performance } from "node:perf_hooks";
+import type { Knex } from "knex";
+import { MATERIAL_CODES } from "@/lib/calc/facts";
+import { estimate } from "@/lib/calc/estimate";
+import { databaseSource, nearestListings } from "@/lib/match/candidates";
+import { matchPlan } from "@/lib/match/plan";
+import { searchPlan } from "@/lib/match/search";
+import type { Need } from "@/lib/match/types";
+import { prng } from "@/seeds/ids";
+import { at, buildDataset, HALF_SIDE_KM } from "./dataset";
+import { runHttpBench } from "./http";
+import { naiveCandidates, naiveNearest } from "./naive";
+
+const SIZES = (process.env.BENCH_SIZES ?? "1000,10000,100000").split(",").map(Number);
+const RADIUS_KM = 25;
+const NEAR_LIMIT = 50;
+
+/** Five needs: a 4 × 2.5 m bed's cardboard, leaves, straw and worms, and coffee grounds to go with them. */
+export const BENCH_NEEDS: Need[] = [
+  ...estimate({ bed: { length_m: 4, width_m: 2.5 } }).needs.map((n) => ({ material: n.material, quantity: n.quantity, unit: n.unit })),
+  { material: "coffee_grounds", quantity: 10, unit: "kg" },
+];
+
+function percentile(xs: number[], p: number): number {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[Math.min(s.length - 1, Math.max(0, Math.ceil((p / 100) * s.length) - 1))];
+}
+
+async function time<T>(runs: number, origins: { lat: number; lng: number }[], fn: (o: { lat: number; lng: number }) => Promise<T>) {
+  // Warm-up, so the first size does not pay for the JIT compiling the matcher.
+  for (let i = 0; i < Math.min(20, runs); i++) await fn(origins[(origins.length - 1 - i) % origins.length]);
+  const ms: number[] = [];
+  const out: T[] = [];
+  for (let i = 0; i < runs; i++) {
+    const t = performance.now();
+    out.push(await fn(origins[i % origins.length]));
+    ms.push(performance.now() - t);
+  }
+  return { p50: percentile(ms, 50), p95: percentile(ms, 95), out };
+}
+
+const f1 = (x: number) => x.toFixed(x < 10 ? 2 : 1);
+
+interface Row {
+  size: number;
+  near: { p50: number; p95: number };
+  nearNaive: { p50: number; p95: number };
+  match: { p50: number; p95: number };
+  matchNaive: { p50: number; p95: number };
+  candidates: number;
+  costRatio: number;
+}
+
+async function benchSize(size: number, dir: string): Promise<{ row: Row; k: Knex; file: string }> {
+  const file = path.join(dir, `duffbank-bench-${size}.sqlite`);
+  const t0 = performance.now();
+  const k = await buildDataset(file, size);
+  console.log(`[bench] ${size.toLocaleString("en-US")} listings written to ${file} in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+  const r = prng(7 + size);
+  const origins = Array.from({ length: 200 }, () => at((r() * 2 - 1) * (HALF_SIDE_KM - 3), (r() * 2 - 1) * (HALF_SIDE_KM - 3)));
+  const runs = 200;
+  const naiveRuns = size >= 100_000 ? 30 : size >= 10_000 ? 60 : 200;
+  const source = databaseSource(k);
+  const materials = BENCH_NEEDS.map((n) => n.material);
+
+  const near = await time(runs, origins, (o) => nearestListings({ origin: o, radius_km: RADIUS_KM, materials: MATERIAL_CODES, limit: NEAR_LIMIT }, k));
+  const nearNaive = await time(naiveRuns, origins, (o) => naiveNearest(k, o, RADIUS_KM, MATERIAL_CODES, NEAR_LIMIT));
+  // The indexed query must find exactly the naive scan's nearest listings.
+  near.out.slice(0, naiveRuns).forEach((found, i) => {
+    if (found.map((c) => c.id).join() !== nearNaive.out[i].map((c) => c.id).join()) throw new Error(`near-query differs from the full scan at origin ${i}`);
+  });
+  const match = await time(runs, origins, (o) => searchPlan(BENCH_NEEDS, o, RADIUS_KM, source));
+  const matchNaive = await time(naiveRuns, origins, async (o) => matchPlan(BENCH_NEEDS, await naiveCandidates(k, o, RADIUS_KM, materials), o));
+  const ratios = matchNaive.out.map((plan, i) => match.out[i].plan.totals.cost_cents / plan.totals.cost_cents);
+  const unmet = match.out.slice(0, naiveRuns).filter((x, i) => x.plan.unmet.length !== matchNaive.out[i].unmet.length).length;
+  if (unmet) console.log(`[bench] ${unmet} origins where the indexed plan left a different number of needs unmet than the full scan`);
+  const row: Row = {
+    size,
+    near,
+    nearNaive,
+    match,
+    matchNaive,
+    candidates: match.out.reduce((s, x) => s + x.stats.candidates, 0) / match.out.length,
+    costRatio: ratios.reduce((a, b) => a + b, 0) / ratios.length,
+  };
+  return { row, k, file };
+}
+
+function table(rows: Row[]) {
+  const lines = [
+    "| listings | near-query p50 / p95 (ms) | naive p50 / p95 (ms) | × faster (p95) | match p50 / p95 (ms) | naive match p50 / p95 (ms) | × faster (p95) | listings read per match | plan cost vs naive |",
+    "|---:|---:|---:|---:|---:|---:|---:|---:|---:|",
+    ...rows.map((r) =>
+      `| ${r.size.toLocaleString("en-US")} | ${f1(r.near.p50)} / ${f1(r.near.p95)} | ${f1(r.nearNaive.p50)} / ${f1(r.nearNaive.p95)} | ${(r.nearNaive.p95 / r.near.p95).toFixed(0)} | ` +
+      `${f1(r.match.p50)} / ${f1(r.match.p95)} | ${f1(r.matchNaive.p50)} / ${f1(r.matchNaive.p95)} | ${(r.matchNaive.p95 / r.match.p95).toFixed(0)} | ${r.candidates.toFixed(0)} | ${(100 * r.costRatio).toFixed(1)} % |`,
+    ),
+  ];
+  return lines.join("\n");
+}
+
+async function main() {
+  const dir = process.env.BENCH_DIR ?? os.tmpdir();
+  console.log(`[bench] ${os.cpus().length} × ${os.cpus()[0]?.model ?? "cpu"}, Node ${process.version}; ${BENCH_NEEDS.length} needs within ${RADIUS_KM} km; near-query = the ${NEAR_LIMIT} nearest listings within ${RADIUS_KM} km`);
+  const rows: Row[] = [];
+  let biggest: { k: Knex; file: string } | null = null;
+  for (const size of SIZES) {
+    const { row, k, file } = await benchSize(size, dir);
+    rows.push(row);
+    if (biggest) await biggest.k.destroy();
+    biggest = { k, file };
+  }
+  console.log(`\n${table(rows)}\n`);
+  const [first, last] = [rows[0], rows[rows.length - 1]];
+  if (rows.length > 1) {
+    console.log(`[bench] listings grew ${(last.size / first.size).toFixed(0)}×; match p95 grew ${(last.match.p95 / first.match.p95).toFixed(1)}×, the naive scan's ${(last.matchNaive.p95 / first.matchNaive.p95).toFixed(1)}×`);
+  }
+  if (biggest) await biggest.k.destroy();
+  if (process.env.BENCH_HTTP !== "0" && biggest) await runHttpBench(biggest.file, BENCH_NEEDS);
+}
+
+if (process.argv[1]?.endsWith("run.ts")) main().catch((err) => {
+  console.error(err);
+  process.exit(1);
+});

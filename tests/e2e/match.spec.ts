@@ -1,0 +1,112 @@
+import path from "node:path";
+import { expect, test, type Page } from "@playwright/test";
+import { seedId } from "../../seeds/ids";
+import { storageState } from "./roles";
+
+const BED = seedId("bed:back-fence");
+const shots = process.env.E2E_DIR ? path.join(process.env.E2E_DIR, "shots") : "test-results/shots";
+const stops = (page: Page) => page.locator("main [data-stop]");
+
+test.describe("a gardener's saved bed", () => {
+  test.use({ storageState: storageState("gardener") });
+
+  test("finds materials: a route on the map and a plan covering every need", async ({ page }) => {
+    await page.goto(`/beds/${BED}/materials`);
+    await expect(page.getByRole("heading", { name: "Find materials for Back fence bed" })).toBeVisible();
+    await expect(stops(page).first()).toBeVisible({ timeout: 20_000 });
+    // The bed's four layers, all covered by the demo town's listings.
+    const needs = page.locator("main section[aria-labelledby='needs-title'] li");
+    await expect(needs).toHaveCount(4);
+    for (const name of ["Corrugated cardboard", "Fallen leaves", "Straw", "Composting worms"]) await expect(needs.filter({ hasText: name })).toHaveCount(1);
+    expect(await stops(page).count()).toBeGreaterThanOrEqual(4);
+    await expect(page.getByText(/Still missing/)).toHaveCount(0);
+    // Numbered stops and the dashed route line on the map.
+    const map = page.getByRole("region", { name: /Map of the route/ });
+    await expect(map.locator(".duff-stop-number")).toHaveCount(await stops(page).count());
+    await expect(map.locator("path[stroke-dasharray='6 6']")).toHaveCount(1);
+    await expect(page.locator("main [data-total='Stops']")).toHaveText(String(await stops(page).count()));
+    await expect(page.getByRole("button", { name: /Reserve all \d+ pickups/ })).toBeEnabled();
+    await page.screenshot({ path: path.join(shots, "bed-materials.png"), fullPage: true });
+  });
+
+  test("a bed that is not theirs is not found", async ({ page }) => {
+    const res = await page.goto(`/beds/${seedId("bed:nobody")}/materials`);
+    expect(res?.status()).toBe(404);
+    await expect(page.getByRole("heading", { name: /Nothing here/ })).toBeVisible();
+  });
+
+  test("reserve all hands the plan to the reservation flow, and goes to the reservations", async ({ page }) => {
+    let sent: any = null;
+    await page.route("**/api/reservations", async (route) => {
+      sent = route.request().postDataJSON();
+      await route.fulfill({ status: 201, contentType: "application/json", body: JSON.stringify({ reservations: [] }) });
+    });
+    await page.goto(`/beds/${BED}/materials`);
+    await expect(stops(page).first()).toBeVisible({ timeout: 20_000 });
+    await page.getByRole("button", { name: /Reserve all/ }).click();
+    await expect(page).toHaveURL(/\/reservations$/);
+    expect(sent.bed_id).toBe(BED);
+    expect(sent.items.length).toBeGreaterThanOrEqual(4);
+    for (const item of sent.items) {
+      expect(typeof item.listing_id).toBe("string");
+      expect(item.quantity).toBeGreaterThan(0);
+    }
+  });
+
+  test("a refusal from the reservation flow is shown, not swallowed", async ({ page }) => {
+    await page.route("**/api/reservations", (route) =>
+      route.fulfill({ status: 409, contentType: "application/json", body: JSON.stringify({ error: { code: "insufficient_quantity", message: "Someone reserved the last of the straw a moment ago." } }) }),
+    );
+    await page.goto(`/beds/${BED}/materials`);
+    await expect(stops(page).first()).toBeVisible({ timeout: 20_000 });
+    await page.getByRole("button", { name: /Reserve all/ }).click();
+    await expect(page.locator("main [role='alert']")).toContainText("Someone reserved the last of the straw");
+  });
+});
+
+test.describe("the public planner", () => {
+  test("plans from needs in the link, in either unit system", async ({ page }) => {
+    await page.goto("/match?lat=52.205&lng=0.847&radius_km=15&needs=leaves:0.45:m3,cardboard:3.6:m2,straw:0.18:m3");
+    await expect(stops(page).first()).toBeVisible({ timeout: 20_000 });
+    await expect(page.getByText(/Still missing/)).toHaveCount(0);
+    await expect(page.locator("main [data-total='Driving']")).toContainText("km");
+    await page.getByText("ft, lb").click();
+    await expect(page.locator("main [data-total='Driving']")).toContainText("mi");
+    await expect(stops(page).filter({ hasText: "ft³" }).first()).toBeVisible();
+    await page.screenshot({ path: path.join(shots, "match-public.png"), fullPage: true });
+  });
+
+  test("says what is missing and looks further when asked", async ({ page }) => {
+    await page.goto("/match?lat=52.205&lng=0.847&radius_km=10&needs=worms:400:kg");
+    await expect(page.getByText(/Still missing/)).toBeVisible({ timeout: 20_000 });
+    await page.getByRole("button", { name: /Look further, up to 20 km/ }).click();
+    await expect(page).toHaveURL(/radius_km=20/);
+    await expect(page.getByRole("heading", { name: /Not enough within 20 km/ })).toBeVisible({ timeout: 20_000 });
+    await page.screenshot({ path: path.join(shots, "match-unmet.png"), fullPage: true });
+  });
+
+  test("offers a substitute for a material nobody has nearby", async ({ page }) => {
+    await page.goto("/match?lat=52.205&lng=0.847&radius_km=15&needs=straw:40:m3");
+    await expect(page.getByText(/Still missing/)).toBeVisible({ timeout: 20_000 });
+    await page.getByRole("button", { name: "Use wood chips instead" }).click();
+    await expect(page).toHaveURL(/wood_chips/);
+    await expect(stops(page).filter({ hasText: /wood chips/i }).first()).toBeVisible({ timeout: 20_000 });
+  });
+
+  test("checks the form with the same rules as the server", async ({ page }) => {
+    await page.goto("/match");
+    await page.getByLabel("Look within (km)").fill("500");
+    await page.getByRole("button", { name: "Find materials" }).click();
+    await expect(page.getByText("radius_km must be at most 200 km")).toBeVisible();
+  });
+
+  test("a visitor who reserves is sent to sign in first", async ({ page }) => {
+    await page.route("**/api/reservations", (route) =>
+      route.fulfill({ status: 401, contentType: "application/json", body: JSON.stringify({ error: { code: "unauthenticated", message: "Sign in to do this." } }) }),
+    );
+    await page.goto("/match?lat=52.205&lng=0.847&radius_km=15&needs=cardboard:3.6:m2");
+    await expect(stops(page).first()).toBeVisible({ timeout: 20_000 });
+    await page.getByRole("button", { name: /Reserve all/ }).click();
+    await expect(page).toHaveURL(/\/sign-in\?callbackUrl=%2Fmatch/);
+  });
+});

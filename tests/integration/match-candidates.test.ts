@@ -1,0 +1,96 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import fc from "fast-check";
+import { destination } from "@turf/turf";
+import { freshDb } from "../helpers/db";
+import { createUser } from "../factories";
+import { insertListing } from "../helpers/match";
+import { databaseSource, findCandidates, findCheapest, nearestListings } from "@/lib/match/candidates";
+import { boundingBox, distanceKm } from "@/lib/match/geo";
+
+let ctx: Awaited<ReturnType<typeof freshDb>>;
+let owner: string;
+beforeAll(async () => {
+  ctx = await freshDb({ seed: true });
+  owner = (await createUser({ roles: ["supplier"] })).id;
+});
+afterAll(() => ctx.close());
+
+/** Every statement the block sends, with its query plan. */
+async function plansOf(fn: () => Promise<unknown>) {
+  const seen: { sql: string; bindings: unknown[] }[] = [];
+  const listener = (q: { sql: string; bindings: unknown[] }) => seen.push(q);
+  ctx.db.on("query", listener);
+  try {
+    await fn();
+  } finally {
+    ctx.db.removeListener("query", listener);
+  }
+  return Promise.all(
+    seen.filter((q) => /from listings/i.test(q.sql)).map(async (q) => ({ sql: q.sql, plan: (await ctx.db.raw(`EXPLAIN QUERY PLAN ${q.sql}`, q.bindings as never)).map((r: any) => r.detail).join("; ") })),
+  );
+}
+
+describe("candidate queries", () => {
+  const origin = { lat: 52.205, lng: 0.847 };
+  it("never scan the listings table: each goes through an index", async () => {
+    const src = databaseSource(ctx.db);
+    const plans = await plansOf(async () => {
+      await findCandidates({ origin, radius_km: 10, materials: ["leaves", "straw"] }, ctx.db);
+      await findCheapest({ origin, radius_km: 10, materials: ["straw"], limit: 24 }, ctx.db);
+      await src.inBox(["worms"], boundingBox(origin, 3), origin, 2000);
+      await nearestListings({ origin, radius_km: 10, materials: ["leaves"], limit: 5 }, ctx.db);
+    });
+    expect(plans.length).toBeGreaterThanOrEqual(4);
+    for (const p of plans) {
+      expect(p.plan, p.sql).toMatch(/SEARCH listings USING INDEX listings_(search_box|unit_price)/);
+      expect(p.plan, p.sql).not.toMatch(/SCAN listings|TEMP B-TREE/);
+    }
+  });
+
+  it("find the same nearest listings as measuring every one", async () => {
+    const all = (await ctx.db("listings").where({ status: "active" }).select("id", "approx_lat", "approx_lng"))
+      .map((r: any) => ({ id: r.id, d: distanceKm(origin, { lat: r.approx_lat, lng: r.approx_lng }) }))
+      .sort((a: any, b: any) => a.d - b.d);
+    const near = await nearestListings({ origin, radius_km: 20, materials: ["cardboard", "leaves", "straw", "worms", "grass_clippings", "coffee_grounds", "wood_chips", "manure", "compost"], limit: 7 }, ctx.db);
+    expect(near.map((c) => c.id)).toEqual(all.slice(0, 7).map((x: any) => x.id));
+  });
+
+  it("list the cheapest per unit size first, and say when they stopped short", async () => {
+    const got = await findCheapest({ origin, radius_km: 15, materials: ["straw"], limit: 3 }, ctx.db);
+    const perSize = got.rows.map((c) => c.price_cents / (c.unit_size ?? 1));
+    expect(perSize).toEqual([...perSize].sort((a, b) => a - b));
+    expect(got.last_unit_price).not.toBeNull();
+    const everything = await findCheapest({ origin, radius_km: 15, materials: ["straw"], limit: 1000 }, ctx.db);
+    expect(everything.last_unit_price).toBeNull();
+    expect(Math.min(...everything.rows.map((c) => c.price_cents / (c.unit_size ?? 1)))).toBeGreaterThanOrEqual(perSize[0] - 1e-9);
+  });
+
+  it("never drop a listing inside the radius, however close to its edge (fast-check)", async () => {
+    await fc.assert(
+      fc.asyncProperty(
+        fc.record({ lat: fc.double({ min: -60, max: 60, noNaN: true }), lng: fc.double({ min: -170, max: 170, noNaN: true }) }),
+        fc.double({ min: 0.2, max: 200, noNaN: true }),
+        fc.array(fc.record({ bearing: fc.double({ min: -180, max: 180, noNaN: true }), edge: fc.double({ min: 0.995, max: 1.005, noNaN: true }) }), { minLength: 1, maxLength: 12 }),
+        async (centre, km, points) => {
+          const ids: string[] = [];
+          for (const p of points) {
+            const [lng, lat] = destination([centre.lng, centre.lat], km * p.edge, p.bearing, { units: "kilometers" }).geometry.coordinates;
+            ids.push(await insertListing(ctx.db, { owner_id: owner, material_code: "compost", unit: "m3", approx: { lat, lng } }));
+          }
+          try {
+            const found = new Set((await findCandidates({ origin: centre, radius_km: km, materials: ["compost"] }, ctx.db)).map((c) => c.id));
+            const rows = await ctx.db("listings").whereIn("id", ids).select("id", "approx_lat", "approx_lng");
+            for (const r of rows) {
+              const inside = distanceKm(centre, { lat: r.approx_lat, lng: r.approx_lng }) <= km;
+              if (inside !== found.has(r.id)) return false;
+            }
+            return true;
+          } finally {
+            await ctx.db("listings").whereIn("id", ids).delete();
+          }
+        },
+      ),
+      { numRuns: 60 },
+    );
+  });
+});
