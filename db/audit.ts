@@ -26,3 +26,37 @@ export async function recordAudit(entry: AuditEntry, q: Db = db()): Promise<void
 export async function auditFor(subject_type: string, subject_id: string, q: Db = db()): Promise<AuditRow[]> {
   return q<AuditRow>("audit_log").select("*").where({ subject_type, subject_id }).orderBy("id");
 }
+
+export interface AuditSearch {
+  action?: string;
+  actor_id?: string;
+  subject_type?: string;
+  subject_id?: string;
+  /** Keyset paging: rows older than this id. */
+  before_id?: number;
+  limit: number;
+}
+
+/** Newest first, with the actor's name; filters match exactly except `action`, which matches a prefix ("giveaway."). */
+export async function searchAudit(s: AuditSearch, q: Db = db()): Promise<(AuditRow & { actor_name: string | null; actor_email: string | null })[]> {
+  const query = q("audit_log as a")
+    .leftJoin("users as u", "u.id", "a.actor_id")
+    .select("a.id", "a.actor_id", "a.action", "a.subject_type", "a.subject_id", "a.before", "a.after", "a.created_at", "u.display_name as actor_name", "u.email as actor_email");
+  if (s.action) query.where("a.action", "like", `${s.action.replace(/[%_\\]/g, "")}%`);
+  if (s.actor_id) query.where("a.actor_id", s.actor_id);
+  if (s.subject_type) query.where("a.subject_type", s.subject_type);
+  if (s.subject_id) query.where("a.subject_id", s.subject_id);
+  if (s.before_id) query.where("a.id", "<", s.before_id);
+  return query.orderBy("a.id", "desc").limit(s.limit);
+}
+
+/** The latest row of one action on a subject (e.g. the hide that a restore undoes). */
+export async function lastAudit(subject_type: string, subject_id: string, action: string, q: Db = db()): Promise<AuditRow | undefined> {
+  return q<AuditRow>("audit_log").first("*").where({ subject_type, subject_id, action }).orderBy("id", "desc");
+}
+
+/** Which of `actions` were taken on a subject since `since`, oldest first. */
+export async function auditActionsSince(subject_type: string, subject_id: string, since: string, actions: string[], q: Db = db()): Promise<string[]> {
+  const rows: { action: string }[] = await q("audit_log").select("action").where({ subject_type, subject_id }).andWhere("created_at", ">=", since).whereIn("action", actions).orderBy("id");
+  return rows.map((r) => r.action);
+}

@@ -3,6 +3,8 @@ import * as core from "../migrations/20261201_001_core";
 import * as reviews from "../migrations/20261201_002_reviews";
 import * as listingSearch from "../migrations/20261201_003_listing_search";
 import * as listingUnitPrice from "../migrations/20261201_004_listing_unit_price";
+import * as reservations from "../migrations/20261201_005_reservations";
+import * as community from "../migrations/20261201_006_community";
 
 // Migrations are listed here rather than found on disk so that the same list runs under
 // the CLI script, Vitest and the bundled Next.js server alike. Add new ones at the end.
@@ -11,6 +13,8 @@ const migrations: Record<string, Knex.Migration> = {
   "20261201_002_reviews": reviews,
   "20261201_003_listing_search": listingSearch,
   "20261201_004_listing_unit_price": listingUnitPrice,
+  "20261201_005_reservations": reservations,
+  "20261201_006_community": community,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -15,3 +15,7 @@ export async function pendingRoleRequests(q: Db = db()) {
     .where("r.status", "requested")
     .orderBy("r.created_at");
 }
+
+export async function findOrganisation(id: string, q: Db = db()): Promise<{ id: string; name: string; kind: string } | undefined> {
+  return q("organisations").first("id", "name", "kind").where({ id });
+}

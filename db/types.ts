@@ -120,3 +120,168 @@ export interface PickupWindowRow {
   starts_at: string | null;
   ends_at: string | null;
 }
+
+export interface ReservationRow {
+  id: string;
+  listing_id: string;
+  gardener_id: string;
+  bed_id: string | null;
+  pickup_window_id: string | null;
+  group_id: string | null;
+  quantity: number;
+  status: "held" | "confirmed" | "collected" | "declined" | "cancelled" | "expired" | "no_show";
+  payment_state: "none" | "awaiting" | "paid" | "authorised" | "released" | "captured" | "refunded";
+  hold_expires_at: string | null;
+  pickup_code: string | null;
+  pickup_at: string | null;
+  pickup_by: string | null;
+  amount_cents: number;
+  deposit_cents: number;
+  currency: string;
+  confirmed_at: string | null;
+  closed_at: string | null;
+  cancelled_by: "gardener" | "supplier" | null;
+  expiry_warned_at: string | null;
+  pickup_reminded_at: string | null;
+  created_at: string;
+  updated_at: string;
+}
+
+export interface PaymentRow {
+  id: string;
+  reservation_id: string;
+  parent_id: string | null;
+  kind: "payment" | "deposit" | "refund";
+  provider: string;
+  provider_ref: string | null; // checkout session id, or refund id
+  payment_intent_id: string | null;
+  checkout_url: string | null;
+  // creating | open | expired | authorised | paid | released | captured | refunded (refunds: pending | succeeded | failed)
+  status: string;
+  amount_cents: number;
+  captured_cents: number;
+  refunded_cents: number;
+  currency: string;
+  idempotency_key: string;
+  last_error: string | null;
+  pending_action: "expire" | "release" | "capture" | "refund" | null;
+  action_attempts: number;
+  next_action_at: string | null;
+  created_at: string;
+  updated_at: string;
+}
+
+export interface ReservationEventRow {
+  id: number;
+  reservation_id: string;
+  from_status: string | null;
+  to_status: string;
+  actor_id: string | null;
+  note: string | null;
+  created_at: string;
+}
+
+export interface ReservationMessageRow {
+  id: string;
+  reservation_id: string;
+  author_id: string;
+  body: string;
+  created_at: string;
+}
+
+export interface InviteRow {
+  id: string;
+  organisation_id: string;
+  email: string;
+  token_hash: string;
+  invited_by: string;
+  status: "pending" | "accepted" | "revoked";
+  expires_at: string;
+  accepted_by: string | null;
+  accepted_at: string | null;
+  created_at: string;
+}
+
+export interface GiveawayDayRow {
+  id: string;
+  organisation_id: string;
+  created_by: string;
+  material_code: string;
+  title: string;
+  notes: string;
+  date: string;
+  time_zone: string;
+  lat: number;
+  lng: number;
+  address: string;
+  approx_lat: number;
+  approx_lng: number;
+  unit: "bags" | "m3";
+  unit_size: number | null;
+  household_cap: number;
+  booking_opens_at: string;
+  booking_closes_at: string;
+  cancel_cutoff_hours: number;
+  deposit_cents: number;
+  currency: string;
+  status: "scheduled" | "cancelled";
+  cancel_reason: string | null;
+  cancelled_at: string | null;
+  created_at: string;
+  updated_at: string;
+}
+
+export interface GiveawaySlotRow {
+  id: string;
+  day_id: string;
+  starts_at: string;
+  ends_at: string;
+  capacity: number;
+  booked: number;
+  created_at: string;
+}
+
+export type BookingStatus = "booked" | "cancelled" | "checked_in" | "no_show";
+
+export interface GiveawayBookingRow {
+  id: string;
+  day_id: string;
+  slot_id: string;
+  user_id: string;
+  quantity: number;
+  status: BookingStatus;
+  deposit_cents: number;
+  deposit_status: "none" | "recorded" | "released" | "forfeit";
+  currency: string;
+  checked_in_at: string | null;
+  checked_in_by: string | null;
+  cancelled_at: string | null;
+  created_at: string;
+  updated_at: string;
+}
+
+export type ReportReason = "contaminated" | "misdescribed" | "no_show" | "unsafe" | "other";
+
+export interface ReportRow {
+  id: string;
+  reporter_id: string;
+  subject_type: "listing" | "user";
+  listing_id: string | null;
+  subject_user_id: string | null;
+  reason: ReportReason;
+  text: string;
+  status: "open" | "closed";
+  outcome_note: string | null;
+  closed_by: string | null;
+  closed_at: string | null;
+  created_at: string;
+}
+
+export interface GrowerShippingRow {
+  user_id: string;
+  ship_weekdays: string;
+  paused: boolean | 0 | 1;
+  pause_reason: "heat" | "frost" | "other" | null;
+  pause_note: string | null;
+  updated_at: string;
+}

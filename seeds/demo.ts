@@ -5,6 +5,7 @@ import { approximatePoint } from "../lib/geo/approximate";
 import { demoListings } from "./listings";
 import { DEMO_PASSWORD, ORGANISATIONS, PEOPLE, TOWN } from "./town";
 import { seedId } from "./ids";
+import { seedCommunity } from "./community";
 
 // The demo scenario. Idempotent: every row has a fixed id and is written with
 // "insert or ignore", so a second run changes nothing, and rows people made while trying
@@ -133,6 +134,7 @@ export async function seed(knex: Knex): Promise<Record<string, number>> {
       })
       .onConflict("id")
       .ignore();
+    await seedCommunity(trx);
   });
 
   const counts: Record<string, number> = {};

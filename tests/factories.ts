@@ -32,6 +32,51 @@ export async function createUser(opts: { roles?: Role[]; email?: string; orgId?:
   return { id, email, orgId };
 }
 
+/** An active listing owned by `owner_id` (a council's when orgId is given). */
+export async function createListing(opts: {
+  owner_id: string;
+  orgId?: string;
+  material?: string;
+  unit?: "sheets" | "m2" | "bags" | "m3" | "bales" | "kg";
+  unit_size?: number | null;
+  quantity_total?: number;
+  status?: string;
+  title?: string;
+  quality?: Record<string, unknown>;
+}) {
+  const id = newId();
+  const now = nowIso();
+  await db()("listings").insert({
+    id,
+    owner_id: opts.owner_id,
+    organisation_id: opts.orgId ?? null,
+    material_code: opts.material ?? "leaves",
+    title: opts.title ?? `Test listing ${++n}`,
+    description: "",
+    status: opts.status ?? "active",
+    unit: opts.unit ?? "bags",
+    unit_size: opts.unit_size === undefined ? null : opts.unit_size,
+    quantity_total: opts.quantity_total ?? 20,
+    lat: 52.2,
+    lng: 0.85,
+    address: "1 Test Lane",
+    approx_lat: 52.203,
+    approx_lng: 0.852,
+    quality: JSON.stringify(opts.quality ?? {}),
+    created_at: now,
+    updated_at: now,
+  });
+  return { id };
+}
+
+/** A reservation row as the reservations feature leaves it (for reports that read them). */
+export async function createReservation(opts: { listing_id: string; gardener_id: string; quantity: number; status: string; updated_at?: string; closed_at?: string }) {
+  const id = newId();
+  const at = opts.updated_at ?? nowIso();
+  await db()("reservations").insert({ id, listing_id: opts.listing_id, gardener_id: opts.gardener_id, quantity: opts.quantity, status: opts.status, created_at: at, updated_at: at, closed_at: opts.closed_at ?? null });
+  return { id };
+}
+
 /** A valid POST /api/listings body (leaf bags near the demo town's centre), with overrides. */
 export function listingBody(overrides: Record<string, unknown> = {}) {
   return {

@@ -1,5 +1,11 @@
 import Link from "next/link";
 import { buttonClass } from "@/components/ui/button";
+import { platformDivertedKg } from "@/lib/services/diversion-report";
+import { countVisibleListings } from "@/db/listing-status";
+import { formatKg } from "@/components/reports/format";
+
+// The figures below are live, so the page is rendered per request.
+export const dynamic = "force-dynamic";
 
 const STEPS = [
   { title: "Plan the bed", body: "Give its size or draw it on the map. Duffbank works out the cardboard, leaves, straw, water and worms it takes, and the year ahead." },
@@ -8,7 +14,8 @@ const STEPS = [
   { title: "Let it turn to soil", body: "Reminders for the first soaks, the day to add worms, and the checks at six months and a year." },
 ];
 
-export default function Home() {
+export default async function Home() {
+  const [keptKg, onOffer] = await Promise.all([platformDivertedKg(), countVisibleListings()]);
   return (
     <div className="flex flex-col gap-12">
       <section className="grid items-center gap-8 md:grid-cols-[1.2fr_1fr]">
@@ -48,6 +55,25 @@ export default function Home() {
           </svg>
           <figcaption className="mt-2 text-sm text-humus-600">Layers go straight on the ground: no digging, no turning.</figcaption>
         </figure>
+      </section>
+      <section aria-labelledby="kept-title" className="flex flex-wrap items-center justify-between gap-4 rounded-leaf bg-moss-700 p-6 text-moss-50">
+        <div>
+          <h2 id="kept-title" className="text-sm font-semibold uppercase tracking-wide text-moss-100">
+            Kept from the bin so far
+          </h2>
+          <p className="text-4xl font-bold" data-testid="kept-kg">
+            {formatKg(keptKg)}
+          </p>
+          <p className="mt-1 max-w-prose text-sm text-moss-100">
+            Leaves, straw, cardboard, grounds and chips collected through Duffbank and at council giveaway days, weighed with published bulk densities.
+          </p>
+        </div>
+        <p className="text-lg">
+          <strong data-testid="on-offer">{onOffer}</strong> listings on offer now ·{" "}
+          <Link href="/giveaways" className="font-semibold text-white underline underline-offset-4">
+            Giveaway days
+          </Link>
+        </p>
       </section>
       <section aria-labelledby="how-title">
         <h2 id="how-title" className="mb-4 text-2xl font-bold">

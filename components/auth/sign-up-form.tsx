@@ -13,10 +13,10 @@ import { Notice } from "@/components/ui/notice";
 
 type Values = z.input<typeof signUpSchema>;
 
-export function SignUpForm() {
+export function SignUpForm({ callbackUrl, email = "" }: { callbackUrl?: string; email?: string } = {}) {
   const router = useRouter();
   const [error, setError] = useState<string | null>(null);
-  const form = useForm<Values>({ resolver: zodResolver(signUpSchema), defaultValues: { email: "", display_name: "", password: "", unit_system: "metric" } });
+  const form = useForm<Values>({ resolver: zodResolver(signUpSchema), defaultValues: { email, display_name: "", password: "", unit_system: "metric" } });
 
   const onSubmit = form.handleSubmit(async (values) => {
     setError(null);
@@ -34,7 +34,7 @@ export function SignUpForm() {
       router.push("/sign-in");
       return;
     }
-    router.push("/profile?welcome=1");
+    router.push(callbackUrl ?? "/profile?welcome=1");
     router.refresh();
   });
 

@@ -33,10 +33,10 @@ export function SiteHeader({ user }: { user: SessionUser | null }) {
 function NavList({ links, user, vertical = false }: { links: { href: string; label: string }[]; user: SessionUser | null; vertical?: boolean }) {
   return (
     <nav aria-label="Main">
-      <ul className={`flex gap-1 ${vertical ? "flex-col" : "items-center"}`}>
+      <ul className={`flex gap-1 ${vertical ? "flex-col" : "flex-wrap items-center justify-end"}`}>
         {links.map((l) => (
           <li key={l.href}>
-            <Link href={l.href} className="block rounded-lg px-3 py-2 font-medium text-humus-800 hover:bg-humus-100">
+            <Link href={l.href} className="block whitespace-nowrap rounded-lg px-3 py-2 font-medium text-humus-800 hover:bg-humus-100">
               {l.label}
             </Link>
           </li>
@@ -44,7 +44,7 @@ function NavList({ links, user, vertical = false }: { links: { href: string; lab
         {user ? (
           <>
             <li>
-              <Link href="/profile" className="block rounded-lg px-3 py-2 font-medium text-humus-800 hover:bg-humus-100" title={user.roles.map((r) => ROLE_LABELS[r]).join(", ")}>
+              <Link href="/profile" className="block max-w-[14rem] truncate rounded-lg px-3 py-2 font-medium text-humus-800 hover:bg-humus-100" title={user.roles.map((r) => ROLE_LABELS[r]).join(", ")}>
                 {user.name}
               </Link>
             </li>

@@ -14,6 +14,21 @@ import {
   reorderPhotosSchema,
   updateListingSchema,
 } from "@/lib/validation/listings";
+import { cancelSchema, collectSchema, confirmSchema, createReservationSchema, declineSchema, messageSchema, noShowSchema, reviewSchema } from "@/lib/validation/reservations";
+import {
+  addSlotsSchema,
+  attendanceSchema,
+  bookingSchema,
+  cancelGiveawaySchema,
+  createGiveawaySchema,
+  giveawaySearchSchema,
+  updateGiveawaySchema,
+  updateSlotSchema,
+} from "@/lib/validation/giveaways";
+import { acceptInviteSchema, inviteSchema } from "@/lib/validation/council";
+import { auditQuerySchema, closeReportSchema, listingModerationSchema, reportQueueQuerySchema, reportSchema, userModerationSchema } from "@/lib/validation/moderation";
+import { diversionQuerySchema } from "@/lib/validation/reports";
+import { cultureSchema, shippingSchema } from "@/lib/validation/grower";
 import { matchSchema } from "@/lib/validation/match";
 
 export interface RouteDoc {
@@ -59,4 +74,50 @@ export const API_ROUTES: RouteDoc[] = [
   { method: "patch", path: "/api/beds/{id}", summary: "Change a bed", tag: "beds", auth: ["gardener"], body: updateBedSchema, errors: [400, 401, 403, 404, 422] },
   { method: "delete", path: "/api/beds/{id}", summary: "Delete a bed", tag: "beds", auth: ["gardener"], status: 204, errors: [401, 403, 404] },
   { method: "get", path: "/api/beds/{id}/calendar.ics", summary: "The bed's timeline as iCalendar", tag: "beds", auth: ["gardener"], responseDescription: "text/calendar", errors: [401, 403, 404] },
+  { method: "post", path: "/api/reservations", summary: "Hold a quantity of a listing (or several, all or nothing) for a gardener", tag: "reservations", auth: ["gardener"], body: createReservationSchema, status: 201, responseDescription: "{ reservation, checkout_url? } or { reservations, checkout_url? }", errors: [400, 401, 403, 404, 409, 422] },
+  { method: "get", path: "/api/reservations", summary: "My reservations (as a gardener)", tag: "reservations", auth: "signed-in", errors: [401] },
+  { method: "get", path: "/api/reservations/{id}", summary: "One reservation as its gardener or supplier sees it", tag: "reservations", auth: "signed-in", errors: [401, 404] },
+  { method: "post", path: "/api/reservations/{id}/confirm", summary: "Accept a held request (supplier)", tag: "reservations", auth: ["supplier", "grower", "council"], body: confirmSchema, errors: [401, 403, 404, 409] },
+  { method: "post", path: "/api/reservations/{id}/decline", summary: "Decline a held request (supplier); money is returned", tag: "reservations", auth: ["supplier", "grower", "council"], body: declineSchema, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "post", path: "/api/reservations/{id}/cancel", summary: "Cancel (either side; a late cancellation by the gardener keeps the deposit)", tag: "reservations", auth: "signed-in", body: cancelSchema, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "post", path: "/api/reservations/{id}/collect", summary: "Record the pickup, with the gardener's code or without (supplier)", tag: "reservations", auth: ["supplier", "grower", "council"], body: collectSchema, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "post", path: "/api/reservations/{id}/no-show", summary: "Record that nobody came, after the pickup time (supplier); a deposit is captured", tag: "reservations", auth: ["supplier", "grower", "council"], body: noShowSchema, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "post", path: "/api/reservations/{id}/checkout", summary: "The payment page for a reservation still to be paid", tag: "reservations", auth: ["gardener"], response: z.object({ checkout_url: z.string() }), errors: [401, 403, 404, 409] },
+  { method: "get", path: "/api/reservations/{id}/messages", summary: "The message thread of a reservation", tag: "reservations", auth: "signed-in", errors: [401, 404] },
+  { method: "post", path: "/api/reservations/{id}/messages", summary: "Send a message to the other side (e-mailed; rate limited)", tag: "reservations", auth: "signed-in", body: messageSchema, status: 201, errors: [400, 401, 404, 409, 422, 429] },
+  { method: "post", path: "/api/reservations/{id}/review", summary: "Rate the other side once after collection", tag: "reservations", auth: "signed-in", body: reviewSchema, status: 201, errors: [400, 401, 404, 409, 422] },
+  { method: "get", path: "/api/requests", summary: "Reservations on my (or my organisation's) listings", tag: "reservations", auth: ["supplier", "grower", "council"], errors: [401, 403] },
+  { method: "post", path: "/api/webhooks/stripe", summary: "Stripe's signed events (Stripe-Signature); each applied once", tag: "payments", auth: "public", errors: [400, 500] },
+  { method: "get", path: "/api/giveaways", summary: "Upcoming council giveaway days near a point (approximate places)", tag: "giveaways", auth: "public", query: giveawaySearchSchema, errors: [422] },
+  { method: "get", path: "/api/giveaways/{id}", summary: "One giveaway day; my booking and the exact place once booked", tag: "giveaways", auth: "public", errors: [404] },
+  { method: "post", path: "/api/giveaways/{id}/bookings", summary: "Book a slot for my household", tag: "giveaways", auth: "signed-in", body: bookingSchema, status: 201, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "delete", path: "/api/giveaways/{id}/bookings/{bookingId}", summary: "Cancel my booking before the cut-off", tag: "giveaways", auth: "signed-in", errors: [401, 403, 404, 409] },
+  { method: "get", path: "/api/giveaways/{id}/bookings/{bookingId}/calendar.ics", summary: "My booked slot as iCalendar (session or e-mailed token t)", tag: "giveaways", auth: "public", responseDescription: "text/calendar", errors: [404, 409] },
+  { method: "get", path: "/api/council/giveaways", summary: "My council's giveaway days", tag: "councils", auth: ["council"], errors: [401, 403] },
+  { method: "post", path: "/api/council/giveaways", summary: "Create a giveaway day with its slots", tag: "councils", auth: ["council"], body: createGiveawaySchema, status: 201, errors: [400, 401, 403, 422] },
+  { method: "get", path: "/api/council/giveaways/{id}", summary: "A day's sheet: the day and everyone booked", tag: "councils", auth: ["council"], errors: [401, 403, 404] },
+  { method: "patch", path: "/api/council/giveaways/{id}", summary: "Change a giveaway day", tag: "councils", auth: ["council"], body: updateGiveawaySchema, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "post", path: "/api/council/giveaways/{id}/cancel", summary: "Call a day off; everyone booked is e-mailed", tag: "councils", auth: ["council"], body: cancelGiveawaySchema, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "post", path: "/api/council/giveaways/{id}/slots", summary: "Add time slots", tag: "councils", auth: ["council"], body: addSlotsSchema, status: 201, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "patch", path: "/api/council/giveaways/{id}/slots/{slotId}", summary: "Change a slot's capacity", tag: "councils", auth: ["council"], body: updateSlotSchema, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "delete", path: "/api/council/giveaways/{id}/slots/{slotId}", summary: "Remove a slot nobody has booked", tag: "councils", auth: ["council"], status: 204, errors: [401, 403, 404, 409] },
+  { method: "get", path: "/api/council/giveaways/{id}/sheet.csv", summary: "The day's sheet as CSV", tag: "councils", auth: ["council"], responseDescription: "text/csv", errors: [401, 403, 404] },
+  { method: "patch", path: "/api/council/giveaways/{id}/bookings/{bookingId}", summary: "Check a household in, undo it, or mark a no-show", tag: "councils", auth: ["council"], body: attendanceSchema, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "get", path: "/api/council/invites", summary: "Staff invitations waiting for an answer", tag: "councils", auth: ["council"], errors: [401, 403] },
+  { method: "post", path: "/api/council/invites", summary: "Invite a colleague by e-mail (owner)", tag: "councils", auth: ["council"], body: inviteSchema, status: 201, errors: [400, 401, 403, 409, 422] },
+  { method: "delete", path: "/api/council/invites/{id}", summary: "Withdraw an invitation (owner)", tag: "councils", auth: ["council"], errors: [401, 403, 404, 409] },
+  { method: "post", path: "/api/council/invites/accept", summary: "Accept an invitation with the invited address", tag: "councils", auth: "signed-in", body: acceptInviteSchema, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "delete", path: "/api/council/members/{userId}", summary: "Remove a staff member (owner)", tag: "councils", auth: ["council"], errors: [401, 403, 404, 409] },
+  { method: "post", path: "/api/reports", summary: "Report a listing or a person to the moderators", tag: "moderation", auth: "signed-in", body: reportSchema, status: 201, errors: [400, 401, 403, 404, 422, 429] },
+  { method: "get", path: "/api/moderation/reports", summary: "The report queue with context", tag: "moderation", auth: ["moderator"], query: reportQueueQuerySchema, errors: [401, 403, 422] },
+  { method: "post", path: "/api/moderation/reports/{id}/close", summary: "Close a report with a note; the reporter is e-mailed", tag: "moderation", auth: ["moderator"], body: closeReportSchema, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "post", path: "/api/moderation/listings/{id}", summary: "Hide a listing or show it again", tag: "moderation", auth: ["moderator"], body: listingModerationSchema, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "post", path: "/api/moderation/users/{id}", summary: "Suspend, restore, verify or unverify an account", tag: "moderation", auth: ["moderator"], body: userModerationSchema, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "get", path: "/api/moderation/audit", summary: "The append-only audit log, newest first", tag: "moderation", auth: ["moderator"], query: auditQuerySchema, errors: [401, 403, 422] },
+  { method: "get", path: "/api/reports/diversion", summary: "kg and m³ that left my or my organisation's hands, by month and material", tag: "reports", auth: ["supplier", "grower", "council"], query: diversionQuerySchema, errors: [401, 403, 422] },
+  { method: "get", path: "/api/reports/diversion.csv", summary: "The diversion figures as CSV", tag: "reports", auth: ["supplier", "grower", "council"], query: diversionQuerySchema, responseDescription: "text/csv", errors: [401, 403, 422] },
+  { method: "get", path: "/api/grower/shipping", summary: "My shipping weekdays and pause", tag: "growers", auth: ["grower"], errors: [401, 403] },
+  { method: "put", path: "/api/grower/shipping", summary: "Set shipping weekdays; pause posting in heat or frost", tag: "growers", auth: ["grower"], body: shippingSchema, errors: [400, 401, 403, 422] },
+  { method: "put", path: "/api/grower/listings/{id}/culture", summary: "Species (required), posting and collection of a worm listing", tag: "growers", auth: ["grower"], body: cultureSchema, errors: [400, 401, 403, 404, 422] },
+  { method: "get", path: "/api/growers/{id}/shipping", summary: "A grower's shipping days and pause, for buyers", tag: "growers", auth: "public", errors: [404] },
 ];

@@ -10,8 +10,13 @@ const LINKS: { href: string; label: string; roles: Role[] | "public" }[] = [
   { href: "/plan", label: "Plan a bed", roles: "public" },
   { href: "/mix", label: "Mix calculator", roles: "public" },
   { href: "/browse", label: "Browse", roles: "public" },
+  { href: "/giveaways", label: "Giveaway days", roles: "public" },
   { href: "/beds", label: "My beds", roles: ["gardener"] },
+  { href: "/reservations", label: "My reservations", roles: ["gardener"] },
   { href: "/listings/mine", label: "What I'm giving", roles: ["supplier", "grower", "council"] },
+  { href: "/requests", label: "Requests", roles: ["supplier", "grower", "council"] },
+  { href: "/grower", label: "Worm cultures", roles: ["grower"] },
+  { href: "/reports", label: "Passed on", roles: ["supplier", "grower", "council"] },
   { href: "/council", label: "Council desk", roles: ["council"] },
   { href: "/moderation", label: "Moderation", roles: ["moderator"] },
 ];

@@ -109,3 +109,19 @@ export function listingCautions(l: ListingCautionInput): ListingCaution[] {
   out.push({ kind: "defer", text: CAUTION_TEXT.defer });
   return out;
 }
+
+/** What a household collecting from a council giveaway day should know about the material. */
+export function giveawayCautions(material: string): string[] {
+  const notes: string[] = [];
+  if (material === "leaves") notes.push(CAUTION_TEXT.roadsideLeaves);
+  if (material === "compost") {
+    // NC State Extension "Herbicide Carryover"; bean/pea pot test per WSU Whatcom County Extension.
+    notes.push(
+      "Compost made from garden waste can carry weedkiller residues that survive composting. Ask staff about the source, and try a few beans or peas in a pot of it before filling a whole bed.",
+    );
+  }
+  if (material === "wood_chips") notes.push("Fresh chips suit paths and the top of a bed; dug in, they hold back nitrogen while they rot (common practice).");
+  notes.push(CAUTION_TEXT.gloves);
+  notes.push(CAUTION_TEXT.defer);
+  return notes;
+}

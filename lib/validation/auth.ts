@@ -8,6 +8,9 @@ const email = z
   .max(320, "That e-mail address is too long.")
   .pipe(z.email({ error: "Enter a valid e-mail address, like name@example.org." }));
 
+/** A person's e-mail address, trimmed and checked. */
+export const emailSchema = email;
+
 export const signInSchema = z.object({
   email,
   password: z.string({ error: "Enter your password." }).min(1, "Enter your password.").max(200),

@@ -1,11 +1,7 @@
 import { z } from "zod";
 import { bedSchema, layersSchema } from "./estimate";
 import { isCalendarDate } from "@/lib/calc/timeline";
-
-const location = z.object({
-  lat: z.number({ error: "latitude must be a number" }).min(-90, "latitude must be between -90 and 90").max(90, "latitude must be between -90 and 90"),
-  lng: z.number({ error: "longitude must be a number" }).min(-180, "longitude must be between -180 and 180").max(180, "longitude must be between -180 and 180"),
-});
+import { locationSchema as location } from "./common";
 
 /** A saved bed: its shape and recipe are exactly what POST /api/estimate takes. */
 export const createBedSchema = z.object({

@@ -1,4 +1,6 @@
 import { deliverOutbox } from "@/lib/mail/deliver-outbox";
+import { settlePayments } from "@/lib/payments/actions";
+import { expireHolds, sendReservationReminders } from "@/lib/services/expire-holds";
 import { expireListings } from "@/lib/services/expire-listings";
 import { sendBedReminders } from "@/lib/services/send-bed-reminders";
 
@@ -11,10 +13,12 @@ export interface Job {
 }
 
 // Background work; each job keeps its state in the database, so a restart loses nothing.
-// Later features add theirs here (hold expiry, timeline reminders).
 export const jobs: Job[] = [
   { name: "deliver-outbox", everyMs: 2_000, run: (clock) => deliverOutbox(clock) },
   // Reads already treat a listing past its end date as expired; this makes the row say so.
   { name: "expire-listings", everyMs: 60_000, run: (clock) => expireListings(clock) },
   { name: "bed-reminders", everyMs: 60_000, run: (clock) => sendBedReminders(clock) },
+  { name: "expire-holds", everyMs: 15_000, run: (clock) => expireHolds(clock) },
+  { name: "reservation-reminders", everyMs: 60_000, run: (clock) => sendReservationReminders(clock) },
+  { name: "settle-payments", everyMs: 5_000, run: (clock) => settlePayments(clock) },
 ];

@@ -1,5 +1,9 @@
 // The worker process started beside the app: runs each job on its interval, one at a time
 // per job, and logs failures without stopping.
+//
+// `npm run worker -- --once expire-holds [more job names]` runs the named jobs once and
+// exits: with DUFFBANK_CLOCK set it is how a test (or an operator) runs a job "later" on
+// a real database. It is a command on the machine, not reachable through the web app.
 import fs from "node:fs";
 import { jobs, type Clock } from "./jobs";
 
@@ -29,8 +33,26 @@ async function loop(job: (typeof jobs)[number]) {
   }
 }
 
-console.log(`[worker] running ${jobs.map((j) => j.name).join(", ")}`);
-for (const job of jobs) void loop(job);
+async function once(names: string[]) {
+  for (const name of names) {
+    const job = jobs.find((j) => j.name === name);
+    if (!job) throw new Error(`no job called ${name}; jobs: ${jobs.map((j) => j.name).join(", ")}`);
+    console.log(`[worker] ${name}: ${JSON.stringify(await job.run(clock))}`);
+  }
+}
+
+const onceAt = process.argv.indexOf("--once");
+if (onceAt >= 0) {
+  once(process.argv.slice(onceAt + 1))
+    .then(() => process.exit(0))
+    .catch((err) => {
+      console.error("[worker]", (err as Error).message);
+      process.exit(1);
+    });
+} else {
+  console.log(`[worker] running ${jobs.map((j) => j.name).join(", ")}`);
+  for (const job of jobs) void loop(job);
+}
 
 for (const sig of ["SIGINT", "SIGTERM"] as const) {
   process.on(sig, () => {

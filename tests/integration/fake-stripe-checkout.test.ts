@@ -32,6 +32,16 @@ function newSession(extra: Partial<Stripe.Checkout.SessionCreateParams> = {}) {
   });
 }
 
+describe("the hosted page's content security policy", () => {
+  it("lets the pay form's redirect reach the success_url origin, and nothing else", async () => {
+    const session = await newSession({ success_url: "http://127.0.0.1:43999/reservations/paid?session_id={CHECKOUT_SESSION_ID}" });
+    const res = await fetch(session.url!);
+    // Chromium applies form-action to the 303 after the POST; without the app's origin it blocks the return.
+    expect(res.headers.get("content-security-policy")).toContain("form-action 'self' http://127.0.0.1:43999;");
+    expect(res.headers.get("content-security-policy")).toContain("default-src 'none'");
+  });
+});
+
 describe("creating a Checkout Session", () => {
   it("returns an open, unpaid session whose url is the fake's own page", async () => {
     const session = await newSession();

@@ -10,7 +10,7 @@ beforeAll(async () => {
 });
 afterAll(() => ctx.close());
 
-const TABLES = ["materials", "organisations", "users", "user_roles", "memberships", "listings", "pickup_windows", "beds"];
+const TABLES = ["materials", "organisations", "users", "user_roles", "memberships", "listings", "pickup_windows", "beds", "giveaway_days", "giveaway_slots", "giveaway_bookings", "grower_shipping"];
 
 async function snapshot() {
   const out: Record<string, unknown[]> = {};

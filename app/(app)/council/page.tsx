@@ -1,34 +1,95 @@
+import Link from "next/link";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
 import { membersOf } from "@/db/organisations";
+import { councilOf } from "@/lib/services/council-access";
+import { councilDays } from "@/lib/services/council-days";
+import { listInvites } from "@/lib/services/manage-council-staff";
+import { diversionReport } from "@/lib/services/diversion-report";
+import { diversionScopeOf } from "@/lib/services/diversion-scope";
+import { localDate, longDate } from "@/lib/time/zoned";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
+import { buttonClass } from "@/components/ui/button";
+import { StaffPanel } from "@/components/council/staff-panel";
+import { DaysTable } from "@/components/council/days-table";
+import { formatKg } from "@/components/reports/format";
+import { Panel } from "@/components/ui/panel";
 
 export const metadata: Metadata = { title: "Council desk" };
+export const dynamic = "force-dynamic";
 
 export default async function CouncilPage() {
   const user = await pageUser("/council", ["council"]);
-  if (!user.organisation) {
-    return <EmptyState title="Your account is not linked to a council yet">Ask a colleague who owns your council&apos;s account to add you.</EmptyState>;
+  if (!user.organisation || user.organisation.kind !== "council") {
+    return <EmptyState title="Your account is not linked to a council yet">Ask a colleague who owns your council&apos;s account to invite you.</EmptyState>;
   }
-  const members = await membersOf(user.organisation.id);
+  const ctx = councilOf(user);
+  const [members, invites, days, report] = await Promise.all([membersOf(ctx.organisationId), listInvites(ctx), councilDays(ctx), diversionReport(diversionScopeOf(user))]);
+  const today = localDate(new Date(), "Europe/London");
+  const upcoming = days.filter((d) => d.date >= today).reverse();
+  const past = days.filter((d) => d.date < today);
   return (
-    <div>
-      <PageHeading title={user.organisation.name} lead="Giveaway days, the day's list and what your residents kept out of the bin." />
-      <section aria-labelledby="staff-title" className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
-        <h2 id="staff-title" className="mb-3 text-lg font-semibold">
-          Staff
-        </h2>
-        <ul className="divide-y divide-humus-100">
-          {members.map((m: { id: string; name: string; email: string; org_role: string }) => (
-            <li key={m.id} className="flex justify-between py-2">
-              <span>
-                {m.name} <span className="text-sm text-humus-600">{m.email}</span>
-              </span>
-              <span className="text-sm text-humus-700">{m.org_role === "owner" ? "Account owner" : "Staff"}</span>
-            </li>
-          ))}
-        </ul>
-      </section>
+    <div className="flex flex-col gap-8">
+      <div className="flex flex-wrap items-start justify-between gap-4">
+        <PageHeading title={ctx.organisationName} lead="Giveaway days, the day's list and what your residents kept out of the bin." />
+        <Link href="/council/giveaways/new" className={buttonClass("primary")}>
+          New giveaway day
+        </Link>
+      </div>
+
+      <Panel id="days" title="Giveaway days">
+        {upcoming.length ? (
+          <DaysTable days={upcoming} caption="Coming up" />
+        ) : (
+          <p className="text-humus-700">
+            Nothing planned yet. <Link href="/council/giveaways/new" className="font-semibold text-moss-700 underline">Plan a leaf, chip or compost day</Link>.
+          </p>
+        )}
+        {past.length ? (
+          <details className="mt-4">
+            <summary className="cursor-pointer font-medium">Past days ({past.length})</summary>
+            <DaysTable days={past} caption="Past days" />
+          </details>
+        ) : null}
+      </Panel>
+
+      <Panel id="kept" title="Kept out of the bin" action={<Link href="/reports" className="font-semibold text-moss-700 underline underline-offset-4">Charts and CSV</Link>}>
+        <p>
+          <strong className="text-2xl">{formatKg(report.total_kg)}</strong> collected by <strong>{report.households}</strong>{" "}
+          {report.households === 1 ? "household" : "households"}, from your listings and checked-in giveaway bookings.
+        </p>
+        {report.by_day.length ? (
+          <table className="mt-3 w-full text-left text-sm">
+            <caption className="sr-only">By giveaway day</caption>
+            <thead className="bg-humus-100">
+              <tr>
+                <th scope="col" className="p-2">Day</th>
+                <th scope="col" className="p-2">Households</th>
+                <th scope="col" className="p-2">Collected</th>
+              </tr>
+            </thead>
+            <tbody>
+              {report.by_day.map((d) => (
+                <tr key={d.day_id} className="border-t border-humus-100">
+                  <td className="p-2">
+                    {longDate(d.date)} — {d.title}
+                  </td>
+                  <td className="p-2">{d.households}</td>
+                  <td className="p-2">
+                    {formatKg(d.kg)} ({d.m3.toFixed(2)} m³)
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        ) : (
+          <p className="mt-2 text-sm text-humus-600">Figures appear once households are checked in at a giveaway day.</p>
+        )}
+      </Panel>
+
+      <Panel id="staff" title="Staff">
+        <StaffPanel members={members} invites={invites} isOwner={ctx.isOwner} me={user.id} />
+      </Panel>
     </div>
   );
 }

@@ -30,13 +30,19 @@ export function sendJson(res: ServerResponse, status: number, body: unknown, hea
   res.end(text);
 }
 
-export function sendHtml(res: ServerResponse, status: number, html: string): void {
+/**
+ * `redirectTo`: origins the page's form may end up at. Browsers apply form-action to the
+ * redirect after a POST too, so the pay form must allow the app's success_url origin or
+ * Chromium blocks the 303 back to the app.
+ */
+export function sendHtml(res: ServerResponse, status: number, html: string, redirectTo: string[] = []): void {
+  const formAction = ["'self'", ...redirectTo].join(" ");
   res.writeHead(status, {
     "Content-Type": "text/html; charset=utf-8",
     "Content-Length": Buffer.byteLength(html),
     "Cache-Control": "no-store",
     // The page needs nothing from anywhere else; say so, so a stray remote asset fails loudly.
-    "Content-Security-Policy": "default-src 'none'; style-src 'unsafe-inline'; form-action 'self'; base-uri 'none'",
+    "Content-Security-Policy": `default-src 'none'; style-src 'unsafe-inline'; form-action ${formAction}; base-uri 'none'`,
   });
   res.end(html);
 }

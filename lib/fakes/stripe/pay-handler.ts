@@ -21,6 +21,15 @@ function successUrl(session: CheckoutSession): string | null {
   return session.success_url?.replaceAll("{CHECKOUT_SESSION_ID}", session.id) ?? null;
 }
 
+/** The origin the approved payment redirects to, for the page's form-action policy. */
+function successOrigin(session: CheckoutSession): string[] {
+  try {
+    return session.success_url ? [new URL(session.success_url.replace("{CHECKOUT_SESSION_ID}", "x")).origin] : [];
+  } catch {
+    return [];
+  }
+}
+
 function pageInput(ops: Ops, session: CheckoutSession) {
   return {
     session,
@@ -42,7 +51,7 @@ export async function handlePay(
     return false;
   }
   if (req.method === "GET" || req.method === "HEAD") {
-    if (session.status === "open") sendHtml(res, 200, renderPayPage(pageInput(ops, session)));
+    if (session.status === "open") sendHtml(res, 200, renderPayPage(pageInput(ops, session)), successOrigin(session));
     else sendHtml(res, session.status === "expired" ? 410 : 200, renderClosedPage(session, successUrl(session)));
     return false;
   }
@@ -64,13 +73,13 @@ export async function handlePay(
   const values = { ...form, cvc: "" };
   const read = readCardForm(form, ops.nowSeconds());
   if (!read.ok) {
-    sendHtml(res, 422, renderPayPage({ ...pageInput(ops, session), values, errors: read.errors }));
+    sendHtml(res, 422, renderPayPage({ ...pageInput(ops, session), values, errors: read.errors }), successOrigin(session));
     return false;
   }
   const error = paySession(ops, sessionId, read.attempt);
   if (error) {
     const problem = DECLINE_WORDS[error.decline_code ?? ""] ?? "The card was declined. Nothing was charged.";
-    sendHtml(res, 402, renderPayPage({ ...pageInput(ops, session), values, problem }));
+    sendHtml(res, 402, renderPayPage({ ...pageInput(ops, session), values, problem }), successOrigin(session));
     return true;
   }
   const done = getSession(ops, sessionId);

@@ -169,6 +169,11 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
           ) : listing.status !== "active" ? (
             <Notice>This listing is not taking reservations right now.</Notice>
           ) : null}
+          {viewer && !managed ? (
+            <Link href={`/report?listing=${listing.id}`} className="self-start text-sm text-humus-700 underline underline-offset-4">
+              Report a problem with this listing
+            </Link>
+          ) : null}
         </aside>
       </div>
     </article>

@@ -1,0 +1,28 @@
+import Link from "next/link";
+import type { Metadata } from "next";
+import { pageUser } from "@/lib/auth/page-guard";
+import { sheetForPage } from "@/lib/services/council-day-page";
+import { longDate } from "@/lib/time/zoned";
+import { Notice } from "@/components/ui/notice";
+import { CheckInList } from "@/components/giveaways/check-in-list";
+
+export const metadata: Metadata = { title: "Check in" };
+export const dynamic = "force-dynamic";
+
+export default async function CheckInPage({ params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const user = await pageUser(`/council/giveaways/${id}/check-in`, ["council"]);
+  const { day, bookings } = await sheetForPage(user, id);
+  return (
+    <div className="mx-auto flex max-w-md flex-col gap-4">
+      <p>
+        <Link href={`/council/giveaways/${id}`} className="text-moss-700 underline">
+          ← {day.title}
+        </Link>
+      </p>
+      <h1 className="text-2xl font-bold">Check in — {longDate(day.date)}</h1>
+      {day.status === "cancelled" ? <Notice tone="error">This day is called off.</Notice> : null}
+      <CheckInList dayId={id} unit={day.unit} timeZone={day.time_zone} rows={bookings.map((b) => ({ id: b.id, name: b.name, quantity: b.quantity, status: b.status, starts_at: b.starts_at }))} />
+    </div>
+  );
+}

@@ -1,0 +1,68 @@
+import Link from "next/link";
+import type { Metadata } from "next";
+import { pageUser } from "@/lib/auth/page-guard";
+import { cultureStock, growerShipping } from "@/lib/services/grower-shipping";
+import { formatMoney } from "@/lib/payments/money";
+import { EmptyState, PageHeading } from "@/components/ui/empty-state";
+import { Notice } from "@/components/ui/notice";
+import { ShippingForm } from "@/components/grower/shipping-form";
+import { ShippingNotice } from "@/components/grower/shipping-notice";
+import { CultureForm } from "@/components/grower/culture-form";
+import { Panel } from "@/components/ui/panel";
+
+export const metadata: Metadata = { title: "Worm cultures" };
+export const dynamic = "force-dynamic";
+
+export default async function GrowerPage() {
+  const user = await pageUser("/grower", ["grower"]);
+  const [stock, shipping] = await Promise.all([cultureStock(user.id), growerShipping(user.id)]);
+  return (
+    <div className="flex flex-col gap-6">
+      <PageHeading title="Worm cultures" lead="Stock left on each live-culture listing, the days you post, and a pause for heat or frost that buyers see on your listings." />
+      <Notice tone="caution" title="Live animals">
+        Worms suffer in hot or freezing parcels: extension guidance puts their comfortable range at about 55–78 °F (13–26 °C). Some earthworm species are
+        invasive in some regions — name the species on every listing, and buyers should follow their local rules.
+      </Notice>
+
+      <Panel id="stock" title="Stock left">
+        {stock.length === 0 ? (
+          <EmptyState title="No worm listings yet">List a culture by the kilogram under “What I&apos;m giving”; it appears here with its stock.</EmptyState>
+        ) : (
+          <ul className="flex flex-col gap-4">
+            {stock.map((s) => (
+              <li key={s.id} className="grid gap-4 border-t border-humus-100 pt-4 first:border-0 first:pt-0 md:grid-cols-[1fr_minmax(0,360px)]" data-listing={s.id}>
+                <div>
+                  <h3 className="font-semibold">{s.title}</h3>
+                  <p className="text-sm text-humus-700">
+                    {s.status} · {formatMoney(s.price_cents, s.currency)} a kg
+                  </p>
+                  <p className="mt-2 text-2xl font-bold">{s.kg_left.toLocaleString("en-GB")} kg left</p>
+                  <p className="text-sm text-humus-700">
+                    About {s.estimated_count.toLocaleString("en-GB")} worms (roughly 1,000 a pound — common practice, not a count){s.kg_held ? ` · ${s.kg_held} kg on hold` : ""}
+                  </p>
+                  {!s.species ? <p className="mt-2 font-medium text-ember-800">No species named yet: buyers need it. Add it here.</p> : null}
+                </div>
+                <CultureForm listingId={s.id} title={s.title} initial={{ species: s.species, ships: s.ships, pickup: s.pickup }} />
+              </li>
+            ))}
+          </ul>
+        )}
+      </Panel>
+
+      <Panel id="ship" title="Shipping days">
+        <p className="mb-2 text-sm text-humus-700">What buyers read now:</p>
+        <ShippingNotice shipping={shipping} />
+        <div className="mt-4">
+          <ShippingForm initial={{ ship_weekdays: shipping.ship_weekdays, paused: shipping.paused, pause_reason: shipping.pause_reason, pause_note: shipping.pause_note }} />
+        </div>
+      </Panel>
+
+      <Panel id="orders" title="Open orders">
+        <EmptyState title="Posted orders are not built yet" action={<Link href="/requests" className="font-semibold text-moss-700 underline underline-offset-4">Reservations of your cultures</Link>}>
+          Orders that follow a parcel (packed → shipped → delivered, with the care sheet by e-mail) come in a later step. Until then, people reserve and pay for
+          a culture like any listing, and you find them under Requests.
+        </EmptyState>
+      </Panel>
+    </div>
+  );
+}

@@ -1,0 +1,56 @@
+import Link from "next/link";
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { pageUser } from "@/lib/auth/page-guard";
+import { loadReserveOffer } from "@/lib/services/load-reserve-offer";
+import { pickupCautions } from "@/lib/reservations/cautions";
+import { quantityLabel } from "@/lib/reservations/labels";
+import { PageHeading, EmptyState } from "@/components/ui/empty-state";
+import { buttonClass } from "@/components/ui/button";
+import { Notice } from "@/components/ui/notice";
+import { ReserveForm } from "@/components/reservations/reserve-form";
+
+export const metadata: Metadata = { title: "Reserve" };
+
+export default async function ReservePage({ params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const user = await pageUser(`/listings/${id}/reserve`, ["gardener"]);
+  const offer = await loadReserveOffer(id);
+  if (!offer) notFound();
+  const rating = offer.supplier.rating;
+  const lead = (
+    <>
+      From {offer.supplier.name}
+      {offer.supplier.verified ? <span className="ml-2 rounded bg-moss-100 px-2 py-0.5 text-xs font-semibold text-moss-800">Verified</span> : null}
+      {rating ? (
+        <span className="ml-2 text-sm" aria-label={`Rated ${rating.average} out of 5 from ${rating.count} reviews`}>
+          ★ {rating.average.toFixed(1)} ({rating.count} {rating.count === 1 ? "review" : "reviews"})
+        </span>
+      ) : null}
+    </>
+  );
+  const back = (
+    <Link href={`/listings/${offer.id}`} className={buttonClass("quiet")}>
+      Back to the listing
+    </Link>
+  );
+  return (
+    <div className="mx-auto max-w-2xl">
+      <PageHeading title={`Reserve: ${offer.title}`} lead={lead} />
+      {offer.owner_id === user.id ? (
+        <Notice title="This is your own listing">There is nothing to reserve here; requests from gardeners appear under Requests.</Notice>
+      ) : offer.status === "gone" || (offer.status === "active" && offer.available <= 0) ? (
+        <EmptyState title="All of it is spoken for" action={back}>Holds that are not paid or accepted in time run out, so check back later.</EmptyState>
+      ) : offer.status !== "active" ? (
+        <EmptyState title="Not taking reservations" action={back}>This listing is {offer.status} at the moment.</EmptyState>
+      ) : (
+        <div className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
+          <p className="mb-4 text-sm text-humus-700">
+            {quantityLabel(offer.available, offer.unit)} available. The exact address is sent to you once {offer.supplier.name} has accepted.
+          </p>
+          <ReserveForm offer={offer} unitSystem={user.unit_system} cautions={pickupCautions({ material: offer.material, unit: offer.unit, unit_mass_kg: offer.unit_mass_kg })} />
+        </div>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,126 @@
+import type { Metadata } from "next";
+import { pageUser } from "@/lib/auth/page-guard";
+import { LISTING_ROLES } from "@/lib/auth/roles";
+import { diversionReport } from "@/lib/services/diversion-report";
+import { diversionScopeOf } from "@/lib/services/diversion-scope";
+import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
+import { longDate } from "@/lib/time/zoned";
+import { EmptyState, PageHeading } from "@/components/ui/empty-state";
+import { buttonClass } from "@/components/ui/button";
+import { MATERIAL_COLORS, StackedBarChart, type ChartSeries } from "@/components/reports/bar-chart";
+import { formatKg } from "@/components/reports/format";
+import { Panel } from "@/components/ui/panel";
+
+export const metadata: Metadata = { title: "What I've passed on" };
+export const dynamic = "force-dynamic";
+
+const monthLabel = (m: string) => new Intl.DateTimeFormat("en-GB", { month: "short", year: "2-digit", timeZone: "UTC" }).format(new Date(`${m}-15T00:00:00Z`));
+
+export default async function ReportsPage() {
+  const user = await pageUser("/reports", LISTING_ROLES);
+  const report = await diversionReport(diversionScopeOf(user));
+  const isCouncil = !!user.organisation && user.roles.includes("council");
+  const series: ChartSeries[] = report.by_material.map((m) => ({ key: m.material, label: MATERIALS[m.material as MaterialCode]?.name ?? m.material, color: MATERIAL_COLORS[m.material] ?? "#84633f" }));
+  const months = [...new Set(report.by_month.map((m) => m.month))];
+  const columns = months.map((month) => ({
+    label: monthLabel(month),
+    values: Object.fromEntries(report.by_month.filter((m) => m.month === month).map((m) => [m.material, m.kg])),
+  }));
+  return (
+    <div className="flex flex-col gap-6">
+      <PageHeading
+        title="What I've passed on"
+        lead={`Material that left ${isCouncil ? `${user.organisation!.name}'s` : "your"} hands and went into beds instead of the bin: collected reservations${isCouncil ? " and households checked in at giveaway days" : ""}.`}
+      />
+      {report.collections === 0 ? (
+        <EmptyState title="Nothing collected yet">Once a gardener collects from one of your listings{isCouncil ? ", or a household is checked in at a giveaway day" : ""}, the figures appear here.</EmptyState>
+      ) : (
+        <>
+          <section aria-labelledby="total-title" className="grid gap-4 sm:grid-cols-3">
+            <h2 id="total-title" className="sr-only">
+              Totals
+            </h2>
+            <Stat label="Kept from disposal" value={formatKg(report.total_kg)} />
+            <Stat label="Volume" value={`${report.total_m3.toFixed(2)} m³`} />
+            <Stat label="Households served" value={String(report.households)} />
+          </section>
+          <Panel id="month" title="By month and material" action={<a href="/api/reports/diversion.csv" className={buttonClass("secondary")}>Download CSV</a>}>
+            <StackedBarChart id="by-month" title="Kilograms passed on each month, by material" unit="kg" columns={columns} series={series} />
+            <table className="mt-4 w-full text-left text-sm">
+              <caption className="sr-only">The figures in the chart</caption>
+              <thead className="bg-humus-100">
+                <tr>
+                  <th scope="col" className="p-2">Month</th>
+                  <th scope="col" className="p-2">Material</th>
+                  <th scope="col" className="p-2">kg</th>
+                  <th scope="col" className="p-2">m³</th>
+                  <th scope="col" className="p-2">Households</th>
+                </tr>
+              </thead>
+              <tbody>
+                {report.by_month.map((m) => (
+                  <tr key={`${m.month}-${m.material}`} className="border-t border-humus-100">
+                    <td className="p-2">{m.month}</td>
+                    <td className="p-2">{MATERIALS[m.material]?.name ?? m.material}</td>
+                    <td className="p-2">{m.kg.toFixed(1)}</td>
+                    <td className="p-2">{m.m3.toFixed(3)}</td>
+                    <td className="p-2">{m.households}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </Panel>
+          {isCouncil ? (
+            <Panel id="day" title="By giveaway day" action={<a href="/api/reports/diversion.csv?by=day" className={buttonClass("secondary")}>Download CSV by day</a>}>
+              {report.by_day.length ? (
+                <>
+                  <StackedBarChart
+                    id="by-day"
+                    title="Kilograms collected at each giveaway day"
+                    unit="kg"
+                    columns={report.by_day
+                      .slice()
+                      .reverse()
+                      .map((d) => ({ label: d.date.slice(5), values: { [d.material]: d.kg } }))}
+                    series={series}
+                  />
+                  <ul className="mt-2 text-sm">
+                    {report.by_day.map((d) => (
+                      <li key={d.day_id}>
+                        {longDate(d.date)}, {d.title}: {formatKg(d.kg)} to {d.households} households
+                      </li>
+                    ))}
+                  </ul>
+                </>
+              ) : (
+                <p className="text-humus-700">No households checked in at a giveaway day yet.</p>
+              )}
+            </Panel>
+          ) : null}
+          <section aria-labelledby="src-title" className="text-sm text-humus-700">
+            <h2 id="src-title" className="font-semibold text-humus-900">
+              Where the kilograms come from
+            </h2>
+            <p>Quantities are converted with each material&apos;s bulk density (bags and bales by their stated size), so the masses are estimates:</p>
+            <ul className="list-disc pl-5">
+              {report.densities.map((d) => (
+                <li key={d.material}>
+                  {MATERIALS[d.material].name}: {d.bulk_density_kg_m3.toFixed(1)} kg/m³ — {d.source}
+                </li>
+              ))}
+            </ul>
+          </section>
+        </>
+      )}
+    </div>
+  );
+}
+
+function Stat({ label, value }: { label: string; value: string }) {
+  return (
+    <div className="rounded-lg bg-white p-4 ring-1 ring-humus-200">
+      <p className="text-sm text-humus-700">{label}</p>
+      <p className="text-2xl font-bold">{value}</p>
+    </div>
+  );
+}

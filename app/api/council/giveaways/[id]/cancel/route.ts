@@ -1,0 +1,13 @@
+import { NextResponse } from "next/server";
+import { readJson, withAuth } from "@/lib/api/handler";
+import { parseInput } from "@/lib/api/errors";
+import { cancelGiveawaySchema } from "@/lib/validation/giveaways";
+import { councilOf } from "@/lib/services/council-access";
+import { cancelGiveaway } from "@/lib/services/cancel-giveaway";
+
+// POST /api/council/giveaways/:id/cancel — call the day off; everyone booked is e-mailed.
+export const POST = withAuth<{ id: string }>(async ({ req, params, user }) => {
+  const ctx = councilOf(user);
+  const input = parseInput(cancelGiveawaySchema, await readJson(req));
+  return NextResponse.json(await cancelGiveaway(ctx, params.id, input.reason));
+}, ["council"]);

@@ -1,0 +1,10 @@
+import { withAuth } from "@/lib/api/handler";
+import { csvResponse } from "@/lib/format/csv";
+import { councilOf } from "@/lib/services/council-access";
+import { daySheet, daySheetCsv } from "@/lib/services/giveaway-sheet";
+
+// GET /api/council/giveaways/:id/sheet.csv — the day's sheet for a spreadsheet.
+export const GET = withAuth<{ id: string }>(async ({ params, user }) => {
+  const sheet = await daySheet(councilOf(user), params.id);
+  return csvResponse(daySheetCsv(sheet), `giveaway-${sheet.day.date}-${sheet.day.material}.csv`);
+}, ["council"]);

@@ -1,0 +1,13 @@
+import { NextResponse } from "next/server";
+import { readJson, withAuth } from "@/lib/api/handler";
+import { parseInput } from "@/lib/api/errors";
+import { addSlotsSchema } from "@/lib/validation/giveaways";
+import { councilOf } from "@/lib/services/council-access";
+import { addGiveawaySlots } from "@/lib/services/change-giveaway-slots";
+
+// POST /api/council/giveaways/:id/slots — add time slots (local wall-clock times of the day).
+export const POST = withAuth<{ id: string }>(async ({ req, params, user }) => {
+  const ctx = councilOf(user);
+  const input = parseInput(addSlotsSchema, await readJson(req));
+  return NextResponse.json({ slots: await addGiveawaySlots(ctx, params.id, input.slots) }, { status: 201 });
+}, ["council"]);

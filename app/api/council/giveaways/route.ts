@@ -1,0 +1,19 @@
+import { NextResponse } from "next/server";
+import { readJson, withAuth } from "@/lib/api/handler";
+import { parseInput } from "@/lib/api/errors";
+import { createGiveawaySchema } from "@/lib/validation/giveaways";
+import { councilOf } from "@/lib/services/council-access";
+import { createGiveaway } from "@/lib/services/create-giveaway";
+import { councilDays } from "@/lib/services/council-days";
+
+// GET /api/council/giveaways — my council's days, newest first.
+export const GET = withAuth(async ({ user }) => {
+  return NextResponse.json({ items: await councilDays(councilOf(user)) });
+}, ["council"]);
+
+// POST /api/council/giveaways — a new giveaway day with its slots.
+export const POST = withAuth(async ({ req, user }) => {
+  const ctx = councilOf(user);
+  const input = parseInput(createGiveawaySchema, await readJson(req));
+  return NextResponse.json({ giveaway: await createGiveaway(ctx, input) }, { status: 201 });
+}, ["council"]);

@@ -1,0 +1,18 @@
+import { NextResponse } from "next/server";
+import { readJson, withAuth } from "@/lib/api/handler";
+import { parseInput } from "@/lib/api/errors";
+import { inviteSchema } from "@/lib/validation/council";
+import { councilOf, councilOwnerOf } from "@/lib/services/council-access";
+import { inviteStaff, listInvites } from "@/lib/services/manage-council-staff";
+
+// GET /api/council/invites — invitations still waiting for an answer.
+export const GET = withAuth(async ({ user }) => {
+  return NextResponse.json({ items: await listInvites(councilOf(user)) });
+}, ["council"]);
+
+// POST /api/council/invites — the owner invites a colleague by e-mail.
+export const POST = withAuth(async ({ req, user }) => {
+  const ctx = councilOwnerOf(user);
+  const input = parseInput(inviteSchema, await readJson(req));
+  return NextResponse.json({ invite: await inviteStaff(ctx, user.name, input.email) }, { status: 201 });
+}, ["council"]);

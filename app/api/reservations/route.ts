@@ -1,0 +1,30 @@
+import { NextResponse } from "next/server";
+import { readJson, withAuth } from "@/lib/api/handler";
+import { parseInput } from "@/lib/api/errors";
+import { reserveListings } from "@/lib/services/reserve-listing";
+import { getReservations, listReservations } from "@/lib/services/list-reservations";
+import { reserveManySchema, reserveOneSchema } from "@/lib/validation/reservations";
+
+// POST /api/reservations — hold a quantity of a listing (or, with "items", several at once,
+// all or nothing) for the signed-in gardener. A priced or deposit listing answers with the
+// checkout_url of the Stripe page that completes the reservation.
+export const POST = withAuth(async ({ req, user }) => {
+  const body = await readJson(req);
+  const many = typeof body === "object" && body !== null && "items" in body;
+  const input = many ? parseInput(reserveManySchema, body) : parseInput(reserveOneSchema, body);
+  const items = "items" in input ? input.items : [{ listing_id: input.listing_id, quantity: input.quantity, pickup_window_id: input.pickup_window_id }];
+  const result = await reserveListings({
+    gardenerId: user.id,
+    items,
+    bed_id: input.bed_id,
+    fieldPrefix: (i) => (many ? `items.${i}.` : ""),
+  });
+  const reservations = await getReservations(result.ids, user.id, "gardener");
+  const checkout = result.checkoutUrl ? { checkout_url: result.checkoutUrl } : {};
+  return NextResponse.json(many ? { reservations, ...checkout } : { reservation: reservations[0], ...checkout }, { status: 201 });
+}, ["gardener"]);
+
+// GET /api/reservations — the signed-in gardener's reservations, newest first.
+export const GET = withAuth(async ({ user }) => {
+  return NextResponse.json({ reservations: await listReservations(user.id, "gardener") });
+});

@@ -1,0 +1,170 @@
+"use client";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { z } from "zod";
+import Link from "next/link";
+import { bookingSchema } from "@/lib/validation/giveaways";
+import type { SlotView } from "@/lib/services/giveaway-view";
+import type { VisitorBooking } from "@/lib/services/giveaway-for-visitor";
+import { formatGiveawayQuantity } from "@/lib/format/giveaway";
+import { formatMoney } from "@/lib/payments/money";
+import { readableDateTime, wallTime } from "@/lib/time/zoned";
+import { apiFetch, isApiError } from "@/lib/api/client";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { Button, buttonClass } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+import { Notice } from "@/components/ui/notice";
+import { useApiAction } from "@/components/ui/use-api-action";
+
+type Values = z.infer<typeof bookingSchema>;
+
+export interface BookingPanelProps {
+  dayId: string;
+  timeZone: string;
+  unit: "bags" | "m3";
+  householdCap: number;
+  depositCents: number;
+  currency: string;
+  slots: SlotView[];
+  window: "open" | "not_yet" | "closed" | "cancelled";
+  windowLabel: string;
+  signedIn: boolean;
+  booking: VisitorBooking | null;
+  /** The server's "now" when the page was made (ISO), so the render stays pure. */
+  now: string;
+}
+
+export function BookingPanel(p: BookingPanelProps) {
+  if (p.booking) return <MyBooking {...p} booking={p.booking} />;
+  if (p.window !== "open") return <Notice tone={p.window === "cancelled" ? "error" : "info"}>{p.windowLabel}.</Notice>;
+  if (!p.signedIn) {
+    return (
+      <div className="flex flex-col gap-2 rounded-lg bg-white p-4 ring-1 ring-humus-200">
+        <p>Sign in to book a slot for your household. New here? Joining takes a minute.</p>
+        <div className="flex flex-wrap gap-2">
+          <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`/giveaways/${p.dayId}`)}`} className={buttonClass("primary")}>
+            Sign in to book
+          </Link>
+          <Link href="/sign-up" className={buttonClass("secondary")}>
+            Join
+          </Link>
+        </div>
+      </div>
+    );
+  }
+  return <BookForm {...p} />;
+}
+
+function BookForm(p: BookingPanelProps) {
+  const router = useRouter();
+  const [error, setError] = useState<string | null>(null);
+  const firstOpen = p.slots.find((s) => s.remaining > 0);
+  const form = useForm<Values>({ resolver: zodResolver(bookingSchema), defaultValues: { slot_id: firstOpen?.id ?? "", quantity: Math.min(p.householdCap, p.unit === "bags" ? 2 : 0.5) } });
+  const unitWord = p.unit === "bags" ? "bags" : "m³";
+  const onSubmit = form.handleSubmit(async (values) => {
+    setError(null);
+    if (values.quantity > p.householdCap) {
+      form.setError("quantity", { message: `At most ${formatGiveawayQuantity(p.householdCap, p.unit)} a household.` });
+      return;
+    }
+    try {
+      await apiFetch(`/api/giveaways/${p.dayId}/bookings`, { body: values });
+      router.refresh();
+    } catch (err) {
+      if (isApiError(err) && err.fields) for (const [k, m] of Object.entries(err.fields)) form.setError(k as keyof Values, { message: m });
+      setError(isApiError(err) ? err.message : "The booking did not go through. Please try again.");
+    }
+  });
+  const slotError = form.formState.errors.slot_id?.message;
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3 rounded-lg bg-white p-4 ring-1 ring-humus-200" aria-labelledby="book-title">
+      <h2 id="book-title" className="text-lg font-semibold">
+        Book a slot
+      </h2>
+      {error ? <Notice tone="error">{error}</Notice> : null}
+      <fieldset className="flex flex-col gap-2" aria-describedby={slotError ? "slot-error" : undefined}>
+        <legend className="font-medium">Arrival time</legend>
+        {p.slots.map((s) => (
+          <label key={s.id} className={`flex min-h-11 items-center gap-3 rounded-lg px-3 ring-1 ${s.remaining ? "ring-humus-300" : "text-humus-500 ring-humus-200"}`}>
+            <input type="radio" value={s.id} disabled={!s.remaining} {...form.register("slot_id")} className="h-5 w-5" />
+            <span className="font-medium">
+              {wallTime(s.starts_at, p.timeZone)}–{wallTime(s.ends_at, p.timeZone)}
+            </span>
+            <span className="text-sm">{s.remaining ? `${s.remaining} of ${s.capacity} places left` : "full"}</span>
+          </label>
+        ))}
+        <p id="slot-error" aria-live="polite" className="min-h-5 text-sm text-ember-600">
+          {slotError ?? ""}
+        </p>
+      </fieldset>
+      <Field
+        label={`How much (${unitWord})`}
+        type="number"
+        step={p.unit === "bags" ? 1 : 0.1}
+        min={0}
+        inputMode="decimal"
+        hint={`Up to ${formatGiveawayQuantity(p.householdCap, p.unit)} a household.`}
+        {...form.register("quantity", { valueAsNumber: true })}
+        error={form.formState.errors.quantity?.message}
+      />
+      {p.depositCents > 0 ? (
+        <p className="text-sm text-humus-700">
+          This day asks a {formatMoney(p.depositCents, p.currency)} no-show deposit. It is recorded with your booking, but no card is taken: Duffbank does not collect
+          giveaway-day deposits yet, so nothing is charged either way.
+        </p>
+      ) : null}
+      <p className="text-sm text-humus-600">One booking per household (one Duffbank account) for this day.</p>
+      <Button type="submit" disabled={form.formState.isSubmitting || !firstOpen}>
+        {form.formState.isSubmitting ? "Booking…" : firstOpen ? "Book this slot" : "Every slot is full"}
+      </Button>
+    </form>
+  );
+}
+
+function MyBooking(p: BookingPanelProps & { booking: VisitorBooking }) {
+  const action = useApiAction();
+  const b = p.booking;
+  const canCancel = b.status === "booked" && Date.parse(p.now) < Date.parse(b.cancel_until);
+  return (
+    <section aria-labelledby="booked-title" className="flex flex-col gap-3 rounded-lg bg-moss-50 p-4 ring-1 ring-moss-300">
+      <h2 id="booked-title" className="text-lg font-semibold">
+        {b.status === "checked_in" ? "Collected — thank you" : "You're booked"}
+      </h2>
+      <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1">
+        <dt className="font-medium">Arrive</dt>
+        <dd>
+          {wallTime(b.starts_at, p.timeZone)}–{wallTime(b.ends_at, p.timeZone)}
+        </dd>
+        <dt className="font-medium">Taking</dt>
+        <dd>{formatGiveawayQuantity(b.quantity, p.unit)}</dd>
+        <dt className="font-medium">Where</dt>
+        <dd>{b.address}</dd>
+        {b.deposit_cents > 0 ? (
+          <>
+            <dt className="font-medium">Deposit</dt>
+            <dd>{formatMoney(b.deposit_cents, p.currency)} recorded, not charged</dd>
+          </>
+        ) : null}
+      </dl>
+      <div className="flex flex-wrap gap-2">
+        <a href={`/api/giveaways/${p.dayId}/bookings/${b.id}/calendar.ics`} className={buttonClass("secondary")}>
+          Add to calendar (.ics)
+        </a>
+        {canCancel ? (
+          <Button variant="danger" disabled={action.busy} onClick={() => action.run(`/api/giveaways/${p.dayId}/bookings/${b.id}`, { method: "DELETE" })}>
+            {action.busy ? "Cancelling…" : "Cancel my booking"}
+          </Button>
+        ) : null}
+      </div>
+      <p className="text-sm text-humus-700">
+        {canCancel
+          ? `You can cancel until ${readableDateTime(b.cancel_until, p.timeZone)}; that frees the place for someone else.`
+          : b.status === "booked"
+            ? "It is too late to cancel on Duffbank; if you cannot come, tell the council."
+            : null}
+      </p>
+      {action.error ? <Notice tone="error">{action.error}</Notice> : null}
+    </section>
+  );
+}

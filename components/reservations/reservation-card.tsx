@@ -1,0 +1,156 @@
+import type { ReservationView } from "@/lib/reservations/view";
+import { formatMoney } from "@/lib/payments/money";
+import { quantityLabel } from "@/lib/reservations/labels";
+import { formatLocal } from "@/lib/reservations/pickup-times";
+import { CANCEL_NOTICE_HOURS, STATUS_LABELS } from "@/lib/reservations/policy";
+import { StatusBadge } from "./status-badge";
+import { ReservationActions } from "./reservation-actions";
+import { MessagesPanel } from "./message-thread";
+import { ReviewForm } from "./review-form";
+
+const BY = { gardener: "the gardener", supplier: "the supplier", duffbank: "Duffbank" } as const;
+
+function nextStep(v: ReservationView): string | null {
+  const other = v.side === "gardener" ? v.supplier.name : v.gardener.name;
+  switch (v.status) {
+    case "held":
+      if (v.payment.state === "awaiting") {
+        return v.side === "gardener"
+          ? `Waiting for your ${v.amount_cents > 0 ? "payment" : "deposit"}: the hold ends ${formatLocal(v.hold_expires_at!)}.`
+          : `Waiting for ${other}'s ${v.amount_cents > 0 ? "payment" : "deposit"}.`;
+      }
+      return v.side === "gardener" ? `Waiting for ${other} to accept, until ${formatLocal(v.hold_expires_at!)}.` : `Accept or decline by ${formatLocal(v.hold_expires_at!)}.`;
+    case "confirmed":
+      return v.pickup.starts_at ? `Pickup ${formatLocal(v.pickup.starts_at)} to ${formatLocal(v.pickup.ends_by!, undefined, { timeOnly: true })}.` : `Pickup by arrangement, before ${formatLocal(v.pickup.ends_by!)}.`;
+    case "collected":
+      return v.closed_at ? `Collected ${formatLocal(v.closed_at)}.` : "Collected.";
+    case "cancelled":
+      return `Cancelled by ${v.cancelled_by === v.side ? "you" : other}.`;
+    default:
+      return null;
+  }
+}
+
+function moneyLine(v: ReservationView): string | null {
+  const price = v.amount_cents > 0;
+  const cents = price ? v.amount_cents : v.deposit_cents;
+  if (cents === 0) return null;
+  const money = formatMoney(cents, v.currency);
+  switch (v.payment.state) {
+    case "awaiting":
+      return price ? `${money} to pay` : `${money} deposit to place`;
+    case "paid":
+      return `${money} paid`;
+    case "authorised":
+      return `${money} deposit on hold (not taken)`;
+    case "released":
+      return `${money} deposit released`;
+    case "captured":
+      return `${money} deposit kept`;
+    case "refunded":
+      return `${formatMoney(v.payment.refunded_cents || cents, v.currency)} refunded`;
+    default:
+      return null;
+  }
+}
+
+export function ReservationCard({ v }: { v: ReservationView }) {
+  const titleId = `r-${v.id}-title`;
+  const other = v.side === "gardener" ? v.supplier.name : v.gardener.name;
+  const step = nextStep(v);
+  const money = moneyLine(v);
+  const cancelNote =
+    v.side === "supplier"
+      ? "Everything the gardener paid or put down goes back to them in full."
+      : v.status === "held"
+        ? "Nothing is charged: any payment or deposit hold goes back in full."
+        : `Cancelling at least ${CANCEL_NOTICE_HOURS} hours before the pickup returns everything; later, ${v.amount_cents > 0 ? "the payment is not refunded" : "the deposit is kept"}.`;
+  return (
+    <article id={`r-${v.id}`} aria-labelledby={titleId} className="flex scroll-mt-24 flex-col gap-4 rounded-leaf bg-white p-5 ring-1 ring-humus-200">
+      <header className="flex flex-wrap items-start justify-between gap-3">
+        <div>
+          <h2 id={titleId} className="text-lg font-semibold">
+            {quantityLabel(v.quantity, v.unit)} of {v.listing.title}
+          </h2>
+          <p className="text-sm text-humus-700">{v.side === "gardener" ? `From ${v.supplier.name}` : `For ${v.gardener.name}`}</p>
+        </div>
+        <StatusBadge status={v.status} />
+      </header>
+
+      {step ? <p>{step}</p> : null}
+
+      {v.pickup_code ? (
+        <div className="flex flex-wrap items-center gap-4 rounded-lg bg-moss-50 p-4 ring-1 ring-moss-200">
+          <div>
+            <p className="text-sm font-medium text-moss-800">Your pickup code</p>
+            <p className="font-mono text-3xl font-bold tracking-[0.3em]" data-testid="pickup-code">
+              {v.pickup_code}
+            </p>
+          </div>
+          <p className="max-w-sm text-sm text-humus-700">Show it to {v.supplier.name} when you collect. It proves the pickup is yours.</p>
+        </div>
+      ) : null}
+
+      <dl className="grid gap-x-6 gap-y-2 text-sm sm:grid-cols-[max-content_1fr]">
+        {v.pickup.window ? (
+          <>
+            <dt className="font-medium text-humus-600">Pickup window</dt>
+            <dd>{v.pickup.window}</dd>
+          </>
+        ) : null}
+        {v.pickup.address ? (
+          <>
+            <dt className="font-medium text-humus-600">Address</dt>
+            <dd data-testid="pickup-address">{v.pickup.address}</dd>
+          </>
+        ) : v.side === "gardener" && v.status === "held" ? (
+          <>
+            <dt className="font-medium text-humus-600">Address</dt>
+            <dd>Sent to you once {v.supplier.name} accepts.</dd>
+          </>
+        ) : null}
+        {(v.side === "gardener" ? v.supplier.email : v.gardener.email) ? (
+          <>
+            <dt className="font-medium text-humus-600">Contact</dt>
+            <dd>
+              {other}, <a className="text-moss-700 underline" href={`mailto:${v.side === "gardener" ? v.supplier.email : v.gardener.email}`}>{v.side === "gardener" ? v.supplier.email : v.gardener.email}</a>
+            </dd>
+          </>
+        ) : null}
+        {money ? (
+          <>
+            <dt className="font-medium text-humus-600">Money</dt>
+            <dd>{money}</dd>
+          </>
+        ) : null}
+      </dl>
+
+      {v.payment.problem ? (
+        <p role="alert" className="rounded-lg bg-ember-100 p-3 text-sm text-ember-800">
+          The last card attempt did not go through: {v.payment.problem} Try again with another card.
+        </p>
+      ) : null}
+
+      <ReservationActions id={v.id} side={v.side} actions={v.actions} canPay={v.can_pay} cancelNote={cancelNote} />
+
+      {v.can_review ? <ReviewForm id={v.id} subject={other} /> : null}
+      {v.my_review ? <p className="text-sm">You rated {other} {"★".repeat(v.my_review.rating)}{v.my_review.comment ? `: “${v.my_review.comment}”` : "."}</p> : null}
+      {v.their_review ? <p className="text-sm">{other} rated you {"★".repeat(v.their_review.rating)}{v.their_review.comment ? `: “${v.their_review.comment}”` : "."}</p> : null}
+
+      <MessagesPanel id={v.id} otherName={other} closed={v.status === "expired"} />
+
+      <details className="rounded-lg ring-1 ring-humus-200">
+        <summary className="flex min-h-11 cursor-pointer items-center px-3 font-medium">Status history</summary>
+        <ol className="flex flex-col gap-1 border-t border-humus-200 p-3 text-sm">
+          {v.history.map((h, i) => (
+            <li key={i}>
+              <span className="text-humus-600">{formatLocal(h.at)}</span> · {h.from === h.to ? (h.note ?? "Updated") : h.from ? STATUS_LABELS[h.to as keyof typeof STATUS_LABELS] : "Reserved"}
+              {h.by !== "duffbank" ? ` by ${h.by === v.side ? "you" : BY[h.by]}` : ""}
+              {h.note && h.from !== h.to ? ` — ${h.note}` : ""}
+            </li>
+          ))}
+        </ol>
+      </details>
+    </article>
+  );
+}

@@ -1,0 +1,138 @@
+"use client";
+import { useState } from "react";
+import { useForm, useWatch } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useRouter } from "next/navigation";
+import type { z } from "zod";
+import { reserveOneSchema } from "@/lib/validation/reservations";
+import { apiFetch, isApiError } from "@/lib/api/client";
+import { formatMoney, priceFor } from "@/lib/payments/money";
+import { quantityLabel, WHOLE_UNITS } from "@/lib/reservations/labels";
+import { equivalentOf } from "@/lib/reservations/equivalents";
+import { formatLocal } from "@/lib/reservations/pickup-times";
+import { CANCEL_NOTICE_HOURS, SUPPLIER_REPLY_HOURS } from "@/lib/reservations/policy";
+import type { UnitSystem } from "@/lib/calc/units";
+import type { ReserveOffer } from "@/lib/services/load-reserve-offer";
+import { Field } from "@/components/ui/field";
+import { Button } from "@/components/ui/button";
+import { Notice } from "@/components/ui/notice";
+
+type Values = z.input<typeof reserveOneSchema>;
+type Answer = { reservation: { id: string; status: string }; checkout_url?: string };
+
+const UNIT_QUESTION: Record<string, string> = { bales: "How many bales", bags: "How many bags", sheets: "How many sheets", kg: "How many kilograms", m3: "How many cubic metres", m2: "How many square metres" };
+
+export function ReserveForm({ offer, unitSystem, cautions }: { offer: ReserveOffer; unitSystem: UnitSystem; cautions: string[] }) {
+  const router = useRouter();
+  const [error, setError] = useState<string | null>(null);
+  const whole = WHOLE_UNITS.has(offer.unit);
+  const form = useForm<Values>({
+    resolver: zodResolver(reserveOneSchema),
+    defaultValues: { listing_id: offer.id, quantity: 1, pickup_window_id: offer.windows[0]?.id ?? null, bed_id: null },
+  });
+  const quantity = Number(useWatch({ control: form.control, name: "quantity" }));
+  const price = priceFor(offer.price_cents, Number.isFinite(quantity) ? quantity : 0);
+  const equivalent = equivalentOf(offer, quantity, unitSystem);
+  const limit = offer.max_per_reservation !== null ? Math.min(offer.max_per_reservation, offer.available) : offer.available;
+
+  const onSubmit = form.handleSubmit(async (values) => {
+    setError(null);
+    let answer: Answer;
+    try {
+      answer = await apiFetch<Answer>("/api/reservations", { body: values });
+    } catch (err) {
+      if (isApiError(err) && err.fields) for (const [name, message] of Object.entries(err.fields)) form.setError(name as keyof Values, { message });
+      setError(isApiError(err) ? err.message : "We could not reserve it. Please try again.");
+      return;
+    }
+    if (answer.checkout_url) window.location.assign(answer.checkout_url);
+    else router.push(`/reservations?new=${answer.reservation.id}#r-${answer.reservation.id}`);
+  });
+
+  const submitLabel = offer.price_cents > 0 ? `Reserve and pay ${formatMoney(price, offer.currency)}` : offer.deposit_cents > 0 ? `Reserve and place the ${formatMoney(offer.deposit_cents, offer.currency)} deposit` : "Reserve";
+  const busy = form.formState.isSubmitting;
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-5">
+      {error ? <Notice tone="error">{error}</Notice> : null}
+      <div>
+        <Field
+          label={UNIT_QUESTION[offer.unit] ?? "How much"}
+          type="number"
+          inputMode={whole ? "numeric" : "decimal"}
+          min={whole ? 1 : 0.01}
+          step={whole ? 1 : 0.01}
+          max={limit}
+          hint={`${quantityLabel(offer.available, offer.unit)} left${offer.max_per_reservation !== null ? ` · at most ${quantityLabel(offer.max_per_reservation, offer.unit)} per reservation` : ""}`}
+          {...form.register("quantity", { valueAsNumber: true })}
+          error={form.formState.errors.quantity?.message}
+          className="max-w-40"
+        />
+        {equivalent ? <p className="-mt-3 text-sm text-humus-700">That is {equivalent}.</p> : null}
+      </div>
+
+      <fieldset className="flex flex-col gap-2">
+        <legend className="mb-1 font-medium">When you will collect</legend>
+        {offer.windows.map((w) => (
+          <label key={w.id} className="flex items-start gap-3 rounded-lg p-2 ring-1 ring-humus-200">
+            <input type="radio" value={w.id} {...form.register("pickup_window_id", { setValueAs: (v) => v || null })} className="mt-1 h-5 w-5" />
+            <span>
+              <span className="font-medium">{w.label}</span>
+              <span className="block text-sm text-humus-600">Next: {formatLocal(w.next_start)}</span>
+            </span>
+          </label>
+        ))}
+        <label className="flex items-start gap-3 rounded-lg p-2 ring-1 ring-humus-200">
+          <input type="radio" value="" {...form.register("pickup_window_id", { setValueAs: (v) => v || null })} className="mt-1 h-5 w-5" />
+          <span>
+            <span className="font-medium">No fixed time</span>
+            <span className="block text-sm text-humus-600">Agree a time with {offer.supplier.name} in the messages, within a week.</span>
+          </span>
+        </label>
+        <p aria-live="polite" className="min-h-5 text-sm text-ember-600">
+          {form.formState.errors.pickup_window_id?.message ?? ""}
+        </p>
+      </fieldset>
+
+      <section aria-labelledby="cost-title" className="rounded-lg bg-moss-50 p-4 ring-1 ring-moss-200">
+        <h2 id="cost-title" className="font-semibold">
+          {offer.price_cents > 0 ? `${formatMoney(price, offer.currency)} in all` : offer.deposit_cents > 0 ? `Free, with a ${formatMoney(offer.deposit_cents, offer.currency)} no-show deposit` : "Free"}
+        </h2>
+        <ul className="mt-2 list-disc pl-5 text-sm leading-relaxed text-humus-800">
+          {offer.price_cents > 0 ? (
+            <li>
+              {formatMoney(offer.price_cents, offer.currency)} per {quantityLabel(1, offer.unit).replace(/^1 /, "")}, paid by card on the next page. Refunded in full if {offer.supplier.name} declines or cancels, or if you cancel at least {CANCEL_NOTICE_HOURS} hours before your pickup.
+            </li>
+          ) : offer.deposit_cents > 0 ? (
+            <li>
+              The deposit is held on your card, not taken: it is released when you collect or cancel at least {CANCEL_NOTICE_HOURS} hours ahead, and kept only if you do not come.
+            </li>
+          ) : (
+            <li>Nothing to pay. Please cancel if your plans change, so someone else can have it.</li>
+          )}
+          <li>
+            {offer.price_cents > 0 || offer.deposit_cents > 0
+              ? `We hold it for ${offer.hold_minutes} minutes while you pay. `
+              : `We hold it for ${offer.hold_minutes} minutes for ${offer.supplier.name} to accept. `}
+            {offer.auto_accept
+              ? "This listing accepts at once, and you get the address and your pickup code by e-mail."
+              : offer.price_cents > 0 || offer.deposit_cents > 0
+                ? `Once you have paid, ${offer.supplier.name} has up to ${SUPPLIER_REPLY_HOURS} hours to accept; then you get the address and your pickup code.`
+                : "When they accept, you get the address and your pickup code by e-mail."}
+          </li>
+        </ul>
+      </section>
+
+      <Notice tone="caution" title="Before you collect">
+        <ul className="list-disc pl-5">
+          {cautions.map((c) => (
+            <li key={c}>{c}</li>
+          ))}
+        </ul>
+      </Notice>
+
+      <Button type="submit" disabled={busy} className="self-start">
+        {busy ? "Reserving…" : submitLabel}
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,73 @@
+import { db, newId, type Db } from "./index";
+import type { PaymentRow } from "./types";
+
+// One row per Stripe object Duffbank made: a checkout for a price or a deposit, and a
+// refund. `pending_action` is a Stripe call still owed, retried by the worker until done.
+
+export async function insertPayment(
+  row: Pick<PaymentRow, "reservation_id" | "kind" | "status" | "amount_cents" | "currency" | "idempotency_key"> & Partial<PaymentRow>,
+  now: string,
+  q: Db = db(),
+): Promise<PaymentRow> {
+  const full: PaymentRow = {
+    id: newId(),
+    parent_id: null,
+    provider: "stripe",
+    provider_ref: null,
+    payment_intent_id: null,
+    checkout_url: null,
+    captured_cents: 0,
+    refunded_cents: 0,
+    last_error: null,
+    pending_action: null,
+    action_attempts: 0,
+    next_action_at: null,
+    created_at: now,
+    updated_at: now,
+    ...row,
+  };
+  await q("payments").insert(full);
+  return full;
+}
+
+export async function findPayment(id: string, q: Db = db()): Promise<PaymentRow | undefined> {
+  return q<PaymentRow>("payments").first("*").where({ id });
+}
+
+/** The checkout (price or deposit) of a reservation; refunds are separate rows. */
+export async function chargeOf(reservationId: string, q: Db = db()): Promise<PaymentRow | undefined> {
+  return q<PaymentRow>("payments").first("*").where({ reservation_id: reservationId }).whereIn("kind", ["payment", "deposit"]);
+}
+
+export async function paymentsOf(reservationIds: string[], q: Db = db()): Promise<PaymentRow[]> {
+  if (reservationIds.length === 0) return [];
+  return q<PaymentRow>("payments").select("*").whereIn("reservation_id", reservationIds).orderBy("created_at");
+}
+
+export async function paymentByStripeRef(ref: { payment_id?: string | null; session_id?: string | null; intent_id?: string | null }, q: Db = db()) {
+  if (ref.payment_id) {
+    const row = await findPayment(ref.payment_id, q);
+    if (row) return row;
+  }
+  if (ref.session_id) {
+    const row = await q<PaymentRow>("payments").first("*").where({ provider_ref: ref.session_id });
+    if (row) return row;
+  }
+  if (ref.intent_id) {
+    return q<PaymentRow>("payments").first("*").where({ payment_intent_id: ref.intent_id }).whereIn("kind", ["payment", "deposit"]);
+  }
+  return undefined;
+}
+
+export async function updatePayment(id: string, patch: Partial<PaymentRow>, q: Db = db()): Promise<void> {
+  await q("payments").where({ id }).update(patch);
+}
+
+export async function dueActions(now: string, limit = 20, q: Db = db()): Promise<PaymentRow[]> {
+  return q<PaymentRow>("payments")
+    .select("*")
+    .whereNotNull("pending_action")
+    .andWhere((qb) => qb.whereNull("next_action_at").orWhere("next_action_at", "<=", now))
+    .orderBy("updated_at")
+    .limit(limit);
+}

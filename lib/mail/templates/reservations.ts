@@ -1,0 +1,184 @@
+// The e-mails of the reservation flow, in Duffbank's words. Each is built from the same
+// parts as HTML and plain text (renderEmail). Times are in the town's time zone.
+import type { ReservationContext } from "@/db/reservation-context";
+import { appUrl } from "@/lib/app-url";
+import { formatMoney } from "@/lib/payments/money";
+import { moneySentence, whatLabel, type MoneyOutcome } from "@/lib/reservations/labels";
+import { formatLocal, windowLabel } from "@/lib/reservations/pickup-times";
+import { renderEmail, type EmailParts } from "../layout";
+
+export type ReservationMailKind =
+  | "requested"
+  | "confirmed"
+  | "declined"
+  | "cancelled"
+  | "expiring"
+  | "expired"
+  | "reminder"
+  | "no_show"
+  | "receipt"
+  | "message"
+  | "review_request"
+  | "returned";
+export type Audience = "gardener" | "supplier";
+
+export interface MailExtra {
+  reason?: string | null;
+  money?: MoneyOutcome;
+  cancelledBy?: Audience;
+  message?: { author: string; body: string };
+}
+
+const link = (r: ReservationContext, to: Audience) => `${appUrl()}/${to === "gardener" ? "reservations" : "requests"}#r-${r.id}`;
+
+function whenLine(r: ReservationContext): string {
+  if (r.window && r.pickup_at) return `When: ${windowLabel(r.window)} — yours is ${formatLocal(r.pickup_at)} to ${formatLocal(r.pickup_by!, undefined, { timeOnly: true })}.`;
+  if (r.pickup_by) return `When: by arrangement through the messages on the reservation, before ${formatLocal(r.pickup_by)}.`;
+  return "When: by arrangement through the messages on the reservation.";
+}
+
+function paidLine(r: ReservationContext): string | null {
+  if (r.amount_cents > 0) return `Paid: ${formatMoney(r.amount_cents, r.currency)}.`;
+  if (r.deposit_cents > 0) return `No-show deposit: ${formatMoney(r.deposit_cents, r.currency)} on hold on the gardener's card, released at pickup.`;
+  return null;
+}
+
+const carry = (r: ReservationContext) =>
+  r.listing.unit === "bales"
+    ? "Bales are heavy: lift with your legs, keep the bale close, and share the lift with a second person."
+    : "Bring gloves and bags or a tarp; wash your hands after handling soil, manure or compost.";
+
+function parts(kind: ReservationMailKind, r: ReservationContext, to: Audience, extra: MailExtra): { subject: string; body: EmailParts } {
+  const what = whatLabel(r);
+  const money = extra.money ? moneySentence(r, extra.money) : null;
+  const reason = extra.reason ? `Their note: “${extra.reason}”` : null;
+  const action = (label: string) => ({ label, url: link(r, to) });
+  const lines = (...xs: (string | null | undefined)[]) => xs.filter((x): x is string => !!x);
+  switch (kind) {
+    case "requested":
+      return to === "supplier"
+        ? {
+            subject: `New request: ${what}`,
+            body: {
+              heading: `${r.gardener.name} would like ${what}`,
+              paragraphs: lines(
+                whenLine(r),
+                paidLine(r),
+                r.hold_expires_at ? `Accept or decline by ${formatLocal(r.hold_expires_at)}. After that the hold runs out and the quantity goes back on your listing.` : null,
+              ),
+              action: action("Answer the request"),
+            },
+          }
+        : {
+            subject: `Request sent: ${what}`,
+            body: {
+              heading: `We have passed your request to ${r.supplier.name}`,
+              paragraphs: ["You will get an e-mail as soon as they accept. The exact pickup address and your pickup code come with it."],
+              action: action("See your reservation"),
+            },
+          };
+    case "confirmed":
+      return to === "gardener"
+        ? {
+            subject: `Confirmed: ${what} — pickup code ${r.pickup_code}`,
+            body: {
+              heading: "Your pickup is confirmed",
+              paragraphs: lines(
+                `Where: ${r.listing.address}`,
+                whenLine(r),
+                `Your pickup code: ${r.pickup_code}. Give it to ${r.supplier.name} when you collect.`,
+                `Contact: ${r.supplier.name}, ${r.supplier.email}`,
+                carry(r),
+              ),
+              action: action("See your reservation"),
+            },
+          }
+        : {
+            subject: `${r.listing.auto_accept ? "New reservation" : "You accepted"}: ${what}`,
+            body: {
+              heading: `${r.gardener.name} is collecting ${what}`,
+              paragraphs: lines(
+                r.listing.auto_accept ? "Your listing accepts requests automatically, so this one is already confirmed." : null,
+                whenLine(r),
+                paidLine(r),
+                "They will give you a pickup code: enter it on the request (or mark it collected) when they have been.",
+              ),
+              action: action("Open the request"),
+            },
+          };
+    case "declined":
+      return {
+        subject: `Declined: ${what}`,
+        body: { heading: `${r.supplier.name} cannot give you this one`, paragraphs: lines(reason, money, "Other listings nearby may still have what your bed needs."), action: { label: "Find other material", url: `${appUrl()}/beds` } },
+      };
+    case "cancelled": {
+      const byYou = extra.cancelledBy === to;
+      const who = extra.cancelledBy === "gardener" ? r.gardener.name : r.supplier.name;
+      return {
+        subject: `Cancelled: ${what}`,
+        body: {
+          heading: byYou ? "You cancelled this reservation" : `${who} cancelled this reservation`,
+          paragraphs: lines(byYou ? null : reason, to === "gardener" ? money : null, to === "supplier" ? "The quantity is back on your listing." : null),
+          action: action("See the details"),
+        },
+      };
+    }
+    case "expiring":
+      return to === "gardener"
+        ? {
+            subject: `Your hold ends soon: ${what}`,
+            body: { heading: `Finish paying by ${formatLocal(r.hold_expires_at!)} to keep it`, paragraphs: ["After that the hold runs out and the material goes back to the listing."], action: action("Pay now") },
+          }
+        : {
+            subject: `Waiting for your answer: ${what}`,
+            body: { heading: `${r.gardener.name}'s request runs out at ${formatLocal(r.hold_expires_at!)}`, paragraphs: lines(paidLine(r), "Accept or decline it before then."), action: action("Answer the request") },
+          };
+    case "expired":
+      return {
+        subject: `Hold ran out: ${what}`,
+        body: {
+          heading: to === "gardener" ? "Your hold ran out" : "A request ran out unanswered",
+          paragraphs: lines(to === "gardener" ? money : null, to === "gardener" ? "You can reserve it again if some is still there." : "The quantity is back on your listing."),
+          action: action("See the details"),
+        },
+      };
+    case "reminder":
+      return to === "gardener"
+        ? { subject: `Tomorrow: collect ${what}`, body: { heading: "Your pickup is tomorrow", paragraphs: lines(`Where: ${r.listing.address}`, whenLine(r), `Pickup code: ${r.pickup_code}.`, carry(r)), action: action("See your reservation") } }
+        : { subject: `Tomorrow: ${r.gardener.name} collects ${what}`, body: { heading: "A pickup is due tomorrow", paragraphs: lines(whenLine(r)), action: action("Open the request") } };
+    case "no_show":
+      return {
+        subject: `Not collected: ${what}`,
+        body: {
+          heading: to === "gardener" ? `${r.supplier.name} marked this as not collected` : "You recorded a no-show",
+          paragraphs: lines(to === "gardener" ? money : null, to === "gardener" ? "If that is a mistake, reply to them through the reservation's messages." : "The quantity is back on your listing."),
+          action: action("See the details"),
+        },
+      };
+    case "receipt":
+      return r.amount_cents > 0
+        ? { subject: `Receipt: ${formatMoney(r.amount_cents, r.currency)} for ${what}`, body: { heading: "Thank you: your payment is through", paragraphs: [`${formatMoney(r.amount_cents, r.currency)} for ${what}, from ${r.supplier.name}.`, "If the supplier declines or cancels, or you cancel in good time, it is refunded in full."], action: action("See your reservation") } }
+        : { subject: `Deposit on hold: ${formatMoney(r.deposit_cents, r.currency)} for ${what}`, body: { heading: "Your no-show deposit is on hold", paragraphs: [`${formatMoney(r.deposit_cents, r.currency)} is reserved on your card, not taken.`, "It is released when you collect or cancel in good time, and kept only if you do not come."], action: action("See your reservation") } };
+    case "message":
+      return {
+        subject: `New message about ${what}`,
+        body: { heading: `${extra.message!.author} wrote`, paragraphs: [extra.message!.body, "Reply on Duffbank; replying to this e-mail does not reach them."], action: action("Reply") },
+      };
+    case "review_request":
+      return {
+        subject: `Collected: how did it go? ${what}`,
+        body: {
+          heading: to === "gardener" ? `Rate ${r.supplier.name}` : `Rate ${r.gardener.name}`,
+          paragraphs: [to === "gardener" ? "A line on what the material was like helps the next gardener choose." : "A line on how the pickup went helps other givers."],
+          action: action("Leave a review"),
+        },
+      };
+    case "returned":
+      return { subject: `Money returned: ${what}`, body: { heading: "Your payment came in after the hold had ended", paragraphs: lines(moneySentence(r, "returned")), action: action("See the details") } };
+  }
+}
+
+export function reservationEmail(kind: ReservationMailKind, r: ReservationContext, to: Audience, extra: MailExtra = {}) {
+  const { subject, body } = parts(kind, r, to, extra);
+  return renderEmail(subject, body);
+}

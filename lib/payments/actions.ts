@@ -1,0 +1,121 @@
+import "server-only";
+import Stripe from "stripe";
+import { db, nowIso, type Db } from "@/db/index";
+import { dueActions, findPayment, updatePayment } from "@/db/payments";
+import type { PaymentRow } from "@/db/types";
+import { stripe } from "./stripe";
+
+// The Stripe calls a reservation change leaves owing: close a checkout, release or capture
+// a deposit hold, refund a payment. The change writes `pending_action` in its own
+// transaction; this runs it right after, and the worker retries whatever failed, so a
+// Stripe outage delays the money but never forgets it. Each call carries an idempotency
+// key, so running one twice (the request and the worker at once) changes nothing.
+
+const BASE_DELAY_MS = 15_000;
+const MAX_DELAY_MS = 60 * 60_000;
+
+export function actionRetryDelayMs(attempts: number): number {
+  return Math.min(MAX_DELAY_MS, BASE_DELAY_MS * 2 ** Math.max(0, attempts - 1));
+}
+
+type Outcome = Partial<PaymentRow>;
+
+async function perform(row: PaymentRow, q: Db): Promise<Outcome> {
+  const key = `${row.pending_action}:${row.id}`;
+  switch (row.pending_action) {
+    case "expire": {
+      if (!row.provider_ref) return { status: "expired" };
+      try {
+        await stripe().checkout.sessions.expire(row.provider_ref, {}, { idempotencyKey: key });
+        return {};
+      } catch (err) {
+        // Already complete (paid at the last moment: the webhook returns the money) or expired.
+        if (err instanceof Stripe.errors.StripeInvalidRequestError && err.code === "checkout_session_unexpected_state") return {};
+        throw err;
+      }
+    }
+    case "release":
+    case "capture": {
+      const intent = row.payment_intent_id ?? (await intentOfSession(row));
+      if (!intent) throw new Error("the deposit has no payment intent yet");
+      try {
+        if (row.pending_action === "release") {
+          await stripe().paymentIntents.cancel(intent, { cancellation_reason: "requested_by_customer" }, { idempotencyKey: key });
+        } else {
+          await stripe().paymentIntents.capture(intent, {}, { idempotencyKey: key });
+        }
+        return { payment_intent_id: intent };
+      } catch (err) {
+        if (err instanceof Stripe.errors.StripeInvalidRequestError && err.code === "payment_intent_unexpected_state") {
+          // Settled another way (a hold Stripe let lapse, or a second request): nothing left to do.
+          return { payment_intent_id: intent, last_error: err.message.slice(0, 500) };
+        }
+        throw err;
+      }
+    }
+    case "refund": {
+      const parent = row.parent_id ? await findPayment(row.parent_id, q) : undefined;
+      const intent = parent?.payment_intent_id ?? (parent ? await intentOfSession(parent) : null);
+      if (!intent) throw new Error("the payment to refund has no payment intent yet");
+      const refund = await stripe().refunds.create(
+        {
+          payment_intent: intent,
+          amount: row.amount_cents,
+          reason: "requested_by_customer",
+          metadata: { refund_id: row.id, reservation_id: row.reservation_id },
+        },
+        { idempotencyKey: row.idempotency_key },
+      );
+      return { provider_ref: refund.id, status: refund.status === "succeeded" ? "succeeded" : "pending" };
+    }
+    default:
+      return {};
+  }
+}
+
+async function intentOfSession(row: PaymentRow): Promise<string | null> {
+  if (!row.provider_ref) return null;
+  const session = await stripe().checkout.sessions.retrieve(row.provider_ref);
+  return typeof session.payment_intent === "string" ? session.payment_intent : (session.payment_intent?.id ?? null);
+}
+
+/** Runs one payment's owed Stripe call; true when it is done (or nothing was owed). */
+export async function runPaymentAction(id: string, clock: () => Date = () => new Date(), q: Db = db()): Promise<boolean> {
+  const row = await findPayment(id, q);
+  if (!row?.pending_action) return true;
+  try {
+    const outcome = await perform(row, q);
+    // Only clear the action this run performed: a newer one written meanwhile stays.
+    await q("payments")
+      .where({ id, pending_action: row.pending_action })
+      .update({ ...outcome, pending_action: null, next_action_at: null, updated_at: nowIso(clock) });
+    return true;
+  } catch (err) {
+    const attempts = row.action_attempts + 1;
+    await updatePayment(
+      id,
+      {
+        action_attempts: attempts,
+        next_action_at: new Date(clock().getTime() + actionRetryDelayMs(attempts)).toISOString(),
+        last_error: (err as Error).message.slice(0, 500),
+      },
+      q,
+    );
+    return false;
+  }
+}
+
+export async function runPaymentActions(ids: Iterable<string>, clock?: () => Date, q?: Db): Promise<void> {
+  for (const id of new Set(ids)) await runPaymentAction(id, clock, q);
+}
+
+/** The worker's job: every owed call that is due. */
+export async function settlePayments(clock: () => Date = () => new Date(), q: Db = db()): Promise<{ done: number; failed: number }> {
+  let done = 0;
+  let failed = 0;
+  for (const row of await dueActions(clock().toISOString(), 20, q)) {
+    if (await runPaymentAction(row.id, clock, q)) done++;
+    else failed++;
+  }
+  return { done, failed };
+}

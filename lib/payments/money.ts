@@ -1,0 +1,12 @@
+// Money is integer cents plus a currency everywhere; how it reads is lib/listings/format.ts.
+export { formatMoney } from "@/lib/listings/format";
+
+// Stripe's smallest card charge per currency (docs.stripe.com/currencies, "Minimum and
+// maximum charge amounts"; from memory). Checked before holding, so a too-small total is a
+// clear 422 rather than a checkout that cannot start.
+export const MIN_CARD_CHARGE_CENTS: Record<string, number> = { eur: 50, usd: 50, gbp: 30 };
+
+/** The price of a reservation: a per-unit price times a quantity that may be fractional (m³, kg). */
+export function priceFor(unitPriceCents: number, quantity: number): number {
+  return Math.round(unitPriceCents * quantity);
+}

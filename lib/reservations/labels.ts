@@ -1,0 +1,30 @@
+// How a reservation's quantity and money read in pages and e-mails.
+import { formatListingQuantity, formatMoney } from "@/lib/listings/format";
+import type { ListingUnit } from "@/lib/validation/listings";
+
+/** Units counted in whole pieces: nobody collects half a bale. */
+export const WHOLE_UNITS = new Set(["sheets", "bags", "bales"]);
+
+/** "3 bales", "0.5 kg": e-mails and history read in the listing's own unit. */
+export function quantityLabel(quantity: number, unit: string): string {
+  return formatListingQuantity(quantity, unit as ListingUnit);
+}
+
+export function whatLabel(r: { quantity: number; listing: { unit: string; title: string } }): string {
+  return `${quantityLabel(r.quantity, r.listing.unit)} of ${r.listing.title}`;
+}
+
+export type MoneyOutcome = "returned" | "kept" | "none";
+
+/** One sentence on what happens to the gardener's money, for e-mails and pages. */
+export function moneySentence(r: { amount_cents: number; deposit_cents: number; currency: string; payment_state: string }, outcome: MoneyOutcome): string | null {
+  const price = r.amount_cents > 0;
+  const cents = price ? r.amount_cents : r.deposit_cents;
+  if (cents === 0 || outcome === "none") return null;
+  const money = formatMoney(cents, r.currency);
+  if (r.payment_state === "awaiting") return "Nothing was paid, so there is nothing to refund; the checkout link no longer works.";
+  if (outcome === "returned") {
+    return price ? `Your payment of ${money} is refunded in full; it shows on your card within a few days.` : `The ${money} deposit hold on your card is released: nothing is taken.`;
+  }
+  return price ? `The ${money} you paid is not refunded.` : `The ${money} deposit is kept, as the listing said it would be for a no-show or a late cancellation.`;
+}

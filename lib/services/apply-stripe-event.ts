@@ -1,0 +1,112 @@
+import "server-only";
+import type { Knex } from "knex";
+import type Stripe from "stripe";
+import { isUniqueViolation, writeTransaction } from "@/db/write-transaction";
+import { db } from "@/db/index";
+import { paymentByStripeRef, updatePayment } from "@/db/payments";
+import type { PaymentRow } from "@/db/types";
+import { runPaymentActions } from "@/lib/payments/actions";
+import { gardenerStepDone } from "./reservation-steps";
+
+// Applies one verified Stripe event, exactly once: the event id goes into webhook_events
+// in the same transaction as its effects, so a duplicate finds the id and changes nothing,
+// and a failure rolls both back for Stripe's retry. A payment's status only moves forward
+// (by RANK), so events arriving out of order end in the same state as in order.
+
+const RANK: Record<string, number> = { creating: 0, open: 0, expired: 1, authorised: 2, paid: 3, released: 4, captured: 4, refunded: 5 };
+
+type Target = { status?: keyof typeof RANK; patch?: Partial<PaymentRow> };
+
+const str = (v: unknown) => (typeof v === "string" ? v : v && typeof v === "object" && "id" in v ? String((v as { id: string }).id) : null);
+
+function targetFor(event: Stripe.Event, row: PaymentRow): Target | null {
+  const obj = event.data.object as unknown as Record<string, any>;
+  switch (event.type) {
+    case "checkout.session.completed": {
+      const intent = str(obj.payment_intent);
+      return { status: obj.payment_status === "paid" ? "paid" : "authorised", patch: intent ? { payment_intent_id: intent } : {} };
+    }
+    case "checkout.session.expired":
+      return { status: "expired" };
+    case "payment_intent.amount_capturable_updated":
+      return obj.amount_capturable > 0 ? { status: "authorised", patch: { payment_intent_id: obj.id } } : null;
+    case "payment_intent.succeeded":
+      return row.kind === "deposit"
+        ? { status: "captured", patch: { payment_intent_id: obj.id, captured_cents: obj.amount_received } }
+        : { status: "paid", patch: { payment_intent_id: obj.id, captured_cents: obj.amount_received } };
+    case "payment_intent.canceled":
+      // Duffbank cancels a hold to release it; Stripe cancels an abandoned checkout's intent.
+      return { status: obj.cancellation_reason === "abandoned" ? "expired" : "released", patch: { payment_intent_id: obj.id } };
+    case "payment_intent.payment_failed":
+      return { patch: { payment_intent_id: obj.id, last_error: String(obj.last_payment_error?.message ?? "The card was declined.").slice(0, 500) } };
+    case "charge.refunded": {
+      if (!obj.captured || !(obj.amount_refunded > 0)) return null; // a released hold, handled by payment_intent.canceled
+      const refunded = Math.max(row.refunded_cents, obj.amount_refunded);
+      return { status: refunded >= obj.amount_captured ? "refunded" : undefined, patch: { refunded_cents: refunded } };
+    }
+    default:
+      return null;
+  }
+}
+
+async function applyRefundEvent(trx: Knex.Transaction, obj: Record<string, any>, now: string) {
+  const id = obj.metadata?.refund_id;
+  const row = id ? await trx<PaymentRow>("payments").first("*").where({ id, kind: "refund" }) : await trx<PaymentRow>("payments").first("*").where({ provider_ref: obj.id, kind: "refund" });
+  if (!row) return;
+  // pending → succeeded/failed; never back to pending.
+  const status = row.status === "pending" || !row.provider_ref ? obj.status : row.status;
+  await updatePayment(row.id, { provider_ref: obj.id, status: status === "succeeded" || status === "failed" ? status : row.status, updated_at: now }, trx);
+}
+
+export async function applyStripeEvent(event: Stripe.Event, deps: { db?: Knex; clock?: () => Date } = {}): Promise<"applied" | "duplicate"> {
+  const q = deps.db ?? db();
+  const now = (deps.clock ?? (() => new Date()))();
+  const at = now.toISOString();
+  let owed: string[] = [];
+  try {
+    owed = await writeTransaction(q, async (trx) => {
+      // First statement: the write that makes a second delivery of this event a no-op.
+      await trx("webhook_events").insert({ id: event.id, provider: "stripe", type: event.type, created_at: new Date(event.created * 1000).toISOString(), processed_at: at });
+      const obj = event.data.object as unknown as Record<string, any>;
+      if (event.type.startsWith("refund.")) {
+        await applyRefundEvent(trx, obj, at);
+        return [];
+      }
+      const isSession = event.type.startsWith("checkout.session.");
+      const isIntent = event.type.startsWith("payment_intent.");
+      const row = await paymentByStripeRef(
+        {
+          payment_id: obj.metadata?.payment_id,
+          session_id: isSession ? obj.id : null,
+          intent_id: isIntent ? obj.id : str(obj.payment_intent),
+        },
+        trx,
+      );
+      if (!row || row.kind === "refund") return [];
+      const target = targetFor(event, row);
+      if (!target) return [];
+      const forward = target.status !== undefined && RANK[target.status] > RANK[row.status];
+      await updatePayment(row.id, { ...target.patch, ...(forward ? { status: target.status } : {}), updated_at: at }, trx);
+      if (!forward) return [];
+      return reservationFollows(trx, row, target.status!, now);
+    });
+  } catch (err) {
+    if (isUniqueViolation(err)) return "duplicate";
+    throw err;
+  }
+  await runPaymentActions(owed, deps.clock, q);
+  return "applied";
+}
+
+/** The reservation side of a payment moving forward. */
+async function reservationFollows(trx: Knex.Transaction, row: PaymentRow, status: string, now: Date): Promise<string[]> {
+  const was = RANK[row.status];
+  const owed: string[] = [];
+  if (was < RANK.authorised && RANK[status] >= RANK.authorised) {
+    owed.push(...(await gardenerStepDone(trx, row.reservation_id, row.kind === "deposit" ? "authorised" : "paid", now)));
+  }
+  if (["released", "captured", "refunded"].includes(status)) {
+    await trx("reservations").where({ id: row.reservation_id }).update({ payment_state: status, updated_at: now.toISOString() });
+  }
+  return owed;
+}

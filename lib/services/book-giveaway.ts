@@ -1,0 +1,90 @@
+import "server-only";
+import { db } from "@/db/index";
+import { isUniqueViolation, writeTransaction } from "@/db/write-transaction";
+import { findDay, findSlot, insertBooking, liveBookingFor, takeSlotPlace } from "@/db/giveaways";
+import { findOrganisation } from "@/db/organisations";
+import { findUserById } from "@/db/users";
+import { enqueueEmail } from "@/db/outbox";
+import type { GiveawayBookingRow, GiveawayDayRow, GiveawaySlotRow } from "@/db/types";
+import { ApiError, notFound } from "@/lib/api/errors";
+import { appUrl } from "@/lib/app-url";
+import { giveawayCautions } from "@/lib/calc/cautions";
+import { formatGiveawayQuantity } from "@/lib/format/giveaway";
+import { formatMoney } from "@/lib/payments/money";
+import { bookingParts, giveawayBookedEmail } from "@/lib/mail/templates/giveaway";
+import { readableDateTime } from "@/lib/time/zoned";
+import { bookingWindowState, cancelDeadline } from "./giveaway-view";
+import { calendarToken } from "./giveaway-calendar";
+
+// A household is one Duffbank account: one live booking per account per day, enforced by a
+// unique index. That stops casual double-booking, not a person with two accounts. To tighten
+// it, verify a postal address once per account (a letter with a code, or the council's own
+// register of households) and key this rule on the verified address instead of the account.
+
+// The no-show deposit is recorded on the booking (deposit_status "recorded") but no card is
+// authorised or charged: that needs the payments work (Stripe PaymentIntents with manual
+// capture). Until then the amount is a stated expectation only, and every page says so.
+export const DEPOSIT_NOT_TAKEN_NOTE = "No card is taken for it yet: Duffbank does not collect giveaway-day deposits, so nothing is charged either way.";
+
+export interface BookInput {
+  slot_id: string;
+  quantity: number;
+}
+
+export async function bookGiveaway(userId: string, dayId: string, input: BookInput, clock: () => Date = () => new Date()): Promise<GiveawayBookingRow> {
+  const now = clock();
+  // Checks that need reading come first, outside the write: they give the clear message.
+  // The write itself re-checks everything that a racing request could change.
+  const day = await findDay(dayId);
+  if (!day) throw notFound("That giveaway day");
+  const window = bookingWindowState(day, now);
+  if (window === "cancelled") throw new ApiError("invalid_state", "This giveaway day has been called off.");
+  if (window === "not_yet") throw new ApiError("invalid_state", `Booking opens ${readableDateTime(day.booking_opens_at, day.time_zone)}.`);
+  if (window === "closed") throw new ApiError("invalid_state", "Booking for this day has closed.");
+  const slot = await findSlot(input.slot_id, dayId);
+  if (!slot) throw new ApiError("invalid_input", "Choose one of this day's time slots.", { slot_id: "That slot is not part of this day." });
+  if (input.quantity > day.household_cap) {
+    const cap = formatGiveawayQuantity(day.household_cap, day.unit);
+    throw new ApiError("invalid_input", `Each household may take at most ${cap}.`, { quantity: `At most ${cap} a household.` });
+  }
+  if (await liveBookingFor(dayId, userId)) throw householdLimit();
+  if (slot.booked >= slot.capacity) throw slotFull();
+
+  const booking = await writeTransaction(db(), async (trx) => {
+    // The conditional UPDATE is the transaction's first statement, so on SQLite it takes the
+    // write lock before anything is read, and on PostgreSQL it locks the slot row.
+    if (!(await takeSlotPlace(slot.id, dayId, trx))) throw slotFull();
+    if (await liveBookingFor(dayId, userId, trx)) throw householdLimit();
+    let row: GiveawayBookingRow;
+    try {
+      row = await insertBooking(
+        { day_id: dayId, slot_id: slot.id, user_id: userId, quantity: input.quantity, deposit_cents: day.deposit_cents, deposit_status: day.deposit_cents > 0 ? "recorded" : "none", currency: day.currency },
+        trx,
+      );
+    } catch (err) {
+      if (isUniqueViolation(err)) throw householdLimit();
+      throw err;
+    }
+    await enqueueBookedEmail(day, slot, row, trx);
+    return row;
+  });
+  return booking;
+}
+
+const slotFull = () => new ApiError("slot_full", "That slot is full. Choose another time.");
+const householdLimit = () => new ApiError("household_limit", "Your household already has a booking for this day. Cancel it first to choose another slot.");
+
+async function enqueueBookedEmail(day: GiveawayDayRow, slot: GiveawaySlotRow, booking: GiveawayBookingRow, trx: Parameters<typeof findDay>[1]) {
+  const [user, org] = await Promise.all([findUserById(booking.user_id, trx), findOrganisation(day.organisation_id, trx)]);
+  if (!user) return;
+  const base = appUrl();
+  const mail = giveawayBookedEmail({
+    ...bookingParts({ name: user.display_name, organisation: org?.name ?? "The council", pageUrl: `${base}/giveaways/${day.id}`, day, slot, quantity: booking.quantity }),
+    address: day.address,
+    cancelBy: readableDateTime(cancelDeadline(slot.starts_at, day.cancel_cutoff_hours).toISOString(), day.time_zone),
+    depositNote: booking.deposit_cents > 0 ? `A no-show deposit of ${formatMoney(booking.deposit_cents, booking.currency)} is recorded on this booking. ${DEPOSIT_NOT_TAKEN_NOTE}` : null,
+    calendarUrl: `${base}/api/giveaways/${day.id}/bookings/${booking.id}/calendar.ics?t=${calendarToken(booking.id)}`,
+    cautions: giveawayCautions(day.material_code),
+  });
+  await enqueueEmail({ to: user.email, ...mail, template: "giveaway_booked", dedupe_key: `giveaway-booked:${booking.id}` }, trx);
+}

@@ -1,0 +1,45 @@
+import "server-only";
+import { db } from "@/db/index";
+import { writeTransaction } from "@/db/write-transaction";
+import { cancelOrgDay, findOrgDay, recountSlots, setBookingStatus, sheetFor, slotsOf } from "@/db/giveaways";
+import { enqueueEmail } from "@/db/outbox";
+import { recordAudit } from "@/db/audit";
+import { ApiError, notFound } from "@/lib/api/errors";
+import { appUrl } from "@/lib/app-url";
+import { formatMoney } from "@/lib/payments/money";
+import { bookingParts, giveawayDayCancelledEmail } from "@/lib/mail/templates/giveaway";
+import { staffDayView } from "./giveaway-view";
+import { DEPOSIT_NOT_TAKEN_NOTE } from "./book-giveaway";
+import type { CouncilContext } from "./council-access";
+
+/** Calls a day off: every live booking is cancelled, its deposit released, its household e-mailed — all or nothing. */
+export async function cancelGiveaway(ctx: CouncilContext, dayId: string, reason: string, clock: () => Date = () => new Date()) {
+  return writeTransaction(db(), async (trx) => {
+    if (!(await cancelOrgDay(dayId, ctx.organisationId, reason, trx))) {
+      if (!(await findOrgDay(dayId, ctx.organisationId, trx))) throw notFound("That giveaway day");
+      throw new ApiError("invalid_state", "That day is already cancelled.");
+    }
+    const day = (await findOrgDay(dayId, ctx.organisationId, trx))!;
+    const booked = (await sheetFor(dayId, {}, trx)).filter((b) => b.status === "booked");
+    const now = clock().toISOString();
+    for (const b of booked) {
+      await setBookingStatus({ id: b.id, day_id: dayId }, ["booked"], "cancelled", { cancelled_at: now, deposit_status: b.deposit_cents > 0 ? "released" : "none" }, trx);
+      const depositNote =
+        b.deposit_cents > 0
+          ? `The no-show deposit of ${formatMoney(b.deposit_cents, day.currency)} on your booking is released. ${DEPOSIT_NOT_TAKEN_NOTE}`
+          : "There was no deposit on this booking, so there is nothing to release or refund.";
+      const mail = giveawayDayCancelledEmail({
+        ...bookingParts({ name: b.name, organisation: ctx.organisationName, pageUrl: `${appUrl()}/giveaways`, day, slot: b, quantity: b.quantity }),
+        reason,
+        depositNote,
+      });
+      await enqueueEmail({ to: b.email, ...mail, template: "giveaway_day_cancelled", dedupe_key: `giveaway-day-cancelled:${b.id}` }, trx);
+    }
+    await recountSlots(dayId, trx);
+    await recordAudit(
+      { actor_id: ctx.userId, action: "giveaway.cancel", subject_type: "giveaway_day", subject_id: dayId, before: { status: "scheduled" }, after: { status: "cancelled", reason, bookings_cancelled: booked.length } },
+      trx,
+    );
+    return { day: staffDayView(day, await slotsOf([dayId], trx), ctx.organisationName), bookings_cancelled: booked.length };
+  });
+}

@@ -1,0 +1,92 @@
+import "server-only";
+import type { Knex } from "knex";
+import { writeTransaction } from "@/db/write-transaction";
+import { db } from "@/db/index";
+import { reservationContext } from "@/db/reservation-context";
+import { findReservation, sideOf } from "@/db/reservations";
+import { ApiError } from "@/lib/api/errors";
+import { mailReservation } from "@/lib/mail/reservation-mail";
+import { runPaymentActions } from "@/lib/payments/actions";
+import { pickupCodeMatches } from "@/lib/reservations/pickup-code";
+import { blockedReason, cancellationIsTimely, type ReservationAction, type Side } from "@/lib/reservations/policy";
+import { StaleState, closeReservation, confirmReservation } from "./reservation-steps";
+
+// One use-case for the five transitions a person can make (confirm, decline, cancel,
+// collect, no-show): who may, from which state, and what each does. The rules themselves
+// are in lib/reservations/policy.ts so pages show exactly the buttons that will work.
+
+export interface ChangeInput {
+  reservationId: string;
+  userId: string;
+  reason?: string | null;
+  pickupCode?: string | null;
+}
+
+export interface ChangeDeps {
+  db?: Knex;
+  clock?: () => Date;
+}
+
+export async function changeReservation(action: ReservationAction, input: ChangeInput, deps: ChangeDeps = {}) {
+  const q = deps.db ?? db();
+  const now = (deps.clock ?? (() => new Date()))();
+  const side = await sideOf(input.reservationId, input.userId, q);
+  if (!side) throw new ApiError("not_found", "That reservation was not found.");
+
+  let paymentIds: string[] = [];
+  try {
+    paymentIds = await writeTransaction(q, async (trx) => {
+      const r = (await findReservation(input.reservationId, trx))!;
+      const blocked = blockedReason(r, action, side, now);
+      if (blocked === "wrong_party") throw new ApiError("forbidden", side === "gardener" ? "Only the supplier can do that." : "Only the gardener can do that.");
+      if (blocked) throw new ApiError("invalid_state", blocked);
+      return apply(trx, action, r, side, input, now);
+    });
+  } catch (err) {
+    if (err instanceof StaleState) throw new ApiError("invalid_state", "Someone changed this reservation a moment ago; reload to see it.");
+    throw err;
+  }
+  await runPaymentActions(paymentIds, deps.clock, q);
+  return { side };
+}
+
+async function apply(trx: Knex.Transaction, action: ReservationAction, r: NonNullable<Awaited<ReturnType<typeof findReservation>>>, side: Side, input: ChangeInput, now: Date): Promise<string[]> {
+  const actorId = input.userId;
+  const note = input.reason?.trim() || null;
+  const ctxAfter = async () => (await reservationContext(r.id, trx))!;
+  switch (action) {
+    case "confirm":
+      await confirmReservation(trx, r, actorId, now, null);
+      return [];
+    case "decline": {
+      const ids = await closeReservation(trx, r, "declined", { actorId, note, now, money: "return" });
+      await mailReservation(trx, "declined", await ctxAfter(), ["gardener"], { reason: note, money: "returned" });
+      return ids;
+    }
+    case "cancel": {
+      const timely = cancellationIsTimely(r, side, now);
+      const ids = await closeReservation(trx, r, "cancelled", {
+        actorId,
+        note: note ?? (timely ? null : "Late cancellation"),
+        now,
+        money: timely ? "return" : "keep",
+        patch: { cancelled_by: side },
+      });
+      await mailReservation(trx, "cancelled", await ctxAfter(), ["gardener", "supplier"], { reason: note, money: timely ? "returned" : "kept", cancelledBy: side });
+      return ids;
+    }
+    case "collect": {
+      if (input.pickupCode && !pickupCodeMatches(r.pickup_code ?? "", input.pickupCode)) {
+        throw new ApiError("invalid_input", "That pickup code does not match.", { pickup_code: "That is not the code on this reservation. Check it with the gardener, or mark it collected without a code." });
+      }
+      const ids = await closeReservation(trx, r, "collected", { actorId, note: input.pickupCode ? "Pickup code checked" : "Marked collected", now, money: "complete" });
+      await mailReservation(trx, "review_request", await ctxAfter(), ["gardener", "supplier"]);
+      return ids;
+    }
+    case "no_show": {
+      const ids = await closeReservation(trx, r, "no_show", { actorId, note, now, money: "keep" });
+      await mailReservation(trx, "no_show", await ctxAfter(), ["gardener", "supplier"], { money: "kept" });
+      return ids;
+    }
+  }
+}

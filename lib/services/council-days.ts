@@ -1,0 +1,11 @@
+import "server-only";
+import { listOrgDays, slotsOf } from "@/db/giveaways";
+import { staffDayView, type StaffDayView } from "./giveaway-view";
+import type { CouncilContext } from "./council-access";
+
+/** Every day of the council, newest first, with its slots and how full they are. */
+export async function councilDays(ctx: CouncilContext): Promise<StaffDayView[]> {
+  const days = await listOrgDays(ctx.organisationId);
+  const slots = await slotsOf(days.map((d) => d.id));
+  return days.map((d) => staffDayView(d, slots, ctx.organisationName));
+}

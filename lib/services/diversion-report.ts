@@ -1,0 +1,53 @@
+import "server-only";
+import { checkedInBookings, collectedReservations, type DiversionScope } from "@/db/diversion";
+import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
+import { summariseDiversion, type DiversionRecord, type DiversionSummary, type DiversionUnit } from "@/lib/calc/diversion";
+import { toCsv } from "@/lib/format/csv";
+
+export interface DiversionReport extends DiversionSummary {
+  /** The densities the masses come from, each with its source. */
+  densities: { material: MaterialCode; bulk_density_kg_m3: number; source: string }[];
+}
+
+/** What left a supplier's, grower's or council's hands; `null` scope is the whole platform. */
+export async function diversionReport(scope: DiversionScope | null, opts: { from?: string; to?: string } = {}): Promise<DiversionReport> {
+  const [collected, checkedIn] = await Promise.all([collectedReservations(scope), checkedInBookings(scope)]);
+  const records: DiversionRecord[] = [
+    ...collected.map((r) => record(r)),
+    ...checkedIn.map((r) => ({ ...record(r), day: { id: r.day_id, date: r.date, title: r.title } })),
+  ].filter((r) => (!opts.from || r.month >= opts.from) && (!opts.to || r.month <= opts.to));
+  const summary = summariseDiversion(records);
+  return {
+    ...summary,
+    densities: summary.by_material.map(({ material }) => ({ material, bulk_density_kg_m3: MATERIALS[material].bulk_density_kg_m3, source: MATERIALS[material].source })),
+  };
+}
+
+function record(r: { quantity: number; household: string; at: string | Date; material_code: string; unit: string; unit_size: number | null }): DiversionRecord {
+  return {
+    material: r.material_code as MaterialCode,
+    quantity: Number(r.quantity),
+    unit: r.unit as DiversionUnit,
+    unitSize: r.unit_size === null || r.unit_size === undefined ? undefined : Number(r.unit_size),
+    month: (r.at instanceof Date ? r.at.toISOString() : String(r.at)).slice(0, 7),
+    household: r.household,
+  };
+}
+
+/** Kilograms kept from disposal across Duffbank: collected reservations and checked-in giveaway households. */
+export async function platformDivertedKg(): Promise<number> {
+  return (await diversionReport(null)).total_kg;
+}
+
+export function diversionCsv(report: DiversionReport, by: "month" | "day" = "month"): string {
+  if (by === "day") {
+    return toCsv(
+      ["date", "giveaway_day", "material", "kg", "m3", "households"],
+      report.by_day.map((d) => [d.date, d.title, d.material, d.kg, d.m3, d.households]),
+    );
+  }
+  return toCsv(
+    ["month", "material", "kg", "m3", "households", "collections"],
+    report.by_month.map((m) => [m.month, m.material, m.kg, m.m3, m.households, m.collections]),
+  );
+}

@@ -1,0 +1,73 @@
+import "server-only";
+import type { Knex } from "knex";
+import { writeTransaction } from "@/db/write-transaction";
+import { db } from "@/db/index";
+import { reservationContext } from "@/db/reservation-context";
+import { dueForNotice, heldDueToExpire } from "@/db/reservations";
+import type { ReservationRow } from "@/db/types";
+import { mailReservation } from "@/lib/mail/reservation-mail";
+import { runPaymentActions } from "@/lib/payments/actions";
+import { EXPIRY_WARNING_MINUTES, PICKUP_REMINDER_HOURS } from "@/lib/reservations/policy";
+import { StaleState, closeReservation } from "./reservation-steps";
+
+// The worker's reservation jobs. Everything they need is in the database (hold_expires_at,
+// pickup_at and the *_at markers), so a restarted worker picks up exactly where it was,
+// and the clock is a parameter so tests can move time.
+
+type Clock = () => Date;
+
+/** Ends every hold whose time is up: the quantity returns, and any money goes back. */
+export async function expireHolds(clock: Clock = () => new Date(), q: Knex = db()): Promise<{ expired: number }> {
+  const now = clock();
+  let expired = 0;
+  for (const due of await heldDueToExpire(now.toISOString(), 100, q)) {
+    let owed: string[] = [];
+    try {
+      owed = await writeTransaction(q, async (trx) => {
+        const r = await trx<ReservationRow>("reservations").first("*").where({ id: due.id, status: "held" }).andWhere("hold_expires_at", "<=", now.toISOString());
+        if (!r) throw new StaleState();
+        const waitingOnSupplier = r.payment_state !== "awaiting";
+        const ids = await closeReservation(trx, r, "expired", { actorId: null, note: waitingOnSupplier ? "The supplier did not answer in time" : "Not paid in time", now, money: "return" });
+        const ctx = (await reservationContext(r.id, trx))!;
+        await mailReservation(trx, "expired", ctx, waitingOnSupplier ? ["gardener", "supplier"] : ["gardener"], { money: "returned" });
+        return ids;
+      });
+      expired++;
+    } catch (err) {
+      if (!(err instanceof StaleState)) throw err; // confirmed or cancelled a moment ago: nothing to expire
+    }
+    await runPaymentActions(owed, clock, q);
+  }
+  return { expired };
+}
+
+type Notice = { status: "held" | "confirmed"; time: "hold_expires_at" | "pickup_at"; marker: "expiry_warned_at" | "pickup_reminded_at"; aheadMs: number };
+
+/** Sends one kind of notice to every reservation due for it, each once: the marker column is claimed first. */
+async function sendNotices(q: Knex, n: Notice, now: Date, send: (trx: Knex.Transaction, r: ReservationRow) => Promise<void>): Promise<number> {
+  const at = now.toISOString();
+  let sent = 0;
+  for (const r of await dueForNotice(n.status, n.time, n.marker, at, new Date(now.getTime() + n.aheadMs).toISOString(), 100, q)) {
+    const claimed = await writeTransaction(q, async (trx) => {
+      const won = await trx("reservations").where({ id: r.id, status: n.status }).whereNull(n.marker).update({ [n.marker]: at });
+      if (won === 1) await send(trx, r);
+      return won === 1;
+    });
+    if (claimed) sent++;
+  }
+  return sent;
+}
+
+/** "Your hold ends soon" and "pickup tomorrow", each sent once (marker column + dedupe key). */
+export async function sendReservationReminders(clock: Clock = () => new Date(), q: Knex = db()): Promise<{ warned: number; reminded: number }> {
+  const now = clock();
+  const warned = await sendNotices(q, { status: "held", time: "hold_expires_at", marker: "expiry_warned_at", aheadMs: EXPIRY_WARNING_MINUTES * 60_000 }, now, async (trx, r) => {
+    // Whoever has the next move hears about it: the gardener to pay, or the supplier to answer.
+    await mailReservation(trx, "expiring", (await reservationContext(r.id, trx))!, [r.payment_state === "awaiting" ? "gardener" : "supplier"], {}, r.hold_expires_at ?? "");
+  });
+  const reminded = await sendNotices(q, { status: "confirmed", time: "pickup_at", marker: "pickup_reminded_at", aheadMs: PICKUP_REMINDER_HOURS * 3_600_000 }, now, async (trx, r) => {
+    const ctx = (await reservationContext(r.id, trx))!;
+    await mailReservation(trx, "reminder", ctx, ctx.gardener.reminders_opt_out ? ["supplier"] : ["gardener", "supplier"]);
+  });
+  return { warned, reminded };
+}

@@ -1,0 +1,70 @@
+import "server-only";
+import { findBooking, findDay, findSlot, liveBookingFor, slotsOf } from "@/db/giveaways";
+import { findOrganisation } from "@/db/organisations";
+import { ApiError, notFound } from "@/lib/api/errors";
+import { appUrl } from "@/lib/app-url";
+import { cancelDeadline, publicDayView, type PublicDayView } from "./giveaway-view";
+import { giveawayCalendar, validCalendarToken } from "./giveaway-calendar";
+
+export interface VisitorBooking {
+  id: string;
+  slot_id: string;
+  quantity: number;
+  status: string;
+  deposit_cents: number;
+  deposit_status: string;
+  starts_at: string;
+  ends_at: string;
+  cancel_until: string;
+  /** The exact place: only for the household that booked. */
+  address: string;
+  exact: { lat: number; lng: number };
+}
+
+/** A day as a visitor sees it, plus — for a household that has booked — its booking and the exact place. */
+export async function giveawayForVisitor(dayId: string, userId: string | null): Promise<{ giveaway: PublicDayView; my_booking: VisitorBooking | null }> {
+  const day = await findDay(dayId);
+  if (!day) throw notFound("That giveaway day");
+  const [slots, org] = await Promise.all([slotsOf([dayId]), findOrganisation(day.organisation_id)]);
+  const giveaway = publicDayView(day, slots, org?.name ?? "");
+  const booking = userId ? await liveBookingFor(dayId, userId) : undefined;
+  if (!booking) return { giveaway, my_booking: null };
+  const slot = slots.find((s) => s.id === booking.slot_id)!;
+  return {
+    giveaway,
+    my_booking: {
+      id: booking.id,
+      slot_id: booking.slot_id,
+      quantity: booking.quantity,
+      status: booking.status,
+      deposit_cents: booking.deposit_cents,
+      deposit_status: booking.deposit_status,
+      starts_at: slot.starts_at,
+      ends_at: slot.ends_at,
+      cancel_until: cancelDeadline(slot.starts_at, day.cancel_cutoff_hours).toISOString(),
+      address: day.address,
+      exact: { lat: day.lat, lng: day.lng },
+    },
+  };
+}
+
+/** The .ics of one booking, for its household only (by session or by the e-mailed token). */
+export async function bookingCalendar(dayId: string, bookingId: string, who: { token: string | null; userId: string | null }): Promise<string> {
+  const booking = await findBooking(bookingId);
+  const allowed = booking && booking.day_id === dayId && (booking.user_id === who.userId || validCalendarToken(bookingId, who.token));
+  if (!booking || !allowed) throw notFound("That booking");
+  if (booking.status === "cancelled") throw new ApiError("invalid_state", "This booking was cancelled.");
+  const day = (await findDay(dayId))!;
+  const [slot, org] = await Promise.all([findSlot(booking.slot_id, dayId), findOrganisation(day.organisation_id)]);
+  return giveawayCalendar({
+    id: booking.id,
+    quantity: booking.quantity,
+    unit: day.unit,
+    title: day.title,
+    address: day.address,
+    starts_at: slot!.starts_at,
+    ends_at: slot!.ends_at,
+    organisation: org?.name ?? "the council",
+    url: `${appUrl()}/giveaways/${day.id}`,
+  });
+}

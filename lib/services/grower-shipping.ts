@@ -1,0 +1,108 @@
+import "server-only";
+import { db } from "@/db/index";
+import { writeTransaction } from "@/db/write-transaction";
+import { findShipping, saveShipping, updateWormQuality, wormListingsOf } from "@/db/grower-shipping";
+import { recordAudit } from "@/db/audit";
+import { notFound } from "@/lib/api/errors";
+import { WORMS_PER_KG } from "@/lib/calc/facts";
+import { PAUSE_REASON_LABELS, WEEKDAY_NAMES, type CultureInput, type ShippingInput } from "@/lib/validation/grower";
+
+/** Early in the week, so a parcel of live worms does not sit in a depot over the weekend (common practice, no source). */
+export const DEFAULT_SHIP_WEEKDAYS = [1, 2];
+
+export interface ShippingView {
+  ship_weekdays: number[];
+  ship_days: string[];
+  paused: boolean;
+  pause_reason: "heat" | "frost" | "other" | null;
+  pause_note: string | null;
+  /** What a buyer reads on the grower's listings. */
+  notice: string;
+}
+
+export function shippingView(row: { ship_weekdays: string; paused: boolean | 0 | 1; pause_reason: ShippingView["pause_reason"]; pause_note: string | null } | undefined): ShippingView {
+  const days = row ? row.ship_weekdays.split(",").filter(Boolean).map(Number) : DEFAULT_SHIP_WEEKDAYS;
+  const paused = !!row?.paused;
+  const names = days.map((d) => WEEKDAY_NAMES[d]);
+  const notice = paused
+    ? `Posting is paused because of ${PAUSE_REASON_LABELS[row!.pause_reason ?? "other"]}: worms are live animals and suffer in hot or freezing parcels. Collection may still be possible.${row?.pause_note ? ` ${row.pause_note}` : ""}`
+    : `Parcels go out on ${names.join(" and ")}, so they do not sit in a depot over the weekend.`;
+  return { ship_weekdays: days, ship_days: names, paused, pause_reason: paused ? (row!.pause_reason ?? "other") : null, pause_note: row?.pause_note ?? null, notice };
+}
+
+export async function growerShipping(userId: string): Promise<ShippingView> {
+  return shippingView(await findShipping(userId));
+}
+
+export async function saveGrowerShipping(userId: string, input: ShippingInput): Promise<ShippingView> {
+  return writeTransaction(db(), async (trx) => {
+    const before = await findShipping(userId, trx);
+    const row = {
+      user_id: userId,
+      ship_weekdays: [...input.ship_weekdays].sort().join(","),
+      paused: input.paused,
+      pause_reason: input.paused ? input.pause_reason : null,
+      pause_note: input.paused ? input.pause_note : null,
+    };
+    await saveShipping(row, trx);
+    await recordAudit({ actor_id: userId, action: "grower.shipping", subject_type: "user", subject_id: userId, before: before ?? null, after: row }, trx);
+    return shippingView(row);
+  });
+}
+
+export interface CultureStock {
+  id: string;
+  title: string;
+  status: string;
+  kg_left: number;
+  kg_held: number;
+  estimated_count: number;
+  species: string | null;
+  ships: boolean;
+  pickup: boolean;
+  price_cents: number;
+  currency: string;
+}
+
+/** The grower's worm listings with what is left and roughly how many worms that is. */
+export async function cultureStock(userId: string): Promise<CultureStock[]> {
+  return (await wormListingsOf(userId)).map((l) => {
+    const quality = safeJson(l.quality);
+    const left = Math.max(0, l.quantity_total - l.quantity_held - l.quantity_collected);
+    return {
+      id: l.id,
+      title: l.title,
+      status: l.status,
+      kg_left: left,
+      kg_held: l.quantity_held,
+      // About 1,000 worms per lb (common practice, no source): WORMS_PER_KG.
+      estimated_count: Math.round((left * WORMS_PER_KG) / 100) * 100,
+      species: typeof quality.species === "string" && quality.species.trim() ? quality.species : null,
+      ships: quality.ships !== false,
+      pickup: quality.pickup !== false,
+      price_cents: l.price_cents,
+      currency: l.currency,
+    };
+  });
+}
+
+export async function saveCulture(userId: string, listingId: string, input: CultureInput) {
+  return writeTransaction(db(), async (trx) => {
+    const listing = (await wormListingsOf(userId, trx)).find((l) => l.id === listingId);
+    if (!listing) throw notFound("That worm listing");
+    const before = safeJson(listing.quality);
+    const after = { ...before, species: input.species, ships: input.ships, pickup: input.pickup };
+    await updateWormQuality(listingId, userId, after, trx);
+    await recordAudit({ actor_id: userId, action: "grower.culture", subject_type: "listing", subject_id: listingId, before, after }, trx);
+    return { id: listingId, ...input };
+  });
+}
+
+function safeJson(s: string): Record<string, unknown> {
+  try {
+    const v = JSON.parse(s);
+    return v && typeof v === "object" ? v : {};
+  } catch {
+    return {};
+  }
+}

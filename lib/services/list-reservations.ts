@@ -1,0 +1,49 @@
+import "server-only";
+import type { Knex } from "knex";
+import { db } from "@/db/index";
+import { paymentsOf } from "@/db/payments";
+import { reservationContexts } from "@/db/reservation-context";
+import { historyOf, reservationIdsFor, sideOf } from "@/db/reservations";
+import { ApiError } from "@/lib/api/errors";
+import type { Side } from "@/lib/reservations/policy";
+import { reservationView, type ReservationView } from "@/lib/reservations/view";
+
+// Reading reservations for one side: a gardener's own, or the requests on a supplier's
+// (or their organisation's) listings. Other people's reservations are simply not found.
+
+async function views(ids: string[], viewerId: string, side: Side, q: Knex, now: Date): Promise<ReservationView[]> {
+  const [contexts, payments, history, reviews] = await Promise.all([
+    reservationContexts(ids, q),
+    paymentsOf(ids, q),
+    historyOf(ids, q),
+    ids.length ? q("reviews").select("reservation_id", "author_id", "rating", "comment").whereIn("reservation_id", ids) : [],
+  ]);
+  return contexts.map((r) =>
+    reservationView({
+      r,
+      side,
+      viewerId,
+      now,
+      payments: payments.filter((p) => p.reservation_id === r.id),
+      history: history.filter((h) => h.reservation_id === r.id),
+      reviews: (reviews as { reservation_id: string; author_id: string; rating: number; comment: string }[]).filter((v) => v.reservation_id === r.id),
+    }),
+  );
+}
+
+export async function listReservations(userId: string, side: Side, opts: { statuses?: string[]; db?: Knex; now?: Date } = {}): Promise<ReservationView[]> {
+  const q = opts.db ?? db();
+  const ids = await reservationIdsFor(userId, side, q, opts.statuses);
+  return views(ids, userId, side, q, opts.now ?? new Date());
+}
+
+export async function getReservation(id: string, userId: string, opts: { db?: Knex; now?: Date } = {}): Promise<ReservationView> {
+  const q = opts.db ?? db();
+  const side = await sideOf(id, userId, q);
+  if (!side) throw new ApiError("not_found", "That reservation was not found.");
+  return (await views([id], userId, side, q, opts.now ?? new Date()))[0];
+}
+
+export async function getReservations(ids: string[], userId: string, side: Side, opts: { db?: Knex; now?: Date } = {}): Promise<ReservationView[]> {
+  return views(ids, userId, side, opts.db ?? db(), opts.now ?? new Date());
+}

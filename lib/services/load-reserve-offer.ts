@@ -1,0 +1,45 @@
+import "server-only";
+import { db } from "@/db/index";
+import { availableOf, listingsForReservation, pickupWindowsOf } from "@/db/reservations";
+import { ratingsFor } from "@/db/reviews";
+import { nextOccurrence, windowLabel } from "@/lib/reservations/pickup-times";
+import { holdMinutes } from "@/lib/reservations/policy";
+import { WHOLE_UNITS } from "@/lib/reservations/labels";
+
+/** What the reserve page shows about a listing: public facts only, never the address. */
+export async function loadReserveOffer(listingId: string, now = new Date()) {
+  const [l] = await listingsForReservation([listingId]);
+  if (!l || l.status === "draft" || l.status === "hidden") return null;
+  const [windows, owner, ratings] = await Promise.all([
+    pickupWindowsOf([l.id]),
+    db()("users").first("display_name", "verified_at").where({ id: l.owner_id }),
+    ratingsFor([l.owner_id]),
+  ]);
+  return {
+    id: l.id,
+    title: l.title,
+    material: l.material_code,
+    status: l.status,
+    owner_id: l.owner_id,
+    unit: l.unit,
+    unit_size: l.unit_size,
+    unit_mass_kg: l.unit_mass_kg,
+    // Nobody can take 0.7 of a bale, whatever the listing's total says.
+    available: WHOLE_UNITS.has(l.unit) ? Math.floor(availableOf(l) + 1e-9) : availableOf(l),
+    max_per_reservation: l.max_per_reservation,
+    price_cents: l.price_cents,
+    // Deposits apply to free listings only (lib/reservations/policy.ts).
+    deposit_cents: l.price_cents > 0 ? 0 : l.deposit_cents,
+    currency: l.currency,
+    auto_accept: Boolean(l.auto_accept),
+    hold_minutes: holdMinutes(),
+    supplier: { name: owner?.display_name ?? "The supplier", verified: Boolean(owner?.verified_at), rating: ratings.get(l.owner_id) ?? null },
+    windows: windows
+      .map((w) => ({ id: w.id, label: windowLabel(w), next: nextOccurrence(w, now) }))
+      .filter((w) => w.next)
+      .sort((a, b) => a.next!.start.getTime() - b.next!.start.getTime())
+      .map((w) => ({ id: w.id, label: w.label, next_start: w.next!.start.toISOString(), next_end: w.next!.end.toISOString() })),
+  };
+}
+
+export type ReserveOffer = NonNullable<Awaited<ReturnType<typeof loadReserveOffer>>>;

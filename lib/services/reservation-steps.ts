@@ -1,0 +1,134 @@
+import "server-only";
+import type { Knex } from "knex";
+import type { Db } from "@/db/index";
+import { chargeOf, insertPayment, updatePayment } from "@/db/payments";
+import { reservationContext, type ReservationContext } from "@/db/reservation-context";
+import { collectQuantity, recordReservationEvent, releaseQuantity, updateReservationIf, type PickupWindowRow } from "@/db/reservations";
+import type { ReservationRow } from "@/db/types";
+import { mailReservation } from "@/lib/mail/reservation-mail";
+import { newPickupCode } from "@/lib/reservations/pickup-code";
+import { nextOccurrence } from "@/lib/reservations/pickup-times";
+import { NO_WINDOW_PICKUP_DAYS, SUPPLIER_REPLY_HOURS, type ReservationStatus } from "@/lib/reservations/policy";
+
+// The building blocks every reservation change is made of, each run inside the caller's
+// transaction: a guarded status change, the quantity it moves, the money it settles, the
+// history row and the e-mails. Stripe itself is only called after the commit.
+
+export type Trx = Knex.Transaction;
+
+export class StaleState extends Error {
+  constructor() {
+    super("the reservation changed meanwhile");
+  }
+}
+
+/** When the pickup is: the chosen window's next opening, or a week to arrange one. */
+export function pickupTimes(window: PickupWindowRow | null, now: Date): { pickup_at: string | null; pickup_by: string } {
+  const occ = window ? nextOccurrence(window, now) : null;
+  if (occ) return { pickup_at: occ.start.toISOString(), pickup_by: occ.end.toISOString() };
+  return { pickup_at: null, pickup_by: new Date(now.getTime() + NO_WINDOW_PICKUP_DAYS * 86_400_000).toISOString() };
+}
+
+async function move(trx: Db, r: ReservationRow, to: ReservationStatus, patch: Partial<ReservationRow>, actorId: string | null, note: string | null, now: Date) {
+  const ok = await updateReservationIf(r.id, [r.status], { ...patch, status: to, updated_at: now.toISOString() }, trx);
+  if (!ok) throw new StaleState();
+  await recordReservationEvent({ reservation_id: r.id, from_status: r.status, to_status: to, actor_id: actorId, note, created_at: now.toISOString() }, trx);
+}
+
+/** Accepts a held reservation: a pickup code, the pickup time, the e-mails with the address. */
+export async function confirmReservation(trx: Trx, r: ReservationRow, actorId: string | null, now: Date, note: string | null): Promise<ReservationContext> {
+  const ctx = (await reservationContext(r.id, trx))!;
+  // A late answer can land after the chosen window's opening has passed: move to the next one.
+  const times = r.pickup_by && new Date(r.pickup_by) > now ? { pickup_at: r.pickup_at, pickup_by: r.pickup_by } : pickupTimes(ctx.window, now);
+  await move(trx, r, "confirmed", { ...times, pickup_code: newPickupCode(), confirmed_at: now.toISOString(), hold_expires_at: null }, actorId, note, now);
+  const after = (await reservationContext(r.id, trx))!;
+  await mailReservation(trx, "confirmed", after, ["gardener", "supplier"]);
+  return after;
+}
+
+/** return: give everything back; keep: the no-show rule; complete: the pickup happened. */
+export type MoneyRule = "return" | "keep" | "complete";
+
+/**
+ * What happens to the gardener's money when a reservation ends: an open checkout is
+ * closed; a payment is refunded or kept; a deposit hold is released or captured.
+ * Returns the payment rows that now owe a Stripe call.
+ */
+export async function settleMoney(trx: Db, r: ReservationRow, rule: MoneyRule, now: Date): Promise<string[]> {
+  const charge = await chargeOf(r.id, trx);
+  if (!charge) return [];
+  const at = now.toISOString();
+  if (charge.status === "creating" || charge.status === "open") {
+    await updatePayment(charge.id, { pending_action: "expire", next_action_at: null, updated_at: at }, trx);
+    return [charge.id];
+  }
+  if (charge.status === "authorised") {
+    await updatePayment(charge.id, { pending_action: rule === "keep" ? "capture" : "release", next_action_at: null, updated_at: at }, trx);
+    return [charge.id];
+  }
+  if (charge.status === "paid" && rule === "return") {
+    const existing = await trx("payments").first("id").where({ idempotency_key: `refund:${charge.id}` });
+    if (existing) return [];
+    const refund = await insertPayment(
+      {
+        reservation_id: r.id,
+        parent_id: charge.id,
+        kind: "refund",
+        status: "pending",
+        amount_cents: charge.amount_cents - charge.refunded_cents,
+        currency: charge.currency,
+        idempotency_key: `refund:${charge.id}`,
+        pending_action: "refund",
+      },
+      at,
+      trx,
+    );
+    return [refund.id];
+  }
+  return [];
+}
+
+/** Ends a reservation (declined, cancelled, expired, no-show, collected) with its quantity and money. */
+export async function closeReservation(
+  trx: Trx,
+  r: ReservationRow,
+  to: Exclude<ReservationStatus, "held" | "confirmed">,
+  opts: { actorId: string | null; note?: string | null; now: Date; money: MoneyRule; patch?: Partial<ReservationRow> },
+): Promise<string[]> {
+  await move(trx, r, to, { closed_at: opts.now.toISOString(), ...opts.patch }, opts.actorId, opts.note ?? null, opts.now);
+  if (to === "collected") await collectQuantity(r.listing_id, r.quantity, trx);
+  else await releaseQuantity(r.listing_id, r.quantity, trx);
+  return settleMoney(trx, r, opts.money, opts.now);
+}
+
+/**
+ * The gardener's payment or deposit is through (from a webhook). A held reservation is
+ * confirmed on an auto-accept listing, or goes to the supplier with a longer hold; one
+ * that ended meanwhile gets its money straight back.
+ */
+export async function gardenerStepDone(trx: Trx, reservationId: string, state: "paid" | "authorised", now: Date): Promise<string[]> {
+  const r = (await trx<ReservationRow>("reservations").first("*").where({ id: reservationId }))!;
+  if (r.status === "held" && r.payment_state === "awaiting") {
+    await trx("reservations").where({ id: r.id }).update({ payment_state: state, updated_at: now.toISOString() });
+    const paid = { ...r, payment_state: state };
+    const ctx = (await reservationContext(r.id, trx))!;
+    await mailReservation(trx, "receipt", ctx, ["gardener"]);
+    const note = state === "paid" ? "Payment received" : "Deposit authorised";
+    if (ctx.listing.auto_accept) {
+      await confirmReservation(trx, paid, null, now, `${note}; the listing accepts automatically`);
+      return [];
+    }
+    const holdUntil = new Date(now.getTime() + SUPPLIER_REPLY_HOURS * 3_600_000).toISOString();
+    await trx("reservations").where({ id: r.id }).update({ hold_expires_at: holdUntil, expiry_warned_at: null });
+    await recordReservationEvent({ reservation_id: r.id, from_status: "held", to_status: "held", actor_id: null, note, created_at: now.toISOString() }, trx);
+    await mailReservation(trx, "requested", (await reservationContext(r.id, trx))!, ["supplier", "gardener"]);
+    return [];
+  }
+  await trx("reservations").where({ id: r.id }).update({ payment_state: state, updated_at: now.toISOString() });
+  if (["expired", "cancelled", "declined"].includes(r.status)) {
+    const ids = await settleMoney(trx, { ...r, payment_state: state }, "return", now);
+    await mailReservation(trx, "returned", (await reservationContext(r.id, trx))!, ["gardener"]);
+    return ids;
+  }
+  return [];
+}

@@ -1,0 +1,173 @@
+import "server-only";
+import type { Knex } from "knex";
+import { writeTransaction } from "@/db/write-transaction";
+import { db, newId } from "@/db/index";
+import { insertPayment } from "@/db/payments";
+import { reservationContext } from "@/db/reservation-context";
+import { availableOf, holdQuantity, insertReservation, listingsForReservation, pickupWindowsOf, recordReservationEvent, type ListingForReservation } from "@/db/reservations";
+import type { ReservationRow } from "@/db/types";
+import { ApiError, type FieldErrors } from "@/lib/api/errors";
+import { mailReservation } from "@/lib/mail/reservation-mail";
+import { startCheckout } from "@/lib/payments/checkout";
+import { MIN_CARD_CHARGE_CENTS, formatMoney, priceFor } from "@/lib/payments/money";
+import { WHOLE_UNITS, quantityLabel } from "@/lib/reservations/labels";
+import { holdMinutes } from "@/lib/reservations/policy";
+import { nextOccurrence } from "@/lib/reservations/pickup-times";
+import { confirmReservation, pickupTimes } from "./reservation-steps";
+
+// POST /api/reservations: hold quantities of one or more listings for a gardener, all or
+// nothing in one transaction, then open a Stripe checkout for whatever needs paying.
+
+export interface ReserveItem {
+  listing_id: string;
+  quantity: number;
+  pickup_window_id?: string | null;
+}
+
+export interface ReserveInput {
+  gardenerId: string;
+  items: ReserveItem[];
+  bed_id?: string | null;
+  /** Field names in errors: "quantity" for a single reservation, "items.2.quantity" for a list. */
+  fieldPrefix: (index: number) => string;
+}
+
+export interface ReserveDeps {
+  db?: Knex;
+  clock?: () => Date;
+}
+
+type Checked = { item: ReserveItem; listing: ListingForReservation; amount: number; deposit: number; window: Awaited<ReturnType<typeof pickupWindowsOf>>[number] | null };
+
+async function check(input: ReserveInput, q: Knex, now: Date): Promise<Checked[]> {
+  const ids = input.items.map((i) => i.listing_id);
+  const listings = new Map((await listingsForReservation(ids, q)).map((l) => [l.id, l]));
+  const windows = await pickupWindowsOf(ids, q);
+  const myOrgs = new Set<string>(await q("memberships").where({ user_id: input.gardenerId }).pluck("organisation_id"));
+  const fields: FieldErrors = {};
+  const seen = new Set<string>();
+  const out: Checked[] = [];
+  for (const [i, item] of input.items.entries()) {
+    const f = input.fieldPrefix(i);
+    const listing = listings.get(item.listing_id);
+    if (!listing || listing.status === "draft" || listing.status === "hidden") throw new ApiError("not_found", "That listing was not found.");
+    if (listing.owner_id === input.gardenerId || (listing.organisation_id && myOrgs.has(listing.organisation_id))) {
+      throw new ApiError("conflict", "This is your own listing (or your organisation's): there is nothing to reserve.");
+    }
+    if (seen.has(listing.id)) fields[`${f}listing_id`] = "This listing is in the list twice; reserve it once with the total.";
+    seen.add(listing.id);
+    if (WHOLE_UNITS.has(listing.unit) && !Number.isInteger(item.quantity)) {
+      fields[`${f}quantity`] = `Reserve whole ${listing.unit}.`;
+    } else if (Math.abs(item.quantity * 100 - Math.round(item.quantity * 100)) > 1e-6) {
+      fields[`${f}quantity`] = "Use at most two decimals.";
+    } else if (listing.max_per_reservation !== null && item.quantity > listing.max_per_reservation + 1e-9) {
+      fields[`${f}quantity`] = `At most ${quantityLabel(listing.max_per_reservation, listing.unit)} per reservation on this listing.`;
+    }
+    const amount = priceFor(listing.price_cents, item.quantity);
+    // Deposits are for free listings; a price is commitment enough.
+    const deposit = listing.price_cents > 0 ? 0 : listing.deposit_cents;
+    const charge = amount || deposit;
+    const min = MIN_CARD_CHARGE_CENTS[listing.currency];
+    if (charge > 0 && min && charge < min && !fields[`${f}quantity`]) {
+      fields[`${f}quantity`] = `Card payments start at ${formatMoney(min, listing.currency)}; reserve a little more.`;
+    }
+    let window = null;
+    if (item.pickup_window_id) {
+      window = windows.find((w) => w.id === item.pickup_window_id && w.listing_id === listing.id) ?? null;
+      if (!window) fields[`${f}pickup_window_id`] = "Choose one of this listing's pickup windows.";
+      else if (!nextOccurrence(window, now)) fields[`${f}pickup_window_id`] = "That pickup window is over; choose another.";
+    }
+    out.push({ item, listing, amount, deposit, window });
+  }
+  if (input.bed_id) {
+    const bed = await q("beds").first("id").where({ id: input.bed_id, owner_id: input.gardenerId });
+    if (!bed) fields.bed_id = "Choose one of your own beds.";
+  }
+  if (Object.keys(fields).length) throw new ApiError("invalid_input", "Some of the reservation needs another look.", fields);
+  return out;
+}
+
+export async function reserveListings(input: ReserveInput, deps: ReserveDeps = {}) {
+  const q = deps.db ?? db();
+  const clock = deps.clock ?? (() => new Date());
+  const now = clock();
+  const checked = await check(input, q, now);
+  const groupId = input.items.length > 1 ? newId() : null;
+  const holdUntil = new Date(now.getTime() + holdMinutes() * 60_000).toISOString();
+  const at = now.toISOString();
+
+  const created = await writeTransaction(q, async (trx) => {
+    const rows: { id: string; paymentId: string | null }[] = [];
+    for (const c of checked) {
+      // The first statement of the transaction is this write, so SQLite takes its write lock
+      // here and parallel requests queue for it instead of failing on a stale snapshot.
+      if (!(await holdQuantity(c.listing.id, c.item.quantity, trx))) {
+        const fresh = (await listingsForReservation([c.listing.id], trx))[0];
+        // "gone" is what the listings' trigger calls an active listing with nothing left.
+        if (fresh.status !== "active" && fresh.status !== "gone") throw new ApiError("invalid_state", `“${fresh.title}” is not taking reservations right now.`);
+        const left = WHOLE_UNITS.has(fresh.unit) ? Math.floor(availableOf(fresh) + 1e-9) : availableOf(fresh);
+        throw new ApiError("insufficient_quantity", left > 0 ? `Only ${quantityLabel(left, fresh.unit)} of “${fresh.title}” is left.` : `Nothing of “${fresh.title}” is left.`);
+      }
+      const owes = c.amount > 0 || c.deposit > 0;
+      const row: ReservationRow = {
+        id: newId(),
+        listing_id: c.listing.id,
+        gardener_id: input.gardenerId,
+        bed_id: input.bed_id ?? null,
+        pickup_window_id: c.window?.id ?? null,
+        group_id: groupId,
+        quantity: c.item.quantity,
+        status: "held",
+        payment_state: owes ? "awaiting" : "none",
+        hold_expires_at: holdUntil,
+        pickup_code: null,
+        ...pickupTimes(c.window, now),
+        amount_cents: c.amount,
+        deposit_cents: c.deposit,
+        currency: c.listing.currency,
+        confirmed_at: null,
+        closed_at: null,
+        cancelled_by: null,
+        expiry_warned_at: null,
+        pickup_reminded_at: null,
+        created_at: at,
+        updated_at: at,
+      };
+      await insertReservation(row, trx);
+      await recordReservationEvent({ reservation_id: row.id, from_status: null, to_status: "held", actor_id: input.gardenerId, note: null, created_at: at }, trx);
+      let paymentId: string | null = null;
+      if (owes) {
+        const kind = c.amount > 0 ? "payment" : "deposit";
+        const p = await insertPayment(
+          { reservation_id: row.id, kind, status: "creating", amount_cents: c.amount || c.deposit, currency: row.currency, idempotency_key: `checkout:${row.id}` },
+          at,
+          trx,
+        );
+        paymentId = p.id;
+      } else if (c.listing.auto_accept) {
+        await confirmReservation(trx, row, null, now, "The listing accepts automatically");
+      } else {
+        await mailReservation(trx, "requested", (await reservationContext(row.id, trx))!, ["supplier", "gardener"]);
+      }
+      rows.push({ id: row.id, paymentId });
+    }
+    return rows;
+  });
+
+  // Stripe is called only after the hold is committed: a slow or failing Stripe never
+  // keeps the database locked, and the page can retry the checkout (same idempotency key).
+  let checkoutUrl: string | null = null;
+  const checkoutUrls = new Map<string, string | null>();
+  for (const r of created) {
+    if (!r.paymentId) continue;
+    let url: string | null = null;
+    try {
+      url = await startCheckout(r.paymentId, clock, q);
+    } catch (err) {
+      console.error("[reserve] could not start checkout", (err as Error).message);
+    }
+    checkoutUrls.set(r.id, url);
+    checkoutUrl ??= url;
+  }
+  return { ids: created.map((r) => r.id), checkoutUrl, checkoutUrls };
+}

@@ -1,0 +1,143 @@
+// The worker's reservation jobs with a settable clock: holds expire and give their quantity
+// back, warnings and pickup reminders go out once, and the outbox survives an SMTP outage.
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { freshDb } from "../helpers/db";
+import { call, request } from "../helpers/http";
+import { createUser } from "../factories";
+import { createListing, listingQuantities } from "../reservation-factories";
+import { POST as reserve } from "@/app/api/reservations/route";
+import { POST as confirm } from "@/app/api/reservations/[id]/confirm/route";
+import { expireHolds, sendReservationReminders } from "@/lib/services/expire-holds";
+import { DEFAULT_HOLD_MINUTES } from "@/lib/reservations/policy";
+import { deliverOutbox, retryDelayMs } from "@/lib/mail/deliver-outbox";
+import { startSmtpFake, type SmtpFake } from "@/lib/fakes/smtp/server";
+import { resetMailTransport } from "@/lib/mail/transport";
+import { jobs } from "@/lib/worker/jobs";
+import { db } from "@/db/index";
+
+let ctx: Awaited<ReturnType<typeof freshDb>>;
+let gardener: { id: string };
+
+beforeAll(async () => {
+  ctx = await freshDb();
+  gardener = await createUser({ roles: ["gardener"] });
+});
+afterAll(() => ctx.close());
+
+const minutes = (n: number) => n * 60_000;
+async function holdOne(listingId: string, quantity = 1, extra: Record<string, unknown> = {}) {
+  const res = await call(reserve, await request("/api/reservations", { body: { listing_id: listingId, quantity, ...extra }, as: gardener.id }));
+  expect(res.status).toBe(201);
+  return res.json.reservation as { id: string; hold_expires_at: string; created_at: string };
+}
+
+describe("hold expiry", () => {
+  it("expires a hold after 30 minutes, not before, and gives the quantity back", async () => {
+    expect(DEFAULT_HOLD_MINUTES).toBe(30);
+    const l = await createListing({ quantity_total: 5 });
+    const r = await holdOne(l.id, 3);
+    const t0 = new Date(r.created_at).getTime();
+    expect(await expireHolds(() => new Date(t0 + minutes(29)))).toEqual({ expired: 0 });
+    expect((await listingQuantities(l.id)).quantity_held).toBe(3);
+    expect(await expireHolds(() => new Date(t0 + minutes(30) + 1000))).toEqual({ expired: 1 });
+    expect((await listingQuantities(l.id)).quantity_held).toBe(0);
+    const row = await db()("reservations").first("status", "closed_at").where({ id: r.id });
+    expect(row.status).toBe("expired");
+    const history = await db()("reservation_events").where({ reservation_id: r.id }).orderBy("id").pluck("to_status");
+    expect(history).toEqual(["held", "expired"]);
+    // Run again (a restarted worker): nothing more happens.
+    expect(await expireHolds(() => new Date(t0 + minutes(60)))).toEqual({ expired: 0 });
+    expect((await listingQuantities(l.id)).quantity_held).toBe(0);
+    const mail = await db()("email_outbox").where({ template: "reservation.expired" }).andWhere("dedupe_key", "like", `res:${r.id}:%`);
+    // Nothing was owed, so the supplier was the one to act: both hear it ran out.
+    expect(mail.map((m: any) => m.dedupe_key).sort()).toEqual([`res:${r.id}:expired:gardener`, `res:${r.id}:expired:supplier`]);
+  });
+
+  it("never expires a confirmed reservation", async () => {
+    const l = await createListing({ quantity_total: 5 });
+    const r = await holdOne(l.id, 2);
+    await call(confirm, await request(`/api/reservations/${r.id}/confirm`, { as: l.ownerId, body: {} }), { id: r.id });
+    expect(await expireHolds(() => new Date(Date.now() + minutes(120)))).toEqual({ expired: 0 });
+    expect((await db()("reservations").first("status").where({ id: r.id })).status).toBe("confirmed");
+  });
+
+  it("is the worker's expire-holds job, which takes the clock", async () => {
+    const l = await createListing({ quantity_total: 5 });
+    const r = await holdOne(l.id, 1);
+    const job = jobs.find((j) => j.name === "expire-holds")!;
+    await job.run(() => new Date(new Date(r.hold_expires_at).getTime() + 1));
+    expect((await db()("reservations").first("status").where({ id: r.id })).status).toBe("expired");
+  });
+});
+
+describe("reminders", () => {
+  it("warns the supplier once, ten minutes before an unanswered hold runs out", async () => {
+    const l = await createListing({ quantity_total: 5 });
+    const r = await holdOne(l.id);
+    const end = new Date(r.hold_expires_at).getTime();
+    expect((await sendReservationReminders(() => new Date(end - minutes(15)))).warned).toBe(0);
+    expect((await sendReservationReminders(() => new Date(end - minutes(9)))).warned).toBe(1);
+    expect((await sendReservationReminders(() => new Date(end - minutes(5)))).warned).toBe(0);
+    const mail = await db()("email_outbox").where({ dedupe_key: `res:${r.id}:expiring:supplier:${r.hold_expires_at}` });
+    expect(mail).toHaveLength(1);
+    expect(mail[0].subject).toContain("Waiting for your answer");
+  });
+
+  it("reminds both sides the day before the pickup, once", async () => {
+    const l = await createListing({ quantity_total: 5, windows: [{ kind: "dated", starts_at: new Date(Date.now() + 3 * 86_400_000).toISOString(), ends_at: new Date(Date.now() + 3 * 86_400_000 + 7_200_000).toISOString() }] });
+    const r = await holdOne(l.id, 1, { pickup_window_id: l.windowIds[0] });
+    await call(confirm, await request(`/api/reservations/${r.id}/confirm`, { as: l.ownerId, body: {} }), { id: r.id });
+    const { pickup_at } = await db()("reservations").first("pickup_at").where({ id: r.id });
+    const start = new Date(pickup_at).getTime();
+    expect((await sendReservationReminders(() => new Date(start - 30 * 3_600_000))).reminded).toBe(0);
+    expect((await sendReservationReminders(() => new Date(start - 20 * 3_600_000))).reminded).toBe(1);
+    expect((await sendReservationReminders(() => new Date(start - 19 * 3_600_000))).reminded).toBe(0);
+    const mail = await db()("email_outbox").where("dedupe_key", "like", `res:${r.id}:reminder:%`).orderBy("dedupe_key");
+    expect(mail.map((m: any) => m.dedupe_key)).toEqual([`res:${r.id}:reminder:gardener`, `res:${r.id}:reminder:supplier`]);
+    expect(mail[0].text_body).toContain("Secret Lane");
+  });
+});
+
+describe("e-mail through an SMTP outage", () => {
+  let smtp: SmtpFake;
+  afterAll(async () => smtp?.close());
+
+  it("delivers every reservation e-mail exactly once after the SMTP server comes back", async () => {
+    smtp = await startSmtpFake();
+    process.env.SMTP_PORT = String(smtp.smtpPort);
+    resetMailTransport();
+    // Clear what earlier tests queued, so this one counts only its own.
+    const t0 = new Date();
+    while ((await deliverOutbox(() => t0)).sent > 0);
+    const port = smtp.smtpPort;
+    await smtp.close();
+
+    const l = await createListing({ quantity_total: 9 });
+    const ids: string[] = [];
+    for (let i = 0; i < 3; i++) ids.push((await holdOne(l.id)).id);
+    for (const id of ids) await call(confirm, await request(`/api/reservations/${id}/confirm`, { as: l.ownerId, body: {} }), { id });
+    const queued = await db()("email_outbox").where({ status: "pending" }).pluck("dedupe_key");
+    // requested ×2 and confirmed ×2 per reservation.
+    expect(queued).toHaveLength(12);
+
+    const t1 = new Date();
+    const down = await deliverOutbox(() => t1);
+    expect(down).toEqual({ sent: 0, failed: 12 });
+    expect(await db()("email_outbox").where({ status: "pending" })).toHaveLength(12);
+
+    smtp = await startSmtpFake({ smtpPort: port });
+    expect(await deliverOutbox(() => new Date(t1.getTime() + 1000))).toEqual({ sent: 0, failed: 0 }); // backing off
+    const later = new Date(t1.getTime() + retryDelayMs(1) + 1000);
+    expect(await deliverOutbox(() => later)).toEqual({ sent: 12, failed: 0 });
+    expect(await deliverOutbox(() => new Date(later.getTime() + 60_000))).toEqual({ sent: 0, failed: 0 });
+
+    // What arrived is exactly what was queued: each message once.
+    const got = smtp.messages.map((m) => `${m.to[0]}|${m.subject}`).sort();
+    const rows = await db()("email_outbox").whereIn("dedupe_key", queued);
+    expect(got).toEqual(rows.map((m: any) => `${m.to_address}|${m.subject}`).sort());
+    expect(rows.every((m: any) => m.status === "sent" && m.attempts === 1)).toBe(true);
+    const confirmedForGardener = smtp.messages.filter((m) => m.subject.startsWith("Confirmed:"));
+    expect(confirmedForGardener).toHaveLength(3);
+    expect(confirmedForGardener.every((m) => m.text.includes("Secret Lane") && m.html?.includes("Secret Lane"))).toBe(true);
+  });
+});
