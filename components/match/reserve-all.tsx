@@ -15,8 +15,11 @@ export function ReserveAll({ items, bedId }: { items: { listing_id: string; quan
   const onClick = async () => {
     setError(null);
     try {
-      await reserve.mutateAsync({ items, ...(bedId ? { bed_id: bedId } : {}) });
-      router.push("/reservations");
+      const answer = await reserve.mutateAsync({ items, ...(bedId ? { bed_id: bedId } : {}) });
+      // Prices and deposits are paid on the payment page, which comes back to the
+      // reservations; with nothing to pay, straight there.
+      if (answer?.checkout_url) window.location.assign(answer.checkout_url);
+      else router.push("/reservations");
     } catch (err) {
       if (isApiError(err) && err.status === 401) {
         router.push(`/sign-in?callbackUrl=${encodeURIComponent(window.location.pathname + window.location.search)}`);

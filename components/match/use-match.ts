@@ -22,7 +22,13 @@ export interface ReserveAllBody {
   bed_id?: string;
 }
 
-/** Hands a plan's allocations to the reservation flow. */
+/** What the reservation flow answers; a priced or deposit listing needs the payment page next. */
+export interface ReserveAllAnswer {
+  reservations: { id: string }[];
+  checkout_url?: string;
+}
+
+/** Hands a plan's allocations to the reservation flow (all or nothing). */
 export function useReserveAll() {
-  return useMutation({ mutationFn: (body: ReserveAllBody) => apiFetch("/api/reservations", { body }) });
+  return useMutation({ mutationFn: (body: ReserveAllBody) => apiFetch<ReserveAllAnswer>("/api/reservations", { body }) });
 }

@@ -53,6 +53,21 @@ test.describe("a gardener's saved bed", () => {
     }
   });
 
+  test("reserve all really holds every pickup, all at once, then goes on to pay", async ({ page }) => {
+    await page.goto(`/beds/${BED}/materials`);
+    await expect(stops(page).first()).toBeVisible({ timeout: 20_000 });
+    const planned = await page.locator("main [data-stop]").count();
+    await page.getByRole("button", { name: /Reserve all/ }).click();
+    // Straw and worms are priced, so the reservation flow sends the gardener to pay.
+    await expect(page).not.toHaveURL(/\/materials/, { timeout: 20_000 });
+    const mine = await (await page.request.get("/api/reservations")).json();
+    // Held until the supplier accepts; auto-accepting listings confirm at once.
+    const fresh = mine.reservations.filter((r: any) => r.bed_id === BED && ["held", "confirmed"].includes(r.status));
+    expect(fresh.length).toBe(planned);
+    // Leave the demo's quantities as they were for the journeys that follow.
+    for (const r of fresh) expect((await page.request.post(`/api/reservations/${r.id}/cancel`, { data: {} })).ok()).toBe(true);
+  });
+
   test("a refusal from the reservation flow is shown, not swallowed", async ({ page }) => {
     await page.route("**/api/reservations", (route) =>
       route.fulfill({ status: 409, contentType: "application/json", body: JSON.stringify({ error: { code: "insufficient_quantity", message: "Someone reserved the last of the straw a moment ago." } }) }),
