@@ -76,9 +76,9 @@ export function BedMaterials({ bedId, bedPoint, system: defaultSystem }: { bedId
               ))}
             </ul>
           ) : (
-            <p className="mt-2 text-humus-600">Worked out from the bed's size and layers when the plan loads.</p>
+            <p className="mt-2 text-humus-600">Worked out from the bed&apos;s size and layers when the plan loads.</p>
           )}
-          {needs ? <p className="mt-2 text-sm text-humus-600">Changed from the bed's own list for this search.</p> : null}
+          {needs ? <p className="mt-2 text-sm text-humus-600">Changed from the bed&apos;s own list for this search.</p> : null}
           <Link href={editHref} className={`${buttonClass("quiet")} mt-2 inline-block text-sm`}>
             Change these amounts in the planner
           </Link>

@@ -1,6 +1,6 @@
 "use client";
 import { useEffect, useState } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { usePathname, useRouter } from "next/navigation";
 import type { MaterialCode } from "@/lib/calc/facts";
@@ -39,7 +39,7 @@ export function MatchPlanner({ initial, run, system: defaultSystem, skipped }: {
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, []);
 
-  const watched = form.watch("origin");
+  const watched = useWatch({ control: form.control, name: "origin" });
   const origin = watched && finite(watched.lat) && finite(watched.lng) ? { lat: watched.lat, lng: watched.lng } : DEFAULT_CENTER;
 
   const pick = (p: { lat: number; lng: number }) => {
