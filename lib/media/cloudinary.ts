@@ -25,7 +25,7 @@ export function cloudinarySettings(): CloudinarySettings {
     cloudName: String(c.cloud_name),
     apiKey: String(c.api_key),
     uploadPrefix: prefix.replace(/\/+$/, ""),
-    // The fake serves uploads and delivery from one address; real accounts deliver from res.cloudinary.com.
+    // The fake serves uploads and delivery from one address; real accounts deliver from Cloudinary's own delivery host.
     deliveryHost: local ? new URL(prefix).host : null,
     secure: !local || prefix.startsWith("https:"),
   };

@@ -46,7 +46,7 @@ export function sniffImage(buf: Buffer): SniffResult {
     const brand = ascii(buf, 8, 12);
     if (/^(heic|heix|hevc|heim|heis|mif1|msf1)$/.test(brand)) return { kind: "unsupported", name: "HEIC" };
     if (/^avi[fs]$/.test(brand)) return { kind: "unsupported", name: "AVIF" };
-    return { kind: "unsupported", name: "video" };
+    return { kind: "unsupported", name: "MP4 or MOV movie" };
   }
 
   if (looksLikeMarkupDocument(buf)) return { kind: "markup" };
@@ -135,7 +135,7 @@ export type TrailerKind = "none" | "padding" | "markup" | "binary";
 
 // Signatures long enough that random compressed bytes essentially never contain them
 // (a 5+ byte, case-insensitive match in a few megabytes of noise is around 1 in 10^4 or
-// rarer), so binary trailers such as a phone's embedded motion-photo video pass.
+// rarer), so binary trailers such as a phone's embedded motion-photo movie clip pass.
 const SCRIPT_SIGNATURES = [
   "<script", "<html", "<!doctype", "<?php", "<iframe", "<object", "<embed", "<body",
   "<svg ", "<svg>", "<?xml", "javascript:", "<%@", "<jsp:",

@@ -125,7 +125,7 @@ describe("sanitizeImage: polyglots", () => {
     expect(err.code).toBe("not_an_image");
   });
 
-  it("neutralises a binary trailer (e.g. a phone's motion-photo video): accepted, trailer gone", async () => {
+  it("neutralises a binary trailer (e.g. a phone's motion-photo movie clip): accepted, trailer gone", async () => {
     const jpeg = await noisy(64, 64).jpeg().toBuffer();
     const trailer = Buffer.from(Array.from({ length: 4096 }, (_, i) => (i * 131 + 7) % 256));
     const out = await sanitizeImage(Buffer.concat([jpeg, trailer]));
