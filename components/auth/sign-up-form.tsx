@@ -10,6 +10,7 @@ import { apiFetch, isApiError } from "@/lib/api/client";
 import { Field } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
+import { UnitSystemChoice } from "@/components/ui/unit-system-choice";
 
 type Values = z.input<typeof signUpSchema>;
 
@@ -44,15 +45,7 @@ export function SignUpForm({ callbackUrl, email = "" }: { callbackUrl?: string; 
       <Field label="Your name" autoComplete="name" hint="Shown to the people you collect from or give to." {...form.register("display_name")} error={form.formState.errors.display_name?.message} />
       <Field label="E-mail" type="email" autoComplete="email" {...form.register("email")} error={form.formState.errors.email?.message} />
       <Field label="Password" type="password" autoComplete="new-password" hint="At least 10 characters." {...form.register("password")} error={form.formState.errors.password?.message} />
-      <fieldset className="flex flex-col gap-2 pb-4">
-        <legend className="font-medium">Measure in</legend>
-        <label className="flex items-center gap-2">
-          <input type="radio" value="metric" {...form.register("unit_system")} className="h-5 w-5" /> metres, litres and kilograms
-        </label>
-        <label className="flex items-center gap-2">
-          <input type="radio" value="imperial" {...form.register("unit_system")} className="h-5 w-5" /> feet, gallons and pounds
-        </label>
-      </fieldset>
+      <UnitSystemChoice field={form.register("unit_system")} className="pb-4" />
       <Button type="submit" disabled={form.formState.isSubmitting}>
         {form.formState.isSubmitting ? "Creating your account…" : "Create my account"}
       </Button>

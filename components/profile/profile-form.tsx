@@ -9,6 +9,7 @@ import { apiFetch, isApiError } from "@/lib/api/client";
 import { Field } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
+import { UnitSystemChoice } from "@/components/ui/unit-system-choice";
 import type { Role } from "@/lib/auth/roles";
 
 type Values = z.input<typeof profileSchema>;
@@ -50,15 +51,7 @@ export function ProfileForm({ initial, roles, requested }: { initial: Values; ro
       {saved ? <Notice title="Saved">Your profile is up to date.</Notice> : null}
       {error ? <Notice tone="error">{error}</Notice> : null}
       <Field label="Your name" {...form.register("display_name")} error={form.formState.errors.display_name?.message} />
-      <fieldset className="flex flex-col gap-2">
-        <legend className="font-medium">Measure in</legend>
-        <label className="flex items-center gap-2">
-          <input type="radio" value="metric" {...form.register("unit_system")} className="h-5 w-5" /> metres, litres and kilograms
-        </label>
-        <label className="flex items-center gap-2">
-          <input type="radio" value="imperial" {...form.register("unit_system")} className="h-5 w-5" /> feet, gallons and pounds
-        </label>
-      </fieldset>
+      <UnitSystemChoice field={form.register("unit_system")} />
       <label className="flex items-center gap-2">
         <input type="checkbox" {...form.register("reminders_opt_out")} className="h-5 w-5" /> Do not e-mail me bed reminders
       </label>
