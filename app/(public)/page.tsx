@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { buttonClass } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button-class";
 import { platformDivertedKg } from "@/lib/services/diversion-report";
 import { countVisibleListings } from "@/db/listing-status";
 import { formatKg } from "@/components/reports/format";

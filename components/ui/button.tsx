@@ -1,19 +1,14 @@
+"use client";
 import type { ButtonHTMLAttributes } from "react";
+import { buttonClass, type ButtonVariant } from "./button-class";
+import { useHydrated } from "./use-hydrated";
 
-const VARIANTS = {
-  primary: "bg-moss-600 text-white hover:bg-moss-700 disabled:bg-moss-300",
-  secondary: "bg-white text-humus-900 ring-1 ring-humus-300 hover:bg-humus-100",
-  danger: "bg-ember-600 text-white hover:bg-ember-800",
-  quiet: "text-moss-700 underline underline-offset-4 hover:text-moss-900",
-} as const;
+export type { ButtonVariant };
 
-export type ButtonVariant = keyof typeof VARIANTS;
-
-export function buttonClass(variant: ButtonVariant = "primary", extra = "") {
-  const base = variant === "quiet" ? "" : "inline-flex items-center justify-center gap-2 rounded-lg px-4 py-2.5 font-semibold min-h-11";
-  return `${base} ${VARIANTS[variant]} disabled:cursor-not-allowed ${extra}`.trim();
-}
-
-export function Button({ variant = "primary", className = "", ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: ButtonVariant }) {
-  return <button type="button" className={buttonClass(variant, className)} {...props} />;
+// Every form here is handled in the browser. A submit pressed before the page has
+// hydrated would send a plain GET with the fields (a password too) in the address, so
+// submit buttons wait for React.
+export function Button({ variant = "primary", className = "", type = "button", disabled, ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: ButtonVariant }) {
+  const hydrated = useHydrated();
+  return <button type={type} disabled={disabled || (type === "submit" && !hydrated)} className={buttonClass(variant, className)} {...props} />;
 }

@@ -3,7 +3,7 @@ import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
 import { db } from "@/db/index";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
-import { buttonClass } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button-class";
 import { formatQuantity } from "@/lib/calc/units";
 
 export const metadata: Metadata = { title: "My beds" };

@@ -9,7 +9,7 @@ import { diversionReport } from "@/lib/services/diversion-report";
 import { diversionScopeOf } from "@/lib/services/diversion-scope";
 import { localDate, longDate } from "@/lib/time/zoned";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
-import { buttonClass } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button-class";
 import { StaffPanel } from "@/components/council/staff-panel";
 import { DaysTable } from "@/components/council/days-table";
 import { formatKg } from "@/components/reports/format";

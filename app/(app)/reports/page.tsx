@@ -6,7 +6,7 @@ import { diversionScopeOf } from "@/lib/services/diversion-scope";
 import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { longDate } from "@/lib/time/zoned";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
-import { buttonClass } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button-class";
 import { MATERIAL_COLORS, StackedBarChart, type ChartSeries } from "@/components/reports/bar-chart";
 import { formatKg } from "@/components/reports/format";
 import { Panel } from "@/components/ui/panel";

@@ -3,7 +3,7 @@ import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
 import { listReservations } from "@/lib/services/list-reservations";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
-import { buttonClass } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button-class";
 import { Notice } from "@/components/ui/notice";
 import { ReservationCard } from "@/components/reservations/reservation-card";
 

@@ -5,7 +5,7 @@ import { pageUser } from "@/lib/auth/page-guard";
 import { findBed } from "@/db/beds";
 import { bedEstimate, toBedView } from "@/lib/services/bed-view";
 import { PageHeading } from "@/components/ui/empty-state";
-import { buttonClass } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button-class";
 import { BedEstimate } from "@/components/planner/bed-estimate";
 import { DeleteBedButton } from "@/components/planner/delete-bed-button";
 import { formatQuantity } from "@/lib/calc/units";

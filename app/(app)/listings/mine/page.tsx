@@ -4,7 +4,7 @@ import { pageUser } from "@/lib/auth/page-guard";
 import { LISTING_ROLES } from "@/lib/auth/roles";
 import { listingsManagedBy } from "@/db/listings";
 import { effectiveStatus, quantityLeft } from "@/lib/listings/status";
-import { buttonClass } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button-class";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { MineTable, type MineRow } from "@/components/listings/mine-table";
 

@@ -6,7 +6,7 @@ import { db } from "@/db/index";
 import { getReservations } from "@/lib/services/list-reservations";
 import { whatLabel } from "@/lib/reservations/labels";
 import { PageHeading } from "@/components/ui/empty-state";
-import { buttonClass } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button-class";
 import { Notice } from "@/components/ui/notice";
 import { AutoRefresh } from "@/components/reservations/auto-refresh";
 import { ReservationCard } from "@/components/reservations/reservation-card";

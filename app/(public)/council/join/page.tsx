@@ -4,7 +4,7 @@ import { currentUser } from "@/lib/auth/current-user";
 import { describeInvite } from "@/lib/services/manage-council-staff";
 import { PageHeading } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";
-import { buttonClass } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button-class";
 import { SignOutButton } from "@/components/auth/sign-out-button";
 import { AcceptInvite } from "@/components/council/accept-invite";
 

@@ -8,7 +8,7 @@ import { getListing } from "@/lib/services/get-listing";
 import type { ManagedListingDetail } from "@/lib/listings/view";
 import { describeUnitSize, formatDay, formatListingQuantity, formatMoney, formatPrice, formatWindow, materialName } from "@/lib/listings/format";
 import { APPROX_MAX_M } from "@/lib/geo/approximate";
-import { buttonClass } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button-class";
 import { Notice } from "@/components/ui/notice";
 import { DuffMap } from "@/components/map/map";
 import { MaterialArt } from "@/components/listings/material-art";

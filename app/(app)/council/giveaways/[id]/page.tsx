@@ -6,7 +6,7 @@ import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { formatMoney } from "@/lib/payments/money";
 import { longDate, readableDateTime } from "@/lib/time/zoned";
 import { PageHeading } from "@/components/ui/empty-state";
-import { buttonClass } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button-class";
 import { Notice } from "@/components/ui/notice";
 import { DayForm } from "@/components/giveaways/day-form";
 import { valuesFromDay } from "@/components/giveaways/day-form-model";

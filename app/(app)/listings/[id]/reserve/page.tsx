@@ -6,7 +6,7 @@ import { loadReserveOffer } from "@/lib/services/load-reserve-offer";
 import { pickupCautions } from "@/lib/reservations/cautions";
 import { quantityLabel } from "@/lib/reservations/labels";
 import { PageHeading, EmptyState } from "@/components/ui/empty-state";
-import { buttonClass } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button-class";
 import { Notice } from "@/components/ui/notice";
 import { ReserveForm } from "@/components/reservations/reserve-form";
 

@@ -4,7 +4,7 @@ import { pageUser } from "@/lib/auth/page-guard";
 import { sheetForPage } from "@/lib/services/council-day-page";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { longDate, wallTime } from "@/lib/time/zoned";
-import { buttonClass } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button-class";
 import { PrintButton } from "@/components/giveaways/print-button";
 
 export const metadata: Metadata = { title: "Day sheet" };
