@@ -38,6 +38,8 @@ function moneyLine(v: ReservationView): string | null {
   const money = formatMoney(cents, v.currency);
   switch (v.payment.state) {
     case "awaiting":
+      // A reservation that ended before anything was paid owes nothing any more.
+      if (v.status !== "held") return "Nothing paid";
       return price ? `${money} to pay` : `${money} deposit to place`;
     case "paid":
       return `${money} paid`;
