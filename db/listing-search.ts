@@ -87,20 +87,35 @@ export async function searchListings(f: SearchFilters, after: SearchCursor | nul
     return rows.map(normalise);
   }
 
-  const { lat, lng } = f.point;
-  const box = boundingBox(lat, lng, f.radiusKm);
+  // Widen a ring around the point until it holds a page: every listing within the ring is
+  // read, and every listing outside it is further away than all of them, so the page is the
+  // same as one cut from the whole radius, without measuring thousands of far listings.
+  const from = after?.by === "distance" ? after.d : 0;
+  let ring = Math.min(f.radiusKm, from + FIRST_RING_KM);
+  for (;;) {
+    const rows = await nearPage(base.clone(), f.point, ring, after, limit, q);
+    if (rows.length >= limit || ring >= f.radiusKm) return rows.map(normalise);
+    ring = Math.min(f.radiusKm, from + (ring - from) * 4);
+  }
+}
+
+/** The first ring of a near search; each next one reaches four times as far past the cursor. */
+const FIRST_RING_KM = 2;
+
+async function nearPage(base: Knex.QueryBuilder, point: { lat: number; lng: number }, radiusKm: number, after: SearchCursor | null, limit: number, q: Db) {
+  const { lat, lng } = point;
+  const box = boundingBox(lat, lng, radiusKm);
   base.whereBetween("approx_lat", [box.minLat, box.maxLat]);
   if (!box.wrapsLng) base.whereBetween("approx_lng", [box.minLng, box.maxLng]);
   base.select(PUBLIC_COLUMNS.map((c) => `listings.${c}`)).select(q.raw(`${DISTANCE_SQL} as distance_km`, [lat, lat, lng]));
 
-  const outer = q.select("*").from(base.as("near")).where("distance_km", "<=", f.radiusKm);
+  const outer = q.select("*").from(base.as("near")).where("distance_km", "<=", radiusKm);
   if (after?.by === "distance") {
     // The cursor carries the distance exactly as the database computed it, and the same
     // expression over the same numbers gives the same double, so ties compare equal.
     outer.andWhere((b) => b.where("distance_km", ">", after.d).orWhere((b2) => b2.where("distance_km", after.d).andWhere("id", ">", after.id)));
   }
-  const rows = await outer.orderBy([{ column: "distance_km" }, { column: "id" }]).limit(limit);
-  return rows.map(normalise);
+  return outer.orderBy([{ column: "distance_km" }, { column: "id" }]).limit(limit);
 }
 
 function normalise(r: Record<string, unknown>): PublicListingRow {

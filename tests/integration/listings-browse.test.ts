@@ -185,6 +185,26 @@ describe("keyset pagination", () => {
     for (const id of before) expect(seen).toContain(id);
   });
 
+  it("near a point, small pages through widening rings give exactly the full radius in distance order", async () => {
+    // Far from the seeded town, spread out so pages cross several rings: 1 km to about 45 km.
+    const far = { lat: 54.5, lng: -2.1 };
+    for (const [k, km] of [1, 3, 6, 9, 14, 22, 31, 44].entries()) {
+      await post({ title: `Ring probe ${k}`, location: { lat: far.lat + km / 111.2, lng: far.lng + (k % 2 ? 0.01 : -0.01) } });
+    }
+    const qs = `lat=${far.lat}&lng=${far.lng}&radius_km=50`;
+    const whole = await browse(`${qs}&limit=100`);
+    expect(whole.next_cursor, "the whole radius fits one page here").toBeNull();
+    expect(whole.items).toHaveLength(8);
+    const expected = [...whole.items].sort((a, b) => a.distance_km - b.distance_km || (a.id < b.id ? -1 : 1));
+    expect(expected.at(-1).distance_km).toBeGreaterThan(40);
+    // Turf's distance from the public point agrees with the order the database used.
+    for (const item of expected) {
+      const d = distance(point([far.lng, far.lat]), point([item.location.lng, item.location.lat]), { units: "kilometers" });
+      expect(Math.abs(item.distance_km - d)).toBeLessThan(0.006); // the API rounds to 10 m
+    }
+    expect(await allPages(qs, 3)).toEqual(expected.map((i) => i.id));
+  });
+
   it("refuses a cursor from the other kind of search", async () => {
     const near = await browse(`lat=${CENTRE.lat}&lng=${CENTRE.lng}&limit=2`);
     expect(near.next_cursor).toBeTruthy();
