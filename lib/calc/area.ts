@@ -1,4 +1,13 @@
-import { area as turfArea, centerOfMass, kinks, polygon as turfPolygon } from "@turf/turf";
+import {
+  area as turfArea,
+  bbox,
+  booleanPointInPolygon,
+  centerOfMass,
+  kinks,
+  lineIntersect,
+  lineString,
+  polygon as turfPolygon,
+} from "@turf/turf";
 import type { Polygon, Position } from "geojson";
 import { assertPositiveFinite } from "./numbers";
 
@@ -44,4 +53,50 @@ export function isValidRing(ring: readonly Position[]): boolean {
   const geometry = turfPolygon([ring as Position[]]).geometry;
   if (kinks(geometry).features.length > 0) return false;
   return turfArea(geometry) > 0;
+}
+
+/** Where an outline's rings go wrong, and how to say so; null when the polygon is usable. */
+export interface PolygonProblem {
+  /** Index of the ring at fault, or null for the polygon as a whole. */
+  ring: number | null;
+  message: string;
+}
+
+const HOLE_OUTSIDE = "A hole must lie inside the outline without touching or crossing it";
+const HOLES_OVERLAP = "Holes must not overlap, touch or lie inside each other";
+
+type Box = [number, number, number, number];
+const boxOf = (ring: Position[]) => bbox(lineString(ring)) as Box;
+const boxesMeet = (a: Box, b: Box) => a[0] <= b[2] && b[0] <= a[2] && a[1] <= b[3] && b[1] <= a[3];
+/** Any shared point between two rings' edges: a crossing, a touch or a shared stretch. */
+const ringsMeet = (a: Position[], b: Position[]) => lineIntersect(lineString(a), lineString(b)).features.length > 0;
+const inside = (p: Position, ring: Position[]) => booleanPointInPolygon(p, turfPolygon([ring]));
+
+/**
+ * Every ring valid (isValidRing), every hole strictly inside the outline and apart from the
+ * other holes, and some ground left over. Checked ring against ring with Turf's sweep-line
+ * intersection, so the cost grows with pairs of rings, not pairs of points.
+ */
+export function polygonProblem(geometry: Polygon): PolygonProblem | null {
+  const rings = geometry.coordinates;
+  const bad = rings.findIndex((ring) => !isValidRing(ring));
+  if (bad >= 0) return { ring: bad, message: "The outline must be closed and must not cross itself" };
+  const [outer, ...holes] = rings;
+  const outerBox = boxOf(outer);
+  const boxes = holes.map(boxOf);
+  for (const [i, hole] of holes.entries()) {
+    // With no shared point, a hole is wholly inside or wholly outside, so one corner tells.
+    const within = boxesMeet(boxes[i], outerBox) && !ringsMeet(outer, hole) && inside(hole[0], outer);
+    if (!within) return { ring: i + 1, message: HOLE_OUTSIDE };
+  }
+  for (let i = 0; i < holes.length; i++) {
+    for (let j = i + 1; j < holes.length; j++) {
+      if (!boxesMeet(boxes[i], boxes[j])) continue;
+      if (ringsMeet(holes[i], holes[j]) || inside(holes[i][0], holes[j]) || inside(holes[j][0], holes[i])) {
+        return { ring: j + 1, message: HOLES_OVERLAP };
+      }
+    }
+  }
+  if (!(polygonArea(geometry) > 0)) return { ring: null, message: "The outline must enclose some ground" };
+  return null;
 }

@@ -2,7 +2,7 @@
 // field it is about, so the handler can put a message beside each field.
 import type { Polygon } from "geojson";
 import { z } from "zod";
-import { isValidRing, polygonArea } from "@/lib/calc/area";
+import { polygonArea, polygonProblem } from "@/lib/calc/area";
 import { CARDBOARD_OVERLAP_CM, LAYER_DEPTH_CM, MOISTURE_PCT } from "@/lib/calc/facts";
 import { isCalendarDate } from "@/lib/calc/timeline";
 
@@ -13,6 +13,8 @@ const MAX_SIDE_M = 1_000;
 /** Outline detail we accept per ring; a hand-drawn bed needs a few dozen points at most. */
 const MAX_RING_POSITIONS = 1_000;
 const MAX_RINGS = 20;
+/** All rings together; bounds the ring-against-ring checks on a public route. */
+const MAX_POLYGON_POSITIONS = 2_000;
 
 const side = (label: string) =>
   z
@@ -49,13 +51,14 @@ export const bedSchema = z
       return;
     }
     if (bed.polygon) {
-      const bad = bed.polygon.coordinates.findIndex((ring) => !isValidRing(ring));
-      if (bad >= 0) {
-        ctx.addIssue({
-          code: "custom",
-          path: ["polygon", "coordinates", bad],
-          message: "The outline must be closed and must not cross itself",
-        });
+      const positions = bed.polygon.coordinates.reduce((n, ring) => n + ring.length, 0);
+      if (positions > MAX_POLYGON_POSITIONS) {
+        ctx.addIssue({ code: "custom", path: ["polygon", "coordinates"], message: `An outline and its holes can have at most ${MAX_POLYGON_POSITIONS.toLocaleString("en-US")} positions in all` });
+        return;
+      }
+      const problem = polygonProblem(bed.polygon);
+      if (problem) {
+        ctx.addIssue({ code: "custom", path: problem.ring === null ? ["polygon"] : ["polygon", "coordinates", problem.ring], message: problem.message });
       } else if (polygonArea(bed.polygon) > MAX_BED_AREA_M2) {
         ctx.addIssue({ code: "custom", path: ["polygon"], message: `A bed can be at most ${MAX_BED_AREA_M2.toLocaleString("en-US")} m²` });
       }

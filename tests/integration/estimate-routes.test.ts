@@ -49,7 +49,32 @@ describe("POST /api/estimate", () => {
     expect(res.json.area_m2).toBeLessThan(101);
   });
 
+  // Squares drawn in metres near the demo town, for outlines with holes.
+  const sq = (x: number, y: number, side: number) => {
+    const lat = 52.2;
+    const dLat = 1 / 111_195;
+    const dLng = 1 / (111_195 * Math.cos((lat * Math.PI) / 180));
+    const at = (mx: number, my: number) => [0.85 + mx * dLng, lat + my * dLat];
+    return [at(x, y), at(x + side, y), at(x + side, y + side), at(x, y + side), at(x, y)];
+  };
+  const outline = (...rings: number[][][]) => ({ bed: { polygon: { type: "Polygon", coordinates: rings } } });
+
+  it("takes an outline with a hole inside it and subtracts the hole", async () => {
+    const res = await post(estimateRoute.POST, outline(sq(0, 0, 10), sq(3, 3, 4)));
+    expect(res.status).toBe(200);
+    // 10 m × 10 m less a 4 m × 4 m hole = 84 m² (plane geometry; Turf's sphere agrees within 0.5 %).
+    expect(res.json.area_m2).toBeGreaterThan(84 * 0.995);
+    expect(res.json.area_m2).toBeLessThan(84 * 1.005);
+  });
+
   const BAD: [string, unknown, string][] = [
+    ["a hole outside the outline", outline(sq(0, 0, 10), sq(20, 0, 5)), "bed.polygon"],
+    ["a hole bigger than the outline", outline(sq(0, 0, 10), sq(-5, -5, 20)), "bed.polygon"],
+    ["a hole as big as the outline", outline(sq(0, 0, 10), sq(0, 0, 10)), "bed.polygon"],
+    ["a hole crossing the outline", outline(sq(0, 0, 10), sq(8, 2, 4)), "bed.polygon"],
+    ["a hole touching the outline", outline(sq(0, 0, 10), sq(0, 3, 4)), "bed.polygon"],
+    ["holes overlapping each other", outline(sq(0, 0, 10), sq(2, 2, 4), sq(4, 4, 4)), "bed.polygon"],
+    ["a hole inside another hole", outline(sq(0, 0, 10), sq(2, 2, 6), sq(3, 3, 2)), "bed.polygon"],
     ["negative length", { bed: { length_m: -3, width_m: 1 } }, "bed.length_m"],
     ["zero width", { bed: { length_m: 3, width_m: 0 } }, "bed.width_m"],
     ["a bed over 10,000 m²", { bed: { length_m: 200, width_m: 60 } }, "bed"],

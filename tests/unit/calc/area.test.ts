@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { Geodesic } from "geographiclib-geodesic";
 import type { Polygon, Position } from "geojson";
-import { isValidRing, polygonArea, polygonCentroid, rectangleArea } from "@/lib/calc/area";
+import { isValidRing, polygonArea, polygonCentroid, polygonProblem, rectangleArea } from "@/lib/calc/area";
 
 /** Independent reference: GeographicLib's ellipsoidal (WGS84) polygon area, Karney's algorithm. */
 function geodesicArea(ring: Position[]): number {
@@ -79,5 +79,36 @@ describe("isValidRing", () => {
     ["all points on one line", [[0, 0], [0.001, 0], [0.002, 0], [0, 0]]],
   ])("rejects %s", (_name, ring) => {
     expect(isValidRing(ring)).toBe(false);
+  });
+});
+
+describe("polygonProblem", () => {
+  // Squares in degrees; plane reasoning is enough to say which rings meet.
+  const sq = (x: number, y: number, s: number): Position[] => [[x, y], [x + s, y], [x + s, y + s], [x, y + s], [x, y]];
+  const outer = sq(0, 50, 0.001);
+
+  it("accepts an outline alone and one with holes apart inside it", () => {
+    expect(polygonProblem(poly(outer))).toBeNull();
+    expect(polygonProblem(poly(outer, sq(0.0001, 50.0001, 0.0002), sq(0.0005, 50.0005, 0.0002)))).toBeNull();
+  });
+
+  it.each<[string, Position[][], number | null]>([
+    ["a ring that crosses itself", [[[0, 50], [0.001, 50.001], [0.001, 50], [0, 50.001], [0, 50]]], 0],
+    ["a hole outside", [outer, sq(0.002, 50, 0.0005)], 1],
+    ["a hole around the outline", [outer, sq(-0.0005, 49.9995, 0.002)], 1],
+    ["a hole equal to the outline", [outer, outer], 1],
+    ["a hole across the edge", [outer, sq(0.0008, 50.0002, 0.0004)], 1],
+    ["a hole touching the edge at a corner", [outer, [[0.001, 50.0005], [0.0008, 50.0006], [0.0008, 50.0004], [0.001, 50.0005]]], 1],
+    ["two holes overlapping", [outer, sq(0.0001, 50.0001, 0.0004), sq(0.0003, 50.0003, 0.0004)], 2],
+    ["a hole inside a hole", [outer, sq(0.0001, 50.0001, 0.0006), sq(0.0002, 50.0002, 0.0002)], 2],
+  ])("finds %s (ring %s)", (_name, rings, ring) => {
+    expect(polygonProblem(poly(...rings))?.ring).toBe(ring);
+  });
+
+  it("never passes a polygon whose area is not positive", () => {
+    for (const rings of [[outer, outer], [outer, sq(-0.0005, 49.9995, 0.002)]]) {
+      expect(polygonArea(poly(...rings))).toBeLessThanOrEqual(0);
+      expect(polygonProblem(poly(...rings))).not.toBeNull();
+    }
   });
 });

@@ -48,6 +48,18 @@ describe("estimateSchema", () => {
     expect(paths(estimateSchema.safeParse(input))).toContain(path);
   });
 
+  it("caps the positions of an outline and its holes together at 2,000", () => {
+    // Three rings of 700 positions each: every ring is under the 1,000 per ring, the sum is not.
+    const circle = (r: number) => {
+      const pts = Array.from({ length: 699 }, (_, i) => [0.001 + r * Math.cos((2 * Math.PI * i) / 699), 50 + r * Math.sin((2 * Math.PI * i) / 699)]);
+      return [...pts, pts[0]];
+    };
+    const polygon = { type: "Polygon", coordinates: [circle(0.0003), circle(0.0001), circle(0.00003)] };
+    expect(paths(estimateSchema.safeParse({ bed: { polygon } }))).toContain("bed.polygon.coordinates");
+    polygon.coordinates.pop();
+    expect(estimateSchema.safeParse({ bed: { polygon } }).success).toBe(true);
+  });
+
   it("gives every issue a message", () => {
     const r = estimateSchema.safeParse({ bed: { length_m: -1 }, latitude: 100, layers: { leaves: { depth_cm: 0 } } });
     expect(r.success).toBe(false);
