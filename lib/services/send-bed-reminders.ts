@@ -2,7 +2,8 @@ import { bedsForReminders, type BedRow } from "@/db/beds";
 import { enqueueEmail } from "@/db/outbox";
 import { db } from "@/db/index";
 import { appUrl } from "@/lib/app-url";
-import { bedEstimate, toBedView } from "./bed-view";
+import type { TimelineEvent } from "@/lib/calc/timeline";
+import { bedEstimate, toBedView, type BedView } from "./bed-view";
 import { bedReminderEmail } from "@/lib/mail/templates/bed-reminder";
 
 /**
@@ -21,8 +22,18 @@ export async function sendBedReminders(clock: () => Date = () => new Date()): Pr
   const earliest = new Date(now.getTime() - REMINDER_GRACE_DAYS * dayMs).toISOString().slice(0, 10);
   let queued = 0;
   for (const row of await bedsForReminders()) {
-    const bed = toBedView(row as unknown as BedRow);
-    for (const step of bedEstimate(bed, now).timeline) {
+    let bed: BedView;
+    let timeline: TimelineEvent[];
+    try {
+      bed = toBedView(row as unknown as BedRow);
+      timeline = bedEstimate(bed, now).timeline;
+    } catch (err) {
+      // One bed that cannot be estimated (a row saved before a check existed, say) must not
+      // hold up everyone else's reminders; it is logged to be looked at and skipped.
+      console.error(`[bed-reminders] skipped bed ${row.id}:`, err instanceof Error ? err.message : err);
+      continue;
+    }
+    for (const step of timeline) {
       if (step.date > today || step.date < earliest) continue;
       const mail = bedReminderEmail({ name: row.display_name, bedName: bed.name, title: step.title, detail: step.detail, date: step.date, url: `${appUrl()}/beds/${bed.id}` });
       await enqueueEmail({ to: row.email, ...mail, template: "bed_reminder", dedupe_key: `bed-reminder:${bed.id}:${step.key}:${step.date}` }, db());

@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
 import { createUser } from "../factories";
@@ -7,6 +7,7 @@ import * as bed from "@/app/api/beds/[id]/route";
 import * as calendar from "@/app/api/beds/[id]/calendar.ics/route";
 import { sendBedReminders } from "@/lib/services/send-bed-reminders";
 import { updateUser } from "@/db/users";
+import { insertBed } from "@/db/beds";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 let ada: string;
@@ -20,6 +21,14 @@ beforeAll(async () => {
   supplierOnly = (await createUser({ roles: ["supplier"] })).id;
 });
 afterAll(() => ctx.close());
+
+/** A square `side` m across, its south-west corner `at` m east and north of a point in Fernhollow. */
+const square = (at: number, side: number) => {
+  const dLat = 1 / 111_195;
+  const dLng = 1 / (111_195 * Math.cos((52.2 * Math.PI) / 180));
+  const p = (x: number, y: number) => [0.85 + x * dLng, 52.2 + y * dLat];
+  return [p(at, at), p(at + side, at), p(at + side, at + side), p(at, at + side), p(at, at)];
+};
 
 const good = { name: "Front strip", bed: { length_m: 3, width_m: 1.2 }, start_date: "2027-03-01", location: { lat: 52.2, lng: 0.85 } };
 
@@ -71,6 +80,8 @@ describe("beds: save, list, read, change, delete", () => {
     });
   }
   const BAD: [string, unknown, string][] = [
+    ["a hole outside the outline", { ...good, bed: { polygon: { type: "Polygon", coordinates: [square(0, 10), square(20, 5)] } } }, "bed.polygon"],
+    ["a hole bigger than the outline", { ...good, bed: { polygon: { type: "Polygon", coordinates: [square(0, 10), square(-5, 20)] } } }, "bed.polygon"],
     ["no name", { ...good, name: "" }, "name"],
     ["a bed too big", { ...good, bed: { length_m: 500, width_m: 500 } }, "bed"],
     ["a bad date", { ...good, start_date: "01/03/2027" }, "start_date"],
@@ -116,5 +127,38 @@ describe("timeline reminders", () => {
     await updateUser(bo, { reminders_opt_out: true });
     await sendBedReminders(() => new Date("2027-09-01T08:00:00Z"));
     expect(await outbox()).toHaveLength(3);
+  });
+});
+
+describe("timeline reminders with a bed that cannot be estimated", () => {
+  it("logs and skips that bed, and still mails the owner's other beds", async () => {
+    const cy = await createUser({ roles: ["gardener"] });
+    // A row saved before outlines were checked for holes: the hole is bigger than the
+    // outline, so its area is negative and no estimate can be made for it.
+    const broken = {
+      name: "Broken outline",
+      shape: JSON.stringify({ polygon: { type: "Polygon", coordinates: [square(0, 10), square(-5, 20)] } }),
+      area_m2: -300,
+      lat: 52.2,
+      lng: 0.85,
+      recipe: "{}",
+      start_date: "2027-03-01",
+    };
+    await insertBed(cy.id, broken);
+    const res = await call(beds.POST as never, await request("/api/beds", { body: { ...good, name: "Sound bed", start_date: "2027-03-01" }, as: cy.id }));
+    expect(res.status).toBe(201);
+    await insertBed(cy.id, { ...broken, name: "Broken too" });
+
+    const logged: unknown[][] = [];
+    const spy = vi.spyOn(console, "error").mockImplementation((...args: unknown[]) => void logged.push(args));
+    try {
+      await sendBedReminders(() => new Date("2027-03-01T08:00:00Z"));
+    } finally {
+      spy.mockRestore();
+    }
+    const mails = await ctx.db("email_outbox").where({ template: "bed_reminder", to_address: cy.email }).select("subject");
+    expect(mails.map((m) => m.subject)).toEqual(["Sound bed: Build day"]);
+    expect(logged).toHaveLength(2);
+    expect(String(logged[0][0])).toContain("bed-reminders");
   });
 });
