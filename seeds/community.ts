@@ -1,6 +1,6 @@
 import type { Knex } from "knex";
 import { BAG_M3 } from "../lib/calc/facts";
-import { approximatePoint } from "../lib/geo/approximate";
+import { approximatePoint, placeOwner } from "../lib/geo/approximate";
 import { zonedToUtc } from "../lib/time/zoned";
 import { seedId } from "./ids";
 import { TOWN } from "./town";
@@ -66,7 +66,7 @@ export async function seedCommunity(trx: Knex.Transaction | Knex): Promise<void>
   const org = seedId("org:council");
   for (const d of DAYS) {
     const id = seedId(d.key);
-    const approx = approximatePoint(id, DEPOT.lat, DEPOT.lng);
+    const approx = approximatePoint({ owner: placeOwner({ organisation_id: org }), lat: DEPOT.lat, lng: DEPOT.lng });
     await trx("giveaway_days")
       .insert({
         id,

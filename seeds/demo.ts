@@ -1,7 +1,7 @@
 import type { Knex } from "knex";
 import bcrypt from "bcryptjs";
 import { MATERIALS } from "../lib/calc/facts";
-import { approximatePoint } from "../lib/geo/approximate";
+import { approximatePoint, placeOwner } from "../lib/geo/approximate";
 import { demoListings } from "./listings";
 import { DEMO_PASSWORD, ORGANISATIONS, PEOPLE, TOWN } from "./town";
 import { seedId } from "./ids";
@@ -78,7 +78,7 @@ export async function seed(knex: Knex): Promise<Record<string, number>> {
 
     for (const l of demoListings()) {
       const id = seedId(l.key);
-      const approx = approximatePoint(id, l.lat, l.lng);
+      const approx = approximatePoint({ owner: placeOwner({ organisation_id: l.org ? seedId(`org:${l.org}`) : null, owner_id: seedId(`user:${l.owner}`) }), lat: l.lat, lng: l.lng });
       await trx("listings")
         .insert({
           id,

@@ -1,16 +1,64 @@
 import { createHmac } from "node:crypto";
 import { destination, point } from "@turf/turf";
 
-// The public point of a listing: the exact point moved a fixed, secret-keyed distance and
-// bearing. Stable per listing, so repeating a query cannot average the offset away, and
-// unpredictable without the key, so it cannot be subtracted back out.
+// The public point of a pickup place: the exact point moved a fixed, secret-keyed distance and
+// bearing. The offset is keyed by the place — who lists there and which ~100 m cell it is in —
+// not by the listing: a shop that lists boxes every week from one address would otherwise
+// scatter a fresh point around its door each week, and their average would close in on it.
+// With one offset per place, every listing there shows the same point (or, for pins dropped a
+// few metres apart, points the same few metres apart), so averaging them gains nothing.
+// The owner is part of the key so that learning one place's exact address (a confirmed
+// reservation shows it) says nothing about anybody else's offset in the same cell.
 export const APPROX_MIN_M = 250;
 export const APPROX_MAX_M = 450;
 
-const KEY = process.env.LOCATION_SECRET ?? "duffbank-local-location-key";
+/** Cell size in degrees (about 110 m north–south, 70 m east–west in Fernhollow): pins dropped by hand for one address land in the same cell. */
+const CELL_DEG = 0.001;
 
-export function approximatePoint(listingId: string, lat: number, lng: number): { lat: number; lng: number } {
-  const digest = createHmac("sha256", KEY).update(listingId).digest();
+export const DEMO_LOCATION_SECRET = "duffbank-local-location-key";
+
+let warned = false;
+
+/**
+ * The key of the offsets. An empty LOCATION_SECRET (as .env.example ships it) counts as unset.
+ * Without one, a real deployment — production on PostgreSQL (`DATABASE_URL`), outside the demo
+ * and the end-to-end run (`DUFFBANK_DEMO`) — refuses to place points, since anyone can compute
+ * the demo key's offsets and subtract them; any other production start (`npm start` of the
+ * demo on SQLite) says so loudly and goes on.
+ */
+export function locationKey(env: NodeJS.ProcessEnv = process.env): string {
+  const set = env.LOCATION_SECRET?.trim();
+  if (set) return set;
+  if (env.NODE_ENV === "production" && !env.DUFFBANK_DEMO) {
+    const message =
+      "LOCATION_SECRET is not set, so public points use the demo key and anyone can work out exact pickup addresses. Set LOCATION_SECRET to a long random string (openssl rand -base64 32).";
+    if (env.DATABASE_URL) throw new Error(`[location] ${message}`);
+    if (!warned) {
+      warned = true;
+      console.error(`[location] ${"!".repeat(20)}\n[location] ${message}\n[location] ${"!".repeat(20)}`);
+    }
+  }
+  return DEMO_LOCATION_SECRET;
+}
+
+/** Whose place it is: an organisation's listings and days share one key, anyone else's are their own. */
+export function placeOwner(row: { organisation_id?: string | null; owner_id?: string | null }): string {
+  if (row.organisation_id) return `org:${row.organisation_id}`;
+  if (row.owner_id) return `user:${row.owner_id}`;
+  throw new Error("A place needs an owner or an organisation.");
+}
+
+export interface Place {
+  /** From `placeOwner`. */
+  owner: string;
+  lat: number;
+  lng: number;
+}
+
+export function approximatePoint(place: Place): { lat: number; lng: number } {
+  const { owner, lat, lng } = place;
+  const cell = `${Math.floor(lat / CELL_DEG)}:${Math.floor(lng / CELL_DEG)}`;
+  const digest = createHmac("sha256", locationKey()).update(`${owner}|${cell}`).digest();
   const u1 = digest.readUInt32BE(0) / 0xffffffff;
   const u2 = digest.readUInt32BE(4) / 0xffffffff;
   const distanceM = APPROX_MIN_M + (APPROX_MAX_M - APPROX_MIN_M) * u1;

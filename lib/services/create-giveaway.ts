@@ -4,7 +4,7 @@ import { writeTransaction } from "@/db/write-transaction";
 import { insertDay, insertSlots, slotsOf, findDay } from "@/db/giveaways";
 import { recordAudit } from "@/db/audit";
 import { ApiError } from "@/lib/api/errors";
-import { approximatePoint } from "@/lib/geo/approximate";
+import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { addDays, localDate, zonedToUtc } from "@/lib/time/zoned";
 import type { CreateGiveawayInput, SlotInput } from "@/lib/validation/giveaways";
 import { staffDayView } from "./giveaway-view";
@@ -31,7 +31,7 @@ export async function createGiveaway(ctx: CouncilContext, input: CreateGiveawayI
     throw new ApiError("invalid_input", "Booking must close after it opens.", { booking_closes_at: "Booking must close after it opens; choose a later closing time." });
   }
   const id = newId();
-  const approx = approximatePoint(id, input.location.lat, input.location.lng);
+  const approx = approximatePoint({ owner: placeOwner({ organisation_id: ctx.organisationId }), lat: input.location.lat, lng: input.location.lng });
   return writeTransaction(db(), async (trx) => {
     await insertDay(
       {

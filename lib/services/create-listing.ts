@@ -6,7 +6,7 @@ import { replaceWindows } from "@/db/pickup-windows";
 import { recordAudit } from "@/db/audit";
 import { ApiError } from "@/lib/api/errors";
 import type { SessionUser } from "@/lib/auth/current-user";
-import { approximatePoint } from "@/lib/geo/approximate";
+import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { checkUploadedPhotos } from "@/lib/media/verify-upload";
 import { COUNTED_UNITS, defaultUnitSize, type CreateListingInput } from "@/lib/validation/listings";
 import { listingDates } from "@/lib/listings/dates";
@@ -21,7 +21,7 @@ export async function createListing(user: SessionUser, input: CreateListingInput
   checkUploadedPhotos(user.id, input.photos);
 
   const id = newId();
-  const approx = approximatePoint(id, input.location.lat, input.location.lng);
+  const approx = approximatePoint({ owner: placeOwner({ organisation_id: user.organisation?.id, owner_id: user.id }), ...input.location });
   const counted = COUNTED_UNITS.includes(input.unit);
   await db().transaction(async (trx) => {
     await insertListing(

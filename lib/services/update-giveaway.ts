@@ -5,7 +5,7 @@ import { findOrgDay, shiftSlots, slotsOf, updateOrgDay } from "@/db/giveaways";
 import { recordAudit } from "@/db/audit";
 import type { GiveawayDayRow } from "@/db/types";
 import { ApiError, notFound } from "@/lib/api/errors";
-import { approximatePoint } from "@/lib/geo/approximate";
+import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { wallTime, zonedToUtc } from "@/lib/time/zoned";
 import type { UpdateGiveawayInput } from "@/lib/validation/giveaways";
 import { staffDayView } from "./giveaway-view";
@@ -46,7 +46,7 @@ export async function updateGiveaway(ctx: CouncilContext, dayId: string, input: 
     if (input.deposit_cents !== undefined) patch.deposit_cents = input.deposit_cents;
     if (input.address !== undefined) patch.address = input.address;
     if (input.location) {
-      const approx = approximatePoint(dayId, input.location.lat, input.location.lng);
+      const approx = approximatePoint({ owner: placeOwner(before), lat: input.location.lat, lng: input.location.lng });
       Object.assign(patch, { lat: input.location.lat, lng: input.location.lng, approx_lat: approx.lat, approx_lng: approx.lng });
     }
     const date = input.date ?? before.date;

@@ -5,7 +5,7 @@ import { findManagedListing, setQuantityTotal, updateManagedListing, type Listin
 import { replaceWindows } from "@/db/pickup-windows";
 import { recordAudit } from "@/db/audit";
 import { ApiError, fromZod, notFound } from "@/lib/api/errors";
-import { approximatePoint } from "@/lib/geo/approximate";
+import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { listingDates } from "@/lib/listings/dates";
 import { checkListingRules, COUNTED_UNITS, type LISTING_CURRENCIES, defaultUnitSize, listingFieldsSchema, type UpdateListingInput } from "@/lib/validation/listings";
 
@@ -63,7 +63,7 @@ export async function updateListing(userId: string, id: string, patch: UpdateLis
     if (patch.max_per_reservation !== undefined) changes.max_per_reservation = l.max_per_reservation ?? null;
     if (patch.auto_accept !== undefined) changes.auto_accept = l.auto_accept;
     if (patch.location !== undefined) {
-      const approx = approximatePoint(row.id, l.location.lat, l.location.lng);
+      const approx = approximatePoint({ owner: placeOwner(row), lat: l.location.lat, lng: l.location.lng });
       Object.assign(changes, { lat: l.location.lat, lng: l.location.lng, approx_lat: approx.lat, approx_lng: approx.lng });
     }
     if (patch.address !== undefined) changes.address = l.address;

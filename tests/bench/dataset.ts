@@ -5,7 +5,7 @@ import fs from "node:fs";
 import knex, { type Knex } from "knex";
 import { configFor } from "@/knexfile";
 import { BAG_M3, BALE_M3, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
-import { approximatePoint } from "@/lib/geo/approximate";
+import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { prng } from "@/seeds/ids";
 
 export const CENTRE = { lat: 52.205, lng: 0.847 };
@@ -82,10 +82,11 @@ export async function buildDataset(file: string, size: number): Promise<Knex> {
     const kind = weighted(r, kinds);
     const m = kind.make(r);
     const id = `bench-${size}-${i}`;
-    const approx = approximatePoint(id, p.lat, p.lng);
     const held = r() < 0.1 ? m.qty : r() < 0.2 ? Math.floor(m.qty / 2) : 0;
+    const owner = pick(r, owners);
+    const approx = approximatePoint({ owner: placeOwner({ owner_id: owner }), lat: p.lat, lng: p.lng });
     rows.push({
-      id, owner_id: pick(r, owners), material_code: kind.material, title: `${MATERIALS[kind.material].name} ${i}`, description: "", status: weighted(r, STATUSES),
+      id, owner_id: owner, material_code: kind.material, title: `${MATERIALS[kind.material].name} ${i}`, description: "", status: weighted(r, STATUSES),
       unit: m.unit, unit_size: m.unit_size, unit_mass_kg: m.unit_mass_kg, quantity_total: m.qty, quantity_held: held, quantity_collected: 0,
       price_cents: m.price, currency: "eur", deposit_cents: 0, max_per_reservation: m.max, auto_accept: r() < 0.5,
       lat: p.lat, lng: p.lng, address: `${i} Bench Lane`, approx_lat: approx.lat, approx_lng: approx.lng,
