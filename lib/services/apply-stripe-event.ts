@@ -12,6 +12,8 @@ import { gardenerStepDone } from "./reservation-steps";
 // in the same transaction as its effects, so a duplicate finds the id and changes nothing,
 // and a failure rolls both back for Stripe's retry. A payment's status only moves forward
 // (by RANK), so events arriving out of order end in the same state as in order.
+// When a webhook was lost, lib/payments/reconcile.ts (syncPayment) feeds Stripe's record
+// through here as the events it implies, so both paths share every rule.
 
 const RANK: Record<string, number> = { creating: 0, open: 0, expired: 1, authorised: 2, paid: 3, released: 4, captured: 4, refunded: 5 };
 
@@ -58,6 +60,12 @@ async function applyRefundEvent(trx: Knex.Transaction, obj: Record<string, any>,
   await updatePayment(row.id, { provider_ref: obj.id, status: status === "succeeded" || status === "failed" ? status : row.status, updated_at: now }, trx);
 }
 
+class DuplicateEvent extends Error {
+  constructor() {
+    super("this event was applied before");
+  }
+}
+
 export async function applyStripeEvent(event: Stripe.Event, deps: { db?: Knex; clock?: () => Date } = {}): Promise<"applied" | "duplicate"> {
   const q = deps.db ?? db();
   const now = (deps.clock ?? (() => new Date()))();
@@ -65,8 +73,15 @@ export async function applyStripeEvent(event: Stripe.Event, deps: { db?: Knex; c
   let owed: string[] = [];
   try {
     owed = await writeTransaction(q, async (trx) => {
-      // First statement: the write that makes a second delivery of this event a no-op.
-      await trx("webhook_events").insert({ id: event.id, provider: "stripe", type: event.type, created_at: new Date(event.created * 1000).toISOString(), processed_at: at });
+      // First statement: the write that makes a second delivery of this event a no-op. Only
+      // a conflict on this insert means "seen before"; any other failure below rolls back
+      // and reaches Stripe as a 500, so the event is delivered again rather than dropped.
+      try {
+        await trx("webhook_events").insert({ id: event.id, provider: "stripe", type: event.type, created_at: new Date(event.created * 1000).toISOString(), processed_at: at });
+      } catch (err) {
+        if (isUniqueViolation(err)) throw new DuplicateEvent();
+        throw err;
+      }
       const obj = event.data.object as unknown as Record<string, any>;
       if (event.type.startsWith("refund.")) {
         await applyRefundEvent(trx, obj, at);
@@ -91,7 +106,7 @@ export async function applyStripeEvent(event: Stripe.Event, deps: { db?: Knex; c
       return reservationFollows(trx, row, target.status!, now);
     });
   } catch (err) {
-    if (isUniqueViolation(err)) return "duplicate";
+    if (err instanceof DuplicateEvent) return "duplicate";
     throw err;
   }
   await runPaymentActions(owed, deps.clock, q);
