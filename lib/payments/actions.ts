@@ -3,6 +3,7 @@ import Stripe from "stripe";
 import { db, nowIso, type Db } from "@/db/index";
 import { dueActions, findPayment, updatePayment } from "@/db/payments";
 import type { PaymentRow } from "@/db/types";
+import { syncPayment } from "./reconcile";
 import { stripe } from "./stripe";
 
 // The Stripe calls a reservation change leaves owing: close a checkout, release or capture
@@ -10,6 +11,8 @@ import { stripe } from "./stripe";
 // transaction; this runs it right after, and the worker retries whatever failed, so a
 // Stripe outage delays the money but never forgets it. Each call carries an idempotency
 // key, so running one twice (the request and the worker at once) changes nothing.
+// After each call the row is brought up to Stripe's record (syncPayment), through the
+// webhook's own code, so the outcome never rests on a webhook that might not arrive.
 
 const BASE_DELAY_MS = 15_000;
 const MAX_DELAY_MS = 60 * 60_000;
@@ -20,19 +23,21 @@ export function actionRetryDelayMs(attempts: number): number {
 
 type Outcome = Partial<PaymentRow>;
 
-async function perform(row: PaymentRow, q: Db): Promise<Outcome> {
+async function perform(row: PaymentRow, clock: () => Date, q: Db): Promise<Outcome> {
   const key = `${row.pending_action}:${row.id}`;
   switch (row.pending_action) {
     case "expire": {
       if (!row.provider_ref) return { status: "expired" };
       try {
         await stripe().checkout.sessions.expire(row.provider_ref, {}, { idempotencyKey: key });
-        return {};
       } catch (err) {
-        // Already complete (paid at the last moment: the webhook returns the money) or expired.
-        if (err instanceof Stripe.errors.StripeInvalidRequestError && err.code === "checkout_session_unexpected_state") return {};
-        throw err;
+        // Already complete or expired: Stripe's record (read next) says which.
+        if (!(err instanceof Stripe.errors.StripeInvalidRequestError && err.code === "checkout_session_unexpected_state")) throw err;
       }
+      // A checkout paid at the last moment: applying it to the ended reservation returns
+      // the money (a refund, or the hold released) and e-mails the gardener, webhook or not.
+      await syncPayment(row.id, clock, q);
+      return {};
     }
     case "release":
     case "capture": {
@@ -44,10 +49,12 @@ async function perform(row: PaymentRow, q: Db): Promise<Outcome> {
         } else {
           await stripe().paymentIntents.capture(intent, {}, { idempotencyKey: key });
         }
+        await syncPayment(row.id, clock, q);
         return { payment_intent_id: intent };
       } catch (err) {
         if (err instanceof Stripe.errors.StripeInvalidRequestError && err.code === "payment_intent_unexpected_state") {
           // Settled another way (a hold Stripe let lapse, or a second request): nothing left to do.
+          await syncPayment(row.id, clock, q);
           return { payment_intent_id: intent, last_error: err.message.slice(0, 500) };
         }
         throw err;
@@ -66,6 +73,7 @@ async function perform(row: PaymentRow, q: Db): Promise<Outcome> {
         },
         { idempotencyKey: row.idempotency_key },
       );
+      await syncPayment(parent!.id, clock, q);
       return { provider_ref: refund.id, status: refund.status === "succeeded" ? "succeeded" : "pending" };
     }
     default:
@@ -84,7 +92,7 @@ export async function runPaymentAction(id: string, clock: () => Date = () => new
   const row = await findPayment(id, q);
   if (!row?.pending_action) return true;
   try {
-    const outcome = await perform(row, q);
+    const outcome = await perform(row, clock, q);
     // Only clear the action this run performed: a newer one written meanwhile stays.
     await q("payments")
       .where({ id, pending_action: row.pending_action })

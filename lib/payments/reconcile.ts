@@ -1,12 +1,22 @@
 import "server-only";
+import type { Knex } from "knex";
 import type Stripe from "stripe";
-import { db, type Db } from "@/db/index";
+import { db, nowIso, type Db } from "@/db/index";
+import { findPayment } from "@/db/payments";
 import type { PaymentRow } from "@/db/types";
+import { applyStripeEvent } from "@/lib/services/apply-stripe-event";
 import { stripe } from "./stripe";
 
 // Compares every payments row with the Stripe object it names (the checkout session and
 // its payment intent, or the refund) and lists each disagreement. Rows still waiting on a
 // Stripe call are skipped: they are in flight, not wrong.
+//
+// It also repairs what a lost webhook left behind. If every delivery of an event failed
+// (the app was down longer than Stripe retries, or the endpoint was misconfigured), a row
+// would otherwise stay "open" while the gardener has paid. syncPayment asks Stripe what
+// happened and applies it as the events Stripe would have sent, through the webhook's own
+// applyStripeEvent: the same forward-only statuses, the same e-mails, and money that came
+// in after the hold ended goes straight back.
 
 export interface Mismatch {
   payment_id: string;
@@ -15,7 +25,23 @@ export interface Mismatch {
   stripe: unknown;
 }
 
-function expectedStatus(row: PaymentRow, session: Stripe.Checkout.Session, intent: Stripe.PaymentIntent | null, charge: Stripe.Charge | null): string {
+/** Stripe's current record of a checkout: the session, its payment intent and that intent's charge. */
+interface CheckoutRecord {
+  session: Stripe.Checkout.Session;
+  intent: Stripe.PaymentIntent | null;
+  charge: Stripe.Charge | null;
+}
+
+async function checkoutRecord(sessionId: string): Promise<CheckoutRecord> {
+  const session = await stripe().checkout.sessions.retrieve(sessionId, { expand: ["payment_intent"] });
+  const pi = session.payment_intent;
+  const intent = pi === null ? null : typeof pi === "string" ? await stripe().paymentIntents.retrieve(pi) : pi;
+  const chargeId = intent?.latest_charge;
+  const charge = typeof chargeId === "string" ? await stripe().charges.retrieve(chargeId) : ((chargeId as Stripe.Charge | null | undefined) ?? null);
+  return { session, intent, charge };
+}
+
+function expectedStatus(row: PaymentRow, { session, intent, charge }: CheckoutRecord): string {
   if (session.status === "open") return "open";
   if (session.status === "expired" || !intent) return "expired";
   if (intent.status === "requires_capture") return "authorised";
@@ -40,16 +66,95 @@ export async function reconcilePayments(q: Db = db()): Promise<Mismatch[]> {
       check(row, "status", row.status, refund.status);
       continue;
     }
-    const session = await stripe().checkout.sessions.retrieve(row.provider_ref!, { expand: ["payment_intent"] });
-    const intent = (session.payment_intent && typeof session.payment_intent === "object" ? session.payment_intent : null) as Stripe.PaymentIntent | null;
-    const chargeId = intent?.latest_charge;
-    const charge = typeof chargeId === "string" ? await stripe().charges.retrieve(chargeId) : null;
+    const record = await checkoutRecord(row.provider_ref!);
+    const { session, intent, charge } = record;
     check(row, "amount_cents", row.amount_cents, session.amount_total);
     check(row, "currency", row.currency, session.currency);
     check(row, "payment_intent_id", row.payment_intent_id, intent?.id ?? null);
-    check(row, "status", row.status, expectedStatus(row, session, intent, charge));
+    check(row, "status", row.status, expectedStatus(row, record));
     if (intent?.status === "succeeded") check(row, "captured_cents", row.captured_cents, intent.amount_received);
     if (row.kind === "payment" && charge?.captured) check(row, "refunded_cents", row.refunded_cents, charge.amount_refunded);
   }
   return out;
+}
+
+/**
+ * The events Stripe's record implies, in the order they happen. Each id names what it
+ * says (`recovered:<type>:<object>`), so recovering the same thing twice applies it once;
+ * the real event arriving later is a different id, but statuses only move forward.
+ */
+export function impliedEvents({ session, intent, charge }: CheckoutRecord, now: Date): Stripe.Event[] {
+  const out: [string, { id: string }, string?][] = [];
+  if (session.status === "complete") out.push(["checkout.session.completed", session]);
+  if (session.status === "expired") out.push(["checkout.session.expired", session]);
+  if (intent?.status === "requires_capture") out.push(["payment_intent.amount_capturable_updated", intent]);
+  if (intent?.status === "succeeded") out.push(["payment_intent.succeeded", intent]);
+  if (intent?.status === "canceled") out.push(["payment_intent.canceled", intent]);
+  if (charge?.captured && charge.amount_refunded > 0) out.push(["charge.refunded", charge, `:${charge.amount_refunded}`]);
+  return out.map(
+    ([type, object, suffix = ""]) =>
+      ({
+        id: `recovered:${type}:${object.id}${suffix}`,
+        object: "event",
+        api_version: null,
+        created: Math.floor(now.getTime() / 1000),
+        data: { object },
+        livemode: false,
+        pending_webhooks: 0,
+        request: { id: null, idempotency_key: null },
+        type,
+      }) as unknown as Stripe.Event,
+  );
+}
+
+/**
+ * Brings one checkout row (a payment or a deposit) up to what Stripe says happened to it.
+ * Returns the row's status afterwards. Throws when Stripe cannot be asked, so a caller
+ * that owes this (the expire action) is retried.
+ */
+export async function syncPayment(paymentId: string, clock: () => Date = () => new Date(), q: Knex = db()): Promise<string | null> {
+  const row = await findPayment(paymentId, q);
+  if (!row || row.kind === "refund" || !row.provider_ref) return row?.status ?? null;
+  const record = await checkoutRecord(row.provider_ref);
+  for (const event of impliedEvents(record, clock())) {
+    await applyStripeEvent(event, { db: q, clock });
+  }
+  return (await findPayment(paymentId, q))?.status ?? null;
+}
+
+// Stripe delivers within seconds when the endpoint answers; a checkout still "open" here
+// this long after it was made is worth asking about (common practice, no source).
+export const RECOVER_AFTER_MINUTES = 5;
+// How often one open checkout is asked about again while nothing has changed.
+export const RECHECK_MINUTES = 2;
+
+/**
+ * The worker's safety net for lost webhooks: asks Stripe about every checkout that is still
+ * open a few minutes after it was made, at most every RECHECK_MINUTES each, and applies
+ * what it finds. A payment whose webhook never came is found before its hold runs out.
+ */
+export async function recoverOpenPayments(clock: () => Date = () => new Date(), q: Knex = db(), limit = 20): Promise<{ checked: number; changed: number }> {
+  const now = clock();
+  const rows = await q<PaymentRow>("payments")
+    .select("id", "status")
+    .where({ status: "open" })
+    .whereIn("kind", ["payment", "deposit"])
+    .whereNotNull("provider_ref")
+    .whereNull("pending_action")
+    .andWhere("created_at", "<=", new Date(now.getTime() - RECOVER_AFTER_MINUTES * 60_000).toISOString())
+    .andWhere("updated_at", "<=", new Date(now.getTime() - RECHECK_MINUTES * 60_000).toISOString())
+    .orderBy("updated_at")
+    .limit(limit);
+  let changed = 0;
+  for (const row of rows) {
+    try {
+      const status = await syncPayment(row.id, clock, q);
+      if (status !== row.status) changed++;
+      // Still open: note the look, so the next one waits RECHECK_MINUTES.
+      else await q("payments").where({ id: row.id, status: "open" }).update({ updated_at: nowIso(clock) });
+    } catch (err) {
+      console.error(`[payments] could not ask Stripe about payment ${row.id}:`, (err as Error).message);
+    }
+  }
+  return { checked: rows.length, changed };
 }

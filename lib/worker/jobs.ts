@@ -1,5 +1,6 @@
 import { deliverOutbox } from "@/lib/mail/deliver-outbox";
 import { settlePayments } from "@/lib/payments/actions";
+import { recoverOpenPayments } from "@/lib/payments/reconcile";
 import { expireHolds, sendReservationReminders } from "@/lib/services/expire-holds";
 import { expireListings } from "@/lib/services/expire-listings";
 import { sendBedReminders } from "@/lib/services/send-bed-reminders";
@@ -20,5 +21,7 @@ export const jobs: Job[] = [
   { name: "bed-reminders", everyMs: 60_000, run: (clock) => sendBedReminders(clock) },
   { name: "expire-holds", everyMs: 15_000, run: (clock) => expireHolds(clock) },
   { name: "reservation-reminders", everyMs: 60_000, run: (clock) => sendReservationReminders(clock) },
-  { name: "settle-payments", everyMs: 5_000, run: (clock) => settlePayments(clock) },
+  // Owed Stripe calls, then the lost-webhook net: checkouts still open after a few minutes
+  // are checked against Stripe's record and brought up to it.
+  { name: "settle-payments", everyMs: 5_000, run: async (clock) => ({ ...(await settlePayments(clock)), ...(await recoverOpenPayments(clock)) }) },
 ];
