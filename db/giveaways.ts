@@ -114,11 +114,25 @@ export async function findSlot(id: string, dayId: string, q: Db = db()): Promise
 }
 
 /**
- * Takes one household's place in a slot if there is room: the condition is in the UPDATE,
- * so two bookings at once cannot both take the last place. Returns whether it did.
+ * Takes one household's place in a slot if there is room and the day is still taking bookings
+ * at `nowIso` (not cancelled, inside its booking window): the conditions are in the UPDATE, so
+ * two bookings at once cannot both take the last place, and a booking racing the day being
+ * called off cannot land on it. Returns whether it did.
  */
-export async function takeSlotPlace(slotId: string, dayId: string, q: Db = db()): Promise<boolean> {
-  const n = await q("giveaway_slots").where({ id: slotId, day_id: dayId }).andWhereRaw("booked < capacity").increment("booked", 1);
+export async function takeSlotPlace(slotId: string, dayId: string, nowIso: string, q: Db = db()): Promise<boolean> {
+  const n = await q("giveaway_slots")
+    .where({ id: slotId, day_id: dayId })
+    .andWhereRaw("booked < capacity")
+    .whereExists((sub) =>
+      sub
+        .select(q.raw("1"))
+        .from("giveaway_days")
+        .whereRaw("giveaway_days.id = giveaway_slots.day_id")
+        .andWhere("giveaway_days.status", "scheduled")
+        .andWhere("giveaway_days.booking_opens_at", "<=", nowIso)
+        .andWhere("giveaway_days.booking_closes_at", ">", nowIso),
+    )
+    .increment("booked", 1);
   return n === 1;
 }
 

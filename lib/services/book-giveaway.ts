@@ -37,10 +37,7 @@ export async function bookGiveaway(userId: string, dayId: string, input: BookInp
   // The write itself re-checks everything that a racing request could change.
   const day = await findDay(dayId);
   if (!day) throw notFound("That giveaway day");
-  const window = bookingWindowState(day, now);
-  if (window === "cancelled") throw new ApiError("invalid_state", "This giveaway day has been called off.");
-  if (window === "not_yet") throw new ApiError("invalid_state", `Booking opens ${readableDateTime(day.booking_opens_at, day.time_zone)}.`);
-  if (window === "closed") throw new ApiError("invalid_state", "Booking for this day has closed.");
+  assertOpen(day, now);
   const slot = await findSlot(input.slot_id, dayId);
   if (!slot) throw new ApiError("invalid_input", "Choose one of this day's time slots.", { slot_id: "That slot is not part of this day." });
   if (input.quantity > day.household_cap) {
@@ -53,7 +50,13 @@ export async function bookGiveaway(userId: string, dayId: string, input: BookInp
   const booking = await writeTransaction(db(), async (trx) => {
     // The conditional UPDATE is the transaction's first statement, so on SQLite it takes the
     // write lock before anything is read, and on PostgreSQL it locks the slot row.
-    if (!(await takeSlotPlace(slot.id, dayId, trx))) throw slotFull();
+    // It also re-checks the day: called off or closed since the read above means no booking.
+    if (!(await takeSlotPlace(slot.id, dayId, now.toISOString(), trx))) {
+      const current = await findDay(dayId, trx);
+      if (!current) throw notFound("That giveaway day");
+      assertOpen(current, now);
+      throw slotFull();
+    }
     if (await liveBookingFor(dayId, userId, trx)) throw householdLimit();
     let row: GiveawayBookingRow;
     try {
@@ -69,6 +72,14 @@ export async function bookGiveaway(userId: string, dayId: string, input: BookInp
     return row;
   });
   return booking;
+}
+
+/** Refuses a booking unless the day is taking them at `now`, saying why. */
+function assertOpen(day: GiveawayDayRow, now: Date) {
+  const window = bookingWindowState(day, now);
+  if (window === "cancelled") throw new ApiError("invalid_state", "This giveaway day has been called off.");
+  if (window === "not_yet") throw new ApiError("invalid_state", `Booking opens ${readableDateTime(day.booking_opens_at, day.time_zone)}.`);
+  if (window === "closed") throw new ApiError("invalid_state", "Booking for this day has closed.");
 }
 
 const slotFull = () => new ApiError("slot_full", "That slot is full. Choose another time.");
