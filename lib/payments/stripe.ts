@@ -4,24 +4,50 @@ import Stripe from "stripe";
 // The official Stripe SDK. With the local test key (the default) it talks to the
 // Stripe-compatible fake in lib/fakes/stripe; with a real test key and no STRIPE_API_HOST
 // it talks to Stripe itself. Only the endpoint differs, never the calls.
+//
+// The endpoint comes from the environment: STRIPE_API_HOST, STRIPE_API_PORT (else the
+// fake's STRIPE_FAKE_PORT) and STRIPE_API_PROTOCOL (http unless told otherwise, as the fake
+// and stripe-mock speak plain HTTP). Without a host override none of them applies.
 
 export const LOCAL_STRIPE_KEY = "sk_test_duffbank_local";
 export const LOCAL_WEBHOOK_SECRET = "whsec_duffbank_local";
+const LOCAL_HOST = "127.0.0.1";
+const LOCAL_PORT = 12111;
 
 const g = globalThis as unknown as { __duffbankStripe?: Stripe };
 
-export function stripeConfig(env: NodeJS.ProcessEnv = process.env): { key: string; host: string | null; port: number } {
+export interface StripeEndpoint {
+  key: string;
+  /** null: Stripe's own API (api.stripe.com over HTTPS), the SDK's default. */
+  host: string | null;
+  port: number | null;
+  protocol: "http" | "https" | null;
+}
+
+export function stripeConfig(env: NodeJS.ProcessEnv = process.env): StripeEndpoint {
   const key = env.STRIPE_SECRET_KEY || LOCAL_STRIPE_KEY;
-  const host = env.STRIPE_API_HOST || (key === LOCAL_STRIPE_KEY ? "127.0.0.1" : null);
-  return { key, host, port: Number(env.STRIPE_FAKE_PORT || 12111) };
+  const host = env.STRIPE_API_HOST || (key === LOCAL_STRIPE_KEY ? LOCAL_HOST : null);
+  if (!host) return { key, host: null, port: null, protocol: null };
+  const protocol = env.STRIPE_API_PROTOCOL || "http";
+  if (protocol !== "http" && protocol !== "https") throw new Error(`STRIPE_API_PROTOCOL must be http or https, not "${protocol}".`);
+  const portText = env.STRIPE_API_PORT || env.STRIPE_FAKE_PORT || (protocol === "https" ? "443" : String(LOCAL_PORT));
+  const port = Number(portText);
+  if (!Number.isInteger(port) || port < 1 || port > 65535) throw new Error(`STRIPE_API_PORT must be a port number, not "${portText}".`);
+  return { key, host, port, protocol };
+}
+
+/** The options the SDK is built with: the endpoint only when it is overridden. */
+export function stripeOptions(endpoint: StripeEndpoint): Stripe.StripeConfig {
+  // Two retries: the SDK resends with the same idempotency key, so a retry never doubles a charge.
+  const common = { maxNetworkRetries: 2, timeout: 15_000 };
+  if (!endpoint.host) return common;
+  return { ...common, host: endpoint.host, port: endpoint.port!, protocol: endpoint.protocol! };
 }
 
 export function stripe(): Stripe {
   if (!g.__duffbankStripe) {
-    const { key, host, port } = stripeConfig();
-    // Two retries: the SDK resends with the same idempotency key, so a retry never doubles a charge.
-    const common = { maxNetworkRetries: 2, timeout: 15_000 };
-    g.__duffbankStripe = host ? new Stripe(key, { ...common, host, port, protocol: "http" }) : new Stripe(key, common);
+    const endpoint = stripeConfig();
+    g.__duffbankStripe = new Stripe(endpoint.key, stripeOptions(endpoint));
   }
   return g.__duffbankStripe;
 }

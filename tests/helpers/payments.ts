@@ -36,7 +36,8 @@ export async function startPayments(): Promise<PaymentsHarness> {
   process.env.STRIPE_FAKE_PORT = String(fake.port);
   process.env.STRIPE_WEBHOOK_SECRET = TEST_WEBHOOK_SECRET;
   delete process.env.STRIPE_SECRET_KEY;
-  delete process.env.STRIPE_API_HOST;
+  // The fake's port only: a developer's own endpoint overrides must not leak into tests.
+  for (const k of ["STRIPE_API_HOST", "STRIPE_API_PORT", "STRIPE_API_PROTOCOL"]) delete process.env[k];
   resetStripe();
   return {
     fake,
