@@ -3,7 +3,7 @@ import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { z } from "zod";
 import Link from "next/link";
-import { bookingSchema } from "@/lib/validation/giveaways";
+import { bookingSchema, giveawayQuantityIssue } from "@/lib/validation/giveaways";
 import type { SlotView } from "@/lib/services/giveaway-view";
 import type { VisitorBooking } from "@/lib/services/giveaway-for-visitor";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
@@ -65,6 +65,11 @@ function BookForm(p: BookingPanelProps) {
   const unitWord = p.unit === "bags" ? "bags" : "m³";
   const onSubmit = form.handleSubmit(async (values) => {
     setError(null);
+    const wholeIssue = giveawayQuantityIssue(values.quantity, p.unit);
+    if (wholeIssue) {
+      form.setError("quantity", { message: wholeIssue });
+      return;
+    }
     if (values.quantity > p.householdCap) {
       form.setError("quantity", { message: `At most ${formatGiveawayQuantity(p.householdCap, p.unit)} a household.` });
       return;
@@ -102,7 +107,7 @@ function BookForm(p: BookingPanelProps) {
       <Field
         label={`How much (${unitWord})`}
         type="number"
-        step={p.unit === "bags" ? 1 : 0.1}
+        step={p.unit === "bags" ? 1 : 0.01}
         min={0}
         inputMode="decimal"
         hint={`Up to ${formatGiveawayQuantity(p.householdCap, p.unit)} a household.`}

@@ -13,6 +13,7 @@ import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { formatMoney } from "@/lib/payments/money";
 import { bookingParts, giveawayBookedEmail } from "@/lib/mail/templates/giveaway";
 import { readableDateTime } from "@/lib/time/zoned";
+import { giveawayQuantityIssue } from "@/lib/validation/giveaways";
 import { bookingWindowState, cancelDeadline } from "./giveaway-view";
 import { calendarToken } from "./giveaway-calendar";
 
@@ -40,6 +41,8 @@ export async function bookGiveaway(userId: string, dayId: string, input: BookInp
   assertOpen(day, now);
   const slot = await findSlot(input.slot_id, dayId);
   if (!slot) throw new ApiError("invalid_input", "Choose one of this day's time slots.", { slot_id: "That slot is not part of this day." });
+  const wholeIssue = giveawayQuantityIssue(input.quantity, day.unit);
+  if (wholeIssue) throw new ApiError("invalid_input", wholeIssue, { quantity: wholeIssue });
   if (input.quantity > day.household_cap) {
     const cap = formatGiveawayQuantity(day.household_cap, day.unit);
     throw new ApiError("invalid_input", `Each household may take at most ${cap}.`, { quantity: `At most ${cap} a household.` });

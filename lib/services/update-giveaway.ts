@@ -7,7 +7,7 @@ import type { GiveawayDayRow } from "@/db/types";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { wallTime, zonedToUtc } from "@/lib/time/zoned";
-import type { UpdateGiveawayInput } from "@/lib/validation/giveaways";
+import { giveawayQuantityIssue, type UpdateGiveawayInput } from "@/lib/validation/giveaways";
 import { staffDayView } from "./giveaway-view";
 import { assertNotPast } from "./create-giveaway";
 import type { CouncilContext } from "./council-access";
@@ -42,6 +42,8 @@ export async function updateGiveaway(ctx: CouncilContext, dayId: string, input: 
     const unit = input.unit ?? before.unit;
     if (input.unit !== undefined || input.bag_m3 !== undefined) patch.unit_size = unit === "bags" ? (input.bag_m3 ?? before.unit_size) : null;
     if (input.household_cap !== undefined) patch.household_cap = input.household_cap;
+    const capIssue = input.household_cap !== undefined || input.unit !== undefined ? giveawayQuantityIssue(input.household_cap ?? before.household_cap, unit) : null;
+    if (capIssue) throw new ApiError("invalid_input", capIssue, { household_cap: capIssue });
     if (input.cancel_cutoff_hours !== undefined) patch.cancel_cutoff_hours = input.cancel_cutoff_hours;
     if (input.deposit_cents !== undefined) patch.deposit_cents = input.deposit_cents;
     if (input.address !== undefined) patch.address = input.address;

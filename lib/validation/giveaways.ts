@@ -12,6 +12,13 @@ export type GiveawayUnit = (typeof GIVEAWAY_UNITS)[number];
 export const GIVEAWAY_MATERIAL_LABELS: Record<GiveawayMaterial, string> = { leaves: "Leaves", wood_chips: "Wood chips", compost: "Compost" };
 export const GIVEAWAY_UNIT_LABELS: Record<GiveawayUnit, string> = { bags: "bags", m3: "m³" };
 
+/** Bags come whole; m³ to the hundredth (a wheelbarrow is about 0.08 m³, so finer means nothing on the day). */
+export function giveawayQuantityIssue(quantity: number, unit: GiveawayUnit): string | null {
+  if (unit === "bags") return Number.isInteger(quantity) ? null : "Give a whole number of bags.";
+  return hundredths(quantity) ? null : "Give m³ to at most 2 decimal places, like 0.25.";
+}
+const hundredths = (x: number) => Math.abs(x * 100 - Math.round(x * 100)) < 1e-6;
+
 const time = z.string({ error: "Give a time like 09:30." }).regex(/^([01]\d|2[0-3]):[0-5]\d$/, "Give a time like 09:30.");
 const instant = z.iso.datetime({ offset: true, error: "Give a date and time (ISO 8601)." });
 
@@ -55,7 +62,10 @@ const DAY_DEFAULTS = {
   deposit_cents: dayFields.deposit_cents.default(0),
 };
 
-function windowInOrder(d: { booking_opens_at?: string; booking_closes_at?: string }, ctx: z.RefinementCtx) {
+function windowInOrder(d: { booking_opens_at?: string; booking_closes_at?: string; unit?: GiveawayUnit; household_cap?: number }, ctx: z.RefinementCtx) {
+  // A change that sends only one of the two is checked against the day in the service.
+  const capIssue = d.unit !== undefined && d.household_cap !== undefined ? giveawayQuantityIssue(d.household_cap, d.unit) : null;
+  if (capIssue) ctx.addIssue({ code: "custom", path: ["household_cap"], message: capIssue });
   if (d.booking_opens_at && d.booking_closes_at && Date.parse(d.booking_closes_at) <= Date.parse(d.booking_opens_at)) {
     ctx.addIssue({ code: "custom", path: ["booking_closes_at"], message: "Booking must close after it opens." });
   }
@@ -74,7 +84,11 @@ export const cancelGiveawaySchema = z.object({ reason: noteSchema(3, 500) });
 
 export const bookingSchema = z.object({
   slot_id: idSchema("a time slot"),
-  quantity: z.number({ error: "Say how much you will take." }).positive("Take more than nothing."),
+  // Whole bags or m³ to 2 places: the day's unit is checked in the service (and by the form).
+  quantity: z
+    .number({ error: "Say how much you will take." })
+    .positive("Take more than nothing.")
+    .refine(hundredths, "Give at most 2 decimal places."),
 });
 
 export const attendanceSchema = z.object({
