@@ -24,7 +24,7 @@ export interface StripeEndpoint {
   protocol: "http" | "https" | null;
 }
 
-export function stripeConfig(env: NodeJS.ProcessEnv = process.env): StripeEndpoint {
+export function stripeConfig(env: Record<string, string | undefined> = process.env): StripeEndpoint {
   const key = env.STRIPE_SECRET_KEY || LOCAL_STRIPE_KEY;
   const host = env.STRIPE_API_HOST || (key === LOCAL_STRIPE_KEY ? LOCAL_HOST : null);
   if (!host) return { key, host: null, port: null, protocol: null };

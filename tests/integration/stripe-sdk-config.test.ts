@@ -8,7 +8,7 @@ import { LOCAL_STRIPE_KEY, resetStripe, stripe, stripeConfig, stripeOptions } fr
 const REAL_LOOKING_KEY = "sk_test_51AbCdEfGhIjKlMnOp";
 
 describe("stripeConfig", () => {
-  const cases: [string, NodeJS.ProcessEnv, ReturnType<typeof stripeConfig>][] = [
+  const cases: [string, Record<string, string>, ReturnType<typeof stripeConfig>][] = [
     ["nothing set: the local fake on its default port", {}, { key: LOCAL_STRIPE_KEY, host: "127.0.0.1", port: 12111, protocol: "http" }],
     ["the fake moved", { STRIPE_FAKE_PORT: "23111" }, { key: LOCAL_STRIPE_KEY, host: "127.0.0.1", port: 23111, protocol: "http" }],
     ["STRIPE_API_PORT wins over STRIPE_FAKE_PORT", { STRIPE_API_PORT: "4010", STRIPE_FAKE_PORT: "23111" }, { key: LOCAL_STRIPE_KEY, host: "127.0.0.1", port: 4010, protocol: "http" }],
