@@ -121,7 +121,7 @@ export function DayForm({ mode, initial, dayId, locked = false }: DayFormProps) 
 
       <fieldset className="grid gap-4 rounded-lg bg-white p-4 ring-1 ring-humus-200 md:grid-cols-3">
         <legend className="px-1 font-semibold">Booking</legend>
-        <Field label="Booking closes" type="datetime-local" hint="Fernhollow time. Empty: 18:00 the evening before." {...register("closes_local")} error={errors.closes_local?.message} />
+        <Field label="Booking closes" type="datetime-local" hint="Fernhollow time. Empty: 18:00 the evening before, or when the last slot starts for a day that is sooner." {...register("closes_local")} error={errors.closes_local?.message} />
         <Field label="Cancel up to (hours before the slot)" inputMode="numeric" {...register("cancel_cutoff_hours")} error={errors.cancel_cutoff_hours?.message} />
         <Field
           label="No-show deposit (€)"

@@ -13,6 +13,20 @@ import type { CouncilContext } from "./council-access";
 /** Booking closes at this hour the evening before, unless the day says otherwise (common practice, no source). */
 export const DEFAULT_CLOSE_TIME = "18:00";
 
+/**
+ * When booking closes if the council does not say: 18:00 the evening before, or — for a day
+ * made after that (today, or tomorrow late in the evening) — when the last slot starts, so
+ * households can still book the slots to come. A day with no slots yet closes at its end.
+ * Never earlier than `opens`; a day whose slots have all started gets the time it would have
+ * had, and the caller refuses it.
+ */
+export function defaultBookingClose(date: string, tz: string, slots: SlotInput[], opens: string): string {
+  const eveningBefore = zonedToUtc(addDays(date, -1), DEFAULT_CLOSE_TIME, tz).toISOString();
+  if (Date.parse(eveningBefore) > Date.parse(opens)) return eveningBefore;
+  const starts = slotInstants(date, tz, slots).map((s) => s.starts_at);
+  return starts.length ? starts.reduce((a, b) => (b > a ? b : a)) : zonedToUtc(addDays(date, 1), "00:00", tz).toISOString();
+}
+
 /** Slot instants from the wall-clock times of the day's zone. */
 export function slotInstants(date: string, tz: string, slots: SlotInput[]) {
   return slots.map((s) => ({ starts_at: zonedToUtc(date, s.start, tz).toISOString(), ends_at: zonedToUtc(date, s.end, tz).toISOString(), capacity: s.capacity }));
@@ -26,8 +40,11 @@ export async function createGiveaway(ctx: CouncilContext, input: CreateGiveawayI
   const now = clock();
   assertNotPast(input.date, input.time_zone, now);
   const opens = input.booking_opens_at ?? now.toISOString();
-  const closes = input.booking_closes_at ?? zonedToUtc(addDays(input.date, -1), DEFAULT_CLOSE_TIME, input.time_zone).toISOString();
+  const closes = input.booking_closes_at ?? defaultBookingClose(input.date, input.time_zone, input.slots, opens);
   if (Date.parse(closes) <= Date.parse(opens)) {
+    if (!input.booking_closes_at) {
+      throw new ApiError("invalid_input", "Every slot of this day has already started.", { slots: "Add a slot that starts later today, or choose a later day." });
+    }
     throw new ApiError("invalid_input", "Booking must close after it opens.", { booking_closes_at: "Booking must close after it opens; choose a later closing time." });
   }
   const id = newId();
