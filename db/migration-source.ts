@@ -6,6 +6,7 @@ import * as listingUnitPrice from "../migrations/20261201_004_listing_unit_price
 import * as reservations from "../migrations/20261201_005_reservations";
 import * as community from "../migrations/20261201_006_community";
 import * as placeKeyedOffsets from "../migrations/20261202_008_place_keyed_offsets";
+import * as cultureOrders from "../migrations/20261203_009_culture_orders";
 
 // Migrations are listed here rather than found on disk so that the same list runs under
 // the CLI script, Vitest and the bundled Next.js server alike. Add new ones at the end.
@@ -17,6 +18,7 @@ const migrations: Record<string, Knex.Migration> = {
   "20261201_005_reservations": reservations,
   "20261201_006_community": community,
   "20261202_008_place_keyed_offsets": placeKeyedOffsets,
+  "20261203_009_culture_orders": cultureOrders,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

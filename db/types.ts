@@ -143,6 +143,14 @@ export interface ReservationRow {
   cancelled_by: "gardener" | "supplier" | null;
   expiry_warned_at: string | null;
   pickup_reminded_at: string | null;
+  /** Live cultures only: collected or posted (lib/reservations/culture-orders.ts). */
+  fulfilment: "pickup" | "post" | null;
+  /** The address a posted culture goes to: the buyer's and the grower's eyes only. */
+  ship_to: string | null;
+  order_stage: "paid" | "packed" | "shipped" | "delivered" | "collected" | null;
+  carrier: string | null;
+  tracking: string | null;
+  shipped_at: string | null;
   created_at: string;
   updated_at: string;
 }

@@ -28,7 +28,7 @@ import {
 import { acceptInviteSchema, inviteSchema } from "@/lib/validation/council";
 import { auditQuerySchema, closeReportSchema, listingModerationSchema, reportQueueQuerySchema, reportSchema, userModerationSchema } from "@/lib/validation/moderation";
 import { diversionQuerySchema } from "@/lib/validation/reports";
-import { cultureSchema, shippingSchema } from "@/lib/validation/grower";
+import { cultureSchema, orderStepSchema, shipOrderSchema, shippingSchema } from "@/lib/validation/grower";
 import { matchSchema } from "@/lib/validation/match";
 
 export interface RouteDoc {
@@ -85,6 +85,9 @@ export const API_ROUTES: RouteDoc[] = [
   { method: "post", path: "/api/reservations/{id}/checkout", summary: "The payment page for a reservation still to be paid", tag: "reservations", auth: ["gardener"], response: z.object({ checkout_url: z.string() }), errors: [401, 403, 404, 409] },
   { method: "get", path: "/api/reservations/{id}/messages", summary: "The message thread of a reservation", tag: "reservations", auth: "signed-in", errors: [401, 404] },
   { method: "post", path: "/api/reservations/{id}/messages", summary: "Send a message to the other side (e-mailed; rate limited)", tag: "reservations", auth: "signed-in", body: messageSchema, status: 201, errors: [400, 401, 404, 409, 422, 429] },
+  { method: "post", path: "/api/reservations/{id}/pack", summary: "A paid, posted live culture is packed (grower); the buyer is e-mailed", tag: "reservations", auth: ["supplier", "grower", "council"], body: orderStepSchema, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "post", path: "/api/reservations/{id}/ship", summary: "A packed culture is in the post, with carrier and tracking (grower; not while posting is paused)", tag: "reservations", auth: ["supplier", "grower", "council"], body: shipOrderSchema, errors: [400, 401, 403, 404, 409, 422] },
+  { method: "post", path: "/api/reservations/{id}/deliver", summary: "A shipped culture arrived (buyer, or grower from the tracking); closes the order", tag: "reservations", auth: "signed-in", body: orderStepSchema, errors: [400, 401, 404, 409, 422] },
   { method: "post", path: "/api/reservations/{id}/review", summary: "Rate the other side once after collection", tag: "reservations", auth: "signed-in", body: reviewSchema, status: 201, errors: [400, 401, 404, 409, 422] },
   { method: "get", path: "/api/requests", summary: "Reservations on my (or my organisation's) listings", tag: "reservations", auth: ["supplier", "grower", "council"], errors: [401, 403] },
   { method: "post", path: "/api/webhooks/stripe", summary: "Stripe's signed events (Stripe-Signature); each applied once", tag: "payments", auth: "public", errors: [400, 500] },
@@ -116,6 +119,7 @@ export const API_ROUTES: RouteDoc[] = [
   { method: "get", path: "/api/moderation/audit", summary: "The append-only audit log, newest first", tag: "moderation", auth: ["moderator"], query: auditQuerySchema, errors: [401, 403, 422] },
   { method: "get", path: "/api/reports/diversion", summary: "kg and m³ that left my or my organisation's hands, by month and material", tag: "reports", auth: ["supplier", "grower", "council"], query: diversionQuerySchema, errors: [401, 403, 422] },
   { method: "get", path: "/api/reports/diversion.csv", summary: "The diversion figures as CSV", tag: "reports", auth: ["supplier", "grower", "council"], query: diversionQuerySchema, responseDescription: "text/csv", errors: [401, 403, 422] },
+  { method: "get", path: "/api/grower/orders", summary: "My open live-culture orders (to answer, pack, post, or on their way), posting days and the next one", tag: "growers", auth: ["grower"], responseDescription: "{ orders, shipping, next_posting_day }", errors: [401, 403] },
   { method: "get", path: "/api/grower/shipping", summary: "My shipping weekdays and pause", tag: "growers", auth: ["grower"], errors: [401, 403] },
   { method: "put", path: "/api/grower/shipping", summary: "Set shipping weekdays; pause posting in heat or frost", tag: "growers", auth: ["grower"], body: shippingSchema, errors: [400, 401, 403, 422] },
   { method: "put", path: "/api/grower/listings/{id}/culture", summary: "Species (required), posting and collection of a worm listing", tag: "growers", auth: ["grower"], body: cultureSchema, errors: [400, 401, 403, 404, 422] },

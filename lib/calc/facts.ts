@@ -269,6 +269,17 @@ export const CN_RATIO = { ideal_min: 25, ideal_max: 40, min: 20, max: 60 } as co
 export const WORM_STOCKING_KG_PER_M2 = 0.5;
 /** About 1,000 worms per lb (800–1,000; common practice, no source): 1000 / 0.45359237 = 2,204.6 per kg. */
 export const WORMS_PER_KG = 1000 / POUND_KG;
+/**
+ * Where composting worms are comfortable, °F. Virginia Cooperative Extension: best at 65–78 °F,
+ * they survive 35–100 °F. Oregon State University Extension, EM 9034 "Composting with Worms":
+ * most active at 55–75 °F. The care sheet gives the span of the two, 55–78 °F.
+ */
+export const WORM_TEMPERATURE_F = { comfortable_min: 55, comfortable_max: 78, best_min: 65, best_max: 78, survive_min: 35, survive_max: 100 } as const;
+/**
+ * Settled composting worms can eat about half their body weight a day (NC Cooperative
+ * Extension); a culture that has just moved eats much less (common practice, no source).
+ */
+export const WORM_DAILY_FOOD_SHARE = 0.5;
 
 // ---------------------------------------------------------------------------------------
 // Safety

@@ -52,6 +52,9 @@ export interface TransitionSubject {
   status: ReservationStatus;
   payment_state: PaymentState;
   pickup_by: string | null;
+  /** Live-culture orders (lib/reservations/culture-orders.ts); absent or null for other material. */
+  fulfilment?: "pickup" | "post" | null;
+  order_stage?: string | null;
 }
 
 /** Why an action cannot happen now, or null when it can. `side` is the party asking. */
@@ -61,6 +64,10 @@ export function blockedReason(r: TransitionSubject, action: ReservationAction, s
   if (!t.from.includes(r.status)) return `This reservation is ${r.status.replace("_", " ")}.`;
   if (action === "confirm" && r.payment_state === "awaiting") return "The gardener has not paid yet; you can accept once the payment is through.";
   if (action === "no_show" && (!r.pickup_by || new Date(r.pickup_by) > now)) return "A no-show can be recorded once the pickup time has passed.";
+  // A posted culture is never collected at the gate, and a parcel in the post cannot be called back.
+  if (r.fulfilment === "post" && (action === "collect" || action === "no_show")) return "This culture is posted: mark it packed, shipped and delivered instead.";
+  if (action === "cancel" && r.order_stage === "shipped") return "The parcel is on its way and can no longer be cancelled; write to the other side in the messages.";
+  if (action === "cancel" && side === "gardener" && r.order_stage === "packed") return "The grower has packed it already; ask them in the messages.";
   return null;
 }
 
@@ -77,11 +84,12 @@ export const owesPayment = (r: { status: ReservationStatus; payment_state: Payme
  * everything: the gardener did nothing wrong.
  */
 export function cancellationIsTimely(
-  r: { status: ReservationStatus; pickup_at: string | null; pickup_by: string | null },
+  r: { status: ReservationStatus; pickup_at: string | null; pickup_by: string | null; fulfilment?: "pickup" | "post" | null },
   side: Side,
   now: Date,
 ): boolean {
-  if (side === "supplier" || r.status === "held") return true;
+  // A posted culture can only be cancelled before it is packed: nothing is lost yet.
+  if (side === "supplier" || r.status === "held" || r.fulfilment === "post") return true;
   const start = r.pickup_at ?? r.pickup_by;
   if (!start) return true;
   return new Date(start).getTime() - now.getTime() >= CANCEL_NOTICE_HOURS * 3_600_000;

@@ -5,6 +5,7 @@ import type { ReservationContext } from "@/db/reservation-context";
 import type { PaymentRow, ReservationEventRow } from "@/db/types";
 import { allowedActions, owesPayment, type ReservationAction, type Side } from "./policy";
 import { windowLabel } from "./pickup-times";
+import { allowedOrderActions, estimatedWorms, type Fulfilment, type OrderAction, type OrderStage } from "./culture-orders";
 
 export interface ReservationView {
   id: string;
@@ -37,6 +38,18 @@ export interface ReservationView {
   my_review: { rating: number; comment: string } | null;
   their_review: { rating: number; comment: string } | null;
   history: { from: string | null; to: string; note: string | null; by: "gardener" | "supplier" | "duffbank"; at: string }[];
+  /** Live cultures only: how it reaches the buyer and how far the parcel has got. */
+  order: {
+    fulfilment: Fulfilment;
+    stage: OrderStage | null;
+    /** The buyer's postal address: only the two parties ever see a reservation. */
+    ship_to: string | null;
+    carrier: string | null;
+    tracking: string | null;
+    shipped_at: string | null;
+    estimated_count: number;
+    actions: OrderAction[];
+  } | null;
 }
 
 export interface ViewInput {
@@ -47,14 +60,18 @@ export interface ViewInput {
   payments: PaymentRow[];
   history: ReservationEventRow[];
   reviews: { author_id: string; rating: number; comment: string }[];
+  /** The grower's posting pause, for whether "shipped" can be offered. */
+  shipping?: { paused: boolean };
 }
 
 const REVEALED = new Set(["confirmed", "collected", "no_show"]);
 
-export function reservationView({ r, side, viewerId, now, payments, history, reviews }: ViewInput): ReservationView {
+export function reservationView({ r, side, viewerId, now, payments, history, reviews, shipping }: ViewInput): ReservationView {
   const charge = payments.find((p) => p.kind !== "refund");
   const refunded = payments.filter((p) => p.kind === "refund" && p.status === "succeeded").reduce((s, p) => s + p.amount_cents, 0);
   const reveal = side === "supplier" || REVEALED.has(r.status);
+  // A posted culture never needs the grower's own address.
+  const revealAddress = reveal && !(side === "gardener" && r.fulfilment === "post");
   const mine = reviews.find((v) => v.author_id === viewerId) ?? null;
   const theirs = reviews.find((v) => v.author_id !== viewerId) ?? null;
   const by = (actor: string | null) => (actor === null ? "duffbank" : actor === r.gardener_id ? "gardener" : "supplier");
@@ -98,7 +115,7 @@ export function reservationView({ r, side, viewerId, now, payments, history, rev
       window: r.window ? windowLabel(r.window) : null,
       starts_at: r.pickup_at,
       ends_by: r.pickup_by,
-      ...(reveal ? { address: r.listing.address, location: { lat: r.listing.lat, lng: r.listing.lng } } : {}),
+      ...(revealAddress ? { address: r.listing.address, location: { lat: r.listing.lat, lng: r.listing.lng } } : {}),
     },
     ...(side === "gardener" && REVEALED.has(r.status) ? { pickup_code: r.pickup_code } : {}),
     side,
@@ -108,5 +125,17 @@ export function reservationView({ r, side, viewerId, now, payments, history, rev
     my_review: mine ? { rating: mine.rating, comment: mine.comment } : null,
     their_review: theirs ? { rating: theirs.rating, comment: theirs.comment } : null,
     history: history.map((h) => ({ from: h.from_status, to: h.to_status, note: h.note, by: by(h.actor_id), at: h.created_at })),
+    order: r.fulfilment
+      ? {
+          fulfilment: r.fulfilment,
+          stage: r.order_stage,
+          ship_to: r.ship_to,
+          carrier: r.carrier,
+          tracking: r.tracking,
+          shipped_at: r.shipped_at,
+          estimated_count: estimatedWorms(r.quantity),
+          actions: allowedOrderActions(r, side, { postingPaused: !!shipping?.paused }),
+        }
+      : null,
   };
 }

@@ -79,7 +79,13 @@ async function apply(trx: Knex.Transaction, action: ReservationAction, r: NonNul
       if (input.pickupCode && !pickupCodeMatches(r.pickup_code ?? "", input.pickupCode)) {
         throw new ApiError("invalid_input", "That pickup code does not match.", { pickup_code: "That is not the code on this reservation. Check it with the gardener, or mark it collected without a code." });
       }
-      const ids = await closeReservation(trx, r, "collected", { actorId, note: input.pickupCode ? "Pickup code checked" : "Marked collected", now, money: "complete" });
+      const ids = await closeReservation(trx, r, "collected", {
+        actorId,
+        note: input.pickupCode ? "Pickup code checked" : "Marked collected",
+        now,
+        money: "complete",
+        patch: r.fulfilment ? { order_stage: "collected" } : undefined,
+      });
       await mailReservation(trx, "review_request", await ctxAfter(), ["gardener", "supplier"]);
       return ids;
     }

@@ -18,6 +18,9 @@ async function views(ids: string[], viewerId: string, side: Side, q: Knex, now: 
     historyOf(ids, q),
     ids.length ? q("reviews").select("reservation_id", "author_id", "rating", "comment").whereIn("reservation_id", ids) : [],
   ]);
+  // Growers who paused posting: their parcels cannot be marked shipped until it resumes.
+  const growers = [...new Set(contexts.filter((r) => r.fulfilment === "post").map((r) => r.listing.owner_id))];
+  const paused = new Set<string>(growers.length ? await q("grower_shipping").whereIn("user_id", growers).andWhere("paused", true).pluck("user_id") : []);
   return contexts.map((r) =>
     reservationView({
       r,
@@ -27,6 +30,7 @@ async function views(ids: string[], viewerId: string, side: Side, q: Knex, now: 
       payments: payments.filter((p) => p.reservation_id === r.id),
       history: history.filter((h) => h.reservation_id === r.id),
       reviews: (reviews as { reservation_id: string; author_id: string; rating: number; comment: string }[]).filter((v) => v.reservation_id === r.id),
+      shipping: { paused: paused.has(r.listing.owner_id) },
     }),
   );
 }

@@ -6,6 +6,7 @@ import { reservationContext, type ReservationContext } from "@/db/reservation-co
 import { collectQuantity, recordReservationEvent, releaseQuantity, updateReservationIf, type PickupWindowRow } from "@/db/reservations";
 import type { ReservationRow } from "@/db/types";
 import { mailReservation } from "@/lib/mail/reservation-mail";
+import { mailCultureOrder } from "@/lib/mail/culture-order-mail";
 import { newPickupCode } from "@/lib/reservations/pickup-code";
 import { nextOccurrence } from "@/lib/reservations/pickup-times";
 import { NO_WINDOW_PICKUP_DAYS, SUPPLIER_REPLY_HOURS, type ReservationStatus } from "@/lib/reservations/policy";
@@ -35,14 +36,22 @@ async function move(trx: Db, r: ReservationRow, to: ReservationStatus, patch: Pa
   await recordReservationEvent({ reservation_id: r.id, from_status: r.status, to_status: to, actor_id: actorId, note, created_at: now.toISOString() }, trx);
 }
 
-/** Accepts a held reservation: a pickup code, the pickup time, the e-mails with the address. */
+/**
+ * Accepts a held reservation: a pickup code, the pickup time, the e-mails with the address.
+ * A live culture becomes an order at the "paid" stage; a posted one needs no pickup code or
+ * address, and its e-mails say where it goes and when, with the care sheet for the buyer.
+ */
 export async function confirmReservation(trx: Trx, r: ReservationRow, actorId: string | null, now: Date, note: string | null): Promise<ReservationContext> {
   const ctx = (await reservationContext(r.id, trx))!;
   // A late answer can land after the chosen window's opening has passed: move to the next one.
   const times = r.pickup_by && new Date(r.pickup_by) > now ? { pickup_at: r.pickup_at, pickup_by: r.pickup_by } : pickupTimes(ctx.window, now);
-  await move(trx, r, "confirmed", { ...times, pickup_code: newPickupCode(), confirmed_at: now.toISOString(), hold_expires_at: null }, actorId, note, now);
+  const order = r.fulfilment ? { order_stage: "paid" as const } : {};
+  const code = r.fulfilment === "post" ? null : newPickupCode();
+  await move(trx, r, "confirmed", { ...times, ...order, pickup_code: code, confirmed_at: now.toISOString(), hold_expires_at: null }, actorId, note, now);
   const after = (await reservationContext(r.id, trx))!;
-  await mailReservation(trx, "confirmed", after, ["gardener", "supplier"]);
+  if (after.fulfilment === "post") await mailCultureOrder(trx, "order_confirmed", after, ["gardener", "supplier"], now);
+  else await mailReservation(trx, "confirmed", after, ["gardener", "supplier"]);
+  if (after.fulfilment) await mailCultureOrder(trx, "care_sheet", after, ["gardener"], now);
   return after;
 }
 
@@ -113,6 +122,8 @@ export async function gardenerStepDone(trx: Trx, reservationId: string, state: "
     const paid = { ...r, payment_state: state };
     const ctx = (await reservationContext(r.id, trx))!;
     await mailReservation(trx, "receipt", ctx, ["gardener"]);
+    // A live culture's care sheet goes out on purchase, so the bedding is ready before the worms are.
+    if (ctx.fulfilment) await mailCultureOrder(trx, "care_sheet", ctx, ["gardener"], now);
     const note = state === "paid" ? "Payment received" : "Deposit authorised";
     if (ctx.listing.auto_accept) {
       await confirmReservation(trx, paid, null, now, `${note}; the listing accepts automatically`);

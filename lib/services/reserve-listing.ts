@@ -13,7 +13,10 @@ import { MIN_CARD_CHARGE_CENTS, formatMoney, priceFor } from "@/lib/payments/mon
 import { WHOLE_UNITS, quantityLabel } from "@/lib/reservations/labels";
 import { holdMinutes } from "@/lib/reservations/policy";
 import { nextOccurrence } from "@/lib/reservations/pickup-times";
+import { cultureOptions, defaultFulfilment, type Fulfilment } from "@/lib/reservations/culture-orders";
+import { findShipping } from "@/db/grower-shipping";
 import { confirmReservation, pickupTimes } from "./reservation-steps";
+import { shippingView } from "./grower-shipping";
 
 // POST /api/reservations: hold quantities of one or more listings for a gardener, all or
 // nothing in one transaction, then open a Stripe checkout for whatever needs paying.
@@ -22,6 +25,9 @@ export interface ReserveItem {
   listing_id: string;
   quantity: number;
   pickup_window_id?: string | null;
+  /** Live cultures: collected or posted; other material is always collected. */
+  fulfilment?: Fulfilment | null;
+  ship_to?: string | null;
 }
 
 export interface ReserveInput {
@@ -37,7 +43,45 @@ export interface ReserveDeps {
   clock?: () => Date;
 }
 
-type Checked = { item: ReserveItem; listing: ListingForReservation; amount: number; deposit: number; window: Awaited<ReturnType<typeof pickupWindowsOf>>[number] | null };
+type Checked = {
+  item: ReserveItem;
+  listing: ListingForReservation;
+  amount: number;
+  deposit: number;
+  window: Awaited<ReturnType<typeof pickupWindowsOf>>[number] | null;
+  fulfilment: Fulfilment | null;
+};
+
+function qualityOf(l: ListingForReservation): Record<string, unknown> {
+  try {
+    const v = JSON.parse(l.quality);
+    return v && typeof v === "object" ? v : {};
+  } catch {
+    return {};
+  }
+}
+
+/**
+ * How a live culture reaches this buyer: what the grower offers, and posting only while the
+ * grower has not paused it for heat or frost. Null for material that is not a live culture.
+ */
+async function fulfilmentFor(item: ReserveItem, listing: ListingForReservation, f: string, fields: FieldErrors, q: Knex): Promise<Fulfilment | null> {
+  if (listing.material_code !== "worms") {
+    if (item.fulfilment === "post") fields[`${f}fulfilment`] = "Only live cultures are posted; this is collected.";
+    return null;
+  }
+  const offer = cultureOptions(qualityOf(listing));
+  const chosen = item.fulfilment ?? defaultFulfilment(offer);
+  if (chosen === "pickup" && !offer.pickup) fields[`${f}fulfilment`] = "This culture is posted only; choose post and give an address.";
+  if (chosen === "post") {
+    const shipping = shippingView(await findShipping(listing.owner_id, q));
+    if (!offer.ships) fields[`${f}fulfilment`] = "This culture is for collection only.";
+    else if (shipping.paused) fields[`${f}fulfilment`] = `${shipping.notice} Choose collection, or order once posting resumes.`;
+    if (!item.ship_to) fields[`${f}ship_to`] = f ? "A posted culture needs an address: reserve it on its own page." : "Give the full postal address the parcel goes to, with the postcode.";
+    if (item.pickup_window_id) fields[`${f}pickup_window_id`] = "A posted order has no pickup window.";
+  }
+  return chosen;
+}
 
 async function check(input: ReserveInput, q: Knex, now: Date): Promise<Checked[]> {
   const ids = input.items.map((i) => i.listing_id);
@@ -77,7 +121,8 @@ async function check(input: ReserveInput, q: Knex, now: Date): Promise<Checked[]
       if (!window) fields[`${f}pickup_window_id`] = "Choose one of this listing's pickup windows.";
       else if (!nextOccurrence(window, now)) fields[`${f}pickup_window_id`] = "That pickup window is over; choose another.";
     }
-    out.push({ item, listing, amount, deposit, window });
+    const fulfilment = await fulfilmentFor(item, listing, f, fields, q);
+    out.push({ item, listing, amount, deposit, window, fulfilment });
   }
   if (input.bed_id) {
     const bed = await q("beds").first("id").where({ id: input.bed_id, owner_id: input.gardenerId });
@@ -130,6 +175,12 @@ export async function reserveListings(input: ReserveInput, deps: ReserveDeps = {
         cancelled_by: null,
         expiry_warned_at: null,
         pickup_reminded_at: null,
+        fulfilment: c.fulfilment,
+        ship_to: c.fulfilment === "post" ? (c.item.ship_to ?? null) : null,
+        order_stage: null,
+        carrier: null,
+        tracking: null,
+        shipped_at: null,
         created_at: at,
         updated_at: at,
       };

@@ -35,3 +35,21 @@ export const cultureSchema = z
 
 export type ShippingInput = z.infer<typeof shippingSchema>;
 export type CultureInput = z.infer<typeof cultureSchema>;
+
+/** Marking a posted culture shipped: who carries it and how the buyer follows it. */
+export const shipOrderSchema = z.object({
+  carrier: z
+    .string({ error: "Name the carrier." })
+    .trim()
+    .min(2, "Name the carrier, e.g. Royal Mail or a courier.")
+    .max(60, "Use at most 60 characters."),
+  tracking: z
+    .string({ error: "Give the tracking number or link." })
+    .trim()
+    .min(4, "Give the tracking number or link from the receipt.")
+    .max(120, "Use at most 120 characters."),
+});
+/** Packed and delivered take no fields. */
+export const orderStepSchema = z.object({});
+
+export type ShipOrderInput = z.infer<typeof shipOrderSchema>;

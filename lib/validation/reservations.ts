@@ -10,12 +10,27 @@ export const quantitySchema = z
   .positive("Reserve more than zero.")
   .max(100_000, "That is more than any listing holds.");
 
-export const reserveOneSchema = z.object({
-  listing_id: id("a listing"),
-  quantity: quantitySchema,
-  pickup_window_id: id("a pickup window").nullish(),
-  bed_id: id("a bed").nullish(),
-});
+export const FULFILMENT_CHOICES = ["pickup", "post"] as const;
+
+export const reserveOneSchema = z
+  .object({
+    listing_id: id("a listing"),
+    quantity: quantitySchema,
+    pickup_window_id: id("a pickup window").nullish(),
+    bed_id: id("a bed").nullish(),
+    // Live cultures only: collected (the default where offered) or posted to `ship_to`.
+    fulfilment: z.enum(FULFILMENT_CHOICES, { error: "Choose collection or post." }).nullish(),
+    ship_to: z
+      .string({ error: "Give the address as text." })
+      .trim()
+      .max(400, "Keep the address under 400 characters.")
+      .nullish()
+      .transform((v) => v || null),
+  })
+  .refine((r) => r.fulfilment !== "post" || (r.ship_to && r.ship_to.length >= 10), {
+    path: ["ship_to"],
+    message: "Give the full postal address the parcel goes to, with the postcode.",
+  });
 
 export const reserveItemSchema = z.object({ listing_id: id("a listing"), quantity: quantitySchema });
 

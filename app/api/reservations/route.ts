@@ -7,12 +7,16 @@ import { reserveManySchema, reserveOneSchema } from "@/lib/validation/reservatio
 
 // POST /api/reservations — hold a quantity of a listing (or, with "items", several at once,
 // all or nothing) for the signed-in gardener. A priced or deposit listing answers with the
-// checkout_url of the Stripe page that completes the reservation.
+// checkout_url of the Stripe page that completes the reservation. A live culture takes
+// "fulfilment" (pickup or post) and, for post, "ship_to".
 export const POST = withAuth(async ({ req, user }) => {
   const body = await readJson(req);
   const many = typeof body === "object" && body !== null && "items" in body;
   const input = many ? parseInput(reserveManySchema, body) : parseInput(reserveOneSchema, body);
-  const items = "items" in input ? input.items : [{ listing_id: input.listing_id, quantity: input.quantity, pickup_window_id: input.pickup_window_id }];
+  const items =
+    "items" in input
+      ? input.items
+      : [{ listing_id: input.listing_id, quantity: input.quantity, pickup_window_id: input.pickup_window_id, fulfilment: input.fulfilment, ship_to: input.ship_to }];
   const result = await reserveListings({
     gardenerId: user.id,
     items,

@@ -32,6 +32,8 @@ export interface MailExtra {
 const link = (r: ReservationContext, to: Audience) => `${appUrl()}/${to === "gardener" ? "reservations" : "requests"}#r-${r.id}`;
 
 function whenLine(r: ReservationContext): string {
+  // A posted live culture has no pickup: say where it goes (lib/mail/templates/culture-orders.ts has its other e-mails).
+  if (r.fulfilment === "post") return `Posted to: ${r.ship_to}`;
   if (r.window && r.pickup_at) return `When: ${windowLabel(r.window)} — yours is ${formatLocal(r.pickup_at)} to ${formatLocal(r.pickup_by!, undefined, { timeOnly: true })}.`;
   if (r.pickup_by) return `When: by arrangement through the messages on the reservation, before ${formatLocal(r.pickup_by)}.`;
   return "When: by arrangement through the messages on the reservation.";
@@ -73,7 +75,11 @@ function parts(kind: ReservationMailKind, r: ReservationContext, to: Audience, e
             subject: `Request sent: ${what}`,
             body: {
               heading: `We have passed your request to ${r.supplier.name}`,
-              paragraphs: ["You will get an e-mail as soon as they accept. The exact pickup address and your pickup code come with it."],
+              paragraphs: [
+                r.fulfilment === "post"
+                  ? "You will get an e-mail as soon as they accept, with the day it goes in the post."
+                  : "You will get an e-mail as soon as they accept. The exact pickup address and your pickup code come with it.",
+              ],
               action: action("See your reservation"),
             },
           };

@@ -1,0 +1,34 @@
+import type { Db } from "@/db/index";
+import { findShipping } from "@/db/grower-shipping";
+import { enqueueEmail } from "@/db/outbox";
+import type { ReservationContext } from "@/db/reservation-context";
+import { nextPostingDay } from "@/lib/reservations/culture-orders";
+import { shippingView } from "@/lib/services/grower-shipping";
+import { cultureOrderEmail, type CultureMailKind } from "./templates/culture-orders";
+import type { Audience } from "./templates/reservations";
+
+/**
+ * Writes a live-culture order e-mail to the outbox inside the caller's transaction (like
+ * mailReservation). The dedupe key keeps one care sheet per order however often the
+ * payment webhook or the confirmation runs.
+ */
+export async function mailCultureOrder(q: Db, kind: CultureMailKind, r: ReservationContext, audiences: Audience[], now: Date): Promise<void> {
+  const [shippingRow, listing] = await Promise.all([findShipping(r.listing.owner_id, q), q("listings").first("quality").where({ id: r.listing_id })]);
+  const shipping = shippingView(shippingRow);
+  const species = speciesOf(listing?.quality);
+  const postingDay = shipping.paused ? null : nextPostingDay(shipping.ship_weekdays, now);
+  for (const to of audiences) {
+    const person = to === "gardener" ? r.gardener : r.supplier;
+    const mail = cultureOrderEmail(kind, { r, to, species, shipping, postingDay });
+    await enqueueEmail({ to: person.email, ...mail, template: `culture.${kind}`, dedupe_key: `order:${r.id}:${kind}:${to}` }, q);
+  }
+}
+
+function speciesOf(quality: string | undefined): string | null {
+  try {
+    const v = JSON.parse(quality ?? "{}");
+    return typeof v?.species === "string" && v.species.trim() ? v.species.trim() : null;
+  } catch {
+    return null;
+  }
+}
