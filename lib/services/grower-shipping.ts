@@ -4,7 +4,7 @@ import { writeTransaction } from "@/db/write-transaction";
 import { findShipping, saveShipping, updateWormQuality, wormListingsOf } from "@/db/grower-shipping";
 import { recordAudit } from "@/db/audit";
 import { notFound } from "@/lib/api/errors";
-import { WORMS_PER_KG } from "@/lib/calc/facts";
+import { estimatedWorms } from "@/lib/reservations/culture-orders";
 import { PAUSE_REASON_LABELS, WEEKDAY_NAMES, type CultureInput, type ShippingInput } from "@/lib/validation/grower";
 
 /** Early in the week, so a parcel of live worms does not sit in a depot over the weekend (common practice, no source). */
@@ -26,7 +26,7 @@ export function shippingView(row: { ship_weekdays: string; paused: boolean | 0 |
   const names = days.map((d) => WEEKDAY_NAMES[d]);
   const notice = paused
     ? `Posting is paused because of ${PAUSE_REASON_LABELS[row!.pause_reason ?? "other"]}: worms are live animals and suffer in hot or freezing parcels. Collection may still be possible.${row?.pause_note ? ` ${row.pause_note}` : ""}`
-    : `Parcels go out on ${names.join(" and ")}, so they do not sit in a depot over the weekend.`;
+    : `Parcels go out on ${names.join(" and ")}${days.every((d) => d >= 1 && d <= 3) ? ", so they do not sit in a depot over the weekend" : ""}.`;
   return { ship_weekdays: days, ship_days: names, paused, pause_reason: paused ? (row!.pause_reason ?? "other") : null, pause_note: row?.pause_note ?? null, notice };
 }
 
@@ -75,8 +75,8 @@ export async function cultureStock(userId: string): Promise<CultureStock[]> {
       status: l.status,
       kg_left: left,
       kg_held: l.quantity_held,
-      // About 1,000 worms per lb (common practice, no source): WORMS_PER_KG.
-      estimated_count: Math.round((left * WORMS_PER_KG) / 100) * 100,
+      // About 1,000 worms per lb (common practice, no source), to the hundred.
+      estimated_count: estimatedWorms(left),
       species: typeof quality.species === "string" && quality.species.trim() ? quality.species : null,
       ships: quality.ships !== false,
       pickup: quality.pickup !== false,
