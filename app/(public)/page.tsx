@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { buttonClass } from "@/components/ui/button-class";
-import { platformDivertedKg } from "@/lib/services/diversion-report";
+import { platformDivertedKg, platformGiveawayKg } from "@/lib/services/diversion-report";
 import { countVisibleListings } from "@/db/listing-status";
 import { formatKg } from "@/components/reports/format";
 
@@ -15,7 +15,7 @@ const STEPS = [
 ];
 
 export default async function Home() {
-  const [keptKg, onOffer] = await Promise.all([platformDivertedKg(), countVisibleListings()]);
+  const [keptKg, giveawayKg, onOffer] = await Promise.all([platformDivertedKg(), platformGiveawayKg(), countVisibleListings()]);
   return (
     <div className="flex flex-col gap-12">
       <section className="grid items-center gap-8 md:grid-cols-[1.2fr_1fr]">
@@ -65,8 +65,13 @@ export default async function Home() {
             {formatKg(keptKg)}
           </p>
           <p className="mt-1 max-w-prose text-sm text-moss-100">
-            Leaves, straw, cardboard, grounds and chips collected through Duffbank and at council giveaway days, weighed with published bulk densities.
+            Leaves, straw, cardboard, grounds and chips collected from Duffbank listings (collected reservations only), weighed with published bulk densities.
           </p>
+          {giveawayKg > 0 ? (
+            <p className="mt-1 max-w-prose text-sm text-moss-100">
+              Council giveaway days, counted apart: <strong data-testid="giveaway-kg">{formatKg(giveawayKg)}</strong> taken home by households checked in.
+            </p>
+          ) : null}
         </div>
         <p className="text-lg">
           <strong data-testid="on-offer">{onOffer}</strong> listings on offer now ·{" "}

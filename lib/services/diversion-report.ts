@@ -34,9 +34,14 @@ function record(r: { quantity: number; household: string; at: string | Date; mat
   };
 }
 
-/** Kilograms kept from disposal across Duffbank: collected reservations and checked-in giveaway households. */
+/** Kilograms kept from disposal across Duffbank, the home page's figure: collected reservations only. */
 export async function platformDivertedKg(): Promise<number> {
-  return (await diversionReport(null)).total_kg;
+  return summariseDiversion((await collectedReservations(null)).map((r) => record(r))).total_kg;
+}
+
+/** Kilograms households took home from council giveaway days (checked in), shown apart from the figure above. */
+export async function platformGiveawayKg(): Promise<number> {
+  return summariseDiversion((await checkedInBookings(null)).map((r) => record(r))).total_kg;
 }
 
 export function diversionCsv(report: DiversionReport, by: "month" | "day" = "month"): string {
