@@ -1,3 +1,4 @@
+import Link from "next/link";
 import type { ReservationView } from "@/lib/reservations/view";
 import { formatMoney } from "@/lib/payments/money";
 import { quantityLabel } from "@/lib/reservations/labels";
@@ -59,6 +60,7 @@ function moneyLine(v: ReservationView): string | null {
 export function ReservationCard({ v }: { v: ReservationView }) {
   const titleId = `r-${v.id}-title`;
   const other = v.side === "gardener" ? v.supplier.name : v.gardener.name;
+  const otherId = v.side === "gardener" ? v.supplier.id : v.gardener.id;
   const step = nextStep(v);
   const money = moneyLine(v);
   const cancelNote =
@@ -74,7 +76,12 @@ export function ReservationCard({ v }: { v: ReservationView }) {
           <h2 id={titleId} className="text-lg font-semibold">
             {quantityLabel(v.quantity, v.unit)} of {v.listing.title}
           </h2>
-          <p className="text-sm text-humus-700">{v.side === "gardener" ? `From ${v.supplier.name}` : `For ${v.gardener.name}`}</p>
+          <p className="text-sm text-humus-700">
+            {v.side === "gardener" ? `From ${v.supplier.name}` : `For ${v.gardener.name}`} ·{" "}
+            <Link href={`/report?user=${encodeURIComponent(otherId)}`} className="text-humus-600 underline underline-offset-2 hover:text-ember-700" data-testid="report-person">
+              Report this person<span className="sr-only"> ({other})</span>
+            </Link>
+          </p>
         </div>
         <StatusBadge status={v.status} />
       </header>

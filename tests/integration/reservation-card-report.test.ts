@@ -1,0 +1,44 @@
+// Each side of a reservation can report the other from the reservation card: the link goes to
+// the report form for the other person's account, never their own.
+import { createElement } from "react";
+import { renderToStaticMarkup } from "react-dom/server";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { freshDb } from "../helpers/db";
+import { createListing, createReservationIn } from "../reservation-factories";
+import { listReservations } from "@/lib/services/list-reservations";
+
+// The card's interactive parts are client components that need the app router; the link sits
+// in the card's own markup, so they are left out here.
+vi.mock("@/components/reservations/reservation-actions", () => ({ ReservationActions: () => null }));
+vi.mock("@/components/reservations/message-thread", () => ({ MessagesPanel: () => null }));
+vi.mock("@/components/reservations/review-form", () => ({ ReviewForm: () => null }));
+const { ReservationCard } = await import("@/components/reservations/reservation-card");
+
+let ctx: Awaited<ReturnType<typeof freshDb>>;
+let supplierId = "";
+let gardenerId = "";
+
+beforeAll(async () => {
+  ctx = await freshDb({ materials: true });
+  const listing = await createListing();
+  supplierId = listing.ownerId;
+  gardenerId = (await createReservationIn("confirmed", { listingId: listing.id })).gardenerId;
+});
+afterAll(() => ctx.close());
+
+const reportHrefs = (html: string) => [...html.matchAll(/href="(\/report\?[^"]*)"[^>]*>Report this person/g)].map((m) => m[1].replace(/&amp;/g, "&"));
+
+describe("Report this person on a reservation card", () => {
+  it("links the gardener to a report on the supplier", async () => {
+    const [view] = await listReservations(gardenerId, "gardener");
+    const html = renderToStaticMarkup(createElement(ReservationCard, { v: view }));
+    expect(reportHrefs(html)).toEqual([`/report?user=${supplierId}`]);
+  });
+
+  it("links the supplier to a report on the gardener", async () => {
+    const [view] = await listReservations(supplierId, "supplier");
+    const html = renderToStaticMarkup(createElement(ReservationCard, { v: view }));
+    expect(reportHrefs(html)).toEqual([`/report?user=${gardenerId}`]);
+    expect(html).toContain(`(${view.gardener.name})`);
+  });
+});
