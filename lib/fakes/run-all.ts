@@ -5,6 +5,7 @@
 import path from "node:path";
 import { startSmtpFake } from "./smtp/server";
 import { DEFAULT_WEBHOOK_SECRET, startStripeFake } from "./stripe/server";
+import { stripeDataFile } from "./stripe/state";
 import { startCloudinaryFake } from "./cloudinary/server";
 import { parseFakeEnv } from "./cloudinary/config";
 
@@ -22,10 +23,11 @@ async function main() {
     webhookUrl,
     webhookSecret: process.env.STRIPE_WEBHOOK_SECRET ?? DEFAULT_WEBHOOK_SECRET,
     publicBaseUrl: process.env.STRIPE_FAKE_PUBLIC_URL,
-    dataFile: process.env.STRIPE_FAKE_DATA || undefined,
+    // Kept across restarts, beside the database whose rows name its records.
+    dataFile: stripeDataFile(),
     log: (line) => console.log(`[stripe-fake] ${line}`),
   });
-  console.log(`[fakes] Stripe API at ${stripe.url}, webhooks to ${webhookUrl}`);
+  console.log(`[fakes] Stripe API at ${stripe.url}, webhooks to ${webhookUrl}, records in ${path.relative(process.cwd(), stripeDataFile())}`);
 
   const photos = parseFakeEnv(process.env);
   const cloudinary = await startCloudinaryFake({

@@ -1,13 +1,17 @@
 // Webhooks from the fake: every event must verify with the SDK's own constructEvent,
 // arrive in order per object, be retried until the receiver says 2xx, and never hold up
 // the API call that caused it.
+import fs from "node:fs";
 import { createServer, type Server } from "node:http";
+import os from "node:os";
+import path from "node:path";
 import type { AddressInfo } from "node:net";
 import { afterEach, describe, expect, it } from "vitest";
 import Stripe from "stripe";
-import { startStripeFake, type StripeFake, type StripeFakeOptions } from "@/lib/fakes/stripe/server";
+import { DEFAULT_RETRY, startStripeFake, type StripeFake, type StripeFakeOptions } from "@/lib/fakes/stripe/server";
+import { stripeDataFile } from "@/lib/fakes/stripe/state";
 import { TEST_CARDS, submitHostedPayment } from "@/lib/fakes/stripe/testing";
-import { signatureHeader } from "@/lib/fakes/stripe/webhooks";
+import { STRIPE_RETRY_WINDOW_MS, retryDelayMs, signatureHeader } from "@/lib/fakes/stripe/webhooks";
 
 const SECRET = "whsec_test_receiver";
 
@@ -226,5 +230,88 @@ describe("delivery", () => {
     const later = await stripe.paymentIntents.create({ amount: 800, currency: "gbp" });
     await fake.webhooksIdle();
     expect(receiver.events.map((e) => (e.data.object as { id: string }).id)).toEqual([later.id]);
+  });
+});
+
+describe("retrying until a 2xx", () => {
+  it("keeps trying well past a handful of attempts, with backoff that grows and then stays capped", async () => {
+    const { receiver, fake, stripe } = await setup((_event, attempt) => (attempt <= 11 ? 503 : 200), { retry: { baseMs: 4, maxMs: 25 } });
+    await stripe.paymentIntents.create({ amount: 700, currency: "gbp" });
+    await fake.webhooksIdle();
+    expect(receiver.arrivals.map((a) => a.answered)).toEqual([...Array(11).fill(503), 200]);
+    expect([...fake.state.events.values()][0].pending_webhooks).toBe(0);
+    const at = fake.state.deliveries.map((d) => d.at);
+    const gaps = at.slice(1).map((t, i) => t - at[i]);
+    // 4, 8, 16 ms, then never more than the 25 ms cap (uncapped, the last would be 4 s).
+    expect(gaps[2]).toBeGreaterThanOrEqual(15);
+    expect(gaps.slice(3).every((g) => g >= 24 && g < 250)).toBe(true);
+  });
+
+  it("by default never gives up on a count, only after Stripe's three days", () => {
+    expect(DEFAULT_RETRY.maxAttempts).toBeUndefined();
+    expect(retryDelayMs(1, DEFAULT_RETRY)).toBe(1_000);
+    expect(retryDelayMs(4, DEFAULT_RETRY)).toBe(8_000);
+    expect(retryDelayMs(50, DEFAULT_RETRY)).toBe(DEFAULT_RETRY.maxMs);
+    expect(STRIPE_RETRY_WINDOW_MS).toBe(3 * 24 * 3_600_000); // docs.stripe.com/webhooks#retries: "for up to three days"
+  });
+
+  it("stops once the event is older than the retry window", async () => {
+    let now = Date.now();
+    const { receiver, fake, stripe } = await setup(() => 500, { now: () => now, retry: { baseMs: 5, maxMs: 5 } });
+    await stripe.paymentIntents.create({ amount: 700, currency: "gbp" });
+    while (receiver.arrivals.length < 3) await new Promise((r) => setTimeout(r, 5));
+    now += STRIPE_RETRY_WINDOW_MS;
+    await fake.webhooksIdle();
+    const count = receiver.arrivals.length;
+    await new Promise((r) => setTimeout(r, 50));
+    expect(receiver.arrivals.length).toBe(count);
+    expect([...fake.state.events.values()][0].pending_webhooks).toBe(1);
+  });
+
+  it("drops pending retries when the fake closes, without waiting on them", async () => {
+    const { receiver, fake, stripe } = await setup(() => 500, { retry: { baseMs: 30, maxMs: 30 } });
+    await stripe.paymentIntents.create({ amount: 700, currency: "gbp" });
+    while (receiver.arrivals.length < 2) await new Promise((r) => setTimeout(r, 5));
+    const started = Date.now();
+    await fake.close();
+    await fake.webhooksIdle();
+    expect(Date.now() - started).toBeLessThan(500);
+    const count = receiver.arrivals.length;
+    await new Promise((r) => setTimeout(r, 120));
+    expect(receiver.arrivals.length).toBe(count);
+  });
+
+  it("carries on delivering after a restart with the same data file", async () => {
+    const dataFile = path.join(os.tmpdir(), `stripe-fake-${process.pid}-${Date.now()}.json`);
+    cleanups.push(async () => fs.rmSync(dataFile, { force: true }));
+    const down = await startReceiver(() => 503);
+    cleanups.push(() => down.close());
+    const first = await startStripeFake({ port: 0, webhookUrl: down.url, webhookSecret: SECRET, dataFile, retry: { baseMs: 20, maxMs: 20 } });
+    const stripe = new Stripe("sk_test_duffbank_webhooks", { host: "127.0.0.1", port: first.port, protocol: "http" });
+    const pi = await stripe.paymentIntents.create({ amount: 700, currency: "gbp" });
+    while (down.arrivals.length < 2) await new Promise((r) => setTimeout(r, 5));
+    await first.close();
+
+    const up = await startReceiver();
+    cleanups.push(() => up.close());
+    const second = await startStripeFake({ port: 0, webhookUrl: up.url, webhookSecret: SECRET, dataFile, retry: { baseMs: 20, maxMs: 20 } });
+    cleanups.push(() => second.close());
+    await second.webhooksIdle();
+    expect(up.events.map((e) => [e.type, (e.data.object as { id: string }).id])).toEqual([["payment_intent.created", pi.id]]);
+    expect(second.state.events.get(up.events[0].id)!.pending_webhooks).toBe(0);
+    // Delivered is remembered too: a third start sends nothing again.
+    await second.close();
+    const third = await startStripeFake({ port: 0, webhookUrl: up.url, webhookSecret: SECRET, dataFile, retry: { baseMs: 20, maxMs: 20 } });
+    cleanups.push(() => third.close());
+    await third.webhooksIdle();
+    expect(up.events).toHaveLength(1);
+  });
+});
+
+describe("where npm run dev keeps the fake's records", () => {
+  it("beside the database, or where STRIPE_FAKE_DATA says", () => {
+    expect(stripeDataFile({})).toBe(path.resolve("db/duffbank.stripe-fake.json"));
+    expect(stripeDataFile({ DATABASE_FILE: "/tmp/run-1/e2e.sqlite" })).toBe("/tmp/run-1/e2e.stripe-fake.json");
+    expect(stripeDataFile({ DATABASE_FILE: "/tmp/run-1/e2e.sqlite", STRIPE_FAKE_DATA: "/var/tmp/stripe.json" })).toBe("/var/tmp/stripe.json");
   });
 });

@@ -10,7 +10,7 @@ import { handlePay } from "./pay-handler";
 import type { Ops } from "./payments";
 import { createState, loadState, saveState } from "./state";
 import type { FakeStripeState, RequestInfo } from "./types";
-import { WebhookDispatcher } from "./webhooks";
+import { WebhookDispatcher, type RetrySchedule } from "./webhooks";
 
 export interface StripeFakeOptions {
   /** 0 picks a free port. */
@@ -22,7 +22,8 @@ export interface StripeFakeOptions {
   publicBaseUrl?: string;
   /** Milliseconds since the epoch, like Date.now. Lets tests move time (session expiry). */
   now?: () => number;
-  retry?: { baseMs: number; maxAttempts: number };
+  /** How failed webhook deliveries are retried; tests pass small numbers to stay fast. */
+  retry?: RetrySchedule;
   /** JSON file to keep records across restarts; in memory only when absent. */
   dataFile?: string;
   log?: (line: string) => void;
@@ -34,15 +35,16 @@ export interface StripeFake {
   webhookSecret: string;
   state: FakeStripeState;
   setWebhookUrl(url: string | null): void;
-  /** Resolves once every queued webhook has been delivered or has run out of attempts. */
+  /** Resolves once every queued webhook has been delivered or given up (see RetrySchedule). */
   webhooksIdle(): Promise<void>;
   close(): Promise<void>;
 }
 
 export const DEFAULT_WEBHOOK_SECRET = "whsec_duffbank_local";
-// Stripe retries failed deliveries for days; locally a few quick retries show the same
-// behaviour without keeping stale events around.
-const DEFAULT_RETRY = { baseMs: 500, maxAttempts: 6 };
+// Stripe retries a failed delivery with exponential backoff for up to three days. Locally
+// the same, but capped at a minute apart, so an app restarted after an outage hears about
+// what it missed within a minute.
+export const DEFAULT_RETRY: RetrySchedule = { baseMs: 1_000, maxMs: 60_000 };
 const SWEEP_INTERVAL_MS = 1000;
 
 // qs's defaults cut nesting at depth 5 and turn arrays over 20 entries into objects;
@@ -54,6 +56,9 @@ export async function startStripeFake(opts: StripeFakeOptions = {}): Promise<Str
   const now = opts.now ?? Date.now;
   const secret = opts.webhookSecret ?? DEFAULT_WEBHOOK_SECRET;
   const state = opts.dataFile ? loadState(opts.dataFile) : createState();
+  const persist = () => {
+    if (opts.dataFile) saveState(state, opts.dataFile);
+  };
   const dispatcher = new WebhookDispatcher(state, {
     url: opts.webhookUrl ?? null,
     secret,
@@ -61,6 +66,7 @@ export async function startStripeFake(opts: StripeFakeOptions = {}): Promise<Str
     apiVersion: Stripe.API_VERSION,
     now,
     retry: opts.retry ?? DEFAULT_RETRY,
+    onChange: persist,
     log: opts.log,
   });
   let publicBaseUrl = opts.publicBaseUrl ?? "";
@@ -70,9 +76,6 @@ export async function startStripeFake(opts: StripeFakeOptions = {}): Promise<Str
     nowSeconds: () => Math.floor(now() / 1000),
     emit: (type, object) => dispatcher.emit(type, object, request),
   });
-  const persist = () => {
-    if (opts.dataFile) saveState(state, opts.dataFile);
-  };
   const sweep = () => {
     if (expireDueSessions(opsFor(null)) > 0) persist();
   };
@@ -171,6 +174,9 @@ export async function startStripeFake(opts: StripeFakeOptions = {}): Promise<Str
   const timer = setInterval(sweep, SWEEP_INTERVAL_MS);
   // The sweep must not keep a test run or a script alive on its own.
   timer.unref();
+  // Deliveries a previous run left unfinished carry on, as Stripe's would have.
+  const resumed = opts.dataFile ? dispatcher.resume() : 0;
+  if (resumed > 0) opts.log?.(`resuming delivery of ${resumed} webhook event(s) from ${opts.dataFile}`);
 
   return {
     port,

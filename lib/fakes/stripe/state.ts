@@ -1,9 +1,21 @@
 import { existsSync, readFileSync, renameSync, writeFileSync } from "node:fs";
+import path from "node:path";
 import type { FakeStripeState } from "./types";
 
 // All records live in memory. When a data file is given (STRIPE_FAKE_DATA for the CLI),
 // they are also written there after every change and read back at start, so restarting
 // the fakes in development does not strand the app's database with unknown pi_/cs_ ids.
+
+/**
+ * Where `npm run dev` and `npm start` keep the records: STRIPE_FAKE_DATA, else beside the
+ * database whose rows name them (db/duffbank.stripe-fake.json by default, gitignored), so a
+ * run with its own database file (the e2e run, the benchmark) gets records of its own.
+ */
+export function stripeDataFile(env: Record<string, string | undefined> = process.env): string {
+  if (env.STRIPE_FAKE_DATA) return path.resolve(env.STRIPE_FAKE_DATA);
+  const database = env.DATABASE_FILE || path.join("db", "duffbank.sqlite");
+  return path.resolve(`${database.replace(/\.(sqlite3?|db)$/, "")}.stripe-fake.json`);
+}
 
 const MAP_KEYS = [
   "checkoutSessions",

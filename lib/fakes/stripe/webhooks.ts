@@ -10,13 +10,35 @@ export function signatureHeader(payload: string, secret: string, timestampSecond
   return `t=${timestampSeconds},v1=${v1}`;
 }
 
+/**
+ * When a failed delivery is tried again: after baseMs · 2^(attempt−1), never more than
+ * maxMs apart, until the receiver answers 2xx. Like Stripe, which retries with backoff for
+ * up to three days (docs.stripe.com/webhooks#retries), it stops once the event is maxAgeMs
+ * old, or after maxAttempts when that is given (tests that want a quick give-up).
+ */
+export interface RetrySchedule {
+  baseMs: number;
+  maxMs?: number;
+  maxAttempts?: number;
+  maxAgeMs?: number;
+}
+
+export const STRIPE_RETRY_WINDOW_MS = 3 * 24 * 60 * 60_000;
+
+/** The wait after failed attempt number `attempt` (1-based). */
+export function retryDelayMs(attempt: number, schedule: RetrySchedule): number {
+  return Math.min(schedule.maxMs ?? Infinity, schedule.baseMs * 2 ** Math.min(attempt - 1, 40));
+}
+
 export interface WebhookOptions {
   url: string | null;
   secret: string;
   apiVersion: string;
   /** Milliseconds since the epoch, like Date.now; also used for the signature timestamp. */
   now: () => number;
-  retry: { baseMs: number; maxAttempts: number };
+  retry: RetrySchedule;
+  /** Called after a delivery changed the records (an event delivered), to save them. */
+  onChange?: () => void;
   /** How long one delivery may take before it counts as failed. */
   timeoutMs?: number;
   log?: (line: string) => void;
@@ -63,11 +85,26 @@ export class WebhookDispatcher {
     return event;
   }
 
-  /** Resolves once every queued delivery has succeeded or used up its attempts. */
+  /**
+   * Resolves once every queued delivery has succeeded or given up. With no maxAttempts a
+   * receiver that keeps failing is retried for days: close() the fake rather than wait.
+   */
   async idle(): Promise<void> {
     while (this.queues.size > 0) {
       await Promise.all([...this.queues.values()]);
     }
+  }
+
+  /** Queues again the events a previous run recorded but never delivered (a restart). */
+  resume(): number {
+    let n = 0;
+    const events = [...this.state.events.values()].filter((e) => e.pending_webhooks > 0).sort((a, b) => a.created - b.created);
+    for (const event of events) {
+      if (!this.url || this.closed || this.tooOld(event)) continue;
+      this.enqueue((event.data.object as { id: string }).id, event);
+      n++;
+    }
+    return n;
   }
 
   close(): void {
@@ -91,25 +128,32 @@ export class WebhookDispatcher {
 
   private async deliver(objectId: string, event: StripeEvent): Promise<void> {
     const payload = JSON.stringify(event, null, 2);
-    const { baseMs, maxAttempts } = this.opts.retry;
-    for (let attempt = 1; attempt <= maxAttempts; attempt++) {
+    const maxAttempts = this.opts.retry.maxAttempts ?? Infinity;
+    for (let attempt = 1; ; attempt++) {
       const url = this.url;
       if (this.closed || !url) return;
       const result = await this.attempt(objectId, event, payload, url, attempt);
       if (result.ok) {
         const stored = this.state.events.get(event.id);
         if (stored) stored.pending_webhooks = 0;
+        this.opts.onChange?.();
         return;
       }
-      if (attempt < maxAttempts) {
-        const delay = baseMs * 2 ** (attempt - 1);
-        const why = result.status !== null ? `HTTP ${result.status}` : result.error;
-        this.opts.log?.(`webhook ${event.type} ${event.id} to ${url}: attempt ${attempt} failed (${why}); retrying in ${delay} ms`);
-        await this.sleep(delay);
-      } else {
-        this.opts.log?.(`webhook ${event.type} ${event.id} gave up after ${maxAttempts} attempts`);
+      const delay = retryDelayMs(attempt, this.opts.retry);
+      if (attempt >= maxAttempts || this.tooOld(event, delay)) {
+        this.opts.log?.(`webhook ${event.type} ${event.id} gave up after ${attempt} attempts`);
+        this.opts.onChange?.();
+        return;
       }
+      const why = result.status !== null ? `HTTP ${result.status}` : result.error;
+      this.opts.log?.(`webhook ${event.type} ${event.id} to ${url}: attempt ${attempt} failed (${why}); retrying in ${delay} ms`);
+      await this.sleep(delay);
     }
+  }
+
+  /** Whether the next try (`afterMs` from now) would fall outside the retry window. */
+  private tooOld(event: StripeEvent, afterMs = 0): boolean {
+    return this.opts.now() + afterMs - event.created * 1000 > (this.opts.retry.maxAgeMs ?? STRIPE_RETRY_WINDOW_MS);
   }
 
   private async attempt(
@@ -161,6 +205,8 @@ export class WebhookDispatcher {
         }, ms),
         resolve,
       };
+      // A pending retry must never keep a process (a test run, a script) alive on its own.
+      entry.timer.unref();
       this.timers.add(entry);
     });
   }
