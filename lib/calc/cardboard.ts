@@ -104,57 +104,162 @@ function longestEdgeAngle(ring: XY[]): number {
 
 /**
  * Sheets of sl (along x) × sw from the outline's lower-left corner, sheet i starting at
- * i·(sl − o). Each sheet is given the slab between the right edge of the sheet before it and
- * its own right edge; the slabs tile the plane and each lies inside its sheet, so counting
- * the slabs that share area with the outline counts exactly the sheets needed. On a
- * rectangle this gives the same count as sheetsAlong.
+ * i·(sl − o). Each sheet is given the cell between the far edges of the sheets before it
+ * and its own far edges; the cells tile the plane and each lies inside its sheet, so
+ * counting the cells that share area with the outline counts exactly the sheets needed. On
+ * a rectangle this gives the same count as sheetsAlong.
+ *
+ * The area a cell shares with the outline comes from Green's theorem: it is the sum over the
+ * outline's edges of ∫ (clamp(x, xa, xb) − xa) dy, taken over the part of each edge inside
+ * the cell's row. An edge adds its own term only to the few cells its x-extent spans; to
+ * every cell wholly left of it, it adds (xb − xa)·dy. So each row is walked from edge to
+ * edge, and the cells between (wholly inside or wholly outside the outline) are counted in
+ * one step. The work grows with the edges and the cells they cross, not with the bounding
+ * box: a long thin L costs no more than its outline.
  */
 function countSheetsOverRings(rings: XY[][], sl: number, sw: number, o: number): number {
   const xs = rings[0].map((p) => p[0]);
   const ys = rings[0].map((p) => p[1]);
-  const x0 = Math.min(...xs);
-  const y0 = Math.min(...ys);
-  const cols = sheetsAlong(Math.max(...xs) - x0, sl, o);
-  const rows = sheetsAlong(Math.max(...ys) - y0, sw, o);
-  // The first and last slabs run out to infinity so rounding at the outline's extremes
-  // cannot leave a sliver uncounted.
-  const slab = (start: number, pitch: number, i: number, n: number): [number, number] => [
-    i === 0 ? -Infinity : start + o + (i - 1) * pitch,
-    i === n - 1 ? Infinity : start + o + i * pitch,
-  ];
-  // A slab that only grazes the outline along an edge shares (numerically almost) no area.
+  const cols = slabs(Math.min(...xs), Math.max(...xs), sl, o);
+  const rows = slabs(Math.min(...ys), Math.max(...ys), sw, o);
+  // A cell that only grazes the outline along an edge shares (numerically almost) no area.
   const minShared = 1e-6 * sl * sw;
+
+  // Weighted so the outline counts positive and holes negative, whichever way each was drawn.
+  const edges: Edge[] = [];
+  rings.forEach((ring, r) => {
+    const w = (r === 0 ? 1 : -1) * Math.sign(shoelace(ring));
+    ring.forEach(([ax, ay], i) => {
+      const [bx, by] = ring[(i + 1) % ring.length];
+      // A level edge has no dy, so it adds nothing to any cell.
+      if (ay !== by && w !== 0) edges.push({ ax, ay, bx, by, w, ylo: Math.min(ay, by), yhi: Math.max(ay, by) });
+    });
+  });
+  edges.sort((a, b) => a.ylo - b.ylo);
+
+  const countRow = rowCounter(cols, minShared);
   let count = 0;
-  for (let r = 0; r < rows; r++) {
-    const [ya, yb] = slab(y0, sw - o, r, rows);
-    const band = rings.map((ring) => clip(ring, 1, ya, yb));
-    for (let c = 0; c < cols; c++) {
-      const [xa, xb] = slab(x0, sl - o, c, cols);
-      const [outer, ...holes] = band.map((ring) => Math.abs(shoelace(clip(ring, 0, xa, xb))));
-      const shared = outer - holes.reduce((a, b) => a + b, 0);
-      if (shared > minShared) count++;
-    }
+  let next = 0;
+  let active: Edge[] = [];
+  for (let r = 0; r < rows.n; r++) {
+    const ya = rows.lo(r);
+    const yb = rows.hi(r);
+    while (next < edges.length && edges[next].ylo < yb) active.push(edges[next++]);
+    active = active.filter((e) => e.yhi > ya);
+    if (active.length > 0) count += countRow(active, ya, yb);
   }
   return Math.max(1, count);
 }
 
-/** Sutherland–Hodgman clip of a ring to lo ≤ p[axis] ≤ hi; fine for concave rings against a convex slab. */
-function clip(ring: XY[], axis: 0 | 1, lo: number, hi: number): XY[] {
-  return clipHalf(clipHalf(ring, axis, lo, 1), axis, hi, -1);
+interface Edge {
+  ax: number;
+  ay: number;
+  bx: number;
+  by: number;
+  /** +1 or −1: the sign that makes the ring's enclosed area count the right way. */
+  w: number;
+  ylo: number;
+  yhi: number;
 }
 
-function clipHalf(ring: XY[], axis: 0 | 1, bound: number, side: 1 | -1): XY[] {
-  const inside = (p: XY) => side * (p[axis] - bound) >= 0;
-  const out: XY[] = [];
-  ring.forEach((cur, i) => {
-    const prev = ring[(i + ring.length - 1) % ring.length];
-    if (inside(cur) !== inside(prev)) {
-      const t = (bound - prev[axis]) / (cur[axis] - prev[axis]);
-      out.push([prev[0] + t * (cur[0] - prev[0]), prev[1] + t * (cur[1] - prev[1])]);
+interface Slabs {
+  n: number;
+  lo: (i: number) => number;
+  hi: (i: number) => number;
+  /** The slab holding v (rounding may be one off; callers widen by one). */
+  at: (v: number) => number;
+}
+
+/**
+ * The sheets' slabs along one axis over [start, end]: slab i runs from the far edge of sheet
+ * i − 1 to the far edge of sheet i. In the layout the first and last run out to infinity;
+ * here they stop one pitch past the outline, which lies within [start, end], so no cell's
+ * shared area changes.
+ */
+function slabs(start: number, end: number, sheet: number, o: number): Slabs {
+  const pitch = sheet - o;
+  const n = sheetsAlong(end - start, sheet, o);
+  return {
+    n,
+    lo: (i) => (i === 0 ? start - pitch : start + o + (i - 1) * pitch),
+    hi: (i) => (i === n - 1 ? end + pitch : start + o + i * pitch),
+    at: (v) => Math.min(n - 1, Math.max(0, Math.floor((v - start - o) / pitch) + 1)),
+  };
+}
+
+/**
+ * Counts the cells of one row (ya..yb) that share more than minShared with the outline.
+ * Scratch arrays are one per column and reused row after row; only the columns a row
+ * touches are read and cleared.
+ */
+function rowCounter(cols: Slabs, minShared: number) {
+  const exact = new Float64Array(cols.n);
+  // cover[k]: dy that every column at or left of k gets, times its width.
+  const cover = new Float64Array(cols.n);
+  const seen = new Uint8Array(cols.n);
+  const keys: number[] = [];
+  const pitch = cols.n > 2 ? cols.hi(1) - cols.lo(1) : 0;
+  const touch = (c: number) => {
+    if (!seen[c]) {
+      seen[c] = 1;
+      keys.push(c);
     }
-    if (inside(cur)) out.push(cur);
-  });
-  return out;
+  };
+  return (active: Edge[], ya: number, yb: number): number => {
+    touch(0);
+    touch(cols.n - 1);
+    for (const e of active) {
+      const span = e.by - e.ay;
+      const ta = Math.min(1, Math.max(0, (ya - e.ay) / span));
+      const tb = Math.min(1, Math.max(0, (yb - e.ay) / span));
+      const t0 = Math.min(ta, tb);
+      const t1 = Math.max(ta, tb);
+      const dy = (t1 - t0) * span * e.w;
+      if (dy === 0) continue;
+      const u = e.ax + t0 * (e.bx - e.ax);
+      const v = e.ax + t1 * (e.bx - e.ax);
+      const c0 = Math.max(0, cols.at(Math.min(u, v)) - 1);
+      const c1 = Math.min(cols.n - 1, cols.at(Math.max(u, v)) + 1);
+      for (let c = c0; c <= c1; c++) {
+        exact[c] += dy * meanClampedOffset(u, v, cols.lo(c), cols.hi(c));
+        touch(c);
+      }
+      if (c0 > 0) {
+        cover[c0 - 1] += dy;
+        touch(c0 - 1);
+      }
+    }
+    // Walk right to left. Between two touched columns the cover is the same, and every
+    // such column is one pitch wide (the first and last columns are always touched).
+    keys.sort((a, b) => b - a);
+    let s = 0;
+    let above = cols.n - 1;
+    let count = 0;
+    for (const k of keys) {
+      if (above > k && pitch * s > minShared) count += above - k;
+      s += cover[k];
+      if (exact[k] + (cols.hi(k) - cols.lo(k)) * s > minShared) count++;
+      above = k - 1;
+      exact[k] = 0;
+      cover[k] = 0;
+      seen[k] = 0;
+    }
+    keys.length = 0;
+    return count;
+  };
+}
+
+/** Mean of clamp(x, a, b) − a for x running evenly from u to v. */
+function meanClampedOffset(u: number, v: number, a: number, b: number): number {
+  const [p, q] = u < v ? [u, v] : [v, u];
+  if (p === q) return Math.min(b, Math.max(a, p)) - a;
+  let sum = 0;
+  const m0 = Math.max(p, a);
+  const m1 = Math.min(q, b);
+  if (m1 > m0) sum += ((m0 - a + (m1 - a)) / 2) * (m1 - m0);
+  const r0 = Math.max(p, b);
+  if (q > r0) sum += (b - a) * (q - r0);
+  return sum / (q - p);
 }
 
 function shoelace(ring: XY[]): number {

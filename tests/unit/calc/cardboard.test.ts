@@ -4,7 +4,8 @@ import { destination, point } from "@turf/turf";
 import type { Polygon } from "geojson";
 import { polygonArea } from "@/lib/calc/area";
 import { cardboardFor } from "@/lib/calc/cardboard";
-import { CARDBOARD_OVERLAP_CM, DEFAULT_CARDBOARD_SHEET } from "@/lib/calc/facts";
+import { CARDBOARD_OVERLAP_CM, DEFAULT_CARDBOARD_SHEET, EARTH_MEAN_RADIUS_M } from "@/lib/calc/facts";
+import { referencePolygonSheets } from "../../helpers/cardboard-reference";
 
 /** A polygon drawn in metres (x east, y north) about a point, turned by `turn` radians. */
 function polygonFromMetres(xy: [number, number][], turn = 0, lat = 51.5, lng = -0.1): Polygon {
@@ -83,6 +84,25 @@ describe("cardboardFor a polygon", () => {
   });
 });
 
+describe("cardboardFor a long thin outline", () => {
+  it("counts an L with 4 m wide arms 1,200 m and 1,000 m long by its arms, not its bounding box", () => {
+    // Drawn on the equator, where a degree is the same length both ways, so the local
+    // projection keeps the L's right angles; the 1,200 m edge is the longest, so the grid
+    // lines up with it and starts at the L's outer corner. By hand, 1.0 × 0.8 m sheets,
+    // 0.15 m seams; cell i along an axis ends at 0.15 + i × pitch:
+    //   long side along x (pitch 0.85 × 0.65): columns ceil(1199.85/0.85) = 1412, rows
+    //     ceil(999.85/0.65) = 1539; the arm along x (y ≤ 4) meets rows 0–6 (row 6 ends at
+    //     4.05), the arm along y (x ≤ 4) meets columns 0–5 (column 5 ends at 4.40):
+    //     7 × 1412 + 6 × 1539 − 7 × 6 = 19,076.
+    //   turned (pitch 0.65 × 0.85): 6 × ceil(1199.85/0.65) + 7 × ceil(999.85/0.85) − 42
+    //     = 6 × 1846 + 7 × 1177 − 42 = 19,273. Fewer wins.
+    const k = (Math.PI / 180) * EARTH_MEAN_RADIUS_M;
+    const xy = [[0, 0], [1200, 0], [1200, 4], [4, 4], [4, 1000], [0, 1000], [0, 0]];
+    const bed: Polygon = { type: "Polygon", coordinates: [xy.map(([x, y]) => [10 + x / k, y / k])] };
+    expect(cardboardFor({ polygon: bed }).sheets).toBe(19_076);
+  });
+});
+
 describe("cardboard properties (fast-check)", () => {
   const sheet = fc.record({
     sheet_length_m: fc.double({ min: 0.35, max: 3, noNaN: true }),
@@ -112,6 +132,30 @@ describe("cardboard properties (fast-check)", () => {
         expect(cardboardFor({ polygon: bed }, opts).area_m2).toBeGreaterThanOrEqual(polygonArea(bed));
       }),
       { numRuns: 60 },
+    );
+  });
+
+  it("counts every outline exactly as clipping each cell of the grid does", () => {
+    // The reference clips the outline against every cell of its bounding-box grid (the
+    // first way this was written); the fast count must agree sheet for sheet, holes included.
+    const star = fc.array(fc.double({ min: 1, max: 12, noNaN: true }), { minLength: 3, maxLength: 14 });
+    const hole = fc.option(fc.record({ r: fc.double({ min: 0.2, max: 0.9, noNaN: true }), n: fc.integer({ min: 3, max: 7 }) }));
+    fc.assert(
+      fc.property(star, hole, fc.double({ min: 0, max: Math.PI, noNaN: true }), fc.double({ min: -60, max: 60, noNaN: true }), sheet, (radii, h, turn, lat, opts) => {
+        const xy = radii.map((r, i): [number, number] => {
+          const a = (2 * Math.PI * i) / radii.length;
+          return [r * Math.cos(a), r * Math.sin(a)];
+        });
+        const bed = polygonFromMetres(xy, turn, lat, 10);
+        if (h) {
+          // A small regular polygon about the centre, inside the star's smallest radius.
+          const r = h.r * Math.min(...radii) * Math.cos(Math.PI / radii.length);
+          const ring = Array.from({ length: h.n }, (_, i): [number, number] => [r * Math.cos((2 * Math.PI * i) / h.n), r * Math.sin((2 * Math.PI * i) / h.n)]);
+          bed.coordinates.push(polygonFromMetres(ring, turn, lat, 10).coordinates[0]);
+        }
+        expect(cardboardFor({ polygon: bed }, opts).sheets).toBe(referencePolygonSheets(bed, opts));
+      }),
+      { numRuns: 150 },
     );
   });
 
