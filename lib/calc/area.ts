@@ -9,6 +9,7 @@ import {
   polygon as turfPolygon,
 } from "@turf/turf";
 import type { Polygon, Position } from "geojson";
+import { EARTH_MEAN_RADIUS_M } from "./facts";
 import { assertPositiveFinite } from "./numbers";
 
 export type { Polygon, Position };
@@ -28,6 +29,18 @@ export function polygonArea(geometry: Polygon): number {
 export function polygonCentroid(geometry: Polygon): { lat: number; lng: number } {
   const [lng, lat] = centerOfMass(geometry).geometry.coordinates;
   return { lat, lng };
+}
+
+/**
+ * The longer side, in metres, of the outline's latitude/longitude bounding box: north–south
+ * along a meridian, east–west along the box's middle latitude (Turf's sphere). How far a
+ * bed spreads, whatever its area.
+ */
+export function polygonSpan(geometry: Polygon): number {
+  const [west, south, east, north] = bbox(geometry);
+  const k = (Math.PI / 180) * EARTH_MEAN_RADIUS_M;
+  const midLat = ((south + north) / 2) * (Math.PI / 180);
+  return Math.max((north - south) * k, (east - west) * k * Math.cos(midLat));
 }
 
 function isLngLat(p: Position): boolean {

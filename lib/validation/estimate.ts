@@ -2,12 +2,17 @@
 // field it is about, so the handler can put a message beside each field.
 import type { Polygon } from "geojson";
 import { z } from "zod";
-import { polygonArea, polygonProblem } from "@/lib/calc/area";
+import { polygonArea, polygonProblem, polygonSpan } from "@/lib/calc/area";
 import { CARDBOARD_OVERLAP_CM, LAYER_DEPTH_CM, MOISTURE_PCT } from "@/lib/calc/facts";
 import { isCalendarDate } from "@/lib/calc/timeline";
 
 /** A product limit, not a fact: a hectare is already a market garden, not a bed. */
 export const MAX_BED_AREA_M2 = 10_000;
+/**
+ * How far an outline may spread (the longer side of its bounding box), a product limit: a
+ * bed is worked from its edges, and the cardboard count's work grows with the spread.
+ */
+export const MAX_OUTLINE_SPAN_M = 500;
 /** Longest side we accept; the area cap is the real limit. */
 const MAX_SIDE_M = 1_000;
 /** Outline detail we accept per ring; a hand-drawn bed needs a few dozen points at most. */
@@ -59,6 +64,8 @@ export const bedSchema = z
       const problem = polygonProblem(bed.polygon);
       if (problem) {
         ctx.addIssue({ code: "custom", path: problem.ring === null ? ["polygon"] : ["polygon", "coordinates", problem.ring], message: problem.message });
+      } else if (polygonSpan(bed.polygon) > MAX_OUTLINE_SPAN_M) {
+        ctx.addIssue({ code: "custom", path: ["polygon"], message: `An outline can spread at most ${MAX_OUTLINE_SPAN_M} m from end to end` });
       } else if (polygonArea(bed.polygon) > MAX_BED_AREA_M2) {
         ctx.addIssue({ code: "custom", path: ["polygon"], message: `A bed can be at most ${MAX_BED_AREA_M2.toLocaleString("en-US")} m²` });
       }

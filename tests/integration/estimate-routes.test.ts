@@ -50,13 +50,8 @@ describe("POST /api/estimate", () => {
   });
 
   // Squares drawn in metres near the demo town, for outlines with holes.
-  const sq = (x: number, y: number, side: number) => {
-    const lat = 52.2;
-    const dLat = 1 / 111_195;
-    const dLng = 1 / (111_195 * Math.cos((lat * Math.PI) / 180));
-    const at = (mx: number, my: number) => [0.85 + mx * dLng, lat + my * dLat];
-    return [at(x, y), at(x + side, y), at(x + side, y + side), at(x, y + side), at(x, y)];
-  };
+  const at = (mx: number, my: number) => [0.85 + mx / (111_195 * Math.cos((52.2 * Math.PI) / 180)), 52.2 + my / 111_195];
+  const sq = (x: number, y: number, side: number) => [at(x, y), at(x + side, y), at(x + side, y + side), at(x, y + side), at(x, y)];
   const outline = (...rings: number[][][]) => ({ bed: { polygon: { type: "Polygon", coordinates: rings } } });
 
   it("takes an outline with a hole inside it and subtracts the hole", async () => {
@@ -75,6 +70,8 @@ describe("POST /api/estimate", () => {
     ["a hole touching the outline", outline(sq(0, 0, 10), sq(0, 3, 4)), "bed.polygon"],
     ["holes overlapping each other", outline(sq(0, 0, 10), sq(2, 2, 4), sq(4, 4, 4)), "bed.polygon"],
     ["a hole inside another hole", outline(sq(0, 0, 10), sq(2, 2, 6), sq(3, 3, 2)), "bed.polygon"],
+    // An L with 4 m wide arms 1,200 m long: 9,584 m², under the area cap, but it spreads 1.2 km.
+    ["an outline spreading 1,200 m", outline([at(0, 0), at(1200, 0), at(1200, 4), at(4, 4), at(4, 1200), at(0, 1200), at(0, 0)]), "bed.polygon"],
     ["negative length", { bed: { length_m: -3, width_m: 1 } }, "bed.length_m"],
     ["zero width", { bed: { length_m: 3, width_m: 0 } }, "bed.width_m"],
     ["a bed over 10,000 m²", { bed: { length_m: 200, width_m: 60 } }, "bed"],

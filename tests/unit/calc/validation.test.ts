@@ -31,7 +31,10 @@ describe("estimateSchema", () => {
     ["an open outline", { bed: { polygon: { type: "Polygon", coordinates: [[[0, 0], [0.001, 0], [0.001, 0.001], [0, 0.001], [0.0001, 0]]] } } }, "bed.polygon.coordinates.0"],
     ["a ring with three positions", { bed: { polygon: { type: "Polygon", coordinates: [[[0, 0], [0.001, 0], [0, 0]]] } } }, "bed.polygon.coordinates.0"],
     ["a longitude out of range", { bed: { polygon: { type: "Polygon", coordinates: [[[0, 0], [190, 0], [190, 1], [0, 1], [0, 0]]] } } }, "bed.polygon.coordinates.0.1.0"],
-    ["an outline over a hectare", { bed: { polygon: square(0.01) } }, "bed.polygon"],
+    // 0.004° at 50° N: 445 m north–south by 286 m east–west, 12.7 ha but under the 500 m spread.
+    ["an outline over a hectare", { bed: { polygon: square(0.004) } }, "bed.polygon"],
+    // 0.009° of latitude is 1,001 m; 0.00005° of longitude at 50° N is 3.6 m: 0.36 ha.
+    ["an outline spreading over 500 m", { bed: { polygon: { type: "Polygon", coordinates: [[[0, 50], [0.00005, 50], [0.00005, 50.009], [0, 50.009], [0, 50]]] } } }, "bed.polygon"],
     ["not a Polygon", { bed: { polygon: { type: "Point", coordinates: [0, 0] } } }, "bed.polygon.type"],
     ["leaves too deep", { bed: { length_m: 2, width_m: 2 }, layers: { leaves: { depth_cm: 31 } } }, "layers.leaves.depth_cm"],
     ["straw too thin", { bed: { length_m: 2, width_m: 2 }, layers: { straw: { depth_cm: 1 } } }, "layers.straw.depth_cm"],
@@ -58,6 +61,16 @@ describe("estimateSchema", () => {
     expect(paths(estimateSchema.safeParse({ bed: { polygon } }))).toContain("bed.polygon.coordinates");
     polygon.coordinates.pop();
     expect(estimateSchema.safeParse({ bed: { polygon } }).success).toBe(true);
+  });
+
+  it("says which limit an outline broke: the spread or the area", () => {
+    const message = (input: unknown) => {
+      const r = estimateSchema.safeParse(input);
+      return r.success ? "" : r.error.issues.map((i) => i.message).join(" ");
+    };
+    expect(message({ bed: { polygon: square(0.004) } })).toMatch(/10,000 m²/);
+    expect(message({ bed: { polygon: square(0.005) } })).toMatch(/500 m/); // 556 m north–south
+    expect(estimateSchema.safeParse({ bed: { polygon: square(0.0008) } }).success).toBe(true); // 89 × 57 m
   });
 
   it("gives every issue a message", () => {
