@@ -8,11 +8,30 @@ import { StatusBadge } from "./status-badge";
 import { ReservationActions } from "./reservation-actions";
 import { MessagesPanel } from "./message-thread";
 import { ReviewForm } from "./review-form";
+import { OrderPanel } from "@/components/grower/order-panel";
 
 const BY = { gardener: "the gardener", supplier: "the supplier", duffbank: "Duffbank" } as const;
 
+/** A posted live culture: where the parcel is, in place of the pickup time. */
+function parcelStep(v: ReservationView): string | null {
+  const mine = v.side === "gardener";
+  if (v.status === "collected") return v.closed_at ? `Delivered ${formatLocal(v.closed_at)}.` : "Delivered.";
+  if (v.status !== "confirmed") return null;
+  switch (v.order?.stage) {
+    case "paid":
+      return mine ? `${v.supplier.name} packs it and posts it on one of their posting days.` : "Pack it, then mark it shipped with the carrier and tracking.";
+    case "packed":
+      return mine ? `Packed: it goes in the post on ${v.supplier.name}'s next posting day.` : "Packed: mark it shipped once it is in the post.";
+    case "shipped":
+      return mine ? `In the post with ${v.order.carrier}. Mark it arrived when it comes.` : "In the post; mark it delivered when the tracking says so, or the buyer will.";
+    default:
+      return null;
+  }
+}
+
 function nextStep(v: ReservationView): string | null {
   const other = v.side === "gardener" ? v.supplier.name : v.gardener.name;
+  if (v.order?.fulfilment === "post" && (v.status === "confirmed" || v.status === "collected")) return parcelStep(v);
   switch (v.status) {
     case "held":
       if (v.payment.state === "awaiting") {
@@ -112,7 +131,7 @@ export function ReservationCard({ v }: { v: ReservationView }) {
             <dt className="font-medium text-humus-600">Address</dt>
             <dd data-testid="pickup-address">{v.pickup.address}</dd>
           </>
-        ) : v.side === "gardener" && v.status === "held" ? (
+        ) : v.side === "gardener" && v.status === "held" && v.order?.fulfilment !== "post" ? (
           <>
             <dt className="font-medium text-humus-600">Address</dt>
             <dd>Sent to you once {v.supplier.name} accepts.</dd>
@@ -133,6 +152,8 @@ export function ReservationCard({ v }: { v: ReservationView }) {
           </>
         ) : null}
       </dl>
+
+      <OrderPanel v={v} />
 
       {v.payment.problem ? (
         <p role="alert" className="rounded-lg bg-ember-100 p-3 text-sm text-ember-800">

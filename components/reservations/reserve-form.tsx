@@ -13,7 +13,8 @@ import { formatLocal } from "@/lib/reservations/pickup-times";
 import { CANCEL_NOTICE_HOURS, SUPPLIER_REPLY_HOURS } from "@/lib/reservations/policy";
 import type { UnitSystem } from "@/lib/calc/units";
 import type { ReserveOffer } from "@/lib/services/load-reserve-offer";
-import { Field } from "@/components/ui/field";
+import { Field, TextAreaField } from "@/components/ui/field";
+import { dayLabel } from "@/lib/reservations/culture-orders";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 
@@ -24,12 +25,22 @@ const UNIT_QUESTION: Record<string, string> = { bales: "How many bales", bags: "
 
 export function ReserveForm({ offer, unitSystem, cautions }: { offer: ReserveOffer; unitSystem: UnitSystem; cautions: string[] }) {
   const router = useRouter();
+  const culture = offer.culture;
   const [error, setError] = useState<string | null>(null);
   const whole = WHOLE_UNITS.has(offer.unit);
   const form = useForm<Values>({
     resolver: zodResolver(reserveOneSchema),
-    defaultValues: { listing_id: offer.id, quantity: 1, pickup_window_id: offer.windows[0]?.id ?? null, bed_id: null },
+    defaultValues: {
+      listing_id: offer.id,
+      quantity: 1,
+      pickup_window_id: offer.windows[0]?.id ?? null,
+      bed_id: null,
+      // A live culture is collected where the grower offers it, posted otherwise.
+      fulfilment: culture ? (culture.pickup ? "pickup" : "post") : null,
+      ship_to: "",
+    },
   });
+  const posted = useWatch({ control: form.control, name: "fulfilment" }) === "post";
   const quantity = Number(useWatch({ control: form.control, name: "quantity" }));
   const price = priceFor(offer.price_cents, Number.isFinite(quantity) ? quantity : 0);
   const equivalent = equivalentOf(offer, quantity, unitSystem);
@@ -39,7 +50,9 @@ export function ReserveForm({ offer, unitSystem, cautions }: { offer: ReserveOff
     setError(null);
     let answer: Answer;
     try {
-      answer = await apiFetch<Answer>("/api/reservations", { body: values });
+      // A parcel has no pickup window; a collected culture has no postal address.
+      const body = values.fulfilment === "post" ? { ...values, pickup_window_id: null } : { ...values, ship_to: null };
+      answer = await apiFetch<Answer>("/api/reservations", { body });
     } catch (err) {
       if (isApiError(err) && err.fields) for (const [name, message] of Object.entries(err.fields)) form.setError(name as keyof Values, { message });
       setError(isApiError(err) ? err.message : "We could not reserve it. Please try again.");
@@ -70,28 +83,71 @@ export function ReserveForm({ offer, unitSystem, cautions }: { offer: ReserveOff
         {equivalent ? <p className="-mt-3 text-sm text-humus-700">That is {equivalent}.</p> : null}
       </div>
 
-      <fieldset className="flex flex-col gap-2">
-        <legend className="mb-1 font-medium">When you will collect</legend>
-        {offer.windows.map((w) => (
-          <label key={w.id} className="flex items-start gap-3 rounded-lg p-2 ring-1 ring-humus-200">
-            <input type="radio" value={w.id} {...form.register("pickup_window_id", { setValueAs: (v) => v || null })} className="mt-1 h-5 w-5" />
+      {culture ? (
+        <fieldset className="flex flex-col gap-2" aria-describedby="fulfilment-error">
+          <legend className="mb-1 font-medium">How the worms reach you</legend>
+          {culture.pickup ? (
+            <label className="flex items-start gap-3 rounded-lg p-2 ring-1 ring-humus-200">
+              <input type="radio" value="pickup" {...form.register("fulfilment")} className="mt-1 h-5 w-5" />
+              <span>
+                <span className="font-medium">Collect them</span>
+                <span className="block text-sm text-humus-600">From {offer.supplier.name}, at a time below; the address comes when they accept.</span>
+              </span>
+            </label>
+          ) : null}
+          {culture.ships ? (
+            <label className={`flex items-start gap-3 rounded-lg p-2 ring-1 ring-humus-200 ${culture.can_post ? "" : "opacity-70"}`}>
+              <input type="radio" value="post" disabled={!culture.can_post} {...form.register("fulfilment")} className="mt-1 h-5 w-5" />
+              <span>
+                <span className="font-medium">Post them to me</span>
+                <span className="block text-sm text-humus-600">
+                  {culture.can_post
+                    ? `${culture.shipping.notice}${culture.next_posting_day ? ` Ordered now, it goes out on ${dayLabel(culture.next_posting_day)} at the earliest.` : ""}`
+                    : culture.shipping.notice}
+                </span>
+              </span>
+            </label>
+          ) : null}
+          <p id="fulfilment-error" aria-live="polite" className="min-h-5 text-sm text-ember-600">
+            {form.formState.errors.fulfilment?.message ?? ""}
+          </p>
+          {posted ? (
+            <TextAreaField
+              label="Postal address"
+              rows={3}
+              autoComplete="shipping street-address"
+              hint={`Only you and ${offer.supplier.name} see it.`}
+              {...form.register("ship_to")}
+              error={form.formState.errors.ship_to?.message}
+            />
+          ) : null}
+        </fieldset>
+      ) : null}
+
+      {posted ? null : (
+        <fieldset className="flex flex-col gap-2">
+          <legend className="mb-1 font-medium">When you will collect</legend>
+          {offer.windows.map((w) => (
+            <label key={w.id} className="flex items-start gap-3 rounded-lg p-2 ring-1 ring-humus-200">
+              <input type="radio" value={w.id} {...form.register("pickup_window_id", { setValueAs: (v) => v || null })} className="mt-1 h-5 w-5" />
+              <span>
+                <span className="font-medium">{w.label}</span>
+                <span className="block text-sm text-humus-600">Next: {formatLocal(w.next_start)}</span>
+              </span>
+            </label>
+          ))}
+          <label className="flex items-start gap-3 rounded-lg p-2 ring-1 ring-humus-200">
+            <input type="radio" value="" {...form.register("pickup_window_id", { setValueAs: (v) => v || null })} className="mt-1 h-5 w-5" />
             <span>
-              <span className="font-medium">{w.label}</span>
-              <span className="block text-sm text-humus-600">Next: {formatLocal(w.next_start)}</span>
+              <span className="font-medium">No fixed time</span>
+              <span className="block text-sm text-humus-600">Agree a time with {offer.supplier.name} in the messages, within a week.</span>
             </span>
           </label>
-        ))}
-        <label className="flex items-start gap-3 rounded-lg p-2 ring-1 ring-humus-200">
-          <input type="radio" value="" {...form.register("pickup_window_id", { setValueAs: (v) => v || null })} className="mt-1 h-5 w-5" />
-          <span>
-            <span className="font-medium">No fixed time</span>
-            <span className="block text-sm text-humus-600">Agree a time with {offer.supplier.name} in the messages, within a week.</span>
-          </span>
-        </label>
-        <p aria-live="polite" className="min-h-5 text-sm text-ember-600">
-          {form.formState.errors.pickup_window_id?.message ?? ""}
-        </p>
-      </fieldset>
+          <p aria-live="polite" className="min-h-5 text-sm text-ember-600">
+            {form.formState.errors.pickup_window_id?.message ?? ""}
+          </p>
+        </fieldset>
+      )}
 
       <section aria-labelledby="cost-title" className="rounded-lg bg-moss-50 p-4 ring-1 ring-moss-200">
         <h2 id="cost-title" className="font-semibold">
@@ -100,7 +156,7 @@ export function ReserveForm({ offer, unitSystem, cautions }: { offer: ReserveOff
         <ul className="mt-2 list-disc pl-5 text-sm leading-relaxed text-humus-800">
           {offer.price_cents > 0 ? (
             <li>
-              {formatMoney(offer.price_cents, offer.currency)} per {quantityLabel(1, offer.unit).replace(/^1 /, "")}, paid by card on the next page. Refunded in full if {offer.supplier.name} declines or cancels, or if you cancel at least {CANCEL_NOTICE_HOURS} hours before your pickup.
+              {formatMoney(offer.price_cents, offer.currency)} per {quantityLabel(1, offer.unit).replace(/^1 /, "")}, paid by card on the next page. Refunded in full if {offer.supplier.name} declines or cancels, or if you cancel {posted ? "before it is packed" : `at least ${CANCEL_NOTICE_HOURS} hours before your pickup`}.
             </li>
           ) : offer.deposit_cents > 0 ? (
             <li>
@@ -113,16 +169,21 @@ export function ReserveForm({ offer, unitSystem, cautions }: { offer: ReserveOff
             {offer.price_cents > 0 || offer.deposit_cents > 0
               ? `We hold it for ${offer.hold_minutes} minutes while you pay. `
               : `We hold it for ${offer.hold_minutes} minutes for ${offer.supplier.name} to accept. `}
-            {offer.auto_accept
-              ? "This listing accepts at once, and you get the address and your pickup code by e-mail."
-              : offer.price_cents > 0 || offer.deposit_cents > 0
-                ? `Once you have paid, ${offer.supplier.name} has up to ${SUPPLIER_REPLY_HOURS} hours to accept; then you get the address and your pickup code.`
-                : "When they accept, you get the address and your pickup code by e-mail."}
+            {posted
+              ? offer.auto_accept
+                ? "This listing accepts at once; you are e-mailed when it is packed and when it is posted, with the tracking."
+                : `Once you have paid, ${offer.supplier.name} has up to ${SUPPLIER_REPLY_HOURS} hours to accept; then you are e-mailed when it is packed and posted, with the tracking.`
+              : offer.auto_accept
+                ? "This listing accepts at once, and you get the address and your pickup code by e-mail."
+                : offer.price_cents > 0 || offer.deposit_cents > 0
+                  ? `Once you have paid, ${offer.supplier.name} has up to ${SUPPLIER_REPLY_HOURS} hours to accept; then you get the address and your pickup code.`
+                  : "When they accept, you get the address and your pickup code by e-mail."}
           </li>
+          {culture ? <li>A care sheet for the worms (bedding, temperature, feeding, when to add them to a bed) comes by e-mail when you order.</li> : null}
         </ul>
       </section>
 
-      <Notice tone="caution" title="Before you collect">
+      <Notice tone="caution" title={culture ? "Live animals" : "Before you collect"}>
         <ul className="list-disc pl-5">
           {cautions.map((c) => (
             <li key={c}>{c}</li>

@@ -5,15 +5,28 @@ import { ratingsFor } from "@/db/reviews";
 import { nextOccurrence, windowLabel } from "@/lib/reservations/pickup-times";
 import { holdMinutes } from "@/lib/reservations/policy";
 import { WHOLE_UNITS } from "@/lib/reservations/labels";
+import { cultureOffer } from "./culture-offer";
+
+function qualityOf(text: string): Record<string, unknown> {
+  try {
+    const v = JSON.parse(text);
+    return v && typeof v === "object" ? v : {};
+  } catch {
+    return {};
+  }
+}
 
 /** What the reserve page shows about a listing: public facts only, never the address. */
 export async function loadReserveOffer(listingId: string, now = new Date()) {
   const [l] = await listingsForReservation([listingId]);
   if (!l || l.status === "draft" || l.status === "hidden") return null;
-  const [windows, owner, ratings] = await Promise.all([
+  // Nobody can take 0.7 of a bale, whatever the listing's total says.
+  const available = WHOLE_UNITS.has(l.unit) ? Math.floor(availableOf(l) + 1e-9) : availableOf(l);
+  const [windows, owner, ratings, culture] = await Promise.all([
     pickupWindowsOf([l.id]),
     db()("users").first("display_name", "verified_at").where({ id: l.owner_id }),
     ratingsFor([l.owner_id]),
+    cultureOffer({ material: l.material_code, owner_id: l.owner_id, quality: qualityOf(l.quality), available }, now),
   ]);
   return {
     id: l.id,
@@ -24,8 +37,7 @@ export async function loadReserveOffer(listingId: string, now = new Date()) {
     unit: l.unit,
     unit_size: l.unit_size,
     unit_mass_kg: l.unit_mass_kg,
-    // Nobody can take 0.7 of a bale, whatever the listing's total says.
-    available: WHOLE_UNITS.has(l.unit) ? Math.floor(availableOf(l) + 1e-9) : availableOf(l),
+    available,
     max_per_reservation: l.max_per_reservation,
     price_cents: l.price_cents,
     // Deposits apply to free listings only (lib/reservations/policy.ts).
@@ -34,6 +46,8 @@ export async function loadReserveOffer(listingId: string, now = new Date()) {
     auto_accept: Boolean(l.auto_accept),
     hold_minutes: holdMinutes(),
     supplier: { name: owner?.display_name ?? "The supplier", verified: Boolean(owner?.verified_at), rating: ratings.get(l.owner_id) ?? null },
+    /** Live cultures only: how it can reach the buyer, and the grower's posting days or pause. */
+    culture,
     windows: windows
       .map((w) => ({ id: w.id, label: windowLabel(w), next: nextOccurrence(w, now) }))
       .filter((w) => w.next)

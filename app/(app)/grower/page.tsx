@@ -1,7 +1,10 @@
 import Link from "next/link";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
-import { cultureStock, growerShipping } from "@/lib/services/grower-shipping";
+import { cultureStock } from "@/lib/services/grower-shipping";
+import { growerOrders } from "@/lib/services/grower-orders";
+import { dayLabel } from "@/lib/reservations/culture-orders";
+import { OrderCard } from "@/components/grower/order-card";
 import { formatMoney } from "@/lib/payments/money";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";
@@ -15,14 +18,50 @@ export const dynamic = "force-dynamic";
 
 export default async function GrowerPage() {
   const user = await pageUser("/grower", ["grower"]);
-  const [stock, shipping] = await Promise.all([cultureStock(user.id), growerShipping(user.id)]);
+  const [stock, { orders, shipping, next_posting_day }] = await Promise.all([cultureStock(user.id), growerOrders(user.id)]);
+  const count = (stage: string) => orders.filter((o) => o.status === "confirmed" && o.order?.fulfilment === "post" && o.order.stage === stage).length;
+  const toAnswer = orders.filter((o) => o.status === "held").length;
+  const summary = [
+    toAnswer ? `${toAnswer} to answer` : null,
+    count("paid") ? `${count("paid")} to pack` : null,
+    count("packed") ? `${count("packed")} to post` : null,
+    count("shipped") ? `${count("shipped")} in the post` : null,
+  ].filter(Boolean);
   return (
     <div className="flex flex-col gap-6">
-      <PageHeading title="Worm cultures" lead="Stock left on each live-culture listing, the days you post, and a pause for heat or frost that buyers see on your listings." />
+      <PageHeading title="Worm cultures" lead="Open orders to pack and post, stock left on each live-culture listing, the days you post, and a pause for heat or frost that buyers see on your listings." />
       <Notice tone="caution" title="Live animals">
         Worms suffer in hot or freezing parcels: extension guidance puts their comfortable range at about 55–78 °F (13–26 °C). Some earthworm species are
         invasive in some regions — name the species on every listing, and buyers should follow their local rules.
       </Notice>
+
+      <Panel
+        id="orders"
+        title="Open orders"
+        action={
+          <Link href="/requests" className="text-sm text-moss-700 underline underline-offset-4">
+            All requests
+          </Link>
+        }
+      >
+        <p className="mb-4 text-sm text-humus-700" data-testid="orders-summary">
+          {shipping.paused
+            ? "Posting is paused: parcels wait until you resume it under Shipping days."
+            : next_posting_day
+              ? `Next posting day: ${dayLabel(next_posting_day)} (you post on ${shipping.ship_days.join(" and ")}).`
+              : null}
+          {summary.length ? ` ${summary.join(" · ")}.` : ""}
+        </p>
+        {orders.length === 0 ? (
+          <EmptyState title="No open orders">When someone orders one of your cultures, it appears here and in your e-mail, with their address if you post it.</EmptyState>
+        ) : (
+          <div className="flex flex-col gap-4">
+            {orders.map((v) => (
+              <OrderCard key={v.id} v={v} />
+            ))}
+          </div>
+        )}
+      </Panel>
 
       <Panel id="stock" title="Stock left">
         {stock.length === 0 ? (
@@ -57,12 +96,6 @@ export default async function GrowerPage() {
         </div>
       </Panel>
 
-      <Panel id="orders" title="Open orders">
-        <EmptyState title="Posted orders are not built yet" action={<Link href="/requests" className="font-semibold text-moss-700 underline underline-offset-4">Reservations of your cultures</Link>}>
-          Orders that follow a parcel (packed → shipped → delivered, with the care sheet by e-mail) come in a later step. Until then, people reserve and pay for
-          a culture like any listing, and you find them under Requests.
-        </EmptyState>
-      </Panel>
     </div>
   );
 }

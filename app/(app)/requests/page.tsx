@@ -10,7 +10,7 @@ export const metadata: Metadata = { title: "Requests" };
 
 const GROUPS: { id: string; title: string; empty: string; has: (v: ReservationView) => boolean }[] = [
   { id: "answer", title: "Waiting for your answer", empty: "No requests waiting.", has: (v) => v.status === "held" },
-  { id: "collect", title: "To be collected", empty: "Nobody is due to collect.", has: (v) => v.status === "confirmed" },
+  { id: "collect", title: "To be collected or posted", empty: "Nobody is due to collect, and nothing is waiting to be posted.", has: (v) => v.status === "confirmed" },
   { id: "done", title: "Done", empty: "", has: (v) => v.status !== "held" && v.status !== "confirmed" },
 ];
 

@@ -15,6 +15,8 @@ import { MaterialArt } from "@/components/listings/material-art";
 import { StatusActions } from "@/components/listings/status-actions";
 import { StatusBadge, VerifiedBadge } from "@/components/listings/status-badge";
 import { QualityList } from "@/components/listings/quality-list";
+import { CultureFacts } from "@/components/grower/culture-facts";
+import { cultureOffer } from "@/lib/services/culture-offer";
 
 // One read per request for both the title and the page.
 const load = cache(async (id: string) => {
@@ -51,6 +53,8 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
   const size = describeUnitSize(listing.unit, listing.unit_size, listing.unit_mass_kg, system);
   const rating = listing.supplier.rating;
   const [cover, ...more] = listing.photos;
+  // Live cultures: species, rough count, collection or post, and the grower's posting days or pause.
+  const culture = await cultureOffer({ material: listing.material, owner_id: listing.supplier.id, quality: listing.quality as Record<string, unknown>, available: listing.quantity_available });
 
   return (
     <article className="flex flex-col gap-6">
@@ -66,6 +70,12 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
             from <span className="font-medium">{listing.supplier.name}</span>
           </span>
           {listing.supplier.verified ? <VerifiedBadge /> : null}
+          {!managed && viewer?.id !== listing.supplier.id ? (
+            // The form asks a visitor to sign in first, then comes back here.
+            <Link href={`/report?user=${encodeURIComponent(listing.supplier.id)}`} className="text-sm text-humus-700 underline underline-offset-4">
+              Report this supplier
+            </Link>
+          ) : null}
           <span className="text-sm">{rating ? `★ ${rating.average.toFixed(1)} from ${rating.count} review${rating.count === 1 ? "" : "s"}` : "No reviews yet"}</span>
         </div>
       </header>
@@ -118,18 +128,22 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
             {listing.available_until ? <Fact label="Available until">{formatDay(listing.available_until)}</Fact> : null}
           </dl>
 
-          <section aria-labelledby="windows-title" className="rounded-lg bg-white p-4 ring-1 ring-humus-200">
-            <h2 id="windows-title" className="font-semibold">Pickup times</h2>
-            {listing.pickup_windows.length ? (
-              <ul className="mt-1 list-disc pl-5">
-                {listing.pickup_windows.map((w) => (
-                  <li key={w.id}>{formatWindow(w)}</li>
-                ))}
-              </ul>
-            ) : (
-              <p className="text-humus-700">Arrange a time when you reserve.</p>
-            )}
-          </section>
+          {culture ? <CultureFacts culture={culture} /> : null}
+
+          {culture && !culture.pickup ? null : (
+            <section aria-labelledby="windows-title" className="rounded-lg bg-white p-4 ring-1 ring-humus-200">
+              <h2 id="windows-title" className="font-semibold">Pickup times</h2>
+              {listing.pickup_windows.length ? (
+                <ul className="mt-1 list-disc pl-5">
+                  {listing.pickup_windows.map((w) => (
+                    <li key={w.id}>{formatWindow(w)}</li>
+                  ))}
+                </ul>
+              ) : (
+                <p className="text-humus-700">Arrange a time when you reserve.</p>
+              )}
+            </section>
+          )}
 
           <QualityList material={listing.material} quality={listing.quality} />
 

@@ -43,10 +43,17 @@ export default async function ReservePage({ params }: { params: Promise<{ id: st
         <EmptyState title="All of it is spoken for" action={back}>Holds that are not paid or accepted in time run out, so check back later.</EmptyState>
       ) : offer.status !== "active" ? (
         <EmptyState title="Not taking reservations" action={back}>This listing is {offer.status} at the moment.</EmptyState>
+      ) : offer.culture && !offer.culture.pickup && !offer.culture.can_post ? (
+        // A posted-only culture while the grower has paused posting for heat or frost.
+        <EmptyState title="Not posting right now" action={back}>
+          {offer.culture.shipping.notice}
+        </EmptyState>
       ) : (
         <div className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
           <p className="mb-4 text-sm text-humus-700">
-            {quantityLabel(offer.available, offer.unit)} available. The exact address is sent to you once {offer.supplier.name} has accepted.
+            {quantityLabel(offer.available, offer.unit)} available
+            {offer.culture ? `, about ${offer.culture.estimated_count.toLocaleString("en-GB")} worms${offer.culture.species ? ` of ${offer.culture.species}` : ""} (roughly 1,000 a pound)` : ""}.{" "}
+            {offer.culture && !offer.culture.pickup ? null : `The exact pickup address is sent to you once ${offer.supplier.name} has accepted.`}
           </p>
           <ReserveForm offer={offer} unitSystem={user.unit_system} cautions={pickupCautions({ material: offer.material, unit: offer.unit, unit_mass_kg: offer.unit_mass_kg })} />
         </div>
