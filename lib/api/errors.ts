@@ -45,8 +45,12 @@ export class ApiError extends Error {
 export function fieldErrors(error: z.ZodError): FieldErrors {
   const fields: FieldErrors = {};
   for (const issue of error.issues) {
-    const key = issue.path.length ? issue.path.map(String).join(".") : "_";
-    if (!fields[key]) fields[key] = issue.message;
+    // A key a strict object does not know is a field of its own: put the message beside it.
+    const paths = issue.code === "unrecognized_keys" ? issue.keys.map((k) => [...issue.path, k]) : [issue.path];
+    for (const path of paths) {
+      const key = path.length ? path.map(String).join(".") : "_";
+      if (!fields[key]) fields[key] = issue.message;
+    }
   }
   return fields;
 }

@@ -1,17 +1,17 @@
 import { z } from "zod";
-import { bedSchema, layersSchema } from "./estimate";
+import { bedSchema, layersSchema, strictObject } from "./estimate";
 import { isCalendarDate } from "@/lib/calc/timeline";
 import { locationSchema as location } from "./common";
 
 /** A saved bed: its shape and recipe are exactly what POST /api/estimate takes. */
-export const createBedSchema = z.object({
+export const createBedSchema = strictObject({
   name: z.string({ error: "Give the bed a name." }).trim().min(1, "Give the bed a name.").max(80, "Use at most 80 characters."),
   bed: bedSchema,
   layers: layersSchema.optional(),
   start_date: z.string().refine(isCalendarDate, "Give a real date as YYYY-MM-DD").nullable().optional(),
   /** Where the bed is; taken from the outline when it has one. */
   location: location.nullable().optional(),
-});
+}, "part of a saved bed");
 
 export const updateBedSchema = createBedSchema.partial();
 

@@ -21,6 +21,19 @@ const MAX_RINGS = 20;
 /** All rings together; bounds the ring-against-ring checks on a public route. */
 const MAX_POLYGON_POSITIONS = 2_000;
 
+/**
+ * An object that refuses keys it does not know (a typo or an unknown material would
+ * otherwise be dropped without a word); the message names the key and the keys it takes.
+ */
+export function strictObject<S extends z.core.$ZodLooseShape>(shape: S, what: string) {
+  const keys = Object.keys(shape);
+  const known = keys.length > 1 ? `${keys.slice(0, -1).join(", ")} or ${keys.at(-1)}` : keys.join("");
+  return z.strictObject(shape, {
+    error: (iss) =>
+      iss.code === "unrecognized_keys" ? `Not ${what}: ${iss.keys.map((k) => `"${k}"`).join(", ")}. Use ${known}.` : undefined,
+  });
+}
+
 const side = (label: string) =>
   z
     .number({ error: `${label} must be a number of metres` })
@@ -43,12 +56,14 @@ const polygonGeometry = z.object({
     .max(MAX_RINGS),
 });
 
-export const bedSchema = z
-  .object({
+export const bedSchema = strictObject(
+  {
     length_m: side("length").optional(),
     width_m: side("width").optional(),
     polygon: polygonGeometry.optional(),
-  })
+  },
+  "part of a bed's shape",
+)
   .superRefine((bed, ctx) => {
     const hasSides = bed.length_m !== undefined || bed.width_m !== undefined;
     if (bed.polygon && hasSides) {
@@ -88,20 +103,23 @@ const inRange = (what: string, unit: string, r: { min: number; max: number }) =>
 const ON_OFF_OR_SETTINGS = "Use true, false or an object of settings";
 
 const depthLayer = (r: { min: number; max: number }) =>
-  z.union([z.boolean(), z.object({ depth_cm: inRange("depth", "cm", r).optional() })], { error: ON_OFF_OR_SETTINGS });
+  z.union([z.boolean(), strictObject({ depth_cm: inRange("depth", "cm", r).optional() }, "a setting of this layer")], { error: ON_OFF_OR_SETTINGS });
 
 // Sheets shorter than this could not overlap a 30 cm seam and still cover anything.
 const sheetSide = z.number().min(0.35, "a sheet side must be at least 0.35 m").max(5, "a sheet side must be at most 5 m");
 
-export const layersSchema = z.object({
+export const layersSchema = strictObject({
   cardboard: z
     .union([
       z.boolean(),
-      z.object({
-        overlap_cm: inRange("overlap", "cm", CARDBOARD_OVERLAP_CM).optional(),
-        sheet_length_m: sheetSide.optional(),
-        sheet_width_m: sheetSide.optional(),
-      }),
+      strictObject(
+        {
+          overlap_cm: inRange("overlap", "cm", CARDBOARD_OVERLAP_CM).optional(),
+          sheet_length_m: sheetSide.optional(),
+          sheet_width_m: sheetSide.optional(),
+        },
+        "a cardboard setting",
+      ),
     ], { error: ON_OFF_OR_SETTINGS })
     .optional(),
   leaves: depthLayer(LAYER_DEPTH_CM.leaves).optional(),
@@ -111,23 +129,23 @@ export const layersSchema = z.object({
     .union([
       z.boolean(),
       // Bins run at a few kg/m²; past 5 a bed is a worm farm, so treat it as a typo.
-      z.object({ kg_per_m2: z.number().positive("stocking must be more than 0 kg/m²").max(5, "stocking must be at most 5 kg/m²").optional() }),
+      strictObject({ kg_per_m2: z.number().positive("stocking must be more than 0 kg/m²").max(5, "stocking must be at most 5 kg/m²").optional() }, "a worm setting"),
     ], { error: ON_OFF_OR_SETTINGS })
     .optional(),
-});
+}, "a layer");
 
 /**
  * A layer left out of `layers` (or `layers` itself left out) takes its default: cardboard,
  * leaves, straw and worms on, wood chips off. `true` means on with the default settings.
  * When the bed is an outline and no latitude is given, the outline's centre gives it.
  */
-export const estimateSchema = z.object({
+export const estimateSchema = strictObject({
   bed: bedSchema,
   layers: layersSchema.optional(),
   start_date: z.string().refine(isCalendarDate, "Give a real date as YYYY-MM-DD").optional(),
   latitude: z.number().min(-90, "latitude must be between -90 and 90").max(90, "latitude must be between -90 and 90").optional(),
   target_moisture_pct: inRange("target moisture", "%", MOISTURE_PCT).optional(),
-});
+}, "part of an estimate request");
 
 export type EstimateInput = z.infer<typeof estimateSchema>;
 export type EstimateRequest = z.input<typeof estimateSchema>;

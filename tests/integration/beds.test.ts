@@ -54,6 +54,15 @@ describe("beds: save, list, read, change, delete", () => {
     expect(leaves.quantity).toBeCloseTo(0.72, 6); // 3.6 m² × 0.20 m
     expect(res.json.estimate.needs.some((n: { material: string }) => n.material === "straw")).toBe(false);
   });
+  it("refuses an unknown layer or field on a change, and keeps the saved recipe", async () => {
+    for (const [body, field] of [[{ layers: { plutonium: true } }, "layers.plutonium"], [{ colour: "red" }, "colour"]] as const) {
+      const res = await call(bed.PATCH as never, await request(`/api/beds/${id}`, { method: "PATCH", body, as: ada }), { id });
+      expect(res.status).toBe(422);
+      expect(Object.keys(res.json.error.fields)).toContain(field);
+    }
+    const res = await call(bed.GET as never, await request(`/api/beds/${id}`, { as: ada }), { id });
+    expect(res.json.bed.layers).toEqual({ leaves: { depth_cm: 20 }, straw: false });
+  });
   it("gives the timeline as an iCalendar file", async () => {
     const res = await calendar.GET(await request(`/api/beds/${id}/calendar.ics`, { as: ada }), { params: Promise.resolve({ id }) });
     expect(res.status).toBe(200);
@@ -82,6 +91,8 @@ describe("beds: save, list, read, change, delete", () => {
   const BAD: [string, unknown, string][] = [
     ["a hole outside the outline", { ...good, bed: { polygon: { type: "Polygon", coordinates: [square(0, 10), square(20, 5)] } } }, "bed.polygon"],
     ["a hole bigger than the outline", { ...good, bed: { polygon: { type: "Polygon", coordinates: [square(0, 10), square(-5, 20)] } } }, "bed.polygon"],
+    ["an unknown layer", { ...good, layers: { plutonium: true } }, "layers.plutonium"],
+    ["an unknown field", { ...good, colour: "red" }, "colour"],
     ["no name", { ...good, name: "" }, "name"],
     ["a bed too big", { ...good, bed: { length_m: 500, width_m: 500 } }, "bed"],
     ["a bad date", { ...good, start_date: "01/03/2027" }, "start_date"],

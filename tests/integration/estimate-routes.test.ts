@@ -72,6 +72,11 @@ describe("POST /api/estimate", () => {
     ["a hole inside another hole", outline(sq(0, 0, 10), sq(2, 2, 6), sq(3, 3, 2)), "bed.polygon"],
     // An L with 4 m wide arms 1,200 m long: 9,584 m², under the area cap, but it spreads 1.2 km.
     ["an outline spreading 1,200 m", outline([at(0, 0), at(1200, 0), at(1200, 4), at(4, 4), at(4, 1200), at(0, 1200), at(0, 0)]), "bed.polygon"],
+    ["an unknown layer", { bed: { length_m: 3, width_m: 1 }, layers: { plutonium: true } }, "layers.plutonium"],
+    ["an unknown layer setting", { bed: { length_m: 3, width_m: 1 }, layers: { leaves: { depth: 10 } } }, "layers.leaves.depth"],
+    ["an unknown cardboard setting", { bed: { length_m: 3, width_m: 1 }, layers: { cardboard: { overlap_in: 6 } } }, "layers.cardboard.overlap_in"],
+    ["an unknown field", { bed: { length_m: 3, width_m: 1 }, colour: "red" }, "colour"],
+    ["an unknown bed field", { bed: { length_m: 3, width_m: 1, height_m: 0.3 } }, "bed.height_m"],
     ["negative length", { bed: { length_m: -3, width_m: 1 } }, "bed.length_m"],
     ["zero width", { bed: { length_m: 3, width_m: 0 } }, "bed.width_m"],
     ["a bed over 10,000 m²", { bed: { length_m: 200, width_m: 60 } }, "bed"],
@@ -94,6 +99,13 @@ describe("POST /api/estimate", () => {
       expect(keys.some((k) => k === field || k.startsWith(`${field}.`))).toBe(true);
     });
   }
+  it("names an unknown layer in its message and lists the layers there are", async () => {
+    const res = await post(estimateRoute.POST, { bed: { length_m: 3, width_m: 1 }, layers: { plutonium: true, leaves: true } });
+    expect(res.status).toBe(422);
+    expect(Object.keys(res.json.error.fields)).toEqual(["layers.plutonium"]);
+    expect(res.json.error.fields["layers.plutonium"]).toMatch(/"plutonium"/);
+    expect(res.json.error.fields["layers.plutonium"]).toMatch(/cardboard.*leaves.*straw.*wood_chips.*worms/);
+  });
   it("400 for malformed JSON", async () => {
     const res = await post(estimateRoute.POST, undefined, "{ bed: ");
     expect(res.status).toBe(400);
