@@ -113,6 +113,11 @@ test("council staff create a day with slots, a gardener books, staff check them 
   await desk.goto("/reports");
   await expect(desk.getByRole("heading", { name: "By giveaway day" })).toBeVisible();
   await expect(desk.getByText(new RegExp(`${title}: .* kg to 1 households`))).toBeVisible();
+  // The charts (Recharts, drawn in the browser) show bars for kg and m³, each with its summary.
+  for (const id of ["by-month-kg", "by-month-m3", "by-day-kg", "by-day-m3"]) {
+    await expect(desk.getByTestId(`${id}-chart`).locator("svg.recharts-surface .recharts-bar-rectangle").first()).toBeVisible();
+  }
+  await expect(desk.getByRole("figure", { name: "Cubic metres passed on each month, by material" })).toBeVisible();
   await desk.screenshot({ path: shot("council-reports"), fullPage: true });
   await staff.close();
   await gardener.close();

@@ -7,7 +7,8 @@ import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { longDate } from "@/lib/time/zoned";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button-class";
-import { MATERIAL_COLORS, StackedBarChart, type ChartSeries } from "@/components/reports/bar-chart";
+import { DiversionChart } from "@/components/reports/diversion-chart";
+import { MATERIAL_COLORS, type ChartSeries } from "@/components/reports/material-colors";
 import { formatKg } from "@/components/reports/format";
 import { Panel } from "@/components/ui/panel";
 
@@ -22,10 +23,12 @@ export default async function ReportsPage() {
   const isCouncil = !!user.organisation && user.roles.includes("council");
   const series: ChartSeries[] = report.by_material.map((m) => ({ key: m.material, label: MATERIALS[m.material as MaterialCode]?.name ?? m.material, color: MATERIAL_COLORS[m.material] ?? "#84633f" }));
   const months = [...new Set(report.by_month.map((m) => m.month))];
-  const columns = months.map((month) => ({
-    label: monthLabel(month),
-    values: Object.fromEntries(report.by_month.filter((m) => m.month === month).map((m) => [m.material, m.kg])),
-  }));
+  const monthColumns = (figure: "kg" | "m3") =>
+    months.map((month) => ({
+      label: monthLabel(month),
+      values: Object.fromEntries(report.by_month.filter((m) => m.month === month).map((m) => [m.material, m[figure]])),
+    }));
+  const days = report.by_day.slice().reverse();
   return (
     <div className="flex flex-col gap-6">
       <PageHeading
@@ -45,7 +48,10 @@ export default async function ReportsPage() {
             <Stat label="Households served" value={String(report.households)} />
           </section>
           <Panel id="month" title="By month and material" action={<a href="/api/reports/diversion.csv" className={buttonClass("secondary")}>Download CSV</a>}>
-            <StackedBarChart id="by-month" title="Kilograms passed on each month, by material" unit="kg" columns={columns} series={series} />
+            <div className="grid gap-6 lg:grid-cols-2">
+              <DiversionChart id="by-month-kg" title="Kilograms passed on each month, by material" unit="kg" columns={monthColumns("kg")} series={series} />
+              <DiversionChart id="by-month-m3" title="Cubic metres passed on each month, by material" unit="m³" columns={monthColumns("m3")} series={series} />
+            </div>
             <table className="mt-4 w-full text-left text-sm">
               <caption className="sr-only">The figures in the chart</caption>
               <thead className="bg-humus-100">
@@ -74,20 +80,14 @@ export default async function ReportsPage() {
             <Panel id="day" title="By giveaway day" action={<a href="/api/reports/diversion.csv?by=day" className={buttonClass("secondary")}>Download CSV by day</a>}>
               {report.by_day.length ? (
                 <>
-                  <StackedBarChart
-                    id="by-day"
-                    title="Kilograms collected at each giveaway day"
-                    unit="kg"
-                    columns={report.by_day
-                      .slice()
-                      .reverse()
-                      .map((d) => ({ label: d.date.slice(5), values: { [d.material]: d.kg } }))}
-                    series={series}
-                  />
+                  <div className="grid gap-6 lg:grid-cols-2">
+                    <DiversionChart id="by-day-kg" title="Kilograms collected at each giveaway day" unit="kg" columns={days.map((d) => ({ label: d.date.slice(5), values: { [d.material]: d.kg } }))} series={series} />
+                    <DiversionChart id="by-day-m3" title="Cubic metres collected at each giveaway day" unit="m³" columns={days.map((d) => ({ label: d.date.slice(5), values: { [d.material]: d.m3 } }))} series={series} />
+                  </div>
                   <ul className="mt-2 text-sm">
                     {report.by_day.map((d) => (
                       <li key={d.day_id}>
-                        {longDate(d.date)}, {d.title}: {formatKg(d.kg)} to {d.households} households
+                        {longDate(d.date)}, {d.title}: {formatKg(d.kg)} to {d.households} households, {d.m3.toFixed(2)} m³
                       </li>
                     ))}
                   </ul>
