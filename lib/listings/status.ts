@@ -75,3 +75,14 @@ export function actionsFor(status: ListingStatus): ListingAction[] {
 export const quantityLeft = (l: { quantity_total: number; quantity_held: number; quantity_collected: number }) =>
   // Rounded to a millionth so 14 − 3.3 − 0.7 reads as 10, not 10.000000000000002.
   Math.max(0, Math.round((l.quantity_total - l.quantity_held - l.quantity_collected) * 1e6) / 1e6);
+
+/**
+ * Where today falls in a listing's dates: before `available_from` it can be seen but not yet
+ * reserved; from `available_until` on it has ended. Reserving, the reserve page and the
+ * listing page all ask this, so they agree.
+ */
+export function datesState(l: { available_from: string | null; available_until: string | null }, now: Date = new Date()): "open" | "not_yet" | "ended" {
+  if (l.available_until && Date.parse(l.available_until) <= now.getTime()) return "ended";
+  if (l.available_from && Date.parse(l.available_from) > now.getTime()) return "not_yet";
+  return "open";
+}

@@ -12,6 +12,8 @@ import { startCheckout } from "@/lib/payments/checkout";
 import { MIN_CARD_CHARGE_CENTS, formatMoney, priceFor } from "@/lib/payments/money";
 import { WHOLE_UNITS, quantityLabel } from "@/lib/reservations/labels";
 import { holdMinutes } from "@/lib/reservations/policy";
+import { datesState } from "@/lib/listings/status";
+import { formatDay } from "@/lib/listings/format";
 import { nextOccurrence } from "@/lib/reservations/pickup-times";
 import { cultureOptions, defaultFulfilment, type Fulfilment } from "@/lib/reservations/culture-orders";
 import { findShipping } from "@/db/grower-shipping";
@@ -98,6 +100,11 @@ async function check(input: ReserveInput, q: Knex, now: Date): Promise<Checked[]
     if (listing.owner_id === input.gardenerId || (listing.organisation_id && myOrgs.has(listing.organisation_id))) {
       throw new ApiError("conflict", "This is your own listing (or your organisation's): there is nothing to reserve.");
     }
+    // The dates bind before the worker has caught up with them (it marks a listing expired
+    // only every minute), and a listing shown ahead of its start is not reservable yet.
+    const dates = datesState(listing, now);
+    if (dates === "ended") throw new ApiError("invalid_state", `“${listing.title}” ended on ${formatDay(listing.available_until)}; it is not taking reservations any more.`);
+    if (dates === "not_yet") throw new ApiError("invalid_state", `“${listing.title}” can be reserved from ${formatDay(listing.available_from)}.`);
     if (seen.has(listing.id)) fields[`${f}listing_id`] = "This listing is in the list twice; reserve it once with the total.";
     seen.add(listing.id);
     if (WHOLE_UNITS.has(listing.unit) && !Number.isInteger(item.quantity)) {
