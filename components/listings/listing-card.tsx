@@ -19,11 +19,15 @@ export interface CardItem {
   supplier: { name: string; verified: boolean };
   photos: { url: string; width: number; height: number }[];
   available_until: string | null;
+  /** Set while the listing is shown ahead of its start date. */
+  reservable_from?: string | null;
 }
 
 export function ListingCard({ item, system, selected = false, onHover }: { item: CardItem; system: UnitSystem; selected?: boolean; onHover?: (id: string | null) => void }) {
   const photo = item.photos[0];
   const until = formatDay(item.available_until);
+  // Listed ahead of its start: shown, but reservable only from that day.
+  const from = formatDay(item.reservable_from ?? null);
   return (
     <article
       id={`listing-${item.id}`}
@@ -54,6 +58,7 @@ export function ListingCard({ item, system, selected = false, onHover }: { item:
           {item.distance_km !== null ? <span>{formatDistance(item.distance_km, system)} away</span> : null}
           <span>{item.supplier.name}</span>
           {item.supplier.verified ? <VerifiedBadge /> : null}
+          {from ? <span className="font-medium text-moss-800">available from {from}</span> : null}
           {until ? <span>until {until}</span> : null}
         </p>
       </div>

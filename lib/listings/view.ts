@@ -14,7 +14,7 @@ import { listingCautions, type ListingCaution } from "@/lib/calc/cautions";
 import type { MaterialCode } from "@/lib/calc/facts";
 import { photoUrl, type PhotoSize, type PhotoVariant } from "@/lib/media/photo-urls";
 import type { ListingUnit, QualityInput } from "@/lib/validation/listings";
-import { effectiveStatus, quantityLeft } from "./status";
+import { datesState, effectiveStatus, quantityLeft } from "./status";
 
 export interface PublicListingItem {
   id: string;
@@ -34,6 +34,8 @@ export interface PublicListingItem {
   supplier: { id: string; name: string; verified: boolean };
   photos: PhotoVariant[];
   available_until: string | null;
+  /** Listed ahead of its start date: shown, but reservable only from this moment (null once it is). */
+  reservable_from: string | null;
 }
 
 export type PickupWindowView = Omit<PickupWindowRow, "listing_id">;
@@ -67,7 +69,7 @@ type Row = Pick<
   ListingRow,
   | "id" | "owner_id" | "organisation_id" | "material_code" | "title" | "unit" | "unit_size" | "unit_mass_kg"
   | "quantity_total" | "quantity_held" | "quantity_collected" | "price_cents" | "currency" | "deposit_cents"
-  | "approx_lat" | "approx_lng" | "available_until"
+  | "approx_lat" | "approx_lng" | "available_until" | "available_from"
 >;
 
 const photoList = (rows: ListingPhotoRow[] | undefined, size: PhotoSize) => (rows ?? []).map((p) => photoUrl(p, size));
@@ -84,7 +86,7 @@ async function suppliersFor(rows: Row[], q: Db) {
   };
 }
 
-function item(r: Row, supplier: PublicListingItem["supplier"], photos: PhotoVariant[], distanceKm: number | null): PublicListingItem {
+function item(r: Row, supplier: PublicListingItem["supplier"], photos: PhotoVariant[], distanceKm: number | null, now: Date): PublicListingItem {
   return {
     id: r.id,
     material: r.material_code,
@@ -102,13 +104,14 @@ function item(r: Row, supplier: PublicListingItem["supplier"], photos: PhotoVari
     supplier,
     photos,
     available_until: r.available_until,
+    reservable_from: datesState(r, now) === "not_yet" ? r.available_from : null,
   };
 }
 
 /** Browse results as the API and the browse page return them. */
-export async function presentItems(rows: PublicListingRow[], q: Db = db()): Promise<PublicListingItem[]> {
+export async function presentItems(rows: PublicListingRow[], q: Db = db(), now: Date = new Date()): Promise<PublicListingItem[]> {
   const [supplierOf, photos] = await Promise.all([suppliersFor(rows, q), photosFor(rows.map((r) => r.id), q)]);
-  return rows.map((r) => item(r, supplierOf(r), photoList(photos.get(r.id), "card"), r.distance_km));
+  return rows.map((r) => item(r, supplierOf(r), photoList(photos.get(r.id), "card"), r.distance_km, now));
 }
 
 const windowView = ({ listing_id: _listing, ...w }: PickupWindowRow): PickupWindowView => w;
@@ -132,7 +135,7 @@ export async function presentDetail(r: ListingRow, opts: { manage: boolean; now?
   const quality = parseQuality(r.quality);
   const photoRows = photos.get(r.id) ?? [];
   const detail: ListingDetail = {
-    ...item(r, supplierOf(r), photoList(photoRows, "large"), null),
+    ...item(r, supplierOf(r), photoList(photoRows, "large"), null, opts.now ?? new Date()),
     supplier: { ...supplierOf(r), rating: ratings.get(r.owner_id) ?? null },
     status: effectiveStatus(r.status, r.available_until, opts.now),
     description: r.description,

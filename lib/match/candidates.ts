@@ -51,7 +51,7 @@ const LEFT_EPS = 1e-9;
 const isPg = (q: Db) => q.client.config.client === "pg";
 const table = (q: Db, index: string) => (isPg(q) ? "listings" : q.raw(`listings INDEXED BY ${index}`));
 
-/** Active, with something left, not past its end date, inside the box. */
+/** Active, with something left, within its dates (begun, not ended), inside the box. */
 function reservable(q: Db, index: string, materials: readonly MaterialCode[], box: Box, now: Date): Knex.QueryBuilder {
   return q
     .from(table(q, index))
@@ -61,7 +61,9 @@ function reservable(q: Db, index: string, materials: readonly MaterialCode[], bo
     .whereBetween("approx_lat", [box.minLat, box.maxLat])
     .whereBetween("approx_lng", [box.minLng, box.maxLng])
     .whereRaw("quantity_total - quantity_held - quantity_collected > ?", [LEFT_EPS])
-    .where((w) => w.whereNull("available_until").orWhere("available_until", ">", now.toISOString()));
+    .where((w) => w.whereNull("available_until").orWhere("available_until", ">", now.toISOString()))
+    // Browse shows a listing ahead of its start date; a plan can only use what can be reserved now.
+    .where((w) => w.whereNull("available_from").orWhere("available_from", "<=", now.toISOString()));
 }
 
 function toCandidate(r: Row, origin: LatLng): CandidateListing {

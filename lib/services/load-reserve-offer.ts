@@ -5,6 +5,7 @@ import { ratingsFor } from "@/db/reviews";
 import { nextOccurrence, windowLabel } from "@/lib/reservations/pickup-times";
 import { holdMinutes } from "@/lib/reservations/policy";
 import { WHOLE_UNITS } from "@/lib/reservations/labels";
+import { datesState, effectiveStatus } from "@/lib/listings/status";
 import { cultureOffer } from "./culture-offer";
 
 function qualityOf(text: string): Record<string, unknown> {
@@ -32,7 +33,10 @@ export async function loadReserveOffer(listingId: string, now = new Date()) {
     id: l.id,
     title: l.title,
     material: l.material_code,
-    status: l.status,
+    // Past its end date it is expired even before the worker has written so.
+    status: effectiveStatus(l.status, l.available_until, now),
+    /** Listed ahead of its start date: reservable only from this moment. */
+    reservable_from: datesState(l, now) === "not_yet" ? l.available_from : null,
     owner_id: l.owner_id,
     unit: l.unit,
     unit_size: l.unit_size,

@@ -172,6 +172,9 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
                 <StatusActions id={listing.id} status={listing.status} title={listing.title} />
               </div>
             </section>
+          ) : listing.status === "active" && listing.reservable_from ? (
+            // Listed ahead of its start: reserving opens that day (the API refuses it before).
+            <Notice>Reservations open on {formatDay(listing.reservable_from)}.</Notice>
           ) : listing.status === "active" && hasRole(viewer, "gardener") ? (
             <Link href={`/listings/${listing.id}/reserve`} className={buttonClass("primary")}>
               Reserve

@@ -5,6 +5,7 @@ import { pageUser } from "@/lib/auth/page-guard";
 import { loadReserveOffer } from "@/lib/services/load-reserve-offer";
 import { pickupCautions } from "@/lib/reservations/cautions";
 import { quantityLabel } from "@/lib/reservations/labels";
+import { formatDay } from "@/lib/listings/format";
 import { PageHeading, EmptyState } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button-class";
 import { Notice } from "@/components/ui/notice";
@@ -41,6 +42,8 @@ export default async function ReservePage({ params }: { params: Promise<{ id: st
         <Notice title="This is your own listing">There is nothing to reserve here; requests from gardeners appear under Requests.</Notice>
       ) : offer.status === "gone" || (offer.status === "active" && offer.available <= 0) ? (
         <EmptyState title="All of it is spoken for" action={back}>Holds that are not paid or accepted in time run out, so check back later.</EmptyState>
+      ) : offer.status === "active" && offer.reservable_from ? (
+        <EmptyState title="Not taking reservations yet" action={back}>It can be reserved from {formatDay(offer.reservable_from)}.</EmptyState>
       ) : offer.status !== "active" ? (
         <EmptyState title="Not taking reservations" action={back}>This listing is {offer.status} at the moment.</EmptyState>
       ) : offer.culture && !offer.culture.pickup && !offer.culture.can_post ? (
