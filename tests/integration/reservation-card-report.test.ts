@@ -7,11 +7,13 @@ import { freshDb } from "../helpers/db";
 import { createListing, createReservationIn } from "../reservation-factories";
 import { listReservations } from "@/lib/services/list-reservations";
 
-// The card's interactive parts are client components that need the app router; the link sits
-// in the card's own markup, so they are left out here.
-vi.mock("@/components/reservations/reservation-actions", () => ({ ReservationActions: () => null }));
-vi.mock("@/components/reservations/message-thread", () => ({ MessagesPanel: () => null }));
-vi.mock("@/components/reservations/review-form", () => ({ ReviewForm: () => null }));
+// The card's buttons are client components that ask for the app router, which only exists
+// inside Next.js: a stand-in router lets the whole card render here.
+vi.mock("next/navigation", () => ({
+  useRouter: () => ({ refresh() {}, push() {}, replace() {}, back() {}, forward() {}, prefetch() {} }),
+  usePathname: () => "/reservations",
+  useSearchParams: () => new URLSearchParams(),
+}));
 const { ReservationCard } = await import("@/components/reservations/reservation-card");
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
