@@ -62,20 +62,25 @@ function addMonths(t: number, months: number): number {
   return utc(y, m + 1, Math.min(d.getUTCDate(), lastDay));
 }
 
-/** The first month/day on or after `from` and on or before `until`, if there is one. */
-function nextOccurrence(from: number, until: number, month: number, day: number): number | null {
-  const year = new Date(from).getUTCFullYear();
-  for (const y of [year, year + 1]) {
+/**
+ * Every month/day from `from` on, up to and including the first one on or after `ready`:
+ * the season's top-ups through the bed's first year, and the first once it is planted.
+ */
+function occurrences(from: number, ready: number, month: number, day: number): number[] {
+  const out: number[] = [];
+  for (let y = new Date(from).getUTCFullYear(); ; y++) {
     const t = utc(y, month, day);
-    if (t >= from && t <= until) return t;
+    if (t < from) continue;
+    out.push(t);
+    if (t >= ready) return out;
   }
-  return null;
 }
 
 /**
- * The bed's first year, from the day it is built. Top-ups fall in the seasons when each
- * material is plentiful, which depends on the hemisphere: south for a negative latitude,
- * north otherwise (and when the latitude is unknown).
+ * The bed's first year, from the day it is built, and its first seasonal top-ups after it is
+ * ready, so a bed is fed in every season whatever month it was built in. Top-ups fall in the
+ * seasons when each material is plentiful, which depends on the hemisphere: south for a
+ * negative latitude, north otherwise (and when the latitude is unknown).
  */
 export function timeline(start: string, latitude: number | null, opts: { worms: boolean }): TimelineEvent[] {
   const t0 = parseDate(start);
@@ -127,8 +132,9 @@ export function timeline(start: string, latitude: number | null, opts: { worms: 
     { season: TOP_UP_SEASONS.clippings[hemisphere], title: "Top up with grass clippings", what: "a thin layer of clippings, a few centimetres at most so they don't mat" },
   ];
   for (const { season, title, what } of topUps) {
-    const t = nextOccurrence(earliestTopUp, ready, season.month, season.day);
-    if (t !== null) at(t, { key: "top_up", title, detail: `Any time in ${season.months}: add ${what}.` });
+    for (const t of occurrences(earliestTopUp, ready, season.month, season.day)) {
+      at(t, { key: "top_up", title, detail: `Any time in ${season.months}: add ${what}.` });
+    }
   }
 
   return events

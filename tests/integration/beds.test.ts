@@ -71,6 +71,9 @@ describe("beds: save, list, read, change, delete", () => {
     expect(text).toMatch(/^BEGIN:VCALENDAR/);
     expect(text).toContain("DTSTART;VALUE=DATE:20270301");
     expect(text.match(/BEGIN:VEVENT/g)!.length).toBeGreaterThan(6);
+    // Built 1 Mar 2027 at 52.2° N, ready 1 Mar 2028; the leaves after that come on 15 Oct 2028.
+    expect(text).toContain("DTSTART;VALUE=DATE:20280301");
+    expect(text).toContain("DTSTART;VALUE=DATE:20281015");
   });
 
   // Table-driven: who may touch the bed, and what bad input gets.
@@ -171,5 +174,16 @@ describe("timeline reminders with a bed that cannot be estimated", () => {
     expect(mails.map((m) => m.subject)).toEqual(["Sound bed: Build day"]);
     expect(logged).toHaveLength(2);
     expect(String(logged[0][0])).toContain("bed-reminders");
+  });
+});
+
+describe("timeline reminders after the bed is ready", () => {
+  it("mails the first top-up after the ready date", async () => {
+    const di = await createUser({ roles: ["gardener"] });
+    await call(beds.POST as never, await request("/api/beds", { body: { ...good, name: "Old bed", start_date: "2027-10-01" }, as: di.id }));
+    // Built 1 Oct 2027 at 52.2° N: ready 1 Oct 2028, then leaves on 15 Oct 2028.
+    await sendBedReminders(() => new Date("2028-10-15T08:00:00Z"));
+    const mails = await ctx.db("email_outbox").where({ template: "bed_reminder", to_address: di.email }).select("subject");
+    expect(mails.map((m) => m.subject)).toEqual(["Old bed: Top up with fallen leaves"]);
   });
 });

@@ -5,9 +5,11 @@ const days = (a: string, b: string) => (Date.parse(b) - Date.parse(a)) / 86_400_
 const pairs = (events: ReturnType<typeof timeline>) => events.map((e) => `${e.key} ${e.date}`);
 
 describe("timeline", () => {
-  it("lays out the first year of a northern bed built on 1 March 2026", () => {
+  it("lays out the first year of a northern bed built on 1 March 2026, and its next top-ups", () => {
     // By hand: checks on days 3, 7, 14, 21; worms on day 10; months 3, 6 and 12 on the 1st;
-    // clippings on 15 June and leaves on 15 October, both inside the year.
+    // clippings on 15 June and leaves on 15 October inside the year (north: leaves in
+    // October–November, clippings in June–July, common practice), then the first of each
+    // after the ready date, 15 June and 15 October 2027.
     expect(pairs(timeline("2026-03-01", 51.5, { worms: true }))).toEqual([
       "build 2026-03-01",
       "moisture_check 2026-03-04",
@@ -20,15 +22,42 @@ describe("timeline", () => {
       "check_6_months 2026-09-01",
       "top_up 2026-10-15",
       "ready 2027-03-01",
+      "top_up 2027-06-15",
+      "top_up 2027-10-15",
     ]);
   });
 
   it("moves the top-ups six months for a southern bed", () => {
+    // South: leaves in April–May, clippings in December–January (common practice). Built
+    // 1 March 2026, ready 1 March 2027: leaves 15 Apr 2026, clippings 15 Dec 2026, then the
+    // first of each after the ready date, 15 Apr 2027 and 15 Dec 2027.
     const topUps = timeline("2026-03-01", -37.8, { worms: false }).filter((e) => e.key === "top_up");
     expect(topUps.map((e) => [e.date, e.title])).toEqual([
       ["2026-04-15", expect.stringMatching(/leaves/i)],
       ["2026-12-15", expect.stringMatching(/clippings/i)],
+      ["2027-04-15", expect.stringMatching(/leaves/i)],
+      ["2027-12-15", expect.stringMatching(/clippings/i)],
     ]);
+  });
+
+  it("gives a northern bed built on 1 October its autumn leaves after it is ready", () => {
+    // Built 1 Oct 2026, ready 1 Oct 2027. 15 Oct 2026 is within a month of building, so the
+    // first leaves fall on 15 Oct 2027, after the ready date; clippings on 15 June 2027 and,
+    // the first after ready, 15 June 2028.
+    const t = timeline("2026-10-01", 50, { worms: false });
+    expect(t.filter((e) => e.key === "top_up").map((e) => [e.date, e.title])).toEqual([
+      ["2027-06-15", expect.stringMatching(/clippings/i)],
+      ["2027-10-15", expect.stringMatching(/leaves/i)],
+      ["2028-06-15", expect.stringMatching(/clippings/i)],
+    ]);
+    expect(pairs(t).slice(-4)).toEqual(["top_up 2027-06-15", "ready 2027-10-01", "top_up 2027-10-15", "top_up 2028-06-15"]);
+  });
+
+  it("gives a southern bed built on 1 April its autumn leaves after it is ready", () => {
+    // Built 1 Apr 2026 at 33.9° S, ready 1 Apr 2027. 15 Apr 2026 is within a month of
+    // building; leaves on 15 Apr 2027, after ready; clippings 15 Dec 2026, then 15 Dec 2027.
+    const topUps = timeline("2026-04-01", -33.9, { worms: false }).filter((e) => e.key === "top_up");
+    expect(topUps.map((e) => e.date)).toEqual(["2026-12-15", "2027-04-15", "2027-12-15"]);
   });
 
   it("takes the north when the latitude is unknown", () => {
@@ -59,15 +88,30 @@ describe("timeline", () => {
     expect(timeline("2024-02-29", 50, { worms: false }).find((e) => e.key === "ready")!.date).toBe("2025-02-28");
   });
 
-  it("skips a top-up that would fall within a month of building or after the year", () => {
-    // Built 1 Oct: 15 Oct is too soon and next October is past the ready date.
-    const topUps = timeline("2026-10-01", 50, { worms: false }).filter((e) => e.key === "top_up");
-    expect(topUps.map((e) => e.date)).toEqual(["2027-06-15"]);
+  it("skips a top-up within a month of building", () => {
+    // Built 20 Sep 2026, ready 20 Sep 2027: 15 Oct 2026 is 25 days on, too soon, so the
+    // leaves wait for 15 Oct 2027; clippings 15 June 2027 and, after ready, 15 June 2028.
+    const topUps = timeline("2026-09-20", 50, { worms: false }).filter((e) => e.key === "top_up");
+    expect(topUps.map((e) => e.date)).toEqual(["2027-06-15", "2027-10-15", "2028-06-15"]);
   });
 
   it("crosses the year end", () => {
+    // Built 20 Dec 2026 at 33.9° S, ready 20 Dec 2027: 15 Dec 2027 falls before ready, so the
+    // clippings come again on 15 Dec 2028; the leaves on 15 Apr 2027 and 15 Apr 2028.
     const topUps = timeline("2026-12-20", -33.9, { worms: false }).filter((e) => e.key === "top_up");
-    expect(topUps.map((e) => e.date)).toEqual(["2027-04-15", "2027-12-15"]);
+    expect(topUps.map((e) => e.date)).toEqual(["2027-04-15", "2027-12-15", "2028-04-15", "2028-12-15"]);
+  });
+
+  it("ends with one top-up of each kind after the ready date, whatever the start", () => {
+    for (const [start, lat] of [["2026-01-31", 40], ["2026-06-15", -20], ["2027-11-30", 60], ["2024-02-29", -45]] as const) {
+      const t = timeline(start, lat, { worms: true });
+      const ready = t.find((e) => e.key === "ready")!.date;
+      const after = t.filter((e) => e.date >= ready && e.key === "top_up");
+      expect(after.map((e) => /leaves/i.test(e.title)).sort()).toEqual([false, true]);
+      // Each falls within a year of ready, and nothing but top-ups comes after it.
+      for (const e of after) expect(days(ready, e.date)).toBeLessThan(366);
+      expect(t.filter((e) => e.date > ready).every((e) => e.key === "top_up")).toBe(true);
+    }
   });
 
   it("is sorted by date and every date is a calendar date", () => {
@@ -94,7 +138,7 @@ describe("timeline across time zones", () => {
   it.each(["Pacific/Kiritimati", "America/Adak", "UTC"])("gives the same dates in %s", (tz) => {
     process.env.TZ = tz;
     expect(pairs(timeline("2026-03-01", 51.5, { worms: true }))[0]).toBe("build 2026-03-01");
-    expect(pairs(timeline("2026-03-29", 51.5, { worms: true })).at(-1)).toBe("ready 2027-03-29");
+    expect(pairs(timeline("2026-03-29", 51.5, { worms: true }))).toContain("ready 2027-03-29");
   });
 });
 
