@@ -27,7 +27,7 @@ async function main() {
     dataFile: stripeDataFile(),
     log: (line) => console.log(`[stripe-fake] ${line}`),
   });
-  console.log(`[fakes] Stripe API at ${stripe.url}, webhooks to ${webhookUrl}, records in ${path.relative(process.cwd(), stripeDataFile())}`);
+  console.log(`[fakes] Stripe API at ${stripe.url}, webhooks to ${webhookUrl}, records in ${stripeDataFile()}`);
 
   const photos = parseFakeEnv(process.env);
   const cloudinary = await startCloudinaryFake({
