@@ -1,6 +1,5 @@
 import { z } from "zod";
-import { bedSchema, layersSchema, strictObject } from "./estimate";
-import { isCalendarDate } from "@/lib/calc/timeline";
+import { bedSchema, layersSchema, startDateSchema, strictObject } from "./estimate";
 import { locationSchema as location } from "./common";
 
 /** A saved bed: its shape and recipe are exactly what POST /api/estimate takes. */
@@ -8,7 +7,7 @@ export const createBedSchema = strictObject({
   name: z.string({ error: "Give the bed a name." }).trim().min(1, "Give the bed a name.").max(80, "Use at most 80 characters."),
   bed: bedSchema,
   layers: layersSchema.optional(),
-  start_date: z.string().refine(isCalendarDate, "Give a real date as YYYY-MM-DD").nullable().optional(),
+  start_date: startDateSchema.nullable().optional(),
   /** Where the bed is; taken from the outline when it has one. */
   location: location.nullable().optional(),
 }, "part of a saved bed");

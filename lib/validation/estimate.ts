@@ -97,6 +97,21 @@ export const bedSchema = strictObject(
     bed.polygon ? { polygon: bed.polygon } : { length_m: bed.length_m!, width_m: bed.width_m! },
   );
 
+/**
+ * Build days we plan for, a product limit: old enough for a bed already standing, and no
+ * further ahead than anyone plans a garden (a year like 9999 only makes nonsense dates).
+ */
+export const START_YEARS = { min: 2000, max: 2100 } as const;
+
+/** A build day: a real calendar date, YYYY-MM-DD, in START_YEARS. */
+export const startDateSchema = z
+  .string({ error: "Give a date as YYYY-MM-DD" })
+  .refine(isCalendarDate, { message: "Give a real date as YYYY-MM-DD", abort: true })
+  .refine((s) => {
+    const year = Number(s.slice(0, 4));
+    return year >= START_YEARS.min && year <= START_YEARS.max;
+  }, `Give a build day between ${START_YEARS.min} and ${START_YEARS.max}`);
+
 const inRange = (what: string, unit: string, r: { min: number; max: number }) =>
   z.number().min(r.min, `${what} must be at least ${r.min} ${unit}`).max(r.max, `${what} must be at most ${r.max} ${unit}`);
 
@@ -142,7 +157,7 @@ export const layersSchema = strictObject({
 export const estimateSchema = strictObject({
   bed: bedSchema,
   layers: layersSchema.optional(),
-  start_date: z.string().refine(isCalendarDate, "Give a real date as YYYY-MM-DD").optional(),
+  start_date: startDateSchema.optional(),
   latitude: z.number().min(-90, "latitude must be between -90 and 90").max(90, "latitude must be between -90 and 90").optional(),
   target_moisture_pct: inRange("target moisture", "%", MOISTURE_PCT).optional(),
 }, "part of an estimate request");

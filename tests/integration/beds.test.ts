@@ -99,6 +99,7 @@ describe("beds: save, list, read, change, delete", () => {
     ["no name", { ...good, name: "" }, "name"],
     ["a bed too big", { ...good, bed: { length_m: 500, width_m: 500 } }, "bed"],
     ["a bad date", { ...good, start_date: "01/03/2027" }, "start_date"],
+    ["a start in the year 9999", { ...good, start_date: "9999-06-01" }, "start_date"],
     ["a location off the globe", { ...good, location: { lat: 91, lng: 0 } }, "location.lat"],
   ];
   for (const [label, body, field] of BAD) {

@@ -87,6 +87,8 @@ describe("POST /api/estimate", () => {
     ["leaves deeper than 30 cm", { bed: { length_m: 3, width_m: 1 }, layers: { leaves: { depth_cm: 60 } } }, "layers.leaves"],
     ["straw thinner than 2 cm", { bed: { length_m: 3, width_m: 1 }, layers: { straw: { depth_cm: 1 } } }, "layers.straw"],
     ["overlap of 50 cm", { bed: { length_m: 3, width_m: 1 }, layers: { cardboard: { overlap_cm: 50 } } }, "layers.cardboard"],
+    ["a start in the year 9999", { bed: { length_m: 3, width_m: 1 }, start_date: "9999-06-01" }, "start_date"],
+    ["a start before 2000", { bed: { length_m: 3, width_m: 1 }, start_date: "1999-12-31" }, "start_date"],
     ["a date that does not exist", { bed: { length_m: 3, width_m: 1 }, start_date: "2027-02-30" }, "start_date"],
     ["latitude 100", { bed: { length_m: 3, width_m: 1 }, latitude: 100 }, "latitude"],
   ];

@@ -73,6 +73,14 @@ describe("estimateSchema", () => {
     expect(estimateSchema.safeParse({ bed: { polygon: square(0.0008) } }).success).toBe(true); // 89 × 57 m
   });
 
+  it("takes build days from 2000 to 2100 only", () => {
+    const ok = (start_date: string) => estimateSchema.safeParse({ bed: { length_m: 2, width_m: 2 }, start_date }).success;
+    expect(["2000-01-01", "2027-03-01", "2100-12-31"].map(ok)).toEqual([true, true, true]);
+    expect(["1999-12-31", "2101-01-01", "9999-06-01", "0001-01-01"].map(ok)).toEqual([false, false, false, false]);
+    const r = estimateSchema.safeParse({ bed: { length_m: 2, width_m: 2 }, start_date: "9999-06-01" });
+    expect(r.error!.issues.map((i) => [i.path.join("."), i.message])).toEqual([["start_date", expect.stringMatching(/2000.*2100/)]]);
+  });
+
   it("gives every issue a message", () => {
     const r = estimateSchema.safeParse({ bed: { length_m: -1 }, latitude: 100, layers: { leaves: { depth_cm: 0 } } });
     expect(r.success).toBe(false);
