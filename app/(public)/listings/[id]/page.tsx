@@ -102,7 +102,7 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
           ) : null}
           {listing.description ? <p className="whitespace-pre-line text-humus-800">{listing.description}</p> : null}
           <section aria-labelledby="care-title" className="flex flex-col gap-2">
-            <h2 id="care-title" className="text-lg font-semibold">Before you collect</h2>
+            <h2 id="care-title" className="text-lg font-semibold">{culture ? "Before you order" : "Before you collect"}</h2>
             <Notice tone="caution">
               <ul className="flex list-disc flex-col gap-1 pl-5">
                 {listing.cautions.map((c) => (

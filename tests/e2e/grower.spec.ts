@@ -1,0 +1,147 @@
+// A worm culture end to end in Chromium: the listing says how it arrives and when parcels go
+// out; a gardener orders it by post and pays on the local checkout page; the care sheet
+// arrives; the grower accepts, packs and ships it from the dashboard; the shipped e-mail
+// carries the carrier and tracking; the buyer marks it arrived.
+import path from "node:path";
+import Database from "better-sqlite3";
+import { expect, test, type APIRequestContext, type Page } from "@playwright/test";
+import { inboxUrl, storageState } from "./roles";
+
+const shot = (name: string) => path.join(process.env.E2E_DIR ?? "test-results", "shots", `${name}.png`);
+const PHONE = { width: 390, height: 844 };
+
+function sql<T = any>(query: string, ...args: unknown[]): T[] {
+  const conn = new Database(process.env.DATABASE_FILE!);
+  try {
+    return conn.prepare(query).all(...args) as T[];
+  } finally {
+    conn.close();
+  }
+}
+
+async function latestMail(request: APIRequestContext, to: string, subject: RegExp) {
+  let found: { subject: string; text: string; html: string | null } | undefined;
+  await expect
+    .poll(
+      async () => {
+        const { messages } = await (await request.get(`${inboxUrl()}/messages.json?to=${encodeURIComponent(to)}`)).json();
+        found = messages.filter((m: { subject: string }) => subject.test(m.subject)).pop();
+        return !!found;
+      },
+      { timeout: 30_000 },
+    )
+    .toBe(true);
+  return found!;
+}
+
+async function payOnCheckoutPage(page: Page, card: string) {
+  await expect(page.getByText("Local test payment page")).toBeVisible();
+  await page.getByLabel("Card number").fill(card);
+  await page.getByLabel("Expiry (MM/YY)").fill(`12/${String((new Date().getFullYear() + 1) % 100).padStart(2, "0")}`);
+  await page.getByLabel("CVC").fill("123");
+  await page.getByLabel("Name on card").fill("Ines Okafor");
+  await page.getByRole("button", { name: /^Pay / }).click();
+}
+
+const escape = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
+
+test("a gardener buys a worm culture by post, the grower packs and ships it, and the care sheet and tracking arrive", async ({ browser, request }) => {
+  test.setTimeout(150_000);
+  const grower = sql<{ id: string }>("select id from users where email = 'grower@duffbank.test'")[0];
+  const culture = sql<{ id: string; title: string }>(
+    `select id, title from listings where owner_id = ? and material_code = 'worms' and status = 'active'
+     order by quantity_total - quantity_held - quantity_collected desc limit 1`,
+    grower.id,
+  )[0];
+  expect(culture).toBeTruthy();
+
+  const g = await browser.newContext({ storageState: storageState("grower") });
+  const dash = await g.newPage();
+  // Posting open on the demo's Monday and Tuesday, whatever an earlier journey left behind.
+  expect((await dash.request.put("/api/grower/shipping", { data: { ship_weekdays: [1, 2], paused: false } })).status()).toBe(200);
+
+  // The listing says what a buyer gets and how it reaches them.
+  const b = await browser.newContext({ storageState: storageState("gardener") });
+  const page = await b.newPage();
+  await page.goto(`/listings/${culture.id}`);
+  const facts = page.getByTestId("culture-facts");
+  await expect(facts).toContainText(/[\d,]+ worms left/);
+  await expect(facts).toContainText("about 1,000 a pound");
+  await expect(facts).toContainText("Eisenia fetida");
+  await expect(facts).toContainText("Collect from the grower or Posted to you");
+  await expect(facts.getByTestId("posting-days")).toContainText(/Parcels go out on Monday and Tuesday.*goes out on (Monday|Tuesday) \d+ \w+ at the earliest/);
+  const report = page.getByRole("link", { name: "Report this supplier" });
+  await expect(report).toHaveAttribute("href", `/report?user=${grower.id}`);
+  await page.screenshot({ path: shot("grower-listing"), fullPage: true });
+  await page.setViewportSize(PHONE);
+  await page.screenshot({ path: shot("grower-listing-phone"), fullPage: true });
+  await report.click();
+  await expect(page.getByRole("heading", { name: "Report a problem" })).toBeVisible();
+  await expect(page.getByText(/Wrenfield Worms/).first()).toBeVisible();
+
+  // Ordering by post: the address, no pickup window, pay 4242 on the local checkout page.
+  await page.goto(`/listings/${culture.id}/reserve`);
+  await page.getByLabel("How many kilograms").fill("0.5");
+  await page.getByLabel("Post them to me").check();
+  await expect(page.getByText("When you will collect")).toHaveCount(0);
+  await page.getByRole("button", { name: "Reserve and pay €16.00" }).click();
+  await expect(page.getByText(/full postal address/)).toBeVisible(); // the address is required
+  await page.getByLabel("Postal address").fill("Flat 3, 21 Quarry Row\nFernhollow FH2 7QT");
+  await page.screenshot({ path: shot("grower-order-phone"), fullPage: true });
+  await page.getByRole("button", { name: "Reserve and pay €16.00" }).click();
+  await page.waitForURL(/\/pay\/cs_test_/);
+  await payOnCheckoutPage(page, "4242 4242 4242 4242");
+  await expect(page.getByRole("heading", { name: "Payment received" })).toBeVisible({ timeout: 20_000 });
+
+  const care = await latestMail(request, "gardener@duffbank.test", new RegExp(`^Care sheet: 0\\.5 kg of ${escape(culture.title)}`));
+  expect(care.text).toContain("Eisenia fetida");
+  expect(care.text).toMatch(/squeeze/i);
+  expect(care.text).toContain("55–78 °F");
+  expect(care.text).toContain("half their body weight");
+  expect(care.text).toContain("7–14 days after building it");
+  expect(care.text).toContain("invasive in some regions");
+  expect(care.text).toContain("local rules");
+
+  // The grower's dashboard: the order with the buyer's address; accept, pack, ship.
+  const id = sql<{ id: string }>("select id from reservations where listing_id = ? order by created_at desc limit 1", culture.id)[0].id;
+  await dash.goto("/grower");
+  const order = dash.locator(`#o-${id}`);
+  await expect(order).toContainText("For Ines Okafor");
+  await expect(order.getByTestId("ship-to")).toContainText("21 Quarry Row");
+  await expect(dash.getByTestId("orders-summary")).toContainText(/Next posting day: (Monday|Tuesday)/);
+  await order.getByRole("button", { name: "Accept" }).click();
+  await expect(order.getByRole("button", { name: "Mark packed" })).toBeVisible();
+  await order.getByRole("button", { name: "Mark packed" }).click();
+  await expect(order.getByRole("button", { name: "Mark shipped" })).toBeVisible();
+  await order.getByRole("button", { name: "Mark shipped" }).click();
+  await expect(order.getByText("Name the carrier, e.g. Royal Mail or a courier.")).toBeVisible();
+  await order.getByLabel("Carrier").fill("Royal Mail");
+  await order.getByLabel("Tracking number or link").fill("RM 1234 5678 5GB");
+  await dash.screenshot({ path: shot("grower-dashboard"), fullPage: true });
+  await order.getByRole("button", { name: "Mark shipped" }).click();
+  await expect(order.getByTestId("tracking")).toHaveText("RM 1234 5678 5GB");
+  await expect(order.getByRole("button", { name: "Mark delivered" })).toBeVisible();
+  await dash.setViewportSize(PHONE);
+  await dash.screenshot({ path: shot("grower-dashboard-phone"), fullPage: true });
+  await order.screenshot({ path: shot("grower-order-card-phone") });
+
+  const shipped = await latestMail(request, "gardener@duffbank.test", new RegExp(`^Shipped: 0\\.5 kg of ${escape(culture.title)}`));
+  expect(shipped.text).toContain("Carrier: Royal Mail");
+  expect(shipped.text).toContain("Tracking: RM 1234 5678 5GB");
+  expect(shipped.text).toContain("21 Quarry Row");
+  await latestMail(request, "gardener@duffbank.test", new RegExp(`^Packed: 0\\.5 kg of ${escape(culture.title)}`));
+
+  // The buyer follows it on their reservations and says when it has come.
+  await page.goto(`/reservations#r-${id}`);
+  const mine = page.locator(`#r-${id}`);
+  await expect(mine).toContainText("In the post with Royal Mail");
+  await expect(mine.locator('[aria-current="step"]')).toContainText("Shipped");
+  await page.screenshot({ path: shot("grower-buyer-phone"), fullPage: true });
+  await mine.getByRole("button", { name: "It has arrived" }).click();
+  await expect(mine).toContainText(/Delivered /);
+  expect(sql("select status, order_stage from reservations where id = ?", id)[0]).toEqual({ status: "collected", order_stage: "delivered" });
+  await latestMail(request, "grower@duffbank.test", new RegExp(`^Delivered: 0\\.5 kg of ${escape(culture.title)}`));
+
+  await g.close();
+  await b.close();
+});
