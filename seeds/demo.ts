@@ -6,6 +6,7 @@ import { demoListings } from "./listings";
 import { DEMO_PASSWORD, ORGANISATIONS, PEOPLE, TOWN } from "./town";
 import { seedId } from "./ids";
 import { seedCommunity } from "./community";
+import { seedPastPickups } from "./exchanges";
 
 // The demo scenario. Idempotent: every row has a fixed id and is written with
 // "insert or ignore", so a second run changes nothing, and rows people made while trying
@@ -135,10 +136,11 @@ export async function seed(knex: Knex): Promise<Record<string, number>> {
       .onConflict("id")
       .ignore();
     await seedCommunity(trx);
+    await seedPastPickups(trx);
   });
 
   const counts: Record<string, number> = {};
-  for (const table of ["materials", "organisations", "users", "user_roles", "memberships", "listings", "pickup_windows", "beds"]) {
+  for (const table of ["materials", "organisations", "users", "user_roles", "memberships", "listings", "pickup_windows", "beds", "reservations", "reviews"]) {
     const [{ n }] = await knex(table).count({ n: "*" });
     counts[table] = Number(n);
   }

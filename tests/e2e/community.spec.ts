@@ -240,9 +240,14 @@ test("the council owner invites a colleague who joins first, accepts, and is rem
 test("the home page shows how much has been kept from the bin", async ({ page }) => {
   await page.goto("/");
   await expect(page.getByRole("heading", { name: "Kept from the bin so far" })).toBeVisible();
-  // The figure is collected reservations only, and the seed has none collected (seeds/demo.ts
-  // adds no reservations; reservations.spec.ts, which collects some, runs after this file).
-  await expect(page.getByTestId("kept-kg")).toHaveText("0 kg");
+  // The figure is collected reservations only: the seed's five November pickups
+  // (seeds/exchanges.ts; reservations.spec.ts, which collects more, runs after this file):
+  //   8 sheets × 0.8 m² × 0.5 kg/m² (from memory)                          =   3.2 kg
+  //   4 + 3 bags of leaves × 30 US gal × 1 lb/gal (Missouri S&T) = 210 lb  =  95.25 kg
+  //   10 kg of coffee grounds (weighed)                                     =  10 kg
+  //   1 m³ of leaves = 264.17 US gal (NIST HB44: 231 in³) × 1 lb/gal        = 119.83 kg
+  // 228.3 kg in all, shown rounded to the kilogram.
+  await expect(page.getByTestId("kept-kg")).toHaveText("228 kg");
   // Giveaway check-ins are shown apart: the demo's past leaf day has 6 + 4 + 5 + 3 = 18 bags
   // checked in (seeds/community.ts) × 30 US gal (common practice) × 1 lb/gal (Missouri S&T) =
   // 540 lb ≈ 245 kg; the check-in earlier in this file adds to it.

@@ -3,6 +3,7 @@ import { freshDb } from "../helpers/db";
 import { seed } from "@/seeds/demo";
 import { MATERIAL_CODES } from "@/lib/calc/facts";
 import { PEOPLE } from "@/seeds/town";
+import { platformDivertedKg } from "@/lib/services/diversion-report";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 beforeAll(async () => {
@@ -10,7 +11,7 @@ beforeAll(async () => {
 });
 afterAll(() => ctx.close());
 
-const TABLES = ["materials", "organisations", "users", "user_roles", "memberships", "listings", "pickup_windows", "beds", "giveaway_days", "giveaway_slots", "giveaway_bookings", "grower_shipping"];
+const TABLES = ["materials", "organisations", "users", "user_roles", "memberships", "listings", "pickup_windows", "beds", "giveaway_days", "giveaway_slots", "giveaway_bookings", "grower_shipping", "reservations", "reservation_events", "reviews"];
 
 async function snapshot() {
   const out: Record<string, unknown[]> = {};
@@ -40,6 +41,21 @@ describe("demo seed", () => {
     const staff = await ctx.db("memberships as m").join("organisations as o", "o.id", "m.organisation_id").where("o.kind", "council");
     expect(staff.length).toBe(2);
     expect(PEOPLE.slice(0, 5).map((p) => p.key)).toEqual(["gardener", "supplier", "grower", "council", "moderator"]);
+  });
+
+  it("has past pickups that the listings' quantities and the home page's figure agree with", async () => {
+    const collected = await ctx.db("reservations").where({ status: "collected" });
+    expect(collected.length).toBeGreaterThanOrEqual(5);
+    for (const r of collected) {
+      const l = await ctx.db("listings").first("quantity_collected", "quantity_total").where({ id: r.listing_id });
+      expect(l.quantity_collected).toBeGreaterThanOrEqual(r.quantity);
+      expect(l.quantity_collected).toBeLessThanOrEqual(l.quantity_total);
+    }
+    // 8 sheets × 0.8 m² × 0.5 kg/m² (from memory) = 3.2 kg; 7 bags of leaves × 30 US gal
+    // × 1 lb/gal (Missouri S&T table) = 210 lb = 95.254 kg (NIST: 1 lb = 0.45359237 kg);
+    // 10 kg of coffee grounds; 1 m³ of leaves = 264.172 US gal (NIST HB44, 231 in³) × 1 lb/gal
+    // = 119.826 kg. In all 228.28 kg.
+    expect(await platformDivertedKg()).toBeCloseTo(228.28, 1);
   });
 
   it("keeps every public point a few hundred metres from the exact one", async () => {
