@@ -9,6 +9,7 @@ import { magicLinkSchema, signInSchema } from "@/lib/validation/auth";
 import { Field } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
+import { Form } from "@/components/ui/form";
 
 type SignInValues = z.infer<typeof signInSchema>;
 
@@ -29,7 +30,7 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-2" aria-labelledby="password-title">
+    <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-2" aria-labelledby="password-title">
       <h2 id="password-title" className="text-lg font-semibold">
         With your password
       </h2>
@@ -39,7 +40,7 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
       <Button type="submit" disabled={form.formState.isSubmitting}>
         {form.formState.isSubmitting ? "Signing in…" : "Sign in"}
       </Button>
-    </form>
+    </Form>
   );
 }
 
@@ -61,7 +62,7 @@ export function MagicLinkForm({ callbackUrl }: { callbackUrl: string }) {
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-2" aria-labelledby="link-title">
+    <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-2" aria-labelledby="link-title">
       <h2 id="link-title" className="text-lg font-semibold">
         Or with a link by e-mail
       </h2>
@@ -73,6 +74,6 @@ export function MagicLinkForm({ callbackUrl }: { callbackUrl: string }) {
       <Button type="submit" variant="secondary" disabled={form.formState.isSubmitting}>
         {form.formState.isSubmitting ? "Sending…" : "E-mail me a link"}
       </Button>
-    </form>
+    </Form>
   );
 }

@@ -11,6 +11,7 @@ import { Field } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { UnitSystemChoice } from "@/components/ui/unit-system-choice";
+import { Form } from "@/components/ui/form";
 
 type Values = z.input<typeof signUpSchema>;
 
@@ -40,7 +41,7 @@ export function SignUpForm({ callbackUrl, email = "" }: { callbackUrl?: string; 
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-2">
+    <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-2">
       {error ? <Notice tone="error">{error}</Notice> : null}
       <Field label="Your name" autoComplete="name" hint="Shown to the people you collect from or give to." {...form.register("display_name")} error={form.formState.errors.display_name?.message} />
       <Field label="E-mail" type="email" autoComplete="email" {...form.register("email")} error={form.formState.errors.email?.message} />
@@ -49,6 +50,6 @@ export function SignUpForm({ callbackUrl, email = "" }: { callbackUrl?: string; 
       <Button type="submit" disabled={form.formState.isSubmitting}>
         {form.formState.isSubmitting ? "Creating your account…" : "Create my account"}
       </Button>
-    </form>
+    </Form>
   );
 }

@@ -7,6 +7,7 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { useApiAction } from "@/components/ui/use-api-action";
+import { Form } from "@/components/ui/form";
 
 type InviteValues = z.infer<typeof inviteSchema>;
 
@@ -78,14 +79,14 @@ export function StaffPanel({ members, invites, isOwner, me }: { members: Member[
         </div>
       ) : null}
       {isOwner ? (
-        <form onSubmit={onInvite} noValidate className="flex flex-col gap-2 sm:flex-row sm:items-start" aria-label="Invite a colleague">
+        <Form onSubmit={onInvite} noValidate className="flex flex-col gap-2 sm:flex-row sm:items-start" aria-label="Invite a colleague">
           <div className="flex-1">
             <Field label="Invite a colleague by e-mail" type="email" autoComplete="off" {...form.register("email")} error={form.formState.errors.email?.message} />
           </div>
           <Button type="submit" className="sm:mt-7" disabled={action.busy}>
             {action.busy ? "Sending…" : "Send invitation"}
           </Button>
-        </form>
+        </Form>
       ) : (
         <p className="text-sm text-humus-600">Only your council&apos;s account owner can invite or remove staff.</p>
       )}

@@ -17,6 +17,7 @@ import { buttonClass } from "@/components/ui/button-class";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { useApiAction } from "@/components/ui/use-api-action";
+import { Form } from "@/components/ui/form";
 
 type Values = z.infer<typeof bookingSchema>;
 
@@ -84,7 +85,7 @@ function BookForm(p: BookingPanelProps) {
   });
   const slotError = form.formState.errors.slot_id?.message;
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3 rounded-lg bg-white p-4 ring-1 ring-humus-200" aria-labelledby="book-title">
+    <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-3 rounded-lg bg-white p-4 ring-1 ring-humus-200" aria-labelledby="book-title">
       <h2 id="book-title" className="text-lg font-semibold">
         Book a slot
       </h2>
@@ -124,7 +125,7 @@ function BookForm(p: BookingPanelProps) {
       <Button type="submit" disabled={form.formState.isSubmitting || !firstOpen}>
         {form.formState.isSubmitting ? "Booking…" : firstOpen ? "Book this slot" : "Every slot is full"}
       </Button>
-    </form>
+    </Form>
   );
 }
 

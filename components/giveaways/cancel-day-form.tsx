@@ -7,6 +7,7 @@ import { formatMoney } from "@/lib/payments/money";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { useApiAction } from "@/components/ui/use-api-action";
+import { Form } from "@/components/ui/form";
 
 type Values = z.infer<typeof cancelGiveawaySchema>;
 
@@ -19,7 +20,7 @@ export function CancelDayForm({ dayId, booked, depositCents }: { dayId: string; 
   });
   const err = form.formState.errors.reason?.message;
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-2">
+    <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-2">
       <p className="text-sm text-humus-700">
         Everyone booked gets an e-mail with your reason, and their booking is cancelled.
         {depositCents ? ` Their ${formatMoney(depositCents, "eur")} no-show deposit is released (none was charged: deposits are recorded only for now).` : ""}
@@ -35,6 +36,6 @@ export function CancelDayForm({ dayId, booked, depositCents }: { dayId: string; 
       <Button type="submit" variant="danger" className="self-start" disabled={action.busy}>
         {action.busy ? "Calling it off…" : "Call the day off"}
       </Button>
-    </form>
+    </Form>
   );
 }

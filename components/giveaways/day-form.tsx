@@ -10,6 +10,7 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { dayResolver, makeSlots, toDayBody, type DayFormValues } from "./day-form-model";
+import { Form } from "@/components/ui/form";
 
 export interface DayFormProps {
   mode: "create" | "edit";
@@ -61,7 +62,7 @@ export function DayForm({ mode, initial, dayId, locked = false }: DayFormProps) 
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-5" aria-label={mode === "create" ? "New giveaway day" : "Change the day"}>
+    <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-5" aria-label={mode === "create" ? "New giveaway day" : "Change the day"}>
       {error ? <Notice tone="error">{error}</Notice> : null}
       {saved ? <Notice>Saved.</Notice> : null}
       {locked ? <Notice>Households have booked, so the date, material and unit stay as they are. Call the day off and make a new one to change them.</Notice> : null}
@@ -176,7 +177,7 @@ export function DayForm({ mode, initial, dayId, locked = false }: DayFormProps) 
       <Button type="submit" className="self-start" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? "Saving…" : mode === "create" ? "Create the day" : "Save changes"}
       </Button>
-    </form>
+    </Form>
   );
 }
 

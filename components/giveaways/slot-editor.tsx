@@ -5,6 +5,7 @@ import { wallTime } from "@/lib/time/zoned";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { useApiAction } from "@/components/ui/use-api-action";
+import { Form } from "@/components/ui/form";
 
 /** Each slot's fill, with its size changed or the slot removed; new slots added below. */
 export function SlotEditor({ dayId, slots, timeZone, editable }: { dayId: string; slots: SlotView[]; timeZone: string; editable: boolean }) {
@@ -54,7 +55,7 @@ export function SlotEditor({ dayId, slots, timeZone, editable }: { dayId: string
         })}
       </ul>
       {editable ? (
-        <form
+        <Form
           className="flex flex-wrap items-end gap-2"
           aria-label="Add a slot"
           onSubmit={(e) => {
@@ -77,7 +78,7 @@ export function SlotEditor({ dayId, slots, timeZone, editable }: { dayId: string
           <Button type="submit" variant="secondary" disabled={action.busy}>
             Add slot
           </Button>
-        </form>
+        </Form>
       ) : null}
     </div>
   );

@@ -7,6 +7,7 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { useApiAction } from "@/components/ui/use-api-action";
+import { Form } from "@/components/ui/form";
 
 type Values = z.infer<typeof cultureSchema>;
 
@@ -16,7 +17,7 @@ export function CultureForm({ listingId, title, initial }: { listingId: string; 
   const form = useForm<Values>({ resolver: zodResolver(cultureSchema), defaultValues: { species: initial.species ?? "", ships: initial.ships, pickup: initial.pickup } });
   const errors = form.formState.errors;
   return (
-    <form
+    <Form
       noValidate
       aria-label={`Culture details for ${title}`}
       className="flex flex-col gap-2"
@@ -40,6 +41,6 @@ export function CultureForm({ listingId, title, initial }: { listingId: string; 
       <Button type="submit" variant="secondary" className="self-start" disabled={action.busy}>
         Save<span className="sr-only"> culture details for {title}</span>
       </Button>
-    </form>
+    </Form>
   );
 }

@@ -10,6 +10,7 @@ import { shipOrderSchema } from "@/lib/validation/grower";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { useReservationAction } from "@/components/reservations/use-reservation-action";
+import { Form } from "@/components/ui/form";
 
 const LIVE = new Set(["held", "confirmed", "collected"]);
 const isLink = (s: string) => /^https?:\/\/\S+$/i.test(s);
@@ -99,12 +100,12 @@ function ShipForm({ id }: { id: string }) {
     await run("ship", values);
   });
   return (
-    <form onSubmit={onSubmit} noValidate className="grid gap-x-3 sm:grid-cols-2" aria-label="Mark shipped">
+    <Form onSubmit={onSubmit} noValidate className="grid gap-x-3 sm:grid-cols-2" aria-label="Mark shipped">
       <Field label="Carrier" id={`carrier-${id}`} autoComplete="off" {...form.register("carrier")} error={form.formState.errors.carrier?.message ?? fields?.carrier} />
       <Field label="Tracking number or link" id={`tracking-${id}`} autoComplete="off" {...form.register("tracking")} error={form.formState.errors.tracking?.message ?? fields?.tracking} />
       <Button type="submit" disabled={!!busy} className="self-start sm:col-span-2 sm:justify-self-start">
         {busy === "ship" ? "Saving…" : "Mark shipped"}
       </Button>
-    </form>
+    </Form>
   );
 }

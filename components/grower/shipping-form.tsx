@@ -6,6 +6,7 @@ import { PAUSE_REASON_CHOICES, PAUSE_REASONS, shippingSchema, WEEKDAY_NAMES } fr
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { useApiAction } from "@/components/ui/use-api-action";
+import { Form } from "@/components/ui/form";
 
 type Values = z.input<typeof shippingSchema>;
 
@@ -18,7 +19,7 @@ export function ShippingForm({ initial }: { initial: { ship_weekdays: number[]; 
     await action.run("/api/grower/shipping", { method: "PUT", body: values });
   });
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label="Shipping days">
+    <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label="Shipping days">
       {action.error ? <Notice tone="error">{action.error}</Notice> : null}
       <Controller
         control={form.control}
@@ -71,6 +72,6 @@ export function ShippingForm({ initial }: { initial: { ship_weekdays: number[]; 
       <Button type="submit" className="self-start" disabled={action.busy}>
         {action.busy ? "Saving…" : "Save shipping"}
       </Button>
-    </form>
+    </Form>
   );
 }

@@ -11,6 +11,7 @@ import type { UnitSystem } from "@/lib/calc/units";
 import { ListingCard } from "./listing-card";
 import { RADIUS_CHOICES, searchString, type BrowseFilters } from "./browse-filters";
 import { useListings, type BrowsePage } from "./use-listings";
+import { Form } from "@/components/ui/form";
 
 const control = "min-h-11 rounded-lg border border-humus-300 bg-white px-3";
 
@@ -53,7 +54,7 @@ export function BrowseView({ initial, system }: { initial: { filters: BrowseFilt
 
   return (
     <div className="flex flex-col gap-4">
-      <form
+      <Form
         role="search"
         aria-label="Filter listings"
         className="flex flex-wrap items-end gap-3 rounded-lg bg-white p-4 ring-1 ring-humus-200"
@@ -94,7 +95,7 @@ export function BrowseView({ initial, system }: { initial: { filters: BrowseFilt
         <Button type="submit" variant="secondary">
           Search
         </Button>
-      </form>
+      </Form>
 
       <div className="grid gap-4 md:grid-cols-[minmax(0,1fr)_minmax(0,1.1fr)]">
         <section aria-labelledby="results-title" className="order-2 flex flex-col gap-3 md:order-1">

@@ -15,6 +15,7 @@ import { LocationPicker } from "./location-picker";
 import { PhotoManager, type PhotoRecord } from "./photo-manager";
 import { PickupWindowFields } from "./pickup-window-fields";
 import { QualityFields } from "./quality-fields";
+import { Form } from "@/components/ui/form";
 
 const UNIT_NAMES: Record<string, string> = { sheets: "sheets", m2: "area", bags: "bags", m3: "volume", bales: "bales", kg: "weight" };
 
@@ -68,7 +69,7 @@ export function ListingForm(props: Props) {
   const locationError = errors.location?.message ?? errors.location?.lat?.message ?? errors.location?.lng?.message;
 
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-8">
+    <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-8">
       {error ? <Notice tone="error">{error}</Notice> : null}
 
       <section className="flex flex-col gap-3" aria-labelledby="what-title">
@@ -183,6 +184,6 @@ export function ListingForm(props: Props) {
           </Button>
         )}
       </div>
-    </form>
+    </Form>
   );
 }

@@ -14,6 +14,7 @@ import { Notice } from "@/components/ui/notice";
 import { PlanPanel } from "./plan-panel";
 import { replaceNeed } from "./replace-need";
 import { useMatch } from "./use-match";
+import { Form } from "@/components/ui/form";
 
 /** "Find materials" for a saved bed: its own needs and point, a radius to try, and the plan. */
 export function BedMaterials({ bedId, bedPoint, system: defaultSystem }: { bedId: string; bedPoint: LatLng | null; system: UnitSystem }) {
@@ -84,7 +85,7 @@ export function BedMaterials({ bedId, bedPoint, system: defaultSystem }: { bedId
             Change these amounts in the planner
           </Link>
         </section>
-        <form
+        <Form
           onSubmit={(e) => {
             e.preventDefault();
             run();
@@ -96,7 +97,7 @@ export function BedMaterials({ bedId, bedPoint, system: defaultSystem }: { bedId
           <Button type="submit" disabled={query.isFetching || !start}>
             {query.isFetching ? "Finding…" : "Find materials"}
           </Button>
-        </form>
+        </Form>
         {!bedPoint ? <Notice tone="caution">This bed has no location yet: tap the map where you will start from.</Notice> : null}
       </aside>
       <PlanPanel title="Pickup plan" query={query} origin={origin} system={system} onSystem={setSystem} onPick={pick} onWiden={widen} onSubstitute={substitute} bedId={bedId} />

@@ -8,6 +8,7 @@ import type { MatchInput, MatchRequest } from "@/lib/validation/match";
 import { NEED_UNIT_LABEL, NEED_UNITS } from "@/lib/match/units";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
+import { Form } from "@/components/ui/form";
 
 /** The form holds what POST /api/match takes, checked by the same schema. */
 export type NeedsFormValues = MatchRequest;
@@ -28,7 +29,7 @@ export function NeedsForm({ form, system, onSubmit, busy }: { form: NeedsFormApi
     });
 
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label="What the bed needs">
+    <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label="What the bed needs">
       <fieldset className="flex flex-col gap-3">
         <legend className="mb-1 text-lg font-semibold">What the bed needs</legend>
         {errors.needs?.message || errors.needs?.root?.message ? (
@@ -130,6 +131,6 @@ export function NeedsForm({ form, system, onSubmit, busy }: { form: NeedsFormApi
       <Button type="submit" disabled={busy}>
         {busy ? "Finding…" : "Find materials"}
       </Button>
-    </form>
+    </Form>
   );
 }

@@ -9,6 +9,7 @@ import { MATERIAL_CODES, MATERIALS, CN_RATIO, MOISTURE_PCT } from "@/lib/calc/fa
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { CnBand } from "@/components/planner/cn-band";
+import { Form } from "@/components/ui/form";
 
 type Values = z.input<typeof blendSchema>;
 interface BlendResult {
@@ -36,7 +37,7 @@ export function MixCalculator() {
 
   return (
     <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_380px]">
-      <form onSubmit={form.handleSubmit((v) => mix.mutate(v))} noValidate className="flex flex-col gap-4" aria-label="Mix calculator">
+      <Form onSubmit={form.handleSubmit((v) => mix.mutate(v))} noValidate className="flex flex-col gap-4" aria-label="Mix calculator">
         <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-humus-200">
           <table className="w-full text-left text-sm">
             <thead className="bg-humus-100">
@@ -87,7 +88,7 @@ export function MixCalculator() {
           <Button type="submit" disabled={mix.isPending}>{mix.isPending ? "Mixing…" : "Work out the mix"}</Button>
         </div>
         {form.formState.errors.target_moisture_pct ? <p role="alert" className="text-sm text-ember-600">{form.formState.errors.target_moisture_pct.message}</p> : null}
-      </form>
+      </Form>
       <section aria-labelledby="mix-result" aria-live="polite" className="flex flex-col gap-3">
         <h2 id="mix-result" className="text-lg font-semibold">The mix</h2>
         {mix.isError ? <Notice tone="error">{isApiError(mix.error) ? mix.error.message : "That did not work."}</Notice> : null}

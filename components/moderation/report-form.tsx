@@ -7,6 +7,7 @@ import { apiFetch, isApiError } from "@/lib/api/client";
 import { REPORT_REASON_LABELS, REPORT_REASONS, reportSchema } from "@/lib/validation/moderation";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
+import { Form } from "@/components/ui/form";
 
 type Values = z.infer<typeof reportSchema>;
 
@@ -47,7 +48,7 @@ export function ReportForm({ listingId, userId, subjectLabel, onDone }: ReportFo
     );
   }
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label={`Report ${subjectLabel}`}>
+    <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label={`Report ${subjectLabel}`}>
       {error ? <Notice tone="error">{error}</Notice> : null}
       <fieldset className="flex flex-col gap-2" aria-describedby="reason-error">
         <legend className="font-medium">What is wrong with {subjectLabel}?</legend>
@@ -81,6 +82,6 @@ export function ReportForm({ listingId, userId, subjectLabel, onDone }: ReportFo
       <Button type="submit" className="self-start" disabled={form.formState.isSubmitting}>
         {form.formState.isSubmitting ? "Sending…" : "Send the report"}
       </Button>
-    </form>
+    </Form>
   );
 }

@@ -17,6 +17,7 @@ import { convertValues, defaultPlanValues, planResolver, toRequest, type PlanVal
 import { EstimateView } from "./estimate-view";
 import { UnitToggle } from "./unit-toggle";
 import { SaveBed } from "./save-bed";
+import { Form } from "@/components/ui/form";
 
 export interface PlanFormProps {
   system: UnitSystem;
@@ -65,7 +66,7 @@ export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFor
 
   return (
     <div className="grid gap-8 lg:grid-cols-[minmax(0,420px)_1fr]">
-      <form onSubmit={form.handleSubmit((v) => estimate.mutate(v))} noValidate className="flex flex-col gap-4" aria-label="Bed planner">
+      <Form onSubmit={form.handleSubmit((v) => estimate.mutate(v))} noValidate className="flex flex-col gap-4" aria-label="Bed planner">
         <div className="flex flex-wrap items-center justify-between gap-2">
           <h2 className="text-lg font-semibold">The bed</h2>
           <UnitToggle value={system} onChange={switchUnits} />
@@ -139,7 +140,7 @@ export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFor
         <Button type="submit" disabled={estimate.isPending}>
           {estimate.isPending ? "Working it out…" : "Work out what it takes"}
         </Button>
-      </form>
+      </Form>
 
       <section aria-labelledby="result-title" className="flex flex-col gap-4">
         <h2 id="result-title" className="text-lg font-semibold">

@@ -11,6 +11,7 @@ import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { UnitSystemChoice } from "@/components/ui/unit-system-choice";
 import type { Role } from "@/lib/auth/roles";
+import { Form } from "@/components/ui/form";
 
 type Values = z.input<typeof profileSchema>;
 
@@ -47,7 +48,7 @@ export function ProfileForm({ initial, roles, requested }: { initial: Values; ro
   };
 
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3">
+    <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-3">
       {saved ? <Notice title="Saved">Your profile is up to date.</Notice> : null}
       {error ? <Notice tone="error">{error}</Notice> : null}
       <Field label="Your name" {...form.register("display_name")} error={form.formState.errors.display_name?.message} />
@@ -63,6 +64,6 @@ export function ProfileForm({ initial, roles, requested }: { initial: Values; ro
       <Button type="submit" disabled={form.formState.isSubmitting} className="self-start">
         {form.formState.isSubmitting ? "Saving…" : "Save profile"}
       </Button>
-    </form>
+    </Form>
   );
 }

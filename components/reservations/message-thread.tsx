@@ -9,6 +9,7 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Spinner } from "@/components/ui/empty-state";
 import { useReservationMessages, useSendReservationMessage } from "./use-reservation-messages";
+import { Form } from "@/components/ui/form";
 
 /** The plain-text thread between the two people on a reservation; each message is e-mailed to the other. */
 export function MessageThread({ id, otherName, closed }: { id: string; otherName: string; closed: boolean }) {
@@ -46,12 +47,12 @@ export function MessageThread({ id, otherName, closed }: { id: string; otherName
         </ol>
       )}
       {closed ? null : (
-        <form onSubmit={onSubmit} noValidate className="flex flex-col gap-1">
+        <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-1">
           <Field label={`Message to ${otherName}`} id={`message-${id}`} autoComplete="off" {...form.register("body")} error={form.formState.errors.body?.message} />
           <Button type="submit" variant="secondary" disabled={send.isPending} className="self-start">
             {send.isPending ? "Sending…" : "Send"}
           </Button>
-        </form>
+        </Form>
       )}
     </div>
   );

@@ -9,6 +9,7 @@ import type { ReservationAction, Side } from "@/lib/reservations/policy";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { useReservationAction } from "./use-reservation-action";
+import { Form } from "@/components/ui/form";
 
 interface Props {
   id: string;
@@ -78,13 +79,13 @@ function ReasonForm({ id, action, label, note }: { id: string; action: "decline"
     await run(action, values.reason ? values : {});
   });
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-1 rounded-lg bg-humus-50 p-3 ring-1 ring-humus-200">
+    <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-1 rounded-lg bg-humus-50 p-3 ring-1 ring-humus-200">
       <p className="text-sm text-humus-700">{note}</p>
       <Field label="A note for the other side (optional)" id={`${action}-${id}`} {...form.register("reason")} error={form.formState.errors.reason?.message} />
       <Button type="submit" variant={action === "decline" ? "secondary" : "danger"} disabled={!!busy} className="self-start">
         {busy ? "Saving…" : label}
       </Button>
-    </form>
+    </Form>
   );
 }
 
@@ -100,7 +101,7 @@ function CollectForm({ id }: { id: string }) {
   });
   const fieldError = form.formState.errors.pickup_code?.message ?? (error && isApiError(error) ? error.fields?.pickup_code : undefined);
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-1 rounded-lg bg-moss-50 p-3 ring-1 ring-moss-200">
+    <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-1 rounded-lg bg-moss-50 p-3 ring-1 ring-moss-200">
       <Field label="Pickup code" id={`code-${id}`} autoComplete="off" autoCapitalize="characters" hint="The six characters the gardener shows you." {...form.register("pickup_code")} error={fieldError} className="max-w-48 font-mono uppercase tracking-widest" />
       <div className="flex flex-wrap items-center gap-3">
         <Button type="submit" disabled={!!busy}>
@@ -110,6 +111,6 @@ function CollectForm({ id }: { id: string }) {
           Collected without a code
         </button>
       </div>
-    </form>
+    </Form>
   );
 }

@@ -17,6 +17,7 @@ import { Field, TextAreaField } from "@/components/ui/field";
 import { dayLabel } from "@/lib/reservations/culture-orders";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
+import { Form } from "@/components/ui/form";
 
 type Values = z.input<typeof reserveOneSchema>;
 type Answer = { reservation: { id: string; status: string }; checkout_url?: string };
@@ -65,7 +66,7 @@ export function ReserveForm({ offer, unitSystem, cautions }: { offer: ReserveOff
   const submitLabel = offer.price_cents > 0 ? `Reserve and pay ${formatMoney(price, offer.currency)}` : offer.deposit_cents > 0 ? `Reserve and place the ${formatMoney(offer.deposit_cents, offer.currency)} deposit` : "Reserve";
   const busy = form.formState.isSubmitting;
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-5">
+    <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-5">
       {error ? <Notice tone="error">{error}</Notice> : null}
       <div>
         <Field
@@ -194,6 +195,6 @@ export function ReserveForm({ offer, unitSystem, cautions }: { offer: ReserveOff
       <Button type="submit" disabled={busy} className="self-start">
         {busy ? "Reserving…" : submitLabel}
       </Button>
-    </form>
+    </Form>
   );
 }

@@ -6,6 +6,7 @@ import { reviewSchema } from "@/lib/validation/reservations";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { useReservationAction } from "./use-reservation-action";
+import { Form } from "@/components/ui/form";
 
 const WORDS = ["", "Poor", "Not great", "All right", "Good", "Excellent"];
 
@@ -19,7 +20,7 @@ export function ReviewForm({ id, subject }: { id: string; subject: string }) {
   const ratingError = form.formState.errors.rating?.message;
   const rating = useWatch({ control: form.control, name: "rating" });
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-2 rounded-lg bg-litter-100 p-3">
+    <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-2 rounded-lg bg-litter-100 p-3">
       <fieldset aria-describedby={`rating-error-${id}`}>
         <legend className="font-medium">How was it with {subject}?</legend>
         <div className="mt-1 flex flex-wrap gap-2">
@@ -45,6 +46,6 @@ export function ReviewForm({ id, subject }: { id: string; subject: string }) {
           {error.message}
         </p>
       ) : null}
-    </form>
+    </Form>
   );
 }
