@@ -41,7 +41,7 @@ export const shipOrderSchema = z.object({
   carrier: z
     .string({ error: "Name the carrier." })
     .trim()
-    .min(2, "Name the carrier, e.g. Royal Mail or a courier.")
+    .min(2, "Name the carrier: the postal service or a courier.")
     .max(60, "Use at most 60 characters."),
   tracking: z
     .string({ error: "Give the tracking number or link." })

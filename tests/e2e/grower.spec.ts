@@ -114,27 +114,27 @@ test("a gardener buys a worm culture by post, the grower packs and ships it, and
   await order.getByRole("button", { name: "Mark packed" }).click();
   await expect(order.getByRole("button", { name: "Mark shipped" })).toBeVisible();
   await order.getByRole("button", { name: "Mark shipped" }).click();
-  await expect(order.getByText("Name the carrier, e.g. Royal Mail or a courier.")).toBeVisible();
-  await order.getByLabel("Carrier").fill("Royal Mail");
-  await order.getByLabel("Tracking number or link").fill("RM 1234 5678 5GB");
+  await expect(order.getByText("Name the carrier: the postal service or a courier.")).toBeVisible();
+  await order.getByLabel("Carrier").fill("Fernhollow Parcel Post");
+  await order.getByLabel("Tracking number or link").fill("FPP 1234 5678 5");
   await dash.screenshot({ path: shot("grower-dashboard"), fullPage: true });
   await order.getByRole("button", { name: "Mark shipped" }).click();
-  await expect(order.getByTestId("tracking")).toHaveText("RM 1234 5678 5GB");
+  await expect(order.getByTestId("tracking")).toHaveText("FPP 1234 5678 5");
   await expect(order.getByRole("button", { name: "Mark delivered" })).toBeVisible();
   await dash.setViewportSize(PHONE);
   await dash.screenshot({ path: shot("grower-dashboard-phone"), fullPage: true });
   await order.screenshot({ path: shot("grower-order-card-phone") });
 
   const shipped = await latestMail(request, "gardener@duffbank.test", new RegExp(`^Shipped: 0\\.5 kg of ${escape(culture.title)}`));
-  expect(shipped.text).toContain("Carrier: Royal Mail");
-  expect(shipped.text).toContain("Tracking: RM 1234 5678 5GB");
+  expect(shipped.text).toContain("Carrier: Fernhollow Parcel Post");
+  expect(shipped.text).toContain("Tracking: FPP 1234 5678 5");
   expect(shipped.text).toContain("21 Quarry Row");
   await latestMail(request, "gardener@duffbank.test", new RegExp(`^Packed: 0\\.5 kg of ${escape(culture.title)}`));
 
   // The buyer follows it on their reservations and says when it has come.
   await page.goto(`/reservations#r-${id}`);
   const mine = page.locator(`#r-${id}`);
-  await expect(mine).toContainText("In the post with Royal Mail");
+  await expect(mine).toContainText("In the post with Fernhollow Parcel Post");
   await expect(mine.locator('[aria-current="step"]')).toContainText("Shipped");
   await page.screenshot({ path: shot("grower-buyer-phone"), fullPage: true });
   await mine.getByRole("button", { name: "It has arrived" }).click();

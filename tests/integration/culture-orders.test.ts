@@ -41,7 +41,7 @@ afterAll(async () => {
 beforeEach(() => pay.fake.setWebhookUrl(pay.webhookUrl));
 
 const ADDRESS = "Flat 2, 14 Quarry Row, Fernhollow FH2 7QT";
-const SHIP = { carrier: "Royal Mail", tracking: "RM 1234 5678 9GB" };
+const SHIP = { carrier: "Fernhollow Parcel Post", tracking: "FPP 1234 5678 9" };
 
 async function wormListing(opts: { quality?: Record<string, unknown>; price_cents?: number; auto_accept?: boolean; quantity_total?: number } = {}) {
   const l = await createListing({ ownerId: p.grower, material: "worms", unit: "kg", quantity_total: opts.quantity_total ?? 20, price_cents: opts.price_cents ?? 0, auto_accept: opts.auto_accept });
@@ -167,11 +167,11 @@ describe("a paid culture: the care sheet on purchase, then packed, shipped and d
     expect((await act(pack, id, p.grower)).status).toBe(200);
     const shipped = await act(ship, id, p.grower, SHIP);
     expect(shipped.status).toBe(200);
-    expect(shipped.json.reservation.order).toMatchObject({ stage: "shipped", carrier: "Royal Mail", tracking: "RM 1234 5678 9GB" });
+    expect(shipped.json.reservation.order).toMatchObject({ stage: "shipped", carrier: "Fernhollow Parcel Post", tracking: "FPP 1234 5678 9" });
     const shippedMail = (await mails(id)).find((m) => m.template === "culture.shipped")!;
     expect(shippedMail.to_address).toBe(buyer.email);
-    expect(shippedMail.text_body).toContain("Carrier: Royal Mail");
-    expect(shippedMail.text_body).toContain("Tracking: RM 1234 5678 9GB");
+    expect(shippedMail.text_body).toContain("Carrier: Fernhollow Parcel Post");
+    expect(shippedMail.text_body).toContain("Tracking: FPP 1234 5678 9");
     expect((await listingQuantities(l.id)).quantity_held).toBe(2);
 
     const done = await act(deliver, id, p.buyer);
@@ -181,7 +181,7 @@ describe("a paid culture: the care sheet on purchase, then packed, shipped and d
     expect(done.json.reservation.can_review).toBe(true);
 
     const history = await db()("reservation_events").where({ reservation_id: id }).orderBy("id").pluck("note");
-    expect(history).toEqual(expect.arrayContaining(["Packed", "Shipped with Royal Mail, tracking RM 1234 5678 9GB", "Delivered: the buyer says it arrived"]));
+    expect(history).toEqual(expect.arrayContaining(["Packed", "Shipped with Fernhollow Parcel Post, tracking FPP 1234 5678 9", "Delivered: the buyer says it arrived"]));
     const templates = (await mails(id)).map((m) => m.template).sort();
     expect(templates).toEqual(["culture.care_sheet", "culture.delivered", "culture.delivered", "culture.order_confirmed", "culture.order_confirmed", "culture.packed", "culture.shipped"]);
   });
@@ -276,11 +276,11 @@ describe("parcel steps: every route × party × state", () => {
 describe("bad input to the steps", () => {
   const BAD: [string, unknown, string][] = [
     ["no carrier", { tracking: "RM123456789GB" }, "carrier"],
-    ["no tracking", { carrier: "Royal Mail" }, "tracking"],
+    ["no tracking", { carrier: "Fernhollow Parcel Post" }, "tracking"],
     ["a one-letter carrier", { carrier: "R", tracking: "RM123456789GB" }, "carrier"],
-    ["tracking too short to follow", { carrier: "Royal Mail", tracking: "12" }, "tracking"],
+    ["tracking too short to follow", { carrier: "Fernhollow Parcel Post", tracking: "12" }, "tracking"],
     ["a carrier name past 60 characters", { carrier: "x".repeat(61), tracking: "RM123456789GB" }, "carrier"],
-    ["tracking as a number", { carrier: "Royal Mail", tracking: 123456 }, "tracking"],
+    ["tracking as a number", { carrier: "Fernhollow Parcel Post", tracking: 123456 }, "tracking"],
   ];
   for (const [label, body, field] of BAD) {
     it(`422 on ${field}: ${label}`, async () => {
