@@ -149,7 +149,7 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
 
           <section aria-labelledby="where-title" className="flex flex-col gap-2">
             <h2 id="where-title" className="font-semibold">Roughly where</h2>
-            <DuffMap center={listing.location} zoom={14} markers={[{ id: listing.id, ...listing.location, label: "Approximate pickup area" }]} label="Map of the approximate pickup area" className="h-56" />
+            <DuffMap center={listing.location} zoom={13} markers={[{ id: listing.id, ...listing.location, label: "Approximate pickup area" }]} label="Map of the approximate pickup area" className="h-56" />
             <p className="text-sm text-humus-600">
               The point is within about {APPROX_MAX_M} m of the pickup. The exact address is shared once the supplier confirms your reservation.
             </p>
