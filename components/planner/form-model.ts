@@ -1,6 +1,6 @@
 import type { FieldErrors, Resolver } from "react-hook-form";
 import { estimateSchema, type EstimateRequest } from "@/lib/validation/estimate";
-import { cmToIn, ftToM, inToCm, mToFt, type UnitSystem } from "@/lib/calc/units";
+import { cmToIn, ftToM, inToCm, kgToLb, lbToKg, m2ToFt2, mToFt, type UnitSystem } from "@/lib/calc/units";
 import { CARDBOARD_OVERLAP_CM, LAYER_DEPTH_CM } from "@/lib/calc/facts";
 import type { LatLng } from "@/components/map/types";
 
@@ -19,12 +19,73 @@ export interface PlanValues {
   leaves_depth: string;
   straw_on: boolean;
   straw_depth: string;
+  chips_on: boolean;
+  chips_depth: string;
+  /** Cardboard sheet sides in cm or in; blank for the usual sheet. */
+  sheet_length: string;
+  sheet_width: string;
   worms_on: boolean;
+  /** Worms to stock in kg/m² or oz/ft²; blank for the usual stocking. */
+  worms_stocking: string;
   start_date: string;
+  /**
+   * A saved bed's exact values and how each was shown: a number left as shown is sent back
+   * exactly, so editing a bed never nudges a setting through rounding for display.
+   */
+  saved?: Partial<Record<NumericField, { shown: string; si: number }>>;
 }
+
+/** The form's number fields and what each measures. */
+const NUMERIC = {
+  length: "len",
+  width: "len",
+  overlap: "depth",
+  sheet_length: "sheet",
+  sheet_width: "sheet",
+  leaves_depth: "depth",
+  straw_depth: "depth",
+  chips_depth: "depth",
+  worms_stocking: "stocking",
+} as const;
+type NumericField = keyof typeof NUMERIC;
+type Measure = (typeof NUMERIC)[NumericField];
+const NUMERIC_FIELDS = Object.keys(NUMERIC) as NumericField[];
 
 const num = (s: string) => (s.trim() === "" ? Number.NaN : Number(s.replace(",", ".")));
 const fix = (x: number, d = 1) => String(Math.round(x * 10 ** d) / 10 ** d);
+
+// kg/m² ↔ oz/ft²: 16 oz to the lb (exact), the pound and foot from NIST in facts.ts.
+const kgM2ToOzFt2 = (x: number) => (kgToLb(x) * 16) / m2ToFt2(1);
+const ozFt2ToKgM2 = (x: number) => (lbToKg(x / 16) * m2ToFt2(1));
+
+// Sheet sides are sent in metres but shown in cm or in, like a depth; toPrecision drops the
+// float noise of × 100 (1.1 m is 110.00000000000001 cm).
+const mToCm = (m: number) => Number((m * 100).toPrecision(12));
+
+/** A value as the request carries it (m, cm or kg/m²) as the form shows it in `system`. */
+function show(measure: Measure, si: number, system: UnitSystem): string {
+  if (measure === "sheet") return system === "metric" ? String(mToCm(si)) : fix(cmToIn(si * 100), 1);
+  if (system === "metric") return String(si);
+  if (measure === "len") return fix(mToFt(si), 2);
+  if (measure === "depth") return fix(cmToIn(si), 1);
+  return fix(kgM2ToOzFt2(si), 2);
+}
+
+/** A number typed in `system` as the request carries it (m, cm or kg/m²). */
+function toSi(measure: Measure, n: number, system: UnitSystem): number {
+  if (measure === "sheet") return (system === "metric" ? n : inToCm(n)) / 100;
+  if (system === "metric") return n;
+  if (measure === "len") return ftToM(n);
+  if (measure === "depth") return inToCm(n);
+  return ozFt2ToKgM2(n);
+}
+
+/** The SI value of a number field: the saved value while it is left as shown, else what is typed. */
+function siOf(v: PlanValues, field: NumericField): number {
+  const kept = v.saved?.[field];
+  if (kept && kept.shown === v[field]) return kept.si;
+  return toSi(NUMERIC[field], num(v[field]), v.system);
+}
 
 export function defaultPlanValues(system: UnitSystem, today: string): PlanValues {
   const len = (m: number) => (system === "metric" ? fix(m, 2) : fix(mToFt(m), 1));
@@ -42,7 +103,12 @@ export function defaultPlanValues(system: UnitSystem, today: string): PlanValues
     leaves_depth: depth(LAYER_DEPTH_CM.leaves.default),
     straw_on: true,
     straw_depth: depth(LAYER_DEPTH_CM.straw.default),
+    chips_on: false,
+    chips_depth: depth(LAYER_DEPTH_CM.wood_chips.default),
+    sheet_length: "",
+    sheet_width: "",
     worms_on: true,
+    worms_stocking: "",
     start_date: today,
   };
 }
@@ -52,26 +118,51 @@ export function convertValues(v: PlanValues, from: UnitSystem, to: UnitSystem): 
   if (from === to) return v;
   const len = (s: string) => (Number.isNaN(num(s)) ? s : to === "imperial" ? fix(mToFt(num(s)), 2) : fix(ftToM(num(s)), 2));
   const depth = (s: string) => (Number.isNaN(num(s)) ? s : to === "imperial" ? fix(cmToIn(num(s)), 1) : fix(inToCm(num(s)), 1));
-  return { ...v, system: to, length: len(v.length), width: len(v.width), overlap: depth(v.overlap), leaves_depth: depth(v.leaves_depth), straw_depth: depth(v.straw_depth) };
+  const stocking = (s: string) => (Number.isNaN(num(s)) ? s : to === "imperial" ? fix(kgM2ToOzFt2(num(s)), 2) : fix(ozFt2ToKgM2(num(s)), 2));
+  const convert = { len, depth, sheet: depth, stocking };
+  const out: PlanValues = { ...v, system: to };
+  const saved: PlanValues["saved"] = {};
+  for (const field of NUMERIC_FIELDS) {
+    const kept = v.saved?.[field];
+    if (kept && kept.shown === v[field]) {
+      // Still the saved value: show it afresh from SI rather than converting a rounded figure.
+      out[field] = show(NUMERIC[field], kept.si, to);
+      saved[field] = { shown: out[field], si: kept.si };
+    } else {
+      out[field] = convert[NUMERIC[field]](v[field]);
+    }
+  }
+  if (v.saved) out.saved = saved;
+  return out;
 }
 
 /** The request POST /api/estimate takes, in SI, built from the form. */
 export function toRequest(v: PlanValues): EstimateRequest {
-  const system = v.system;
-  const m = (s: string) => (system === "metric" ? num(s) : ftToM(num(s)));
-  const cm = (s: string) => (system === "metric" ? num(s) : inToCm(num(s)));
+  const si = (field: NumericField) => siOf(v, field);
+  // A blank optional setting is left out, so the layer takes its usual value.
+  const optional = (field: NumericField) => (v[field].trim() === "" ? undefined : si(field));
   const ring = v.outline.map((p) => [p.lng, p.lat] as [number, number]);
   const bed =
     v.shape === "outline"
       ? { polygon: { type: "Polygon" as const, coordinates: [ring.length ? [...ring, ring[0]] : []] } }
-      : { length_m: m(v.length), width_m: m(v.width) };
+      : { length_m: si("length"), width_m: si("width") };
+  const sheetLength = optional("sheet_length");
+  const sheetWidth = optional("sheet_width");
+  const stocking = optional("worms_stocking");
   return {
     bed: bed as EstimateRequest["bed"],
     layers: {
-      cardboard: v.cardboard_on ? { overlap_cm: cm(v.overlap) } : false,
-      leaves: v.leaves_on ? { depth_cm: cm(v.leaves_depth) } : false,
-      straw: v.straw_on ? { depth_cm: cm(v.straw_depth) } : false,
-      worms: v.worms_on,
+      cardboard: v.cardboard_on
+        ? {
+            overlap_cm: si("overlap"),
+            ...(sheetLength === undefined ? {} : { sheet_length_m: sheetLength }),
+            ...(sheetWidth === undefined ? {} : { sheet_width_m: sheetWidth }),
+          }
+        : false,
+      leaves: v.leaves_on ? { depth_cm: si("leaves_depth") } : false,
+      straw: v.straw_on ? { depth_cm: si("straw_depth") } : false,
+      wood_chips: v.chips_on ? { depth_cm: si("chips_depth") } : false,
+      worms: v.worms_on ? (stocking === undefined ? true : { kg_per_m2: stocking }) : false,
     },
     ...(v.start_date ? { start_date: v.start_date } : {}),
     ...(v.shape === "rectangle" && v.location ? { latitude: v.location.lat } : {}),
@@ -84,9 +175,13 @@ const FIELD_FOR: [RegExp, keyof PlanValues][] = [
   [/^bed\.width_m/, "width"],
   [/^bed\.polygon/, "outline"],
   [/^bed$/, "length"],
+  [/^layers\.cardboard\.sheet_length_m/, "sheet_length"],
+  [/^layers\.cardboard\.sheet_width_m/, "sheet_width"],
   [/^layers\.cardboard/, "overlap"],
   [/^layers\.leaves/, "leaves_depth"],
   [/^layers\.straw/, "straw_depth"],
+  [/^layers\.wood_chips/, "chips_depth"],
+  [/^layers\.worms/, "worms_stocking"],
   [/^start_date/, "start_date"],
 ];
 
@@ -122,25 +217,47 @@ export function valuesFromBed(
   const base = defaultPlanValues("metric", today);
   const layer = (key: string) => bed.layers[key];
   const on = (key: string, byDefault = true) => (layer(key) === undefined ? byDefault : layer(key) !== false);
-  const setting = (key: string, field: string, fallback: string) => {
-    const v = layer(key);
-    return v && typeof v === "object" && field in v ? String((v as Record<string, number>)[field]) : fallback;
+  const saved: NonNullable<PlanValues["saved"]> = {};
+  const keep = (field: NumericField, si: unknown) => {
+    if (typeof si === "number" && Number.isFinite(si)) saved[field] = { shown: show(NUMERIC[field], si, "metric"), si };
   };
+  const setting = (key: string, name: string) => {
+    const v = layer(key);
+    return v && typeof v === "object" ? (v as Record<string, unknown>)[name] : undefined;
+  };
+  if ("length_m" in bed.shape) {
+    keep("length", bed.shape.length_m);
+    keep("width", bed.shape.width_m);
+  }
+  keep("overlap", setting("cardboard", "overlap_cm"));
+  keep("sheet_length", setting("cardboard", "sheet_length_m"));
+  keep("sheet_width", setting("cardboard", "sheet_width_m"));
+  keep("leaves_depth", setting("leaves", "depth_cm"));
+  keep("straw_depth", setting("straw", "depth_cm"));
+  keep("chips_depth", setting("wood_chips", "depth_cm"));
+  keep("worms_stocking", setting("worms", "kg_per_m2"));
+  const shown = (field: NumericField) => saved[field]?.shown ?? base[field];
   const metric: PlanValues = {
     ...base,
     shape: "polygon" in bed.shape ? "outline" : "rectangle",
-    length: "length_m" in bed.shape ? String(bed.shape.length_m) : base.length,
-    width: "width_m" in bed.shape ? String(bed.shape.width_m) : base.width,
+    length: shown("length"),
+    width: shown("width"),
     outline: "polygon" in bed.shape ? bed.shape.polygon.coordinates[0].slice(0, -1).map(([lng, lat]) => ({ lat, lng })) : [],
     location: bed.location,
     cardboard_on: on("cardboard"),
-    overlap: setting("cardboard", "overlap_cm", base.overlap),
+    overlap: shown("overlap"),
+    sheet_length: shown("sheet_length"),
+    sheet_width: shown("sheet_width"),
     leaves_on: on("leaves"),
-    leaves_depth: setting("leaves", "depth_cm", base.leaves_depth),
+    leaves_depth: shown("leaves_depth"),
     straw_on: on("straw"),
-    straw_depth: setting("straw", "depth_cm", base.straw_depth),
+    straw_depth: shown("straw_depth"),
+    chips_on: on("wood_chips", false),
+    chips_depth: shown("chips_depth"),
     worms_on: on("worms"),
+    worms_stocking: shown("worms_stocking"),
     start_date: bed.start_date ?? "",
+    saved,
   };
   return convertValues(metric, "metric", system);
 }

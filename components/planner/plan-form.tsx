@@ -42,9 +42,9 @@ export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFor
   const resolver = useMemo(() => planResolver(), []);
   const form = useForm<PlanValues>({ resolver, defaultValues: bed?.values ?? defaultPlanValues(initialSystem, today) });
   const { register, setValue, getValues, formState, control } = form;
-  const [system, shape, outline, location, cardboardOn, leavesOn, strawOn] = useWatch({
+  const [system, shape, outline, location, cardboardOn, leavesOn, strawOn, chipsOn, wormsOn] = useWatch({
     control,
-    name: ["system", "shape", "outline", "location", "cardboard_on", "leaves_on", "straw_on"],
+    name: ["system", "shape", "outline", "location", "cardboard_on", "leaves_on", "straw_on", "chips_on", "worms_on"],
   });
 
   const estimate = useMutation({
@@ -60,6 +60,7 @@ export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFor
 
   const unitLen = system === "metric" ? "m" : "ft";
   const unitDepth = system === "metric" ? "cm" : "in";
+  const unitStocking = system === "metric" ? "kg/m²" : "oz/ft²";
   const errors = formState.errors;
   const result = estimate.data;
   const where = shape === "outline" && outline.length ? outline[0] : location;
@@ -122,7 +123,13 @@ export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFor
           <legend className="px-1 font-semibold">Layers, bottom to top</legend>
           <LayerSwitch label="Cardboard" {...register("cardboard_on")} />
           {cardboardOn ? (
-            <Field label={`Seam overlap (${unitDepth})`} hint="Usually about 15 cm (6 in)." inputMode="decimal" {...register("overlap")} error={errors.overlap?.message} />
+            <>
+              <Field label={`Seam overlap (${unitDepth})`} hint="Usually about 15 cm (6 in)." inputMode="decimal" {...register("overlap")} error={errors.overlap?.message} />
+              <div className="grid grid-cols-2 gap-3">
+                <Field label={`Sheet length (${unitDepth})`} hint="Blank for 100 cm (39 in)." inputMode="decimal" {...register("sheet_length")} error={errors.sheet_length?.message} />
+                <Field label={`Sheet width (${unitDepth})`} hint="Blank for 80 cm (31.5 in)." inputMode="decimal" {...register("sheet_width")} error={errors.sheet_width?.message} />
+              </div>
+            </>
           ) : null}
           <LayerSwitch label="Leaves" {...register("leaves_on")} />
           {leavesOn ? (
@@ -132,7 +139,20 @@ export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFor
           {strawOn ? (
             <Field label={`Straw depth (${unitDepth})`} hint="Usually about 5 cm (2 in)." inputMode="decimal" {...register("straw_depth")} error={errors.straw_depth?.message} />
           ) : null}
+          <LayerSwitch label="Wood chips" {...register("chips_on")} />
+          {chipsOn ? (
+            <Field label={`Wood chip depth (${unitDepth})`} hint="Usually about 7.5 cm (3 in)." inputMode="decimal" {...register("chips_depth")} error={errors.chips_depth?.message} />
+          ) : null}
           <LayerSwitch label="Composting worms, a week or two later" {...register("worms_on")} />
+          {wormsOn ? (
+            <Field
+              label={`Worms to stock (${unitStocking})`}
+              hint="Blank for about 0.5 kg/m² (1.6 oz/ft²)."
+              inputMode="decimal"
+              {...register("worms_stocking")}
+              error={errors.worms_stocking?.message}
+            />
+          ) : null}
         </fieldset>
 
         <Field label="Build day" type="date" {...register("start_date")} error={errors.start_date?.message} />

@@ -8,6 +8,7 @@ import * as calendar from "@/app/api/beds/[id]/calendar.ics/route";
 import { sendBedReminders } from "@/lib/services/send-bed-reminders";
 import { updateUser } from "@/db/users";
 import { insertBed } from "@/db/beds";
+import { toRequest, valuesFromBed } from "@/components/planner/form-model";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 let ada: string;
@@ -113,6 +114,34 @@ describe("beds: save, list, read, change, delete", () => {
     expect((await call(bed.DELETE as never, await request(`/api/beds/${id}`, { method: "DELETE", as: ada }), { id })).status).toBe(204);
     expect((await call(bed.GET as never, await request(`/api/beds/${id}`, { as: ada }), { id })).status).toBe(404);
   });
+});
+
+describe("beds: editing in the planner form", () => {
+  // Wood chips, a sheet size and a stocking rate are taken by the API; the edit form must hand them back.
+  const recipe = {
+    cardboard: { overlap_cm: 20, sheet_length_m: 1.1, sheet_width_m: 0.7 },
+    leaves: { depth_cm: 15 },
+    straw: false,
+    wood_chips: { depth_cm: 10 },
+    worms: { kg_per_m2: 1 },
+  };
+  for (const system of ["metric", "imperial"] as const) {
+    it(`keeps every layer setting when a bed is saved from the edit form untouched (${system})`, async () => {
+      const made = await call(beds.POST as never, await request("/api/beds", { body: { ...good, layers: recipe }, as: ada }));
+      expect(made.status).toBe(201);
+      const id = made.json.bed.id;
+      // What the edit page does: the saved bed as form values, then what the save button sends.
+      const read = await call(bed.GET as never, await request(`/api/beds/${id}`, { as: ada }), { id });
+      const values = valuesFromBed(read.json.bed, system, "2027-01-01");
+      const req = toRequest({ ...values, start_date: "2027-04-01" });
+      const body = { name: "Renamed strip", bed: req.bed, layers: req.layers, start_date: req.start_date ?? null, location: values.location };
+      const res = await call(bed.PATCH as never, await request(`/api/beds/${id}`, { method: "PATCH", body, as: ada }), { id });
+      expect(res.status).toBe(200);
+      expect(res.json.bed).toMatchObject({ name: "Renamed strip", start_date: "2027-04-01", shape: good.bed, layers: recipe });
+      // 3.6 m² × 0.10 m of chips = 0.36 m³ (volume = area × depth).
+      expect(res.json.estimate.needs.find((n: { material: string }) => n.material === "wood_chips").quantity).toBeCloseTo(0.36, 6);
+    });
+  }
 });
 
 describe("timeline reminders", () => {

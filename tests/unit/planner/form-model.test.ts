@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { defaultPlanValues, toRequest, valuesFromBed, type PlanValues } from "@/components/planner/form-model";
+import { convertValues, defaultPlanValues, toRequest, valuesFromBed, type PlanValues } from "@/components/planner/form-model";
 import { estimateSchema } from "@/lib/validation/estimate";
 import { createBedSchema, updateBedSchema } from "@/lib/validation/beds";
 
@@ -46,5 +46,62 @@ describe("the planner form's request", () => {
     const request = toRequest(valuesFromBed(bed, "metric", "2027-01-01"));
     expect(estimateSchema.safeParse(request).success).toBe(true);
     expect(request.layers).toMatchObject({ leaves: { depth_cm: 20 }, straw: false });
+  });
+});
+
+// A recipe with every setting the bed schema takes, as a bed saved through the API may hold.
+const FULL_RECIPE = {
+  cardboard: { overlap_cm: 20, sheet_length_m: 1.2, sheet_width_m: 0.9 },
+  leaves: { depth_cm: 15 },
+  straw: { depth_cm: 7 },
+  wood_chips: { depth_cm: 10 },
+  worms: { kg_per_m2: 1.5 },
+};
+
+/** The body components/planner/save-bed.tsx sends for these form values. */
+const saveBody = (v: PlanValues, name = "Back fence") => {
+  const request = toRequest(v);
+  return { name, bed: request.bed, layers: request.layers, start_date: request.start_date ?? null, location: v.location };
+};
+
+describe("editing a saved bed", () => {
+  const saved = { shape: { length_m: 3, width_m: 1.2 }, layers: FULL_RECIPE, start_date: "2027-03-01", location: { lat: 52.2, lng: 0.85 } };
+
+  for (const system of ["metric", "imperial"] as const) {
+    it(`keeps every layer setting when saved untouched (${system})`, () => {
+      const body = saveBody(valuesFromBed(saved, system, "2027-01-01"));
+      const parsed = updateBedSchema.safeParse(body);
+      expect(parsed.success ? [] : parsed.error.issues).toEqual([]);
+      expect(body.layers).toEqual(FULL_RECIPE);
+      expect(body.bed).toEqual({ length_m: 3, width_m: 1.2 });
+    });
+
+    it(`keeps them through a switch of units and back (${system})`, () => {
+      const other = system === "metric" ? "imperial" : "metric";
+      const there = valuesFromBed(saved, system, "2027-01-01");
+      const back = convertValues(convertValues(there, system, other), other, system);
+      expect(saveBody(back).layers).toEqual(FULL_RECIPE);
+    });
+  }
+
+  it("shows the wood chips and the sheet size in the form, in the gardener's units", () => {
+    const metric = valuesFromBed(saved, "metric", "2027-01-01");
+    expect(metric).toMatchObject({ chips_on: true, chips_depth: "10", sheet_length: "120", sheet_width: "90", worms_stocking: "1.5" });
+    const imperial = valuesFromBed(saved, "imperial", "2027-01-01");
+    // 10 cm = 3.94 in and 120 cm = 47.24 in (1 in = 2.54 cm exactly, NIST SP 811 appendix B).
+    expect(imperial).toMatchObject({ chips_on: true, chips_depth: "3.9", sheet_length: "47.2" });
+  });
+
+  it("sends a setting the gardener changed, and leaves a blank optional one to its default", () => {
+    const v = valuesFromBed(saved, "metric", "2027-01-01");
+    const body = saveBody({ ...v, chips_depth: "12", sheet_width: "", worms_stocking: "" });
+    expect(body.layers).toEqual({ ...FULL_RECIPE, cardboard: { overlap_cm: 20, sheet_length_m: 1.2 }, wood_chips: { depth_cm: 12 }, worms: true });
+  });
+
+  it("keeps wood chips off for a bed without them, and lets the gardener turn them on", () => {
+    const v = valuesFromBed({ ...saved, layers: { straw: false } }, "metric", "2027-01-01");
+    expect(v.chips_on).toBe(false);
+    expect(saveBody(v).layers?.wood_chips).toBe(false);
+    expect(saveBody({ ...v, chips_on: true }).layers?.wood_chips).toEqual({ depth_cm: 7.5 });
   });
 });
