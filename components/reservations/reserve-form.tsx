@@ -24,7 +24,8 @@ type Answer = { reservation: { id: string; status: string }; checkout_url?: stri
 
 const UNIT_QUESTION: Record<string, string> = { bales: "How many bales", bags: "How many bags", sheets: "How many sheets", kg: "How many kilograms", m3: "How many cubic metres", m2: "How many square metres" };
 
-export function ReserveForm({ offer, unitSystem, cautions }: { offer: ReserveOffer; unitSystem: UnitSystem; cautions: string[] }) {
+/** `cautions` are for collecting; `postedCautions`, where given, replace them while posting is chosen. */
+export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { offer: ReserveOffer; unitSystem: UnitSystem; cautions: string[]; postedCautions?: string[] }) {
   const router = useRouter();
   const culture = offer.culture;
   const [error, setError] = useState<string | null>(null);
@@ -186,7 +187,7 @@ export function ReserveForm({ offer, unitSystem, cautions }: { offer: ReserveOff
 
       <Notice tone="caution" title={culture ? "Live animals" : "Before you collect"}>
         <ul className="list-disc pl-5">
-          {cautions.map((c) => (
+          {(posted && postedCautions ? postedCautions : cautions).map((c) => (
             <li key={c}>{c}</li>
           ))}
         </ul>

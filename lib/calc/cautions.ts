@@ -25,6 +25,9 @@ export const CAUTION_TEXT = {
   smallBale: `A small bale weighs about ${baleKg(BALE_MASS_LB.min)}–${baleKg(BALE_MASS_LB.max)} kg (${BALE_MASS_LB.min}–${BALE_MASS_LB.max} lb), at or over the ${NIOSH_LIFT_LIMIT_KG} kg (${NIOSH_LIFT_LIMIT_LB} lb) NIOSH limit for one lift: keep it close, bend your knees, and share the lift with a second person.`,
   worms:
     "Worms are live animals, and some earthworm species are invasive in some regions. Buy from a grower who can tell you the species, and follow your local rules.",
+  // How live worms travel, by the way they reach the buyer (common practice, no source).
+  wormsCollected: "bring a container with damp bedding, keep it out of the sun and the cold, and go straight home",
+  wormsPosted: "be in when the parcel is due, open it as soon as it comes, and move the worms into damp bedding out of the sun and the cold",
   // General to every bed: Legionella and other microbes in soil, compost and manure (WHS Queensland).
   gloves: "Wear gloves with soil, compost and manure, dampen anything dusty, and wash your hands afterwards.",
   watering: "Check for local watering restrictions before you soak the bed.",
@@ -51,7 +54,16 @@ export interface ListingCautionInput {
   material: MaterialCode;
   unit: string;
   unit_mass_kg: number | null;
-  quality: { tape_removed?: boolean; no_glossy_print?: boolean; herbicide_history?: string; leaf_source?: string; species?: string };
+  quality: {
+    tape_removed?: boolean;
+    no_glossy_print?: boolean;
+    herbicide_history?: string;
+    leaf_source?: string;
+    species?: string;
+    /** A live culture's ways of reaching the buyer; each is offered unless set to false. */
+    ships?: boolean;
+    pickup?: boolean;
+  };
 }
 
 const MATERIAL_WORD: Partial<Record<MaterialCode, string>> = {
@@ -103,7 +115,15 @@ export function listingCautions(l: ListingCautionInput): ListingCaution[] {
     });
   }
   if (l.material === "worms") {
-    out.push({ kind: "worms", text: `${q.species ? `The grower names the species as ${q.species}. ` : ""}${CAUTION_TEXT.worms}` });
+    const collected = q.pickup !== false;
+    const posted = q.ships !== false;
+    const handling =
+      collected && posted
+        ? ` If you collect them, ${CAUTION_TEXT.wormsCollected}; if they are posted, ${CAUTION_TEXT.wormsPosted}.`
+        : posted
+          ? ` They come by post: ${CAUTION_TEXT.wormsPosted}.`
+          : ` They are collected from the grower: ${CAUTION_TEXT.wormsCollected}.`;
+    out.push({ kind: "worms", text: `${q.species ? `The grower names the species as ${q.species}. ` : ""}${CAUTION_TEXT.worms}${handling}` });
   }
   if (l.material !== "cardboard") out.push({ kind: "gloves", text: CAUTION_TEXT.gloves });
   out.push({ kind: "defer", text: CAUTION_TEXT.defer });

@@ -1,12 +1,15 @@
 // The short cautions shown where a gardener decides to collect a material. They name the
 // hazard and step aside: local rules and licensed advice come first.
 import { NIOSH_LIFT_LIMIT_KG, NIOSH_LIFT_LIMIT_LB } from "@/lib/calc/facts";
+import { CAUTION_TEXT } from "@/lib/calc/cautions";
 
 export interface CautionInput {
   material: string;
   unit: string;
   unit_mass_kg: number | null;
   quantity?: number;
+  /** How a live culture reaches the buyer: collected (the default) or posted. */
+  fulfilment?: "pickup" | "post" | null;
 }
 
 export function pickupCautions(l: CautionInput): string[] {
@@ -29,9 +32,8 @@ export function pickupCautions(l: CautionInput): string[] {
   }
   if (l.material === "cardboard") notes.push("Pull off tape, staples and plastic, and leave out glossy, waxed or coated board.");
   if (l.material === "worms") {
-    notes.push(
-      "Worms are live animals: bring a container with damp bedding, keep it out of the sun and the cold, and go straight home. Some earthworm species are invasive in some regions; check the species and your local rules.",
-    );
+    const handling = l.fulfilment === "post" ? `they travel in a parcel, so ${CAUTION_TEXT.wormsPosted}` : CAUTION_TEXT.wormsCollected;
+    notes.push(`Worms are live animals: ${handling}. Some earthworm species are invasive in some regions; check the species and your local rules.`);
   }
   if (["manure", "compost", "coffee_grounds", "wood_chips", "grass_clippings", "leaves"].includes(l.material)) {
     notes.push("Wear gloves, and wash your hands after handling soil, compost and manure.");

@@ -64,3 +64,30 @@ describe("how listings read", () => {
     expect(formatWindow({ kind: "dated", starts_at: "2027-03-14T10:00:00Z", ends_at: "2027-03-14T13:00:00Z" })).toBe("Sun, 14 Mar 2027, 10:00–13:00");
   });
 });
+
+describe("cautions on a live-culture listing", () => {
+  const worms = (quality: { ships?: boolean; pickup?: boolean }) =>
+    listingCautions({ material: "worms", unit: "kg", unit_mass_kg: null, quality: { species: "Eisenia fetida", ...quality } });
+  const text = (c: { kind: string; text: string }[]) => c.map((x) => x.text).join(" ");
+
+  it("speaks of the parcel, not a container, when the worms are only posted", () => {
+    const c = worms({ ships: true, pickup: false });
+    expect(text(c)).toMatch(/parcel/);
+    expect(text(c)).not.toMatch(/container/);
+    // The live-animal and invasive-species caution and the local-rules line stay.
+    expect(c.find((x) => x.kind === "worms")?.text).toMatch(/live animals.*invasive/);
+    expect(kinds(c)).toContain("defer");
+  });
+
+  it("speaks of a container, not a parcel, when they are only collected", () => {
+    const c = worms({ ships: false, pickup: true });
+    expect(text(c)).toMatch(/container/);
+    expect(text(c)).not.toMatch(/parcel/);
+  });
+
+  it("covers both when both are offered", () => {
+    const c = worms({ ships: true, pickup: true });
+    expect(text(c)).toMatch(/container/);
+    expect(text(c)).toMatch(/parcel/);
+  });
+});

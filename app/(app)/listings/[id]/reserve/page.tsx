@@ -58,7 +58,13 @@ export default async function ReservePage({ params }: { params: Promise<{ id: st
             {offer.culture ? `, about ${offer.culture.estimated_count.toLocaleString("en-GB")} worms${offer.culture.species ? ` of ${offer.culture.species}` : ""} (roughly 1,000 a pound)` : ""}.{" "}
             {offer.culture && !offer.culture.pickup ? null : `The exact pickup address is sent to you once ${offer.supplier.name} has accepted.`}
           </p>
-          <ReserveForm offer={offer} unitSystem={user.unit_system} cautions={pickupCautions({ material: offer.material, unit: offer.unit, unit_mass_kg: offer.unit_mass_kg })} />
+          <ReserveForm
+            offer={offer}
+            unitSystem={user.unit_system}
+            cautions={pickupCautions({ material: offer.material, unit: offer.unit, unit_mass_kg: offer.unit_mass_kg })}
+            // A culture the grower posts: the handling advice is for a parcel, not a trip to collect.
+            postedCautions={offer.culture?.ships ? pickupCautions({ material: offer.material, unit: offer.unit, unit_mass_kg: offer.unit_mass_kg, fulfilment: "post" }) : undefined}
+          />
         </div>
       )}
     </div>
