@@ -3,8 +3,11 @@ import { HERBICIDE_MATERIALS, type QualityInput } from "@/lib/validation/listing
 
 const yesNo = (v: boolean | undefined, yes: string, no: string) => (v === undefined ? null : v ? yes : no);
 
-/** The supplier's own declarations about the material, in plain words. */
-export function QualityList({ material, quality }: { material: MaterialCode; quality: QualityInput }) {
+/**
+ * The supplier's own declarations about the material, in plain words. `omit` leaves out
+ * what the page already shows elsewhere (a live culture's species is in its own block).
+ */
+export function QualityList({ material, quality, omit = [] }: { material: MaterialCode; quality: QualityInput; omit?: (keyof QualityInput)[] }) {
   const lines: string[] = [];
   if (material === "cardboard") {
     const tape = yesNo(quality.tape_removed, "Tape, staples and plastic removed", "Some tape or staples still on");
@@ -20,7 +23,7 @@ export function QualityList({ material, quality }: { material: MaterialCode; qua
   if (HERBICIDE_MATERIALS.includes(material) && quality.herbicide_history) {
     lines.push(quality.herbicide_history === "known_untreated" ? "Supplier says: no persistent weedkiller used" : "Supplier does not know what was sprayed");
   }
-  if (material === "worms" && quality.species) lines.push(`Species: ${quality.species}`);
+  if (material === "worms" && quality.species && !omit.includes("species")) lines.push(`Species: ${quality.species}`);
   if (lines.length === 0) return null;
   return (
     <section aria-labelledby="quality-title" className="rounded-lg bg-white p-4 ring-1 ring-humus-200">

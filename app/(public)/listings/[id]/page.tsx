@@ -145,7 +145,8 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
             </section>
           )}
 
-          <QualityList material={listing.material} quality={listing.quality} />
+          {/* The culture block already names the species. */}
+          <QualityList material={listing.material} quality={listing.quality} omit={culture ? ["species"] : []} />
 
           <section aria-labelledby="where-title" className="flex flex-col gap-2">
             <h2 id="where-title" className="font-semibold">Roughly where</h2>
