@@ -29,7 +29,7 @@ export function OrderCard({ v }: { v: ReservationView }) {
       </header>
       {note ? <p className="text-sm font-medium">{note}</p> : null}
       <OrderPanel v={v} />
-      <ReservationActions id={v.id} side="supplier" actions={v.actions} canPay={false} cancelNote="Everything the buyer paid goes back to them in full." />
+      <ReservationActions id={v.id} side="supplier" actions={v.actions} canPay={false} cancelNote="Everything the buyer paid goes back to them in full." posted={v.order?.fulfilment === "post"} />
       <Link href={`/requests#r-${v.id}`} className="self-start text-sm text-moss-700 underline underline-offset-4">
         Messages and history<span className="sr-only"> for {v.gardener.name}&apos;s order</span>
       </Link>

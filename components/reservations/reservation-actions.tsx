@@ -17,10 +17,12 @@ interface Props {
   actions: ReservationAction[];
   canPay: boolean;
   cancelNote: string;
+  /** A live culture sent by post: an order rather than something collected, and worded so. */
+  posted?: boolean;
 }
 
 /** The buttons for what this person may do next; the server decides, this only shows its list. */
-export function ReservationActions({ id, side, actions, canPay, cancelNote }: Props) {
+export function ReservationActions({ id, side, actions, canPay, cancelNote, posted = false }: Props) {
   const { run, busy, error } = useReservationAction(id);
   const [open, setOpen] = useState<"decline" | "cancel" | "no_show" | null>(null);
   if (!canPay && actions.length === 0) return null;
@@ -54,7 +56,7 @@ export function ReservationActions({ id, side, actions, canPay, cancelNote }: Pr
         {/* A supplier turns down a held request with Decline; Cancel is for after accepting. */}
         {actions.includes("cancel") && !(side === "supplier" && actions.includes("decline")) ? (
           <Button variant="secondary" onClick={() => setOpen(open === "cancel" ? null : "cancel")} aria-expanded={open === "cancel"} disabled={!!busy}>
-            Cancel reservation
+            {posted ? "Cancel order" : "Cancel reservation"}
           </Button>
         ) : null}
       </div>

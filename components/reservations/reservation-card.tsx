@@ -51,6 +51,14 @@ function nextStep(v: ReservationView): string | null {
   }
 }
 
+/** What cancelling does to the money, as the policy has it; a posted order can be cancelled only before it is packed. */
+export function cancelNoteFor(v: Pick<ReservationView, "side" | "status" | "amount_cents" | "order">): string {
+  if (v.side === "supplier") return "Everything the gardener paid or put down goes back to them in full.";
+  if (v.status === "held") return "Nothing is charged: any payment or deposit hold goes back in full.";
+  if (v.order?.fulfilment === "post") return "Cancelling the order before it is packed returns everything you paid.";
+  return `Cancelling at least ${CANCEL_NOTICE_HOURS} hours before the pickup returns everything; later, ${v.amount_cents > 0 ? "the payment is not refunded" : "the deposit is kept"}.`;
+}
+
 function moneyLine(v: ReservationView): string | null {
   const price = v.amount_cents > 0;
   const cents = price ? v.amount_cents : v.deposit_cents;
@@ -82,12 +90,7 @@ export function ReservationCard({ v }: { v: ReservationView }) {
   const otherId = v.side === "gardener" ? v.supplier.id : v.gardener.id;
   const step = nextStep(v);
   const money = moneyLine(v);
-  const cancelNote =
-    v.side === "supplier"
-      ? "Everything the gardener paid or put down goes back to them in full."
-      : v.status === "held"
-        ? "Nothing is charged: any payment or deposit hold goes back in full."
-        : `Cancelling at least ${CANCEL_NOTICE_HOURS} hours before the pickup returns everything; later, ${v.amount_cents > 0 ? "the payment is not refunded" : "the deposit is kept"}.`;
+  const cancelNote = cancelNoteFor(v);
   return (
     <article id={`r-${v.id}`} aria-labelledby={titleId} className="flex scroll-mt-24 flex-col gap-4 rounded-leaf bg-white p-5 ring-1 ring-humus-200">
       <header className="flex flex-wrap items-start justify-between gap-3">
@@ -161,7 +164,7 @@ export function ReservationCard({ v }: { v: ReservationView }) {
         </p>
       ) : null}
 
-      <ReservationActions id={v.id} side={v.side} actions={v.actions} canPay={v.can_pay} cancelNote={cancelNote} />
+      <ReservationActions id={v.id} side={v.side} actions={v.actions} canPay={v.can_pay} cancelNote={cancelNote} posted={v.order?.fulfilment === "post"} />
 
       {v.can_review ? <ReviewForm id={v.id} subject={other} /> : null}
       {v.my_review ? <p className="text-sm">You rated {other} {"★".repeat(v.my_review.rating)}{v.my_review.comment ? `: “${v.my_review.comment}”` : "."}</p> : null}
