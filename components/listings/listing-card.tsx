@@ -16,7 +16,7 @@ export interface CardItem {
   currency: string;
   deposit_cents: number;
   distance_km: number | null;
-  supplier: { name: string; verified: boolean };
+  supplier: { name: string; verified: boolean; rating?: { average: number; count: number } | null };
   photos: { url: string; width: number; height: number }[];
   available_until: string | null;
   /** Set while the listing is shown ahead of its start date. */
@@ -58,6 +58,11 @@ export function ListingCard({ item, system, selected = false, onHover }: { item:
           {item.distance_km !== null ? <span>{formatDistance(item.distance_km, system)} away</span> : null}
           <span>{item.supplier.name}</span>
           {item.supplier.verified ? <VerifiedBadge /> : null}
+          {item.supplier.rating ? (
+            <span aria-label={`Rated ${item.supplier.rating.average.toFixed(1)} out of 5 from ${item.supplier.rating.count} review${item.supplier.rating.count === 1 ? "" : "s"}`}>
+              ★ {item.supplier.rating.average.toFixed(1)} ({item.supplier.rating.count})
+            </span>
+          ) : null}
           {from ? <span className="font-medium text-moss-800">available from {from}</span> : null}
           {until ? <span>until {until}</span> : null}
         </p>

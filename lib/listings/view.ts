@@ -31,7 +31,8 @@ export interface PublicListingItem {
   distance_km: number | null;
   /** The approximate public point, a stable few hundred metres from the real one. */
   location: { lat: number; lng: number };
-  supplier: { id: string; name: string; verified: boolean };
+  /** `rating`: what gardeners said of this supplier after collecting (null before any review). */
+  supplier: { id: string; name: string; verified: boolean; rating: { average: number; count: number } | null };
   photos: PhotoVariant[];
   available_until: string | null;
   /** Listed ahead of its start date: shown, but reservable only from this moment (null once it is). */
@@ -40,7 +41,7 @@ export interface PublicListingItem {
 
 export type PickupWindowView = Omit<PickupWindowRow, "listing_id">;
 
-export interface ListingDetail extends Omit<PublicListingItem, "supplier"> {
+export interface ListingDetail extends PublicListingItem {
   status: ListingStatus;
   description: string;
   available_from: string | null;
@@ -50,7 +51,6 @@ export interface ListingDetail extends Omit<PublicListingItem, "supplier"> {
   cautions: ListingCaution[];
   pickup_windows: PickupWindowView[];
   thumbnails: PhotoVariant[];
-  supplier: PublicListingItem["supplier"] & { rating: { average: number; count: number } | null };
   created_at: string;
   updated_at: string;
 }
@@ -110,8 +110,8 @@ function item(r: Row, supplier: PublicListingItem["supplier"], photos: PhotoVari
 
 /** Browse results as the API and the browse page return them. */
 export async function presentItems(rows: PublicListingRow[], q: Db = db(), now: Date = new Date()): Promise<PublicListingItem[]> {
-  const [supplierOf, photos] = await Promise.all([suppliersFor(rows, q), photosFor(rows.map((r) => r.id), q)]);
-  return rows.map((r) => item(r, supplierOf(r), photoList(photos.get(r.id), "card"), r.distance_km, now));
+  const [supplierOf, photos, ratings] = await Promise.all([suppliersFor(rows, q), photosFor(rows.map((r) => r.id), q), ratingsFor(rows.map((r) => r.owner_id), q)]);
+  return rows.map((r) => item(r, { ...supplierOf(r), rating: ratings.get(r.owner_id) ?? null }, photoList(photos.get(r.id), "card"), r.distance_km, now));
 }
 
 const windowView = ({ listing_id: _listing, ...w }: PickupWindowRow): PickupWindowView => w;
@@ -135,8 +135,7 @@ export async function presentDetail(r: ListingRow, opts: { manage: boolean; now?
   const quality = parseQuality(r.quality);
   const photoRows = photos.get(r.id) ?? [];
   const detail: ListingDetail = {
-    ...item(r, supplierOf(r), photoList(photoRows, "large"), null, opts.now ?? new Date()),
-    supplier: { ...supplierOf(r), rating: ratings.get(r.owner_id) ?? null },
+    ...item(r, { ...supplierOf(r), rating: ratings.get(r.owner_id) ?? null }, photoList(photoRows, "large"), null, opts.now ?? new Date()),
     status: effectiveStatus(r.status, r.available_until, opts.now),
     description: r.description,
     available_from: r.available_from,

@@ -294,7 +294,12 @@ export const browseResponseSchema = z.object({
       deposit_cents: z.number().int(),
       distance_km: z.number().nullable(),
       location: z.object({ lat: z.number(), lng: z.number() }).describe("approximate: a stable offset of a few hundred metres"),
-      supplier: z.object({ id: z.string(), name: z.string(), verified: z.boolean() }),
+      supplier: z.object({
+        id: z.string(),
+        name: z.string(),
+        verified: z.boolean(),
+        rating: z.object({ average: z.number(), count: z.number().int() }).nullable().describe("gardeners' reviews of this supplier after collecting"),
+      }),
       photos: z.array(z.object({ url: z.string(), width: z.number().int(), height: z.number().int() })),
       available_until: z.string().nullable(),
     }),

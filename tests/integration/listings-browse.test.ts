@@ -100,9 +100,19 @@ describe("filters and distance", () => {
       );
       expect(item.quantity_available).toBeGreaterThan(0);
       expect(Object.keys(item.location).sort()).toEqual(["lat", "lng"]);
-      expect(Object.keys(item.supplier).sort()).toEqual(["id", "name", "verified"]);
+      expect(Object.keys(item.supplier).sort()).toEqual(["id", "name", "rating", "verified"]);
       expect(item.distance_km).toBeNull();
     }
+    // The seed's past pickups were reviewed (seeds/exchanges.ts): a reviewed supplier's cards carry
+    // the same average the listing page shows; one nobody has reviewed carries null.
+    const rated = r.items.filter((i) => i.supplier.rating);
+    expect(rated.length).toBeGreaterThan(0);
+    for (const i of rated) {
+      const [{ n, avg }] = await ctx.db("reviews as v").join("reservations as res", "res.id", "v.reservation_id")
+        .where("v.subject_id", i.supplier.id).whereRaw("v.author_id = res.gardener_id").count({ n: "*" }).avg({ avg: "v.rating" });
+      expect(i.supplier.rating).toEqual({ average: Math.round(Number(avg) * 10) / 10, count: Number(n) });
+    }
+    expect(r.items.some((i) => i.supplier.rating === null)).toBe(true);
     const statuses = await ctx.db("listings").whereIn("id", ids(r)).distinct("status").pluck("status");
     expect(statuses).toEqual(["active"]);
   });
