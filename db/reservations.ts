@@ -135,18 +135,21 @@ export async function heldDueToExpire(now: string, limit = 50, q: Db = db()): Pr
  */
 export async function dueForNotice(
   status: "held" | "confirmed",
-  timeColumn: "hold_expires_at" | "pickup_at",
+  timeColumn: "hold_expires_at" | "pickup_at" | "pickup_by",
   marker: "expiry_warned_at" | "pickup_reminded_at",
   after: string,
   until: string,
   limit = 50,
   q: Db = db(),
 ): Promise<ReservationRow[]> {
-  return q<ReservationRow>("reservations")
+  const rows = q<ReservationRow>("reservations")
     .select("*")
     .where("status", status)
     .whereNull(marker)
     .andWhere(timeColumn, ">", after)
     .andWhere(timeColumn, "<=", until)
     .limit(limit);
+  // The deadline of a pickup with no fixed time; posted cultures have no pickup at all.
+  if (timeColumn === "pickup_by") rows.whereNull("pickup_at").andWhere((b) => b.whereNull("fulfilment").orWhereNot("fulfilment", "post"));
+  return rows;
 }

@@ -41,7 +41,7 @@ export async function expireHolds(clock: Clock = () => new Date(), q: Knex = db(
   return { expired };
 }
 
-type Notice = { status: "held" | "confirmed"; time: "hold_expires_at" | "pickup_at"; marker: "expiry_warned_at" | "pickup_reminded_at"; aheadMs: number };
+type Notice = { status: "held" | "confirmed"; time: "hold_expires_at" | "pickup_at" | "pickup_by"; marker: "expiry_warned_at" | "pickup_reminded_at"; aheadMs: number };
 
 /** Sends one kind of notice to every reservation due for it, each once: the marker column is claimed first. */
 async function sendNotices(q: Knex, n: Notice, now: Date, send: (trx: Knex.Transaction, r: ReservationRow) => Promise<void>): Promise<number> {
@@ -65,9 +65,15 @@ export async function sendReservationReminders(clock: Clock = () => new Date(), 
     // Whoever has the next move hears about it: the gardener to pay, or the supplier to answer.
     await mailReservation(trx, "expiring", (await reservationContext(r.id, trx))!, [r.payment_state === "awaiting" ? "gardener" : "supplier"], {}, r.hold_expires_at ?? "");
   });
-  const reminded = await sendNotices(q, { status: "confirmed", time: "pickup_at", marker: "pickup_reminded_at", aheadMs: PICKUP_REMINDER_HOURS * 3_600_000 }, now, async (trx, r) => {
+  const remind = async (trx: Knex.Transaction, r: ReservationRow) => {
     const ctx = (await reservationContext(r.id, trx))!;
     await mailReservation(trx, "reminder", ctx, ctx.gardener.reminders_opt_out ? ["supplier"] : ["gardener", "supplier"]);
-  });
+  };
+  // A chosen window is reminded the day before it starts; "no fixed time" the day before the
+  // last day to collect (dueForNotice only looks at pickup_by where no window start is set,
+  // and never at a posted culture, which is not collected).
+  const reminded =
+    (await sendNotices(q, { status: "confirmed", time: "pickup_at", marker: "pickup_reminded_at", aheadMs: PICKUP_REMINDER_HOURS * 3_600_000 }, now, remind)) +
+    (await sendNotices(q, { status: "confirmed", time: "pickup_by", marker: "pickup_reminded_at", aheadMs: PICKUP_REMINDER_HOURS * 3_600_000 }, now, remind));
   return { warned, reminded };
 }

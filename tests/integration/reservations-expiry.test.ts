@@ -98,6 +98,34 @@ describe("reminders", () => {
   });
 });
 
+describe("reminders with no fixed pickup time", () => {
+  it("reminds both sides the day before the last day to collect, once, and never a posted culture", async () => {
+    const l = await createListing({ quantity_total: 5 });
+    const r = await holdOne(l.id);
+    await call(confirm, await request(`/api/reservations/${r.id}/confirm`, { as: l.ownerId, body: {} }), { id: r.id });
+    const row = await db()("reservations").first("pickup_at", "pickup_by").where({ id: r.id });
+    expect(row.pickup_at).toBeNull();
+    const deadline = new Date(row.pickup_by).getTime();
+    // A second reservation, turned into a posted culture order: nobody collects it, so no reminder.
+    const l2 = await createListing({ quantity_total: 5 });
+    const posted = await holdOne(l2.id);
+    await call(confirm, await request(`/api/reservations/${posted.id}/confirm`, { as: l2.ownerId, body: {} }), { id: posted.id });
+    await db()("reservations").where({ id: posted.id }).update({ fulfilment: "post", pickup_by: row.pickup_by });
+
+    // Other tests' reservations may fall due too, so this counts this reservation's own mail.
+    const mine = () => db()("email_outbox").where("dedupe_key", "like", `res:${r.id}:reminder:%`).orderBy("dedupe_key");
+    await sendReservationReminders(() => new Date(deadline - 30 * 3_600_000));
+    expect(await mine()).toHaveLength(0);
+    expect((await sendReservationReminders(() => new Date(deadline - 20 * 3_600_000))).reminded).toBeGreaterThanOrEqual(1);
+    await sendReservationReminders(() => new Date(deadline - 19 * 3_600_000));
+    const mail = await mine();
+    expect(mail.map((m: any) => m.dedupe_key)).toEqual([`res:${r.id}:reminder:gardener`, `res:${r.id}:reminder:supplier`]);
+    expect(mail[0].subject).toMatch(/^Collect by tomorrow/);
+    expect(mail[0].text_body).toContain("by arrangement");
+    expect(await db()("email_outbox").where("dedupe_key", "like", `res:${posted.id}:reminder:%`)).toHaveLength(0);
+  });
+});
+
 describe("e-mail through an SMTP outage", () => {
   let smtp: SmtpFake;
   afterAll(async () => smtp?.close());

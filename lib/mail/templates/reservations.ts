@@ -149,6 +149,12 @@ function parts(kind: ReservationMailKind, r: ReservationContext, to: Audience, e
         },
       };
     case "reminder":
+      if (!r.pickup_at) {
+        // No fixed time: the reminder comes the day before the last day to collect.
+        return to === "gardener"
+          ? { subject: `Collect by tomorrow: ${what}`, body: { heading: "Your pickup is due by tomorrow", paragraphs: lines(`Where: ${r.listing.address}`, whenLine(r), `Pickup code: ${r.pickup_code}.`, "Not coming after all? Cancel it, so someone else can have it.", carry(r)), action: action("See your reservation") } }
+          : { subject: `Due by tomorrow: ${r.gardener.name} collects ${what}`, body: { heading: "A pickup is due by tomorrow", paragraphs: lines(whenLine(r)), action: action("Open the request") } };
+      }
       return to === "gardener"
         ? { subject: `Tomorrow: collect ${what}`, body: { heading: "Your pickup is tomorrow", paragraphs: lines(`Where: ${r.listing.address}`, whenLine(r), `Pickup code: ${r.pickup_code}.`, carry(r)), action: action("See your reservation") } }
         : { subject: `Tomorrow: ${r.gardener.name} collects ${what}`, body: { heading: "A pickup is due tomorrow", paragraphs: lines(whenLine(r)), action: action("Open the request") } };
