@@ -3,45 +3,12 @@
 // arrives; the grower accepts, packs and ships it from the dashboard; the shipped e-mail
 // carries the carrier and tracking; the buyer marks it arrived.
 import path from "node:path";
-import Database from "better-sqlite3";
-import { expect, test, type APIRequestContext, type Page } from "@playwright/test";
-import { inboxUrl, storageState } from "./roles";
+import { expect, test, type Page } from "@playwright/test";
+import { latestMail, payOnCheckoutPage, sql } from "./exchange";
+import { storageState } from "./roles";
 
 const shot = (name: string) => path.join(process.env.E2E_DIR ?? "test-results", "shots", `${name}.png`);
 const PHONE = { width: 390, height: 844 };
-
-function sql<T = any>(query: string, ...args: unknown[]): T[] {
-  const conn = new Database(process.env.DATABASE_FILE!);
-  try {
-    return conn.prepare(query).all(...args) as T[];
-  } finally {
-    conn.close();
-  }
-}
-
-async function latestMail(request: APIRequestContext, to: string, subject: RegExp) {
-  let found: { subject: string; text: string; html: string | null } | undefined;
-  await expect
-    .poll(
-      async () => {
-        const { messages } = await (await request.get(`${inboxUrl()}/messages.json?to=${encodeURIComponent(to)}`)).json();
-        found = messages.filter((m: { subject: string }) => subject.test(m.subject)).pop();
-        return !!found;
-      },
-      { timeout: 30_000 },
-    )
-    .toBe(true);
-  return found!;
-}
-
-async function payOnCheckoutPage(page: Page, card: string) {
-  await expect(page.getByText("Local test payment page")).toBeVisible();
-  await page.getByLabel("Card number").fill(card);
-  await page.getByLabel("Expiry (MM/YY)").fill(`12/${String((new Date().getFullYear() + 1) % 100).padStart(2, "0")}`);
-  await page.getByLabel("CVC").fill("123");
-  await page.getByLabel("Name on card").fill("Ines Okafor");
-  await page.getByRole("button", { name: /^Pay / }).click();
-}
 
 const escape = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
 

@@ -3,28 +3,11 @@
 // declined card that runs out; a no-show that keeps the deposit; and the hold under load.
 import { execFileSync } from "node:child_process";
 import { randomUUID } from "node:crypto";
-import Database from "better-sqlite3";
-import { expect, test, type APIRequestContext, type Browser, type Page } from "@playwright/test";
-import { DEMO_PASSWORD, inboxUrl, storageState } from "./roles";
+import { expect, test, type Browser, type Page } from "@playwright/test";
+import { latestMail, payOnCheckoutPage, run, sql } from "./exchange";
+import { DEMO_PASSWORD, storageState } from "./roles";
 
 const shots = (name: string) => `${process.env.E2E_DIR ?? "test-results"}/shots/${name}.png`;
-
-function sql<T = any>(query: string, ...args: unknown[]): T[] {
-  const conn = new Database(process.env.DATABASE_FILE!);
-  try {
-    return conn.prepare(query).all(...args) as T[];
-  } finally {
-    conn.close();
-  }
-}
-function run(query: string, ...args: unknown[]) {
-  const conn = new Database(process.env.DATABASE_FILE!);
-  try {
-    conn.prepare(query).run(...args);
-  } finally {
-    conn.close();
-  }
-}
 
 function listingOf(email: string, where: string) {
   return sql<{ id: string; title: string; address: string; quantity_held: number }>(
@@ -48,30 +31,6 @@ async function signInAs(browser: Browser, email: string) {
   await page.getByRole("button", { name: "Sign in" }).click();
   await expect(page.getByRole("navigation", { name: "Main" }).first().getByRole("button", { name: "Sign out" })).toBeVisible();
   return { context, page };
-}
-
-async function payOnCheckoutPage(page: Page, card: string) {
-  await expect(page.getByText("Local test payment page")).toBeVisible();
-  await page.getByLabel("Card number").fill(card);
-  await page.getByLabel("Expiry (MM/YY)").fill(`12/${String((new Date().getFullYear() + 1) % 100).padStart(2, "0")}`);
-  await page.getByLabel("CVC").fill("123");
-  await page.getByLabel("Name on card").fill("Ines Okafor");
-  await page.getByRole("button", { name: /^Pay / }).click();
-}
-
-async function latestMail(request: APIRequestContext, to: string, subject: RegExp) {
-  let found: { subject: string; text: string; html: string | null } | undefined;
-  await expect
-    .poll(
-      async () => {
-        const { messages } = await (await request.get(`${inboxUrl()}/messages.json?to=${encodeURIComponent(to)}`)).json();
-        found = messages.filter((m: { subject: string }) => subject.test(m.subject)).pop();
-        return !!found;
-      },
-      { timeout: 20_000 },
-    )
-    .toBe(true);
-  return found!;
 }
 
 const card = (page: Page, title: string) => page.locator("article").filter({ hasText: title }).first();
