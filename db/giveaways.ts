@@ -40,6 +40,7 @@ const BOOKING_COLUMNS = [
   "deposit_cents",
   "deposit_status",
   "currency",
+  "hold_expires_at",
   "checked_in_at",
   "checked_in_by",
   "cancelled_at",
@@ -171,7 +172,7 @@ export async function recountSlots(dayId: string, q: Db = db()): Promise<void> {
 // ---- bookings --------------------------------------------------------------------------
 
 export async function insertBooking(
-  row: Pick<GiveawayBookingRow, "day_id" | "slot_id" | "user_id" | "quantity" | "deposit_cents" | "deposit_status" | "currency">,
+  row: Pick<GiveawayBookingRow, "day_id" | "slot_id" | "user_id" | "quantity" | "deposit_cents" | "deposit_status" | "currency"> & { hold_expires_at?: string | null },
   q: Db = db(),
 ): Promise<GiveawayBookingRow> {
   const now = nowIso();

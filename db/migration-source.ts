@@ -7,6 +7,7 @@ import * as reservations from "../migrations/20261201_005_reservations";
 import * as community from "../migrations/20261201_006_community";
 import * as placeKeyedOffsets from "../migrations/20261202_008_place_keyed_offsets";
 import * as cultureOrders from "../migrations/20261203_009_culture_orders";
+import * as giveawayDeposits from "../migrations/20261204_010_giveaway_deposits";
 
 // Migrations are listed here rather than found on disk so that the same list runs under
 // the CLI script, Vitest and the bundled Next.js server alike. Add new ones at the end.
@@ -19,6 +20,7 @@ const migrations: Record<string, Knex.Migration> = {
   "20261201_006_community": community,
   "20261202_008_place_keyed_offsets": placeKeyedOffsets,
   "20261203_009_culture_orders": cultureOrders,
+  "20261204_010_giveaway_deposits": giveawayDeposits,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -5,12 +5,16 @@ import type { PaymentRow } from "./types";
 // refund. `pending_action` is a Stripe call still owed, retried by the worker until done.
 
 export async function insertPayment(
-  row: Pick<PaymentRow, "reservation_id" | "kind" | "status" | "amount_cents" | "currency" | "idempotency_key"> & Partial<PaymentRow>,
+  row: Pick<PaymentRow, "kind" | "status" | "amount_cents" | "currency" | "idempotency_key"> &
+    ({ reservation_id: string } | { giveaway_booking_id: string }) &
+    Partial<PaymentRow>,
   now: string,
   q: Db = db(),
 ): Promise<PaymentRow> {
   const full: PaymentRow = {
     id: newId(),
+    reservation_id: null,
+    giveaway_booking_id: null,
     parent_id: null,
     provider: "stripe",
     provider_ref: null,
@@ -37,6 +41,11 @@ export async function findPayment(id: string, q: Db = db()): Promise<PaymentRow 
 /** The checkout (price or deposit) of a reservation; refunds are separate rows. */
 export async function chargeOf(reservationId: string, q: Db = db()): Promise<PaymentRow | undefined> {
   return q<PaymentRow>("payments").first("*").where({ reservation_id: reservationId }).whereIn("kind", ["payment", "deposit"]);
+}
+
+/** The no-show deposit of a giveaway booking. */
+export async function depositOfBooking(bookingId: string, q: Db = db()): Promise<PaymentRow | undefined> {
+  return q<PaymentRow>("payments").first("*").where({ giveaway_booking_id: bookingId, kind: "deposit" });
 }
 
 export async function paymentsOf(reservationIds: string[], q: Db = db()): Promise<PaymentRow[]> {

@@ -157,7 +157,9 @@ export interface ReservationRow {
 
 export interface PaymentRow {
   id: string;
-  reservation_id: string;
+  // Exactly one owner: a reservation, or a giveaway booking's no-show deposit (lib/payments/owner.ts).
+  reservation_id: string | null;
+  giveaway_booking_id: string | null;
   parent_id: string | null;
   kind: "payment" | "deposit" | "refund";
   provider: string;
@@ -250,6 +252,7 @@ export interface GiveawaySlotRow {
 }
 
 export type BookingStatus = "booked" | "cancelled" | "checked_in" | "no_show";
+export type DepositStatus = "none" | "awaiting" | "held" | "released" | "kept" | "unpaid";
 
 export interface GiveawayBookingRow {
   id: string;
@@ -259,8 +262,11 @@ export interface GiveawayBookingRow {
   quantity: number;
   status: BookingStatus;
   deposit_cents: number;
-  deposit_status: "none" | "recorded" | "released" | "forfeit";
+  // none: the day asks none; awaiting: the card page is open (until hold_expires_at); held: on
+  // the card; released: the hold let go; kept: captured for a no-show; unpaid: never put down.
+  deposit_status: DepositStatus;
   currency: string;
+  hold_expires_at: string | null;
   checked_in_at: string | null;
   checked_in_by: string | null;
   cancelled_at: string | null;

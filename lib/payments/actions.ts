@@ -3,6 +3,7 @@ import Stripe from "stripe";
 import { db, nowIso, type Db } from "@/db/index";
 import { dueActions, findPayment, updatePayment } from "@/db/payments";
 import type { PaymentRow } from "@/db/types";
+import { ownerMetadata } from "./owner";
 import { syncPayment } from "./reconcile";
 import { stripe } from "./stripe";
 
@@ -69,7 +70,7 @@ async function perform(row: PaymentRow, clock: () => Date, q: Db): Promise<Outco
           payment_intent: intent,
           amount: row.amount_cents,
           reason: "requested_by_customer",
-          metadata: { refund_id: row.id, reservation_id: row.reservation_id },
+          metadata: { refund_id: row.id, ...ownerMetadata(row) },
         },
         { idempotencyKey: row.idempotency_key },
       );

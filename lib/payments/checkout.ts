@@ -4,10 +4,12 @@ import { findPayment } from "@/db/payments";
 import { reservationContext } from "@/db/reservation-context";
 import { appUrl } from "@/lib/app-url";
 import { whatLabel } from "@/lib/reservations/labels";
+import type { PaymentRow } from "@/db/types";
+import { ownerMetadata, ownerOf } from "./owner";
 import { stripe } from "./stripe";
 
-// A Checkout Session (mode payment) for one reservation: automatic capture for a price,
-// manual capture for a deposit (an authorisation hold). Created after the hold commits,
+// A Checkout Session (mode payment) for one reservation or giveaway booking: automatic
+// capture for a price, manual capture for a deposit (an authorisation hold). Created after the hold commits,
 // with the payment row's idempotency key, so a retry returns the same session.
 
 // Stripe lets a session live from 30 minutes to 24 hours; Duffbank closes it itself when
@@ -15,20 +17,63 @@ import { stripe } from "./stripe";
 const SESSION_MIN_S = 31 * 60;
 const SESSION_MAX_S = 23 * 60 * 60;
 
+/** What a checkout is for, as its owner describes it; null once its owner no longer waits for it. */
+interface CheckoutSubject {
+  holdExpiresAt: string | null;
+  email: string;
+  what: string;
+  reference: string;
+  description: string;
+  successUrl: string;
+  cancelUrl: string;
+}
+
+async function subjectOf(payment: PaymentRow, q: Db): Promise<CheckoutSubject | null> {
+  const owner = ownerOf(payment);
+  const deposit = payment.kind === "deposit";
+  if (owner.type === "reservation") {
+    const r = await reservationContext(owner.id, q);
+    if (!r || r.status !== "held") return null;
+    return {
+      holdExpiresAt: r.hold_expires_at,
+      email: r.gardener.email,
+      what: whatLabel(r),
+      reference: r.id,
+      description: deposit ? `Duffbank deposit for reservation ${r.id}` : `Duffbank reservation ${r.id}`,
+      successUrl: `${appUrl()}/reservations/paid?session_id={CHECKOUT_SESSION_ID}`,
+      cancelUrl: `${appUrl()}/reservations?checkout=cancelled#r-${r.id}`,
+    };
+  }
+  const b = await q("giveaway_bookings as b")
+    .join("giveaway_days as d", "d.id", "b.day_id")
+    .join("users as u", "u.id", "b.user_id")
+    .first("b.id", "b.day_id", "b.status", "b.deposit_status", "b.hold_expires_at", "d.title", "d.date", "u.email")
+    .where("b.id", owner.id);
+  if (!b || b.status !== "booked" || b.deposit_status !== "awaiting") return null;
+  return {
+    holdExpiresAt: b.hold_expires_at,
+    email: b.email,
+    what: `${b.title}, ${b.date}`,
+    reference: b.id,
+    description: `Duffbank no-show deposit for giveaway booking ${b.id}`,
+    successUrl: `${appUrl()}/giveaways/${b.day_id}?deposit=done`,
+    cancelUrl: `${appUrl()}/giveaways/${b.day_id}?deposit=cancelled`,
+  };
+}
+
 export async function startCheckout(paymentId: string, clock: () => Date = () => new Date(), q: Db = db()): Promise<string | null> {
   const payment = await findPayment(paymentId, q);
   if (!payment || payment.kind === "refund") return null;
   if (payment.status === "open") return payment.checkout_url;
   if (payment.status !== "creating") return null;
-  const r = await reservationContext(payment.reservation_id, q);
-  if (!r || r.status !== "held") return null;
+  const subject = await subjectOf(payment, q);
+  if (!subject) return null;
 
   const nowS = Math.floor(clock().getTime() / 1000);
-  const holdS = r.hold_expires_at ? Math.floor(new Date(r.hold_expires_at).getTime() / 1000) : 0;
+  const holdS = subject.holdExpiresAt ? Math.floor(new Date(subject.holdExpiresAt).getTime() / 1000) : 0;
   const expiresAt = Math.min(nowS + SESSION_MAX_S, Math.max(nowS + SESSION_MIN_S, holdS + 60));
   const deposit = payment.kind === "deposit";
-  const metadata = { reservation_id: r.id, payment_id: payment.id, kind: payment.kind };
-  const what = whatLabel(r);
+  const metadata = { ...ownerMetadata(payment), payment_id: payment.id, kind: payment.kind };
   const session = await stripe().checkout.sessions.create(
     {
       mode: "payment",
@@ -38,19 +83,19 @@ export async function startCheckout(paymentId: string, clock: () => Date = () =>
           price_data: {
             currency: payment.currency,
             unit_amount: payment.amount_cents,
-            product_data: { name: deposit ? `Refundable no-show deposit: ${what}` : what },
+            product_data: { name: deposit ? `Refundable no-show deposit: ${subject.what}` : subject.what },
           },
         },
       ],
-      success_url: `${appUrl()}/reservations/paid?session_id={CHECKOUT_SESSION_ID}`,
-      cancel_url: `${appUrl()}/reservations?checkout=cancelled#r-${r.id}`,
-      client_reference_id: r.id,
-      customer_email: r.gardener.email,
+      success_url: subject.successUrl,
+      cancel_url: subject.cancelUrl,
+      client_reference_id: subject.reference,
+      customer_email: subject.email,
       metadata,
       payment_intent_data: {
         capture_method: deposit ? "manual" : "automatic",
         metadata,
-        description: deposit ? `Duffbank deposit for reservation ${r.id}` : `Duffbank reservation ${r.id}`,
+        description: subject.description,
       },
       expires_at: expiresAt,
     },

@@ -6,6 +6,8 @@ import { db } from "@/db/index";
 import { paymentByStripeRef, updatePayment } from "@/db/payments";
 import type { PaymentRow } from "@/db/types";
 import { runPaymentActions } from "@/lib/payments/actions";
+import { ownerOf } from "@/lib/payments/owner";
+import { bookingDepositFollows } from "./giveaway-deposit";
 import { gardenerStepDone } from "./reservation-steps";
 
 // Applies one verified Stripe event, exactly once: the event id goes into webhook_events
@@ -103,7 +105,7 @@ export async function applyStripeEvent(event: Stripe.Event, deps: { db?: Knex; c
       const forward = target.status !== undefined && RANK[target.status] > RANK[row.status];
       await updatePayment(row.id, { ...target.patch, ...(forward ? { status: target.status } : {}), updated_at: at }, trx);
       if (!forward) return [];
-      return reservationFollows(trx, row, target.status!, now);
+      return ownerFollows(trx, row, target.status!, now);
     });
   } catch (err) {
     if (err instanceof DuplicateEvent) return "duplicate";
@@ -113,15 +115,22 @@ export async function applyStripeEvent(event: Stripe.Event, deps: { db?: Knex; c
   return "applied";
 }
 
+/** What the payment pays for follows it: a reservation, or a giveaway booking's deposit. */
+async function ownerFollows(trx: Knex.Transaction, row: PaymentRow, status: string, now: Date): Promise<string[]> {
+  const owner = ownerOf(row);
+  if (owner.type === "giveaway_booking") return bookingDepositFollows(trx, row, status, now);
+  return reservationFollows(trx, row, owner.id, status, now);
+}
+
 /** The reservation side of a payment moving forward. */
-async function reservationFollows(trx: Knex.Transaction, row: PaymentRow, status: string, now: Date): Promise<string[]> {
+async function reservationFollows(trx: Knex.Transaction, row: PaymentRow, reservationId: string, status: string, now: Date): Promise<string[]> {
   const was = RANK[row.status];
   const owed: string[] = [];
   if (was < RANK.authorised && RANK[status] >= RANK.authorised) {
-    owed.push(...(await gardenerStepDone(trx, row.reservation_id, row.kind === "deposit" ? "authorised" : "paid", now)));
+    owed.push(...(await gardenerStepDone(trx, reservationId, row.kind === "deposit" ? "authorised" : "paid", now)));
   }
   if (["released", "captured", "refunded"].includes(status)) {
-    await trx("reservations").where({ id: row.reservation_id }).update({ payment_state: status, updated_at: now.toISOString() });
+    await trx("reservations").where({ id: reservationId }).update({ payment_state: status, updated_at: now.toISOString() });
   }
   return owed;
 }

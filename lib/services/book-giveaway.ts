@@ -4,6 +4,7 @@ import { isUniqueViolation, writeTransaction } from "@/db/write-transaction";
 import { findDay, findSlot, insertBooking, liveBookingFor, takeSlotPlace } from "@/db/giveaways";
 import { findOrganisation } from "@/db/organisations";
 import { findUserById } from "@/db/users";
+import { insertPayment } from "@/db/payments";
 import { enqueueEmail } from "@/db/outbox";
 import type { GiveawayBookingRow, GiveawayDayRow, GiveawaySlotRow } from "@/db/types";
 import { ApiError, notFound } from "@/lib/api/errors";
@@ -11,6 +12,8 @@ import { appUrl } from "@/lib/app-url";
 import { giveawayCautions } from "@/lib/calc/cautions";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { formatMoney } from "@/lib/payments/money";
+import { startCheckout } from "@/lib/payments/checkout";
+import { holdMinutes } from "@/lib/reservations/policy";
 import { bookingParts, giveawayBookedEmail } from "@/lib/mail/templates/giveaway";
 import { readableDateTime } from "@/lib/time/zoned";
 import { giveawayQuantityIssue } from "@/lib/validation/giveaways";
@@ -22,17 +25,20 @@ import { calendarToken } from "./giveaway-calendar";
 // it, verify a postal address once per account (a letter with a code, or the council's own
 // register of households) and key this rule on the verified address instead of the account.
 
-// The no-show deposit is recorded on the booking (deposit_status "recorded") but no card is
-// authorised or charged: that needs the payments work (Stripe PaymentIntents with manual
-// capture). Until then the amount is a stated expectation only, and every page says so.
-export const DEPOSIT_NOT_TAKEN_NOTE = "No card is taken for it yet: Duffbank does not collect giveaway-day deposits, so nothing is charged either way.";
+// A day's no-show deposit is held on the household's card (lib/services/giveaway-deposit.ts):
+// the booking takes its place at once and waits, deposit "awaiting", for the Stripe checkout;
+// only the webhook confirms it, and the confirmation e-mail goes when the hold is on the card.
+export const DEPOSIT_HOLD_NOTE =
+  "It is a hold on your card, not a charge: it is released when you are checked in, when you cancel before the cut-off, or if the day is called off, and it is taken only if you do not come.";
 
 export interface BookInput {
   slot_id: string;
   quantity: number;
 }
 
-export async function bookGiveaway(userId: string, dayId: string, input: BookInput, clock: () => Date = () => new Date()): Promise<GiveawayBookingRow> {
+export type BookedGiveaway = GiveawayBookingRow & { checkout_url: string | null };
+
+export async function bookGiveaway(userId: string, dayId: string, input: BookInput, clock: () => Date = () => new Date()): Promise<BookedGiveaway> {
   const now = clock();
   // Checks that need reading come first, outside the write: they give the clear message.
   // The write itself re-checks everything that a racing request could change.
@@ -61,20 +67,48 @@ export async function bookGiveaway(userId: string, dayId: string, input: BookInp
       throw slotFull();
     }
     if (await liveBookingFor(dayId, userId, trx)) throw householdLimit();
+    const deposit = day.deposit_cents > 0;
     let row: GiveawayBookingRow;
     try {
       row = await insertBooking(
-        { day_id: dayId, slot_id: slot.id, user_id: userId, quantity: input.quantity, deposit_cents: day.deposit_cents, deposit_status: day.deposit_cents > 0 ? "recorded" : "none", currency: day.currency },
+        {
+          day_id: dayId,
+          slot_id: slot.id,
+          user_id: userId,
+          quantity: input.quantity,
+          deposit_cents: day.deposit_cents,
+          deposit_status: deposit ? "awaiting" : "none",
+          currency: day.currency,
+          hold_expires_at: deposit ? new Date(now.getTime() + holdMinutes() * 60_000).toISOString() : null,
+        },
         trx,
       );
     } catch (err) {
       if (isUniqueViolation(err)) throw householdLimit();
       throw err;
     }
-    await enqueueBookedEmail(day, slot, row, trx);
-    return row;
+    if (!deposit) {
+      await enqueueBookedEmail(day, slot, row, trx);
+      return { row, paymentId: null };
+    }
+    const payment = await insertPayment(
+      { giveaway_booking_id: row.id, kind: "deposit", status: "creating", amount_cents: day.deposit_cents, currency: day.currency, idempotency_key: `checkout:giveaway:${row.id}` },
+      now.toISOString(),
+      trx,
+    );
+    return { row, paymentId: payment.id };
   });
-  return booking;
+  // Stripe is called only after the place is committed, as for reservations; a checkout that
+  // cannot start now is started again from the booking page (same idempotency key).
+  let checkoutUrl: string | null = null;
+  if (booking.paymentId) {
+    try {
+      checkoutUrl = await startCheckout(booking.paymentId, clock);
+    } catch (err) {
+      console.error("[giveaway] could not start the deposit checkout", (err as Error).message);
+    }
+  }
+  return { ...booking.row, checkout_url: checkoutUrl };
 }
 
 /** Refuses a booking unless the day is taking them at `now`, saying why. */
@@ -88,7 +122,8 @@ function assertOpen(day: GiveawayDayRow, now: Date) {
 const slotFull = () => new ApiError("slot_full", "That slot is full. Choose another time.");
 const householdLimit = () => new ApiError("household_limit", "Your household already has a booking for this day. Cancel it first to choose another slot.");
 
-async function enqueueBookedEmail(day: GiveawayDayRow, slot: GiveawaySlotRow, booking: GiveawayBookingRow, trx: Parameters<typeof findDay>[1]) {
+/** The confirmation with the exact place and the .ics: at booking, or once a deposit is on the card. */
+export async function enqueueBookedEmail(day: GiveawayDayRow, slot: GiveawaySlotRow, booking: GiveawayBookingRow, trx: Parameters<typeof findDay>[1]) {
   const [user, org] = await Promise.all([findUserById(booking.user_id, trx), findOrganisation(day.organisation_id, trx)]);
   if (!user) return;
   const base = appUrl();
@@ -96,7 +131,7 @@ async function enqueueBookedEmail(day: GiveawayDayRow, slot: GiveawaySlotRow, bo
     ...bookingParts({ name: user.display_name, organisation: org?.name ?? "The council", pageUrl: `${base}/giveaways/${day.id}`, day, slot, quantity: booking.quantity }),
     address: day.address,
     cancelBy: readableDateTime(cancelDeadline(slot.starts_at, day.cancel_cutoff_hours).toISOString(), day.time_zone),
-    depositNote: booking.deposit_cents > 0 ? `A no-show deposit of ${formatMoney(booking.deposit_cents, booking.currency)} is recorded on this booking. ${DEPOSIT_NOT_TAKEN_NOTE}` : null,
+    depositNote: booking.deposit_cents > 0 ? `A refundable no-show deposit of ${formatMoney(booking.deposit_cents, booking.currency)} is on hold on your card. ${DEPOSIT_HOLD_NOTE}` : null,
     calendarUrl: `${base}/api/giveaways/${day.id}/bookings/${booking.id}/calendar.ics?t=${calendarToken(booking.id)}`,
     cautions: giveawayCautions(day.material_code),
   });

@@ -9,9 +9,12 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
 import { bookingParts, giveawayBookingCancelledEmail } from "@/lib/mail/templates/giveaway";
 import { readableDateTime } from "@/lib/time/zoned";
+import { formatMoney } from "@/lib/payments/money";
+import { runPaymentActions } from "@/lib/payments/actions";
 import { cancelDeadline } from "./giveaway-view";
+import { depositAfterReturn, settleBookingDeposit } from "./giveaway-deposit";
 
-/** A household cancels its own booking, up to the day's cut-off before the slot. */
+/** A household cancels its own booking, up to the day's cut-off before the slot; any deposit hold is released. */
 export async function cancelGiveawayBooking(userId: string, dayId: string, bookingId: string, clock: () => Date = () => new Date()) {
   const booking = await findBooking(bookingId);
   // Someone else's booking is not found, whatever its id.
@@ -23,23 +26,38 @@ export async function cancelGiveawayBooking(userId: string, dayId: string, booki
   if (clock().getTime() > deadline.getTime()) {
     throw new ApiError("invalid_state", `Bookings for this day can be cancelled until ${day.cancel_cutoff_hours} hours before the slot (${readableDateTime(deadline.toISOString(), day.time_zone)}). Please tell the council if you cannot come.`);
   }
-  return writeTransaction(db(), async (trx) => {
+  const now = clock();
+  const owed = await writeTransaction(db(), async (trx) => {
+    // Guarded on the deposit too: a hold landing meanwhile is released below, not left behind.
+    const current = (await findBooking(bookingId, trx))!;
     const changed = await setBookingStatus(
       { id: bookingId, user_id: userId },
       ["booked"],
       "cancelled",
-      { cancelled_at: clock().toISOString(), deposit_status: booking.deposit_status === "recorded" ? "released" : booking.deposit_status },
+      { cancelled_at: now.toISOString(), deposit_status: depositAfterReturn(current.deposit_status), hold_expires_at: null },
       trx,
     );
     if (!changed) throw new ApiError("invalid_state", "This booking has just changed; reload the page.");
     await releaseSlotPlace(slot.id, trx);
+    // Cancelled before the cut-off: an open card page is closed, a deposit hold released.
+    const ids = await settleBookingDeposit(trx, bookingId, "return", now);
     const [user, org] = await Promise.all([findUserById(userId, trx), findOrganisation(day.organisation_id, trx)]);
     if (user) {
-      const mail = giveawayBookingCancelledEmail(
-        bookingParts({ name: user.display_name, organisation: org?.name ?? "the council", pageUrl: `${appUrl()}/giveaways`, day, slot, quantity: booking.quantity }),
-      );
+      const depositNote =
+        current.deposit_status === "held"
+          ? `The no-show deposit of ${formatMoney(current.deposit_cents, current.currency)} held on your card is released; nothing is taken.`
+          : current.deposit_status === "awaiting"
+            ? "The deposit was not put down, so nothing was taken from your card."
+            : null;
+      const mail = giveawayBookingCancelledEmail({
+        ...bookingParts({ name: user.display_name, organisation: org?.name ?? "the council", pageUrl: `${appUrl()}/giveaways`, day, slot, quantity: booking.quantity }),
+        depositNote,
+      });
       await enqueueEmail({ to: user.email, ...mail, template: "giveaway_booking_cancelled", dedupe_key: `giveaway-booking-cancelled:${bookingId}` }, trx);
     }
-    return (await findBooking(bookingId, trx))!;
+    return ids;
   });
+  // The Stripe call after the commit; the worker retries it if Stripe is away.
+  await runPaymentActions(owed, clock);
+  return (await findBooking(bookingId))!;
 }

@@ -9,25 +9,34 @@ import { appUrl } from "@/lib/app-url";
 import { formatMoney } from "@/lib/payments/money";
 import { bookingParts, giveawayDayCancelledEmail } from "@/lib/mail/templates/giveaway";
 import { staffDayView } from "./giveaway-view";
-import { DEPOSIT_NOT_TAKEN_NOTE } from "./book-giveaway";
+import { runPaymentActions } from "@/lib/payments/actions";
+import type { DepositStatus } from "@/db/types";
+import { depositAfterReturn, settleBookingDeposit } from "./giveaway-deposit";
 import type { CouncilContext } from "./council-access";
 
 /** Calls a day off: every live booking is cancelled, its deposit released, its household e-mailed — all or nothing. */
 export async function cancelGiveaway(ctx: CouncilContext, dayId: string, reason: string, clock: () => Date = () => new Date()) {
-  return writeTransaction(db(), async (trx) => {
+  const result = await writeTransaction(db(), async (trx) => {
     if (!(await cancelOrgDay(dayId, ctx.organisationId, reason, trx))) {
       if (!(await findOrgDay(dayId, ctx.organisationId, trx))) throw notFound("That giveaway day");
       throw new ApiError("invalid_state", "That day is already cancelled.");
     }
     const day = (await findOrgDay(dayId, ctx.organisationId, trx))!;
     const booked = (await sheetFor(dayId, {}, trx)).filter((b) => b.status === "booked");
-    const now = clock().toISOString();
+    const at = clock();
+    const now = at.toISOString();
+    const owed: string[] = [];
     for (const b of booked) {
-      await setBookingStatus({ id: b.id, day_id: dayId }, ["booked"], "cancelled", { cancelled_at: now, deposit_status: b.deposit_cents > 0 ? "released" : "none" }, trx);
+      const status = b.deposit_status as DepositStatus;
+      await setBookingStatus({ id: b.id, day_id: dayId }, ["booked"], "cancelled", { cancelled_at: now, deposit_status: depositAfterReturn(status), hold_expires_at: null }, trx);
+      // Every deposit hold is released and every open card page closed (Stripe after the commit).
+      owed.push(...(await settleBookingDeposit(trx, b.id, "return", at)));
       const depositNote =
-        b.deposit_cents > 0
-          ? `The no-show deposit of ${formatMoney(b.deposit_cents, day.currency)} on your booking is released. ${DEPOSIT_NOT_TAKEN_NOTE}`
-          : "There was no deposit on this booking, so there is nothing to release or refund.";
+        status === "held"
+          ? `The no-show deposit of ${formatMoney(b.deposit_cents, day.currency)} held on your card is released; nothing is taken.`
+          : status === "awaiting"
+            ? "The deposit was not put down, so nothing was taken from your card, and its payment page is closed."
+            : "There was no deposit on this booking, so there is nothing to release or refund.";
       const mail = giveawayDayCancelledEmail({
         ...bookingParts({ name: b.name, organisation: ctx.organisationName, pageUrl: `${appUrl()}/giveaways`, day, slot: b, quantity: b.quantity }),
         reason,
@@ -40,6 +49,8 @@ export async function cancelGiveaway(ctx: CouncilContext, dayId: string, reason:
       { actor_id: ctx.userId, action: "giveaway.cancel", subject_type: "giveaway_day", subject_id: dayId, before: { status: "scheduled" }, after: { status: "cancelled", reason, bookings_cancelled: booked.length } },
       trx,
     );
-    return { day: staffDayView(day, await slotsOf([dayId], trx), ctx.organisationName), bookings_cancelled: booked.length };
+    return { view: { day: staffDayView(day, await slotsOf([dayId], trx), ctx.organisationName), bookings_cancelled: booked.length }, owed };
   });
+  await runPaymentActions(result.owed, clock);
+  return result.view;
 }

@@ -1,7 +1,8 @@
 import "server-only";
 import type { Knex } from "knex";
 import type { Db } from "@/db/index";
-import { chargeOf, insertPayment, updatePayment } from "@/db/payments";
+import { chargeOf, insertPayment } from "@/db/payments";
+import { settleCheckout } from "@/lib/payments/owner";
 import { reservationContext, type ReservationContext } from "@/db/reservation-context";
 import { collectQuantity, recordReservationEvent, releaseQuantity, updateReservationIf, type PickupWindowRow } from "@/db/reservations";
 import type { ReservationRow } from "@/db/types";
@@ -67,14 +68,8 @@ export async function settleMoney(trx: Db, r: ReservationRow, rule: MoneyRule, n
   const charge = await chargeOf(r.id, trx);
   if (!charge) return [];
   const at = now.toISOString();
-  if (charge.status === "creating" || charge.status === "open") {
-    await updatePayment(charge.id, { pending_action: "expire", next_action_at: null, updated_at: at }, trx);
-    return [charge.id];
-  }
-  if (charge.status === "authorised") {
-    await updatePayment(charge.id, { pending_action: rule === "keep" ? "capture" : "release", next_action_at: null, updated_at: at }, trx);
-    return [charge.id];
-  }
+  const owed = await settleCheckout(trx, charge, rule, now);
+  if (owed) return owed;
   if (charge.status === "paid" && rule === "return") {
     const existing = await trx("payments").first("id").where({ idempotency_key: `refund:${charge.id}` });
     if (existing) return [];

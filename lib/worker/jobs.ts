@@ -3,6 +3,7 @@ import { settlePayments } from "@/lib/payments/actions";
 import { recoverOpenPayments } from "@/lib/payments/reconcile";
 import { expireHolds, sendReservationReminders } from "@/lib/services/expire-holds";
 import { expireListings } from "@/lib/services/expire-listings";
+import { expireGiveawayDepositHolds } from "@/lib/services/giveaway-deposit";
 import { sendBedReminders } from "@/lib/services/send-bed-reminders";
 
 export type Clock = () => Date;
@@ -20,6 +21,8 @@ export const jobs: Job[] = [
   { name: "expire-listings", everyMs: 60_000, run: (clock) => expireListings(clock) },
   { name: "bed-reminders", everyMs: 60_000, run: (clock) => sendBedReminders(clock) },
   { name: "expire-holds", everyMs: 15_000, run: (clock) => expireHolds(clock) },
+  // Giveaway bookings whose no-show deposit was not put down within the hold.
+  { name: "expire-giveaway-deposits", everyMs: 15_000, run: (clock) => expireGiveawayDepositHolds(clock) },
   { name: "reservation-reminders", everyMs: 60_000, run: (clock) => sendReservationReminders(clock) },
   // Owed Stripe calls, then the lost-webhook net: checkouts still open after a few minutes
   // are checked against Stripe's record and brought up to it.

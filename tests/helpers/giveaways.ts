@@ -18,7 +18,8 @@ export function dayBody(over: Record<string, unknown> = {}) {
     address: DEPOT_ADDRESS,
     unit: "bags",
     household_cap: 6,
-    deposit_cents: 500,
+    // No deposit unless a test asks for one: a deposit day needs the Stripe fake (tests/helpers/payments.ts).
+    deposit_cents: 0,
     slots: [
       { start: "09:00", end: "09:30", capacity: 2 },
       { start: "09:30", end: "10:00", capacity: 1 },

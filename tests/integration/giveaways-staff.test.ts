@@ -115,7 +115,7 @@ describe("the day's sheet and check-in", () => {
   it("checks a household in, records who did it, and the CSV shows it", async () => {
     const res = await call(attendance.PATCH as never, await request("/x", { method: "PATCH", body: { status: "checked_in" }, as: p.staffA }), { id: dayA.id, bookingId });
     expect(res.status).toBe(200);
-    expect(res.json.booking).toMatchObject({ status: "checked_in", deposit_status: "released" });
+    expect(res.json.booking).toMatchObject({ status: "checked_in", deposit_status: "none" });
     const audit = await ctx.db("audit_log").where({ action: "giveaway.attendance_checked_in", subject_id: bookingId }).first();
     expect(audit.actor_id).toBe(p.staffA);
     expect(JSON.parse(audit.before).status).toBe("booked");
@@ -165,7 +165,7 @@ describe("changing a day and its slots", () => {
 });
 
 describe("calling a day off", () => {
-  it("cancels every live booking, e-mails each household that its deposit is released, and closes booking", async () => {
+  it("cancels every live booking, e-mails each household (no deposit to release), and closes booking", async () => {
     const d = await createDayAs(p.ownerA, { title: "Second leaf day" });
     await bookAs(p.gardener, d.id, { slot_id: d.slots[0].id, quantity: 2 });
     await bookAs(p.other, d.id, { slot_id: d.slots[0].id, quantity: 1 });
@@ -177,10 +177,10 @@ describe("calling a day off", () => {
     expect(mails).toHaveLength(2);
     for (const m of mails) {
       expect(m.text_body).toContain("The depot gate is broken.");
-      expect(m.text_body).toMatch(/deposit of €5\.00 on your booking is released/);
+      expect(m.text_body).toContain("There was no deposit on this booking");
     }
     const rows = await ctx.db("giveaway_bookings").where({ day_id: d.id });
-    expect(rows.every((b: { status: string; deposit_status: string }) => b.status === "cancelled" && b.deposit_status === "released")).toBe(true);
+    expect(rows.every((b: { status: string; deposit_status: string }) => b.status === "cancelled" && b.deposit_status === "none")).toBe(true);
     expect((await ctx.db("giveaway_slots").where({ day_id: d.id })).every((s: { booked: number }) => s.booked === 0)).toBe(true);
     expect((await bookAs(p.gardener, d.id, { slot_id: d.slots[0].id, quantity: 1 })).status).toBe(409);
     expect((await call(cancel.POST as never, await request("/x", { body: { reason: "Again" }, as: p.staffA }), { id: d.id })).status).toBe(409);

@@ -47,11 +47,26 @@ export function giveawayBookedEmail(p: BookingParts & { address: string; cancelB
   });
 }
 
-export function giveawayBookingCancelledEmail(p: BookingParts) {
+export function giveawayBookingCancelledEmail(p: BookingParts & { depositNote?: string | null }) {
   return renderEmail(`Cancelled: your booking for ${p.title}`, {
     heading: "Your booking is cancelled",
-    paragraphs: [`Hello ${p.name}, your booking for ${p.quantityLabel} at ${p.title} (${p.organisation}) on ${p.dateLabel}, ${p.slotLabel}, is cancelled. The place has gone back to other households.`],
+    paragraphs: [
+      `Hello ${p.name}, your booking for ${p.quantityLabel} at ${p.title} (${p.organisation}) on ${p.dateLabel}, ${p.slotLabel}, is cancelled. The place has gone back to other households.`,
+      ...(p.depositNote ? [p.depositNote] : []),
+    ],
     action: { label: "See other giveaway days", url: p.pageUrl },
+  });
+}
+
+/** The no-show deposit was not put down within the hold: the booking lapsed. */
+export function giveawayBookingLapsedEmail(p: BookingParts & { holdMinutes: number }) {
+  return renderEmail(`Not booked: ${p.title}, ${p.dateLabel}`, {
+    heading: "Your booking lapsed",
+    paragraphs: [
+      `Hello ${p.name}, the no-show deposit for your place at ${p.title} (${p.organisation}) on ${p.dateLabel}, ${p.slotLabel}, was not put down within ${p.holdMinutes} minutes, so the place has gone back to other households. Nothing was taken from your card.`,
+      "You can book again while places are left.",
+    ],
+    action: { label: "See the day", url: p.pageUrl },
   });
 }
 

@@ -8,8 +8,14 @@ import { bookGiveaway } from "@/lib/services/book-giveaway";
 export const POST = withAuth<{ id: string }>(async ({ req, params, user }) => {
   const input = parseInput(bookingSchema, await readJson(req));
   const b = await bookGiveaway(user.id, params.id, input);
+  // A day with a no-show deposit: the place is taken, and checkout_url is the card page that
+  // puts the deposit on hold (the booking is confirmed by Stripe's webhook, not the redirect).
+  const checkout = b.checkout_url ? { checkout_url: b.checkout_url } : {};
   return NextResponse.json(
-    { booking: { id: b.id, slot_id: b.slot_id, quantity: b.quantity, status: b.status, day_id: b.day_id, deposit_cents: b.deposit_cents, deposit_status: b.deposit_status } },
+    {
+      booking: { id: b.id, slot_id: b.slot_id, quantity: b.quantity, status: b.status, day_id: b.day_id, deposit_cents: b.deposit_cents, deposit_status: b.deposit_status, hold_expires_at: b.hold_expires_at },
+      ...checkout,
+    },
     { status: 201 },
   );
 });

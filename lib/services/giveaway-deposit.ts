@@ -1,0 +1,107 @@
+import "server-only";
+import type { Knex } from "knex";
+import { db } from "@/db/index";
+import { writeTransaction } from "@/db/write-transaction";
+import { findBooking, findDay, findSlot, releaseSlotPlace } from "@/db/giveaways";
+import { findOrganisation } from "@/db/organisations";
+import { findUserById } from "@/db/users";
+import { enqueueEmail } from "@/db/outbox";
+import { depositOfBooking } from "@/db/payments";
+import type { DepositStatus, GiveawayBookingRow, PaymentRow } from "@/db/types";
+import { appUrl } from "@/lib/app-url";
+import { bookingParts, giveawayBookingLapsedEmail } from "@/lib/mail/templates/giveaway";
+import { runPaymentActions } from "@/lib/payments/actions";
+import { settleCheckout } from "@/lib/payments/owner";
+import { holdMinutes } from "@/lib/reservations/policy";
+import { enqueueBookedEmail } from "./book-giveaway";
+
+// A giveaway day's refundable no-show deposit, held on the household's card through the same
+// payments rows, Stripe calls, webhooks and worker as a reservation's deposit:
+//   awaiting → (checkout completed, the card authorised) held → released (checked in, cancelled
+//   before the cut-off, the day called off) or kept (captured: marked a no-show after the slot).
+//   Not put down within the hold (HOLD_MINUTES): the booking lapses and its place returns.
+// The booking keeps status "booked" throughout, so the one-per-household index and every
+// count of places already treat it as taking its place.
+
+type Trx = Knex.Transaction;
+
+/** A booking's deposit once the booking ends without a no-show: a hold is let go, a card page closed. */
+export function depositAfterReturn(s: DepositStatus): DepositStatus {
+  return s === "held" ? "released" : s === "awaiting" ? "unpaid" : s;
+}
+
+/** Writes the Stripe call a booking's deposit owes (inside the caller's transaction); returns the payments to run after the commit. */
+export async function settleBookingDeposit(trx: Knex | Trx, bookingId: string, rule: "return" | "keep", now: Date): Promise<string[]> {
+  const charge = await depositOfBooking(bookingId, trx);
+  if (!charge) return [];
+  return (await settleCheckout(trx, charge, rule, now)) ?? [];
+}
+
+/**
+ * The booking side of its deposit moving forward (from apply-stripe-event, webhook or
+ * recovered). Authorised: the booking is confirmed and its e-mail with the .ics goes out;
+ * if the booking ended meanwhile, the hold is let go at once.
+ */
+export async function bookingDepositFollows(trx: Trx, row: PaymentRow, status: string, now: Date): Promise<string[]> {
+  const booking = await findBooking(row.giveaway_booking_id!, trx);
+  if (!booking) return [];
+  const set = (deposit_status: DepositStatus, extra: Partial<GiveawayBookingRow> = {}) =>
+    trx("giveaway_bookings").where({ id: booking.id }).update({ deposit_status, ...extra, updated_at: now.toISOString() });
+  if (status === "authorised") {
+    if (booking.status === "booked" && booking.deposit_status === "awaiting") {
+      await set("held", { hold_expires_at: null });
+      const day = (await findDay(booking.day_id, trx))!;
+      const slot = (await findSlot(booking.slot_id, booking.day_id, trx))!;
+      await enqueueBookedEmail(day, slot, { ...booking, deposit_status: "held" }, trx);
+      return [];
+    }
+    // Lapsed, cancelled or checked in before the card went through: nothing is to be held.
+    const owed = await settleBookingDeposit(trx, booking.id, "return", now);
+    if (booking.deposit_status !== "kept") await set("released");
+    return owed;
+  }
+  if (status === "released" && booking.deposit_status !== "kept") await set("released");
+  if (status === "captured") await set("kept");
+  return [];
+}
+
+/** The worker's job: bookings whose deposit was not put down in time lapse; the place returns and the card page closes. */
+export async function expireGiveawayDepositHolds(clock: () => Date = () => new Date(), q: Knex = db()): Promise<{ expired: number }> {
+  const now = clock();
+  const at = now.toISOString();
+  const due = await q<GiveawayBookingRow>("giveaway_bookings")
+    .select("id")
+    .where({ status: "booked", deposit_status: "awaiting" })
+    .andWhere("hold_expires_at", "<=", at)
+    .orderBy("hold_expires_at")
+    .limit(100);
+  let expired = 0;
+  for (const { id } of due) {
+    const owed = await writeTransaction(q, async (trx) => {
+      // Guarded: a deposit authorised a moment ago has moved the booking on, and it stays.
+      const n = await trx("giveaway_bookings")
+        .where({ id, status: "booked", deposit_status: "awaiting" })
+        .andWhere("hold_expires_at", "<=", at)
+        .update({ status: "cancelled", deposit_status: "unpaid", cancelled_at: at, hold_expires_at: null, updated_at: at });
+      if (n === 0) return null;
+      const b = (await findBooking(id, trx))!;
+      await releaseSlotPlace(b.slot_id, trx);
+      const ids = await settleBookingDeposit(trx, id, "return", now);
+      const day = (await findDay(b.day_id, trx))!;
+      const slot = (await findSlot(b.slot_id, b.day_id, trx))!;
+      const [user, org] = await Promise.all([findUserById(b.user_id, trx), findOrganisation(day.organisation_id, trx)]);
+      if (user) {
+        const mail = giveawayBookingLapsedEmail({
+          ...bookingParts({ name: user.display_name, organisation: org?.name ?? "The council", pageUrl: `${appUrl()}/giveaways/${day.id}`, day, slot, quantity: b.quantity }),
+          holdMinutes: holdMinutes(),
+        });
+        await enqueueEmail({ to: user.email, ...mail, template: "giveaway_booking_lapsed", dedupe_key: `giveaway-booking-lapsed:${id}` }, trx);
+      }
+      return ids;
+    });
+    if (owed === null) continue;
+    expired++;
+    await runPaymentActions(owed, clock, q);
+  }
+  return { expired };
+}
