@@ -8,6 +8,7 @@ import type { SlotView } from "@/lib/services/giveaway-view";
 import type { VisitorBooking } from "@/lib/services/giveaway-for-visitor";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { formatMoney } from "@/lib/payments/money";
+import { depositLabel } from "@/lib/format/giveaway-deposit";
 import { readableDateTime, wallTime } from "@/lib/time/zoned";
 import { apiFetch, isApiError } from "@/lib/api/client";
 import { useRouter } from "next/navigation";
@@ -76,8 +77,10 @@ function BookForm(p: BookingPanelProps) {
       return;
     }
     try {
-      await apiFetch(`/api/giveaways/${p.dayId}/bookings`, { body: values });
-      router.refresh();
+      const res = await apiFetch<{ checkout_url?: string }>(`/api/giveaways/${p.dayId}/bookings`, { body: values });
+      // A deposit day: the place is held, and the card page puts the deposit on hold.
+      if (res.checkout_url) window.location.assign(res.checkout_url);
+      else router.refresh();
     } catch (err) {
       if (isApiError(err) && err.fields) for (const [k, m] of Object.entries(err.fields)) form.setError(k as keyof Values, { message: m });
       setError(isApiError(err) ? err.message : "The booking did not go through. Please try again.");
@@ -117,8 +120,8 @@ function BookForm(p: BookingPanelProps) {
       />
       {p.depositCents > 0 ? (
         <p className="text-sm text-humus-700">
-          This day asks a {formatMoney(p.depositCents, p.currency)} no-show deposit. It is recorded with your booking, but no card is taken: Duffbank does not collect
-          giveaway-day deposits yet, so nothing is charged either way.
+          This day asks a refundable {formatMoney(p.depositCents, p.currency)} no-show deposit. After you book, a card page puts it on hold (not a charge), and your place
+          is held meanwhile. It is released when you are checked in, when you cancel in time, or if the day is called off, and taken only if you do not come.
         </p>
       ) : null}
       <p className="text-sm text-humus-600">One booking per household (one Duffbank account) for this day.</p>
@@ -133,10 +136,11 @@ function MyBooking(p: BookingPanelProps & { booking: VisitorBooking }) {
   const action = useApiAction();
   const b = p.booking;
   const canCancel = b.status === "booked" && Date.parse(p.now) < Date.parse(b.cancel_until);
+  const awaiting = b.status === "booked" && b.deposit_status === "awaiting";
   return (
     <section aria-labelledby="booked-title" className="flex flex-col gap-3 rounded-lg bg-moss-50 p-4 ring-1 ring-moss-300">
       <h2 id="booked-title" className="text-lg font-semibold">
-        {b.status === "checked_in" ? "Collected — thank you" : "You're booked"}
+        {b.status === "checked_in" ? "Collected — thank you" : awaiting ? "Your place is held: put the deposit down to confirm it" : "You're booked"}
       </h2>
       <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1">
         <dt className="font-medium">Arrive</dt>
@@ -150,10 +154,23 @@ function MyBooking(p: BookingPanelProps & { booking: VisitorBooking }) {
         {b.deposit_cents > 0 ? (
           <>
             <dt className="font-medium">Deposit</dt>
-            <dd>{formatMoney(b.deposit_cents, p.currency)} recorded, not charged</dd>
+            <dd>{depositLabel(b.deposit_cents, p.currency, b.deposit_status)}</dd>
           </>
         ) : null}
       </dl>
+      {awaiting ? (
+        <Notice tone="info">
+          {b.hold_expires_at ? `Put the deposit on hold by ${readableDateTime(b.hold_expires_at, p.timeZone)}, or the place goes back to other households. ` : ""}
+          If you have just done so, this page shows it within a minute or two.{" "}
+          {b.checkout_url ? (
+            <a href={b.checkout_url} className="font-medium underline">
+              Put down the deposit
+            </a>
+          ) : (
+            "The card page could not be opened just now; reload in a minute."
+          )}
+        </Notice>
+      ) : null}
       <div className="flex flex-wrap gap-2">
         <a href={`/api/giveaways/${p.dayId}/bookings/${b.id}/calendar.ics`} className={buttonClass("secondary")}>
           Add to calendar (.ics)

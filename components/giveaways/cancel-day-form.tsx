@@ -23,7 +23,7 @@ export function CancelDayForm({ dayId, booked, depositCents }: { dayId: string; 
     <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-2">
       <p className="text-sm text-humus-700">
         Everyone booked gets an e-mail with your reason, and their booking is cancelled.
-        {depositCents ? ` Their ${formatMoney(depositCents, "eur")} no-show deposit is released (none was charged: deposits are recorded only for now).` : ""}
+        {depositCents ? ` Every ${formatMoney(depositCents, "eur")} no-show deposit held on a card is released, and any deposit page still open is closed.` : ""}
       </p>
       <label htmlFor="field-reason" className="font-medium">
         Reason, for the e-mail

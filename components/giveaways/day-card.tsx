@@ -47,7 +47,7 @@ export function DayCard({ day, now }: { day: PublicDayView; now: Date }) {
         {day.deposit_cents > 0 ? (
           <>
             <dt>No-show deposit</dt>
-            <dd>{formatMoney(day.deposit_cents, day.currency)} (recorded, not charged)</dd>
+            <dd>{formatMoney(day.deposit_cents, day.currency)}, refundable (a hold on your card)</dd>
           </>
         ) : null}
         {day.distance_km !== undefined ? (

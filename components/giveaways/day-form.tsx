@@ -127,7 +127,7 @@ export function DayForm({ mode, initial, dayId, locked = false }: DayFormProps) 
         <Field
           label="No-show deposit (€)"
           inputMode="decimal"
-          hint="Recorded on each booking only: card deposits need the payments work, so none is charged yet."
+          hint="0 for none. Otherwise each household puts it on hold on a card to book (at least €0.50); it is released when they are checked in, cancel in time or you call the day off, and taken only for a no-show you mark after their slot."
           {...register("deposit_eur")}
           error={errors.deposit_eur?.message}
         />

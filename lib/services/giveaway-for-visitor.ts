@@ -3,6 +3,8 @@ import { findBooking, findDay, findSlot, liveBookingFor, slotsOf } from "@/db/gi
 import { findOrganisation } from "@/db/organisations";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
+import { depositOfBooking } from "@/db/payments";
+import { startCheckout } from "@/lib/payments/checkout";
 import { cancelDeadline, publicDayView, type PublicDayView } from "./giveaway-view";
 import { giveawayCalendar, validCalendarToken } from "./giveaway-calendar";
 
@@ -13,6 +15,9 @@ export interface VisitorBooking {
   status: string;
   deposit_cents: number;
   deposit_status: string;
+  /** While the deposit is awaited: the card page, and when the place is let go without it. */
+  checkout_url: string | null;
+  hold_expires_at: string | null;
   starts_at: string;
   ends_at: string;
   cancel_until: string;
@@ -30,6 +35,16 @@ export async function giveawayForVisitor(dayId: string, userId: string | null): 
   const booking = userId ? await liveBookingFor(dayId, userId) : undefined;
   if (!booking) return { giveaway, my_booking: null };
   const slot = slots.find((s) => s.id === booking.slot_id)!;
+  let checkoutUrl: string | null = null;
+  if (booking.deposit_status === "awaiting") {
+    const charge = await depositOfBooking(booking.id);
+    try {
+      // Open already, or started again when the first try at booking could not reach Stripe.
+      checkoutUrl = charge ? await startCheckout(charge.id) : null;
+    } catch (err) {
+      console.error("[giveaway] could not open the deposit checkout", (err as Error).message);
+    }
+  }
   return {
     giveaway,
     my_booking: {
@@ -39,6 +54,8 @@ export async function giveawayForVisitor(dayId: string, userId: string | null): 
       status: booking.status,
       deposit_cents: booking.deposit_cents,
       deposit_status: booking.deposit_status,
+      checkout_url: checkoutUrl,
+      hold_expires_at: booking.hold_expires_at,
       starts_at: slot.starts_at,
       ends_at: slot.ends_at,
       cancel_until: cancelDeadline(slot.starts_at, day.cancel_cutoff_hours).toISOString(),

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { BAG_M3 } from "@/lib/calc/facts";
 import { DEFAULT_TIME_ZONE, isTimeZone } from "@/lib/time/zoned";
+import { MIN_CARD_CHARGE_CENTS } from "@/lib/payments/money";
 import { calendarDateSchema, idSchema, locationSchema, noteSchema } from "./common";
 
 /** What councils hand out on a giveaway day. */
@@ -49,7 +50,13 @@ const dayFields = {
   booking_opens_at: instant.optional(),
   booking_closes_at: instant.optional(),
   cancel_cutoff_hours: z.number().int("Use whole hours.").min(0, "0 hours or more.").max(168, "At most a week (168 hours)."),
-  deposit_cents: z.number().int("Use whole cents.").min(0, "No negative deposits.").max(10_000, "At most 100.00."),
+  // Held on a card, so 0 (none) or at least the smallest card charge (lib/payments/money.ts).
+  deposit_cents: z
+    .number()
+    .int("Use whole cents.")
+    .min(0, "No negative deposits.")
+    .max(10_000, "At most 100.00.")
+    .refine((v) => v === 0 || v >= MIN_CARD_CHARGE_CENTS.eur, `0 for none, or at least ${(MIN_CARD_CHARGE_CENTS.eur / 100).toFixed(2)}: a card cannot hold less.`),
 };
 
 // Defaults apply to a new day only: a change sends just what changes (zod would fill a

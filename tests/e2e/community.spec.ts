@@ -3,6 +3,7 @@ import path from "node:path";
 import { expect, test, type APIRequestContext } from "@playwright/test";
 import { DEMO, inboxUrl, storageState } from "./roles";
 import { seedId } from "../../seeds/ids";
+import { payOnCheckoutPage } from "./exchange";
 
 const shot = (name: string) => path.join(process.env.E2E_DIR ?? "test-results", `${name}.png`);
 
@@ -72,9 +73,15 @@ test("council staff create a day with slots, a gardener books, staff check them 
   await expect(g.getByText("Gate B, Mill Leat Lane")).toHaveCount(0); // the exact place only after booking
   await g.getByLabel("How much (bags)").fill("3");
   await g.getByRole("button", { name: "Book this slot" }).click();
-  await expect(g.getByRole("heading", { name: "You're booked" })).toBeVisible();
+  // The day asks a deposit: the place is held and the card page puts €2.50 on hold; the
+  // booking is confirmed by Stripe's webhook, so the page may need a moment to show it.
+  await payOnCheckoutPage(g, "4242 4242 4242 4242");
+  await expect(async () => {
+    await g.goto(`/giveaways/${dayId}`);
+    await expect(g.getByRole("heading", { name: "You're booked" })).toBeVisible({ timeout: 2_000 });
+  }).toPass({ timeout: 30_000 });
   await expect(g.getByText("Gate B, Mill Leat Lane depot, Fernhollow").first()).toBeVisible();
-  await expect(g.getByText("€2.50 recorded, not charged")).toBeVisible();
+  await expect(g.getByText("€2.50 on hold on the card")).toBeVisible();
   await g.screenshot({ path: shot("giveaway-booked"), fullPage: true });
 
   // The confirmation arrives in the local inbox with a calendar link that works without a session.
@@ -94,6 +101,11 @@ test("council staff create a day with slots, a gardener books, staff check them 
   await p.getByRole("button", { name: "Check in Ines Okafor" }).click();
   await expect(p.getByText("1 of 1 households checked in")).toBeVisible();
   await expect(p.getByRole("button", { name: /Undo check-in for Ines Okafor/ })).toBeVisible();
+  // Checking in releases the deposit hold.
+  await expect(async () => {
+    await p.reload();
+    await expect(p.getByText("deposit €2.50 released")).toBeVisible({ timeout: 2_000 });
+  }).toPass({ timeout: 30_000 });
   await p.screenshot({ path: shot("check-in-phone"), fullPage: true });
   await phone.close();
 

@@ -9,6 +9,7 @@ import { startPayments, type PaymentsHarness } from "../helpers/payments";
 import { bookAs, createDayAs } from "../helpers/giveaways";
 import { createUser } from "../factories";
 import { TEST_CARDS, submitHostedPayment, validCard } from "@/lib/fakes/stripe/testing";
+import * as oneDay from "@/app/api/giveaways/[id]/route";
 import * as myBooking from "@/app/api/giveaways/[id]/bookings/[bookingId]/route";
 import * as cancelDay from "@/app/api/council/giveaways/[id]/cancel/route";
 import * as attendance from "@/app/api/council/giveaways/[id]/bookings/[bookingId]/route";
@@ -84,6 +85,10 @@ describe("booking a day that asks a deposit", () => {
     // Nothing is confirmed yet: no confirmation e-mail, and the same household cannot book twice.
     expect(await mails("giveaway_booked", await emailOf(p.ada))).toHaveLength(0);
     expect((await bookAs(p.ada, day.id, { slot_id: day.slots[1].id, quantity: 1 })).status).toBe(409);
+
+    // The booking page offers the same card page again while the deposit is awaited.
+    const page = await call(oneDay.GET as never, await request(`/api/giveaways/${day.id}`, { as: p.ada }), { id: day.id });
+    expect(page.json.my_booking).toMatchObject({ id, deposit_status: "awaiting", checkout_url: res.json.checkout_url });
 
     // The browser coming back proves nothing; the webhook does.
     pay.fake.setWebhookUrl(null);

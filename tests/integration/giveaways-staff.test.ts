@@ -56,6 +56,7 @@ describe("council staff create and list days", () => {
     ["booking closing before it opens", { booking_opens_at: "2027-01-02T10:00:00Z", booking_closes_at: "2027-01-01T10:00:00Z" }, "booking_closes_at"],
     ["an unknown time zone", { time_zone: "Mars/Olympus" }, "time_zone"],
     ["a negative deposit", { deposit_cents: -100 }, "deposit_cents"],
+    ["a deposit a card cannot hold (below €0.50, Stripe's minimum charge, from memory)", { deposit_cents: 20 }, "deposit_cents"],
   ];
   for (const [label, over, field] of BAD) {
     it(`422 on ${field}: ${label}`, async () => {

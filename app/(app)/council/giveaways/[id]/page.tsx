@@ -35,7 +35,7 @@ export default async function CouncilDayPage({ params }: { params: Promise<{ id:
         lead={
           <>
             {day.material_name}, {longDate(day.date)}, at {day.exact.address}. Up to {formatGiveawayQuantity(day.household_cap, day.unit)} a household
-            {day.deposit_cents ? `; no-show deposit ${formatMoney(day.deposit_cents, day.currency)} (recorded, not charged)` : ""}. Booking closes{" "}
+            {day.deposit_cents ? `; refundable no-show deposit ${formatMoney(day.deposit_cents, day.currency)}, held on each household's card` : ""}. Booking closes{" "}
             {readableDateTime(day.booking_closes_at, day.time_zone)}.
           </>
         }

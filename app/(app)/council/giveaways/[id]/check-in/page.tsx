@@ -22,7 +22,9 @@ export default async function CheckInPage({ params }: { params: Promise<{ id: st
       </p>
       <h1 className="text-2xl font-bold">Check in — {longDate(day.date)}</h1>
       {day.status === "cancelled" ? <Notice tone="error">This day is called off.</Notice> : null}
-      <CheckInList dayId={id} unit={day.unit} timeZone={day.time_zone} rows={bookings.map((b) => ({ id: b.id, name: b.name, quantity: b.quantity, status: b.status, starts_at: b.starts_at }))} />
+      <CheckInList dayId={id} unit={day.unit} timeZone={day.time_zone} now={new Date().toISOString()}
+        currency={day.currency}
+        rows={bookings.map((b) => ({ id: b.id, name: b.name, quantity: b.quantity, status: b.status, starts_at: b.starts_at, ends_at: b.ends_at, deposit_cents: b.deposit_cents, deposit_status: b.deposit_status }))} />
     </div>
   );
 }

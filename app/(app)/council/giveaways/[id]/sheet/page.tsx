@@ -6,6 +6,7 @@ import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { longDate, wallTime } from "@/lib/time/zoned";
 import { buttonClass } from "@/components/ui/button-class";
 import { PrintButton } from "@/components/giveaways/print-button";
+import { depositLabel } from "@/lib/format/giveaway-deposit";
 
 export const metadata: Metadata = { title: "Day sheet" };
 export const dynamic = "force-dynamic";
@@ -58,6 +59,11 @@ export default async function DaySheetPage({ params }: { params: Promise<{ id: s
                     <th scope="col" className="p-1">E-mail</th>
                     <th scope="col" className="p-1">Taking</th>
                     <th scope="col" className="p-1">Status</th>
+                    {day.deposit_cents ? (
+                      <th scope="col" className="p-1">
+                        Deposit
+                      </th>
+                    ) : null}
                   </tr>
                 </thead>
                 <tbody>
@@ -70,6 +76,7 @@ export default async function DaySheetPage({ params }: { params: Promise<{ id: s
                       <td className="p-1">{b.email}</td>
                       <td className="p-1">{formatGiveawayQuantity(b.quantity, day.unit)}</td>
                       <td className="p-1">{STATUS[b.status] ?? b.status}</td>
+                      {day.deposit_cents ? <td className="p-1">{depositLabel(b.deposit_cents, day.currency, b.deposit_status)}</td> : null}
                     </tr>
                   ))}
                 </tbody>
