@@ -3,16 +3,15 @@ import type { Knex } from "knex";
 import { db } from "@/db/index";
 import { findShipping } from "@/db/grower-shipping";
 import { reservationContext } from "@/db/reservation-context";
-import { findReservation, recordReservationEvent, sideOf, updateReservationIf } from "@/db/reservations";
+import { recordReservationEvent, updateReservationIf } from "@/db/reservations";
 import type { ReservationRow } from "@/db/types";
-import { writeTransaction } from "@/db/write-transaction";
 import { ApiError } from "@/lib/api/errors";
 import { mailCultureOrder } from "@/lib/mail/culture-order-mail";
-import { runPaymentActions } from "@/lib/payments/actions";
 import { ORDER_TRANSITIONS, orderBlockedReason, type OrderAction } from "@/lib/reservations/culture-orders";
 import type { Side } from "@/lib/reservations/policy";
 import { shippingView } from "./grower-shipping";
 import { StaleState, closeReservation } from "./reservation-steps";
+import { runReservationStep } from "./run-reservation-step";
 
 // The parcel steps of a posted live-culture order: packed, shipped (carrier and tracking),
 // delivered. Each is one transaction: the guarded update (status and stage in the WHERE, so
@@ -33,28 +32,14 @@ export interface OrderStepDeps {
 }
 
 export async function advanceCultureOrder(action: OrderAction, input: OrderStepInput, deps: OrderStepDeps = {}): Promise<{ side: Side }> {
-  const q = deps.db ?? db();
-  const now = (deps.clock ?? (() => new Date()))();
-  const side = await sideOf(input.reservationId, input.userId, q);
-  if (!side) throw new ApiError("not_found", "That reservation was not found.");
-
-  let paymentIds: string[] = [];
-  try {
-    paymentIds = await writeTransaction(q, async (trx) => {
-      const r = (await findReservation(input.reservationId, trx))!;
-      const ctx = (await reservationContext(r.id, trx))!;
-      const shipping = shippingView(await findShipping(ctx.listing.owner_id, trx));
-      const blocked = orderBlockedReason(r, action, side, { postingPaused: shipping.paused });
-      if (blocked === "wrong_party") throw new ApiError("forbidden", side === "gardener" ? "Only the grower can do that." : "Only the buyer can do that.");
-      if (blocked) throw new ApiError("invalid_state", blocked);
-      return apply(trx, action, r, side, input, now);
-    });
-  } catch (err) {
-    if (err instanceof StaleState) throw new ApiError("invalid_state", "Someone changed this order a moment ago; reload to see it.");
-    throw err;
-  }
-  await runPaymentActions(paymentIds, deps.clock, q);
-  return { side };
+  return runReservationStep({ db: deps.db ?? db(), reservationId: input.reservationId, userId: input.userId, clock: deps.clock, noun: "order" }, async (trx, r, side, now) => {
+    const ctx = (await reservationContext(r.id, trx))!;
+    const shipping = shippingView(await findShipping(ctx.listing.owner_id, trx));
+    const blocked = orderBlockedReason(r, action, side, { postingPaused: shipping.paused });
+    if (blocked === "wrong_party") throw new ApiError("forbidden", side === "gardener" ? "Only the grower can do that." : "Only the buyer can do that.");
+    if (blocked) throw new ApiError("invalid_state", blocked);
+    return apply(trx, action, r, side, input, now);
+  });
 }
 
 /** Moves the parcel one stage on while the reservation stays confirmed. */

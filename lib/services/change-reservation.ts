@@ -1,15 +1,14 @@
 import "server-only";
 import type { Knex } from "knex";
-import { writeTransaction } from "@/db/write-transaction";
 import { db } from "@/db/index";
 import { reservationContext } from "@/db/reservation-context";
-import { findReservation, sideOf } from "@/db/reservations";
+import type { ReservationRow } from "@/db/types";
 import { ApiError } from "@/lib/api/errors";
 import { mailReservation } from "@/lib/mail/reservation-mail";
-import { runPaymentActions } from "@/lib/payments/actions";
 import { pickupCodeMatches } from "@/lib/reservations/pickup-code";
 import { blockedReason, cancellationIsTimely, type ReservationAction, type Side } from "@/lib/reservations/policy";
-import { StaleState, closeReservation, confirmReservation } from "./reservation-steps";
+import { closeReservation, confirmReservation } from "./reservation-steps";
+import { runReservationStep } from "./run-reservation-step";
 
 // One use-case for the five transitions a person can make (confirm, decline, cancel,
 // collect, no-show): who may, from which state, and what each does. The rules themselves
@@ -28,29 +27,15 @@ export interface ChangeDeps {
 }
 
 export async function changeReservation(action: ReservationAction, input: ChangeInput, deps: ChangeDeps = {}) {
-  const q = deps.db ?? db();
-  const now = (deps.clock ?? (() => new Date()))();
-  const side = await sideOf(input.reservationId, input.userId, q);
-  if (!side) throw new ApiError("not_found", "That reservation was not found.");
-
-  let paymentIds: string[] = [];
-  try {
-    paymentIds = await writeTransaction(q, async (trx) => {
-      const r = (await findReservation(input.reservationId, trx))!;
-      const blocked = blockedReason(r, action, side, now);
-      if (blocked === "wrong_party") throw new ApiError("forbidden", side === "gardener" ? "Only the supplier can do that." : "Only the gardener can do that.");
-      if (blocked) throw new ApiError("invalid_state", blocked);
-      return apply(trx, action, r, side, input, now);
-    });
-  } catch (err) {
-    if (err instanceof StaleState) throw new ApiError("invalid_state", "Someone changed this reservation a moment ago; reload to see it.");
-    throw err;
-  }
-  await runPaymentActions(paymentIds, deps.clock, q);
-  return { side };
+  return runReservationStep({ db: deps.db ?? db(), reservationId: input.reservationId, userId: input.userId, clock: deps.clock, noun: "reservation" }, async (trx, r, side, now) => {
+    const blocked = blockedReason(r, action, side, now);
+    if (blocked === "wrong_party") throw new ApiError("forbidden", side === "gardener" ? "Only the supplier can do that." : "Only the gardener can do that.");
+    if (blocked) throw new ApiError("invalid_state", blocked);
+    return apply(trx, action, r, side, input, now);
+  });
 }
 
-async function apply(trx: Knex.Transaction, action: ReservationAction, r: NonNullable<Awaited<ReturnType<typeof findReservation>>>, side: Side, input: ChangeInput, now: Date): Promise<string[]> {
+async function apply(trx: Knex.Transaction, action: ReservationAction, r: ReservationRow, side: Side, input: ChangeInput, now: Date): Promise<string[]> {
   const actorId = input.userId;
   const note = input.reason?.trim() || null;
   const ctxAfter = async () => (await reservationContext(r.id, trx))!;

@@ -1,0 +1,39 @@
+import "server-only";
+import type { Knex } from "knex";
+import { findReservation, sideOf } from "@/db/reservations";
+import type { ReservationRow } from "@/db/types";
+import { writeTransaction } from "@/db/write-transaction";
+import { ApiError } from "@/lib/api/errors";
+import { runPaymentActions } from "@/lib/payments/actions";
+import type { Side } from "@/lib/reservations/policy";
+import { StaleState } from "./reservation-steps";
+
+export interface StepRun {
+  db: Knex;
+  reservationId: string;
+  userId: string;
+  clock?: () => Date;
+  /** What the person calls it, for the "changed meanwhile" message. */
+  noun: "reservation" | "order";
+}
+
+/**
+ * One person's step on a reservation, the frame every transition shares: 404 for anyone not
+ * on it; then one write transaction in which `step` checks its rules (403 wrong side, 409
+ * wrong state) and makes the change; a guarded update that lost a race is a 409; the Stripe
+ * calls the change owes run after the commit, and the worker retries any that fail.
+ */
+export async function runReservationStep(run: StepRun, step: (trx: Knex.Transaction, r: ReservationRow, side: Side, now: Date) => Promise<string[]>): Promise<{ side: Side }> {
+  const now = (run.clock ?? (() => new Date()))();
+  const side = await sideOf(run.reservationId, run.userId, run.db);
+  if (!side) throw new ApiError("not_found", "That reservation was not found.");
+  let paymentIds: string[] = [];
+  try {
+    paymentIds = await writeTransaction(run.db, async (trx) => step(trx, (await findReservation(run.reservationId, trx))!, side, now));
+  } catch (err) {
+    if (err instanceof StaleState) throw new ApiError("invalid_state", `Someone changed this ${run.noun} a moment ago; reload to see it.`);
+    throw err;
+  }
+  await runPaymentActions(paymentIds, run.clock, run.db);
+  return { side };
+}
