@@ -32,7 +32,7 @@ export const reserveOneSchema = z
     message: "Give the full postal address the parcel goes to, with the postcode.",
   });
 
-export const reserveItemSchema = z.object({ listing_id: id("a listing"), quantity: quantitySchema });
+export const reserveItemSchema = z.object({ listing_id: id("a listing"), quantity: quantitySchema, pickup_window_id: id("a pickup window").nullish() });
 
 /** "Reserve all" from a match plan: one reservation per item, all or nothing. */
 export const reserveManySchema = z.object({

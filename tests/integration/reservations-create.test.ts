@@ -162,6 +162,21 @@ describe("POST /api/reservations with items (Reserve all)", () => {
     expect(res.json.error.fields).toHaveProperty(["items.1.quantity"]);
   });
 
+  it("takes a pickup window per item, and refuses another listing's window on that item", async () => {
+    const start = new Date(Date.now() + 3 * 86_400_000).toISOString();
+    const end = new Date(Date.now() + 3 * 86_400_000 + 7_200_000).toISOString();
+    const a = await createListing({ quantity_total: 5, windows: [{ kind: "dated", starts_at: start, ends_at: end }] });
+    const b = await createListing({ quantity_total: 5, windows: [{ kind: "dated", starts_at: start, ends_at: end }] });
+    const wrong = await post({ items: [{ listing_id: a.id, quantity: 1, pickup_window_id: b.windowIds[0] }, { listing_id: b.id, quantity: 1 }] });
+    expect(wrong.status).toBe(422);
+    expect(wrong.json.error.fields).toHaveProperty(["items.0.pickup_window_id"]);
+    const res = await post({ items: [{ listing_id: a.id, quantity: 1, pickup_window_id: a.windowIds[0] }, { listing_id: b.id, quantity: 1 }] });
+    expect(res.status).toBe(201);
+    const rows = await ctx.db("reservations").whereIn("id", res.json.reservations.map((r: { id: string }) => r.id)).select("listing_id", "pickup_window_id");
+    expect(rows.find((r: { listing_id: string }) => r.listing_id === a.id).pickup_window_id).toBe(a.windowIds[0]);
+    expect(rows.find((r: { listing_id: string }) => r.listing_id === b.id).pickup_window_id).toBeNull();
+  });
+
   it("refuses an empty list and the same listing twice", async () => {
     expect((await post({ items: [] })).status).toBe(422);
     const a = await createListing();
