@@ -51,6 +51,8 @@ export interface OutboxRow {
   last_error: string | null;
   created_at: string;
   sent_at: string | null;
+  /** Set while one worker is sending it; others leave it alone until then. */
+  claimed_until: string | null;
 }
 
 export interface AuditRow {
