@@ -37,3 +37,22 @@ export async function wormListingsOf(ownerId: string, q: Db = db()): Promise<Wor
 export async function updateWormQuality(listingId: string, ownerId: string, quality: Record<string, unknown>, q: Db = db()): Promise<number> {
   return q("listings").where({ id: listingId, owner_id: ownerId, material_code: "worms" }).update({ quality: JSON.stringify(quality), updated_at: nowIso() });
 }
+
+/**
+ * A grower's posted orders still waiting to go out: confirmed and paid or packed, or still
+ * held with the money in (paid, or a deposit authorised) while the grower decides. A shipped
+ * parcel is past a pause; a hold still awaiting payment has committed nothing yet.
+ */
+export async function waitingPostedOrderIds(ownerId: string, q: Db = db()): Promise<string[]> {
+  const rows: { id: string }[] = await q("reservations as r")
+    .join("listings as l", "l.id", "r.listing_id")
+    .select("r.id")
+    .where({ "l.owner_id": ownerId, "r.fulfilment": "post" })
+    .andWhere((w) =>
+      w
+        .where((c) => c.where("r.status", "confirmed").whereIn("r.order_stage", ["paid", "packed"]))
+        .orWhere((c) => c.where("r.status", "held").whereIn("r.payment_state", ["paid", "authorised"])),
+    )
+    .orderBy("r.created_at");
+  return rows.map((r) => r.id);
+}

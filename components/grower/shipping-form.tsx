@@ -67,6 +67,7 @@ export function ShippingForm({ initial }: { initial: { ship_weekdays: number[]; 
             A line for buyers (optional)
           </label>
           <input id="pause-note" className="min-h-11 rounded-lg border border-humus-300 bg-white px-3" {...form.register("pause_note")} />
+          <p className="text-sm text-humus-700">Buyers whose posted orders are waiting get an e-mail with this line when you pause, and another when you resume posting.</p>
         </div>
       ) : null}
       <Button type="submit" className="self-start" disabled={action.busy}>

@@ -10,9 +10,10 @@ import type { Audience } from "./templates/reservations";
 /**
  * Writes a live-culture order e-mail to the outbox inside the caller's transaction (like
  * mailReservation). The dedupe key keeps one care sheet per order however often the
- * payment webhook or the confirmation runs.
+ * payment webhook or the confirmation runs; `key` names one occurrence of a mail that may
+ * rightly come again (one pause of posting and the next).
  */
-export async function mailCultureOrder(q: Db, kind: CultureMailKind, r: ReservationContext, audiences: Audience[], now: Date): Promise<void> {
+export async function mailCultureOrder(q: Db, kind: CultureMailKind, r: ReservationContext, audiences: Audience[], now: Date, key?: string): Promise<void> {
   const [shippingRow, listing] = await Promise.all([findShipping(r.listing.owner_id, q), q("listings").first("quality").where({ id: r.listing_id })]);
   const shipping = shippingView(shippingRow);
   const species = speciesOf(listing?.quality);
@@ -20,7 +21,7 @@ export async function mailCultureOrder(q: Db, kind: CultureMailKind, r: Reservat
   for (const to of audiences) {
     const person = to === "gardener" ? r.gardener : r.supplier;
     const mail = cultureOrderEmail(kind, { r, to, species, shipping, postingDay });
-    await enqueueEmail({ to: person.email, ...mail, template: `culture.${kind}`, dedupe_key: `order:${r.id}:${kind}:${to}` }, q);
+    await enqueueEmail({ to: person.email, ...mail, template: `culture.${kind}`, dedupe_key: `order:${r.id}:${kind}:${to}${key ? `:${key}` : ""}` }, q);
   }
 }
 

@@ -1,7 +1,9 @@
 import "server-only";
-import { db } from "@/db/index";
+import { db, type Db } from "@/db/index";
 import { writeTransaction } from "@/db/write-transaction";
-import { findShipping, saveShipping, updateWormQuality, wormListingsOf } from "@/db/grower-shipping";
+import { findShipping, saveShipping, updateWormQuality, waitingPostedOrderIds, wormListingsOf } from "@/db/grower-shipping";
+import { reservationContexts } from "@/db/reservation-context";
+import { mailCultureOrder } from "@/lib/mail/culture-order-mail";
 import { recordAudit } from "@/db/audit";
 import { notFound } from "@/lib/api/errors";
 import { estimatedWorms } from "@/lib/reservations/culture-orders";
@@ -46,8 +48,26 @@ export async function saveGrowerShipping(userId: string, input: ShippingInput): 
     };
     await saveShipping(row, trx);
     await recordAudit({ actor_id: userId, action: "grower.shipping", subject_type: "user", subject_id: userId, before: before ?? null, after: row }, trx);
+    await tellWaitingBuyers(userId, !!before?.paused, input.paused, trx);
     return shippingView(row);
   });
+}
+
+/**
+ * Buyers whose parcel waits are told when posting stops and when it starts again, in the
+ * transaction that changes it. Only a change tells anyone: saving the same pause again (a
+ * new note, another day ticked) mails nobody. The dedupe key names the pause or the resume
+ * by the moment it was saved, so one pause writes at most one e-mail per order.
+ */
+async function tellWaitingBuyers(userId: string, wasPaused: boolean, paused: boolean, trx: Db): Promise<void> {
+  if (wasPaused === paused) return;
+  const ids = await waitingPostedOrderIds(userId, trx);
+  if (ids.length === 0) return;
+  const saved = await findShipping(userId, trx);
+  const now = new Date();
+  for (const r of await reservationContexts(ids, trx)) {
+    await mailCultureOrder(trx, paused ? "posting_paused" : "posting_resumed", r, ["gardener"], now, saved?.updated_at ?? now.toISOString());
+  }
 }
 
 export interface CultureStock {

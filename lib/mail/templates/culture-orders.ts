@@ -1,16 +1,18 @@
 // The e-mails of a live-culture order: the care sheet sent on purchase, and the parcel's
-// steps (confirmed, packed, shipped, delivered). Built from the same parts as every other
-// e-mail (renderEmail); facts come from lib/calc/facts.ts with their sources.
+// steps (confirmed, packed, shipped, delivered), and the word to a buyer waiting on a parcel
+// when the grower pauses posting for the weather or resumes it. Built from the same parts as
+// every other e-mail (renderEmail); facts come from lib/calc/facts.ts with their sources.
 import type { ReservationContext } from "@/db/reservation-context";
 import { appUrl } from "@/lib/app-url";
 import { WORM_DAILY_FOOD_SHARE, WORM_TEMPERATURE_F, WORMS_AFTER_DAYS } from "@/lib/calc/facts";
 import { formatMoney } from "@/lib/payments/money";
+import { PAUSE_REASON_LABELS } from "@/lib/validation/grower";
 import { dayLabel, estimatedWorms } from "@/lib/reservations/culture-orders";
 import { whatLabel } from "@/lib/reservations/labels";
 import { renderEmail, type EmailParts } from "../layout";
 import type { Audience } from "./reservations";
 
-export type CultureMailKind = "care_sheet" | "order_confirmed" | "packed" | "shipped" | "delivered";
+export type CultureMailKind = "care_sheet" | "order_confirmed" | "packed" | "shipped" | "delivered" | "posting_paused" | "posting_resumed";
 
 export interface CultureMailInput {
   r: ReservationContext;
@@ -18,7 +20,7 @@ export interface CultureMailInput {
   /** As the grower names it on the listing. */
   species: string | null;
   /** The grower's posting days ("Monday", "Tuesday") and whether posting is paused, with the notice buyers read. */
-  shipping: { ship_days: string[]; paused: boolean; notice: string };
+  shipping: { ship_days: string[]; paused: boolean; notice: string; pause_reason?: "heat" | "frost" | "other" | null; pause_note?: string | null };
   /** The next posting day (YYYY-MM-DD), or null. */
   postingDay: string | null;
 }
@@ -57,6 +59,23 @@ function goesOutLine(i: CultureMailInput): string {
   return i.to === "gardener"
     ? `It goes out on ${dayLabel(i.postingDay)} at the earliest: ${grower} posts on ${days}, so parcels do not sit in a depot.`
     : `Your next posting day: ${dayLabel(i.postingDay)} (you post on ${days}).`;
+}
+
+/**
+ * What a buyer waiting on a parcel may do while posting is paused, as the policy allows it
+ * (lib/reservations/policy.ts): the buyer may cancel until the grower packs it, and a posted
+ * culture cancelled then is returned in full.
+ */
+function whileYouWaitLine(r: ReservationContext): string {
+  const grower = r.supplier.name;
+  if (r.order_stage === "packed") return `${grower} has packed it already, so it can no longer be cancelled on the site; if you would rather not wait, ask ${grower} in the messages.`;
+  const money =
+    r.payment_state === "paid" && r.amount_cents > 0
+      ? `, and the ${formatMoney(r.amount_cents, r.currency)} you paid is refunded in full`
+      : r.payment_state === "authorised" && r.deposit_cents > 0
+        ? `, and the ${formatMoney(r.deposit_cents, r.currency)} deposit held on your card is released`
+        : "";
+  return `If you would rather not wait, you can cancel the order on your reservations page until ${grower} packs it${money}.`;
 }
 
 function parts(kind: CultureMailKind, i: CultureMailInput): { subject: string; body: EmailParts } {
@@ -117,6 +136,27 @@ function parts(kind: CultureMailKind, i: CultureMailInput): { subject: string; b
           paragraphs: [to === "gardener" ? `A line on how they arrived helps the next buyer choose a grower.` : "The order is complete. A line about the buyer helps other growers."],
           action: action(to === "gardener" ? "Rate the grower" : "Rate the buyer"),
         },
+      };
+    case "posting_paused": {
+      const reason = PAUSE_REASON_LABELS[i.shipping.pause_reason ?? "other"];
+      return {
+        subject: `Posting paused: ${what}`,
+        body: {
+          heading: `${r.supplier.name} has paused posting because of ${reason}`,
+          paragraphs: lines(
+            `Worms are live animals and suffer in a hot or freezing parcel, so ${r.supplier.name} is holding back parcels until the weather turns.`,
+            i.shipping.pause_note ? `${r.supplier.name}'s note: ${i.shipping.pause_note}` : null,
+            `Your order (${what}, to ${r.ship_to}) waits with ${r.supplier.name} until posting resumes; we e-mail you when it does.`,
+            whileYouWaitLine(r),
+          ),
+          action: action("See your order"),
+        },
+      };
+    }
+    case "posting_resumed":
+      return {
+        subject: `Posting again: ${what}`,
+        body: { heading: `${r.supplier.name} is posting again`, paragraphs: lines(goesOutLine(i), `Posted to: ${r.ship_to}`), action: action("See your order") },
       };
   }
 }
