@@ -68,7 +68,7 @@ export function EstimateView({ result, system }: { result: EstimateResult; syste
           <h3 id="layers-title" className="mb-2 text-lg font-semibold">
             The layers
           </h3>
-          <CrossSection depths={{ cardboard: result.needs.some((n) => n.material === "cardboard"), leaves: depth("leaves"), straw: depth("straw") }} system={system} />
+          <CrossSection depths={{ cardboard: result.needs.some((n) => n.material === "cardboard"), leaves: depth("leaves"), straw: depth("straw"), wood_chips: depth("wood_chips") }} system={system} />
         </section>
         <section aria-labelledby="mix-title">
           <h3 id="mix-title" className="mb-2 text-lg font-semibold">
