@@ -16,12 +16,16 @@ import { StaleState, closeReservation } from "./reservation-steps";
 
 type Clock = () => Date;
 
-/** Ends every hold whose time is up: the quantity returns, and any money goes back. */
+/**
+ * Ends every hold whose time is up: the quantity returns, and any money goes back. Each hold
+ * is its own transaction: one that cannot be expired is logged and left for the next run,
+ * and the rest of the batch still expires.
+ */
 export async function expireHolds(clock: Clock = () => new Date(), q: Knex = db()): Promise<{ expired: number }> {
   const now = clock();
   let expired = 0;
   for (const due of await heldDueToExpire(now.toISOString(), 100, q)) {
-    let owed: string[] = [];
+    let owed: string[];
     try {
       owed = await writeTransaction(q, async (trx) => {
         const r = await trx<ReservationRow>("reservations").first("*").where({ id: due.id, status: "held" }).andWhere("hold_expires_at", "<=", now.toISOString());
@@ -32,13 +36,28 @@ export async function expireHolds(clock: Clock = () => new Date(), q: Knex = db(
         await mailReservation(trx, "expired", ctx, waitingOnSupplier ? ["gardener", "supplier"] : ["gardener"], { money: "returned" });
         return ids;
       });
-      expired++;
     } catch (err) {
-      if (!(err instanceof StaleState)) throw err; // confirmed or cancelled a moment ago: nothing to expire
+      // Confirmed or cancelled a moment ago: nothing to expire, and nothing wrong.
+      if (!(err instanceof StaleState)) console.error(`[expire-holds] skipped reservation ${due.id}:`, err instanceof Error ? err.message : err);
+      continue;
     }
-    await runPaymentActions(owed, clock, q);
+    expired++;
+    await runOwedPayments("expire-holds", due.id, owed, clock, q);
   }
   return { expired };
+}
+
+/**
+ * Runs the Stripe calls an expiry owes, right away. They are written down in the same
+ * transaction as the expiry, so if this fails the settle-payments job makes them later;
+ * the error is logged and the batch goes on.
+ */
+async function runOwedPayments(job: string, id: string, owed: string[], clock: Clock, q: Knex): Promise<void> {
+  try {
+    await runPaymentActions(owed, clock, q);
+  } catch (err) {
+    console.error(`[${job}] payments for ${id} left to settle-payments:`, err instanceof Error ? err.message : err);
+  }
 }
 
 type Notice = { status: "held" | "confirmed"; time: "hold_expires_at" | "pickup_at" | "pickup_by"; marker: "expiry_warned_at" | "pickup_reminded_at"; aheadMs: number };

@@ -65,7 +65,11 @@ export async function bookingDepositFollows(trx: Trx, row: PaymentRow, status: s
   return [];
 }
 
-/** The worker's job: bookings whose deposit was not put down in time lapse; the place returns and the card page closes. */
+/**
+ * The worker's job: bookings whose deposit was not put down in time lapse; the place returns
+ * and the card page closes. Each booking is its own transaction: one that cannot be lapsed is
+ * logged and left for the next run, and the rest of the batch still lapses.
+ */
 export async function expireGiveawayDepositHolds(clock: () => Date = () => new Date(), q: Knex = db()): Promise<{ expired: number }> {
   const now = clock();
   const at = now.toISOString();
@@ -77,31 +81,48 @@ export async function expireGiveawayDepositHolds(clock: () => Date = () => new D
     .limit(100);
   let expired = 0;
   for (const { id } of due) {
-    const owed = await writeTransaction(q, async (trx) => {
-      // Guarded: a deposit authorised a moment ago has moved the booking on, and it stays.
-      const n = await trx("giveaway_bookings")
-        .where({ id, status: "booked", deposit_status: "awaiting" })
-        .andWhere("hold_expires_at", "<=", at)
-        .update({ status: "cancelled", deposit_status: "unpaid", cancelled_at: at, hold_expires_at: null, updated_at: at });
-      if (n === 0) return null;
-      const b = (await findBooking(id, trx))!;
-      await releaseSlotPlace(b.slot_id, trx);
-      const ids = await settleBookingDeposit(trx, id, "return", now);
-      const day = (await findDay(b.day_id, trx))!;
-      const slot = (await findSlot(b.slot_id, b.day_id, trx))!;
-      const [user, org] = await Promise.all([findUserById(b.user_id, trx), findOrganisation(day.organisation_id, trx)]);
-      if (user) {
-        const mail = giveawayBookingLapsedEmail({
-          ...bookingParts({ name: user.display_name, organisation: org?.name ?? "The council", pageUrl: `${appUrl()}/giveaways/${day.id}`, day, slot, quantity: b.quantity }),
-          holdMinutes: holdMinutes(),
-        });
-        await enqueueEmail({ to: user.email, ...mail, template: "giveaway_booking_lapsed", dedupe_key: `giveaway-booking-lapsed:${id}` }, trx);
-      }
-      return ids;
-    });
-    if (owed === null) continue;
+    let owed: string[] | null;
+    try {
+      owed = await lapseBooking(q, id, now);
+    } catch (err) {
+      console.error(`[expire-giveaway-deposits] skipped booking ${id}:`, err instanceof Error ? err.message : err);
+      continue;
+    }
+    if (owed === null) continue; // the deposit went through a moment ago: nothing to lapse
     expired++;
-    await runPaymentActions(owed, clock, q);
+    try {
+      await runPaymentActions(owed, clock, q);
+    } catch (err) {
+      // Written down with the lapse, so the settle-payments job makes these calls later.
+      console.error(`[expire-giveaway-deposits] payments for booking ${id} left to settle-payments:`, err instanceof Error ? err.message : err);
+    }
   }
   return { expired };
+}
+
+/** Lapses one booking in its own transaction; null when it had moved on meanwhile. */
+async function lapseBooking(q: Knex, id: string, now: Date): Promise<string[] | null> {
+  const at = now.toISOString();
+  return writeTransaction(q, async (trx) => {
+    // Guarded: a deposit authorised a moment ago has moved the booking on, and it stays.
+    const n = await trx("giveaway_bookings")
+      .where({ id, status: "booked", deposit_status: "awaiting" })
+      .andWhere("hold_expires_at", "<=", at)
+      .update({ status: "cancelled", deposit_status: "unpaid", cancelled_at: at, hold_expires_at: null, updated_at: at });
+    if (n === 0) return null;
+    const b = (await findBooking(id, trx))!;
+    await releaseSlotPlace(b.slot_id, trx);
+    const ids = await settleBookingDeposit(trx, id, "return", now);
+    const day = (await findDay(b.day_id, trx))!;
+    const slot = (await findSlot(b.slot_id, b.day_id, trx))!;
+    const [user, org] = await Promise.all([findUserById(b.user_id, trx), findOrganisation(day.organisation_id, trx)]);
+    if (user) {
+      const mail = giveawayBookingLapsedEmail({
+        ...bookingParts({ name: user.display_name, organisation: org?.name ?? "The council", pageUrl: `${appUrl()}/giveaways/${day.id}`, day, slot, quantity: b.quantity }),
+        holdMinutes: holdMinutes(),
+      });
+      await enqueueEmail({ to: user.email, ...mail, template: "giveaway_booking_lapsed", dedupe_key: `giveaway-booking-lapsed:${id}` }, trx);
+    }
+    return ids;
+  });
 }
