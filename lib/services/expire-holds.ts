@@ -67,12 +67,17 @@ async function sendNotices(q: Knex, n: Notice, now: Date, send: (trx: Knex.Trans
   const at = now.toISOString();
   let sent = 0;
   for (const r of await dueForNotice(n.status, n.time, n.marker, at, new Date(now.getTime() + n.aheadMs).toISOString(), 100, q)) {
-    const claimed = await writeTransaction(q, async (trx) => {
-      const won = await trx("reservations").where({ id: r.id, status: n.status }).whereNull(n.marker).update({ [n.marker]: at });
-      if (won === 1) await send(trx, r);
-      return won === 1;
-    });
-    if (claimed) sent++;
+    try {
+      const claimed = await writeTransaction(q, async (trx) => {
+        const won = await trx("reservations").where({ id: r.id, status: n.status }).whereNull(n.marker).update({ [n.marker]: at });
+        if (won === 1) await send(trx, r);
+        return won === 1;
+      });
+      if (claimed) sent++;
+    } catch (err) {
+      // Rolled back whole (marker too), so the next run tries it again; the others still go out.
+      console.error(`[reservation-reminders] skipped reservation ${r.id}:`, err instanceof Error ? err.message : err);
+    }
   }
   return sent;
 }

@@ -126,6 +126,37 @@ describe("reminders with no fixed pickup time", () => {
   });
 });
 
+describe("a reminder that cannot be written", () => {
+  it("is rolled back and tried again later, and does not stop the others", async () => {
+    const start = new Date(Date.now() + 5 * 86_400_000);
+    const window = { kind: "dated" as const, starts_at: start.toISOString(), ends_at: new Date(start.getTime() + 7_200_000).toISOString() };
+    const ids: string[] = [];
+    for (let i = 0; i < 3; i++) {
+      const l = await createListing({ quantity_total: 5, windows: [window] });
+      const r = await holdOne(l.id, 1, { pickup_window_id: l.windowIds[0] });
+      await call(confirm, await request(`/api/reservations/${r.id}/confirm`, { as: l.ownerId, body: {} }), { id: r.id });
+      ids.push(r.id);
+    }
+    // Test-only: the outbox refuses the first reservation's reminders.
+    await db().raw(`CREATE TRIGGER refuse_one_reminder BEFORE INSERT ON email_outbox WHEN NEW.dedupe_key LIKE 'res:${ids[0]}:reminder:%' BEGIN SELECT RAISE(ABORT, 'refused for the test'); END`);
+    const quiet = console.error;
+    console.error = () => {};
+    try {
+      await sendReservationReminders(() => new Date(start.getTime() - 20 * 3_600_000));
+    } finally {
+      console.error = quiet;
+    }
+    const marked = async (id: string) => (await db()("reservations").first("pickup_reminded_at").where({ id })).pickup_reminded_at;
+    expect(await marked(ids[0])).toBeNull();
+    expect(await marked(ids[1])).not.toBeNull();
+    expect(await marked(ids[2])).not.toBeNull();
+    await db().raw("DROP TRIGGER refuse_one_reminder");
+    await sendReservationReminders(() => new Date(start.getTime() - 19 * 3_600_000));
+    expect(await marked(ids[0])).not.toBeNull();
+    expect(await db()("email_outbox").where("dedupe_key", "like", `res:${ids[0]}:reminder:%`)).toHaveLength(2);
+  });
+});
+
 describe("e-mail through an SMTP outage", () => {
   let smtp: SmtpFake;
   afterAll(async () => smtp?.close());
