@@ -1,4 +1,4 @@
-import { orderActionRoute } from "@/lib/api/order-action";
+import { orderActionRoute } from "@/lib/api/reservation-action";
 import { LISTING_ROLES } from "@/lib/auth/roles";
 import { orderStepSchema } from "@/lib/validation/grower";
 
