@@ -1,3 +1,5 @@
+import { MATERIAL_COLOURS, PALETTE } from "@/components/ui/palette";
+
 // The bed's cross-section as numbers: which layers are drawn, bottom to top in the order the
 // estimate lays them (lib/calc/estimate.ts), and where each band sits in the drawing. Pure,
 // so the scale can be tested without rendering.
@@ -8,16 +10,16 @@ export const CARDBOARD_DRAW_CM = 0.5;
 
 export type DrawnLayer = "cardboard" | "leaves" | "straw" | "wood_chips";
 
-/** Fills from the Duffbank palette (tailwind.config.ts), the same per material as the report charts. */
+/** Fills from the Duffbank palette, the same per material as the report charts. */
 export const LAYER_COLOURS: Record<DrawnLayer | "soil", string> = {
-  cardboard: "#a27f58", // humus-400
-  leaves: "#d9962b", // litter-500
-  straw: "#f0c36b", // litter-300
-  wood_chips: "#84633f", // humus-500
-  soil: "#523c27", // humus-700
+  cardboard: MATERIAL_COLOURS.cardboard,
+  leaves: MATERIAL_COLOURS.leaves,
+  straw: MATERIAL_COLOURS.straw,
+  wood_chips: MATERIAL_COLOURS.wood_chips,
+  soil: PALETTE.humus[700],
 };
 /** Text inside a band: dark on the light fills, light on the dark ones, for contrast. */
-export const LAYER_TEXT: Record<DrawnLayer, string> = { cardboard: "#271c13", leaves: "#271c13", straw: "#271c13", wood_chips: "#f7f3ee" };
+export const LAYER_TEXT: Record<DrawnLayer, string> = { cardboard: PALETTE.humus[900], leaves: PALETTE.humus[900], straw: PALETTE.humus[900], wood_chips: PALETTE.humus[50] };
 export const LAYER_LABELS: Record<DrawnLayer, string> = { cardboard: "cardboard", leaves: "leaves", straw: "straw", wood_chips: "wood chips" };
 
 export interface LayerDepths {

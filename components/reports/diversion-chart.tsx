@@ -5,7 +5,8 @@
 // width. The same figures are in a sentence under the chart and in the page's table, so nothing
 // depends on seeing the bars or telling their colours apart.
 import { Bar, BarChart, CartesianGrid, Legend, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
-import { chartSummary, formatFigure, type ChartColumn, type ChartSeries, type ChartUnit } from "./material-colors";
+import { chartSummary, type ChartColumn, type ChartSeries } from "./chart-summary";
+import { formatFigure, type ChartUnit } from "./format";
 
 const HEIGHT = 280;
 

@@ -8,7 +8,8 @@ import { longDate } from "@/lib/time/zoned";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button-class";
 import { DiversionChart } from "@/components/reports/diversion-chart";
-import { MATERIAL_COLORS, type ChartSeries } from "@/components/reports/material-colors";
+import type { ChartSeries } from "@/components/reports/chart-summary";
+import { MATERIAL_COLOURS, PALETTE } from "@/components/ui/palette";
 import { formatKg } from "@/components/reports/format";
 import { Panel } from "@/components/ui/panel";
 
@@ -21,7 +22,7 @@ export default async function ReportsPage() {
   const user = await pageUser("/reports", LISTING_ROLES);
   const report = await diversionReport(diversionScopeOf(user));
   const isCouncil = !!user.organisation && user.roles.includes("council");
-  const series: ChartSeries[] = report.by_material.map((m) => ({ key: m.material, label: MATERIALS[m.material as MaterialCode]?.name ?? m.material, color: MATERIAL_COLORS[m.material] ?? "#84633f" }));
+  const series: ChartSeries[] = report.by_material.map((m) => ({ key: m.material, label: MATERIALS[m.material as MaterialCode]?.name ?? m.material, color: MATERIAL_COLOURS[m.material] ?? PALETTE.humus[500] }));
   const months = [...new Set(report.by_month.map((m) => m.month))];
   const monthColumns = (figure: "kg" | "m3") =>
     months.map((month) => ({

@@ -4,7 +4,9 @@ import { createElement } from "react";
 import { renderToStaticMarkup } from "react-dom/server";
 import { describe, expect, it, vi } from "vitest";
 import { DiversionChart } from "@/components/reports/diversion-chart";
-import { chartSummary, formatFigure, MATERIAL_COLORS, type ChartColumn, type ChartSeries } from "@/components/reports/material-colors";
+import { chartSummary, type ChartColumn, type ChartSeries } from "@/components/reports/chart-summary";
+import { formatFigure } from "@/components/reports/format";
+import { MATERIAL_COLOURS as MATERIAL_COLORS } from "@/components/ui/palette";
 
 const SERIES: ChartSeries[] = [
   { key: "leaves", label: "Leaves", color: MATERIAL_COLORS.leaves },

@@ -1,16 +1,6 @@
-// One colour per material, from the Duffbank palette (tailwind.config.ts). Kept apart from the
-// chart (a client component) so server pages can read it as a plain value.
-export const MATERIAL_COLORS: Record<string, string> = {
-  leaves: "#d9962b",
-  straw: "#f0c36b",
-  cardboard: "#a27f58",
-  worms: "#b3401f",
-  grass_clippings: "#6f9b55",
-  coffee_grounds: "#3b2b1d",
-  wood_chips: "#84633f",
-  manure: "#523c27",
-  compost: "#324e25",
-};
+// The charts' series and columns, and the chart in words. Plain values, so server pages can
+// build them for the (client) chart component.
+import { formatFigure, type ChartUnit } from "./format";
 
 export interface ChartSeries {
   key: string;
@@ -22,14 +12,6 @@ export interface ChartSeries {
 export interface ChartColumn {
   label: string;
   values: Record<string, number>;
-}
-
-export type ChartUnit = "kg" | "m³";
-
-/** A figure as the charts and their summaries write it: whole kg from 100 up, else one place; m³ to two places. */
-export function formatFigure(n: number, unit: ChartUnit): string {
-  if (unit === "m³") return n.toLocaleString("en-GB", { minimumFractionDigits: 2, maximumFractionDigits: 2 });
-  return n >= 100 ? Math.round(n).toLocaleString("en-GB") : Number(n.toFixed(1)).toLocaleString("en-GB");
 }
 
 /** The chart in words, for its visible summary and for screen readers: each column's total and its largest share. */
