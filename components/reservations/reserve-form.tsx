@@ -90,7 +90,7 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
           <legend className="mb-1 font-medium">How the worms reach you</legend>
           {culture.pickup ? (
             <label className="flex items-start gap-3 rounded-lg p-2 ring-1 ring-humus-200">
-              <input type="radio" value="pickup" {...form.register("fulfilment")} className="mt-1 h-5 w-5" />
+              <input type="radio" value="pickup" {...form.register("fulfilment")} className="mt-1 h-5 w-5 shrink-0" />
               <span>
                 <span className="font-medium">Collect them</span>
                 <span className="block text-sm text-humus-600">From {offer.supplier.name}, at a time below; the address comes when they accept.</span>
@@ -99,7 +99,7 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
           ) : null}
           {culture.ships ? (
             <label className={`flex items-start gap-3 rounded-lg p-2 ring-1 ring-humus-200 ${culture.can_post ? "" : "opacity-70"}`}>
-              <input type="radio" value="post" disabled={!culture.can_post} {...form.register("fulfilment")} className="mt-1 h-5 w-5" />
+              <input type="radio" value="post" disabled={!culture.can_post} {...form.register("fulfilment")} className="mt-1 h-5 w-5 shrink-0" />
               <span>
                 <span className="font-medium">Post them to me</span>
                 <span className="block text-sm text-humus-600">
@@ -131,7 +131,7 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
           <legend className="mb-1 font-medium">When you will collect</legend>
           {offer.windows.map((w) => (
             <label key={w.id} className="flex items-start gap-3 rounded-lg p-2 ring-1 ring-humus-200">
-              <input type="radio" value={w.id} {...form.register("pickup_window_id", { setValueAs: (v) => v || null })} className="mt-1 h-5 w-5" />
+              <input type="radio" value={w.id} {...form.register("pickup_window_id", { setValueAs: (v) => v || null })} className="mt-1 h-5 w-5 shrink-0" />
               <span>
                 <span className="font-medium">{w.label}</span>
                 <span className="block text-sm text-humus-600">Next: {formatLocal(w.next_start)}</span>
@@ -139,7 +139,7 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
             </label>
           ))}
           <label className="flex items-start gap-3 rounded-lg p-2 ring-1 ring-humus-200">
-            <input type="radio" value="" {...form.register("pickup_window_id", { setValueAs: (v) => v || null })} className="mt-1 h-5 w-5" />
+            <input type="radio" value="" {...form.register("pickup_window_id", { setValueAs: (v) => v || null })} className="mt-1 h-5 w-5 shrink-0" />
             <span>
               <span className="font-medium">No fixed time</span>
               <span className="block text-sm text-humus-600">Agree a time with {offer.supplier.name} in the messages, within a week.</span>
