@@ -1,10 +1,12 @@
 // `npm run db:migrate | db:rollback | db:seed` — the same migration list the app uses.
 import knex from "knex";
+import { checkStartup } from "../lib/env";
 import { configFor } from "../knexfile";
 import { seed } from "../seeds/demo";
 
 async function main() {
   const command = process.argv[2];
+  checkStartup("db");
   const env = process.env.DUFFBANK_DB_ENV ?? (process.env.NODE_ENV === "production" ? "production" : "development");
   const conn = knex(configFor(env));
   try {

@@ -3,6 +3,7 @@
 // and the Cloudinary-compatible upload and delivery server. Ports come from the
 // environment so tests and a second checkout can pick others.
 import path from "node:path";
+import { checkStartup } from "@/lib/env";
 import { startSmtpFake } from "./smtp/server";
 import { DEFAULT_WEBHOOK_SECRET, startStripeFake } from "./stripe/server";
 import { stripeDataFile } from "./stripe/state";
@@ -10,6 +11,7 @@ import { startCloudinaryFake } from "./cloudinary/server";
 import { parseFakeEnv } from "./cloudinary/config";
 
 async function main() {
+  checkStartup("fakes");
   const appPort = Number(process.env.PORT ?? 3000);
   const smtp = await startSmtpFake({
     smtpPort: Number(process.env.SMTP_PORT ?? 12025),

@@ -1,5 +1,6 @@
 import { createHmac } from "node:crypto";
 import { destination, point } from "@turf/turf";
+import { DEMO_SECRETS, secret } from "@/lib/env";
 
 // The public point of a pickup place: the exact point moved a fixed, secret-keyed distance and
 // bearing. The offset is keyed by the place — who lists there and which ~100 m cell it is in —
@@ -15,30 +16,15 @@ export const APPROX_MAX_M = 450;
 /** Cell size in degrees (about 110 m north–south, 70 m east–west in Fernhollow): pins dropped by hand for one address land in the same cell. */
 const CELL_DEG = 0.001;
 
-export const DEMO_LOCATION_SECRET = "duffbank-local-location-key";
-
-let warned = false;
+export const DEMO_LOCATION_SECRET = DEMO_SECRETS.LOCATION_SECRET;
 
 /**
- * The key of the offsets. An empty LOCATION_SECRET (as .env.example ships it) counts as unset.
- * Without one, a real deployment — production on PostgreSQL (`DATABASE_URL`), outside the demo
- * and the end-to-end run (`DUFFBANK_DEMO`) — refuses to place points, since anyone can compute
- * the demo key's offsets and subtract them; any other production start (`npm start` of the
- * demo on SQLite) says so loudly and goes on.
+ * The key of the offsets. Anyone can compute the demo key's offsets and subtract them, so a
+ * production start without a real LOCATION_SECRET is refused before anything is served
+ * (lib/env.ts); the demo, development and tests use the demo key.
  */
 export function locationKey(env: NodeJS.ProcessEnv = process.env): string {
-  const set = env.LOCATION_SECRET?.trim();
-  if (set) return set;
-  if (env.NODE_ENV === "production" && !env.DUFFBANK_DEMO) {
-    const message =
-      "LOCATION_SECRET is not set, so public points use the demo key and anyone can work out exact pickup addresses. Set LOCATION_SECRET to a long random string (openssl rand -base64 32).";
-    if (env.DATABASE_URL) throw new Error(`[location] ${message}`);
-    if (!warned) {
-      warned = true;
-      console.error(`[location] ${"!".repeat(20)}\n[location] ${message}\n[location] ${"!".repeat(20)}`);
-    }
-  }
-  return DEMO_LOCATION_SECRET;
+  return secret("LOCATION_SECRET", env);
 }
 
 /** Whose place it is: an organisation's listings and days share one key, anyone else's are their own. */

@@ -1,5 +1,6 @@
 import "server-only";
 import Stripe from "stripe";
+import { DEMO_SECRETS, secret } from "@/lib/env";
 
 // The official Stripe SDK. With the local test key (the default) it talks to the
 // Stripe-compatible fake in lib/fakes/stripe; with a real test key and no STRIPE_API_HOST
@@ -10,7 +11,7 @@ import Stripe from "stripe";
 // and stripe-mock speak plain HTTP). Without a host override none of them applies.
 
 export const LOCAL_STRIPE_KEY = "sk_test_duffbank_local";
-export const LOCAL_WEBHOOK_SECRET = "whsec_duffbank_local";
+export const LOCAL_WEBHOOK_SECRET = DEMO_SECRETS.STRIPE_WEBHOOK_SECRET;
 const LOCAL_HOST = "127.0.0.1";
 const LOCAL_PORT = 12111;
 
@@ -58,7 +59,7 @@ export function resetStripe() {
 }
 
 export function webhookSecret(): string {
-  return process.env.STRIPE_WEBHOOK_SECRET || LOCAL_WEBHOOK_SECRET;
+  return secret("STRIPE_WEBHOOK_SECRET");
 }
 
 // Stripe's default tolerance for the signature timestamp (docs.stripe.com/webhooks#replay-attacks).

@@ -5,7 +5,10 @@
 // exits: with DUFFBANK_CLOCK set it is how a test (or an operator) runs a job "later" on
 // a real database. It is a command on the machine, not reachable through the web app.
 import fs from "node:fs";
+import { checkStartup } from "@/lib/env";
 import { jobs, type Clock } from "./jobs";
+
+checkStartup("worker");
 
 // The worker's idea of "now". DUFFBANK_CLOCK fixes it; DUFFBANK_CLOCK_FILE (set only by the
 // end-to-end run) is read on every tick so a test can move time forward. Neither is set in

@@ -1,6 +1,7 @@
 // The key and the shape of the public point (lib/geo/approximate.ts).
 import { distance, point } from "@turf/turf";
 import { afterEach, describe, expect, it, vi } from "vitest";
+import { startupProblems } from "@/lib/env";
 import { APPROX_MAX_M, APPROX_MIN_M, approximatePoint, DEMO_LOCATION_SECRET, locationKey, placeOwner } from "@/lib/geo/approximate";
 
 const HOME = { lat: 52.2133, lng: 0.8613 };
@@ -27,26 +28,15 @@ describe("the key", () => {
     expect(approximatePoint({ owner: "user:a", ...HOME })).not.toEqual(demo);
   });
 
-  it("refuses the demo key in a production deployment on PostgreSQL", () => {
-    expect(() => locationKey({ NODE_ENV: "production", LOCATION_SECRET: "", DATABASE_URL: "postgres://x@y/z" })).toThrow(/LOCATION_SECRET/);
-    expect(() => locationKey({ NODE_ENV: "production", DATABASE_URL: "postgres://x@y/z" })).toThrow(/LOCATION_SECRET/);
-    expect(locationKey({ NODE_ENV: "production", DATABASE_URL: "postgres://x@y/z", LOCATION_SECRET: "s3cret" })).toBe("s3cret");
-  });
-
-  it("lets the demo and the end-to-end run (DUFFBANK_DEMO) and development use the demo key quietly", () => {
+  it("uses the demo key quietly in the demo, development and tests; a production start is refused first (lib/env.ts)", () => {
     const errors = vi.spyOn(console, "error").mockImplementation(() => {});
     expect(locationKey({ NODE_ENV: "production", DUFFBANK_DEMO: "1", DATABASE_URL: "postgres://x@y/z" })).toBe(DEMO_LOCATION_SECRET);
     expect(locationKey({ NODE_ENV: "development" })).toBe(DEMO_LOCATION_SECRET);
     expect(locationKey({ NODE_ENV: "test", LOCATION_SECRET: "" })).toBe(DEMO_LOCATION_SECRET);
+    expect(locationKey({ NODE_ENV: "production", LOCATION_SECRET: "s3cret" })).toBe("s3cret");
     expect(errors).not.toHaveBeenCalled();
     errors.mockRestore();
-  });
-
-  it("says so loudly, without stopping, for a production start of the SQLite demo without DUFFBANK_DEMO", () => {
-    const errors = vi.spyOn(console, "error").mockImplementation(() => {});
-    expect(locationKey({ NODE_ENV: "production" })).toBe(DEMO_LOCATION_SECRET);
-    expect(errors).toHaveBeenCalledWith(expect.stringContaining("LOCATION_SECRET is not set"));
-    errors.mockRestore();
+    expect(startupProblems({ NODE_ENV: "production", LOCATION_SECRET: "" }).join("\n")).toMatch(/LOCATION_SECRET is not set/);
   });
 });
 

@@ -1,0 +1,134 @@
+import { z } from "zod";
+
+// The one place the environment is read and checked, with zod. It starts with what a
+// production start must never run without: the signing keys. Everything here has a working
+// demo value so `npm run dev` needs no set-up; a production start (NODE_ENV=production)
+// refuses the demo values unless DUFFBANK_DEMO=1 says it is the demo on purpose.
+// (Other modules still read their own variables; they move here as they are touched.)
+
+type Env = Record<string, string | undefined>;
+
+/** The demo values: public in this repository, so never good enough for a real deployment. */
+export const DEMO_SECRETS = {
+  NEXTAUTH_SECRET: "duffbank-local-demo-secret-change-me-in-production",
+  LOCATION_SECRET: "duffbank-local-location-key",
+  STRIPE_WEBHOOK_SECRET: "whsec_duffbank_local",
+} as const;
+
+export type SecretName = keyof typeof DEMO_SECRETS;
+
+const RANDOM = "openssl rand -base64 32";
+
+/** Each signing key: what it protects, and how to make one. */
+export const SECRETS: { name: SecretName; protects: string; make: string }[] = [
+  {
+    name: "NEXTAUTH_SECRET",
+    protects: "signs session cookies, sign-in links and giveaway calendar links",
+    make: `a long random string: ${RANDOM}`,
+  },
+  {
+    name: "LOCATION_SECRET",
+    protects: "keys the offset between each pickup place and the approximate point the public sees",
+    make: `a long random string: ${RANDOM}`,
+  },
+  {
+    name: "STRIPE_WEBHOOK_SECRET",
+    protects: "proves a webhook came from Stripe",
+    make: `your Stripe webhook endpoint's signing secret (whsec_…); with the local Stripe fake any long random string, e.g. ${RANDOM}`,
+  },
+];
+
+// An empty value (an untouched `NAME=` line from .env.example) counts as unset.
+const optional = z.preprocess((v) => (typeof v === "string" && v.trim() === "" ? undefined : typeof v === "string" ? v.trim() : v), z.string().optional());
+const flag = z.preprocess((v) => (typeof v === "string" ? v.trim() : v), z.enum(["", "0", "1", "true", "false"]).optional()).transform((v) => v === "1" || v === "true");
+
+const schema = z.object({
+  NODE_ENV: z.string().optional(),
+  DUFFBANK_DEMO: flag,
+  NEXTAUTH_SECRET: optional,
+  LOCATION_SECRET: optional,
+  STRIPE_WEBHOOK_SECRET: optional,
+  APP_URL: optional.pipe(z.url({ protocol: /^https?$/, error: "must be an http(s) URL, like https://duffbank.example.org" }).optional()),
+  NEXTAUTH_URL: optional.pipe(z.url({ protocol: /^https?$/, error: "must be an http(s) URL, like https://duffbank.example.org" }).optional()),
+  PORT: optional,
+});
+
+export type AppEnv = z.infer<typeof schema>;
+
+export function readEnv(env: Env = process.env): AppEnv {
+  const parsed = schema.safeParse(env);
+  if (parsed.success) return parsed.data;
+  // A malformed value is reported by startupProblems; here fall back to reading it as unset.
+  const bad = new Set(parsed.error.issues.map((i) => String(i.path[0])));
+  return schema.parse(Object.fromEntries(Object.entries(env).filter(([k]) => !bad.has(k))));
+}
+
+export const isProduction = (env: Env = process.env) => env.NODE_ENV === "production";
+export const isDemo = (env: Env = process.env) => readEnv(env).DUFFBANK_DEMO;
+
+/** A signing key: the configured one, else the demo value (a production start has refused by then). */
+export function secret(name: SecretName, env: Env = process.env): string {
+  return readEnv(env)[name] ?? DEMO_SECRETS[name];
+}
+
+/**
+ * What stops a production start: one line per signing key that is missing or still the demo
+ * value, and per malformed URL. Empty outside production and in the explicit demo.
+ */
+export function startupProblems(env: Env = process.env): string[] {
+  if (!isProduction(env) || isDemo(env)) return [];
+  const lines: string[] = [];
+  const parsed = schema.safeParse(env);
+  if (!parsed.success) {
+    for (const issue of parsed.error.issues) lines.push(`${String(issue.path[0])} ${issue.message}.`);
+  }
+  const values = readEnv(env);
+  for (const s of SECRETS) {
+    const value = values[s.name];
+    if (!value) lines.push(`${s.name} is not set. It ${s.protects}. Set it to ${s.make}.`);
+    else if (value === DEMO_SECRETS[s.name]) lines.push(`${s.name} is the public demo value. It ${s.protects}. Set it to ${s.make}.`);
+  }
+  return lines;
+}
+
+const BANNER = "!".repeat(72);
+
+/**
+ * Run first by every entry point (the app's instrumentation hook, the worker, the database
+ * CLI, the fakes). A production start with a missing or demo secret prints what to set and
+ * exits before anything is served; the explicit demo says loudly that it runs on public keys.
+ */
+export function checkStartup(component: string, env: Env = process.env, out: { error: (line: string) => void; exit: (code: number) => never } = { error: (l) => console.error(l), exit: (c) => process.exit(c) }): void {
+  if (!isProduction(env)) return;
+  if (isDemo(env)) {
+    out.error(
+      [
+        BANNER,
+        `[${component}] DUFFBANK_DEMO=1: running the production build on the PUBLIC DEMO SECRETS.`,
+        `[${component}] Anyone can forge sessions, webhooks and calendar links and recover pickup addresses.`,
+        `[${component}] Never use this with real people's data; unset DUFFBANK_DEMO and set the secrets below.`,
+        BANNER,
+      ].join("\n"),
+    );
+    return;
+  }
+  const problems = startupProblems(env);
+  if (problems.length === 0) return;
+  for (const line of problems) out.error(`[${component}] ${line}`);
+  out.error(`[${component}] Refusing to start in production (NODE_ENV=production) with missing or demo secrets. For the local demo, run \`npm run dev\`, or set DUFFBANK_DEMO=1 to run this build on the demo values.`);
+  out.exit(1);
+}
+
+/** The app's public base URL (links in e-mails, Stripe's return addresses), without a trailing slash. */
+export function appUrl(env: Env = process.env): string {
+  const values = readEnv(env);
+  const url = values.APP_URL || values.NEXTAUTH_URL || `http://localhost:${values.PORT || 3000}`;
+  return url.replace(/\/+$/, "");
+}
+
+/** The origins the app answers on: the public URL's, and next-auth's when it differs. */
+export function appOrigins(env: Env = process.env): string[] {
+  const values = readEnv(env);
+  const urls = [appUrl(env), values.NEXTAUTH_URL].filter((u): u is string => !!u);
+  return [...new Set(urls.map((u) => new URL(u).origin))];
+}
