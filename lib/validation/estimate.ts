@@ -71,6 +71,10 @@ export const bedSchema = strictObject(
       return;
     }
     if (bed.polygon) {
+      // zod 4 runs this refinement even when the outline's own checks failed (an empty ring
+      // list, a ring too short); those already carry their messages, and the geometry below
+      // would trip over them.
+      if (!polygonGeometry.safeParse(bed.polygon).success) return;
       const positions = bed.polygon.coordinates.reduce((n, ring) => n + ring.length, 0);
       if (positions > MAX_POLYGON_POSITIONS) {
         ctx.addIssue({ code: "custom", path: ["polygon", "coordinates"], message: `An outline and its holes can have at most ${MAX_POLYGON_POSITIONS.toLocaleString("en-US")} positions in all` });
