@@ -26,14 +26,21 @@ export function toErrorResponse(err: unknown): NextResponse {
   );
 }
 
+// API answers are about someone (their reservations, their address) or vary by who asks,
+// so no shared cache keeps them unless a handler says otherwise.
+function privateByDefault(res: Response): Response {
+  if (!res.headers.has("cache-control")) res.headers.set("Cache-Control", "private, no-store");
+  return res;
+}
+
 /** A public route: maps thrown errors to the envelope. */
 export function handle<P = Params>(fn: (args: HandlerArgs<P>) => Promise<Response>) {
   return async (req: NextRequest, ctx?: Ctx): Promise<Response> => {
     try {
       const params = ((await ctx?.params) ?? {}) as P;
-      return await fn({ req, params });
+      return privateByDefault(await fn({ req, params }));
     } catch (err) {
-      return toErrorResponse(err);
+      return privateByDefault(toErrorResponse(err));
     }
   };
 }
@@ -49,10 +56,51 @@ export function withAuth<P = Params>(
   });
 }
 
-/** Read a JSON body; malformed JSON is a 400, not a 500. */
+/** Bodies larger than this are refused (413) before they are parsed; proxy.ts checks Content-Length, this the bytes. */
+export const MAX_JSON_BYTES = 1024 * 1024;
+
+const JSON_TYPE = /^application\/(?:[\w.+-]+\+)?json\s*(?:;|$)/i;
+
+/** The body as text, stopping with a 413 as soon as it passes `limit` bytes. */
+async function readText(req: Request, limit: number): Promise<string> {
+  if (!req.body) return "";
+  const reader = req.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > limit) {
+      await reader.cancel();
+      throw new ApiError("payload_too_large", `The request body is larger than ${limit / 1024 / 1024} MB.`);
+    }
+    chunks.push(value);
+  }
+  return new TextDecoder().decode(Buffer.concat(chunks));
+}
+
+/**
+ * Read a JSON body: 415 unless it is sent as JSON (a cross-site form can only send text/plain
+ * or form encodings), 413 past 1 MB, 400 for malformed JSON, never a 500.
+ */
 export async function readJson(req: Request): Promise<unknown> {
-  const text = await req.text();
-  if (!text.trim()) throw new ApiError("bad_request", "The request needs a JSON body.");
+  return parseBody(req, false);
+}
+
+/** The same for a route whose body may be left out: no body reads as `{}`. */
+export async function readOptionalJson(req: Request): Promise<unknown> {
+  return parseBody(req, true);
+}
+
+async function parseBody(req: Request, optional: boolean): Promise<unknown> {
+  const isJson = JSON_TYPE.test(req.headers.get("content-type") ?? "");
+  const text = await readText(req, MAX_JSON_BYTES);
+  if (!text.trim()) {
+    if (optional) return {};
+    throw new ApiError("bad_request", "The request needs a JSON body.");
+  }
+  if (!isJson) throw new ApiError("unsupported_media_type", "Send the body as JSON, with Content-Type: application/json.");
   try {
     return JSON.parse(text);
   } catch {

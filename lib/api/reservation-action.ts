@@ -1,7 +1,7 @@
 import "server-only";
 import { NextResponse } from "next/server";
 import { z } from "zod";
-import { readJson, withAuth } from "./handler";
+import { readOptionalJson, withAuth } from "./handler";
 import { parseInput } from "./errors";
 import type { Role } from "@/lib/auth/roles";
 import type { ReservationAction } from "@/lib/reservations/policy";
@@ -15,7 +15,7 @@ type StepBody = { reason?: string; pickup_code?: string; carrier?: string; track
 /** A POST /api/reservations/:id/<step> handler: an empty body is allowed; answers with the reservation as the caller sees it. */
 function stepRoute(schema: z.ZodObject, roles: readonly Role[] | undefined, run: (input: StepBody, reservationId: string, userId: string) => Promise<unknown>) {
   return withAuth<{ id: string }>(async ({ req, params, user }) => {
-    const raw = (await req.clone().text()).trim() ? await readJson(req) : {};
+    const raw = await readOptionalJson(req);
     await run(parseInput(schema, raw) as StepBody, params.id, user.id);
     return NextResponse.json({ reservation: await getReservation(params.id, user.id) });
   }, roles);
