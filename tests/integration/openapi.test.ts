@@ -2,6 +2,7 @@ import fs from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { openApiDocument } from "@/lib/api/openapi";
+import { API_ROUTES } from "@/lib/api/routes";
 
 function routeFiles(dir: string): string[] {
   return fs.readdirSync(dir, { withFileTypes: true }).flatMap((e) => {
@@ -23,6 +24,18 @@ describe("GET /api/openapi.json", () => {
       const src = fs.readFileSync(file, "utf8");
       const methods = [...src.matchAll(/export (?:const|async function|function) (GET|POST|PATCH|PUT|DELETE)\b/g)].map((m) => m[1].toLowerCase());
       for (const m of methods) expect(doc.paths[apiPath]?.[m], `${m.toUpperCase()} ${apiPath}`).toBeTruthy();
+    }
+  });
+
+  // proxy.ts answers 404 and 405 from this list (lib/api/route-table.ts), so it must name
+  // exactly the methods the route files export, no more.
+  it("lists no method that a route file does not export", () => {
+    const root = path.resolve(__dirname, "../..");
+    for (const route of API_ROUTES) {
+      const file = path.join(root, "app", route.path.replace(/\{(\w+)\}/g, "[$1]"), "route.ts");
+      expect(fs.existsSync(file), `${route.path} has no route file`).toBe(true);
+      const src = fs.readFileSync(file, "utf8");
+      expect(src, `${route.method.toUpperCase()} ${route.path}`).toMatch(new RegExp(`export (?:const|async function|function) ${route.method.toUpperCase()}\\b|as ${route.method.toUpperCase()}\\b`));
     }
   });
 
