@@ -21,7 +21,7 @@ beforeAll(async () => {
 });
 afterAll(async () => ctx.close());
 
-const ring = (pts: number[][]) => [...pts, pts[0]];
+const ring = (pts: unknown[][]) => [...pts, pts[0]];
 const square = ring([[0.85, 52.2], [0.85001, 52.2], [0.85001, 52.20001], [0.85, 52.20001]]);
 
 const polygons: [string, unknown][] = [
