@@ -45,7 +45,7 @@ function expectedStatus(row: PaymentRow, { session, intent, charge }: CheckoutRe
   if (session.status === "open") return "open";
   if (session.status === "expired" || !intent) return "expired";
   if (intent.status === "requires_capture") return "authorised";
-  if (intent.status === "canceled") return intent.cancellation_reason === "abandoned" ? "expired" : "released";
+  if (intent.status === "canceled") return heldMoney(charge) ? "released" : "expired";
   if (intent.status === "succeeded") {
     if (row.kind === "deposit") return "captured";
     return charge && charge.amount_refunded >= charge.amount_captured && charge.amount_captured > 0 ? "refunded" : "paid";
@@ -78,18 +78,53 @@ export async function reconcilePayments(q: Db = db()): Promise<Mismatch[]> {
   return out;
 }
 
+/** True when the card was approved: money was paid or put on hold (a declined attempt leaves a failed charge). */
+function heldMoney(charge: Stripe.Charge | null): boolean {
+  return !!charge && charge.status === "succeeded";
+}
+
+/** Money that came back on Stripe's side in full: a hold let go, or a payment refunded. */
+export function moneyReturned({ intent, charge }: CheckoutRecord): "released" | "refunded" | null {
+  if (intent?.status === "canceled" && heldMoney(charge)) return "released";
+  if (charge?.captured && charge.amount_captured > 0 && charge.amount_refunded >= charge.amount_captured) return "refunded";
+  return null;
+}
+
+/**
+ * Where Stripe's record disagrees with what Duffbank asked for (its amount and currency),
+ * so applying it would credit a payment that was not made as asked. Empty when it agrees.
+ */
+export function recordMismatches(row: PaymentRow, { session, intent }: CheckoutRecord): string[] {
+  const out: string[] = [];
+  if (session.amount_total !== row.amount_cents) out.push(`the checkout is for ${session.amount_total}, not ${row.amount_cents}`);
+  if (session.currency !== row.currency) out.push(`the checkout is in ${session.currency}, not ${row.currency}`);
+  if (session.metadata?.payment_id && session.metadata.payment_id !== row.id) out.push(`the checkout belongs to payment ${session.metadata.payment_id}`);
+  if (intent && intent.amount !== row.amount_cents) out.push(`the payment intent is for ${intent.amount}, not ${row.amount_cents}`);
+  if (intent && intent.currency !== row.currency) out.push(`the payment intent is in ${intent.currency}, not ${row.currency}`);
+  const pi = session.payment_intent;
+  if (intent && pi && (typeof pi === "string" ? pi : pi.id) !== intent.id) out.push("the payment intent is not the checkout's");
+  return out;
+}
+
 /**
  * The events Stripe's record implies, in the order they happen. Each id names what it
  * says (`recovered:<type>:<object>`), so recovering the same thing twice applies it once;
- * the real event arriving later is a different id, but statuses only move forward.
+ * statuses only move forward. When the record shows the money already back in full and
+ * Duffbank never saw it arrive (`seen` is false), only the return is implied: the steps in
+ * between (a receipt, a confirmation with the pickup address) never happened for Duffbank
+ * and are not mailed. The intent carries its charge, so a cancelled intent says whether it
+ * ever held money.
  */
-export function impliedEvents({ session, intent, charge }: CheckoutRecord, now: Date): Stripe.Event[] {
+export function impliedEvents(record: CheckoutRecord, now: Date, seen = true): Stripe.Event[] {
+  const { session, intent, charge } = record;
+  const returned = moneyReturned(record);
+  const steps = seen || !returned;
   const out: [string, { id: string }, string?][] = [];
-  if (session.status === "complete") out.push(["checkout.session.completed", session]);
+  if (steps && session.status === "complete") out.push(["checkout.session.completed", session]);
   if (session.status === "expired") out.push(["checkout.session.expired", session]);
-  if (intent?.status === "requires_capture") out.push(["payment_intent.amount_capturable_updated", intent]);
-  if (intent?.status === "succeeded") out.push(["payment_intent.succeeded", intent]);
-  if (intent?.status === "canceled") out.push(["payment_intent.canceled", intent]);
+  if (steps && intent?.status === "requires_capture") out.push(["payment_intent.amount_capturable_updated", intent]);
+  if (steps && intent?.status === "succeeded") out.push(["payment_intent.succeeded", intent]);
+  if (intent?.status === "canceled") out.push(["payment_intent.canceled", { ...intent, latest_charge: charge } as unknown as { id: string }]);
   if (charge?.captured && charge.amount_refunded > 0) out.push(["charge.refunded", charge, `:${charge.amount_refunded}`]);
   return out.map(
     ([type, object, suffix = ""]) =>
@@ -116,7 +151,24 @@ export async function syncPayment(paymentId: string, clock: () => Date = () => n
   const row = await findPayment(paymentId, q);
   if (!row || row.kind === "refund" || !row.provider_ref) return row?.status ?? null;
   const record = await checkoutRecord(row.provider_ref);
-  for (const event of impliedEvents(record, clock())) {
+  const mismatches = recordMismatches(row, record);
+  if (mismatches.length) {
+    // Never credit a payment that was not made as asked; people look at last_error.
+    const message = `Stripe's record does not match this payment: ${mismatches.join("; ")}.`;
+    console.error(`[payments] ${paymentId}: ${message}`);
+    await q("payments").where({ id: paymentId }).update({ last_error: message.slice(0, 500), updated_at: clock().toISOString() });
+    return row.status;
+  }
+  // What the record says beside the status: the intent's id, and why a card was declined.
+  const { intent } = record;
+  const declined = intent?.status === "requires_payment_method" ? intent.last_payment_error?.message : null;
+  if (intent && (row.payment_intent_id !== intent.id || (declined && row.last_error !== declined.slice(0, 500)))) {
+    await q("payments")
+      .where({ id: paymentId })
+      .update({ payment_intent_id: intent.id, ...(declined ? { last_error: declined.slice(0, 500) } : {}) });
+  }
+  const seen = !["creating", "open", "expired"].includes(row.status);
+  for (const event of impliedEvents(record, clock(), seen)) {
     await applyStripeEvent(event, { db: q, clock });
   }
   return (await findPayment(paymentId, q))?.status ?? null;

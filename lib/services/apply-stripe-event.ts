@@ -8,14 +8,16 @@ import type { PaymentRow } from "@/db/types";
 import { runPaymentActions } from "@/lib/payments/actions";
 import { ownerOf } from "@/lib/payments/owner";
 import { bookingDepositFollows } from "./giveaway-deposit";
-import { gardenerStepDone } from "./reservation-steps";
+import { gardenerStepDone, moneyReturnedOutside } from "./reservation-steps";
 
-// Applies one verified Stripe event, exactly once: the event id goes into webhook_events
-// in the same transaction as its effects, so a duplicate finds the id and changes nothing,
-// and a failure rolls both back for Stripe's retry. A payment's status only moves forward
-// (by RANK), so events arriving out of order end in the same state as in order.
-// When a webhook was lost, lib/payments/reconcile.ts (syncPayment) feeds Stripe's record
-// through here as the events it implies, so both paths share every rule.
+// Applies one event of Stripe's record, exactly once: the event id goes into webhook_events
+// in the same transaction as its effects, so a repeat finds the id and changes nothing, and a
+// failure rolls both back. A payment's status only moves forward (by RANK).
+// Only events built from Stripe's own record reach here: lib/payments/reconcile.ts
+// (syncPayment) reads the checkout back through the SDK and feeds what it shows through here
+// as the events it implies, whether a webhook asked it to (receive-stripe-event.ts), a Stripe
+// call Duffbank made, or the worker looking for lost webhooks. A webhook's own body is never
+// applied, so a correctly signed but false event changes nothing.
 
 const RANK: Record<string, number> = { creating: 0, open: 0, expired: 1, authorised: 2, paid: 3, released: 4, captured: 4, refunded: 5 };
 
@@ -38,9 +40,13 @@ function targetFor(event: Stripe.Event, row: PaymentRow): Target | null {
       return row.kind === "deposit"
         ? { status: "captured", patch: { payment_intent_id: obj.id, captured_cents: obj.amount_received } }
         : { status: "paid", patch: { payment_intent_id: obj.id, captured_cents: obj.amount_received } };
-    case "payment_intent.canceled":
-      // Duffbank cancels a hold to release it; Stripe cancels an abandoned checkout's intent.
-      return { status: obj.cancellation_reason === "abandoned" ? "expired" : "released", patch: { payment_intent_id: obj.id } };
+    case "payment_intent.canceled": {
+      // A hold let go (by Duffbank, or on Stripe's side) held money once; an abandoned or
+      // declined checkout's intent never did. The record carries the charge to tell which.
+      const charge = obj.latest_charge as { status?: string } | string | null;
+      const held = !!charge && typeof charge === "object" && charge.status === "succeeded";
+      return { status: held ? "released" : "expired", patch: { payment_intent_id: obj.id } };
+    }
     case "payment_intent.payment_failed":
       return { patch: { payment_intent_id: obj.id, last_error: String(obj.last_payment_error?.message ?? "The card was declined.").slice(0, 500) } };
     case "charge.refunded": {
@@ -51,15 +57,6 @@ function targetFor(event: Stripe.Event, row: PaymentRow): Target | null {
     default:
       return null;
   }
-}
-
-async function applyRefundEvent(trx: Knex.Transaction, obj: Record<string, any>, now: string) {
-  const id = obj.metadata?.refund_id;
-  const row = id ? await trx<PaymentRow>("payments").first("*").where({ id, kind: "refund" }) : await trx<PaymentRow>("payments").first("*").where({ provider_ref: obj.id, kind: "refund" });
-  if (!row) return;
-  // pending → succeeded/failed; never back to pending.
-  const status = row.status === "pending" || !row.provider_ref ? obj.status : row.status;
-  await updatePayment(row.id, { provider_ref: obj.id, status: status === "succeeded" || status === "failed" ? status : row.status, updated_at: now }, trx);
 }
 
 class DuplicateEvent extends Error {
@@ -85,10 +82,6 @@ export async function applyStripeEvent(event: Stripe.Event, deps: { db?: Knex; c
         throw err;
       }
       const obj = event.data.object as unknown as Record<string, any>;
-      if (event.type.startsWith("refund.")) {
-        await applyRefundEvent(trx, obj, at);
-        return [];
-      }
       const isSession = event.type.startsWith("checkout.session.");
       const isIntent = event.type.startsWith("payment_intent.");
       const row = await paymentByStripeRef(
@@ -126,11 +119,12 @@ async function ownerFollows(trx: Knex.Transaction, row: PaymentRow, status: stri
 async function reservationFollows(trx: Knex.Transaction, row: PaymentRow, reservationId: string, status: string, now: Date): Promise<string[]> {
   const was = RANK[row.status];
   const owed: string[] = [];
-  if (was < RANK.authorised && RANK[status] >= RANK.authorised) {
+  if (was < RANK.authorised && (status === "authorised" || status === "paid")) {
     owed.push(...(await gardenerStepDone(trx, reservationId, row.kind === "deposit" ? "authorised" : "paid", now)));
   }
   if (["released", "captured", "refunded"].includes(status)) {
     await trx("reservations").where({ id: reservationId }).update({ payment_state: status, updated_at: now.toISOString() });
+    if (status !== "captured") owed.push(...(await moneyReturnedOutside(trx, reservationId, status as "released" | "refunded", now)));
   }
   return owed;
 }

@@ -60,7 +60,9 @@ export async function bookingDepositFollows(trx: Trx, row: PaymentRow, status: s
     if (booking.deposit_status !== "kept") await set("released");
     return owed;
   }
-  if (status === "released" && booking.deposit_status !== "kept") await set("released");
+  // A hold let go: the normal end after a check-in or a cancellation, or one made on Stripe's
+  // side. A deposit Duffbank never saw put down stays "awaiting" and lapses on its own.
+  if (status === "released" && booking.deposit_status === "held") await set("released");
   if (status === "captured") await set("kept");
   return [];
 }

@@ -138,3 +138,17 @@ export async function gardenerStepDone(trx: Trx, reservationId: string, state: "
   }
   return [];
 }
+
+/**
+ * The money came back on Stripe's side (a refund or a released hold made outside Duffbank,
+ * in Stripe's dashboard): Duffbank returns money only when it ends a reservation, so one still
+ * going was not ended here. It ends now — the quantity returns, and both sides are told why.
+ */
+export async function moneyReturnedOutside(trx: Trx, reservationId: string, how: "released" | "refunded", now: Date): Promise<string[]> {
+  const r = (await trx<ReservationRow>("reservations").first("*").where({ id: reservationId }))!;
+  if (r.status !== "held" && r.status !== "confirmed") return [];
+  const note = how === "refunded" ? "The payment was refunded on Stripe, outside Duffbank" : "The deposit hold was released on Stripe, outside Duffbank";
+  const owed = await closeReservation(trx, r, "cancelled", { actorId: null, note, now, money: "return" });
+  await mailReservation(trx, "returned_outside", (await reservationContext(r.id, trx))!, ["gardener", "supplier"]);
+  return owed;
+}

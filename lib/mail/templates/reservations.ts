@@ -19,7 +19,8 @@ export type ReservationMailKind =
   | "receipt"
   | "message"
   | "review_request"
-  | "returned";
+  | "returned"
+  | "returned_outside";
 export type Audience = "gardener" | "supplier";
 
 export interface MailExtra {
@@ -187,6 +188,19 @@ function parts(kind: ReservationMailKind, r: ReservationContext, to: Audience, e
       };
     case "returned":
       return { subject: `Money returned: ${what}`, body: { heading: "Your payment came in after the hold had ended", paragraphs: lines(moneySentence(r, "returned")), action: action("See the details") } };
+    case "returned_outside":
+      return {
+        subject: `Cancelled: ${what}`,
+        body: {
+          heading: r.amount_cents > 0 ? "The payment was refunded, so this reservation is cancelled" : "The deposit hold was released, so this reservation is cancelled",
+          paragraphs: lines(
+            "The money went back through the card payment service, not through Duffbank, so the reservation cannot go on.",
+            to === "gardener" ? moneySentence(r, "returned") : "The quantity is back on your listing.",
+            to === "gardener" ? "Still want it? Reserve it again while it is listed." : null,
+          ),
+          action: action("See the details"),
+        },
+      };
   }
 }
 
