@@ -5,6 +5,7 @@ import { expireHolds, sendReservationReminders } from "@/lib/services/expire-hol
 import { expireListings } from "@/lib/services/expire-listings";
 import { expireGiveawayDepositHolds } from "@/lib/services/giveaway-deposit";
 import { sendBedReminders } from "@/lib/services/send-bed-reminders";
+import { pruneSecurityRecords } from "@/lib/services/prune-security-records";
 
 export type Clock = () => Date;
 
@@ -26,5 +27,7 @@ export const jobs: Job[] = [
   { name: "reservation-reminders", everyMs: 60_000, run: (clock) => sendReservationReminders(clock) },
   // Owed Stripe calls, then the lost-webhook net: checkouts still open after a few minutes
   // are checked against Stripe's record and brought up to it.
+  // Ended sessions and spent rate-limit windows are kept a while for support, then dropped.
+  { name: "prune-security-records", everyMs: 60 * 60_000, run: (clock) => pruneSecurityRecords(clock) },
   { name: "settle-payments", everyMs: 5_000, run: async (clock) => ({ ...(await settlePayments(clock)), ...(await recoverOpenPayments(clock)) }) },
 ];
