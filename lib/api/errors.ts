@@ -32,6 +32,8 @@ export class ApiError extends Error {
     readonly code: ErrorCode,
     message: string,
     readonly fields?: FieldErrors,
+    /** For rate_limited: seconds until trying again is worth it (sent as Retry-After). */
+    readonly retryAfterS?: number,
   ) {
     super(message);
     this.name = "ApiError";

@@ -14,7 +14,10 @@ export interface HandlerArgs<P> {
 }
 
 export function toErrorResponse(err: unknown): NextResponse {
-  if (err instanceof ApiError) return NextResponse.json(err.toEnvelope(), { status: err.status });
+  if (err instanceof ApiError) {
+    const headers = err.retryAfterS ? { "Retry-After": String(err.retryAfterS) } : undefined;
+    return NextResponse.json(err.toEnvelope(), { status: err.status, headers });
+  }
   if (err instanceof ZodError) {
     const api = fromZod(err);
     return NextResponse.json(api.toEnvelope(), { status: api.status });
