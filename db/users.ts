@@ -56,6 +56,10 @@ export async function updateUser(
   await q("users").where({ id }).update({ ...patch, updated_at: nowIso() });
 }
 
+export async function setPasswordHash(id: string, passwordHash: string, q: Db = db()): Promise<void> {
+  await q("users").where({ id }).update({ password_hash: passwordHash, updated_at: nowIso() });
+}
+
 export async function rolesOf(userId: string, q: Db = db()): Promise<UserRoleRow[]> {
   return q<UserRoleRow>("user_roles").select("user_id", "role", "status", "created_at").where({ user_id: userId });
 }

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { profileSchema, signUpSchema } from "@/lib/validation/auth";
+import { changePasswordSchema, profileSchema, signUpSchema } from "@/lib/validation/auth";
 import { roleDecisionSchema } from "@/lib/validation/moderation";
 import { estimateSchema } from "@/lib/validation/estimate";
 import { blendSchema } from "@/lib/validation/blend";
@@ -50,7 +50,10 @@ export interface RouteDoc {
 export const API_ROUTES: RouteDoc[] = [
   { method: "get", path: "/api/health", summary: "The app and its database answer", tag: "system", auth: "public", response: z.object({ ok: z.literal(true) }), errors: [500] },
   { method: "get", path: "/api/openapi.json", summary: "This document", tag: "system", auth: "public" },
-  { method: "post", path: "/api/users", summary: "Create an account (a gardener)", tag: "accounts", auth: "public", body: signUpSchema, status: 201, errors: [400, 409, 422] },
+  { method: "post", path: "/api/users", summary: "Join: the same answer whether or not the address has an account; the e-mail sent says which (a confirmation link, or how to sign in). Limited per client address", tag: "accounts", auth: "public", body: signUpSchema, status: 202, errors: [400, 413, 415, 422, 429] },
+  { method: "post", path: "/api/me/password", summary: "Change the password (checks the current one); ends every session of the account", tag: "accounts", auth: "signed-in", body: changePasswordSchema, errors: [400, 401, 415, 422, 429] },
+  { method: "delete", path: "/api/me/sessions", summary: "Sign out everywhere: ends every session of the account", tag: "accounts", auth: "signed-in", errors: [401] },
+  { method: "post", path: "/api/me/confirmation", summary: "Send the e-mail address confirmation link again", tag: "accounts", auth: "signed-in", status: 202, errors: [401, 409, 429] },
   { method: "get", path: "/api/me", summary: "The signed-in person", tag: "accounts", auth: "signed-in", errors: [401] },
   { method: "patch", path: "/api/me", summary: "Update name, units, reminders and requested roles", tag: "accounts", auth: "signed-in", body: profileSchema, errors: [400, 401, 422] },
   { method: "get", path: "/api/council/members", summary: "Staff of my council", tag: "councils", auth: ["council"], errors: [401, 403] },

@@ -1,11 +1,11 @@
 import "server-only";
-import { getServerSession } from "next-auth";
 import { getToken } from "next-auth/jwt";
+import { cookies, headers } from "next/headers";
 import type { NextRequest } from "next/server";
 import { ApiError } from "@/lib/api/errors";
 import { findUserById, membershipsOf, rolesOf } from "@/db/users";
 import { AUTH_SECRET } from "./config";
-import { authOptions } from "./options";
+import { activeUserId } from "./sessions";
 import type { Role } from "./roles";
 
 export interface SessionUser {
@@ -16,6 +16,8 @@ export interface SessionUser {
   roles: Role[];
   requested_roles: Role[];
   verified: boolean;
+  /** The address was confirmed (the link in the e-mail sent on joining, or a sign-in link). */
+  email_verified: boolean;
   organisation: { id: string; name: string; kind: string; org_role: "owner" | "staff" } | null;
 }
 
@@ -34,6 +36,7 @@ export async function loadSessionUser(id: string): Promise<SessionUser | null> {
     roles: roles.filter((r) => r.status === "active").map((r) => r.role),
     requested_roles: roles.filter((r) => r.status === "requested").map((r) => r.role),
     verified: Boolean(user.verified_at),
+    email_verified: Boolean(user.email_verified_at),
     organisation: org ? { id: org.organisation_id, name: org.name, kind: org.kind, org_role: org.org_role } : null,
   };
 }
@@ -45,20 +48,33 @@ function checkRoles(user: SessionUser, roles?: readonly Role[]) {
   return user;
 }
 
-/** Route handlers: the session cookie on the request. */
-export async function requireUser(req: NextRequest, roles?: readonly Role[]): Promise<SessionUser> {
+/**
+ * The person behind a session cookie: its token must decode, and the session it names must
+ * still be going (not signed out, not ended by a password change, "sign out everywhere" or a
+ * suspension). The session row is read alongside the user row, on every request.
+ */
+async function userOfCookie(req: Parameters<typeof getToken>[0]["req"]): Promise<SessionUser | null> {
   const token = await getToken({ req, secret: AUTH_SECRET });
   const id = typeof token?.uid === "string" ? token.uid : null;
-  const user = id ? await loadSessionUser(id) : null;
+  if (!id) return null;
+  const [active, user] = await Promise.allSettled([activeUserId(token), loadSessionUser(id)]);
+  if (active.status === "rejected") throw active.reason;
+  if (active.value !== id) return null;
+  if (user.status === "rejected") throw user.reason;
+  return user.value;
+}
+
+/** Route handlers: the session cookie on the request. */
+export async function requireUser(req: NextRequest, roles?: readonly Role[]): Promise<SessionUser> {
+  const user = await userOfCookie(req);
   if (!user) throw new ApiError("unauthenticated", "Sign in to do this.");
   return checkRoles(user, roles);
 }
 
-/** The person behind an id from a session, or null when there is none or they are suspended. */
-async function activeUserOrNull(id: string | null | undefined): Promise<SessionUser | null> {
-  if (!id) return null;
+/** Suspended people count as signed out where signing in is optional. */
+async function unlessSuspended(find: Promise<SessionUser | null>): Promise<SessionUser | null> {
   try {
-    return await loadSessionUser(id);
+    return await find;
   } catch (err) {
     if (err instanceof ApiError && err.code === "suspended") return null;
     throw err;
@@ -67,14 +83,12 @@ async function activeUserOrNull(id: string | null | undefined): Promise<SessionU
 
 /** Public route handlers that show more to some people: the signed-in person, or null. */
 export async function optionalRequestUser(req: NextRequest): Promise<SessionUser | null> {
-  const token = await getToken({ req, secret: AUTH_SECRET });
-  return activeUserOrNull(typeof token?.uid === "string" ? token.uid : null);
+  return unlessSuspended(userOfCookie(req));
 }
 
 /** Pages and server actions: null when nobody is signed in. */
 export async function currentUser(): Promise<SessionUser | null> {
-  const session = await getServerSession(authOptions);
-  return activeUserOrNull(session?.user?.id);
+  return unlessSuspended(userOfCookie({ headers: await headers(), cookies: await cookies() } as never));
 }
 
 /** Server actions: the same 401/403 rules as route handlers. */
@@ -82,6 +96,14 @@ export async function requireCurrentUser(roles?: readonly Role[]): Promise<Sessi
   const user = await currentUser();
   if (!user) throw new ApiError("unauthenticated", "Sign in to do this.");
   return checkRoles(user, roles);
+}
+
+/** Reserving and posting need a confirmed address (403 with a way forward otherwise). */
+export function requireVerifiedEmail(user: SessionUser): SessionUser {
+  if (!user.email_verified) {
+    throw new ApiError("forbidden", "Confirm your e-mail address first: follow the link in the e-mail we sent when you joined, or ask for a sign-in link by e-mail.");
+  }
+  return user;
 }
 
 export function hasRole(user: SessionUser | null, ...roles: Role[]): boolean {

@@ -1,13 +1,24 @@
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import EmailProvider from "next-auth/providers/email";
-import { findUserByEmail, findUserById, membershipsOf, rolesOf } from "@/db/users";
+import { findUserByEmail, findUserById, membershipsOf, rolesOf, setPasswordHash } from "@/db/users";
 import { signInSchema } from "@/lib/validation/auth";
 import { sendMail } from "@/lib/mail/transport";
 import { magicLinkEmail } from "@/lib/mail/templates/magic-link";
+import { noAccountEmail } from "@/lib/mail/templates/accounts";
+import { appUrl } from "@/lib/env";
+import { LIMITS, clientAddress, ensureUnder, forgive, recordFailure } from "@/lib/security/rate-limit";
 import { AUTH_SECRET, SESSION_MAX_AGE_S } from "./config";
+import { safeCallbackPath } from "./callback-url";
 import { knexAdapter } from "./knex-adapter";
-import { verifyPassword } from "./password";
+import { hashPassword, needsRehash, verifyPassword } from "./password";
+import { activeUserId, endOneSession, startSession } from "./sessions";
+
+/** What next-auth answers when it has sent a sign-in link; an unknown address gets the same. */
+function linkSentUrl(): string {
+  const base = new URL(process.env.NEXTAUTH_URL || appUrl());
+  return `${base.origin}/api/auth/verify-request?provider=email&type=email`;
+}
 
 export const authOptions: NextAuthOptions = {
   secret: AUTH_SECRET,
@@ -19,13 +30,30 @@ export const authOptions: NextAuthOptions = {
       id: "credentials",
       name: "E-mail and password",
       credentials: { email: { type: "email" }, password: { type: "password" } },
-      async authorize(raw) {
+      async authorize(raw, req) {
         const parsed = signInSchema.safeParse(raw);
         if (!parsed.success) return null;
-        const user = await findUserByEmail(parsed.data.email);
-        const ok = await verifyPassword(parsed.data.password, user?.password_hash);
-        if (!user || !ok || !user.password_hash) return null;
+        const { email, password } = parsed.data;
+        const limits: Parameters<typeof recordFailure>[0] = [
+          [LIMITS.signInAccount, email],
+          [LIMITS.signInAddress, clientAddress(req?.headers ?? {})],
+        ];
+        // The route refuses first with a 429 (app/api/auth/[...nextauth]/route.ts); this holds if it is reached anyway.
+        try {
+          await ensureUnder(limits);
+        } catch {
+          throw new Error("rate_limited");
+        }
+        const user = await findUserByEmail(email);
+        // One scrypt for every answer: unknown accounts verify against a stand-in hash.
+        const ok = await verifyPassword(password, user?.password_hash);
+        if (!user || !ok || !user.password_hash) {
+          await recordFailure(limits);
+          return null;
+        }
         if (user.suspended_at) throw new Error("suspended");
+        await forgive(LIMITS.signInAccount, email);
+        if (needsRehash(user.password_hash)) await setPasswordHash(user.id, await hashPassword(password));
         return { id: user.id, email: user.email, name: user.display_name };
       },
     }),
@@ -41,14 +69,29 @@ export const authOptions: NextAuthOptions = {
     }),
   ],
   callbacks: {
-    async signIn({ user, account }) {
+    async signIn({ user, account, email }) {
       if (account?.provider !== "email") return true;
-      // A link is sent only to an existing, active account; unknown addresses sign up first.
       const existing = user.email ? await findUserByEmail(user.email) : undefined;
-      return !!existing && !existing.suspended_at;
+      if (existing && !existing.suspended_at) return true;
+      if (email?.verificationRequest && user.email) {
+        // Asking for a link answers the same whether or not the address has an account; the
+        // inbox says which, to its owner only.
+        if (!existing) await sendMail({ to: user.email, ...noAccountEmail(`${appUrl()}/sign-up?email=${encodeURIComponent(user.email)}`) });
+        return linkSentUrl();
+      }
+      return false;
+    },
+    async redirect({ url, baseUrl }) {
+      // Only back to this site: an absolute URL on it, or a safe path; anything else goes home.
+      const path = url.startsWith(`${baseUrl}/`) ? url.slice(baseUrl.length) : url;
+      return `${baseUrl}${safeCallbackPath(path)}`;
     },
     async jwt({ token, user }) {
-      if (user?.id) token.uid = user.id;
+      if (user?.id) {
+        // A new sign-in: its own server-side session, ended on sign-out (lib/auth/sessions.ts).
+        token.uid = user.id;
+        token.sid = await startSession(user.id);
+      }
       if (typeof token.uid === "string") {
         const row = await findUserById(token.uid);
         if (row) {
@@ -61,12 +104,19 @@ export const authOptions: NextAuthOptions = {
       return token;
     },
     async session({ session, token }) {
+      // A cookie whose session has ended (signed out, or ended everywhere) is nobody.
+      if (!(await activeUserId(token))) return { expires: session.expires } as typeof session;
       if (session.user && typeof token.uid === "string") {
         session.user.id = token.uid;
         session.user.roles = (token.roles as string[] | undefined) ?? [];
         session.user.organisation_id = (token.organisation_id as string | null | undefined) ?? null;
       }
       return session;
+    },
+  },
+  events: {
+    async signOut({ token }) {
+      await endOneSession(token?.sid);
     },
   },
 };

@@ -8,6 +8,7 @@ import type { ListingStatus } from "@/db/types";
 import { lastAudit, recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { LISTING_ROLES } from "@/lib/auth/roles";
+import { endEverySession } from "@/lib/auth/sessions";
 
 // A moderator's actions on a listing or an account. Each one is a conditional change and an
 // audit row in one transaction, so the log can never disagree with what happened.
@@ -73,6 +74,8 @@ export async function moderateUser(moderatorId: string, userId: string, action: 
         break;
     }
     await updateUser(userId, patch, trx);
+    // A suspension signs the person out everywhere, at once.
+    if (action === "suspend") await endEverySession(userId, "suspended", clock, trx);
     await recordAudit({ actor_id: moderatorId, action: `user.${action}`, subject_type: "user", subject_id: userId, before, after: { ...before, ...patch, note, report_id: reportId ?? null } }, trx);
     const after = (await findUserById(userId, trx))!;
     return { id: userId, suspended: !!after.suspended_at, verified: !!after.verified_at };

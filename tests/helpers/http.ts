@@ -1,10 +1,12 @@
 import { NextRequest } from "next/server";
 import { encode } from "next-auth/jwt";
 import { AUTH_SECRET } from "@/lib/auth/config";
+import { startSession } from "@/lib/auth/sessions";
 
-/** A session cookie exactly as next-auth would set it for this user id. */
-export async function sessionCookie(uid: string): Promise<string> {
-  const token = await encode({ token: { uid, sub: uid }, secret: AUTH_SECRET });
+/** A session cookie exactly as next-auth would set it at sign-in: a new server-side session, named in the token. */
+export async function sessionCookie(uid: string, sid?: string): Promise<string> {
+  const session = sid ?? (await startSession(uid));
+  const token = await encode({ token: { uid, sub: uid, sid: session }, secret: AUTH_SECRET });
   return `next-auth.session-token=${token}`;
 }
 

@@ -1,3 +1,4 @@
+import { db } from "@/db/index";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
@@ -57,7 +58,10 @@ describe("the auth wrapper: 401 without a session, 403 for the wrong role", () =
   });
 
   it("a session for a deleted user is treated as no session", async () => {
-    const res = await call(me.GET as never, await request("/api/me", { as: "00000000-0000-4000-8000-000000000000" }));
+    const gone = await createUser();
+    const req = await request("/api/me", { as: gone.id });
+    await db()("users").where({ id: gone.id }).delete();
+    const res = await call(me.GET as never, req);
     expect(res.status).toBe(401);
   });
 });

@@ -1,0 +1,64 @@
+import "server-only";
+import { db } from "@/db/index";
+import { enqueueEmail } from "@/db/outbox";
+import { findUserById, setPasswordHash } from "@/db/users";
+import { ApiError, notFound } from "@/lib/api/errors";
+import { appUrl } from "@/lib/env";
+import { hashPassword, verifyPassword } from "@/lib/auth/password";
+import { passwordProblem } from "@/lib/auth/password-strength";
+import { endEverySession } from "@/lib/auth/sessions";
+import { signInLink } from "@/lib/auth/sign-in-link";
+import { confirmAddressEmail, passwordChangedEmail } from "@/lib/mail/templates/accounts";
+import { LIMITS, consume, ensureUnder, forgive, recordFailure } from "@/lib/security/rate-limit";
+import type { ChangePasswordInput } from "@/lib/validation/auth";
+
+// A person's own account safety: a new password (which ends every session), "sign out
+// everywhere", and the confirmation link sent again.
+
+type Clock = () => Date;
+
+/**
+ * Changes the password after checking the current one (wrong guesses count against the
+ * account's sign-in limit, so a borrowed session cannot be used to guess it), then ends every
+ * session of the account, this one included, and tells the owner by e-mail.
+ */
+export async function changePassword(userId: string, input: ChangePasswordInput, clock: Clock = () => new Date()): Promise<{ sessions_ended: number }> {
+  const user = await findUserById(userId);
+  if (!user) throw notFound("That account");
+  const limits: [typeof LIMITS.signInAccount, string][] = [[LIMITS.signInAccount, user.email]];
+  if (user.password_hash) {
+    await ensureUnder(limits, clock);
+    if (!(await verifyPassword(input.current_password, user.password_hash))) {
+      await recordFailure(limits, clock);
+      throw new ApiError("invalid_input", "Your current password did not match.", { current_password: "That is not your current password." });
+    }
+    await forgive(LIMITS.signInAccount, user.email);
+  }
+  const problem = passwordProblem(input.new_password, { email: user.email, name: user.display_name });
+  if (problem) throw new ApiError("invalid_input", "Choose a stronger password.", { new_password: problem });
+  const hash = await hashPassword(input.new_password);
+  const ended = await db().transaction(async (trx) => {
+    await setPasswordHash(userId, hash, trx);
+    await enqueueEmail({ to: user.email, ...passwordChangedEmail(`${appUrl()}/sign-in`), template: "account.password_changed" }, trx);
+    return endEverySession(userId, "password_changed", clock, trx);
+  });
+  return { sessions_ended: ended };
+}
+
+/** Ends every session of the account, everywhere, this one included. */
+export async function signOutEverywhere(userId: string, clock: Clock = () => new Date()): Promise<{ sessions_ended: number }> {
+  return { sessions_ended: await endEverySession(userId, "signed_out_everywhere", clock) };
+}
+
+/** Sends the confirmation link again (limited like sign-in links). */
+export async function resendConfirmation(userId: string, clock: Clock = () => new Date()): Promise<{ status: "sent" }> {
+  const user = await findUserById(userId);
+  if (!user) throw notFound("That account");
+  if (user.email_verified_at) throw new ApiError("invalid_state", "Your e-mail address is already confirmed.");
+  await consume([[LIMITS.linkEmail, user.email]], clock);
+  await db().transaction(async (trx) => {
+    const link = await signInLink(user.email, "/profile", clock(), trx);
+    await enqueueEmail({ to: user.email, ...confirmAddressEmail(user.display_name, link), template: "account.confirm" }, trx);
+  });
+  return { status: "sent" };
+}
