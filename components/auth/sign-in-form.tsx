@@ -2,7 +2,6 @@
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
-import { signIn } from "next-auth/react";
 import { useRouter } from "next/navigation";
 import { z } from "zod";
 import { magicLinkSchema, signInSchema } from "@/lib/validation/auth";
@@ -10,8 +9,11 @@ import { Field } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { Form } from "@/components/ui/form";
+import { authPost } from "./auth-post";
 
 type SignInValues = z.infer<typeof signInSchema>;
+
+const WRONG = "That e-mail and password do not match an account. Check both and try again.";
 
 export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string; initialError?: string | null }) {
   const router = useRouter();
@@ -20,9 +22,12 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
 
   const onSubmit = form.handleSubmit(async (values) => {
     setError(null);
-    const res = await signIn("credentials", { ...values, redirect: false });
-    if (!res || res.error) {
-      setError(res?.error === "suspended" ? "This account is suspended. Contact the Duffbank team." : "That e-mail and password do not match an account. Check both and try again.");
+    const res = await authPost("callback/credentials", { ...values, callbackUrl });
+    if (!res.ok) {
+      if (res.error === "suspended") setError("This account is suspended. Contact the Duffbank team.");
+      else if (res.error === "rate_limited") setError(res.message ?? "Too many attempts. Try again in a few minutes.");
+      else if (res.error === "network") setError(res.message ?? WRONG);
+      else setError(WRONG);
       return;
     }
     router.push(callbackUrl);
@@ -53,9 +58,9 @@ export function MagicLinkForm({ callbackUrl }: { callbackUrl: string }) {
 
   const onSubmit = form.handleSubmit(async ({ email }) => {
     setError(null);
-    const res = await signIn("email", { email, callbackUrl, redirect: false });
-    if (!res || res.error) {
-      setError("We could not send a link to that address. If you are new here, join first.");
+    const res = await authPost("signin/email", { email, callbackUrl });
+    if (!res.ok) {
+      setError(res.message ?? "We could not send a link just now. Please try again.");
       return;
     }
     setSentTo(email);
@@ -67,7 +72,9 @@ export function MagicLinkForm({ callbackUrl }: { callbackUrl: string }) {
         Or with a link by e-mail
       </h2>
       {sentTo ? (
-        <Notice title="Check your inbox">We sent a sign-in link to {sentTo}. It works once, for 15 minutes.</Notice>
+        <Notice title="Check your inbox">
+          If {sentTo} has a Duffbank account, a sign-in link is on its way. It works once, for 15 minutes. New here? The e-mail says how to join.
+        </Notice>
       ) : null}
       {error ? <Notice tone="error">{error}</Notice> : null}
       <Field id="link-email" label="E-mail for the link" type="email" autoComplete="email" {...form.register("email")} error={form.formState.errors.email?.message} />

@@ -2,13 +2,14 @@ import Link from "next/link";
 import type { Metadata } from "next";
 import { SignUpForm } from "@/components/auth/sign-up-form";
 import { PageHeading } from "@/components/ui/empty-state";
+import { safeCallbackPath } from "@/lib/auth/callback-url";
 
 export const metadata: Metadata = { title: "Join" };
 
 export default async function SignUpPage({ searchParams }: { searchParams: Promise<{ callbackUrl?: string; email?: string }> }) {
   const { callbackUrl, email } = await searchParams;
   // Only paths on this site, so a crafted link cannot bounce people elsewhere.
-  const target = callbackUrl && callbackUrl.startsWith("/") && !callbackUrl.startsWith("//") ? callbackUrl : undefined;
+  const target = typeof callbackUrl === "string" ? safeCallbackPath(callbackUrl) : undefined;
   return (
     <div className="mx-auto max-w-md">
       <PageHeading
