@@ -1,5 +1,4 @@
 import type { Knex } from "knex";
-import bcrypt from "bcryptjs";
 import { MATERIALS } from "../lib/calc/facts";
 import { approximatePoint, placeOwner } from "../lib/geo/approximate";
 import { demoListings } from "./listings";
@@ -7,6 +6,7 @@ import { DEMO_PASSWORD, ORGANISATIONS, PEOPLE, TOWN } from "./town";
 import { seedId } from "./ids";
 import { seedCommunity } from "./community";
 import { seedPastPickups } from "./exchanges";
+import { hashPassword } from "../lib/auth/password";
 
 // The demo scenario. Idempotent: every row has a fixed id and is written with
 // "insert or ignore", so a second run changes nothing, and rows people made while trying
@@ -45,8 +45,8 @@ export async function seed(knex: Knex): Promise<Record<string, number>> {
     }
 
     const existing = new Set((await trx("users").select("id")).map((r: { id: string }) => r.id));
-    // One hash for every demo account; cost 10 keeps seeding quick.
-    const hash = await bcrypt.hash(DEMO_PASSWORD, 10);
+    // One hash for every demo account, at the same cost as every other (lib/auth/password.ts).
+    const hash = await hashPassword(DEMO_PASSWORD);
     for (const p of PEOPLE) {
       const id = seedId(`user:${p.key}`);
       if (!existing.has(id)) {

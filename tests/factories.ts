@@ -5,7 +5,7 @@ import type { Role } from "@/lib/auth/roles";
 let n = 0;
 
 /** A user with the given roles; a council user gets an organisation (or joins `orgId`). */
-export async function createUser(opts: { roles?: Role[]; email?: string; orgId?: string; suspended?: boolean; password_hash?: string } = {}) {
+export async function createUser(opts: { roles?: Role[]; email?: string; orgId?: string; suspended?: boolean; password_hash?: string; unconfirmed?: boolean } = {}) {
   const id = newId();
   const now = nowIso();
   const email = opts.email ?? `user${++n}-${id.slice(0, 6)}@example.test`;
@@ -14,6 +14,8 @@ export async function createUser(opts: { roles?: Role[]; email?: string; orgId?:
     email,
     display_name: `Test person ${n}`,
     password_hash: opts.password_hash ?? null,
+    // Confirmed unless asked otherwise: reserving and posting need a confirmed address.
+    email_verified_at: opts.unconfirmed ? null : now,
     unit_system: "metric",
     reminders_opt_out: false,
     suspended_at: opts.suspended ? now : null,

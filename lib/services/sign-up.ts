@@ -1,21 +1,47 @@
 import "server-only";
 import { db } from "@/db/index";
-import { findUserByEmail, insertUser, setRole } from "@/db/users";
+import { enqueueEmail } from "@/db/outbox";
+import { findUserByEmail, insertUser, normaliseEmail, setRole } from "@/db/users";
 import { ApiError } from "@/lib/api/errors";
+import { appUrl } from "@/lib/env";
+import { safeCallbackPath } from "@/lib/auth/callback-url";
 import { hashPassword } from "@/lib/auth/password";
+import { passwordProblem } from "@/lib/auth/password-strength";
+import { signInLink } from "@/lib/auth/sign-in-link";
+import { alreadyJoinedEmail, confirmAddressEmail } from "@/lib/mail/templates/accounts";
 import type { SignUpInput } from "@/lib/validation/auth";
 
-/** A new account is a gardener; giving roles are asked for on the profile. */
-export async function signUp(input: SignUpInput) {
+/** What joining answers, whoever the address belongs to. */
+export function checkInboxAnswer(email: string) {
+  return {
+    status: "check_email" as const,
+    email: normaliseEmail(email),
+    message: `Check your inbox: we sent a message to ${normaliseEmail(email)}. Follow the link in it to confirm your address and sign in.`,
+  };
+}
+
+/**
+ * Joining. The answer is the same whether or not the address already has an account, and
+ * so is the work (one password hash, one e-mail written to the outbox): a new address gets a
+ * gardener account and a link that confirms the address and signs in; a known one gets "you
+ * already have an account" and nothing changes. A new account is a gardener; giving roles
+ * are asked for on the profile.
+ */
+export async function signUp(input: SignUpInput, now: Date = new Date()) {
+  const problem = passwordProblem(input.password, { email: input.email, name: input.display_name });
+  if (problem) throw new ApiError("invalid_input", "Choose a stronger password.", { password: problem });
   const password_hash = await hashPassword(input.password);
-  return db().transaction(async (trx) => {
-    if (await findUserByEmail(input.email, trx)) {
-      throw new ApiError("conflict", "An account with that e-mail already exists. Sign in instead.", {
-        email: "An account with that e-mail already exists.",
-      });
+  const email = normaliseEmail(input.email);
+  await db().transaction(async (trx) => {
+    if (await findUserByEmail(email, trx)) {
+      await enqueueEmail({ to: email, ...alreadyJoinedEmail(`${appUrl()}/sign-in`), template: "account.already_joined" }, trx);
+      return;
     }
-    const user = await insertUser({ email: input.email, display_name: input.display_name, password_hash, unit_system: input.unit_system }, trx);
+    const user = await insertUser({ email, display_name: input.display_name, password_hash, unit_system: input.unit_system }, trx);
     await setRole(user.id, "gardener", "active", trx);
-    return { id: user.id, email: user.email, display_name: user.display_name, unit_system: user.unit_system, roles: ["gardener"] };
+    // After confirming: where they were going (a path on this site only), else a welcome.
+    const link = await signInLink(email, input.callbackUrl ? safeCallbackPath(input.callbackUrl) : "/profile?welcome=1", now, trx);
+    await enqueueEmail({ to: email, ...confirmAddressEmail(input.display_name, link), template: "account.confirm", dedupe_key: `account-confirm:${user.id}` }, trx);
   });
+  return checkInboxAnswer(email);
 }

@@ -13,8 +13,15 @@ export const emailSchema = email;
 
 export const signInSchema = z.object({
   email,
-  password: z.string({ error: "Enter your password." }).min(1, "Enter your password.").max(200),
+  // Longer than any password one can set (128), so a long guess is simply wrong.
+  password: z.string({ error: "Enter your password." }).min(1, "Enter your password.").max(1024),
 });
+
+/** A new password: 10 to 128 characters, every one of them counting (scrypt reads them all). How guessable it is is checked on the server (lib/auth/password-strength.ts). */
+export const newPasswordSchema = z
+  .string({ error: "Choose a password." })
+  .min(10, "Use at least 10 characters.")
+  .max(128, "Use at most 128 characters.");
 
 export const signUpSchema = z.object({
   email,
@@ -23,11 +30,15 @@ export const signUpSchema = z.object({
     .trim()
     .min(2, "Use at least 2 characters.")
     .max(80, "Use at most 80 characters."),
-  password: z
-    .string({ error: "Choose a password." })
-    .min(10, "Use at least 10 characters.")
-    .max(200, "Use at most 200 characters."),
+  password: newPasswordSchema,
   unit_system: z.enum(["metric", "imperial"]).default("metric"),
+  /** Where the link in the confirmation e-mail leads after signing in (a path on this site). */
+  callbackUrl: z.string().max(2048).optional(),
+});
+
+export const changePasswordSchema = z.object({
+  current_password: z.string({ error: "Enter your current password." }).max(1024).default(""),
+  new_password: newPasswordSchema,
 });
 
 export const magicLinkSchema = z.object({ email });
@@ -41,3 +52,4 @@ export const profileSchema = z.object({
 
 export type SignUpInput = z.infer<typeof signUpSchema>;
 export type ProfileInput = z.infer<typeof profileSchema>;
+export type ChangePasswordInput = z.infer<typeof changePasswordSchema>;

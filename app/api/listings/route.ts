@@ -6,6 +6,7 @@ import { browseParams, browseQuerySchema, createListingSchema } from "@/lib/vali
 import { browseListings } from "@/lib/services/browse-listings";
 import { createListing } from "@/lib/services/create-listing";
 import { getListing } from "@/lib/services/get-listing";
+import { requireVerifiedEmail } from "@/lib/auth/current-user";
 
 // GET /api/listings?lat=&lng=&radius_km=&material=&free=&q=&limit=&cursor= — what is on offer (public).
 export const GET = handle(async ({ req }) => {
@@ -15,6 +16,7 @@ export const GET = handle(async ({ req }) => {
 
 // POST /api/listings — post a listing (suppliers, growers, council staff).
 export const POST = withAuth(async ({ req, user }) => {
+  requireVerifiedEmail(user);
   const input = parseInput(createListingSchema, await readJson(req));
   const { id } = await createListing(user, input);
   return NextResponse.json({ listing: await getListing(id, user.id) }, { status: 201 });

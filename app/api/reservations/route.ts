@@ -4,12 +4,14 @@ import { parseInput } from "@/lib/api/errors";
 import { reserveListings } from "@/lib/services/reserve-listing";
 import { getReservations, listReservations } from "@/lib/services/list-reservations";
 import { reserveManySchema, reserveOneSchema } from "@/lib/validation/reservations";
+import { requireVerifiedEmail } from "@/lib/auth/current-user";
 
 // POST /api/reservations — hold a quantity of a listing (or, with "items", several at once,
 // all or nothing) for the signed-in gardener. A priced or deposit listing answers with the
 // checkout_url of the Stripe page that completes the reservation. A live culture takes
 // "fulfilment" (pickup or post) and, for post, "ship_to".
 export const POST = withAuth(async ({ req, user }) => {
+  requireVerifiedEmail(user);
   const body = await readJson(req);
   const many = typeof body === "object" && body !== null && "items" in body;
   const input = many ? parseInput(reserveManySchema, body) : parseInput(reserveOneSchema, body);

@@ -3,10 +3,13 @@ import { handle, readJson } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { signUpSchema } from "@/lib/validation/auth";
 import { signUp } from "@/lib/services/sign-up";
+import { LIMITS, clientAddress, consume } from "@/lib/security/rate-limit";
 
-// POST /api/users — create an account (a gardener); sign in afterwards.
+// POST /api/users — join. Always 202 with the same answer: whether the address already had
+// an account is told only in the e-mail sent to it (a confirmation link, or "you already have
+// an account"). Limited per client address.
 export const POST = handle(async ({ req }) => {
   const input = parseInput(signUpSchema, await readJson(req));
-  const user = await signUp(input);
-  return NextResponse.json({ user }, { status: 201 });
+  await consume([[LIMITS.signUpAddress, clientAddress(req.headers)]]);
+  return NextResponse.json(await signUp(input), { status: 202 });
 });

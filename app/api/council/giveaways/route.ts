@@ -5,6 +5,7 @@ import { createGiveawaySchema } from "@/lib/validation/giveaways";
 import { councilOf } from "@/lib/services/council-access";
 import { createGiveaway } from "@/lib/services/create-giveaway";
 import { councilDays } from "@/lib/services/council-days";
+import { requireVerifiedEmail } from "@/lib/auth/current-user";
 
 // GET /api/council/giveaways — my council's days, newest first.
 export const GET = withAuth(async ({ user }) => {
@@ -13,6 +14,7 @@ export const GET = withAuth(async ({ user }) => {
 
 // POST /api/council/giveaways — a new giveaway day with its slots.
 export const POST = withAuth(async ({ req, user }) => {
+  requireVerifiedEmail(user);
   const ctx = councilOf(user);
   const input = parseInput(createGiveawaySchema, await readJson(req));
   return NextResponse.json({ giveaway: await createGiveaway(ctx, input) }, { status: 201 });

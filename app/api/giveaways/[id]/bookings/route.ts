@@ -3,9 +3,11 @@ import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { bookingSchema } from "@/lib/validation/giveaways";
 import { bookGiveaway } from "@/lib/services/book-giveaway";
+import { requireVerifiedEmail } from "@/lib/auth/current-user";
 
 // POST /api/giveaways/:id/bookings — book a slot for my household (any signed-in account).
 export const POST = withAuth<{ id: string }>(async ({ req, params, user }) => {
+  requireVerifiedEmail(user);
   const input = parseInput(bookingSchema, await readJson(req));
   const b = await bookGiveaway(user.id, params.id, input);
   // A day with a no-show deposit: the place is taken, and checkout_url is the card page that
