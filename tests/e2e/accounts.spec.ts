@@ -1,5 +1,5 @@
-import { expect, test, type Page } from "@playwright/test";
-import { DEMO, DEMO_PASSWORD, inboxUrl, storageState, type DemoRole } from "./roles";
+import { expect, firstLink, mailTo, test, type Page } from "./fixtures";
+import { DEMO, DEMO_PASSWORD, storageState, type DemoRole } from "./roles";
 
 const mainNav = (page: Page) => page.locator("header nav[aria-label='Main']").last();
 
@@ -16,14 +16,20 @@ test.describe("demo accounts", () => {
   }
 });
 
-test("a visitor signs up, signs out, signs back in and sees a gardener's navigation", async ({ page }) => {
+test("a visitor signs up, confirms the address from the inbox, signs out, signs back in and sees a gardener's navigation", async ({ page }) => {
   const email = `new-${Date.now()}@example.test`;
   await page.goto("/sign-up");
   await page.getByLabel("Your name").fill("Juniper Quell");
   await page.getByLabel("E-mail").fill(email);
   await page.getByLabel("Password", { exact: true }).fill("a sturdy password");
   await page.getByRole("button", { name: "Create my account" }).click();
+  // The page says the same for any address; the e-mail carries the link.
+  await expect(page.getByText("Check your inbox")).toBeVisible();
+  const mail = await mailTo(page.request, email, "Confirm your e-mail address");
+  await page.goto(firstLink(mail));
   await expect(page.getByRole("heading", { name: "Your profile" })).toBeVisible();
+  await expect(page.getByText("Welcome to Duffbank")).toBeVisible();
+  await expect(page.getByText("Confirm your e-mail address")).toHaveCount(0);
   await expect(mainNav(page).getByRole("link", { name: "My beds" })).toBeVisible();
   await expect(mainNav(page).getByRole("link", { name: "Council desk" })).toHaveCount(0);
 
@@ -48,23 +54,14 @@ test("a wrong password gives a clear error and no session", async ({ page }) => 
   await expect(page).toHaveURL(/\/sign-in\?callbackUrl=%2Fbeds/);
 });
 
-test("signing in with a link from the local inbox", async ({ page, request }) => {
+test("signing in with a link from the local inbox", async ({ page }) => {
   await page.goto("/sign-in");
   await page.getByLabel("E-mail for the link").fill(DEMO.supplier.email);
   await page.getByRole("button", { name: "E-mail me a link" }).click();
   await expect(page.getByText("Check your inbox")).toBeVisible();
 
-  let link: string | undefined;
-  await expect
-    .poll(async () => {
-      const res = await request.get(`${inboxUrl()}/messages.json?to=${encodeURIComponent(DEMO.supplier.email)}`);
-      const { messages } = await res.json();
-      const last = messages.filter((m: { subject: string }) => m.subject.includes("sign-in link")).pop();
-      link = last?.text.match(/https?:\/\/\S+/)?.[0];
-      return link;
-    })
-    .toBeTruthy();
-  await page.goto(link!);
+  const link = firstLink(await mailTo(page.request, DEMO.supplier.email, "sign-in link"));
+  await page.goto(link);
   await expect(mainNav(page).getByRole("link", { name: "What I'm giving" })).toBeVisible();
   await expect(mainNav(page).getByRole("link", { name: "Rowan Pike" })).toBeVisible();
 });

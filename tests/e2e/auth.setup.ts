@@ -1,4 +1,4 @@
-import { expect, test as setup } from "@playwright/test";
+import { expect, test as setup } from "./fixtures";
 import { DEMO, DEMO_PASSWORD, storageState, type DemoRole } from "./roles";
 
 // One signed-in browser state per demo role, reused by the journeys.

@@ -1,7 +1,7 @@
 import fs from "node:fs";
 import path from "node:path";
-import { expect, test, type APIRequestContext } from "@playwright/test";
-import { DEMO, inboxUrl, storageState } from "./roles";
+import { expect, firstLink, mailTo, test } from "./fixtures";
+import { DEMO, storageState } from "./roles";
 import { seedId } from "../../seeds/ids";
 import { payOnCheckoutPage } from "./exchange";
 
@@ -13,21 +13,6 @@ function daysFromNow(n: number): string {
   return d.toISOString().slice(0, 10);
 }
 
-async function mailTo(request: APIRequestContext, to: string, subjectPart: string) {
-  let found: { subject: string; text: string } | undefined;
-  await expect
-    .poll(
-      async () => {
-        const res = await request.get(`${inboxUrl()}/messages.json?to=${encodeURIComponent(to)}`);
-        const { messages } = await res.json();
-        found = messages.filter((m: { subject: string }) => m.subject.includes(subjectPart)).pop();
-        return !!found;
-      },
-      { timeout: 30_000 },
-    )
-    .toBe(true);
-  return found!;
-}
 
 test("council staff create a day with slots, a gardener books, staff check them in and download the CSV", async ({ browser }) => {
   const title = `Leaf morning ${Date.now().toString(36)}`;
@@ -236,6 +221,9 @@ test("the council owner invites a colleague who joins first, accepts, and is rem
   await n.getByLabel("Your name").fill("Orla Penhallow");
   await n.getByLabel("Password", { exact: true }).fill("a sturdy password");
   await n.getByRole("button", { name: "Create my account" }).click();
+  await expect(n.getByText("Check your inbox")).toBeVisible();
+  // The confirmation link signs the newcomer in and brings them back to the invitation.
+  await n.goto(firstLink(await mailTo(n.request, email, "Confirm your e-mail address")));
   await n.getByRole("button", { name: "Join Fernhollow Town Council's staff" }).click();
   await expect(n.getByRole("heading", { name: "Fernhollow Town Council" })).toBeVisible();
   await expect(n.getByText("Only your council's account owner can invite or remove staff.")).toBeVisible();

@@ -3,7 +3,7 @@
 // arrives; the grower accepts, packs and ships it from the dashboard; the shipped e-mail
 // carries the carrier and tracking; the buyer marks it arrived.
 import path from "node:path";
-import { expect, test, type Page } from "@playwright/test";
+import { expect, test, type Page } from "./fixtures";
 import { latestMail, payOnCheckoutPage, sql } from "./exchange";
 import { storageState } from "./roles";
 

@@ -1,7 +1,7 @@
 import path from "node:path";
 import Database from "better-sqlite3";
 import sharp from "sharp";
-import { expect, test, type Page } from "@playwright/test";
+import { expect, test, type Page } from "./fixtures";
 import { storageState } from "./roles";
 
 // The supply side in a real browser: a supplier posts leaves with two photos (upload

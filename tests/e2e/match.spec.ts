@@ -1,5 +1,5 @@
 import path from "node:path";
-import { expect, test, type Page } from "@playwright/test";
+import { expect, test, type Page } from "./fixtures";
 import { seedId } from "../../seeds/ids";
 import { storageState } from "./roles";
 

@@ -1,6 +1,6 @@
 import fs from "node:fs";
 import path from "node:path";
-import { expect, test } from "@playwright/test";
+import { expect, test } from "./fixtures";
 import { DEMO, inboxUrl, storageState } from "./roles";
 
 test("a visitor plans a bed and switches units", async ({ page }) => {

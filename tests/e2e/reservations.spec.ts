@@ -3,7 +3,7 @@
 // declined card that runs out; a no-show that keeps the deposit; and the hold under load.
 import { execFileSync } from "node:child_process";
 import { randomUUID } from "node:crypto";
-import { expect, test, type Browser, type Page } from "@playwright/test";
+import { expect, test, type Browser, type Page } from "./fixtures";
 import { latestMail, payOnCheckoutPage, run, sql } from "./exchange";
 import { DEMO_PASSWORD, storageState } from "./roles";
 
