@@ -3,9 +3,9 @@
 // and the Cloudinary-compatible upload and delivery server. Ports come from the
 // environment so tests and a second checkout can pick others.
 import path from "node:path";
-import { checkStartup } from "@/lib/env";
+import { checkStartup, secret } from "@/lib/env";
 import { startSmtpFake } from "./smtp/server";
-import { DEFAULT_WEBHOOK_SECRET, startStripeFake } from "./stripe/server";
+import { startStripeFake } from "./stripe/server";
 import { stripeDataFile } from "./stripe/state";
 import { startCloudinaryFake } from "./cloudinary/server";
 import { parseFakeEnv } from "./cloudinary/config";
@@ -23,7 +23,7 @@ async function main() {
   const stripe = await startStripeFake({
     port: Number(process.env.STRIPE_FAKE_PORT ?? 12111),
     webhookUrl,
-    webhookSecret: process.env.STRIPE_WEBHOOK_SECRET ?? DEFAULT_WEBHOOK_SECRET,
+    webhookSecret: secret("STRIPE_WEBHOOK_SECRET"),
     publicBaseUrl: process.env.STRIPE_FAKE_PUBLIC_URL,
     // Kept across restarts, beside the database whose rows name its records.
     dataFile: stripeDataFile(),

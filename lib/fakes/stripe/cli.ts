@@ -1,5 +1,6 @@
 // Starts the local Stripe fake for development: `npx tsx lib/fakes/stripe/cli.ts`.
-import { DEFAULT_WEBHOOK_SECRET, startStripeFake } from "./server";
+import { startStripeFake } from "./server";
+import { secret } from "@/lib/env";
 
 async function main() {
   const port = Number(process.env.STRIPE_FAKE_PORT ?? 12111);
@@ -7,7 +8,7 @@ async function main() {
   const fake = await startStripeFake({
     port,
     webhookUrl,
-    webhookSecret: process.env.STRIPE_WEBHOOK_SECRET ?? DEFAULT_WEBHOOK_SECRET,
+    webhookSecret: secret("STRIPE_WEBHOOK_SECRET"),
     publicBaseUrl: process.env.STRIPE_FAKE_PUBLIC_URL,
     dataFile: process.env.STRIPE_FAKE_DATA || undefined,
     log: (line) => console.log(`[stripe-fake] ${line}`),

@@ -10,6 +10,7 @@ import { PageHeading, EmptyState } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button-class";
 import { Notice } from "@/components/ui/notice";
 import { ReserveForm } from "@/components/reservations/reserve-form";
+import { ConfirmEmailNotice } from "@/components/profile/account-security";
 
 export const metadata: Metadata = { title: "Reserve" };
 
@@ -40,6 +41,8 @@ export default async function ReservePage({ params }: { params: Promise<{ id: st
       <PageHeading title={`Reserve: ${offer.title}`} lead={lead} />
       {offer.owner_id === user.id ? (
         <Notice title="This is your own listing">There is nothing to reserve here; requests from gardeners appear under Requests.</Notice>
+      ) : !user.email_verified ? (
+        <ConfirmEmailNotice email={user.email} />
       ) : offer.status === "gone" || (offer.status === "active" && offer.available <= 0) ? (
         <EmptyState title="All of it is spoken for" action={back}>Holds that are not paid or accepted in time run out, so check back later.</EmptyState>
       ) : offer.status === "active" && offer.reservable_from ? (
