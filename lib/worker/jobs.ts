@@ -28,6 +28,6 @@ export const jobs: Job[] = [
   // Owed Stripe calls, then the lost-webhook net: checkouts still open after a few minutes
   // are checked against Stripe's record and brought up to it.
   // Ended sessions and spent rate-limit windows are kept a while for support, then dropped.
-  { name: "prune-security-records", everyMs: 60 * 60_000, run: (clock) => pruneSecurityRecords(clock) },
+  { name: "prune-security-records", everyMs: 60 * 60_000, run: () => pruneSecurityRecords() },
   { name: "settle-payments", everyMs: 5_000, run: async (clock) => ({ ...(await settlePayments(clock)), ...(await recoverOpenPayments(clock)) }) },
 ];

@@ -24,7 +24,7 @@ test("a visitor signs up, confirms the address from the inbox, signs out, signs 
   await page.getByLabel("Password", { exact: true }).fill("a sturdy password");
   await page.getByRole("button", { name: "Create my account" }).click();
   // The page says the same for any address; the e-mail carries the link.
-  await expect(page.getByText("Check your inbox")).toBeVisible();
+  await expect(page.getByText("Check your inbox", { exact: true })).toBeVisible();
   const mail = await mailTo(page.request, email, "Confirm your e-mail address");
   await page.goto(firstLink(mail));
   await expect(page.getByRole("heading", { name: "Your profile" })).toBeVisible();
@@ -58,7 +58,7 @@ test("signing in with a link from the local inbox", async ({ page }) => {
   await page.goto("/sign-in");
   await page.getByLabel("E-mail for the link").fill(DEMO.supplier.email);
   await page.getByRole("button", { name: "E-mail me a link" }).click();
-  await expect(page.getByText("Check your inbox")).toBeVisible();
+  await expect(page.getByText("Check your inbox", { exact: true })).toBeVisible();
 
   const link = firstLink(await mailTo(page.request, DEMO.supplier.email, "sign-in link"));
   await page.goto(link);

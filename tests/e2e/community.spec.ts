@@ -221,7 +221,7 @@ test("the council owner invites a colleague who joins first, accepts, and is rem
   await n.getByLabel("Your name").fill("Orla Penhallow");
   await n.getByLabel("Password", { exact: true }).fill("a sturdy password");
   await n.getByRole("button", { name: "Create my account" }).click();
-  await expect(n.getByText("Check your inbox")).toBeVisible();
+  await expect(n.getByText("Check your inbox", { exact: true })).toBeVisible();
   // The confirmation link signs the newcomer in and brings them back to the invitation.
   await n.goto(firstLink(await mailTo(n.request, email, "Confirm your e-mail address")));
   await n.getByRole("button", { name: "Join Fernhollow Town Council's staff" }).click();

@@ -119,3 +119,20 @@ describe("changing the password", () => {
     expect(await db()("email_outbox").where({ to_address: user.email, template: "account.password_changed" })).toHaveLength(1);
   });
 });
+
+describe("tidying up", () => {
+  it("drops sessions a week after they ended or ran out, by the wall clock, and keeps the rest", async () => {
+    const { jobs } = await import("@/lib/worker/jobs");
+    const prune = jobs.find((j) => j.name === "prune-security-records")!;
+    const user = await createUser();
+    const going = await signIn(user);
+    const ended = await signIn(user);
+    const old = new Date(Date.now() - 8 * 86_400_000).toISOString();
+    await db()("sessions").where({ id: ended.token.sid as string }).update({ ended_at: old, ended_reason: "sign_out" });
+    // A worker clock moved far ahead (as the end-to-end run does) must not reach the sessions.
+    const farAhead = () => new Date(Date.now() + 400 * 86_400_000);
+    await prune.run(farAhead);
+    expect(await db()("sessions").where({ id: ended.token.sid as string })).toHaveLength(0);
+    expect(await getMe(going.cookie)).toBe(200);
+  });
+});
