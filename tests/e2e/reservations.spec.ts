@@ -163,7 +163,7 @@ test("a declined card holds the bales only until the hold runs out", async ({ br
   // machine (not a web route), the same job the running worker does every 15 seconds.
   const later = new Date(Date.now() + 31 * 60_000).toISOString();
   execFileSync(process.execPath, ["--conditions=react-server", "--import", "tsx", "lib/worker/run.ts", "--once", "expire-holds"], {
-    env: { ...process.env, DUFFBANK_CLOCK: later, DUFFBANK_CLOCK_FILE: "", NODE_ENV: "production" },
+    env: { ...process.env, DUFFBANK_CLOCK: later, DUFFBANK_CLOCK_FILE: "", NODE_ENV: "production", DUFFBANK_DEMO: "1" },
     stdio: "pipe",
   });
   expect(sql("select quantity_held from listings where id = ?", straw.id)[0].quantity_held).toBe(heldBefore);
