@@ -63,6 +63,7 @@ export function proxy(req: NextRequest): NextResponse {
 }
 
 export const config = {
-  // Hashed build files never change and carry no page; everything else passes through here.
-  matcher: ["/((?!_next/static/).*)"],
+  // Next.js's own files (hashed build output, and next dev's live-reload socket) carry no page
+  // and take no writes; everything else passes through here.
+  matcher: ["/((?!_next/).*)"],
 };
