@@ -10,6 +10,7 @@ import * as cultureOrders from "../migrations/20261203_009_culture_orders";
 import * as giveawayDeposits from "../migrations/20261204_010_giveaway_deposits";
 import * as outboxClaims from "../migrations/20261205_011_outbox_claims";
 import * as sessionsAndLimits from "../migrations/20261206_012_sessions_and_limits";
+import * as operations from "../migrations/20261207_013_operations";
 
 // Migrations are listed here rather than found on disk so that the same list runs under
 // the CLI script, Vitest and the bundled Next.js server alike. Add new ones at the end.
@@ -25,6 +26,7 @@ const migrations: Record<string, Knex.Migration> = {
   "20261204_010_giveaway_deposits": giveawayDeposits,
   "20261205_011_outbox_claims": outboxClaims,
   "20261206_012_sessions_and_limits": sessionsAndLimits,
+  "20261207_013_operations": operations,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -26,6 +26,7 @@ export async function insertPayment(
     pending_action: null,
     action_attempts: 0,
     next_action_at: null,
+    waiting_for: null,
     created_at: now,
     updated_at: now,
     ...row,

@@ -53,6 +53,12 @@ export interface OutboxRow {
   sent_at: string | null;
   /** Set while one worker is sending it; others leave it alone until then. */
   claimed_until: string | null;
+  /** The worker holding the claim, so it can let go of its claims when it stops. */
+  claimed_by: string | null;
+  /** The id the SMTP server accepted the message under: once set, it is never sent again. */
+  smtp_message_id: string | null;
+  /** "smtp" while a retry waits for the mail server to answer again. */
+  waiting_for: "smtp" | null;
 }
 
 export interface AuditRow {
@@ -176,9 +182,12 @@ export interface PaymentRow {
   currency: string;
   idempotency_key: string;
   last_error: string | null;
-  pending_action: "expire" | "release" | "capture" | "refund" | null;
+  // "open": the checkout could not be made when it was asked for; the worker makes it.
+  pending_action: "open" | "expire" | "release" | "capture" | "refund" | null;
   action_attempts: number;
   next_action_at: string | null;
+  /** "stripe" while the owed call waits for Stripe to answer again. */
+  waiting_for: "stripe" | null;
   created_at: string;
   updated_at: string;
 }
