@@ -32,12 +32,15 @@ export async function enqueueEmail(mail: NewEmail, q: Db = db()): Promise<void> 
     .ignore();
 }
 
+/** Pending messages whose time has come and that no live claim holds, oldest first. */
 export async function dueEmails(now: string, limit = 20, q: Db = db()): Promise<OutboxRow[]> {
   return q<OutboxRow>("email_outbox")
     .select("*")
     .where("status", "pending")
     .andWhere("next_attempt_at", "<=", now)
     .andWhere((w) => w.whereNull("claimed_until").orWhere("claimed_until", "<=", now))
+    // Accepted by the SMTP server already: only its mark is missing, and it is never sent again.
+    .whereNull("smtp_message_id")
     .orderBy("next_attempt_at")
     .limit(limit);
 }
@@ -47,21 +50,80 @@ export async function dueEmails(now: string, limit = 20, q: Db = db()): Promise<
  * two workers that read the same row only one changes it, and only that one may send it.
  * A claim that has run out (its worker died mid-send) can be taken over.
  */
-export async function claimEmail(id: string, now: string, until: string, q: Db = db()): Promise<boolean> {
+export async function claimEmail(id: string, now: string, until: string, workerId: string, q: Db = db()): Promise<boolean> {
   const changed = await q("email_outbox")
     .where({ id, status: "pending" })
+    .whereNull("smtp_message_id")
     .andWhere("next_attempt_at", "<=", now)
     .andWhere((w) => w.whereNull("claimed_until").orWhere("claimed_until", "<=", now))
-    .update({ claimed_until: until });
+    .update({ claimed_until: until, claimed_by: workerId });
   return changed === 1;
 }
 
-export async function markSent(id: string, now: string, q: Db = db()): Promise<void> {
-  await q("email_outbox").where({ id, status: "pending" }).update({ status: "sent", sent_at: now, last_error: null, claimed_until: null });
+/** Records that the SMTP server accepted the message, under the id it gave; the claim ends. */
+export async function markSent(id: string, now: string, smtpMessageId: string, q: Db = db()): Promise<void> {
+  await q("email_outbox")
+    .where({ id, status: "pending" })
+    .update({ status: "sent", sent_at: now, smtp_message_id: smtpMessageId.slice(0, 300), last_error: null, claimed_until: null, claimed_by: null, waiting_for: null });
 }
 
-export async function markFailedAttempt(id: string, attempts: number, nextAt: string, error: string, giveUp: boolean, q: Db = db()) {
+export async function markFailedAttempt(
+  id: string,
+  failure: { attempts: number; nextAt: string; error: string; giveUp: boolean; waitingFor: "smtp" | null },
+  q: Db = db(),
+) {
   await q("email_outbox")
     .where({ id })
-    .update({ attempts, next_attempt_at: nextAt, last_error: error.slice(0, 500), status: giveUp ? "failed" : "pending", claimed_until: null });
+    .update({
+      attempts: failure.attempts,
+      next_attempt_at: failure.nextAt,
+      last_error: failure.error.slice(0, 500),
+      status: failure.giveUp ? "failed" : "pending",
+      claimed_until: null,
+      claimed_by: null,
+      waiting_for: failure.waitingFor,
+    });
+}
+
+/**
+ * The mail server is not answering: every message due now waits until `until` (or until the
+ * server answers again, whichever is first) without spending one of its own tries.
+ */
+export async function holdForMailServer(now: string, until: string, q: Db = db()): Promise<number> {
+  return q("email_outbox")
+    .where("status", "pending")
+    .andWhere("next_attempt_at", "<=", now)
+    .andWhere((w) => w.whereNull("claimed_until").orWhere("claimed_until", "<=", now))
+    .whereNull("smtp_message_id")
+    .update({ next_attempt_at: until, waiting_for: "smtp" });
+}
+
+/** Whether any message is waiting for the mail server to come back. */
+export async function anyWaitingForMailServer(q: Db = db()): Promise<boolean> {
+  return !!(await q("email_outbox").first("id").where({ status: "pending", waiting_for: "smtp" }));
+}
+
+/** The mail server answers again: what waited for it is due now, whatever its backoff said. */
+export async function wakeWaitingForMailServer(now: string, q: Db = db()): Promise<number> {
+  return q("email_outbox").where({ status: "pending", waiting_for: "smtp" }).update({ next_attempt_at: now, waiting_for: null });
+}
+
+/** A stopping worker lets go of the claims it holds, except on messages it is still sending. */
+export async function releaseClaims(workerId: string, keep: string[] = [], q: Db = db()): Promise<number> {
+  return q("email_outbox")
+    .where({ claimed_by: workerId, status: "pending" })
+    .whereNull("smtp_message_id")
+    .whereNotIn("id", keep)
+    .update({ claimed_until: null, claimed_by: null });
+}
+
+/** Figures for readiness: what waits to go out and how long the oldest has waited. */
+export async function outboxFigures(now: string, q: Db = db()): Promise<{ pending: number; due: number; failed: number; oldest_due_at: string | null }> {
+  const [pending, due, failed] = await Promise.all([
+    q("email_outbox").where({ status: "pending" }).count<{ n: number | string }[]>({ n: "*" }),
+    q("email_outbox").where({ status: "pending" }).andWhere((w) => w.where("next_attempt_at", "<=", now).orWhere("attempts", ">", 0).orWhereNotNull("waiting_for")).min<{ at: string | null }[]>({ at: "created_at" }).count({ n: "*" }),
+    q("email_outbox").where({ status: "failed" }).count<{ n: number | string }[]>({ n: "*" }),
+  ]);
+  const row = due[0] as unknown as { at: string | null; n: number | string };
+  return { pending: Number(pending[0].n), due: Number(row.n), failed: Number(failed[0].n), oldest_due_at: row.at ? new Date(row.at).toISOString() : null };
 }

@@ -1,5 +1,13 @@
-import { claimEmail, dueEmails, markFailedAttempt, markSent } from "@/db/outbox";
-import { sendMail } from "./transport";
+import {
+  anyWaitingForMailServer,
+  claimEmail,
+  dueEmails,
+  holdForMailServer,
+  markFailedAttempt,
+  markSent,
+  wakeWaitingForMailServer,
+} from "@/db/outbox";
+import { mailFailure, probeMail, sendMail } from "./transport";
 
 // Backoff for a message the SMTP server would not take: 30 s, 1, 2, 4 … minutes, capped
 // at an hour, for up to two days of tries, so an outage delays mail but does not lose it.
@@ -7,36 +15,95 @@ const BASE_DELAY_MS = 30_000;
 const MAX_DELAY_MS = 60 * 60_000;
 export const MAX_ATTEMPTS = 60;
 // How long a worker's claim on a message lasts. It only runs out if that worker died between
-// claiming and recording the outcome; it is longer than nodemailer waits on a silent
-// connection (10 minutes) before giving up, so a slow send is not taken over and sent twice.
-export const CLAIM_MS = 15 * 60_000;
+// claiming and recording the outcome (a worker that stops on purpose lets go of its claims):
+// longer than one send can take with the transport's timeouts, short enough that a message
+// a dead worker held goes out a couple of minutes later.
+export const CLAIM_MS = 2 * 60_000;
 
 export function retryDelayMs(attempts: number): number {
   return Math.min(MAX_DELAY_MS, BASE_DELAY_MS * 2 ** Math.max(0, attempts - 1));
 }
 
+export interface DeliverOptions {
+  /** Set when the worker is stopping: no new message is claimed. */
+  signal?: AbortSignal;
+  /** Names this worker on its claims, so it can release them at shutdown. */
+  workerId?: string;
+}
+
+// Messages the SMTP server accepted whose "sent" mark could not be written (the database
+// was busy or read-only for a moment). They are marked at the start of the next run, and
+// never handed to SMTP again: the mark is retried, not the send.
+const unmarked = new Map<string, { messageId: string; acceptedAt: string }>();
+// The message being handed to the SMTP server right now, if any.
+let sending: string | null = null;
+
+/**
+ * Messages this process has handed to SMTP and not yet recorded as sent: a stopping worker
+ * keeps their claims (its own mark, or the claim running out, settles them) rather than let
+ * another worker send them a second time.
+ */
+export function messagesInFlight(): string[] {
+  return [...unmarked.keys(), ...(sending ? [sending] : [])];
+}
+
+/** Writes the marks still owed; returns how many are still owed afterwards. */
+export async function markAccepted(): Promise<number> {
+  for (const [id, { messageId, acceptedAt }] of unmarked) {
+    try {
+      await markSent(id, acceptedAt, messageId);
+      unmarked.delete(id);
+    } catch (err) {
+      console.error(`[outbox] message ${id} was accepted by the mail server; marking it sent failed again:`, (err as Error).message);
+      break; // the database is still not taking writes; the next run tries again
+    }
+  }
+  return unmarked.size;
+}
+
 /**
  * Sends every due message once; returns how many went out. Each message is claimed first, so
  * two workers running at once never both send it: the one whose claim failed skips it.
+ * When the mail server cannot be reached (or never answers), the rest of the batch is not
+ * tried one slow timeout after another: everything due waits for the server, and the first
+ * run that finds it answering again sends it all, whatever each message's backoff said.
  */
-export async function deliverOutbox(clock: () => Date = () => new Date()): Promise<{ sent: number; failed: number }> {
-  const now = clock();
-  const due = await dueEmails(now.toISOString());
+export async function deliverOutbox(clock: () => Date = () => new Date(), opts: DeliverOptions = {}): Promise<{ sent: number; failed: number }> {
+  const workerId = opts.workerId ?? `process:${process.pid}`;
   let sent = 0;
   let failed = 0;
-  for (const mail of due) {
+  if ((await markAccepted()) > 0) return { sent, failed };
+  const start = clock();
+  if (await anyWaitingForMailServer()) {
+    if (!(await probeMail()).ok) return { sent, failed };
+    await wakeWaitingForMailServer(start.toISOString());
+  }
+  for (const mail of await dueEmails(start.toISOString())) {
+    if (opts.signal?.aborted) break;
     const at = clock();
-    if (!(await claimEmail(mail.id, at.toISOString(), new Date(at.getTime() + CLAIM_MS).toISOString()))) continue; // another worker has it
+    if (!(await claimEmail(mail.id, at.toISOString(), new Date(at.getTime() + CLAIM_MS).toISOString(), workerId))) continue; // another worker has it
+    let messageId: string;
+    sending = mail.id;
     try {
-      await sendMail({ to: mail.to_address, subject: mail.subject, text: mail.text_body, html: mail.html_body });
-      await markSent(mail.id, clock().toISOString());
-      sent++;
+      messageId = await sendMail({ to: mail.to_address, subject: mail.subject, text: mail.text_body, html: mail.html_body });
     } catch (err) {
-      const attempts = mail.attempts + 1;
-      const next = new Date(now.getTime() + retryDelayMs(attempts)).toISOString();
-      await markFailedAttempt(mail.id, attempts, next, (err as Error).message, attempts >= MAX_ATTEMPTS);
+      sending = null;
       failed++;
+      const attempts = mail.attempts + 1;
+      const { service, permanent } = mailFailure(err);
+      const nextAt = new Date(at.getTime() + retryDelayMs(attempts)).toISOString();
+      await markFailedAttempt(mail.id, { attempts, nextAt, error: (err as Error).message, giveUp: permanent || attempts >= MAX_ATTEMPTS, waitingFor: service ? "smtp" : null });
+      if (service) {
+        probeMail.reset();
+        await holdForMailServer(at.toISOString(), nextAt);
+        break;
+      }
+      continue;
     }
+    sent++;
+    unmarked.set(mail.id, { messageId, acceptedAt: clock().toISOString() });
+    sending = null;
+    if ((await markAccepted()) > 0) break; // sent, but the database will not record it: stop here
   }
   return { sent, failed };
 }
