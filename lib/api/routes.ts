@@ -49,6 +49,15 @@ export interface RouteDoc {
 // each new route: the OpenAPI test fails for a route file missing here.
 export const API_ROUTES: RouteDoc[] = [
   { method: "get", path: "/api/health", summary: "The app and its database answer", tag: "system", auth: "public", response: z.object({ ok: z.literal(true) }), errors: [500] },
+  {
+    method: "get",
+    path: "/api/health/ready",
+    summary: "Whether this process can serve everything now: the database takes a write, a worker beat within a minute, the outbox is moving, and the mail server, Stripe and Cloudinary answer",
+    tag: "system",
+    auth: "public",
+    response: z.object({ ok: z.boolean(), checks: z.record(z.string(), z.looseObject({ ok: z.boolean() })) }),
+    responseDescription: "Ready: every check ok. Not ready is a 503 with the same shape, ok: false and the failing checks ok: false",
+  },
   { method: "get", path: "/api/openapi.json", summary: "This document", tag: "system", auth: "public" },
   { method: "post", path: "/api/users", summary: "Join: the same answer whether or not the address has an account; the e-mail sent says which (a confirmation link, or how to sign in). Limited per client address", tag: "accounts", auth: "public", body: signUpSchema, status: 202, errors: [400, 413, 415, 422, 429] },
   { method: "post", path: "/api/me/password", summary: "Change the password (checks the current one); ends every session of the account", tag: "accounts", auth: "signed-in", body: changePasswordSchema, errors: [400, 401, 415, 422, 429] },

@@ -3,6 +3,11 @@ import "server-only";
 import "./cloudinary-env";
 import { v2 as cloudinary } from "cloudinary";
 import { ACCEPTED_IMAGE_MIME_TYPES, MAX_UPLOAD_BYTES } from "./image-limits";
+import { PROBE_TIMEOUT_MS, cachedProbe } from "@/lib/health/cached-probe";
+
+// The SDK waits a minute for an answer by default; a request that calls Cloudinary gives up
+// after a few seconds instead (a photo removal then leaves a stray file, which costs little).
+export const CLOUDINARY_TIMEOUT_MS = 5_000;
 
 // The official SDK, configured from CLOUDINARY_URL alone: against the local fake its
 // upload_prefix points at the fake; against Cloudinary itself there is none.
@@ -77,8 +82,13 @@ export function verifyUploadResult(publicId: string, version: number, signature:
 /** Removes an uploaded image. Best effort: a photo row is already gone, a stray file costs little. */
 export async function destroyUpload(publicId: string): Promise<void> {
   try {
-    await cloudinary.uploader.destroy(publicId, { resource_type: "image", invalidate: true });
+    // `timeout` is read by the SDK's uploader (lib/uploader.js) but missing from its types.
+    const options = { resource_type: "image" as const, invalidate: true, timeout: CLOUDINARY_TIMEOUT_MS };
+    await cloudinary.uploader.destroy(publicId, options);
   } catch (err) {
     console.warn("[cloudinary] could not remove", publicId, (err as Error)?.message ?? err);
   }
 }
+
+/** Whether the image service answers (its Admin API ping, with this account's key), asked at most every few seconds. */
+export const probeMedia = cachedProbe(() => cloudinary.api.ping({ timeout: PROBE_TIMEOUT_MS }));

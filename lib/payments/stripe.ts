@@ -1,6 +1,7 @@
 import "server-only";
 import Stripe from "stripe";
 import { DEMO_SECRETS, secret } from "@/lib/env";
+import { cachedProbe } from "@/lib/health/cached-probe";
 
 // The official Stripe SDK. With the local test key (the default) it talks to the
 // Stripe-compatible fake in lib/fakes/stripe; with a real test key and no STRIPE_API_HOST
@@ -37,10 +38,20 @@ export function stripeConfig(env: Record<string, string | undefined> = process.e
   return { key, host, port, protocol };
 }
 
+// A request that calls Stripe waits at most this long for it (STRIPE_TIMEOUT_MS overrides),
+// and does not retry: a page is answered in seconds even when Stripe is unreachable or takes
+// the connection and never answers, and what could not be done is retried by the worker,
+// with the same idempotency key, on its own schedule.
+export const DEFAULT_STRIPE_TIMEOUT_MS = 5_000;
+
+export function stripeTimeoutMs(env: Record<string, string | undefined> = process.env): number {
+  const n = Number(env.STRIPE_TIMEOUT_MS);
+  return Number.isInteger(n) && n > 0 ? n : DEFAULT_STRIPE_TIMEOUT_MS;
+}
+
 /** The options the SDK is built with: the endpoint only when it is overridden. */
-export function stripeOptions(endpoint: StripeEndpoint): Stripe.StripeConfig {
-  // Two retries: the SDK resends with the same idempotency key, so a retry never doubles a charge.
-  const common = { maxNetworkRetries: 2, timeout: 15_000 };
+export function stripeOptions(endpoint: StripeEndpoint, env: Record<string, string | undefined> = process.env): Stripe.StripeConfig {
+  const common = { maxNetworkRetries: 0, timeout: stripeTimeoutMs(env) };
   if (!endpoint.host) return common;
   return { ...common, host: endpoint.host, port: endpoint.port!, protocol: endpoint.protocol! };
 }
@@ -56,6 +67,24 @@ export function stripe(): Stripe {
 /** Tests start the fake on a free port and point the SDK at it. */
 export function resetStripe() {
   g.__duffbankStripe = undefined;
+  probeStripe.reset();
+}
+
+/** Whether Stripe answers (the balance, readable with any secret key), asked at most every few seconds. */
+export const probeStripe = cachedProbe(() => stripe().balance.retrieve());
+
+/**
+ * Whether a failed Stripe call failed because Stripe could not be reached or was having
+ * trouble (worth trying again as soon as it answers), rather than because it refused this
+ * particular request.
+ */
+export function stripeUnreachable(err: unknown): boolean {
+  return (
+    err instanceof Stripe.errors.StripeConnectionError ||
+    err instanceof Stripe.errors.StripeAPIError ||
+    err instanceof Stripe.errors.StripeRateLimitError ||
+    (err instanceof Stripe.errors.StripeError && (err.statusCode ?? 0) >= 500)
+  );
 }
 
 export function webhookSecret(): string {

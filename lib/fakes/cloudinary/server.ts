@@ -108,6 +108,14 @@ export async function startCloudinaryFake(opts: CloudinaryFakeOptions = {}): Pro
     // Upload API: /v1_1/<cloud>/<resource_type>/<action>
     if (segments[0] === "v1_1") {
       req.on("error", () => {});
+      // Admin API ping (GET /v1_1/<cloud>/ping, Basic auth with the key and secret): "the service answers".
+      if (method === "GET" && segments.length === 3 && segments[2] === "ping") {
+        req.resume();
+        if (segments[1] !== cloudName) return sendError(res, 401, `Invalid cloud_name ${segments[1]}`);
+        const expected = `Basic ${Buffer.from(`${ctx.apiKey}:${ctx.apiSecret}`).toString("base64")}`;
+        if (req.headers.authorization !== expected) return sendError(res, 401, "Invalid api_key or api_secret");
+        return sendJson(res, 200, { status: "ok" });
+      }
       if (method !== "POST") {
         req.resume();
         return sendError(res, 404, "Not found");

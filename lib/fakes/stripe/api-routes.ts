@@ -152,6 +152,17 @@ route("GET", "/v1/refunds/:id", (ctx, p, [id]) => present(ctx, found(ctx.ops.sta
 route("GET", "/v1/charges/:id", (ctx, p, [id]) => present(ctx, found(ctx.ops.state.charges.get(id), "charge", id), p));
 route("GET", "/v1/events/:id", (ctx, _p, [id]) => found(ctx.ops.state.events.get(id), "event", id));
 
+// ---- Balance -----------------------------------------------------------------------
+
+// Test-mode money never pays out, so it all sits in "pending": what was captured less what
+// was refunded, per currency. The app reads it only to see that the API answers.
+route("GET", "/v1/balance", (ctx) => {
+  const pending = new Map<string, number>();
+  for (const c of ctx.ops.state.charges.values()) pending.set(c.currency, (pending.get(c.currency) ?? 0) + c.amount_captured - c.amount_refunded);
+  const funds = [...pending].map(([currency, amount]) => ({ amount, currency, source_types: { card: amount } }));
+  return { object: "balance", available: funds.map((f) => ({ ...f, amount: 0, source_types: { card: 0 } })), pending: funds, livemode: false };
+});
+
 function found<T>(value: T | undefined, kind: string, id: string): T {
   if (value === undefined) throw missingResource(kind, id);
   return value;
