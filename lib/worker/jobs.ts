@@ -9,15 +9,21 @@ import { pruneSecurityRecords } from "@/lib/services/prune-security-records";
 
 export type Clock = () => Date;
 
+/** What a running worker gives each job: a signal that says "stop taking new work", and its name for claims. */
+export interface JobContext {
+  signal?: AbortSignal;
+  workerId?: string;
+}
+
 export interface Job {
   name: string;
   everyMs: number;
-  run: (clock: Clock) => Promise<unknown>;
+  run: (clock: Clock, ctx?: JobContext) => Promise<unknown>;
 }
 
 // Background work; each job keeps its state in the database, so a restart loses nothing.
 export const jobs: Job[] = [
-  { name: "deliver-outbox", everyMs: 2_000, run: (clock) => deliverOutbox(clock) },
+  { name: "deliver-outbox", everyMs: 2_000, run: (clock, ctx) => deliverOutbox(clock, ctx) },
   // Reads already treat a listing past its end date as expired; this makes the row say so.
   { name: "expire-listings", everyMs: 60_000, run: (clock) => expireListings(clock) },
   { name: "bed-reminders", everyMs: 60_000, run: (clock) => sendBedReminders(clock) },

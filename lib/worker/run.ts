@@ -5,8 +5,10 @@
 // exits: with DUFFBANK_CLOCK set it is how a test (or an operator) runs a job "later" on
 // a real database. It is a command on the machine, not reachable through the web app.
 import fs from "node:fs";
+import { db } from "@/db/index";
 import { checkStartup } from "@/lib/env";
 import { jobs, type Clock } from "./jobs";
+import { STOP_GRACE_MS, startWorker } from "./runner";
 
 checkStartup("worker");
 
@@ -23,24 +25,12 @@ const clock: Clock = () => {
 };
 // The end-to-end run ticks every job quickly; normal runs use each job's own interval.
 const INTERVAL_OVERRIDE_MS = Number(process.env.WORKER_INTERVAL_MS ?? 0);
-let stopping = false;
-
-async function loop(job: (typeof jobs)[number]) {
-  while (!stopping) {
-    try {
-      await job.run(clock);
-    } catch (err) {
-      console.error(`[worker] ${job.name} failed:`, (err as Error).message);
-    }
-    await new Promise((r) => setTimeout(r, INTERVAL_OVERRIDE_MS || job.everyMs));
-  }
-}
 
 async function once(names: string[]) {
   for (const name of names) {
     const job = jobs.find((j) => j.name === name);
     if (!job) throw new Error(`no job called ${name}; jobs: ${jobs.map((j) => j.name).join(", ")}`);
-    console.log(`[worker] ${name}: ${JSON.stringify(await job.run(clock))}`);
+    console.log(`[worker] ${name}: ${JSON.stringify(await job.run(clock, {}))}`);
   }
 }
 
@@ -53,13 +43,23 @@ if (onceAt >= 0) {
       process.exit(1);
     });
 } else {
-  console.log(`[worker] running ${jobs.map((j) => j.name).join(", ")}`);
-  for (const job of jobs) void loop(job);
-}
-
-for (const sig of ["SIGINT", "SIGTERM"] as const) {
-  process.on(sig, () => {
-    stopping = true;
-    process.exit(0);
-  });
+  const worker = startWorker({ jobs, clock, intervalOverrideMs: INTERVAL_OVERRIDE_MS });
+  let signalled = false;
+  for (const sig of ["SIGINT", "SIGTERM"] as const) {
+    process.on(sig, () => {
+      // A second signal means "now": the claims left behind run out within minutes.
+      if (signalled) process.exit(1);
+      signalled = true;
+      console.log(`[worker] ${sig}: finishing what is in hand (at most ${STOP_GRACE_MS / 1000} s)`);
+      void worker
+        .stop()
+        .then(async ({ clean }) => {
+          await db()
+            .destroy()
+            .catch(() => undefined);
+          process.exit(clean ? 0 : 1);
+        })
+        .catch(() => process.exit(1));
+    });
+  }
 }
