@@ -2,6 +2,7 @@ import os from "node:os";
 import path from "node:path";
 import type { Knex } from "knex";
 import { migrationSource } from "./db/migration-source";
+import { ResilientSqliteClient } from "./db/sqlite-client";
 
 // npm scripts, tests and the server all run from the project root; __dirname would point
 // into the build output once Next.js bundles this file.
@@ -22,7 +23,8 @@ export function sqliteAfterCreate(conn: { pragma: (sql: string) => unknown }, do
 
 function sqlite(filename: string): Knex.Config {
   return {
-    client: "better-sqlite3",
+    // better-sqlite3, with connections replaced after a storage fault (db/sqlite-client.ts).
+    client: ResilientSqliteClient,
     connection: { filename },
     useNullAsDefault: true,
     pool: { afterCreate: sqliteAfterCreate },

@@ -1,0 +1,29 @@
+import Client_BetterSQLite3 from "knex/lib/dialects/better-sqlite3";
+
+// Knex's better-sqlite3 client, changed in one way: a connection that meets storage gone
+// read-only, unopenable or failing is marked for replacement, so the pool opens a fresh one
+// on the next query and the app heals as soon as the storage is back, with no restart.
+// (A connection opened while the file could not be written stays read-only for good; one
+// whose file went away keeps failing. Reads keep working on it until a write shows the fault.)
+// Knex's pool drops a connection whose __knex__disposed is set, the same mark its PostgreSQL
+// client puts on a connection that errored.
+
+const REPLACE = /^SQLITE_(READONLY|CANTOPEN|IOERR)/;
+
+/** Whether an error from better-sqlite3 means this connection will not recover by itself. */
+export function isBrokenSqliteConnection(err: unknown): boolean {
+  const e = err as { code?: unknown; message?: unknown };
+  if (typeof e?.code === "string" && REPLACE.test(e.code)) return true;
+  return err instanceof TypeError && /database connection is not open/.test(String(e.message));
+}
+
+export class ResilientSqliteClient extends Client_BetterSQLite3 {
+  async _query(connection: unknown, obj: unknown): Promise<unknown> {
+    try {
+      return await super._query(connection, obj);
+    } catch (err) {
+      if (connection && isBrokenSqliteConnection(err)) (connection as { __knex__disposed?: unknown }).__knex__disposed = err;
+      throw err;
+    }
+  }
+}
