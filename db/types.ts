@@ -138,7 +138,7 @@ export interface ReservationRow {
   group_id: string | null;
   quantity: number;
   status: "held" | "confirmed" | "collected" | "declined" | "cancelled" | "expired" | "no_show";
-  payment_state: "none" | "awaiting" | "paid" | "authorised" | "released" | "captured" | "refunded";
+  payment_state: "none" | "awaiting" | "unpaid" | "paid" | "authorised" | "released" | "captured" | "refunded";
   hold_expires_at: string | null;
   pickup_code: string | null;
   pickup_at: string | null;

@@ -22,7 +22,7 @@ export function moneySentence(r: { amount_cents: number; deposit_cents: number; 
   const cents = price ? r.amount_cents : r.deposit_cents;
   if (cents === 0 || outcome === "none") return null;
   const money = formatMoney(cents, r.currency);
-  if (r.payment_state === "awaiting") return "Nothing was paid, so there is nothing to refund; the checkout link no longer works.";
+  if (r.payment_state === "awaiting" || r.payment_state === "unpaid") return "Nothing was paid, so there is nothing to refund; the checkout link no longer works.";
   if (outcome === "returned") {
     return price ? `Your payment of ${money} is refunded in full; it shows on your card within a few days.` : `The ${money} deposit hold on your card is released: nothing is taken.`;
   }

@@ -34,7 +34,9 @@ export const MESSAGE_LIMIT = { count: 5, windowMinutes: 10 } as const;
 
 export const RESERVATION_STATUSES = ["held", "confirmed", "collected", "declined", "cancelled", "expired", "no_show"] as const;
 export type ReservationStatus = (typeof RESERVATION_STATUSES)[number];
-export type PaymentState = "none" | "awaiting" | "paid" | "authorised" | "released" | "captured" | "refunded";
+// "unpaid": the reservation ended (cancelled, declined, expired) while its payment was still
+// awaited; the checkout was closed and nothing was taken.
+export type PaymentState = "none" | "awaiting" | "unpaid" | "paid" | "authorised" | "released" | "captured" | "refunded";
 export type Side = "gardener" | "supplier";
 
 export const ACTIONS = ["confirm", "decline", "cancel", "collect", "no_show"] as const;

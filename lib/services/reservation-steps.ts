@@ -99,7 +99,9 @@ export async function closeReservation(
   to: Exclude<ReservationStatus, "held" | "confirmed">,
   opts: { actorId: string | null; note?: string | null; now: Date; money: MoneyRule; patch?: Partial<ReservationRow> },
 ): Promise<string[]> {
-  await move(trx, r, to, { closed_at: opts.now.toISOString(), ...opts.patch }, opts.actorId, opts.note ?? null, opts.now);
+  // Ended before the gardener paid: the checkout closes and the payment state says so.
+  const unpaid = r.payment_state === "awaiting" ? { payment_state: "unpaid" as const } : {};
+  await move(trx, r, to, { closed_at: opts.now.toISOString(), ...unpaid, ...opts.patch }, opts.actorId, opts.note ?? null, opts.now);
   if (to === "collected") await collectQuantity(r.listing_id, r.quantity, trx);
   else await releaseQuantity(r.listing_id, r.quantity, trx);
   return settleMoney(trx, r, opts.money, opts.now);
