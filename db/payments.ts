@@ -73,6 +73,31 @@ export async function updatePayment(id: string, patch: Partial<PaymentRow>, q: D
   await q("payments").where({ id }).update(patch);
 }
 
+/**
+ * A checkout could not be made when it was asked for: the worker makes it later (pending
+ * action "open"), unless the payment has meanwhile been given another call to make.
+ */
+export async function noteCheckoutNotOpened(
+  id: string,
+  failure: { attempts: number; nextAt: string; error: string; waitingFor: "stripe" | null; at: string },
+  q: Db = db(),
+): Promise<void> {
+  await q("payments")
+    .where({ id, status: "creating" })
+    .andWhere((w) => w.whereNull("pending_action").orWhere("pending_action", "open"))
+    .update({ pending_action: "open", action_attempts: failure.attempts, next_action_at: failure.nextAt, last_error: failure.error.slice(0, 500), waiting_for: failure.waitingFor, updated_at: failure.at });
+}
+
+/** Whether any owed Stripe call is waiting for Stripe to answer again. */
+export async function anyWaitingForStripe(q: Db = db()): Promise<boolean> {
+  return !!(await q("payments").first("id").whereNotNull("pending_action").andWhere({ waiting_for: "stripe" }));
+}
+
+/** Stripe answers again: every call that waited for it is due now, whatever its backoff said. */
+export async function wakeWaitingForStripe(now: string, q: Db = db()): Promise<number> {
+  return q("payments").whereNotNull("pending_action").andWhere({ waiting_for: "stripe" }).update({ next_action_at: now, waiting_for: null });
+}
+
 export async function dueActions(now: string, limit = 20, q: Db = db()): Promise<PaymentRow[]> {
   return q<PaymentRow>("payments")
     .select("*")

@@ -1,11 +1,13 @@
 import "server-only";
 import Stripe from "stripe";
 import { db, nowIso, type Db } from "@/db/index";
-import { dueActions, findPayment, updatePayment } from "@/db/payments";
+import { anyWaitingForStripe, dueActions, findPayment, updatePayment, wakeWaitingForStripe } from "@/db/payments";
 import type { PaymentRow } from "@/db/types";
 import { ownerMetadata } from "./owner";
 import { syncPayment } from "./reconcile";
-import { stripe } from "./stripe";
+import { checkoutReadyLate } from "@/lib/services/checkout-ready";
+import { startCheckout } from "./checkout";
+import { probeStripe, stripe, stripeUnreachable } from "./stripe";
 
 // The Stripe calls a reservation change leaves owing: close a checkout, release or capture
 // a deposit hold, refund a payment. The change writes `pending_action` in its own
@@ -15,18 +17,21 @@ import { stripe } from "./stripe";
 // After each call the row is brought up to Stripe's record (syncPayment), through the
 // webhook's own code, so the outcome never rests on a webhook that might not arrive.
 
-const BASE_DELAY_MS = 15_000;
-const MAX_DELAY_MS = 60 * 60_000;
+import { actionRetryDelayMs } from "./retry";
 
-export function actionRetryDelayMs(attempts: number): number {
-  return Math.min(MAX_DELAY_MS, BASE_DELAY_MS * 2 ** Math.max(0, attempts - 1));
-}
+export { actionRetryDelayMs };
 
 type Outcome = Partial<PaymentRow>;
 
 async function perform(row: PaymentRow, clock: () => Date, q: Db): Promise<Outcome> {
   const key = `${row.pending_action}:${row.id}`;
   switch (row.pending_action) {
+    case "open": {
+      // The checkout Stripe could not make when it was asked for: made now, and the gardener
+      // (or household) is told it is ready, with the hold renewed so there is time to pay.
+      if (await startCheckout(row.id, clock, q)) await checkoutReadyLate(row.id, clock(), q);
+      return {};
+    }
     case "expire": {
       if (!row.provider_ref) return { status: "expired" };
       try {
@@ -97,7 +102,7 @@ export async function runPaymentAction(id: string, clock: () => Date = () => new
     // Only clear the action this run performed: a newer one written meanwhile stays.
     await q("payments")
       .where({ id, pending_action: row.pending_action })
-      .update({ ...outcome, pending_action: null, next_action_at: null, updated_at: nowIso(clock) });
+      .update({ ...outcome, pending_action: null, next_action_at: null, waiting_for: null, updated_at: nowIso(clock) });
     return true;
   } catch (err) {
     const attempts = row.action_attempts + 1;
@@ -107,6 +112,7 @@ export async function runPaymentAction(id: string, clock: () => Date = () => new
         action_attempts: attempts,
         next_action_at: new Date(clock().getTime() + actionRetryDelayMs(attempts)).toISOString(),
         last_error: (err as Error).message.slice(0, 500),
+        waiting_for: stripeUnreachable(err) ? "stripe" : null,
       },
       q,
     );
@@ -118,13 +124,21 @@ export async function runPaymentActions(ids: Iterable<string>, clock?: () => Dat
   for (const id of new Set(ids)) await runPaymentAction(id, clock, q);
 }
 
-/** The worker's job: every owed call that is due. */
-export async function settlePayments(clock: () => Date = () => new Date(), q: Db = db()): Promise<{ done: number; failed: number }> {
+/**
+ * The worker's job: every owed call that is due. Calls that failed because Stripe could not
+ * be reached wait for it rather than for their backoff: as soon as Stripe answers (asked at
+ * most every few seconds, or shown by any call going through) they are all due at once.
+ */
+export async function settlePayments(clock: () => Date = () => new Date(), q: Db = db(), opts: { signal?: AbortSignal } = {}): Promise<{ done: number; failed: number }> {
   let done = 0;
   let failed = 0;
+  if ((await anyWaitingForStripe(q)) && (await probeStripe()).ok) await wakeWaitingForStripe(clock().toISOString(), q);
   for (const row of await dueActions(clock().toISOString(), 20, q)) {
-    if (await runPaymentAction(row.id, clock, q)) done++;
-    else failed++;
+    if (opts.signal?.aborted) break;
+    if (await runPaymentAction(row.id, clock, q)) {
+      done++;
+      if (done === 1 && (await anyWaitingForStripe(q))) await wakeWaitingForStripe(clock().toISOString(), q);
+    } else failed++;
   }
   return { done, failed };
 }

@@ -1,16 +1,19 @@
 import "server-only";
 import { db, nowIso, type Db } from "@/db/index";
-import { findPayment } from "@/db/payments";
+import { findPayment, noteCheckoutNotOpened } from "@/db/payments";
 import { reservationContext } from "@/db/reservation-context";
 import { appUrl } from "@/lib/app-url";
 import { whatLabel } from "@/lib/reservations/labels";
 import type { PaymentRow } from "@/db/types";
 import { ownerMetadata, ownerOf } from "./owner";
-import { stripe } from "./stripe";
+import { stripe, stripeUnreachable } from "./stripe";
+import { actionRetryDelayMs } from "./retry";
 
 // A Checkout Session (mode payment) for one reservation or giveaway booking: automatic
-// capture for a price, manual capture for a deposit (an authorisation hold). Created after the hold commits,
-// with the payment row's idempotency key, so a retry returns the same session.
+// capture for a price, manual capture for a deposit (an authorisation hold). Created after the
+// hold commits, with the payment row's idempotency key, so the SDK resending one request
+// returns the same session. Each later attempt (after one that failed) has a key of its own:
+// Stripe refuses a key reused with other parameters, and expires_at moves with the clock.
 
 // Stripe lets a session live from 30 minutes to 24 hours; Duffbank closes it itself when
 // the hold ends, so the session only needs to outlast the hold.
@@ -61,6 +64,11 @@ async function subjectOf(payment: PaymentRow, q: Db): Promise<CheckoutSubject | 
   };
 }
 
+/** The key of this attempt: the row's own for the first, numbered after each failed one. */
+export function checkoutAttemptKey(payment: Pick<PaymentRow, "idempotency_key" | "action_attempts">): string {
+  return payment.action_attempts > 0 ? `${payment.idempotency_key}:${payment.action_attempts}` : payment.idempotency_key;
+}
+
 export async function startCheckout(paymentId: string, clock: () => Date = () => new Date(), q: Db = db()): Promise<string | null> {
   const payment = await findPayment(paymentId, q);
   if (!payment || payment.kind === "refund") return null;
@@ -99,15 +107,42 @@ export async function startCheckout(paymentId: string, clock: () => Date = () =>
       },
       expires_at: expiresAt,
     },
-    { idempotencyKey: payment.idempotency_key },
+    { idempotencyKey: checkoutAttemptKey(payment) },
   );
+  const at = nowIso(clock);
   const n = await q("payments")
     .where({ id: payment.id, status: "creating" })
-    .update({ provider_ref: session.id, checkout_url: session.url, status: "open", updated_at: nowIso(clock) });
+    .update({ provider_ref: session.id, checkout_url: session.url, status: "open", last_error: null, waiting_for: null, updated_at: at });
   if (n === 0) {
     // The hold ended while the session was being made: close it again so nobody pays for nothing.
     await stripe().checkout.sessions.expire(session.id).catch(() => undefined);
     return null;
   }
+  // Made at last: the worker no longer needs to try (an "expire" written meanwhile stays).
+  await q("payments").where({ id: payment.id, pending_action: "open" }).update({ pending_action: null, next_action_at: null });
   return session.url;
+}
+
+/**
+ * startCheckout for a request: Stripe gets a few seconds (lib/payments/stripe.ts), and when
+ * the checkout cannot be made the payment is left to the worker (pending action "open"),
+ * which makes it and tells the gardener. Null when there is no checkout to show now.
+ */
+export async function openCheckout(paymentId: string, clock: () => Date = () => new Date(), q: Db = db()): Promise<string | null> {
+  try {
+    return await startCheckout(paymentId, clock, q);
+  } catch (err) {
+    console.error(`[checkout] could not open the checkout of payment ${paymentId}:`, (err as Error).message);
+    const row = await findPayment(paymentId, q);
+    if (row) {
+      const now = clock();
+      const attempts = row.action_attempts + 1;
+      await noteCheckoutNotOpened(
+        paymentId,
+        { attempts, nextAt: new Date(now.getTime() + actionRetryDelayMs(attempts)).toISOString(), error: (err as Error).message, waitingFor: stripeUnreachable(err) ? "stripe" : null, at: now.toISOString() },
+        q,
+      );
+    }
+    return null;
+  }
 }

@@ -12,7 +12,7 @@ import { appUrl } from "@/lib/app-url";
 import { giveawayCautions } from "@/lib/calc/cautions";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { formatMoney } from "@/lib/payments/money";
-import { startCheckout } from "@/lib/payments/checkout";
+import { openCheckout } from "@/lib/payments/checkout";
 import { holdMinutes } from "@/lib/reservations/policy";
 import { bookingParts, giveawayBookedEmail } from "@/lib/mail/templates/giveaway";
 import { readableDateTime } from "@/lib/time/zoned";
@@ -99,15 +99,8 @@ export async function bookGiveaway(userId: string, dayId: string, input: BookInp
     return { row, paymentId: payment.id };
   });
   // Stripe is called only after the place is committed, as for reservations; a checkout that
-  // cannot start now is started again from the booking page (same idempotency key).
-  let checkoutUrl: string | null = null;
-  if (booking.paymentId) {
-    try {
-      checkoutUrl = await startCheckout(booking.paymentId, clock);
-    } catch (err) {
-      console.error("[giveaway] could not start the deposit checkout", (err as Error).message);
-    }
-  }
+  // cannot start now is made by the worker (which e-mails the household) or from the booking page.
+  const checkoutUrl = booking.paymentId ? await openCheckout(booking.paymentId, clock) : null;
   return { ...booking.row, checkout_url: checkoutUrl };
 }
 

@@ -9,7 +9,7 @@ import { enqueueEmail } from "@/db/outbox";
 import { depositOfBooking } from "@/db/payments";
 import type { DepositStatus, GiveawayBookingRow, PaymentRow } from "@/db/types";
 import { appUrl } from "@/lib/app-url";
-import { bookingParts, giveawayBookingLapsedEmail } from "@/lib/mail/templates/giveaway";
+import { bookingParts, giveawayBookingLapsedEmail, giveawayDepositReadyEmail } from "@/lib/mail/templates/giveaway";
 import { runPaymentActions } from "@/lib/payments/actions";
 import { settleCheckout } from "@/lib/payments/owner";
 import { holdMinutes } from "@/lib/reservations/policy";
@@ -115,16 +115,36 @@ async function lapseBooking(q: Knex, id: string, now: Date): Promise<string[] | 
     const b = (await findBooking(id, trx))!;
     await releaseSlotPlace(b.slot_id, trx);
     const ids = await settleBookingDeposit(trx, id, "return", now);
-    const day = (await findDay(b.day_id, trx))!;
-    const slot = (await findSlot(b.slot_id, b.day_id, trx))!;
-    const [user, org] = await Promise.all([findUserById(b.user_id, trx), findOrganisation(day.organisation_id, trx)]);
-    if (user) {
-      const mail = giveawayBookingLapsedEmail({
-        ...bookingParts({ name: user.display_name, organisation: org?.name ?? "The council", pageUrl: `${appUrl()}/giveaways/${day.id}`, day, slot, quantity: b.quantity }),
-        holdMinutes: holdMinutes(),
-      });
-      await enqueueEmail({ to: user.email, ...mail, template: "giveaway_booking_lapsed", dedupe_key: `giveaway-booking-lapsed:${id}` }, trx);
+    const to = await householdOf(b, trx);
+    if (to) {
+      const mail = giveawayBookingLapsedEmail({ ...to.parts, holdMinutes: holdMinutes() });
+      await enqueueEmail({ to: to.email, ...mail, template: "giveaway_booking_lapsed", dedupe_key: `giveaway-booking-lapsed:${id}` }, trx);
     }
     return ids;
   });
+}
+
+/** Who a booking's e-mails go to, and the parts they are written from. */
+async function householdOf(b: GiveawayBookingRow, trx: Knex | Trx) {
+  const day = (await findDay(b.day_id, trx))!;
+  const slot = (await findSlot(b.slot_id, b.day_id, trx))!;
+  const [user, org] = await Promise.all([findUserById(b.user_id, trx), findOrganisation(day.organisation_id, trx)]);
+  if (!user) return null;
+  return { email: user.email, parts: bookingParts({ name: user.display_name, organisation: org?.name ?? "The council", pageUrl: `${appUrl()}/giveaways/${day.id}`, day, slot, quantity: b.quantity }) };
+}
+
+/**
+ * The deposit's card page could not be opened at booking and the worker has opened it now:
+ * the household gets a fresh hold to put the deposit down, and an e-mail saying so.
+ */
+export async function depositPageReady(trx: Trx, bookingId: string, now: Date): Promise<void> {
+  const until = new Date(now.getTime() + holdMinutes() * 60_000).toISOString();
+  const n = await trx("giveaway_bookings")
+    .where({ id: bookingId, status: "booked", deposit_status: "awaiting" })
+    .update({ hold_expires_at: until, updated_at: now.toISOString() });
+  if (n === 0) return;
+  const to = await householdOf((await findBooking(bookingId, trx))!, trx);
+  if (!to) return;
+  const mail = giveawayDepositReadyEmail({ ...to.parts, holdMinutes: holdMinutes() });
+  await enqueueEmail({ to: to.email, ...mail, template: "giveaway_deposit_ready", dedupe_key: `giveaway-deposit-ready:${bookingId}` }, trx);
 }

@@ -4,7 +4,7 @@ import { findOrganisation } from "@/db/organisations";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
 import { depositOfBooking } from "@/db/payments";
-import { startCheckout } from "@/lib/payments/checkout";
+import { openCheckout } from "@/lib/payments/checkout";
 import { cancelDeadline, publicDayView, type PublicDayView } from "./giveaway-view";
 import { giveawayCalendar, validCalendarToken } from "./giveaway-calendar";
 
@@ -38,12 +38,9 @@ export async function giveawayForVisitor(dayId: string, userId: string | null): 
   let checkoutUrl: string | null = null;
   if (booking.deposit_status === "awaiting") {
     const charge = await depositOfBooking(booking.id);
-    try {
-      // Open already, or started again when the first try at booking could not reach Stripe.
-      checkoutUrl = charge ? await startCheckout(charge.id) : null;
-    } catch (err) {
-      console.error("[giveaway] could not open the deposit checkout", (err as Error).message);
-    }
+    // Open already, or started again when the first try at booking could not reach Stripe
+    // (unless Stripe is known to be away: then the worker opens it and e-mails the household).
+    checkoutUrl = charge && charge.waiting_for !== "stripe" ? await openCheckout(charge.id) : null;
   }
   return {
     giveaway,

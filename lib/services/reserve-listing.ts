@@ -8,7 +8,7 @@ import { availableOf, holdQuantity, insertReservation, listingsForReservation, p
 import type { ReservationRow } from "@/db/types";
 import { ApiError, type FieldErrors } from "@/lib/api/errors";
 import { mailReservation } from "@/lib/mail/reservation-mail";
-import { startCheckout } from "@/lib/payments/checkout";
+import { openCheckout } from "@/lib/payments/checkout";
 import { MIN_CARD_CHARGE_CENTS, formatMoney, priceFor } from "@/lib/payments/money";
 import { WHOLE_UNITS, quantityLabel } from "@/lib/reservations/labels";
 import { holdMinutes } from "@/lib/reservations/policy";
@@ -212,18 +212,14 @@ export async function reserveListings(input: ReserveInput, deps: ReserveDeps = {
     return rows;
   });
 
-  // Stripe is called only after the hold is committed: a slow or failing Stripe never
-  // keeps the database locked, and the page can retry the checkout (same idempotency key).
+  // Stripe is called only after the hold is committed, for a few seconds at most: a slow or
+  // failing Stripe never keeps the database locked, and a checkout it could not make is left
+  // to the worker, which makes it and e-mails the gardener; the page can also try again.
   let checkoutUrl: string | null = null;
   const checkoutUrls = new Map<string, string | null>();
   for (const r of created) {
     if (!r.paymentId) continue;
-    let url: string | null = null;
-    try {
-      url = await startCheckout(r.paymentId, clock, q);
-    } catch (err) {
-      console.error("[reserve] could not start checkout", (err as Error).message);
-    }
+    const url = await openCheckout(r.paymentId, clock, q);
     checkoutUrls.set(r.id, url);
     checkoutUrl ??= url;
   }

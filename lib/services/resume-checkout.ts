@@ -3,7 +3,7 @@ import type { Knex } from "knex";
 import { db } from "@/db/index";
 import { chargeOf } from "@/db/payments";
 import { ApiError } from "@/lib/api/errors";
-import { startCheckout } from "@/lib/payments/checkout";
+import { openCheckout } from "@/lib/payments/checkout";
 import { owesPayment, type PaymentState, type ReservationStatus } from "@/lib/reservations/policy";
 
 /** The checkout URL of a reservation that still owes its payment or deposit. */
@@ -15,12 +15,7 @@ export async function resumeCheckout(reservationId: string, gardenerId: string, 
   if (!r) throw new ApiError("not_found", "That reservation was not found.");
   const charge = await chargeOf(r.id, q);
   if (!charge || !owesPayment(r)) throw new ApiError("invalid_state", "Nothing is owed on this reservation.");
-  let url: string | null = null;
-  try {
-    url = await startCheckout(charge.id, deps.clock, q);
-  } catch (err) {
-    console.error("[checkout] could not start", (err as Error).message);
-  }
-  if (!url) throw new ApiError("conflict", "The payment page could not be opened just now. Try again in a minute.");
+  const url = await openCheckout(charge.id, deps.clock, q);
+  if (!url) throw new ApiError("conflict", "The payment page could not be opened just now. Your hold stays; try again in a minute, and we will e-mail you as soon as it opens.");
   return url;
 }

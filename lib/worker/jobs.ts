@@ -31,9 +31,9 @@ export const jobs: Job[] = [
   // Giveaway bookings whose no-show deposit was not put down within the hold.
   { name: "expire-giveaway-deposits", everyMs: 15_000, run: (clock) => expireGiveawayDepositHolds(clock) },
   { name: "reservation-reminders", everyMs: 60_000, run: (clock) => sendReservationReminders(clock) },
-  // Owed Stripe calls, then the lost-webhook net: checkouts still open after a few minutes
-  // are checked against Stripe's record and brought up to it.
   // Ended sessions and spent rate-limit windows are kept a while for support, then dropped.
   { name: "prune-security-records", everyMs: 60 * 60_000, run: () => pruneSecurityRecords() },
-  { name: "settle-payments", everyMs: 5_000, run: async (clock) => ({ ...(await settlePayments(clock)), ...(await recoverOpenPayments(clock)) }) },
+  // Owed Stripe calls, then the lost-webhook net: checkouts still open after a few minutes
+  // are checked against Stripe's record and brought up to it.
+  { name: "settle-payments", everyMs: 5_000, run: async (clock, ctx) => ({ ...(await settlePayments(clock, undefined, ctx)), ...(await recoverOpenPayments(clock)) }) },
 ];

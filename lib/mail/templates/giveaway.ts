@@ -70,6 +70,18 @@ export function giveawayBookingLapsedEmail(p: BookingParts & { holdMinutes: numb
   });
 }
 
+/** The deposit's card page could not be opened at booking; the worker has opened it now. */
+export function giveawayDepositReadyEmail(p: BookingParts & { holdMinutes: number }) {
+  return renderEmail(`Put your deposit down: ${p.title}, ${p.dateLabel}`, {
+    heading: "The deposit page is open now",
+    paragraphs: [
+      `Hello ${p.name}, the card page for the no-show deposit on your place at ${p.title} (${p.organisation}) on ${p.dateLabel}, ${p.slotLabel}, could not be opened when you booked. It is open now.`,
+      `Your place is held for another ${p.holdMinutes} minutes while you put the deposit down from the day's page.`,
+    ],
+    action: { label: "Put the deposit down", url: p.pageUrl },
+  });
+}
+
 /** The council called the day off: everyone booked hears, with the deposit released. */
 export function giveawayDayCancelledEmail(p: BookingParts & { reason: string; depositNote: string }) {
   return renderEmail(`Called off: ${p.title} on ${p.dateLabel}`, {

@@ -20,7 +20,8 @@ export type ReservationMailKind =
   | "message"
   | "review_request"
   | "returned"
-  | "returned_outside";
+  | "returned_outside"
+  | "payment_ready";
 export type Audience = "gardener" | "supplier";
 
 export interface MailExtra {
@@ -184,6 +185,18 @@ function parts(kind: ReservationMailKind, r: ReservationContext, to: Audience, e
           heading: to === "gardener" ? `Rate ${r.supplier.name}` : `Rate ${r.gardener.name}`,
           paragraphs: [to === "gardener" ? "A line on what the material was like helps the next gardener choose." : "A line on how the pickup went helps other givers."],
           action: action("Leave a review"),
+        },
+      };
+    case "payment_ready":
+      return {
+        subject: `Your payment page is ready: ${what}`,
+        body: {
+          heading: `Pay by ${formatLocal(r.hold_expires_at!)} to keep it`,
+          paragraphs: [
+            "The payment page could not be opened when you reserved. It is open now, and we have renewed the hold so you have time to pay.",
+            `${r.supplier.name} hears about your request once the payment is through.`,
+          ],
+          action: action("Pay now"),
         },
       };
     case "returned":
