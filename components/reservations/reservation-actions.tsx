@@ -16,13 +16,15 @@ interface Props {
   side: Side;
   actions: ReservationAction[];
   canPay: boolean;
+  /** The payment page could not be opened before: the pay button is a "try again". */
+  payAgain?: boolean;
   cancelNote: string;
   /** A live culture sent by post: an order rather than something collected, and worded so. */
   posted?: boolean;
 }
 
 /** The buttons for what this person may do next; the server decides, this only shows its list. */
-export function ReservationActions({ id, side, actions, canPay, cancelNote, posted = false }: Props) {
+export function ReservationActions({ id, side, actions, canPay, payAgain = false, cancelNote, posted = false }: Props) {
   const { run, busy, error } = useReservationAction(id);
   const [open, setOpen] = useState<"decline" | "cancel" | "no_show" | null>(null);
   if (!canPay && actions.length === 0) return null;
@@ -35,7 +37,7 @@ export function ReservationActions({ id, side, actions, canPay, cancelNote, post
       <div className="flex flex-wrap gap-2">
         {canPay ? (
           <Button onClick={pay} disabled={!!busy}>
-            {busy === "checkout" ? "Opening the payment page…" : "Pay now"}
+            {busy === "checkout" ? "Opening the payment page…" : payAgain ? "Try the payment again" : "Pay now"}
           </Button>
         ) : null}
         {actions.includes("confirm") ? (

@@ -69,6 +69,8 @@ function moneyLine(v: ReservationView): string | null {
       // A reservation that ended before anything was paid owes nothing any more.
       if (v.status !== "held") return "Nothing paid";
       return price ? `${money} to pay` : `${money} deposit to place`;
+    case "unpaid":
+      return "Nothing paid; the payment page was closed";
     case "paid":
       return `${money} paid`;
     case "authorised":
@@ -158,13 +160,19 @@ export function ReservationCard({ v }: { v: ReservationView }) {
 
       <OrderPanel v={v} />
 
+      {v.payment.notice && v.payment.checkout === "not_opened" ? (
+        <p role="alert" className="rounded-lg bg-litter-100 p-3 text-sm text-humus-900 ring-1 ring-litter-300" data-testid="payment-notice">
+          {v.payment.notice}
+        </p>
+      ) : null}
+
       {v.payment.problem ? (
         <p role="alert" className="rounded-lg bg-ember-100 p-3 text-sm text-ember-800">
           The last card attempt did not go through: {v.payment.problem} Try again with another card.
         </p>
       ) : null}
 
-      <ReservationActions id={v.id} side={v.side} actions={v.actions} canPay={v.can_pay} cancelNote={cancelNote} posted={v.order?.fulfilment === "post"} />
+      <ReservationActions id={v.id} side={v.side} actions={v.actions} canPay={v.can_pay} payAgain={v.payment.checkout === "not_opened"} cancelNote={cancelNote} posted={v.order?.fulfilment === "post"} />
 
       {v.can_review ? <ReviewForm id={v.id} subject={other} /> : null}
       {v.my_review ? <p className="text-sm">You rated {other} {"★".repeat(v.my_review.rating)}{v.my_review.comment ? `: “${v.my_review.comment}”` : "."}</p> : null}

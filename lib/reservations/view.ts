@@ -25,7 +25,21 @@ export interface ReservationView {
   amount_cents: number;
   deposit_cents: number;
   currency: string;
-  payment: { state: ReservationContext["payment_state"]; checkout_url: string | null; problem: string | null; refunded_cents: number; captured_cents: number };
+  payment: {
+    state: ReservationContext["payment_state"];
+    checkout_url: string | null;
+    /**
+     * Where the payment page stands while the payment is owed: "open"; "opening" (being made);
+     * "not_opened" (Stripe could not be reached: the hold stays, the worker keeps trying and
+     * e-mails the gardener, and the page can try again); "closed" once the reservation ended unpaid.
+     */
+    checkout: "open" | "opening" | "not_opened" | "closed" | null;
+    /** One plain sentence about the payment when something needs saying (e.g. it could not be opened). */
+    notice: string | null;
+    problem: string | null;
+    refunded_cents: number;
+    captured_cents: number;
+  };
   listing: { id: string; title: string; material: string; unit: string; unit_size: number | null; unit_mass_kg: number | null; location: { lat: number; lng: number } };
   supplier: { id: string; name: string; verified: boolean; email?: string };
   gardener: { id: string; name: string; email?: string };
@@ -66,6 +80,26 @@ export interface ViewInput {
 
 const REVEALED = new Set(["confirmed", "collected", "no_show"]);
 
+function checkoutOf(r: ReservationContext, charge: PaymentRow | undefined): ReservationView["payment"]["checkout"] {
+  if (!charge) return null;
+  if (r.payment_state === "unpaid") return "closed";
+  if (!owesPayment(r)) return null;
+  if (charge.status === "open") return "open";
+  if (charge.status === "creating") return charge.pending_action === "open" ? "not_opened" : "opening";
+  return null;
+}
+
+function paymentNotice(r: ReservationContext, checkout: ReservationView["payment"]["checkout"], side: Side, now: Date): string | null {
+  if (checkout === "not_opened" && r.hold_expires_at) {
+    const minutes = Math.max(1, Math.ceil((new Date(r.hold_expires_at).getTime() - now.getTime()) / 60_000));
+    return side === "gardener"
+      ? `Held for ${minutes} min — payment could not be opened, try again. We keep trying too, and e-mail you when the payment page is ready.`
+      : `Held for ${minutes} min — the gardener's payment page could not be opened yet.`;
+  }
+  if (checkout === "closed") return "Nothing was paid: the payment page was closed when the reservation ended.";
+  return null;
+}
+
 export function reservationView({ r, side, viewerId, now, payments, history, reviews, shipping }: ViewInput): ReservationView {
   const charge = payments.find((p) => p.kind !== "refund");
   const refunded = payments.filter((p) => p.kind === "refund" && p.status === "succeeded").reduce((s, p) => s + p.amount_cents, 0);
@@ -75,6 +109,7 @@ export function reservationView({ r, side, viewerId, now, payments, history, rev
   const mine = reviews.find((v) => v.author_id === viewerId) ?? null;
   const theirs = reviews.find((v) => v.author_id !== viewerId) ?? null;
   const by = (actor: string | null) => (actor === null ? "duffbank" : actor === r.gardener_id ? "gardener" : "supplier");
+  const checkout = checkoutOf(r, charge);
   return {
     id: r.id,
     status: r.status,
@@ -96,7 +131,10 @@ export function reservationView({ r, side, viewerId, now, payments, history, rev
     payment: {
       state: r.payment_state,
       checkout_url: side === "gardener" && owesPayment(r) && charge?.status === "open" ? charge.checkout_url : null,
-      problem: owesPayment(r) ? (charge?.last_error ?? null) : null,
+      checkout,
+      notice: paymentNotice(r, checkout, side, now),
+      // A card the gardener tried and Stripe declined (not Stripe being unreachable, which the notice covers).
+      problem: owesPayment(r) && charge?.status === "open" ? (charge.last_error ?? null) : null,
       refunded_cents: Math.max(refunded, charge?.refunded_cents ?? 0),
       captured_cents: charge?.captured_cents ?? 0,
     },

@@ -6,8 +6,18 @@ import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button-class";
 import { Notice } from "@/components/ui/notice";
 import { ReservationCard } from "@/components/reservations/reservation-card";
+import type { ReservationView } from "@/lib/reservations/view";
 
 export const metadata: Metadata = { title: "My reservations" };
+
+/** What the page says on arrival from reserving, as things stand for that reservation. */
+function createdNotice(v: ReservationView | undefined) {
+  if (!v) return null;
+  if (v.payment.checkout === "not_opened") return <Notice tone="caution" title="Held — payment not opened yet">{v.payment.notice}</Notice>;
+  if (v.can_pay) return <Notice title="Held for you">Pay from the reservation below to complete it; the supplier hears about it once the payment is through.</Notice>;
+  if (v.status === "confirmed") return <Notice title="Reserved and accepted">The listing accepts at once: the address and your pickup code are below and on their way by e-mail.</Notice>;
+  return <Notice title="Reserved">We have told the supplier. You will get an e-mail at each step.</Notice>;
+}
 
 export default async function MyReservationsPage({ searchParams }: { searchParams: Promise<{ checkout?: string; new?: string }> }) {
   const user = await pageUser("/reservations", ["gardener"]);
@@ -22,7 +32,7 @@ export default async function MyReservationsPage({ searchParams }: { searchParam
         {checkout === "cancelled" ? (
           <Notice title="You left the payment page">Nothing was charged. The hold stays for now: pay from the reservation below, or cancel it so the material goes back.</Notice>
         ) : null}
-        {created && views.some((v) => v.id === created) ? <Notice title="Reserved">We have told the supplier. You will get an e-mail at each step.</Notice> : null}
+        {createdNotice(views.find((v) => v.id === created))}
       </div>
       {views.length === 0 ? (
         <EmptyState title="No reservations yet" action={<Link className={buttonClass()} href="/beds">Find material for a bed</Link>}>
