@@ -26,6 +26,20 @@ function jsonSchema(schema: z.ZodType) {
   return rest;
 }
 
+const idempotencyKeyHeader = {
+  name: "Idempotency-Key",
+  in: "header",
+  required: false,
+  schema: { type: "string", minLength: 1, maxLength: 255 },
+  description:
+    "A fresh random value (a UUID) per request. The same key from the same person within 24 hours returns the first answer (header Idempotent-Replayed: true) and changes nothing again; the same key with a different request is a 409 idempotency_mismatch.",
+};
+
+function parameters(route: RouteDoc) {
+  const query = route.query ? Object.entries((jsonSchema(route.query).properties ?? {}) as Record<string, unknown>).map(([name, schema]) => ({ name, in: "query", schema })) : [];
+  return route.idempotent ? [...query, idempotencyKeyHeader] : query;
+}
+
 function operation(route: RouteDoc) {
   const responses: Record<string, unknown> = {
     [String(route.status ?? 200)]: { description: route.responseDescription ?? "OK", ...(route.response ? { content: { "application/json": { schema: jsonSchema(route.response) } } } : {}) },
@@ -35,7 +49,7 @@ function operation(route: RouteDoc) {
     summary: route.summary,
     tags: [route.tag],
     ...(route.auth !== "public" ? { security: [{ session: [] }], "x-roles": route.auth === "signed-in" ? [] : route.auth } : { security: [] }),
-    ...(route.query ? { parameters: Object.entries((jsonSchema(route.query).properties ?? {}) as Record<string, unknown>).map(([name, schema]) => ({ name, in: "query", schema })) } : {}),
+    ...(route.query || route.idempotent ? { parameters: parameters(route) } : {}),
     ...(route.body ? { requestBody: { required: true, content: { "application/json": { schema: jsonSchema(route.body) } } } } : {}),
     responses,
   };

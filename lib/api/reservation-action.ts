@@ -2,6 +2,7 @@ import "server-only";
 import { NextResponse } from "next/server";
 import { z } from "zod";
 import { readOptionalJson, withAuth } from "./handler";
+import { idempotent } from "./idempotency";
 import { parseInput } from "./errors";
 import type { Role } from "@/lib/auth/roles";
 import type { ReservationAction } from "@/lib/reservations/policy";
@@ -12,13 +13,20 @@ import { getReservation } from "@/lib/services/list-reservations";
 
 type StepBody = { reason?: string; pickup_code?: string; carrier?: string; tracking?: string };
 
-/** A POST /api/reservations/:id/<step> handler: an empty body is allowed; answers with the reservation as the caller sees it. */
+/**
+ * A POST /api/reservations/:id/<step> handler: an empty body is allowed; answers with the
+ * reservation as the caller sees it. Steps move money (refunds, deposit holds released or
+ * kept), so each honours an Idempotency-Key.
+ */
 function stepRoute(schema: z.ZodObject, roles: readonly Role[] | undefined, run: (input: StepBody, reservationId: string, userId: string) => Promise<unknown>) {
-  return withAuth<{ id: string }>(async ({ req, params, user }) => {
-    const raw = await readOptionalJson(req);
-    await run(parseInput(schema, raw) as StepBody, params.id, user.id);
-    return NextResponse.json({ reservation: await getReservation(params.id, user.id) });
-  }, roles);
+  return withAuth<{ id: string }>(
+    idempotent(async ({ req, params, user }) => {
+      const raw = await readOptionalJson(req);
+      await run(parseInput(schema, raw) as StepBody, params.id, user.id);
+      return NextResponse.json({ reservation: await getReservation(params.id, user.id) });
+    }),
+    roles,
+  );
 }
 
 /** confirm, decline, cancel, collect, no_show. */

@@ -1,3 +1,4 @@
+import { pruneIdempotencyKeys } from "@/db/idempotency-keys";
 import { deliverOutbox } from "@/lib/mail/deliver-outbox";
 import { settlePayments } from "@/lib/payments/actions";
 import { recoverOpenPayments } from "@/lib/payments/reconcile";
@@ -36,4 +37,6 @@ export const jobs: Job[] = [
   // Owed Stripe calls, then the lost-webhook net: checkouts still open after a few minutes
   // are checked against Stripe's record and brought up to it.
   { name: "settle-payments", everyMs: 5_000, run: async (clock, ctx) => ({ ...(await settlePayments(clock, undefined, ctx)), ...(await recoverOpenPayments(clock)) }) },
+  // First answers kept for Idempotency-Key retries live a day.
+  { name: "prune-idempotency-keys", everyMs: 60 * 60_000, run: async (clock) => ({ pruned: await pruneIdempotencyKeys(clock().toISOString()) }) },
 ];

@@ -1,5 +1,6 @@
 import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
+import { idempotent } from "@/lib/api/idempotency";
 import { parseInput } from "@/lib/api/errors";
 import { reserveListings } from "@/lib/services/reserve-listing";
 import { getReservations, listReservations } from "@/lib/services/list-reservations";
@@ -9,8 +10,9 @@ import { requireVerifiedEmail } from "@/lib/auth/current-user";
 // POST /api/reservations — hold a quantity of a listing (or, with "items", several at once,
 // all or nothing) for the signed-in gardener. A priced or deposit listing answers with the
 // checkout_url of the Stripe page that completes the reservation. A live culture takes
-// "fulfilment" (pickup or post) and, for post, "ship_to".
-export const POST = withAuth(async ({ req, user }) => {
+// "fulfilment" (pickup or post) and, for post, "ship_to". With an Idempotency-Key, a retry
+// gets the first answer and holds nothing twice.
+export const POST = withAuth(idempotent(async ({ req, user }) => {
   requireVerifiedEmail(user);
   const body = await readJson(req);
   const many = typeof body === "object" && body !== null && "items" in body;
@@ -28,7 +30,7 @@ export const POST = withAuth(async ({ req, user }) => {
   const reservations = await getReservations(result.ids, user.id, "gardener");
   const checkout = result.checkoutUrl ? { checkout_url: result.checkoutUrl } : {};
   return NextResponse.json(many ? { reservations, ...checkout } : { reservation: reservations[0], ...checkout }, { status: 201 });
-}, ["gardener"]);
+}), ["gardener"]);
 
 // GET /api/reservations — the signed-in gardener's reservations, newest first.
 export const GET = withAuth(async ({ user }) => {

@@ -1,12 +1,14 @@
 import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
+import { idempotent } from "@/lib/api/idempotency";
 import { parseInput } from "@/lib/api/errors";
 import { bookingSchema } from "@/lib/validation/giveaways";
 import { bookGiveaway } from "@/lib/services/book-giveaway";
 import { requireVerifiedEmail } from "@/lib/auth/current-user";
 
 // POST /api/giveaways/:id/bookings — book a slot for my household (any signed-in account).
-export const POST = withAuth<{ id: string }>(async ({ req, params, user }) => {
+// With an Idempotency-Key, a retry gets the first answer and takes no second place.
+export const POST = withAuth<{ id: string }>(idempotent(async ({ req, params, user }) => {
   requireVerifiedEmail(user);
   const input = parseInput(bookingSchema, await readJson(req));
   const b = await bookGiveaway(user.id, params.id, input);
@@ -20,4 +22,4 @@ export const POST = withAuth<{ id: string }>(async ({ req, params, user }) => {
     },
     { status: 201 },
   );
-});
+}));
