@@ -10,7 +10,8 @@ import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { formatMoney } from "@/lib/payments/money";
 import { depositLabel } from "@/lib/format/giveaway-deposit";
 import { readableDateTime, wallTime } from "@/lib/time/zoned";
-import { apiFetch, isApiError } from "@/lib/api/client";
+import { isApiError, submitOnce } from "@/lib/api/client";
+import { useSubmitKeys } from "@/components/ui/use-submit-keys";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
@@ -62,6 +63,7 @@ export function BookingPanel(p: BookingPanelProps) {
 function BookForm(p: BookingPanelProps) {
   const router = useRouter();
   const [error, setError] = useState<string | null>(null);
+  const keys = useSubmitKeys();
   const firstOpen = p.slots.find((s) => s.remaining > 0);
   const form = useForm<Values>({ resolver: zodResolver(bookingSchema), defaultValues: { slot_id: firstOpen?.id ?? "", quantity: Math.min(p.householdCap, p.unit === "bags" ? 2 : 0.5) } });
   const unitWord = p.unit === "bags" ? "bags" : "m³";
@@ -77,7 +79,7 @@ function BookForm(p: BookingPanelProps) {
       return;
     }
     try {
-      const res = await apiFetch<{ checkout_url?: string }>(`/api/giveaways/${p.dayId}/bookings`, { body: values });
+      const res = await submitOnce<{ checkout_url?: string }>(keys, `/api/giveaways/${p.dayId}/bookings`, { body: values });
       // A deposit day: the place is held, and the card page puts the deposit on hold.
       if (res.checkout_url) window.location.assign(res.checkout_url);
       else router.refresh();
@@ -176,7 +178,7 @@ function MyBooking(p: BookingPanelProps & { booking: VisitorBooking }) {
           Add to calendar (.ics)
         </a>
         {canCancel ? (
-          <Button variant="danger" disabled={action.busy} onClick={() => action.run(`/api/giveaways/${p.dayId}/bookings/${b.id}`, { method: "DELETE" })}>
+          <Button variant="danger" disabled={action.busy} onClick={() => action.run(`/api/giveaways/${p.dayId}/bookings/${b.id}`, { method: "DELETE", idempotent: true })}>
             {action.busy ? "Cancelling…" : "Cancel my booking"}
           </Button>
         ) : null}

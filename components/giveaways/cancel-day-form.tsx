@@ -16,7 +16,7 @@ export function CancelDayForm({ dayId, booked, depositCents }: { dayId: string; 
   const form = useForm<Values>({ resolver: zodResolver(cancelGiveawaySchema), defaultValues: { reason: "" } });
   const onSubmit = form.handleSubmit(async (values) => {
     if (!window.confirm(`Call the day off? ${booked} booked ${booked === 1 ? "household is" : "households are"} e-mailed and every booking is cancelled.`)) return;
-    await action.run(`/api/council/giveaways/${dayId}/cancel`, { body: values });
+    await action.run(`/api/council/giveaways/${dayId}/cancel`, { body: values, idempotent: true });
   });
   const err = form.formState.errors.reason?.message;
   return (

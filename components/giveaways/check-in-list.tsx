@@ -31,7 +31,7 @@ export function CheckInList({ dayId, rows, unit, timeZone, currency, now }: { da
   const arrived = rows.filter((r) => r.status === "checked_in").length;
   const mark = async (row: CheckInRow, status: "checked_in" | "booked" | "no_show") => {
     setPending(row.id);
-    await action.run(`/api/council/giveaways/${dayId}/bookings/${row.id}`, { method: "PATCH", body: { status } });
+    await action.run(`/api/council/giveaways/${dayId}/bookings/${row.id}`, { method: "PATCH", body: { status }, idempotent: true });
     setPending(null);
   };
   return (

@@ -1,6 +1,7 @@
 "use client";
 import { useMutation, useQuery } from "@tanstack/react-query";
-import { apiFetch } from "@/lib/api/client";
+import { apiFetch, submitOnce } from "@/lib/api/client";
+import { useSubmitKeys } from "@/components/ui/use-submit-keys";
 import type { PickupPlanResponse } from "@/lib/services/plan-pickups";
 import type { MatchRequest } from "@/lib/validation/match";
 
@@ -30,5 +31,6 @@ export interface ReserveAllAnswer {
 
 /** Hands a plan's allocations to the reservation flow (all or nothing). */
 export function useReserveAll() {
-  return useMutation({ mutationFn: (body: ReserveAllBody) => apiFetch<ReserveAllAnswer>("/api/reservations", { body }) });
+  const keys = useSubmitKeys();
+  return useMutation({ mutationFn: (body: ReserveAllBody) => submitOnce<ReserveAllAnswer>(keys, "/api/reservations", { body }) });
 }

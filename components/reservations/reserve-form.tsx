@@ -5,7 +5,8 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import type { z } from "zod";
 import { reserveOneSchema } from "@/lib/validation/reservations";
-import { apiFetch, isApiError } from "@/lib/api/client";
+import { isApiError, submitOnce } from "@/lib/api/client";
+import { useSubmitKeys } from "@/components/ui/use-submit-keys";
 import { formatMoney, priceFor } from "@/lib/payments/money";
 import { quantityLabel, WHOLE_UNITS } from "@/lib/reservations/labels";
 import { equivalentOf } from "@/lib/reservations/equivalents";
@@ -29,6 +30,7 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
   const router = useRouter();
   const culture = offer.culture;
   const [error, setError] = useState<string | null>(null);
+  const keys = useSubmitKeys();
   const whole = WHOLE_UNITS.has(offer.unit);
   const form = useForm<Values>({
     resolver: zodResolver(reserveOneSchema),
@@ -54,7 +56,7 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
     try {
       // A parcel has no pickup window; a collected culture has no postal address.
       const body = values.fulfilment === "post" ? { ...values, pickup_window_id: null } : { ...values, ship_to: null };
-      answer = await apiFetch<Answer>("/api/reservations", { body });
+      answer = await submitOnce<Answer>(keys, "/api/reservations", { body });
     } catch (err) {
       if (isApiError(err) && err.fields) for (const [name, message] of Object.entries(err.fields)) form.setError(name as keyof Values, { message });
       setError(isApiError(err) ? err.message : "We could not reserve it. Please try again.");
