@@ -1,13 +1,32 @@
 // `npm run db:migrate | db:rollback | db:seed` — the same migration list the app uses.
+// `npm run db:backup -- <file>` and `npm run db:restore -- <file> [--force]` (db/backup.ts).
 import knex from "knex";
 import { checkStartup } from "../lib/env";
 import { configFor } from "../knexfile";
 import { seed } from "../seeds/demo";
+import { backupDatabase, restoreDatabase, type BackupResult } from "./backup";
+
+function describe(r: BackupResult): string {
+  const rows = Object.entries(r.tables).map(([t, n]) => `${t} ${n}`).join(", ");
+  return `${r.file} (${(r.bytes / 1024).toFixed(0)} KiB): ${rows}`;
+}
 
 async function main() {
   const command = process.argv[2];
   checkStartup("db");
   const env = process.env.DUFFBANK_DB_ENV ?? (process.env.NODE_ENV === "production" ? "production" : "development");
+  if (command === "backup" || command === "restore") {
+    const file = process.argv.slice(3).find((a) => !a.startsWith("--"));
+    if (!file) throw new Error(`name the file: npm run db:${command} -- <file>${command === "restore" ? " [--force]" : ""}`);
+    if (command === "backup") {
+      console.log(`[db] backed up to ${describe(await backupDatabase(configFor(env), file))}`);
+    } else {
+      const r = await restoreDatabase(configFor(env), file, { force: process.argv.includes("--force") });
+      console.log(`[db] restored ${describe(r)}${r.keptAs ? `; the database it replaced is kept as ${r.keptAs}` : ""}`);
+      console.log("[db] start the app as usual: it runs any newer migrations first.");
+    }
+    return;
+  }
   const conn = knex(configFor(env));
   try {
     if (command === "migrate") {
@@ -20,7 +39,7 @@ async function main() {
       const counts = await seed(conn);
       console.log(`[db] demo seeded: ${JSON.stringify(counts)}`);
     } else {
-      throw new Error(`unknown command ${command ?? "(none)"}; use migrate, rollback or seed`);
+      throw new Error(`unknown command ${command ?? "(none)"}; use migrate, rollback, seed, backup or restore`);
     }
   } finally {
     await conn.destroy();

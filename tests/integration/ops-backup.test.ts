@@ -1,0 +1,150 @@
+// `npm run db:backup` while two processes keep writing, and `npm run db:restore`: the copy
+// holds whole transactions only (its row counts agree with each other and lie between the
+// live counts before and after), passes integrity_check, and a restore refuses to overwrite
+// without --force and while the app or worker is alive.
+import { execFile, spawn } from "node:child_process";
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { promisify } from "node:util";
+import Database from "better-sqlite3";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { freshDb } from "../helpers/db";
+import { createUser } from "../factories";
+import { createListing } from "../reservation-factories";
+
+const exec = promisify(execFile);
+const ROOT = path.resolve(__dirname, "../..");
+const TSX = ["--conditions=react-server", "--import", "tsx"];
+
+let ctx: Awaited<ReturnType<typeof freshDb>>;
+let dir: string;
+
+beforeAll(async () => {
+  ctx = await freshDb({ materials: true });
+  dir = fs.mkdtempSync(path.join(os.tmpdir(), "duffbank-backup-"));
+});
+afterAll(async () => {
+  await ctx.close();
+  fs.rmSync(dir, { recursive: true, force: true });
+});
+
+/** `npm run db:<command> -- <args>` as an operator runs it, against `file`. */
+function dbCli(command: "backup" | "restore", args: string[], file: string) {
+  return exec(process.execPath, [...TSX, "db/cli.ts", command, ...args], { cwd: ROOT, env: { ...process.env, NODE_ENV: "test", DATABASE_FILE: file }, encoding: "utf8", timeout: 60_000 });
+}
+
+function counts(file: string) {
+  const c = new Database(file, { readonly: true });
+  try {
+    const one = (sql: string) => Number(c.prepare(sql).pluck().get());
+    return {
+      reservations: one("SELECT count(*) FROM reservations"),
+      events: one("SELECT count(*) FROM reservation_events"),
+      mail: one("SELECT count(*) FROM email_outbox"),
+      held: one("SELECT coalesce(sum(quantity_held), 0) FROM listings"),
+      heldBySum: one("SELECT coalesce(sum(quantity), 0) FROM reservations WHERE status = 'held'"),
+    };
+  } finally {
+    c.close();
+  }
+}
+
+describe("backing up under write load", () => {
+  it("writes a consistent copy whose row counts agree and which passes integrity_check", async () => {
+    const listing = await createListing({ quantity_total: 100_000 });
+    const gardeners = await Promise.all([0, 1].map(() => createUser({ roles: ["gardener"] })));
+    // A long read (a report, say) holds its snapshot through the load, so SQLite cannot fold
+    // the -wal back into the main file: what a plain file copy would miss, the backup must not.
+    const reader = new Database(ctx.file, { readonly: true });
+    reader.exec("BEGIN");
+    reader.prepare("SELECT count(*) FROM reservations").get();
+    const until = Date.now() + 9_000;
+    const writers = gardeners.map(
+      (g) =>
+        new Promise<{ held: number }>((resolve, reject) => {
+          const child = spawn(process.execPath, [...TSX, "tests/helpers/reserve-load.ts", listing.id, g.id, String(until)], { cwd: ROOT, env: { ...process.env, NODE_ENV: "test", DATABASE_FILE: ctx.file } });
+          let out = "";
+          child.stdout.on("data", (d) => (out += d));
+          child.stderr.on("data", (d) => process.stderr.write(d));
+          child.on("exit", (code) => (code === 0 ? resolve(JSON.parse(out)) : reject(new Error(`writer exited with ${code}`))));
+        }),
+    );
+    // Let the writers get going, then back up while they write.
+    while (counts(ctx.file).reservations < 20) await new Promise((r) => setTimeout(r, 100));
+    const before = counts(ctx.file);
+    const copy = path.join(dir, "under-load.sqlite");
+    const { stdout } = await dbCli("backup", [copy], ctx.file);
+    const after = counts(ctx.file);
+    reader.exec("COMMIT");
+    reader.close();
+    const written = await Promise.all(writers);
+
+    expect(stdout).toMatch(/backed up to .*under-load\.sqlite .*reservations \d+/);
+    expect(written.every((w) => w.held > 0)).toBe(true);
+    expect(after.reservations).toBeGreaterThan(before.reservations); // the load really ran during the backup
+
+    const c = new Database(copy, { readonly: true });
+    expect(c.pragma("integrity_check", { simple: true })).toBe("ok");
+    expect(c.pragma("journal_mode", { simple: true })).toBe("delete"); // one self-contained file
+    c.close();
+    expect(fs.existsSync(`${copy}-wal`)).toBe(false);
+
+    const got = counts(copy);
+    expect(got.reservations).toBeGreaterThanOrEqual(before.reservations);
+    expect(got.reservations).toBeLessThanOrEqual(after.reservations);
+    // Whole transactions only: every reservation with its history row, its two e-mails and its held unit.
+    expect(got.events).toBe(got.reservations);
+    expect(got.mail).toBe(2 * got.reservations);
+    expect(got.held).toBe(got.reservations);
+    expect(got.heldBySum).toBe(got.reservations);
+  }, 90_000);
+
+  it("will not write the backup over the live database", async () => {
+    await expect(dbCli("backup", [ctx.file], ctx.file)).rejects.toMatchObject({ stderr: expect.stringMatching(/over the live database/) });
+  });
+});
+
+describe("restoring", () => {
+  it("puts a backup in place of a missing database, refuses to overwrite one without --force, and keeps the one it replaces", async () => {
+    const backup = path.join(dir, "restore-source.sqlite");
+    await dbCli("backup", [backup], ctx.file);
+    const want = counts(backup);
+
+    const target = path.join(dir, "restored.sqlite");
+    const first = await dbCli("restore", [backup], target);
+    expect(first.stdout).toMatch(/restored .*restored\.sqlite/);
+    expect(counts(target)).toEqual(want);
+
+    // Something changed since; restoring over it needs --force.
+    const live = new Database(target);
+    live.prepare("DELETE FROM email_outbox").run();
+    live.close();
+    await expect(dbCli("restore", [backup], target)).rejects.toMatchObject({ stderr: expect.stringMatching(/--force/) });
+    expect(counts(target).mail).toBe(0);
+
+    const forced = await dbCli("restore", [backup, "--force"], target);
+    expect(counts(target)).toEqual(want);
+    const kept = forced.stdout.match(/kept as (\S+)/)?.[1];
+    expect(kept && fs.existsSync(kept)).toBeTruthy();
+    expect(counts(kept!).mail).toBe(0); // the replaced database, as it was
+  }, 60_000);
+
+  it("refuses while the app or a worker is alive, even with --force", async () => {
+    const backup = path.join(dir, "restore-busy.sqlite");
+    await dbCli("backup", [backup], ctx.file);
+    const target = path.join(dir, "busy.sqlite");
+    await dbCli("restore", [backup], target);
+    const live = new Database(target);
+    live.prepare("INSERT INTO heartbeats (id, kind, host, pid, started_at, beat_at) VALUES ('worker:test', 'worker', 'test', 1, ?, ?)").run(new Date().toISOString(), new Date().toISOString());
+    live.close();
+    await expect(dbCli("restore", [backup, "--force"], target)).rejects.toMatchObject({ stderr: expect.stringMatching(/still running: worker:test/) });
+  }, 60_000);
+
+  it("refuses a file that is not a sound Duffbank database", async () => {
+    const junk = path.join(dir, "junk.sqlite");
+    fs.writeFileSync(junk, "not a database at all, just text that is long enough to look like a header.".repeat(20));
+    await expect(dbCli("restore", [junk], path.join(dir, "never.sqlite"))).rejects.toMatchObject({ stderr: expect.stringMatching(/not a database|integrity/) });
+    expect(fs.existsSync(path.join(dir, "never.sqlite"))).toBe(false);
+  }, 60_000);
+});
