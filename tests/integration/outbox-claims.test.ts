@@ -1,14 +1,21 @@
 // The deliver-outbox job claims each message before sending it, so two workers running at
 // once (a second `npm run worker`, or old and new during a deploy) never send one twice.
+// E-mail exactly once, as far as SMTP allows: a message the server accepted is recorded as a
+// step of its own, and a failure to record it is retried as a mark, never as a second send;
+// claims are short and let go at shutdown; a mail server that hangs or refuses does not hold
+// the worker, and a message the server refuses for good is not tried for two days.
 import { execFile } from "node:child_process";
+import type { AddressInfo } from "node:net";
 import path from "node:path";
 import { promisify } from "node:util";
+import { SMTPServer } from "smtp-server";
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
+import { startSilentServer } from "../helpers/ports";
 import { startSmtpFake, type SmtpFake } from "@/lib/fakes/smtp/server";
-import { resetMailTransport } from "@/lib/mail/transport";
-import { enqueueEmail } from "@/db/outbox";
-import { CLAIM_MS, deliverOutbox, retryDelayMs } from "@/lib/mail/deliver-outbox";
+import { resetMailTransport, SMTP_TIMEOUTS } from "@/lib/mail/transport";
+import { enqueueEmail, releaseClaims } from "@/db/outbox";
+import { CLAIM_MS, deliverOutbox, messagesInFlight, retryDelayMs } from "@/lib/mail/deliver-outbox";
 
 const run = promisify(execFile);
 const ROOT = path.resolve(__dirname, "../..");
@@ -16,11 +23,15 @@ const ROOT = path.resolve(__dirname, "../..");
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 let smtp: SmtpFake;
 
+function useSmtpPort(port: number) {
+  process.env.SMTP_PORT = String(port);
+  resetMailTransport();
+}
+
 beforeAll(async () => {
   ctx = await freshDb();
   smtp = await startSmtpFake();
-  process.env.SMTP_PORT = String(smtp.smtpPort);
-  resetMailTransport();
+  useSmtpPort(smtp.smtpPort);
 });
 afterAll(async () => {
   await smtp.close();
@@ -29,7 +40,12 @@ afterAll(async () => {
 beforeEach(async () => {
   await ctx.db("email_outbox").delete();
   smtp.messages.length = 0;
+  useSmtpPort(smtp.smtpPort);
 });
+
+const queue = async (n: number, prefix: string, to = "someone@example.test") => {
+  for (let i = 0; i < n; i++) await enqueueEmail({ to, subject: `${prefix} ${i}`, text: "x", template: "test", dedupe_key: `${prefix}-${i}` });
+};
 
 type Outcome = { sent: number; failed: number; rounds: number };
 
@@ -97,5 +113,95 @@ describe("the claim on one message", () => {
     const later = new Date(Date.now() + retryDelayMs(1) + 1000);
     expect(await deliverOutbox(() => later)).toEqual({ sent: 1, failed: 0 });
     expect(smtp.messages.map((m) => m.subject)).toEqual(["During an outage"]);
+  });
+});
+
+describe("recording a send", () => {
+  it("retries a failed mark as a mark: the accepted message is never handed to SMTP again", async () => {
+    await queue(1, "Marked later");
+    // The database refuses the "sent" mark (a read-only or full disk for a moment).
+    await ctx.db.raw("CREATE TRIGGER refuse_mark BEFORE UPDATE OF status ON email_outbox WHEN NEW.status = 'sent' BEGIN SELECT RAISE(ABORT, 'disk I/O error'); END");
+    const t0 = new Date();
+    expect(await deliverOutbox(() => t0)).toEqual({ sent: 1, failed: 0 });
+    expect(smtp.messages).toHaveLength(1);
+    expect(messagesInFlight()).toHaveLength(1);
+    // Still refused: the next runs try the mark only, and send nothing else meanwhile.
+    expect(await deliverOutbox(() => new Date(t0.getTime() + 2000))).toEqual({ sent: 0, failed: 0 });
+    await ctx.db.raw("DROP TRIGGER refuse_mark");
+    // Later than the claim would last: the mark still comes first, and nothing is sent twice.
+    expect(await deliverOutbox(() => new Date(t0.getTime() + CLAIM_MS + 5000))).toEqual({ sent: 0, failed: 0 });
+    expect(smtp.messages).toHaveLength(1);
+    expect(messagesInFlight()).toHaveLength(0);
+    const row = await ctx.db("email_outbox").first();
+    expect(row).toMatchObject({ status: "sent", attempts: 0, claimed_until: null, claimed_by: null });
+    expect(row.smtp_message_id).toMatch(/^<.+@.+>/); // the Message-ID the server accepted, with its reply
+    expect(row.sent_at).toBe(t0.toISOString()); // when the server accepted it, not when it was marked
+  });
+
+  it("holds a claim for minutes, not a quarter of an hour", () => {
+    expect(CLAIM_MS).toBeLessThanOrEqual(5 * 60_000);
+    expect(CLAIM_MS).toBeGreaterThan(SMTP_TIMEOUTS.connectionTimeout + SMTP_TIMEOUTS.greetingTimeout + SMTP_TIMEOUTS.socketTimeout);
+  });
+
+  it("lets go of a stopped worker's claims, so the message goes out at once elsewhere", async () => {
+    await queue(2, "Held by a stopping worker");
+    const now = new Date();
+    await ctx.db("email_outbox").update({ claimed_until: new Date(now.getTime() + CLAIM_MS).toISOString(), claimed_by: "worker:old" });
+    expect(await deliverOutbox(() => now)).toEqual({ sent: 0, failed: 0 });
+    expect(await releaseClaims("worker:someone-else")).toBe(0); // only its own
+    expect(await releaseClaims("worker:old")).toBe(2);
+    expect(await deliverOutbox(() => now)).toEqual({ sent: 2, failed: 0 });
+    expect(smtp.messages.map((m) => m.subject).sort()).toEqual(["Held by a stopping worker 0", "Held by a stopping worker 1"]);
+  });
+});
+
+describe("a mail server that is not answering", () => {
+  it("hangs: one short timeout, then the batch moves on and the rest wait for the server", async () => {
+    const silent = await startSilentServer(); // takes the connection, never greets
+    try {
+      useSmtpPort(silent.port);
+      await queue(5, "Into the void");
+      const started = Date.now();
+      const t0 = new Date();
+      expect(await deliverOutbox(() => t0)).toEqual({ sent: 0, failed: 1 });
+      const took = Date.now() - started;
+      expect(took).toBeLessThan(SMTP_TIMEOUTS.greetingTimeout + SMTP_TIMEOUTS.connectionTimeout + 2000);
+      const rows = await ctx.db("email_outbox").orderBy("attempts", "desc");
+      expect(rows.map((r: { attempts: number }) => r.attempts)).toEqual([1, 0, 0, 0, 0]);
+      expect(rows.every((r: { waiting_for: string; claimed_until: string | null }) => r.waiting_for === "smtp" && r.claimed_until === null)).toBe(true);
+      // While it stays silent, later runs cost one quick question, not a timeout per message.
+    } finally {
+      await silent.close();
+    }
+    useSmtpPort(smtp.smtpPort);
+    expect(await deliverOutbox(() => new Date())).toEqual({ sent: 5, failed: 0 });
+  }, 30_000);
+
+  it("refuses a recipient for good: that message fails at once, the others go", async () => {
+    const strict = new SMTPServer({
+      authOptional: true,
+      disabledCommands: ["STARTTLS"],
+      logger: false,
+      onRcptTo(address, _session, cb) {
+        if (address.address.startsWith("gone@")) cb(Object.assign(new Error("5.1.1 No such mailbox"), { responseCode: 550 }));
+        else cb();
+      },
+      onData(stream, _session, cb) {
+        stream.resume();
+        stream.on("end", () => cb());
+      },
+    });
+    await new Promise<void>((r) => strict.listen(0, "127.0.0.1", () => r()));
+    try {
+      useSmtpPort((strict.server.address() as AddressInfo).port);
+      await queue(1, "Bounces", "gone@example.test");
+      await queue(2, "Arrives");
+      expect(await deliverOutbox()).toEqual({ sent: 2, failed: 1 });
+      const bounced = await ctx.db("email_outbox").first().where({ to_address: "gone@example.test" });
+      expect(bounced).toMatchObject({ status: "failed", attempts: 1, waiting_for: null });
+      expect(bounced.last_error).toMatch(/550/);
+    } finally {
+      await new Promise<void>((r) => strict.close(() => r()));
+    }
   });
 });
