@@ -169,7 +169,7 @@ function MyBooking(p: BookingPanelProps & { booking: VisitorBooking }) {
               Put down the deposit
             </a>
           ) : (
-            "The card page could not be opened just now; reload in a minute."
+            "The card page could not be opened just now. Your place stays held: reload in a minute to try again, and we e-mail you as soon as it opens."
           )}
         </Notice>
       ) : null}

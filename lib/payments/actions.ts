@@ -93,52 +93,85 @@ async function intentOfSession(row: PaymentRow): Promise<string | null> {
   return typeof session.payment_intent === "string" ? session.payment_intent : (session.payment_intent?.id ?? null);
 }
 
-/** Runs one payment's owed Stripe call; true when it is done (or nothing was owed). */
-export async function runPaymentAction(id: string, clock: () => Date = () => new Date(), q: Db = db()): Promise<boolean> {
+type Attempt = "done" | "failed" | "unreachable";
+
+async function attempt(id: string, clock: () => Date, q: Db): Promise<Attempt> {
   const row = await findPayment(id, q);
-  if (!row?.pending_action) return true;
+  if (!row?.pending_action) return "done";
   try {
     const outcome = await perform(row, clock, q);
     // Only clear the action this run performed: a newer one written meanwhile stays.
     await q("payments")
       .where({ id, pending_action: row.pending_action })
       .update({ ...outcome, pending_action: null, next_action_at: null, waiting_for: null, updated_at: nowIso(clock) });
-    return true;
+    return "done";
   } catch (err) {
     const attempts = row.action_attempts + 1;
+    const unreachable = stripeUnreachable(err);
     await updatePayment(
       id,
       {
         action_attempts: attempts,
         next_action_at: new Date(clock().getTime() + actionRetryDelayMs(attempts)).toISOString(),
         last_error: (err as Error).message.slice(0, 500),
-        waiting_for: stripeUnreachable(err) ? "stripe" : null,
+        waiting_for: unreachable ? "stripe" : null,
       },
       q,
     );
-    return false;
+    return unreachable ? "unreachable" : "failed";
   }
 }
 
-export async function runPaymentActions(ids: Iterable<string>, clock?: () => Date, q?: Db): Promise<void> {
-  for (const id of new Set(ids)) await runPaymentAction(id, clock, q);
+/** Runs one payment's owed Stripe call; true when it is done (or nothing was owed). */
+export async function runPaymentAction(id: string, clock: () => Date = () => new Date(), q: Db = db()): Promise<boolean> {
+  return (await attempt(id, clock, q)) === "done";
+}
+
+/**
+ * Runs the calls a change owes, right after it commits. Once Stripe proves unreachable the
+ * rest are not tried one timeout after another inside the request: they wait for Stripe,
+ * and the worker makes them as soon as it answers.
+ */
+export async function runPaymentActions(ids: Iterable<string>, clock: () => Date = () => new Date(), q: Db = db()): Promise<void> {
+  let unreachable = false;
+  for (const id of new Set(ids)) {
+    if (unreachable) await waitForStripe(id, clock, q);
+    else unreachable = (await attempt(id, clock, q)) === "unreachable";
+  }
+}
+
+async function waitForStripe(id: string, clock: () => Date, q: Db) {
+  await q("payments")
+    .where({ id })
+    .whereNotNull("pending_action")
+    .update({ waiting_for: "stripe", next_action_at: new Date(clock().getTime() + actionRetryDelayMs(1)).toISOString() });
 }
 
 /**
  * The worker's job: every owed call that is due. Calls that failed because Stripe could not
  * be reached wait for it rather than for their backoff: as soon as Stripe answers (asked at
  * most every few seconds, or shown by any call going through) they are all due at once.
+ * The first call that finds Stripe unreachable ends the batch; the rest wait for it too.
  */
 export async function settlePayments(clock: () => Date = () => new Date(), q: Db = db(), opts: { signal?: AbortSignal } = {}): Promise<{ done: number; failed: number }> {
   let done = 0;
   let failed = 0;
   if ((await anyWaitingForStripe(q)) && (await probeStripe()).ok) await wakeWaitingForStripe(clock().toISOString(), q);
+  let unreachable = false;
   for (const row of await dueActions(clock().toISOString(), 20, q)) {
     if (opts.signal?.aborted) break;
-    if (await runPaymentAction(row.id, clock, q)) {
+    if (unreachable) {
+      await waitForStripe(row.id, clock, q);
+      continue;
+    }
+    const outcome = await attempt(row.id, clock, q);
+    if (outcome === "done") {
       done++;
       if (done === 1 && (await anyWaitingForStripe(q))) await wakeWaitingForStripe(clock().toISOString(), q);
-    } else failed++;
+    } else {
+      failed++;
+      unreachable = outcome === "unreachable";
+    }
   }
   return { done, failed };
 }

@@ -1,5 +1,6 @@
 // The worker process started beside the app: runs each job on its interval, one at a time
-// per job, and logs failures without stopping.
+// per job, and logs failures without stopping. SIGTERM or SIGINT stops it cleanly within 20 s
+// (lib/worker/runner.ts).
 //
 // `npm run worker -- --once expire-holds [more job names]` runs the named jobs once and
 // exits: with DUFFBANK_CLOCK set it is how a test (or an operator) runs a job "later" on

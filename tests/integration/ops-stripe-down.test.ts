@@ -17,7 +17,7 @@ import { GET as getOne } from "@/app/api/reservations/[id]/route";
 import { POST as checkout } from "@/app/api/reservations/[id]/checkout/route";
 import { POST as cancel } from "@/app/api/reservations/[id]/cancel/route";
 import { POST as decline } from "@/app/api/reservations/[id]/decline/route";
-import { settlePayments } from "@/lib/payments/actions";
+import { runPaymentActions, settlePayments } from "@/lib/payments/actions";
 import { DEFAULT_STRIPE_TIMEOUT_MS, resetStripe } from "@/lib/payments/stripe";
 import { expireHolds } from "@/lib/services/expire-holds";
 
@@ -131,6 +131,25 @@ describe("calls owed to Stripe", () => {
     stripeBack();
     expect(await settlePayments(() => new Date())).toMatchObject({ done: 1, failed: 0 });
     expect(await ctx.db("payments").first("*").where({ id: refund.id })).toMatchObject({ pending_action: null, status: "succeeded" });
+  }, 30_000);
+
+  it("are not tried one timeout after another inside a request: after the first, the rest wait for Stripe", async () => {
+    stripeBack();
+    const ids: string[] = [];
+    for (let i = 0; i < 3; i++) ids.push((await reserveStraw(1)).res.json.reservation.id);
+    const charges = await Promise.all(ids.map(charge));
+    // Three checkouts to close, as cancelling a batch would owe.
+    for (const c of charges) await ctx.db("payments").where({ id: c.id }).update({ pending_action: "expire" });
+    stripeHangs();
+    const started = Date.now();
+    await runPaymentActions(charges.map((c) => c.id));
+    expect(Date.now() - started).toBeLessThan(DEFAULT_STRIPE_TIMEOUT_MS + 3000); // one timeout, not three
+    const after = await ctx.db("payments").whereIn("id", charges.map((c) => c.id)).orderBy("action_attempts", "desc");
+    expect(after.map((p: { action_attempts: number }) => p.action_attempts)).toEqual([1, 0, 0]);
+    expect(after.every((p: { pending_action: string; waiting_for: string }) => p.pending_action === "expire" && p.waiting_for === "stripe")).toBe(true);
+    stripeBack();
+    expect(await settlePayments(() => new Date())).toMatchObject({ done: 3, failed: 0 });
+    for (const c of charges) expect((await ctx.db("payments").first("status", "pending_action").where({ id: c.id }))).toEqual({ status: "expired", pending_action: null });
   }, 30_000);
 });
 
