@@ -1,4 +1,12 @@
-import Client_BetterSQLite3 from "knex/lib/dialects/better-sqlite3";
+import { createRequire } from "node:module";
+import path from "node:path";
+import type Client_BetterSQLite3Type from "knex/lib/dialects/better-sqlite3";
+
+// Loaded from node_modules when the process runs, never bundled: knex is an external package
+// of the Next.js server, and bundling this one file of it would drag in every other dialect.
+// The module name is built at run time so the bundler leaves the require alone.
+const runtimeRequire = createRequire(path.join(process.cwd(), "package.json"));
+const Client_BetterSQLite3 = runtimeRequire(["knex", "lib", "dialects", "better-sqlite3"].join("/")) as typeof Client_BetterSQLite3Type;
 
 // Knex's better-sqlite3 client, changed in one way: a connection that meets storage gone
 // read-only, unopenable or failing is marked for replacement, so the pool opens a fresh one
