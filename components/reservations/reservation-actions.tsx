@@ -71,7 +71,7 @@ export function ReservationActions({ id, side, actions, canPay, payAgain = false
           {error.message}
         </p>
       ) : null}
-      {side === "gardener" && canPay ? <p className="text-sm text-humus-600">The reservation moves on as soon as Stripe tells us the payment is through.</p> : null}
+      {side === "gardener" && canPay && !payAgain ? <p className="text-sm text-humus-600">The reservation moves on as soon as Stripe tells us the payment is through.</p> : null}
     </div>
   );
 }
