@@ -153,9 +153,9 @@ export async function restoreSqlite(backup: string, target: string, opts: { forc
 
 // ---- PostgreSQL ---------------------------------------------------------------------
 
-function run(command: string, args: string[]): Promise<void> {
+function run(command: string, args: string[], quiet = false): Promise<void> {
   return new Promise((resolve, reject) => {
-    const child = spawn(command, args, { stdio: ["ignore", "inherit", "inherit"] });
+    const child = spawn(command, args, { stdio: ["ignore", quiet ? "ignore" : "inherit", quiet ? "ignore" : "inherit"] });
     child.on("error", (err) => reject(new Error(`${command} could not start (${err.message}); install the PostgreSQL client tools`)));
     child.on("exit", (code) => (code === 0 ? resolve() : reject(new Error(`${command} exited with ${code}`))));
   });
@@ -183,7 +183,7 @@ export async function backupPg(url: string, dest: string): Promise<BackupResult>
 
 export async function restorePg(url: string, backup: string, opts: { force: boolean; now?: Date }): Promise<BackupResult & { keptAs: null }> {
   if (!fs.existsSync(backup)) throw new Error(`there is no backup at ${backup}`);
-  await run("pg_restore", ["--list", backup]).catch(() => {
+  await run("pg_restore", ["--list", backup], true).catch(() => {
     throw new Error(`${backup} is not a pg_dump custom-format file`);
   });
   const conn = knex({ client: "pg", connection: url });
