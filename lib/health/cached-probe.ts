@@ -21,10 +21,14 @@ export interface CachedProbe {
   reset(): void;
 }
 
-function reason(err: unknown): string {
-  const e = err as { code?: string; message?: string };
-  const text = [e?.code, e?.message].filter(Boolean).join(": ") || String(err);
-  return text.slice(0, 200);
+/**
+ * Why a check failed, in a few words fit for a public answer: the error's code when it has
+ * one (ECONNREFUSED, SQLITE_FULL …), not its message, which can name hosts, ports or SQL.
+ */
+export function failureReason(err: unknown): string {
+  const e = err as { code?: unknown; message?: unknown };
+  if (typeof e?.code === "string" && e.code) return e.code;
+  return String(e?.message ?? err).split("\n")[0].slice(0, 120);
 }
 
 export function cachedProbe(ask: () => Promise<unknown>, ttlMs = PROBE_CACHE_MS, timeoutMs = PROBE_TIMEOUT_MS): CachedProbe {
@@ -42,7 +46,7 @@ export function cachedProbe(ask: () => Promise<unknown>, ttlMs = PROBE_CACHE_MS,
       ]);
       return { ok: true, latency_ms: Date.now() - started, checked_at: new Date().toISOString() };
     } catch (err) {
-      return { ok: false, latency_ms: Date.now() - started, checked_at: new Date().toISOString(), error: reason(err) };
+      return { ok: false, latency_ms: Date.now() - started, checked_at: new Date().toISOString(), error: failureReason(err) };
     } finally {
       clearTimeout(timer);
     }

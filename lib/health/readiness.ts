@@ -5,7 +5,7 @@ import { outboxFigures } from "@/db/outbox";
 import { probeMail } from "@/lib/mail/transport";
 import { probeMedia } from "@/lib/media/cloudinary";
 import { probeStripe } from "@/lib/payments/stripe";
-import type { ProbeResult } from "./cached-probe";
+import { failureReason, type ProbeResult } from "./cached-probe";
 
 // GET /api/health/ready: whether this app process can do its job right now, check by check.
 // Each check is { ok, …figures }; the whole is ok only when every check is. The database
@@ -31,10 +31,7 @@ export interface Readiness {
 const startedAt = new Date().toISOString();
 const appBeatId = `app:${os.hostname()}:${process.pid}`;
 
-function failed(err: unknown): Check {
-  const e = err as { code?: string; message?: string };
-  return { ok: false, error: [e?.code, e?.message].filter(Boolean).join(": ").slice(0, 200) || "failed" };
-}
+const failed = (err: unknown): Check => ({ ok: false, error: failureReason(err) });
 
 async function database(now: Date): Promise<Check> {
   const t = Date.now();
