@@ -10,10 +10,16 @@ import {
 import { mailFailure, probeMail, sendMail } from "./transport";
 
 // Backoff for a message the SMTP server would not take: 30 s, 1, 2, 4 … minutes, capped
-// at an hour, for up to two days of tries, so an outage delays mail but does not lose it.
+// at an hour, for two days from when it was written, so an outage delays mail but does not
+// lose it. (Counted in time, not tries: a mail server that answers the readiness question but
+// fails every send can make tries come faster than the backoff.)
 const BASE_DELAY_MS = 30_000;
 const MAX_DELAY_MS = 60 * 60_000;
-export const MAX_ATTEMPTS = 60;
+export const GIVE_UP_AFTER_MS = 48 * 3_600_000;
+// The mail server answering a question wakes everything that waited for it. If a send then
+// fails all the same, the next such wake waits 30 s, then 1 min, 2 … up to an hour, so a
+// server that answers but will not take mail is not tried every few seconds.
+const WAKE_COOLDOWN_BASE_MS = 30_000;
 // How long a worker's claim on a message lasts. It only runs out if that worker died between
 // claiming and recording the outcome (a worker that stops on purpose lets go of its claims):
 // longer than one send can take with the transport's timeouts, short enough that a message
@@ -35,6 +41,8 @@ export interface DeliverOptions {
 // was busy or read-only for a moment). They are marked at the start of the next run, and
 // never handed to SMTP again: the mark is retried, not the send.
 const unmarked = new Map<string, { messageId: string; acceptedAt: string }>();
+let lastWake = 0;
+let wakeCooldownMs = 0;
 // The message being handed to the SMTP server right now, if any.
 let sending: string | null = null;
 
@@ -74,8 +82,11 @@ export async function deliverOutbox(clock: () => Date = () => new Date(), opts: 
   let failed = 0;
   if ((await markAccepted()) > 0) return { sent, failed };
   const start = clock();
+  let woke = false;
   if (await anyWaitingForMailServer()) {
-    if (!(await probeMail()).ok) return { sent, failed };
+    if (Date.now() - lastWake < wakeCooldownMs || !(await probeMail()).ok) return { sent, failed };
+    lastWake = Date.now();
+    woke = true;
     await wakeWaitingForMailServer(start.toISOString());
   }
   for (const mail of await dueEmails(start.toISOString())) {
@@ -92,8 +103,10 @@ export async function deliverOutbox(clock: () => Date = () => new Date(), opts: 
       const attempts = mail.attempts + 1;
       const { service, permanent } = mailFailure(err);
       const nextAt = new Date(at.getTime() + retryDelayMs(attempts)).toISOString();
-      await markFailedAttempt(mail.id, { attempts, nextAt, error: (err as Error).message, giveUp: permanent || attempts >= MAX_ATTEMPTS, waitingFor: service ? "smtp" : null });
+      const expired = at.getTime() - new Date(mail.created_at).getTime() >= GIVE_UP_AFTER_MS;
+      await markFailedAttempt(mail.id, { attempts, nextAt, error: (err as Error).message, giveUp: permanent || expired, waitingFor: service ? "smtp" : null });
       if (service) {
+        if (woke) wakeCooldownMs = Math.min(MAX_DELAY_MS, Math.max(WAKE_COOLDOWN_BASE_MS, 2 * wakeCooldownMs));
         probeMail.reset();
         await holdForMailServer(at.toISOString(), nextAt);
         break;
@@ -101,8 +114,11 @@ export async function deliverOutbox(clock: () => Date = () => new Date(), opts: 
       continue;
     }
     sent++;
+    wakeCooldownMs = 0;
     unmarked.set(mail.id, { messageId, acceptedAt: clock().toISOString() });
     sending = null;
+    // A message went through: anything still waiting for the server is due now.
+    if (sent === 1 && (await anyWaitingForMailServer())) await wakeWaitingForMailServer(clock().toISOString());
     if ((await markAccepted()) > 0) break; // sent, but the database will not record it: stop here
   }
   return { sent, failed };

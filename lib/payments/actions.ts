@@ -147,6 +147,10 @@ async function waitForStripe(id: string, clock: () => Date, q: Db) {
     .update({ waiting_for: "stripe", next_action_at: new Date(clock().getTime() + actionRetryDelayMs(1)).toISOString() });
 }
 
+// When Stripe answering a question last woke the calls waiting for it, and how long the next
+// such wake must wait (0 until a woken call fails again).
+const wakes = { last: 0, cooldownMs: 0 };
+
 /**
  * The worker's job: every owed call that is due. Calls that failed because Stripe could not
  * be reached wait for it rather than for their backoff: as soon as Stripe answers (asked at
@@ -156,7 +160,12 @@ async function waitForStripe(id: string, clock: () => Date, q: Db) {
 export async function settlePayments(clock: () => Date = () => new Date(), q: Db = db(), opts: { signal?: AbortSignal } = {}): Promise<{ done: number; failed: number }> {
   let done = 0;
   let failed = 0;
-  if ((await anyWaitingForStripe(q)) && (await probeStripe()).ok) await wakeWaitingForStripe(clock().toISOString(), q);
+  let woke = false;
+  if ((await anyWaitingForStripe(q)) && Date.now() - wakes.last >= wakes.cooldownMs && (await probeStripe()).ok) {
+    wakes.last = Date.now();
+    woke = true;
+    await wakeWaitingForStripe(clock().toISOString(), q);
+  }
   let unreachable = false;
   for (const row of await dueActions(clock().toISOString(), 20, q)) {
     if (opts.signal?.aborted) break;
@@ -167,10 +176,13 @@ export async function settlePayments(clock: () => Date = () => new Date(), q: Db
     const outcome = await attempt(row.id, clock, q);
     if (outcome === "done") {
       done++;
+      wakes.cooldownMs = 0;
       if (done === 1 && (await anyWaitingForStripe(q))) await wakeWaitingForStripe(clock().toISOString(), q);
     } else {
       failed++;
       unreachable = outcome === "unreachable";
+      // Stripe answered the question but not the call: the next such wake waits longer.
+      if (unreachable && woke) wakes.cooldownMs = Math.min(60 * 60_000, Math.max(actionRetryDelayMs(1), 2 * wakes.cooldownMs));
     }
   }
   return { done, failed };

@@ -5,7 +5,7 @@
 // claims are short and let go at shutdown; a mail server that hangs or refuses does not hold
 // the worker, and a message the server refuses for good is not tried for two days.
 import { execFile } from "node:child_process";
-import type { AddressInfo } from "node:net";
+import net, { type AddressInfo } from "node:net";
 import path from "node:path";
 import { promisify } from "node:util";
 import { SMTPServer } from "smtp-server";
@@ -176,6 +176,31 @@ describe("a mail server that is not answering", () => {
     useSmtpPort(smtp.smtpPort);
     expect(await deliverOutbox(() => new Date())).toEqual({ sent: 5, failed: 0 });
   }, 30_000);
+
+  it("answers the question but hangs up on every send: the tries stay spaced out", async () => {
+    // Greets and answers EHLO (so it looks alive), then hangs up as soon as a message starts.
+    const flaky = net.createServer((socket) => {
+      socket.write("220 flaky ESMTP\r\n");
+      socket.on("data", (d) => {
+        const line = d.toString();
+        if (/^(EHLO|HELO)/i.test(line)) socket.write("250 flaky\r\n");
+        else if (/^QUIT/i.test(line)) socket.end("221 bye\r\n");
+        else socket.destroy();
+      });
+    });
+    await new Promise<void>((r) => flaky.listen(0, "127.0.0.1", r));
+    try {
+      useSmtpPort((flaky.address() as AddressInfo).port);
+      await queue(2, "Never lands");
+      expect(await deliverOutbox()).toEqual({ sent: 0, failed: 1 }); // the first send, then all wait
+      expect(await deliverOutbox()).toEqual({ sent: 0, failed: 1 }); // it answers again: one more try
+      expect(await deliverOutbox()).toEqual({ sent: 0, failed: 0 }); // answering is no longer enough for a while
+      const tries = await ctx.db("email_outbox").sum<{ n: number }[]>({ n: "attempts" });
+      expect(Number(tries[0].n)).toBe(2);
+    } finally {
+      await new Promise<void>((r) => flaky.close(() => r()));
+    }
+  });
 
   it("refuses a recipient for good: that message fails at once, the others go", async () => {
     const strict = new SMTPServer({
