@@ -64,6 +64,16 @@ export async function apiFetch<T = unknown>(path: string, opts: FetchOptions = {
   return data as T;
 }
 
+/** A random UUID; randomUUID exists only on secure pages (https or localhost), getRandomValues everywhere. */
+function newKey(): string {
+  if (typeof crypto.randomUUID === "function") return crypto.randomUUID();
+  const b = crypto.getRandomValues(new Uint8Array(16));
+  b[6] = (b[6] & 0x0f) | 0x40; // version 4
+  b[8] = (b[8] & 0x3f) | 0x80; // RFC 4122 variant
+  const hex = [...b].map((x) => x.toString(16).padStart(2, "0")).join("");
+  return `${hex.slice(0, 8)}-${hex.slice(8, 12)}-${hex.slice(12, 16)}-${hex.slice(16, 20)}-${hex.slice(20)}`;
+}
+
 /**
  * One Idempotency-Key per submit. The key is kept only while the same request is sent again
  * without an answer having come back (the connection dropped), so pressing the button again
@@ -74,7 +84,7 @@ export class SubmitKeys {
 
   keyFor(path: string, body: unknown): string {
     const request = `${path} ${JSON.stringify(body ?? null)}`;
-    if (this.last?.request !== request) this.last = { request, key: crypto.randomUUID() };
+    if (this.last?.request !== request) this.last = { request, key: newKey() };
     return this.last.key;
   }
 
