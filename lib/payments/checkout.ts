@@ -129,20 +129,42 @@ export async function startCheckout(paymentId: string, clock: () => Date = () =>
  * which makes it and tells the gardener. Null when there is no checkout to show now.
  */
 export async function openCheckout(paymentId: string, clock: () => Date = () => new Date(), q: Db = db()): Promise<string | null> {
-  try {
-    return await startCheckout(paymentId, clock, q);
-  } catch (err) {
-    console.error(`[checkout] could not open the checkout of payment ${paymentId}:`, (err as Error).message);
-    const row = await findPayment(paymentId, q);
-    if (row) {
-      const now = clock();
-      const attempts = row.action_attempts + 1;
-      await noteCheckoutNotOpened(
-        paymentId,
-        { attempts, nextAt: new Date(now.getTime() + actionRetryDelayMs(attempts)).toISOString(), error: (err as Error).message, waitingFor: stripeUnreachable(err) ? "stripe" : null, at: now.toISOString() },
-        q,
-      );
+  return (await openCheckouts([paymentId], clock, q)).get(paymentId) ?? null;
+}
+
+/**
+ * openCheckout for several payments (a "Reserve all"): once Stripe proves unreachable the
+ * rest are not tried one timeout after another; they are left to the worker straight away.
+ */
+export async function openCheckouts(paymentIds: string[], clock: () => Date = () => new Date(), q: Db = db()): Promise<Map<string, string | null>> {
+  const urls = new Map<string, string | null>();
+  let away: unknown = null;
+  for (const id of paymentIds) {
+    if (away) {
+      await notOpened(id, away, clock, q);
+      urls.set(id, null);
+      continue;
     }
-    return null;
+    try {
+      urls.set(id, await startCheckout(id, clock, q));
+    } catch (err) {
+      console.error(`[checkout] could not open the checkout of payment ${id}:`, (err as Error).message);
+      await notOpened(id, err, clock, q);
+      urls.set(id, null);
+      if (stripeUnreachable(err)) away = err;
+    }
   }
+  return urls;
+}
+
+async function notOpened(paymentId: string, err: unknown, clock: () => Date, q: Db) {
+  const row = await findPayment(paymentId, q);
+  if (!row) return;
+  const now = clock();
+  const attempts = row.action_attempts + 1;
+  await noteCheckoutNotOpened(
+    paymentId,
+    { attempts, nextAt: new Date(now.getTime() + actionRetryDelayMs(attempts)).toISOString(), error: (err as Error).message, waitingFor: stripeUnreachable(err) ? "stripe" : null, at: now.toISOString() },
+    q,
+  );
 }

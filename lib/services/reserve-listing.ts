@@ -8,7 +8,7 @@ import { availableOf, holdQuantity, insertReservation, listingsForReservation, p
 import type { ReservationRow } from "@/db/types";
 import { ApiError, type FieldErrors } from "@/lib/api/errors";
 import { mailReservation } from "@/lib/mail/reservation-mail";
-import { openCheckout } from "@/lib/payments/checkout";
+import { openCheckouts } from "@/lib/payments/checkout";
 import { MIN_CARD_CHARGE_CENTS, formatMoney, priceFor } from "@/lib/payments/money";
 import { WHOLE_UNITS, quantityLabel } from "@/lib/reservations/labels";
 import { holdMinutes } from "@/lib/reservations/policy";
@@ -215,13 +215,9 @@ export async function reserveListings(input: ReserveInput, deps: ReserveDeps = {
   // Stripe is called only after the hold is committed, for a few seconds at most: a slow or
   // failing Stripe never keeps the database locked, and a checkout it could not make is left
   // to the worker, which makes it and e-mails the gardener; the page can also try again.
-  let checkoutUrl: string | null = null;
-  const checkoutUrls = new Map<string, string | null>();
-  for (const r of created) {
-    if (!r.paymentId) continue;
-    const url = await openCheckout(r.paymentId, clock, q);
-    checkoutUrls.set(r.id, url);
-    checkoutUrl ??= url;
-  }
+  const owed = created.filter((r): r is { id: string; paymentId: string } => !!r.paymentId);
+  const opened = await openCheckouts(owed.map((r) => r.paymentId), clock, q);
+  const checkoutUrls = new Map(owed.map((r) => [r.id, opened.get(r.paymentId) ?? null]));
+  const checkoutUrl = [...checkoutUrls.values()].find((url) => url) ?? null;
   return { ids: created.map((r) => r.id), checkoutUrl, checkoutUrls };
 }

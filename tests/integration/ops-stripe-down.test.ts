@@ -74,6 +74,18 @@ describe("reserving a priced listing while Stripe takes the connection and never
     expect((await view(r.id, l.ownerId)).actions).not.toContain("confirm");
   }, 30_000);
 
+  it("waits out one timeout for a whole \"Reserve all\", not one per listing", async () => {
+    stripeHangs();
+    const listings = await Promise.all([0, 1, 2].map(() => createListing({ material: "straw", unit: "bales", price_cents: 450, quantity_total: 10 })));
+    const started = Date.now();
+    const res = await call(reserve, await request("/api/reservations", { body: { items: listings.map((l) => ({ listing_id: l.id, quantity: 1 })) }, as: gardener }));
+    expect(Date.now() - started).toBeLessThan(DEFAULT_STRIPE_TIMEOUT_MS + 3000);
+    expect(res.status).toBe(201);
+    expect(res.json.reservations.map((r: { payment: { checkout: string } }) => r.payment.checkout)).toEqual(["not_opened", "not_opened", "not_opened"]);
+    const rows = await ctx.db("payments").whereIn("reservation_id", res.json.reservations.map((r: { id: string }) => r.id));
+    expect(rows.every((p: { pending_action: string; waiting_for: string }) => p.pending_action === "open" && p.waiting_for === "stripe")).toBe(true);
+  }, 30_000);
+
   it("lets the gardener try again: refused plainly while Stripe is away, the payment page once it is back", async () => {
     stripeAt(await closedPort()); // refused at once this time
     const { res } = await reserveStraw(1);
