@@ -14,11 +14,11 @@ export const ERROR_STATUS = {
   insufficient_quantity: 409,
   slot_full: 409,
   household_limit: 409,
-  payload_too_large: 413,
-  unsupported_media_type: 415,
   // Idempotency-Key (lib/api/idempotency.ts): the key was used for another request, or its first request still runs.
   idempotency_mismatch: 409,
   request_in_progress: 409,
+  payload_too_large: 413,
+  unsupported_media_type: 415,
   rate_limited: 429,
   internal: 500,
 } as const;

@@ -65,7 +65,7 @@ export const MAX_JSON_BYTES = 1024 * 1024;
 const JSON_TYPE = /^application\/(?:[\w.+-]+\+)?json\s*(?:;|$)/i;
 
 /** The body as text, stopping with a 413 as soon as it passes `limit` bytes. */
-async function readText(req: Request, limit: number): Promise<string> {
+export async function readText(req: Request, limit: number = MAX_JSON_BYTES): Promise<string> {
   if (!req.body) return "";
   const reader = req.body.getReader();
   const chunks: Uint8Array[] = [];

@@ -5,7 +5,7 @@ import { NextResponse } from "next/server";
 import { claimIdempotencyKey, completeIdempotencyKey, findIdempotencyKey, type IdempotencyRow } from "@/db/idempotency-keys";
 import type { SessionUser } from "@/lib/auth/current-user";
 import { ApiError } from "./errors";
-import { toErrorResponse, type HandlerArgs } from "./handler";
+import { readText, toErrorResponse, type HandlerArgs } from "./handler";
 
 // Retry-safe writes. A money-moving route wrapped in idempotent() honours an Idempotency-Key
 // header: the first request with a key runs, and its answer is kept for a day; the same key
@@ -88,7 +88,8 @@ export function idempotent<P>(fn: Handler<P>): Handler<P> {
     }
     const method = args.req.method;
     const path = args.req.nextUrl.pathname;
-    const hash = createHash("sha256").update(canonical(await args.req.clone().text())).digest("hex");
+    // A copy of the body, read within the same 1 MB limit as the handler's own read.
+    const hash = createHash("sha256").update(canonical(await readText(args.req.clone()))).digest("hex");
     const now = new Date();
     const claimed = await claimIdempotencyKey({
       user_id: args.user.id,
