@@ -51,6 +51,8 @@ const schema = z.object({
   APP_URL: optional.pipe(z.url({ protocol: /^https?$/, error: "must be an http(s) URL, like https://duffbank.example.org" }).optional()),
   NEXTAUTH_URL: optional.pipe(z.url({ protocol: /^https?$/, error: "must be an http(s) URL, like https://duffbank.example.org" }).optional()),
   PORT: optional,
+  // How long a request waits for Stripe, in ms (lib/payments/stripe.ts).
+  STRIPE_TIMEOUT_MS: optional.pipe(z.string().regex(/^[1-9]\d*$/, "must be a whole number of milliseconds, like 5000").transform(Number).optional()),
 });
 
 export type AppEnv = z.infer<typeof schema>;

@@ -1,6 +1,6 @@
 import "server-only";
 import Stripe from "stripe";
-import { DEMO_SECRETS, secret } from "@/lib/env";
+import { DEMO_SECRETS, readEnv, secret } from "@/lib/env";
 import { cachedProbe } from "@/lib/health/cached-probe";
 
 // The official Stripe SDK. With the local test key (the default) it talks to the
@@ -45,8 +45,7 @@ export function stripeConfig(env: Record<string, string | undefined> = process.e
 export const DEFAULT_STRIPE_TIMEOUT_MS = 5_000;
 
 export function stripeTimeoutMs(env: Record<string, string | undefined> = process.env): number {
-  const n = Number(env.STRIPE_TIMEOUT_MS);
-  return Number.isInteger(n) && n > 0 ? n : DEFAULT_STRIPE_TIMEOUT_MS;
+  return readEnv(env).STRIPE_TIMEOUT_MS ?? DEFAULT_STRIPE_TIMEOUT_MS;
 }
 
 /** The options the SDK is built with: the endpoint only when it is overridden. */

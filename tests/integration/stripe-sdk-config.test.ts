@@ -35,6 +35,12 @@ describe("stripeConfig", () => {
     expect(options).not.toHaveProperty("protocol");
     expect(stripeOptions(stripeConfig({}))).toMatchObject({ host: "127.0.0.1", port: 12111, protocol: "http" });
   });
+
+  it("gives a request a few seconds of Stripe and no retries (STRIPE_TIMEOUT_MS overrides, a bad value is ignored)", () => {
+    expect(stripeOptions(stripeConfig({}), {})).toMatchObject({ timeout: 5000, maxNetworkRetries: 0 });
+    expect(stripeOptions(stripeConfig({}), { STRIPE_TIMEOUT_MS: "2500" })).toMatchObject({ timeout: 2500 });
+    expect(stripeOptions(stripeConfig({}), { STRIPE_TIMEOUT_MS: "soon" })).toMatchObject({ timeout: 5000 });
+  });
 });
 
 describe("the SDK built from the environment", () => {
