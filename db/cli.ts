@@ -13,8 +13,8 @@ function describe(r: BackupResult): string {
 
 async function main() {
   const command = process.argv[2];
-  checkStartup("db");
   const env = process.env.DUFFBANK_DB_ENV ?? (process.env.NODE_ENV === "production" ? "production" : "development");
+  // Copying the database in or out uses no secret: a backup job needs only the database's address.
   if (command === "backup" || command === "restore") {
     const file = process.argv.slice(3).find((a) => !a.startsWith("--"));
     if (!file) throw new Error(`name the file: npm run db:${command} -- <file>${command === "restore" ? " [--force]" : ""}`);
@@ -27,6 +27,7 @@ async function main() {
     }
     return;
   }
+  checkStartup("db");
   const conn = knex(configFor(env));
   try {
     if (command === "migrate") {
