@@ -3,7 +3,8 @@
 import type { Polygon } from "geojson";
 import { z } from "zod";
 import { polygonArea, polygonProblem, polygonSpan } from "@/lib/calc/area";
-import { CARDBOARD_OVERLAP_CM, LAYER_DEPTH_CM, MOISTURE_PCT } from "@/lib/calc/facts";
+import { MAX_OVERLAP_SHARE } from "@/lib/calc/cardboard";
+import { CARDBOARD_OVERLAP_CM, DEFAULT_CARDBOARD_SHEET, LAYER_DEPTH_CM, MOISTURE_PCT } from "@/lib/calc/facts";
 import { isCalendarDate } from "@/lib/calc/timeline";
 
 /** A product limit, not a fact: a hectare is already a market garden, not a bed. */
@@ -138,7 +139,15 @@ export const layersSchema = strictObject({
           sheet_width_m: sheetSide.optional(),
         },
         "a cardboard setting",
-      ),
+      ).superRefine((c, ctx) => {
+        // Wider seams bury most of each sheet, and tiny sheets with wide seams make a grid
+        // of millions: refused (lib/calc/cardboard.ts MAX_OVERLAP_SHARE).
+        const shorter = Math.min(c.sheet_length_m ?? DEFAULT_CARDBOARD_SHEET.length_m, c.sheet_width_m ?? DEFAULT_CARDBOARD_SHEET.width_m);
+        const most = MAX_OVERLAP_SHARE * shorter * 100;
+        if ((c.overlap_cm ?? CARDBOARD_OVERLAP_CM.default) > most + 1e-9) {
+          ctx.addIssue({ code: "custom", path: ["overlap_cm"], message: `overlap must be at most half the sheet's shorter side, ${Number(most.toFixed(1))} cm` });
+        }
+      }),
     ], { error: ON_OFF_OR_SETTINGS })
     .optional(),
   leaves: depthLayer(LAYER_DEPTH_CM.leaves).optional(),

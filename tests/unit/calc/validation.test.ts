@@ -41,6 +41,7 @@ describe("estimateSchema", () => {
     ["chips too deep", { bed: { length_m: 2, width_m: 2 }, layers: { wood_chips: { depth_cm: 16 } } }, "layers.wood_chips.depth_cm"],
     ["an overlap under 10 cm", { bed: { length_m: 2, width_m: 2 }, layers: { cardboard: { overlap_cm: 5 } } }, "layers.cardboard.overlap_cm"],
     ["a tiny sheet", { bed: { length_m: 2, width_m: 2 }, layers: { cardboard: { sheet_width_m: 0.2 } } }, "layers.cardboard.sheet_width_m"],
+    ["seams wider than half the sheet", { bed: { length_m: 2, width_m: 2 }, layers: { cardboard: { sheet_width_m: 0.35, sheet_length_m: 0.35, overlap_cm: 30 } } }, "layers.cardboard.overlap_cm"],
     ["a layer that is neither on/off nor settings", { bed: { length_m: 2, width_m: 2 }, layers: { straw: "yes" } }, "layers.straw"],
     ["a negative worm stocking", { bed: { length_m: 2, width_m: 2 }, layers: { worms: { kg_per_m2: -1 } } }, "layers.worms.kg_per_m2"],
     ["a date not on the calendar", { bed: { length_m: 2, width_m: 2 }, start_date: "2023-02-29" }, "start_date"],
