@@ -8,6 +8,8 @@ export interface CollectedRow {
   material_code: string;
   unit: string;
   unit_size: number | null;
+  /** A bag's or bale's stated weight; giveaway days state none. */
+  unit_mass_kg?: number | null;
 }
 
 export interface CheckedInRow extends CollectedRow {
@@ -29,7 +31,7 @@ export interface DiversionScope {
 export async function collectedReservations(scope: DiversionScope | null, q: Db = db()): Promise<CollectedRow[]> {
   const query = q("reservations as r")
     .join("listings as l", "l.id", "r.listing_id")
-    .select("r.quantity", "r.gardener_id as household", q.raw("COALESCE(r.closed_at, r.updated_at) as at"), "l.material_code", "l.unit", "l.unit_size")
+    .select("r.quantity", "r.gardener_id as household", q.raw("COALESCE(r.closed_at, r.updated_at) as at"), "l.material_code", "l.unit", "l.unit_size", "l.unit_mass_kg")
     .where("r.status", "collected");
   if (scope) {
     query.where((w) => {

@@ -1,55 +1,28 @@
-import { BAG_M3, BALE_M3, CARDBOARD_KG_PER_M2, DEFAULT_CARDBOARD_SHEET, MATERIALS, type MaterialCode } from "./facts";
-import { massFromVolume } from "./layers";
-import { assertNonNegativeFinite, assertPositiveFinite } from "./numbers";
+import { MATERIALS, type MaterialCode } from "./facts";
+import { handedVolumeOf, massOf, type MaterialUnit } from "./mass";
+import { assertPositiveFinite } from "./numbers";
 
-export type DiversionUnit = "m2" | "m3" | "kg" | "sheets" | "bags" | "bales";
+export type DiversionUnit = MaterialUnit;
 
 /**
- * Kilograms of material put to use in a bed instead of going to landfill or a burn pile.
- * `unitSize` is the size of one unit where the unit is countable: m² per sheet, m³ per bag
- * or m³ per bale (defaults: DEFAULT_CARDBOARD_SHEET, BAG_M3, BALE_M3). Bag and bale volumes
- * are as handed over — a bale is weighed compressed, not spread.
+ * Kilograms of material put to use in a bed instead of going to landfill or a burn pile,
+ * through the one mass function (lib/calc/mass.ts). `unitSize` is the size of one countable
+ * unit: m² per sheet, m³ per bag or bale; `unitMassKg` a bag's or bale's stated weight.
  */
-export function divertedKg(material: MaterialCode, quantity: number, unit: DiversionUnit, unitSize?: number): number {
-  assertNonNegativeFinite("quantity", quantity);
+export function divertedKg(material: MaterialCode, quantity: number, unit: DiversionUnit, unitSize?: number, unitMassKg?: number): number {
   if (unitSize !== undefined) assertPositiveFinite("unitSize", unitSize);
-  switch (unit) {
-    case "kg":
-      return quantity;
-    case "m3":
-      return massFromVolume(material, quantity);
-    case "bags":
-      return massFromVolume(material, quantity * (unitSize ?? BAG_M3));
-    case "bales":
-      return massFromVolume(material, quantity * (unitSize ?? BALE_M3));
-    case "m2":
-    case "sheets": {
-      // Only board is counted by area; a square metre of leaves has no weight until it has a depth.
-      if (material !== "cardboard") throw new RangeError(`${material} is measured by volume or weight, not by area`);
-      const sheet_m2 = unitSize ?? DEFAULT_CARDBOARD_SHEET.length_m * DEFAULT_CARDBOARD_SHEET.width_m;
-      return (unit === "m2" ? quantity : quantity * sheet_m2) * CARDBOARD_KG_PER_M2;
-    }
-  }
+  return massOf(material, quantity, unit, { unit_size: unitSize, unit_mass_kg: unitMassKg });
 }
 
 /**
- * m³ of material as handed over. Volumes pass through (bags and bales by their stated or
- * default size); what is counted by weight or area is turned into a loose volume with the
- * material's bulk density (facts.ts), the way waste audits convert weight to volume.
+ * m³ of material as handed over: volumes pass through (bags and bales by their stated or
+ * default size); what is counted by weight or area becomes a loose volume through the
+ * material's bulk density, the way waste audits convert weight to volume.
  */
-export function divertedM3(material: MaterialCode, quantity: number, unit: DiversionUnit, unitSize?: number): number {
-  assertNonNegativeFinite("quantity", quantity);
+export function divertedM3(material: MaterialCode, quantity: number, unit: DiversionUnit, unitSize?: number, unitMassKg?: number): number {
   if (unitSize !== undefined) assertPositiveFinite("unitSize", unitSize);
-  switch (unit) {
-    case "m3":
-      return quantity;
-    case "bags":
-      return quantity * (unitSize ?? BAG_M3);
-    case "bales":
-      return quantity * (unitSize ?? BALE_M3);
-    default:
-      return divertedKg(material, quantity, unit, unitSize) / MATERIALS[material].bulk_density_kg_m3;
-  }
+  if (unit === "kg" || unit === "m2" || unit === "sheets") return massOf(material, quantity, unit, { unit_size: unitSize }) / MATERIALS[material].bulk_density_kg_m3;
+  return handedVolumeOf(material, quantity, unit, { unit_size: unitSize, unit_mass_kg: unitMassKg });
 }
 
 /** One hand-over: a collected reservation or a household checked in at a giveaway day. */
@@ -58,6 +31,8 @@ export interface DiversionRecord {
   quantity: number;
   unit: DiversionUnit;
   unitSize?: number;
+  /** A bag's or bale's stated weight, kg. */
+  unitMassKg?: number;
   /** YYYY-MM the material left. */
   month: string;
   /** Who took it (an account stands for a household). */
@@ -87,8 +62,8 @@ export function summariseDiversion(records: DiversionRecord[]): DiversionSummary
   const days = new Map<string, Bucket & { date: string; title: string; material: MaterialCode }>();
   const all = bucket();
   for (const r of records) {
-    const kg = divertedKg(r.material, r.quantity, r.unit, r.unitSize ?? undefined);
-    const m3 = divertedM3(r.material, r.quantity, r.unit, r.unitSize ?? undefined);
+    const kg = divertedKg(r.material, r.quantity, r.unit, r.unitSize ?? undefined, r.unitMassKg ?? undefined);
+    const m3 = divertedM3(r.material, r.quantity, r.unit, r.unitSize ?? undefined, r.unitMassKg ?? undefined);
     const key = `${r.month}|${r.material}`;
     if (!months.has(key)) months.set(key, { ...bucket(), month: r.month, material: r.material });
     if (!materials.has(r.material)) materials.set(r.material, bucket());

@@ -7,8 +7,9 @@ import { polygonArea, polygonCentroid, rectangleArea } from "./area";
 import { type BlendComponent, blend, blendAdvice } from "./blend";
 import { cardboardFor } from "./cardboard";
 import { estimateCautions } from "./cautions";
-import { CARDBOARD_KG_PER_M2, LAYER_DEPTH_CM, MOISTURE_PCT, WORM_STOCKING_KG_PER_M2 } from "./facts";
-import { bagsFor, balesFor, layerVolume, massFromVolume } from "./layers";
+import { LAYER_DEPTH_CM, MOISTURE_PCT, WORM_STOCKING_KG_PER_M2 } from "./facts";
+import { bagsFor, balesFor, layerVolume } from "./layers";
+import { massOf } from "./mass";
 import { roundTo } from "./numbers";
 import { type TimelineEvent, timeline } from "./timeline";
 import { lToUsGal } from "./units";
@@ -91,13 +92,13 @@ export function estimate(input: EstimateInput, now: Date = new Date()): Estimate
 
   if (cardboard) {
     const sheets = cardboardFor(bed, cardboard);
-    const mass = sheets.area_m2 * CARDBOARD_KG_PER_M2;
+    const mass = massOf("cardboard", sheets.area_m2, "m2");
     needs.push({ material: "cardboard", quantity: roundTo(sheets.area_m2, 2), unit: "m2", sheets: sheets.sheets, mass_kg: roundTo(mass, KG) });
     composting.push({ material: "cardboard", mass_kg: mass });
   }
   const spreadLayer = <M extends "leaves" | "straw" | "wood_chips">(material: M, depth_cm: number) => {
     const m3 = layerVolume(area, depth_cm);
-    const mass = massFromVolume(material, m3, { spread: true });
+    const mass = massOf(material, m3, "m3");
     composting.push({ material, mass_kg: mass });
     return { m3, line: { material, quantity: roundTo(m3, M3), unit: "m3" as const, mass_kg: roundTo(mass, KG), depth_cm } };
   };

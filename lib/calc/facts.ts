@@ -80,10 +80,12 @@ export interface MaterialFacts {
   bulk_density_kg_m3: number;
   default_unit: "m2" | "m3" | "kg";
   /**
-   * How many times the delivered volume the material fills once spread on a bed. Only
-   * straw, which arrives compressed in a bale, has one; absent means 1.
+   * Baled and spread: the material comes compressed in bales and fills this many times a
+   * bale's volume once loosened on a bed (straw, and hay if it is ever listed). Absent for
+   * everything else, including leaves or chips someone has tied into bales: those spread to
+   * the volume they were handed over in.
    */
-  spread_factor?: number;
+  bale_expansion?: number;
   source: string;
 }
 
@@ -96,6 +98,18 @@ const MST = "Missouri S&T compost-mixture table";
 // low end, which errs toward asking for one bale too many rather than one too few.
 /** Spread volume one bale covers = bale volume × this factor (common practice, no source; reasoning above). */
 export const BALE_EXPANSION_FACTOR = 3;
+
+/** Two-string small square bale, 14 × 18 × 36 in = 5.25 ft³ = 0.1487 m³ (common practice, no source). */
+export const BALE_IN = { height: 14, width: 18, length: 36 } as const;
+export const BALE_M3 = BALE_IN.height * BALE_IN.width * BALE_IN.length * INCH_M ** 3;
+/**
+ * A small bale weighs 40–60 lb, 18–27 kg (common practice, no source). The default, 45 lb
+ * (20.4 kg), lies inside that range and keeps the two density ranges above in step: in the
+ * bale 45 / 5.25 = 8.6 lb/ft³ (baled: 7–12), spread to three times the volume 2.9 lb/ft³
+ * (loose: 1–3). A listing's own bale weight always wins.
+ */
+export const BALE_MASS_LB = { min: 40, max: 60, default: 45 } as const;
+export const BALE_KG = BALE_MASS_LB.default * POUND_KG;
 
 export const MATERIALS: Record<MaterialCode, MaterialFacts> = {
   cardboard: {
@@ -126,13 +140,13 @@ export const MATERIALS: Record<MaterialCode, MaterialFacts> = {
     n_pct: 0.7,
     cn_ratio: 80,
     moisture_pct: 12,
-    // 1 lb/gal × 119.826 = 119.8 kg/m³ = 7.5 lb/ft³, inside the baled range (7–12 lb/ft³),
-    // and a 5.25 ft³ bale at that density weighs 39 lb, about what a small bale weighs —
-    // so we read this figure as straw in the bale, and spread it by BALE_EXPANSION_FACTOR.
-    bulk_density_kg_m3: 1 * KG_M3_PER_LB_PER_GAL,
+    // Loose, as spread on a bed: a default bale (BALE_KG in BALE_M3) loosened to
+    // BALE_EXPANSION_FACTOR times its volume, 20.41 / 0.4461 = 45.8 kg/m³ = 2.9 lb/ft³.
+    // Missouri S&T's 1 lb/US gal (7.5 lb/ft³) is straw in the bale, at the light end.
+    bulk_density_kg_m3: BALE_KG / (BALE_M3 * BALE_EXPANSION_FACTOR),
     default_unit: "m3",
-    spread_factor: BALE_EXPANSION_FACTOR,
-    source: `%N, C:N, moisture: ${NRAES} (straw, general); density 1 lb/US gal: ${MST}, read as baled`,
+    bale_expansion: BALE_EXPANSION_FACTOR,
+    source: `%N, C:N, moisture: ${NRAES} (straw, general); density: a 45 lb small bale spread to three times its volume (common practice, no source)`,
   },
   worms: {
     code: "worms",
@@ -238,11 +252,6 @@ export const LAYER_DEPTH_CM = {
 export const BAG_US_GAL = 30;
 export const BAG_M3 = BAG_US_GAL * US_GALLON_M3;
 
-/** Two-string small square bale, 14 × 18 × 36 in = 5.25 ft³ = 0.1487 m³ (common practice, no source). */
-export const BALE_IN = { height: 14, width: 18, length: 36 } as const;
-export const BALE_M3 = BALE_IN.height * BALE_IN.width * BALE_IN.length * INCH_M ** 3;
-/** A small bale weighs 40–60 lb, 18–27 kg (common practice, no source). */
-export const BALE_MASS_LB = { min: 40, max: 60 } as const;
 
 // ---------------------------------------------------------------------------------------
 // Targets

@@ -1,6 +1,5 @@
-import { BAG_M3, BALE_EXPANSION_FACTOR, BALE_M3, MATERIALS, type MaterialCode } from "./facts";
+import { BAG_M3, BALE_EXPANSION_FACTOR, BALE_M3 } from "./facts";
 import { assertNonNegativeFinite, ceilWhole } from "./numbers";
-
 
 /** m³ of a layer `depth_cm` deep over `area_m2`. */
 export function layerVolume(area_m2: number, depth_cm: number): number {
@@ -8,19 +7,6 @@ export function layerVolume(area_m2: number, depth_cm: number): number {
   assertNonNegativeFinite("depth_cm", depth_cm);
   return (area_m2 * depth_cm) / 100;
 }
-
-/**
- * kg in `m3` of a material. By default `m3` is the volume as handed over (loose, or in the
- * bale); with `spread: true` it is the volume on the bed, which for baled straw holds only
- * 1 / spread_factor as much material.
- */
-export function massFromVolume(material: MaterialCode, m3: number, opts: { spread?: boolean } = {}): number {
-  assertNonNegativeFinite("m3", m3);
-  const facts = MATERIALS[material];
-  const spread = opts.spread ? (facts.spread_factor ?? 1) : 1;
-  return (m3 * facts.bulk_density_kg_m3) / spread;
-}
-
 /** Bags of `bag_m3` needed to hold `m3`. */
 export function bagsFor(m3: number, bag_m3: number = BAG_M3): number {
   assertNonNegativeFinite("m3", m3);

@@ -3,6 +3,7 @@
 // form all say the same thing.
 import { formatQuantity, lToUsGal, m2ToFt2, m3ToFt3, kgToLb, type UnitSystem } from "@/lib/calc/units";
 import { FOOT_M, LITRE_M3, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
+import { unitAmount } from "@/lib/calc/mass";
 import type { ListingUnit } from "@/lib/validation/listings";
 
 const COUNT_WORDS: Record<"sheets" | "bags" | "bales", [string, string]> = {
@@ -26,18 +27,30 @@ export function formatListingQuantity(quantity: number, unit: ListingUnit, syste
   return formatQuantity(quantity, unit, system);
 }
 
-/** What one sheet, bag or bale holds, e.g. "113 L bags" or "bales of 5.25 ft³, about 44 lb". */
-export function describeUnitSize(unit: ListingUnit, unitSize: number | null, unitMassKg: number | null, system: UnitSystem = "metric"): string | null {
+/**
+ * What one sheet, bag or bale holds, e.g. "bags of about 114 L, about 14 kg" or "bales of
+ * 5.25 ft³, about 44 lb". The weight is the supplier's, or else the one every other screen
+ * uses for that material (lib/calc/mass.ts) when the material is given.
+ */
+export function describeUnitSize(
+  unit: ListingUnit,
+  unitSize: number | null,
+  unitMassKg: number | null,
+  system: UnitSystem = "metric",
+  material?: MaterialCode,
+): string | null {
   const imperial = system === "imperial";
+  const kg = unitMassKg ?? (material && (unit === "bags" || unit === "bales") ? unitAmount(material, unit, { unit_size: unitSize })?.kg : null) ?? null;
+  const weight = kg ? `about ${imperial ? `${trim(kgToLb(kg), 0)} lb` : `${trim(kg, 1)} kg`}` : null;
   if (unit === "sheets" && unitSize) return `each sheet about ${imperial ? `${trim(m2ToFt2(unitSize), 1)} ft²` : `${trim(unitSize)} m²`}`;
   if (unit === "bags" && unitSize) {
     const litres = unitSize / LITRE_M3;
-    return `bags of about ${imperial ? `${trim(lToUsGal(litres), 0)} US gal` : `${trim(litres, 0)} L`}`;
+    return `bags of about ${imperial ? `${trim(lToUsGal(litres), 0)} US gal` : `${trim(litres, 0)} L`}${weight ? `, ${weight}` : ""}`;
   }
   if (unit === "bales") {
     const parts: string[] = [];
     if (unitSize) parts.push(imperial ? `${trim(m3ToFt3(unitSize))} ft³` : `${trim(unitSize, 3)} m³`);
-    if (unitMassKg) parts.push(`about ${imperial ? `${trim(kgToLb(unitMassKg), 0)} lb` : `${trim(unitMassKg, 1)} kg`}`);
+    if (weight) parts.push(weight);
     return parts.length ? `bales of ${parts.join(", ")}` : null;
   }
   return null;

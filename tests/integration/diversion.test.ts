@@ -67,20 +67,20 @@ describe("GET /api/reports/diversion", () => {
   it("sums a supplier's collected quantities through the sourced densities (hand-computed)", async () => {
     // Leaves: 30 US gal bags (common practice) × 1 lb/US gal loose leaves (Missouri S&T table):
     //   October 4 bags = 120 lb = 54.431 kg; November 6 bags = 180 lb = 81.647 kg.
-    // Straw: 3 bales of 14 × 18 × 36 in = 5.25 ft³ = 39.273 gal (common practice; NIST factor)
-    //   × 1 lb/US gal (Missouri S&T, read as baled) = 117.818 lb = 53.442 kg.
+    // Straw: 3 bales with no weight stated, at a small bale's usual 45 lb (inside 40–60 lb,
+    //   common practice) = 135 lb = 61.235 kg.
     // Coffee grounds by weight: 12.5 kg as given.
     // The held and cancelled reservations, and the other supplier's, do not count.
-    // Total 54.431 + 81.647 + 53.442 + 12.5 = 202.019 kg.
+    // Total 54.431 + 81.647 + 61.235 + 12.5 = 209.813 kg.
     const res = await get(p.supplier);
     expect(res.status).toBe(200);
     const leavesOct = 4 * 30 * LB;
     const leavesNov = 6 * 30 * LB;
-    const straw = 3 * 5.25 * 7.480519 * LB;
+    const straw = 3 * 45 * LB;
     expect(leavesOct).toBeCloseTo(54.431, 3);
-    expect(straw).toBeCloseTo(53.442, 2);
+    expect(straw).toBeCloseTo(61.235, 2);
     expect(res.json.total_kg).toBeCloseTo(leavesOct + leavesNov + straw + 12.5, 2);
-    expect(res.json.total_kg).toBeCloseTo(202.019, 2);
+    expect(res.json.total_kg).toBeCloseTo(209.813, 2);
     expect(res.json.by_month).toEqual([
       expect.objectContaining({ month: "2026-10", material: "leaves", kg: expect.closeTo(leavesOct, 3), m3: expect.closeTo(4 * 30 * GAL, 4) }),
       // 12.5 kg ÷ (7 lb/gal × 0.45359237 / 0.003785411784 = 838.79 kg/m³) = 0.0149 m³
@@ -111,14 +111,14 @@ describe("GET /api/reports/diversion", () => {
   });
 
   it("counts the platform's total from collected reservations only; giveaway check-ins apart", async () => {
-    // Same sources as above: 30 US gal bags (common practice) × 1 lb/US gal leaves and baled
-    // straw (Missouri S&T), compost 1,300 lb/yd³ (common practice), NIST factors.
-    const supplier = 4 * 30 * LB + 6 * 30 * LB + 3 * 5.25 * 7.480519 * LB + 12.5;
+    // Same sources as above: 30 US gal bags (common practice) × 1 lb/US gal leaves (Missouri
+    // S&T), 45 lb bales and compost at 1,300 lb/yd³ (common practice), NIST factors.
+    const supplier = 4 * 30 * LB + 6 * 30 * LB + 3 * 45 * LB + 12.5;
     const other = 5 * 30 * LB; // no bag size given: 30 US gal
     const councilCompost = (0.5 * 1300 * LB) / YD3; // the council's listing, reserved and collected
     const leafDay = 12 * 30 * LB; // checked in at the giveaway day: not in the home page's figure
-    // 202.019 + 68.039 + 385.630 = 655.688 kg, worked by hand from the figures above.
-    expect(supplier + other + councilCompost).toBeCloseTo(655.688, 2);
+    // 209.813 + 68.039 + 385.630 = 663.482 kg, worked by hand from the figures above.
+    expect(supplier + other + councilCompost).toBeCloseTo(663.482, 2);
     expect(await platformDivertedKg()).toBeCloseTo(supplier + other + councilCompost, 2);
     expect(await platformGiveawayKg()).toBeCloseTo(leafDay, 2);
   });

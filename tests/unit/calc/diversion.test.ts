@@ -19,9 +19,14 @@ describe("divertedKg", () => {
     expect(divertedKg("leaves", 4, "bags", 0.2)).toBeCloseTo(0.8 * LB_PER_GAL, 6);
   });
 
-  it("weighs a bale as compressed straw: 5.25 ft³ × 7.48 gal/ft³ × 1 lb/gal ≈ 39.3 lb", () => {
-    // 5.25 ft³ = 39.27 gal (NIST HB44: 1 ft³ = 7.480519 gal)
-    expect(divertedKg("straw", 1, "bales") / 0.45359237).toBeCloseTo(5.25 * 7.480519, 3);
+  it("weighs a straw bale at a small bale's usual 45 lb (common practice), or what the supplier says", () => {
+    expect(divertedKg("straw", 1, "bales") / 0.45359237).toBeCloseTo(45, 9);
+    expect(divertedKg("straw", 3, "bales", undefined, 20)).toBeCloseTo(60, 12);
+  });
+
+  it("weighs a m³ of straw as loose straw, the same as the bed estimate does (45 lb over 15.75 ft³)", () => {
+    // 45 lb / (5.25 ft³ × 3) = 2.857 lb/ft³ = 45.77 kg/m³ (NIST HB44: 1 lb/ft³ = 16.018463 kg/m³)
+    expect(divertedKg("straw", 1, "m3")).toBeCloseTo((45 / 15.75) * 16.018463, 3);
   });
 
   it("weighs cardboard by area and by sheet", () => {

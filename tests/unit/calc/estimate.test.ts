@@ -4,6 +4,7 @@ import { estimate } from "@/lib/calc/estimate";
 import { estimateSchema, type EstimateInput } from "@/lib/validation/estimate";
 
 const LB_GAL = 0.45359237 / 0.003785411784; // kg/m³ per lb/US gal (NIST HB44) = 119.826
+const LB_FT3 = 0.45359237 / 0.3048 ** 3; // kg/m³ per lb/ft³ (NIST HB44) = 16.018
 
 describe("estimate — a 4 × 1.2 m bed with every default", () => {
   const r = estimate({ bed: { length_m: 4, width_m: 1.2 }, start_date: "2026-03-01" });
@@ -33,9 +34,10 @@ describe("estimate — a 4 × 1.2 m bed with every default", () => {
   });
 
   it("straw: 5 cm = 0.24 m³ spread, one bale (covers 0.446 m³ loosened)", () => {
-    // mass: 0.24 m³ spread = 0.08 m³ baled × 119.826 = 9.59 kg
+    // mass: a 45 lb bale of 5.25 ft³ spread over three times its volume (common practice)
+    // is 45 / 15.75 = 2.857 lb/ft³ = 45.77 kg/m³ (NIST HB44); × 0.24 m³ = 10.98 kg.
     expect(need("straw")).toMatchObject({ quantity: 0.24, bales: 1 });
-    expect(need("straw").mass_kg).toBeCloseTo((0.24 / 3) * LB_GAL, 2);
+    expect(need("straw").mass_kg).toBeCloseTo(0.24 * (45 / 15.75) * LB_FT3, 2);
   });
 
   it("worms: 0.5 kg/m² → 2.4 kg, about 5,291 worms at 1,000 per lb (common practice)", () => {
@@ -47,12 +49,12 @@ describe("estimate — a 4 × 1.2 m bed with every default", () => {
     // By hand (NRAES-54 Table A.1 composition):
     //   cardboard 4 kg @ 8 %  → dry 3.680, C 3.680 × 0.563 = 2.0718, N 0.00368
     //   leaves 71.896 @ 38 % → dry 44.575, C × 0.486 = 21.6636,   N 0.40118
-    //   straw 9.586 @ 12 %   → dry 8.436,  C × 0.560 = 4.7240,    N 0.05905
-    //   C:N = 28.459 / 0.46391 = 61.35; moisture = (85.482 − 56.691) / 85.482 = 33.7 %
-    //   water to 55 %: 56.691 / 0.45 − 85.482 = 40.5 L
-    expect(r.blend.cn_ratio).toBeCloseTo(61.3, 0);
-    expect(r.blend.moisture_pct).toBeCloseTo(33.7, 1);
-    expect(r.water_l).toBeCloseTo(40.5, 0);
+    //   straw 10.984 @ 12 %  → dry 9.666,  C × 0.560 = 5.4130,    N 0.06766
+    //   C:N = 29.148 / 0.47252 = 61.69; moisture = (86.880 − 57.921) / 86.880 = 33.3 %
+    //   water to 55 %: 57.921 / 0.45 − 86.880 = 41.8 L
+    expect(r.blend.cn_ratio).toBeCloseTo(61.7, 0);
+    expect(r.blend.moisture_pct).toBeCloseTo(33.3, 1);
+    expect(r.water_l).toBeCloseTo(41.8, 0);
     expect(r.blend.advice).toMatch(/grass clippings/);
   });
 

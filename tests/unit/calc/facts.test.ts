@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import {
   BAG_M3,
   BALE_EXPANSION_FACTOR,
+  BALE_KG,
   BALE_M3,
   CN_RATIO,
   FOOT_M,
@@ -61,7 +62,6 @@ describe("MATERIALS — bulk density", () => {
   const lbPerGal: [keyof typeof MATERIALS, number][] = [
     ["cardboard", 0.5],
     ["leaves", 1], // loose, dry
-    ["straw", 1],
     ["grass_clippings", 1.7], // loose
     ["coffee_grounds", 7],
     ["manure", 6.8], // horse manure
@@ -85,19 +85,27 @@ describe("MATERIALS — bulk density", () => {
     expect(lbPerYd3).toBeLessThanOrEqual(1600);
   });
 
-  it("a bale at the straw density weighs what a small bale weighs, 40–60 lb, within a few pounds (common practice)", () => {
-    // 5.25 ft³ × 7.48 gal/ft³ × 1 lb/gal ≈ 39.3 lb — the table's straw figure is baled straw.
-    const lb = (BALE_M3 * MATERIALS.straw.bulk_density_kg_m3) / 0.45359237;
-    expect(lb).toBeGreaterThan(37);
-    expect(lb).toBeLessThan(60);
+  // Straw's three common-practice ranges must agree with each other: a small bale weighs
+  // 40–60 lb; baled straw is 7–12 lb/ft³ and loose straw 1–3 lb/ft³ (biomass handling
+  // texts). 1 lb/ft³ = 16.018463 kg/m³ (NIST HB44).
+  it("the default bale weighs what a small bale weighs, 40–60 lb (common practice)", () => {
+    const lb = BALE_KG / 0.45359237;
+    expect(lb).toBeGreaterThanOrEqual(40);
+    expect(lb).toBeLessThanOrEqual(60);
   });
 
-  it("spread straw is loose straw: 1–3 lb/ft³ (biomass handling texts, common practice)", () => {
-    // 1 lb/ft³ = 16.018463 kg/m³ (NIST HB44)
-    const spread = MATERIALS.straw.bulk_density_kg_m3 / (MATERIALS.straw.spread_factor ?? 1) / 16.018463;
+  it("in the bale that is baled straw, 7–12 lb/ft³ (common practice)", () => {
+    const lbFt3 = BALE_KG / 0.45359237 / 5.25;
+    expect(lbFt3).toBeGreaterThanOrEqual(7);
+    expect(lbFt3).toBeLessThanOrEqual(12);
+  });
+
+  it("spread straw is loose straw, 1–3 lb/ft³ (common practice), and only straw expands from the bale", () => {
+    const spread = MATERIALS.straw.bulk_density_kg_m3 / 16.018463;
     expect(spread).toBeGreaterThanOrEqual(1);
     expect(spread).toBeLessThanOrEqual(3);
-    expect(MATERIALS.straw.spread_factor).toBe(BALE_EXPANSION_FACTOR);
+    expect(MATERIALS.straw.bale_expansion).toBe(BALE_EXPANSION_FACTOR);
+    for (const code of MATERIAL_CODES.filter((c) => c !== "straw")) expect(MATERIALS[code].bale_expansion).toBeUndefined();
   });
 });
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { BAG_M3, BALE_EXPANSION_FACTOR, BALE_M3, LAYER_DEPTH_CM, MATERIALS } from "@/lib/calc/facts";
-import { bagsFor, balesFor, layerVolume, massFromVolume } from "@/lib/calc/layers";
+import { bagsFor, balesFor, layerVolume } from "@/lib/calc/layers";
 
 const IN_CM = 2.54; // NIST HB44
 
@@ -46,20 +46,6 @@ describe("layerVolume", () => {
         },
       ),
     );
-  });
-});
-
-describe("massFromVolume", () => {
-  it("uses the material's bulk density", () => {
-    // 1 m³ of loose leaves at 1 lb/gal (Missouri S&T): 1 / 0.003785411784 gal × 0.45359237 kg = 119.83 kg
-    expect(massFromVolume("leaves", 1)).toBeCloseTo(119.83, 2);
-  });
-  it("spreads baled straw over BALE_EXPANSION_FACTOR times its volume", () => {
-    expect(massFromVolume("straw", 3, { spread: true })).toBeCloseTo(massFromVolume("straw", 3 / BALE_EXPANSION_FACTOR), 10);
-  });
-  it("does not change materials that arrive loose when spread", () => {
-    expect(massFromVolume("leaves", 2, { spread: true })).toBe(massFromVolume("leaves", 2));
-    expect(MATERIALS.leaves.spread_factor).toBeUndefined();
   });
 });
 

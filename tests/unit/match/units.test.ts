@@ -18,10 +18,14 @@ describe("what one listing unit holds", () => {
     expect(needPerListingUnit({ material: "straw", unit: "bales", unit_size: BALE_M3, unit_mass_kg: 20 }, "m3")).toBeCloseTo(BALE_M3 * BALE_EXPANSION_FACTOR, 12);
     expect(BALE_M3 * BALE_EXPANSION_FACTOR).toBeCloseTo(0.446, 3);
   });
-  it("a bale weighs what the supplier says, or its volume at the baled density", () => {
+  it("a bale weighs what the supplier says, or a small bale's usual 45 lb (common practice)", () => {
     expect(unitContent({ material: "straw", unit: "bales", unit_size: BALE_M3, unit_mass_kg: 25 })!.kg).toBe(25);
-    // Missouri S&T: straw 1 lb/US gal = 119.8 kg/m³; × 0.1487 m³ = 17.8 kg.
-    expect(unitContent({ material: "straw", unit: "bales", unit_size: BALE_M3, unit_mass_kg: null })!.kg).toBeCloseTo(BALE_M3 * KG_M3_PER_LB_PER_GAL, 9);
+    expect(unitContent({ material: "straw", unit: "bales", unit_size: BALE_M3, unit_mass_kg: null })!.kg).toBeCloseTo(45 * 0.45359237, 9);
+  });
+  it("a bale of leaves or chips has no straw to expand: it spreads to the volume it states, and without one it cannot be compared", () => {
+    expect(needPerListingUnit({ material: "leaves", unit: "bales", unit_size: 0.3, unit_mass_kg: null }, "m3")).toBeCloseTo(0.3, 12);
+    expect(needPerListingUnit({ material: "wood_chips", unit: "bales", unit_size: 0.2, unit_mass_kg: null }, "m3")).toBeCloseTo(0.2, 12);
+    expect(needPerListingUnit({ material: "leaves", unit: "bales", unit_size: null, unit_mass_kg: null }, "m3")).toBeNull();
   });
   it("a kg of leaves is 1 / 119.8 m³ (Missouri S&T: loose dry leaves 1 lb/US gal)", () => {
     expect(needPerListingUnit({ material: "leaves", unit: "kg", unit_size: null, unit_mass_kg: null }, "m3")).toBeCloseTo(1 / KG_M3_PER_LB_PER_GAL, 12);
@@ -52,8 +56,9 @@ describe("converting a need between units", () => {
     expect(kg).toBeCloseTo(0.45 * KG_M3_PER_LB_PER_GAL, 9);
     expect(convertNeed("leaves", kg, "kg", "m3")).toBeCloseTo(0.45, 12);
   });
-  it("measures spread straw at a third of the baled density", () => {
-    expect(convertNeed("straw", 1, "m3", "kg")).toBeCloseTo(KG_M3_PER_LB_PER_GAL / BALE_EXPANSION_FACTOR, 9);
+  it("weighs a m³ of spread straw as a 45 lb bale (common practice) spread over three times its 5.25 ft³", () => {
+    // 45 lb / (5.25 ft³ × 3) = 2.857 lb/ft³ × 16.018463 kg/m³ per lb/ft³ (NIST HB44) = 45.77 kg/m³
+    expect(convertNeed("straw", 1, "m3", "kg")).toBeCloseTo((45 / (5.25 * 3)) * 16.018463, 3);
   });
   it("refuses units a material is not measured in", () => {
     expect(() => convertNeed("worms", 1, "kg", "m3")).toThrow(RangeError);

@@ -50,7 +50,7 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
   const { viewer, listing } = found;
   const system = viewer?.unit_system ?? "metric";
   const managed = "can_manage" in listing ? (listing as ManagedListingDetail) : null;
-  const size = describeUnitSize(listing.unit, listing.unit_size, listing.unit_mass_kg, system);
+  const size = describeUnitSize(listing.unit, listing.unit_size, listing.unit_mass_kg, system, listing.material);
   const rating = listing.supplier.rating;
   const [cover, ...more] = listing.photos;
   // Live cultures: species, rough count, collection or post, and the grower's posting days or pause.
