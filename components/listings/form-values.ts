@@ -174,8 +174,8 @@ export function emptyForm(material: MaterialCode = "leaves"): ListingFormState {
 }
 
 /** What the supplier sees in the size field when they have not typed one. */
-export function unitSizePlaceholder(unit: ListingUnit, system: UnitSystem): string {
-  const d = defaultUnitSize(unit);
+export function unitSizePlaceholder(unit: ListingUnit, system: UnitSystem, material?: MaterialCode): string {
+  const d = defaultUnitSize(unit, material);
   return d === null ? "" : String(round(unitSizeFromSi(d, unit, system), 2));
 }
 

@@ -9,7 +9,7 @@ import { Notice } from "@/components/ui/notice";
 import { apiFetch, isApiError } from "@/lib/api/client";
 import { MATERIAL_CODES, MATERIALS } from "@/lib/calc/facts";
 import type { UnitSystem } from "@/lib/calc/units";
-import { createListingSchema, UNITS_BY_MATERIAL, type CreateListingInput } from "@/lib/validation/listings";
+import { createListingSchema, defaultUnitSize, UNITS_BY_MATERIAL, type CreateListingInput } from "@/lib/validation/listings";
 import { emptyForm, quantitySymbol, toBody, unitSizeField, unitSizePlaceholder, type ListingFormState } from "./form-values";
 import { LocationPicker } from "./location-picker";
 import { PhotoManager, type PhotoRecord } from "./photo-manager";
@@ -104,7 +104,7 @@ export function ListingForm(props: Props) {
           </SelectField>
           <Field label={`Quantity (${symbol})`} inputMode="decimal" {...register("quantity")} error={errors.quantity?.message} />
           {sizeField ? (
-            <Field label={`${sizeField.label} (${sizeField.symbol})`} inputMode="decimal" {...register("unit_size")} error={errors.unit_size?.message} placeholder={unitSizePlaceholder(unit, system)} hint="Leave empty for the usual size." />
+            <Field label={`${sizeField.label} (${sizeField.symbol})`} inputMode="decimal" {...register("unit_size")} error={errors.unit_size?.message} placeholder={unitSizePlaceholder(unit, system, material)} hint={defaultUnitSize(unit, material) === null ? "Measure one: only straw bales come in a usual size." : "Leave empty for the usual size."} />
           ) : null}
           {unit === "bales" ? (
             <Field label={`Weight of one bale (${system === "imperial" ? "lb" : "kg"})`} inputMode="decimal" {...register("unit_mass_kg")} error={errors.unit_mass_kg?.message} hint="Tells collectors how heavy a lift it is." />

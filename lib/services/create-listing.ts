@@ -34,7 +34,7 @@ export async function createListing(user: SessionUser, input: CreateListingInput
         description: input.description,
         status: input.status,
         unit: input.unit,
-        unit_size: counted ? (input.unit_size ?? defaultUnitSize(input.unit)) : null,
+        unit_size: counted ? (input.unit_size ?? defaultUnitSize(input.unit, input.material)) : null,
         unit_mass_kg: input.unit === "bales" ? (input.unit_mass_kg ?? null) : null,
         quantity_total: input.quantity,
         quantity_held: 0,

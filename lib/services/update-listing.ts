@@ -54,7 +54,7 @@ export async function updateListing(userId: string, id: string, patch: UpdateLis
     if (patch.unit !== undefined || patch.unit_size !== undefined || patch.unit_mass_kg !== undefined) {
       const counted = COUNTED_UNITS.includes(l.unit);
       changes.unit = l.unit;
-      changes.unit_size = counted ? (l.unit_size ?? defaultUnitSize(l.unit)) : null;
+      changes.unit_size = counted ? (l.unit_size ?? defaultUnitSize(l.unit, l.material)) : null;
       changes.unit_mass_kg = l.unit === "bales" ? (l.unit_mass_kg ?? null) : null;
     }
     if (patch.price_cents !== undefined) changes.price_cents = l.price_cents;

@@ -2,7 +2,7 @@
 // Quantities are stored in the listing's own unit; unit sizes are SI (m² per sheet, m³ per
 // bag or bale, kg per bale), so lib/calc can convert them without knowing who typed them.
 import { z } from "zod";
-import { BAG_M3, BALE_M3, DEFAULT_CARDBOARD_SHEET, MATERIAL_CODES, type MaterialCode } from "@/lib/calc/facts";
+import { BAG_M3, BALE_M3, DEFAULT_CARDBOARD_SHEET, MATERIAL_CODES, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 
 export const LISTING_UNITS = ["sheets", "m2", "bags", "m3", "bales", "kg"] as const;
 export type ListingUnit = (typeof LISTING_UNITS)[number];
@@ -10,12 +10,12 @@ export type ListingUnit = (typeof LISTING_UNITS)[number];
 /** Units a listing of each material may use; the first is the one the form offers first. */
 export const UNITS_BY_MATERIAL: Record<MaterialCode, readonly ListingUnit[]> = {
   cardboard: ["sheets", "m2"],
-  leaves: ["bags", "m3"],
+  leaves: ["bags", "m3", "bales"],
   straw: ["bales"],
   worms: ["kg"],
   grass_clippings: ["bags", "m3", "kg"],
   coffee_grounds: ["kg", "bags", "m3"],
-  wood_chips: ["m3", "bags", "kg"],
+  wood_chips: ["m3", "bags", "kg", "bales"],
   manure: ["bags", "m3", "kg"],
   compost: ["m3", "bags", "kg"],
 };
@@ -23,11 +23,15 @@ export const UNITS_BY_MATERIAL: Record<MaterialCode, readonly ListingUnit[]> = {
 /** Units counted in whole items, where a fraction makes no sense. */
 export const COUNTED_UNITS: readonly ListingUnit[] = ["sheets", "bags", "bales"];
 
-/** What one item of a counted unit holds when the supplier does not say. */
-export function defaultUnitSize(unit: ListingUnit): number | null {
+/**
+ * What one item of a counted unit holds when the supplier does not say. Only a material that
+ * comes baled and spreads out of the bale (straw) has a usual bale; leaves or chips tied into
+ * bales must say how big they are.
+ */
+export function defaultUnitSize(unit: ListingUnit, material?: MaterialCode): number | null {
   if (unit === "sheets") return DEFAULT_CARDBOARD_SHEET.length_m * DEFAULT_CARDBOARD_SHEET.width_m;
   if (unit === "bags") return BAG_M3;
-  if (unit === "bales") return BALE_M3;
+  if (unit === "bales") return material && !MATERIALS[material].bale_expansion ? null : BALE_M3;
   return null;
 }
 
@@ -145,6 +149,7 @@ export function checkListingRules(l: Fields, ctx: z.RefinementCtx): void {
   const counted = COUNTED_UNITS.includes(l.unit);
   if (counted && !isWhole(l.quantity)) issue("quantity", `Give a whole number of ${l.unit}.`);
   if (!counted && l.unit_size != null) issue("unit_size", "Only sheets, bags and bales have a size.");
+  if (counted && l.unit_size == null && defaultUnitSize(l.unit, l.material) === null) issue("unit_size", "Give the size of one bale: only straw bales come in a usual size.");
   if (l.unit !== "bales" && l.unit_mass_kg != null) issue("unit_mass_kg", "Only a bale has a weight of its own.");
   // A cap above the quantity is allowed: it simply never binds (and stays right if the supplier adds more).
   if (l.max_per_reservation != null && counted && !isWhole(l.max_per_reservation)) issue("max_per_reservation", `Give a whole number of ${l.unit}.`);

@@ -96,6 +96,12 @@ describe("who may call the listing routes", () => {
     expect(paused.json.listing.status).toBe("paused");
   });
 
+  it("takes leaves in bales that say how big they are", async () => {
+    const res = await call(listings.POST as never, await request("/api/listings", { as: who.owner, body: listingBody({ unit: "bales", quantity: 3, unit_size: 0.25 }) }));
+    expect(res.status).toBe(201);
+    expect(res.json.listing).toMatchObject({ unit: "bales", unit_size: 0.25 });
+  });
+
   it("only growers may list live worms", async () => {
     const body = listingBody({ material: "worms", unit: "kg", quantity: 2, quality: { species: "Eisenia fetida" }, title: "Red wigglers" });
     const supplier = await call(listings.POST as never, await request("/api/listings", { as: who.owner, body }));
@@ -127,6 +133,7 @@ describe("bad input gets a 4xx with a message on the field", () => {
     ["straw without its spray history", { material: "straw", unit: "bales", quantity: 4, quality: {} }, "quality.herbicide_history"],
     ["half a bag per person", { max_per_reservation: 1.5 }, "max_per_reservation"],
     ["a bale weight on bags", { unit_mass_kg: 20 }, "unit_mass_kg"],
+    ["leaves in bales of no stated size (only straw bales have a usual size)", { unit: "bales", quantity: 3 }, "unit_size"],
     ["seven photos", { photos: Array.from({ length: 7 }, () => photo) }, "photos"],
   ];
   for (const [label, change, field] of BAD) {
