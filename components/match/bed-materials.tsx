@@ -2,7 +2,8 @@
 import Link from "next/link";
 import { useState } from "react";
 import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
-import { formatQuantity, type UnitSystem } from "@/lib/calc/units";
+import { type UnitSystem } from "@/lib/calc/units";
+import { formatQuantity } from "@/lib/format/quantity";
 import { DEFAULT_RADIUS_KM, MAX_RADIUS_KM } from "@/lib/match/defaults";
 import type { LatLng, Need } from "@/lib/match/types";
 import { matchSchema, needsToParam, type MatchRequest } from "@/lib/validation/match";

@@ -1,7 +1,8 @@
 "use client";
 import { useFieldArray, type UseFormReturn } from "react-hook-form";
 import { MATERIAL_CODES, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
-import { formatQuantity, type UnitSystem } from "@/lib/calc/units";
+import { type UnitSystem } from "@/lib/calc/units";
+import { formatQuantity } from "@/lib/format/quantity";
 import { materialNoun } from "@/lib/match/format";
 import { MAX_NEEDS, MAX_RADIUS_KM } from "@/lib/match/defaults";
 import type { MatchInput, MatchRequest } from "@/lib/validation/match";

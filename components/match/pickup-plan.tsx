@@ -1,6 +1,7 @@
 "use client";
 import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
-import { formatQuantity, type UnitSystem } from "@/lib/calc/units";
+import { type UnitSystem } from "@/lib/calc/units";
+import { formatQuantity } from "@/lib/format/quantity";
 import { formatCents, formatListingQuantity, materialNoun } from "@/lib/match/format";
 import type { Need } from "@/lib/match/types";
 import { Notice } from "@/components/ui/notice";

@@ -1,6 +1,7 @@
 "use client";
 import type { MaterialCode } from "@/lib/calc/facts";
-import { formatQuantity, type UnitSystem } from "@/lib/calc/units";
+import { type UnitSystem } from "@/lib/calc/units";
+import { formatQuantity } from "@/lib/format/quantity";
 import { materialNoun } from "@/lib/match/format";
 import { MAX_RADIUS_KM } from "@/lib/match/defaults";
 import { NO_SUBSTITUTE, SUBSTITUTES } from "@/lib/match/substitutes";

@@ -1,4 +1,5 @@
-import { formatQuantity, type UnitSystem } from "@/lib/calc/units";
+import { type UnitSystem } from "@/lib/calc/units";
+import { formatQuantity } from "@/lib/format/quantity";
 import { crossSectionLayout, LAYER_COLOURS, LAYER_TEXT, type LayerDepths } from "./cross-section-layout";
 
 /** The bed's layers drawn to scale vertically, with a scale bar. */

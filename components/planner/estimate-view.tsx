@@ -1,7 +1,8 @@
 "use client";
 import type { EstimateResult } from "@/lib/calc/estimate";
 import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
-import { formatQuantity, type UnitSystem } from "@/lib/calc/units";
+import { type UnitSystem } from "@/lib/calc/units";
+import { formatQuantity } from "@/lib/format/quantity";
 import { Notice } from "@/components/ui/notice";
 import { CrossSection } from "./cross-section";
 import { CnBand } from "./cn-band";

@@ -61,21 +61,3 @@ const METRIC_SYMBOL: Record<DisplayUnit, string> = {
   l: "L",
   kg: "kg",
 };
-
-// Three significant figures is as precise as any of the densities behind these numbers;
-// more digits would promise accuracy the facts don't have.
-const SIGNIFICANT = 3;
-
-function roundForDisplay(value: number): string {
-  if (value === 0 || !Number.isFinite(value)) return String(value);
-  const magnitude = Math.floor(Math.log10(Math.abs(value)));
-  const decimals = Math.max(0, SIGNIFICANT - 1 - magnitude);
-  const rounded = Number(value.toFixed(decimals));
-  // Fixed locale so the server and the browser render the same string.
-  return rounded.toLocaleString("en-US", { maximumFractionDigits: decimals });
-}
-
-export function formatQuantity(value: number, unit: DisplayUnit, system: UnitSystem): string {
-  const shown = toDisplay(value, unit, system);
-  return `${roundForDisplay(shown.value)} ${shown.symbol}`;
-}

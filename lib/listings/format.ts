@@ -1,7 +1,8 @@
 // How listings read on screen: quantities in the reader's unit system, unit sizes, money and
 // pickup times. Pure and free of server code, so the browse list, the detail page and the
 // form all say the same thing.
-import { formatQuantity, lToUsGal, m2ToFt2, m3ToFt3, kgToLb, type UnitSystem } from "@/lib/calc/units";
+import { lToUsGal, m2ToFt2, m3ToFt3, kgToLb, type UnitSystem } from "@/lib/calc/units";
+import { formatQuantity } from "@/lib/format/quantity";
 import { FOOT_M, LITRE_M3, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { unitAmount } from "@/lib/calc/mass";
 import type { ListingUnit } from "@/lib/validation/listings";

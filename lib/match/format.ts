@@ -1,5 +1,6 @@
 import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
-import { formatQuantity, type UnitSystem } from "@/lib/calc/units";
+import { type UnitSystem } from "@/lib/calc/units";
+import { formatQuantity } from "@/lib/format/quantity";
 import type { ListingUnit, NeedUnit } from "./types";
 
 /** Integer cents as money, e.g. "€4.50"; free is "free". */

@@ -3,7 +3,8 @@
 // one mass function every other screen uses (lib/calc/mass.ts).
 import type { MaterialCode } from "@/lib/calc/facts";
 import { unitAmount, type MaterialUnit } from "@/lib/calc/mass";
-import { formatQuantity, type UnitSystem } from "@/lib/calc/units";
+import { type UnitSystem } from "@/lib/calc/units";
+import { formatQuantity } from "@/lib/format/quantity";
 
 export function equivalentOf(
   l: { material: string; unit: string; unit_size: number | null; unit_mass_kg: number | null },

@@ -4,7 +4,7 @@ import { pageUser } from "@/lib/auth/page-guard";
 import { db } from "@/db/index";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button-class";
-import { formatQuantity } from "@/lib/calc/units";
+import { formatQuantity } from "@/lib/format/quantity";
 
 export const metadata: Metadata = { title: "My beds" };
 

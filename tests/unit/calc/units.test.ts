@@ -1,7 +1,6 @@
 import { describe, expect, it } from "vitest";
 import {
   cmToIn,
-  formatQuantity,
   ft2ToM2,
   ftToM,
   inToCm,
@@ -61,34 +60,5 @@ describe("conversions against NIST HB44 Appendix C", () => {
       expect(usGalToL(lToUsGal(x))).toBeCloseTo(x, 9);
       expect(yd3ToM3(m3ToYd3(x))).toBeCloseTo(x, 9);
     }
-  });
-});
-
-describe("formatQuantity", () => {
-  it("shows SI values in metric with their symbols", () => {
-    expect(formatQuantity(12.5, "cm", "metric")).toBe("12.5 cm");
-    expect(formatQuantity(4.8, "m2", "metric")).toBe("4.8 m²");
-    expect(formatQuantity(40.5, "l", "metric")).toBe("40.5 L");
-    expect(formatQuantity(0.6, "m3", "metric")).toBe("0.6 m³");
-  });
-
-  it("shows imperial to three significant figures", () => {
-    expect(formatQuantity(12.5, "cm", "imperial")).toBe("4.92 in"); // 12.5 / 2.54 = 4.921
-    expect(formatQuantity(1, "m", "imperial")).toBe("3.28 ft");
-    expect(formatQuantity(23, "kg", "imperial")).toBe("50.7 lb"); // 23 / 0.45359237 = 50.71
-    expect(formatQuantity(3.785411784, "l", "imperial")).toBe("1 US gal");
-    expect(formatQuantity(10, "m2", "imperial")).toBe("108 ft²"); // 107.64
-    expect(formatQuantity(11.2, "km", "imperial")).toBe("6.96 mi"); // 11.2 / 1.609344 = 6.959
-    expect(formatQuantity(11.2, "km", "metric")).toBe("11.2 km");
-  });
-
-  it("uses cubic feet below a cubic yard and cubic yards from one up", () => {
-    expect(formatQuantity(0.6, "m3", "imperial")).toBe("21.2 ft³"); // 0.6 / 0.0283168 = 21.19
-    expect(formatQuantity(1.5, "m3", "imperial")).toBe("1.96 yd³"); // 1.5 / 0.764555 = 1.962
-  });
-
-  it("keeps whole digits of large numbers and groups thousands", () => {
-    expect(formatQuantity(12_345, "kg", "metric")).toBe("12,345 kg");
-    expect(formatQuantity(0, "kg", "imperial")).toBe("0 lb");
   });
 });

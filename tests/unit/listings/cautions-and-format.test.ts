@@ -47,7 +47,7 @@ describe("how listings read", () => {
     expect(formatListingQuantity(2.5, "m3")).toBe("2.5 m³");
     // 2.5 m³ / 0.764554857984 m³ per yd³ = 3.27 yd³ (NIST HB44 App. C yard).
     expect(formatListingQuantity(2.5, "m3", "imperial")).toBe("3.27 yd³");
-    expect(formatListingQuantity(8, "kg", "imperial")).toBe("17.6 lb");
+    expect(formatListingQuantity(8, "kg", "imperial")).toBe("18 lb"); // 17.64 lb, shown to the pound
   });
   it("unit sizes", () => {
     // 30 US gal bag = 113.6 L (NIST: 1 gal = 3.785411784 L).

@@ -8,7 +8,7 @@ import { PageHeading } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button-class";
 import { BedEstimate } from "@/components/planner/bed-estimate";
 import { DeleteBedButton } from "@/components/planner/delete-bed-button";
-import { formatQuantity } from "@/lib/calc/units";
+import { formatQuantity } from "@/lib/format/quantity";
 
 export const metadata: Metadata = { title: "Bed" };
 

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { pageUser } from "@/lib/auth/page-guard";
-import { formatQuantity } from "@/lib/calc/units";
+import { formatQuantity } from "@/lib/format/quantity";
 import { findBed } from "@/db/beds";
 import { PageHeading } from "@/components/ui/empty-state";
 import { BedMaterials } from "@/components/match/bed-materials";
