@@ -7,12 +7,14 @@ import { polygonArea, polygonCentroid, rectangleArea } from "./area";
 import { type BlendComponent, blend, blendAdvice } from "./blend";
 import { cardboardFor } from "./cardboard";
 import { estimateCautions } from "./cautions";
-import { LAYER_DEPTH_CM, MOISTURE_PCT, WORM_STOCKING_KG_PER_M2 } from "./facts";
+import { LAYER_DEPTH_CM, MOISTURE_PCT, SOAK_DRAINAGE_SHARE, WORM_STOCKING_KG_PER_M2 } from "./facts";
 import { bagsFor, balesFor, layerVolume } from "./layers";
 import { massOf } from "./mass";
 import { roundTo } from "./numbers";
 import { type TimelineEvent, timeline } from "./timeline";
 import { lToUsGal } from "./units";
+import { soakFor } from "./water";
+import { roundLitres, roundUsGallons } from "@/lib/format/quantity";
 import { wormsFor } from "./worms";
 
 export interface CardboardLine {
@@ -45,8 +47,24 @@ export type NeedLine =
 export interface EstimateResult {
   area_m2: number;
   needs: NeedLine[];
+  /** The first soak to pour, the middle of water_range_l (drainage allowance included). */
   water_l: number;
   water_us_gal: number;
+  /** Least and most to pour, over the published density and moisture spreads. */
+  water_range_l: [number, number];
+  water_range_us_gal: [number, number];
+  /** water_l as a depth over the bed (1 L on 1 m² is 1 mm). */
+  water_depth_mm: number;
+  /** How the soak is made up; the squeeze test is the real guide. */
+  water: {
+    /** What the layers take up to reach the target moisture, at the table's figures and at the spreads' ends. */
+    to_target_l: number;
+    to_target_range_l: [number, number];
+    /** The allowance for what drains into the soil below, as a share of what the layers take up (common practice). */
+    drainage_share: number;
+    target_moisture_pct: number;
+    guide: string;
+  };
   /** Null ratios when no layer that composts was chosen. */
   blend: { cn_ratio: number | null; moisture_pct: number | null; advice: string | null };
   timeline: TimelineEvent[];
@@ -120,14 +138,12 @@ export function estimate(input: EstimateInput, now: Date = new Date()): Estimate
 
   const target = input.target_moisture_pct ?? MOISTURE_PCT.target;
   const mix = composting.length > 0 ? blend(composting, target) : null;
-  const water_l = mix?.water_to_target_l ?? 0;
   const latitude = input.latitude ?? centroid?.lat ?? null;
 
   return {
     area_m2: roundTo(area, 2),
     needs,
-    water_l: roundTo(water_l, 1),
-    water_us_gal: roundTo(lToUsGal(water_l), 1),
+    ...soakFields(composting, target, area),
     blend: {
       cn_ratio: mix ? roundTo(mix.cn_ratio, 1) : null,
       moisture_pct: mix ? roundTo(mix.moisture_pct, 1) : null,
@@ -142,5 +158,30 @@ export function estimate(input: EstimateInput, now: Date = new Date()): Estimate
       worms: worms !== null,
     }),
     ...(centroid ? { centroid } : {}),
+  };
+}
+
+const SQUEEZE_GUIDE =
+  "Soak each layer as you build until a squeezed handful gives a few drops and no steady drip; the figure is only a guide to how much to have ready.";
+
+/** The soak's fields, rounded to what a person pours (5 or 10 L; gallons likewise). */
+function soakFields(composting: readonly BlendComponent[], target: number, area_m2: number) {
+  const parts = composting.map((c) => ({ material: c.material!, mass_kg: c.mass_kg }));
+  const soak = parts.length > 0 ? soakFor(parts, target) : { to_target_l: 0, to_target_range_l: [0, 0] as [number, number], range_l: [0, 0] as [number, number] };
+  const [low, high] = soak.range_l;
+  const middle = (low + high) / 2;
+  return {
+    water_l: roundLitres(middle),
+    water_us_gal: roundUsGallons(lToUsGal(middle)),
+    water_range_l: [roundLitres(low), roundLitres(high)] as [number, number],
+    water_range_us_gal: [roundUsGallons(lToUsGal(low)), roundUsGallons(lToUsGal(high))] as [number, number],
+    water_depth_mm: Math.round(middle / area_m2),
+    water: {
+      to_target_l: roundTo(soak.to_target_l, 1),
+      to_target_range_l: [roundTo(soak.to_target_range_l[0], 1), roundTo(soak.to_target_range_l[1], 1)] as [number, number],
+      drainage_share: SOAK_DRAINAGE_SHARE,
+      target_moisture_pct: target,
+      guide: SQUEEZE_GUIDE,
+    },
   };
 }

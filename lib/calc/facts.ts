@@ -39,6 +39,8 @@ export const EARTH_MEAN_RADIUS_M = 6_371_008.8;
 //   1 lb/yd³    = 0.45359237 kg / 0.764554857984 m³ = 0.593276 kg/m³
 const KG_M3_PER_LB_PER_GAL = POUND_KG / US_GALLON_M3;
 const KG_M3_PER_LB_PER_YD3 = POUND_KG / YARD_M ** 3;
+//   1 lb/ft³    = 0.45359237 kg / 0.028316846592 m³ = 16.018463 kg/m³
+const KG_M3_PER_LB_PER_FT3 = POUND_KG / FOOT_M ** 3;
 
 // ---------------------------------------------------------------------------------------
 // Materials
@@ -227,6 +229,44 @@ export const MATERIALS: Record<MaterialCode, MaterialFacts> = {
   },
 };
 
+/**
+ * How far a load can stray from the figures above, where a source gives a spread: the first
+ * soak is worked out at both ends and reported as a range. Materials missing here, and the
+ * ends a source does not give, keep the table's single figure.
+ */
+export interface MaterialSpread {
+  density_kg_m3?: readonly [number, number];
+  moisture_pct?: readonly [number, number];
+  source: string;
+}
+
+export const MATERIAL_SPREADS: Partial<Record<MaterialCode, MaterialSpread>> = {
+  leaves: {
+    // 1 lb/gal = 119.8 kg/m³ loose and dry, 2 lb/gal = 239.7 kg/m³ compacted.
+    density_kg_m3: [1 * KG_M3_PER_LB_PER_GAL, 2 * KG_M3_PER_LB_PER_GAL],
+    source: `density loose dry 1 to compacted 2 lb/US gal: ${MST}`,
+  },
+  straw: {
+    // 1–3 lb/ft³ = 16.0–48.1 kg/m³.
+    density_kg_m3: [1 * KG_M3_PER_LB_PER_FT3, 3 * KG_M3_PER_LB_PER_FT3],
+    moisture_pct: [4, 27],
+    source: `density loose 1–3 lb/ft³: biomass handling texts (common practice); moisture 4–27 %: ${NRAES}`,
+  },
+  grass_clippings: {
+    density_kg_m3: [1.7 * KG_M3_PER_LB_PER_GAL, 3.2 * KG_M3_PER_LB_PER_GAL],
+    source: `density loose 1.7 to compacted 3.2 lb/US gal: ${MST}`,
+  },
+  wood_chips: {
+    // Dry 243 lb/yd³ = 144.2 kg/m³ to green 473 lb/yd³ = 280.6 kg/m³.
+    density_kg_m3: [243 * KG_M3_PER_LB_PER_YD3, 473 * KG_M3_PER_LB_PER_YD3],
+    source: "density dry 243 to green 473 lb/yd³: Oregon DEQ conversion factors (2005)",
+  },
+  compost: {
+    density_kg_m3: [1000 * KG_M3_PER_LB_PER_YD3, 1600 * KG_M3_PER_LB_PER_YD3],
+    source: "density 1,000–1,600 lb/yd³: recycling-measurement guidance, common practice",
+  },
+};
+
 // ---------------------------------------------------------------------------------------
 // Layer defaults and allowed ranges (common practice, no source, unless stated)
 // ---------------------------------------------------------------------------------------
@@ -240,6 +280,8 @@ export const CARDBOARD_OVERLAP_CM = { default: 15, min: 10, max: 30 } as const;
  * roughly 0.4–0.6 kg/m² (from memory; no published figure at hand), so 0.5.
  */
 export const CARDBOARD_KG_PER_M2 = 0.5;
+/** The same, as the span a load may fall in (from memory). */
+export const CARDBOARD_KG_PER_M2_RANGE = [0.4, 0.6] as const;
 
 /** Depth of each loose layer, cm. Leaves 4–6 in, straw about 2 in (common practice, no source); chips from memory. */
 export const LAYER_DEPTH_CM = {
@@ -265,6 +307,13 @@ export const BAG_M3 = BAG_US_GAL * US_GALLON_M3;
 export const MOISTURE_PCT = { ideal_min: 50, ideal_max: 60, min: 40, max: 65, target: 55 } as const;
 /** C:N 25–40 ideal, 20–60 acceptable (The Composting Handbook, 2022, Table 4.2). */
 export const CN_RATIO = { ideal_min: 25, ideal_max: 40, min: 20, max: 60 } as const;
+
+/**
+ * On build day part of the soak runs through the layers into the soil below before the mix
+ * holds it: pour about a quarter again on top of what the layers take up (common practice,
+ * no source). The squeeze test, not this figure, says when to stop.
+ */
+export const SOAK_DRAINAGE_SHARE = 0.25;
 
 // ---------------------------------------------------------------------------------------
 // Worms

@@ -54,7 +54,31 @@ describe("estimate — a 4 × 1.2 m bed with every default", () => {
     //   water to 55 %: 57.921 / 0.45 − 86.880 = 41.8 L
     expect(r.blend.cn_ratio).toBeCloseTo(61.7, 0);
     expect(r.blend.moisture_pct).toBeCloseTo(33.3, 1);
-    expect(r.water_l).toBeCloseTo(41.8, 0);
+    expect(r.water.to_target_l).toBeCloseTo(41.8, 1);
+  });
+
+  it("gives the first soak as a range over the published spreads, with a quarter more for drainage", () => {
+    // Least: cardboard at 0.4 kg/m² (from memory) = 3.2 kg @ 8 %; leaves loose at 1 lb/US gal
+    //   (Missouri S&T) = 71.896 kg @ 38 %; straw at 1 lb/ft³ (loose, common practice) = 3.844 kg
+    //   at 27 % (NRAES-54 Table A.1's wettest straw): 32.9 L to 55 %.
+    // Most: cardboard 0.6 kg/m² = 4.8 kg; leaves compacted 2 lb/US gal (Missouri S&T) = 143.79 kg;
+    //   straw 3 lb/ft³ = 11.533 kg at 4 % (the driest): 72.4 L.
+    // Pour a quarter again for what drains into the soil (common practice): 41.1–90.5 L,
+    // middle 65.8 L; over 4.8 m² that is a 14 mm soak; 65.8 L = 17.4 US gal (NIST HB44).
+    expect(r.water.to_target_range_l[0]).toBeCloseTo(32.9, 1);
+    expect(r.water.to_target_range_l[1]).toBeCloseTo(72.4, 1);
+    expect(r.water.drainage_share).toBe(0.25);
+    // Rounded as water is poured: to 5 L between 10 and 100 L, to the gallon under 30 gal.
+    expect(r.water_range_l).toEqual([40, 90]);
+    expect(r.water_l).toBe(65);
+    expect(r.water_us_gal).toBe(17);
+    expect(r.water_depth_mm).toBe(14);
+    expect(r.water_range_l[0]).toBeLessThanOrEqual(r.water_l);
+    expect(r.water_l).toBeLessThanOrEqual(r.water_range_l[1]);
+    expect(r.water.guide).toMatch(/squeezed handful/);
+  });
+
+  it("names what would bring the mix into range", () => {
     expect(r.blend.advice).toMatch(/grass clippings/);
   });
 
