@@ -19,6 +19,8 @@ interface BlendResult {
   carbon_kg: number;
   nitrogen_kg: number;
   water_to_target_l?: number;
+  /** What would bring the mix into the composting range, by mass; null inside it. */
+  advice: string | null;
 }
 
 const COMPOSTING = MATERIAL_CODES.filter((c) => c !== "worms");
@@ -103,8 +105,8 @@ export function MixCalculator() {
               <dt>Nitrogen</dt><dd>{mix.data.nitrogen_kg.toFixed(3)} kg</dd>
               {mix.data.water_to_target_l !== undefined ? (<><dt>Water to add</dt><dd className="font-bold">{mix.data.water_to_target_l.toFixed(1)} L</dd></>) : null}
             </dl>
-            <p className="text-sm text-humus-700">
-              {mix.data.cn_ratio > CN_RATIO.ideal_max ? "Rich in carbon: it will break down slowly. Add greens such as grass clippings or coffee grounds." : mix.data.cn_ratio < CN_RATIO.ideal_min ? "Rich in nitrogen: it may smell of ammonia. Add browns such as leaves, straw or shredded cardboard." : "Inside the composting range."}
+            <p className="text-sm text-humus-700" data-testid="mix-advice">
+              {mix.data.advice ?? `Inside the composting range (${CN_RATIO.ideal_min}–${CN_RATIO.ideal_max}).`}
             </p>
           </>
         ) : (

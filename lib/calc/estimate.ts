@@ -4,7 +4,8 @@
 import type { Polygon } from "geojson";
 import type { EstimateInput } from "@/lib/validation/estimate";
 import { polygonArea, polygonCentroid, rectangleArea } from "./area";
-import { type BlendComponent, blend, blendAdvice } from "./blend";
+import { type BlendComponent, blend } from "./blend";
+import { type BedAdvice, bedAdvice } from "./bed-advice";
 import { cardboardFor } from "./cardboard";
 import { estimateCautions } from "./cautions";
 import { LAYER_DEPTH_CM, MOISTURE_PCT, SOAK_DRAINAGE_SHARE, WORM_STOCKING_KG_PER_M2 } from "./facts";
@@ -65,8 +66,11 @@ export interface EstimateResult {
     target_moisture_pct: number;
     guide: string;
   };
-  /** Null ratios when no layer that composts was chosen. */
-  blend: { cn_ratio: number | null; moisture_pct: number | null; advice: string | null };
+  /**
+   * Null ratios when no layer that composts was chosen. `advice` is what the bed could add
+   * as layers it can take, in the request's units; `bed_advice` the same in figures (SI).
+   */
+  blend: { cn_ratio: number | null; moisture_pct: number | null; advice: string | null; bed_advice: BedAdvice | null };
   timeline: TimelineEvent[];
   cautions: string[];
   centroid?: { lat: number; lng: number };
@@ -139,6 +143,7 @@ export function estimate(input: EstimateInput, now: Date = new Date()): Estimate
   const target = input.target_moisture_pct ?? MOISTURE_PCT.target;
   const mix = composting.length > 0 ? blend(composting, target) : null;
   const latitude = input.latitude ?? centroid?.lat ?? null;
+  const advice = mix ? bedAdvice(mix, area, input.units ?? "metric") : null;
 
   return {
     area_m2: roundTo(area, 2),
@@ -147,7 +152,8 @@ export function estimate(input: EstimateInput, now: Date = new Date()): Estimate
     blend: {
       cn_ratio: mix ? roundTo(mix.cn_ratio, 1) : null,
       moisture_pct: mix ? roundTo(mix.moisture_pct, 1) : null,
-      advice: mix ? blendAdvice(mix) : null,
+      advice: advice?.text ?? null,
+      bed_advice: advice,
     },
     timeline: timeline(input.start_date ?? todayUtc(now), latitude, { worms: worms !== null }),
     cautions: estimateCautions({

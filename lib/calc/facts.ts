@@ -290,6 +290,15 @@ export const LAYER_DEPTH_CM = {
   wood_chips: { default: 7.5, min: 2, max: 15 },
 } as const;
 
+/**
+ * The thickest layer of each nitrogen-rich extra a sheet-mulch bed can take (common practice,
+ * no source): clippings past about 3 cm (1 in) mat into a wet, airless sheet that sours;
+ * coffee grounds crust over past a centimetre; rotted manure goes on as a thin layer.
+ */
+export const GREEN_LAYER_MAX_CM = { grass_clippings: 3, coffee_grounds: 1, manure: 3 } as const;
+/** The most extra leaves or straw to suggest for a bed too rich in nitrogen, cm (common practice, no source). */
+export const BROWN_LAYER_MAX_CM = { leaves: 10, straw: 5 } as const;
+
 /** Paper lawn-and-leaf bag, 30 US gal = 0.1136 m³ = 4.01 ft³ (common practice, no source). */
 export const BAG_US_GAL = 30;
 export const BAG_M3 = BAG_US_GAL * US_GALLON_M3;

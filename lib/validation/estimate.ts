@@ -173,6 +173,8 @@ export const estimateSchema = strictObject({
   start_date: startDateSchema.optional(),
   latitude: z.number().min(-90, "latitude must be between -90 and 90").max(90, "latitude must be between -90 and 90").optional(),
   target_moisture_pct: inRange("target moisture", "%", MOISTURE_PCT).optional(),
+  /** The units the advice and timeline are written in; figures are always SI. */
+  units: z.enum(["metric", "imperial"], { error: "units must be metric or imperial" }).optional(),
 }, "part of an estimate request");
 
 export type EstimateInput = z.infer<typeof estimateSchema>;

@@ -137,6 +137,14 @@ describe("POST /api/blend", () => {
     // Water to 60 %: 10 kg dry / 0.4 = 25 kg total, so 5 kg = 5 L more.
     expect(res.json.water_to_target_l).toBeCloseTo(5, 2);
   });
+  it("gives the full mass of a green that brings a pile into range, however much (the calculator's advice)", async () => {
+    // 20 kg of straw alone: C:N 80 (NRAES-54 Table A.1). By Cornell's formula, with straw
+    // at 12 % water, 0.7 % N, 56 % C and clippings at 82 %, 3.4 % N, 57.8 % C, reaching 40
+    // takes q = (C − 40 N) / (d (40 n − c)) = (9.856 − 40 × 0.1232) / (0.18 × (1.36 − 0.578))
+    // = 4.928 / 0.14076 = 35.01 kg of clippings, rounded up so it lands inside: 36 kg.
+    const res = await post(blendRoute.POST, { components: [{ material: "straw", mass_kg: 20 }] });
+    expect(res.json.advice).toMatch(/36 kg of grass clippings/);
+  });
   it("leaves water_to_target_l out without a target", async () => {
     const res = await post(blendRoute.POST, { components: [{ material: "straw", mass_kg: 5 }] });
     expect(res.status).toBe(200);

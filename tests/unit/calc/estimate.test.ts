@@ -125,7 +125,7 @@ describe("estimate — choices", () => {
 
   it("with only worms there is nothing to blend or water", () => {
     const r = estimate({ bed, layers: { cardboard: false, leaves: false, straw: false }, start_date: "2026-05-01" });
-    expect(r.blend).toEqual({ cn_ratio: null, moisture_pct: null, advice: null });
+    expect(r.blend).toEqual({ cn_ratio: null, moisture_pct: null, advice: null, bed_advice: null });
     expect(r.water_l).toBe(0);
   });
 
