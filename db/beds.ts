@@ -46,7 +46,7 @@ export async function deleteBed(id: string, ownerId: string, q: Db = db()): Prom
 export async function bedsForReminders(q: Db = db()) {
   return q("beds as b")
     .join("users as u", "u.id", "b.owner_id")
-    .select("b.id", "b.name", "b.shape", "b.recipe", "b.lat", "b.lng", "b.start_date", "u.email", "u.display_name")
+    .select("b.id", "b.name", "b.shape", "b.recipe", "b.lat", "b.lng", "b.start_date", "u.email", "u.display_name", "u.unit_system")
     .whereNotNull("b.start_date")
     .andWhere("u.reminders_opt_out", false)
     .whereNull("u.suspended_at");

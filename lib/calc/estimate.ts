@@ -8,11 +8,11 @@ import { type BlendComponent, blend } from "./blend";
 import { type BedAdvice, bedAdvice } from "./bed-advice";
 import { cardboardFor } from "./cardboard";
 import { estimateCautions } from "./cautions";
-import { LAYER_DEPTH_CM, MOISTURE_PCT, SOAK_DRAINAGE_SHARE, WORM_STOCKING_KG_PER_M2 } from "./facts";
+import { LAYER_DEPTH_CM, MOISTURE_PCT, SETTLED_SHARE, SOAK_DRAINAGE_SHARE, WORM_STOCKING_KG_PER_M2 } from "./facts";
 import { bagsFor, balesFor, layerVolume } from "./layers";
 import { massOf } from "./mass";
 import { roundTo } from "./numbers";
-import { type TimelineEvent, timeline } from "./timeline";
+import { type BedMilestones, bedMilestones, type TimelineEvent, timeline, type TopUpAmount } from "./timeline";
 import { lToUsGal } from "./units";
 import { soakFor } from "./water";
 import { roundLitres, roundUsGallons } from "@/lib/format/quantity";
@@ -72,6 +72,12 @@ export interface EstimateResult {
    */
   blend: { cn_ratio: number | null; moisture_pct: number | null; advice: string | null; bed_advice: BedAdvice | null };
   timeline: TimelineEvent[];
+  /** When you can plant into the bed (about 6–9 months) and when most of it is soil (about a year). */
+  planting: BedMilestones;
+  /** The loose layers' depth as built, and about how deep they will have sunk to (common practice). */
+  settling: { built_depth_cm: number; after: { months: 3 | 6 | 12; depth_cm: number }[] };
+  /** Each seasonal top-up with what it takes for this bed. */
+  top_ups: ({ date: string } & TopUpAmount)[];
   cautions: string[];
   centroid?: { lat: number; lng: number };
 }
@@ -118,7 +124,9 @@ export function estimate(input: EstimateInput, now: Date = new Date()): Estimate
     needs.push({ material: "cardboard", quantity: roundTo(sheets.area_m2, 2), unit: "m2", sheets: sheets.sheets, mass_kg: roundTo(mass, KG) });
     composting.push({ material: "cardboard", mass_kg: mass });
   }
+  let built_depth_cm = 0;
   const spreadLayer = <M extends "leaves" | "straw" | "wood_chips">(material: M, depth_cm: number) => {
+    built_depth_cm += depth_cm;
     const m3 = layerVolume(area, depth_cm);
     const mass = massOf(material, m3, "m3");
     composting.push({ material, mass_kg: mass });
@@ -143,7 +151,10 @@ export function estimate(input: EstimateInput, now: Date = new Date()): Estimate
   const target = input.target_moisture_pct ?? MOISTURE_PCT.target;
   const mix = composting.length > 0 ? blend(composting, target) : null;
   const latitude = input.latitude ?? centroid?.lat ?? null;
-  const advice = mix ? bedAdvice(mix, area, input.units ?? "metric") : null;
+  const units = input.units ?? "metric";
+  const advice = mix ? bedAdvice(mix, area, units) : null;
+  const start = input.start_date ?? todayUtc(now);
+  const events = timeline(start, latitude, { worms: worms !== null, bed: { area_m2: area, built_depth_cm }, units });
 
   return {
     area_m2: roundTo(area, 2),
@@ -155,7 +166,13 @@ export function estimate(input: EstimateInput, now: Date = new Date()): Estimate
       advice: advice?.text ?? null,
       bed_advice: advice,
     },
-    timeline: timeline(input.start_date ?? todayUtc(now), latitude, { worms: worms !== null }),
+    timeline: events,
+    planting: bedMilestones(start),
+    settling: {
+      built_depth_cm: roundTo(built_depth_cm, 1),
+      after: ([3, 6, 12] as const).map((months) => ({ months, depth_cm: roundTo(built_depth_cm * SETTLED_SHARE[months], 1) })),
+    },
+    top_ups: events.flatMap((e) => (e.top_up ? [{ date: e.date, ...e.top_up }] : [])),
     cautions: estimateCautions({
       cardboard: cardboard !== null,
       leaves: leaves !== null,

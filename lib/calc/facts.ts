@@ -365,11 +365,27 @@ export const MOISTURE_CHECK_DAYS = [3, 7, 14, 21] as const;
 /** Worms go in 7–14 days after the layers, once any heating has passed (common practice, no source). */
 export const WORMS_AFTER_DAYS = { default: 10, min: 7, max: 14 } as const;
 /**
- * Settling in the first months; cardboard breaks down over several months (Oregon State
- * Extension), 6–9 months before planting is typical advice; most material transformed by
- * month 12 (common practice, no source).
+ * Settling in the first months; most material transformed by month 12 (common practice, no
+ * source).
  */
 export const BED_MONTHS = { settling: 3, half_year: 6, ready: 12 } as const;
+/**
+ * When the bed can be planted into: sheet-mulched cardboard breaks down over several months
+ * (Oregon State Extension), and 6–9 months before planting is the typical advice. Planting
+ * into pockets of compost works earlier; the bed is mostly soil only at BED_MONTHS.ready.
+ */
+export const PLANT_INTO_MONTHS = { from: 6, until: 9, source: "Oregon State Extension (cardboard breaks down over several months); 6–9 months is the typical advice" } as const;
+/**
+ * How far a bed of loose leaves, straw and chips sinks: to about 60 % of the depth it was
+ * built to after 3 months, half after 6, and 40 % after a year, as it settles, wets through
+ * and rots (common practice, no source). Cardboard's few millimetres are left out.
+ */
+export const SETTLED_SHARE = { 3: 0.6, 6: 0.5, 12: 0.4 } as const;
+/**
+ * A seasonal top-up: a fresh 5 cm (2 in) of leaves, or 2 cm (under 1 in) of clippings,
+ * thin so they do not mat (common practice, no source).
+ */
+export const TOP_UP_DEPTH_CM = { leaves: 5, grass_clippings: 2 } as const;
 /**
  * When each top-up material is plentiful: fallen leaves in October–November (April–May
  * south of the equator), grass clippings in June–July (December–January south). Common

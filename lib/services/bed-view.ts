@@ -1,6 +1,7 @@
 import type { Polygon } from "geojson";
 import type { BedRow } from "@/db/beds";
 import { estimate, type EstimateResult } from "@/lib/calc/estimate";
+import type { UnitSystem } from "@/lib/calc/units";
 import type { EstimateLayers } from "@/lib/validation/estimate";
 
 export type BedShape = { length_m: number; width_m: number } | { polygon: Polygon };
@@ -31,10 +32,13 @@ export function toBedView(row: BedRow): BedView {
   };
 }
 
-/** The bed's estimate, as POST /api/estimate would give it for the same shape and recipe. */
-export function bedEstimate(bed: BedView, now = new Date()): EstimateResult {
+/**
+ * The bed's estimate, as POST /api/estimate would give it for the same shape and recipe,
+ * its words (advice, timeline) in the gardener's units.
+ */
+export function bedEstimate(bed: BedView, now = new Date(), units: UnitSystem = "metric"): EstimateResult {
   return estimate(
-    { bed: bed.shape, layers: bed.layers, start_date: bed.start_date ?? undefined, latitude: bed.location?.lat },
+    { bed: bed.shape, layers: bed.layers, start_date: bed.start_date ?? undefined, latitude: bed.location?.lat, units },
     now,
   );
 }

@@ -26,7 +26,7 @@ export async function sendBedReminders(clock: () => Date = () => new Date()): Pr
     let timeline: TimelineEvent[];
     try {
       bed = toBedView(row as unknown as BedRow);
-      timeline = bedEstimate(bed, now).timeline;
+      timeline = bedEstimate(bed, now, row.unit_system === "imperial" ? "imperial" : "metric").timeline;
     } catch (err) {
       // One bed that cannot be estimated (a row saved before a check existed, say) must not
       // hold up everyone else's reminders; it is logged to be looked at and skipped.

@@ -16,5 +16,5 @@ export const GET = withAuth(async ({ user }) => {
 export const POST = withAuth(async ({ req, user }) => {
   const input = parseInput(createBedSchema, await readJson(req));
   const bed = await createBed(user.id, input);
-  return NextResponse.json({ bed, estimate: bedEstimate(bed) }, { status: 201 });
+  return NextResponse.json({ bed, estimate: bedEstimate(bed, new Date(), user.unit_system) }, { status: 201 });
 }, ["gardener"]);

@@ -82,6 +82,18 @@ describe("estimate — a 4 × 1.2 m bed with every default", () => {
     expect(r.blend.advice).toMatch(/grass clippings/);
   });
 
+  it("dates planting into it (6–9 months, Oregon State Extension) apart from soil (a year), and says how far it sinks", () => {
+    expect(r.planting).toEqual({ build: "2026-03-01", plant_into_from: "2026-09-01", plant_into_until: "2026-12-01", soil_by: "2027-03-01" });
+    // 12.5 cm of leaves + 5 cm of straw = 17.5 cm, sinking to 60 %, 50 % and 40 % (common practice).
+    expect(r.settling).toEqual({ built_depth_cm: 17.5, after: [{ months: 3, depth_cm: 10.5 }, { months: 6, depth_cm: 8.8 }, { months: 12, depth_cm: 7 }] });
+  });
+
+  it("lists each top-up with its volume and bags for this 4.8 m² bed", () => {
+    // Leaves 5 cm: 0.24 m³ / 0.1136 = 2.1 → 3 bags; clippings 2 cm: 0.096 m³ → 1 bag (common practice depths).
+    expect(r.top_ups[0]).toEqual({ date: "2026-06-15", material: "grass_clippings", depth_cm: 2, m3: 0.096, bags: 1 });
+    expect(r.top_ups.find((t) => t.material === "leaves")).toMatchObject({ depth_cm: 5, m3: 0.24, bags: 3 });
+  });
+
   it("carries the timeline and the cautions for every default layer", () => {
     expect(r.timeline[0]).toMatchObject({ key: "build", date: "2026-03-01" });
     expect(r.timeline.some((e) => e.key === "add_worms")).toBe(true);

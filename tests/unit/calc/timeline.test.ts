@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it } from "vitest";
-import { isCalendarDate, timeline } from "@/lib/calc/timeline";
+import { bedMilestones, bedStage, isCalendarDate, timeline } from "@/lib/calc/timeline";
 
 const days = (a: string, b: string) => (Date.parse(b) - Date.parse(a)) / 86_400_000;
 const pairs = (events: ReturnType<typeof timeline>) => events.map((e) => `${e.key} ${e.date}`);
@@ -20,6 +20,7 @@ describe("timeline", () => {
       "settling_check 2026-06-01",
       "top_up 2026-06-15",
       "check_6_months 2026-09-01",
+      "plant_into 2026-09-01",
       "top_up 2026-10-15",
       "ready 2027-03-01",
       "top_up 2027-06-15",
@@ -78,6 +79,19 @@ describe("timeline", () => {
     expect(ready).toBeGreaterThanOrEqual(182);
     expect(ready).toBeLessThanOrEqual(366);
     expect(days(build, t.find((e) => e.key === "check_6_months")!.date)).toBeGreaterThanOrEqual(181);
+  });
+
+  it("tells planting into it (6–9 months, Oregon State Extension) apart from most of it being soil (about a year)", () => {
+    const t = timeline("2026-03-01", 51.5, { worms: false });
+    const plant = t.find((e) => e.key === "plant_into")!;
+    const soil = t.find((e) => e.key === "ready")!;
+    expect(plant.date).toBe("2026-09-01");
+    expect(plant.title).toBe("You can plant into it");
+    expect(plant.detail).toMatch(/Oregon State Extension/);
+    expect(plant.detail).toMatch(/month 9/);
+    expect(soil.date).toBe("2027-03-01");
+    expect(soil.title).toBe("Most of it has turned to soil");
+    expect(soil.title).not.toMatch(/ready to plant/i);
   });
 
   it("clamps month arithmetic to the end of shorter months", () => {
@@ -152,5 +166,58 @@ describe("isCalendarDate", () => {
     ["", false],
   ])("%s → %s", (s, ok) => {
     expect(isCalendarDate(s)).toBe(ok);
+  });
+});
+
+describe("amounts for this bed", () => {
+  // A 3 × 1.2 m bed built 17.5 cm deep (12.5 cm of leaves and 5 cm of straw).
+  const bed = { area_m2: 3.6, built_depth_cm: 17.5 };
+  const t = timeline("2026-03-01", 51.5, { worms: true, bed });
+
+  it("says how deep it should have sunk to at 3, 6 and 12 months (60 %, 50 %, 40 %: common practice, no source)", () => {
+    // 17.5 × 0.6 = 10.5; × 0.5 = 8.75, given to the millimetre; × 0.4 = 7.
+    expect(t.find((e) => e.key === "settling_check")!.settled_depth_cm).toBe(10.5);
+    expect(t.find((e) => e.key === "check_6_months")!.settled_depth_cm).toBe(8.8);
+    expect(t.find((e) => e.key === "ready")!.settled_depth_cm).toBe(7);
+    expect(t.find((e) => e.key === "settling_check")!.detail).toMatch(/about 10\.5 cm of the 17\.5 cm you built \(common practice\)/);
+  });
+
+  it("gives each top-up its volume and bags (5 cm of leaves, 2 cm of clippings: common practice)", () => {
+    // Leaves: 3.6 m² × 0.05 m = 0.18 m³ = 1.6 bags of 30 US gal (0.1136 m³) → 2 bags.
+    // Clippings: 3.6 × 0.02 = 0.072 m³ → 1 bag.
+    const leaves = t.find((e) => e.key === "top_up" && e.top_up?.material === "leaves")!;
+    const clippings = t.find((e) => e.key === "top_up" && e.top_up?.material === "grass_clippings")!;
+    expect(leaves.top_up).toEqual({ material: "leaves", depth_cm: 5, m3: 0.18, bags: 2 });
+    expect(clippings.top_up).toEqual({ material: "grass_clippings", depth_cm: 2, m3: 0.072, bags: 1 });
+    expect(leaves.detail).toMatch(/5 cm of leaves: 0\.18 m³, about 2 bags for this bed/);
+  });
+
+  it("writes the amounts in the units asked for", () => {
+    const imperial = timeline("2026-03-01", 51.5, { worms: true, bed, units: "imperial" });
+    // 10.5 cm = 4.1 in, 17.5 cm = 6.9 in; 0.18 m³ = 6.36 ft³ (NIST HB44).
+    expect(imperial.find((e) => e.key === "settling_check")!.detail).toMatch(/about 4\.1 in of the 6\.9 in/);
+    expect(imperial.find((e) => e.top_up?.material === "leaves")!.detail).toMatch(/6\.36 ft³/);
+  });
+
+  it("leaves the amounts out when it does not know the bed", () => {
+    const plain = timeline("2026-03-01", 51.5, { worms: true });
+    expect(plain.some((e) => e.settled_depth_cm !== undefined || e.top_up !== undefined)).toBe(false);
+  });
+});
+
+describe("which stage a bed is at", () => {
+  const m = bedMilestones("2026-03-01");
+  it("dates planting into it from month 6 to month 9, and soil by month 12", () => {
+    expect(m).toEqual({ build: "2026-03-01", plant_into_from: "2026-09-01", plant_into_until: "2026-12-01", soil_by: "2027-03-01" });
+  });
+  it.each([
+    ["2026-02-28", "not_built"],
+    ["2026-03-01", "settling"],
+    ["2026-08-31", "settling"],
+    ["2026-09-01", "plant_into"],
+    ["2027-02-28", "plant_into"],
+    ["2027-03-01", "soil"],
+  ])("on %s it is %s", (today, stage) => {
+    expect(bedStage(m, today)).toBe(stage);
   });
 });

@@ -18,7 +18,7 @@ export default async function BedPage({ params }: { params: Promise<{ id: string
   const row = await findBed(id, user.id);
   if (!row) notFound();
   const bed = toBedView(row);
-  const result = bedEstimate(bed);
+  const result = bedEstimate(bed, new Date(), user.unit_system);
   const size = "length_m" in bed.shape
     ? `${formatQuantity(bed.shape.length_m, "m", user.unit_system)} × ${formatQuantity(bed.shape.width_m, "m", user.unit_system)}`
     : "drawn outline";

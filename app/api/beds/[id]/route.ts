@@ -13,14 +13,14 @@ export const GET = withAuth<P>(async ({ params, user }) => {
   const row = await findBed(params.id, user.id);
   if (!row) throw notFound("That bed");
   const bed = toBedView(row);
-  return NextResponse.json({ bed, estimate: bedEstimate(bed) });
+  return NextResponse.json({ bed, estimate: bedEstimate(bed, new Date(), user.unit_system) });
 }, ["gardener"]);
 
 // PATCH /api/beds/:id — change any of name, shape, recipe, start date, location.
 export const PATCH = withAuth<P>(async ({ req, params, user }) => {
   const input = parseInput(updateBedSchema, await readJson(req));
   const bed = await editBed(user.id, params.id, input);
-  return NextResponse.json({ bed, estimate: bedEstimate(bed) });
+  return NextResponse.json({ bed, estimate: bedEstimate(bed, new Date(), user.unit_system) });
 }, ["gardener"]);
 
 // DELETE /api/beds/:id

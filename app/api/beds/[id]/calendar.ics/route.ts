@@ -10,7 +10,7 @@ export const GET = withAuth<{ id: string }>(async ({ params, user }) => {
   const row = await findBed(params.id, user.id);
   if (!row) throw notFound("That bed");
   const bed = toBedView(row);
-  const ics = bedCalendar(bed, bedEstimate(bed).timeline, appUrl());
+  const ics = bedCalendar(bed, bedEstimate(bed, new Date(), user.unit_system).timeline, appUrl());
   const filename = `${bed.name.replace(/[^a-z0-9]+/gi, "-").toLowerCase() || "bed"}.ics`;
   return new Response(ics, {
     headers: { "content-type": "text/calendar; charset=utf-8", "content-disposition": `attachment; filename="${filename}"` },
