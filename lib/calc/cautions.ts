@@ -22,7 +22,8 @@ export const CAUTION_TEXT = {
   // NC State Extension "Herbicide Carryover"; bean/pea pot test per WSU Whatcom County Extension.
   herbicide:
     "Straw (like hay, manure and clippings) can carry weedkiller residues that survive composting and stunt vegetables. Ask the supplier what was sprayed, and grow a few beans or peas in pots of it for two or three weeks before you build.",
-  smallBale: `A small bale weighs about ${baleKg(BALE_MASS_LB.min)}–${baleKg(BALE_MASS_LB.max)} kg (${BALE_MASS_LB.min}–${BALE_MASS_LB.max} lb), at or over the ${NIOSH_LIFT_LIMIT_KG} kg (${NIOSH_LIFT_LIMIT_LB} lb) NIOSH limit for one lift: keep it close, bend your knees, and share the lift with a second person.`,
+  // NIOSH's limit sits inside the usual range: the lighter bales are under it, the heavier over.
+  smallBale: `A small bale weighs about ${baleKg(BALE_MASS_LB.min)}–${baleKg(BALE_MASS_LB.max)} kg (${BALE_MASS_LB.min}–${BALE_MASS_LB.max} lb); the heavier ones are over the ${NIOSH_LIFT_LIMIT_KG} kg (${NIOSH_LIFT_LIMIT_LB} lb) NIOSH recommends for one lift in ideal conditions, and all of them are awkward: keep it close, bend your knees, and share the lift with a second person.`,
   worms:
     "Worms are live animals, and some earthworm species are invasive in some regions. Buy from a grower who can tell you the species, and follow your local rules.",
   // How live worms travel, by the way they reach the buyer (common practice, no source).

@@ -343,9 +343,11 @@ export const WORMS_PER_KG = 1000 / POUND_KG;
  */
 export const WORM_TEMPERATURE_F = { comfortable_min: 55, comfortable_max: 78, best_min: 65, best_max: 78, survive_min: 35, survive_max: 100 } as const;
 /**
- * Settled composting worms can eat about half their body weight a day (NC Cooperative
- * Extension); a culture that has just moved eats much less (common practice, no source).
+ * Settled composting worms can eat about half their body weight a day: NC Cooperative
+ * Extension as quoted in other guides (2 lb of worms, 1 lb of scraps a day); we have not
+ * seen the original. A culture that has just moved eats much less (common practice, no source).
  */
+export const WORM_DAILY_FOOD_SOURCE = "NC Cooperative Extension, as quoted in other guides; we have not seen the original";
 export const WORM_DAILY_FOOD_SHARE = 0.5;
 
 // ---------------------------------------------------------------------------------------

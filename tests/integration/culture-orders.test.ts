@@ -145,8 +145,10 @@ describe("a paid culture: the care sheet on purchase, then packed, shipped and d
     expect(text).toContain("55–78 °F (13–26 °C)");
     expect(text).toContain("Virginia Cooperative Extension");
     expect(text).toContain("Oregon State University Extension");
-    // NC Cooperative Extension: about half their body weight a day, so 2 kg of worms → up to 1 kg of scraps.
+    // NC Cooperative Extension, quoted in other guides (not seen in the original): about half
+    // their body weight a day, so 2 kg of worms → up to 1 kg of scraps. The sheet says so.
     expect(text).toContain("half their body weight");
+    expect(text).toContain("NC Cooperative Extension, as quoted in other guides; we have not seen the original");
     expect(text).toContain("up to about 1 kg of scraps a day");
     // When to add them to a new bed: 7–14 days after building it (common practice, no source).
     expect(text).toContain("7–14 days after building it");

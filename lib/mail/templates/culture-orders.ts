@@ -4,7 +4,7 @@
 // every other e-mail (renderEmail); facts come from lib/calc/facts.ts with their sources.
 import type { ReservationContext } from "@/db/reservation-context";
 import { appUrl } from "@/lib/app-url";
-import { WORM_DAILY_FOOD_SHARE, WORM_TEMPERATURE_F, WORMS_AFTER_DAYS } from "@/lib/calc/facts";
+import { WORM_DAILY_FOOD_SHARE, WORM_DAILY_FOOD_SOURCE, WORM_TEMPERATURE_F, WORMS_AFTER_DAYS } from "@/lib/calc/facts";
 import { formatMoney } from "@/lib/payments/money";
 import { PAUSE_REASON_LABELS } from "@/lib/validation/grower";
 import { dayLabel, estimatedWorms } from "@/lib/reservations/culture-orders";
@@ -40,7 +40,7 @@ export function careSheetParagraphs(r: ReservationContext, species: string | nul
       : ["Bring them home in a container with damp bedding, out of the sun and the cold, and go straight home."]),
     "Bedding moisture, by the squeeze test: keep it as damp as a wrung-out sponge. Squeeze a handful: a drop or two of water is right; if nothing comes, sprinkle in water; if it drips steadily, mix in dry shredded cardboard or leaves.",
     `Temperature: keep them at about ${T.comfortable_min}–${T.comfortable_max} °F (${fToC(T.comfortable_min)}–${fToC(T.comfortable_max)} °C). Extension guidance puts them at their best at ${T.best_min}–${T.best_max} °F (Virginia Cooperative Extension) and most active at ${T.comfortable_min}–75 °F (Oregon State University Extension). They survive roughly ${T.survive_min}–${T.survive_max} °F (${fToC(T.survive_min)}–${fToC(T.survive_max)} °C) for a while, but not a day in a hot car or a frozen shed: shade a bin in summer and bring it under cover before frost.`,
-    `Feeding: settled worms can eat about half their body weight a day (NC Cooperative Extension); for ${kg(qty)} of worms that is up to about ${kg(qty * WORM_DAILY_FOOD_SHARE)} of scraps a day. Start far lower while they settle in: a small handful of chopped vegetable and fruit scraps or coffee grounds, buried under the bedding, and more only once it has gone. No meat, dairy, oily or salty food.`,
+    `Feeding: settled worms can eat about half their body weight a day (${WORM_DAILY_FOOD_SOURCE}); for ${kg(qty)} of worms that is up to about ${kg(qty * WORM_DAILY_FOOD_SHARE)} of scraps a day. Start far lower while they settle in: a small handful of chopped vegetable and fruit scraps or coffee grounds, buried under the bedding, and more only once it has gone. No meat, dairy, oily or salty food.`,
     `Into a new bed: add them ${WORMS_AFTER_DAYS.min}–${WORMS_AFTER_DAYS.max} days after building it, once the layers have stopped warming up and are cool and damp right through (common practice). Tuck them under the top layer in a few spots, in the evening or on a dull day.`,
     `Some earthworm species are invasive in some regions and can harm woodland soils. ${species ? `Yours are ${species}: keep` : "Keep"} them in your beds and bins, never tip them out in woodland, and check your local rules before you use them outdoors.`,
     "General guidance, not advice for your site: local rules come first.",

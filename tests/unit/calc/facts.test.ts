@@ -88,10 +88,13 @@ describe("MATERIALS — bulk density", () => {
   // Straw's three common-practice ranges must agree with each other: a small bale weighs
   // 40–60 lb; baled straw is 7–12 lb/ft³ and loose straw 1–3 lb/ft³ (biomass handling
   // texts). 1 lb/ft³ = 16.018463 kg/m³ (NIST HB44).
-  it("the default bale weighs what a small bale weighs, 40–60 lb (common practice)", () => {
+  it("the default bale weighs what a small bale weighs, 40–60 lb, 18–27 kg (common practice)", () => {
     const lb = BALE_KG / 0.45359237;
     expect(lb).toBeGreaterThanOrEqual(40);
     expect(lb).toBeLessThanOrEqual(60);
+    // The caution quotes the range in whole kilograms: 40 lb = 18.1, 60 lb = 27.2.
+    expect(BALE_KG).toBeGreaterThanOrEqual(18);
+    expect(BALE_KG).toBeLessThanOrEqual(27);
   });
 
   it("in the bale that is baled straw, 7–12 lb/ft³ (common practice)", () => {
