@@ -4,6 +4,8 @@ import type { Polygon } from "geojson";
 import { z } from "zod";
 import { polygonArea, polygonProblem, polygonSpan } from "@/lib/calc/area";
 import { MAX_OVERLAP_SHARE } from "@/lib/calc/cardboard";
+import { formatQuantity } from "@/lib/format/quantity";
+import { DEPTH, LENGTH, measureKeys, notBoth, SHEET_SIDE, siValue, STOCKING, unitOf } from "./measure";
 import { CARDBOARD_OVERLAP_CM, DEFAULT_CARDBOARD_SHEET, LAYER_DEPTH_CM, MOISTURE_PCT } from "@/lib/calc/facts";
 import { isCalendarDate } from "@/lib/calc/timeline";
 
@@ -35,11 +37,10 @@ export function strictObject<S extends z.core.$ZodLooseShape>(shape: S, what: st
   });
 }
 
-const side = (label: string) =>
-  z
-    .number({ error: `${label} must be a number of metres` })
-    .positive(`${label} must be more than 0 m`)
-    .max(MAX_SIDE_M, `${label} must be at most ${MAX_SIDE_M} m`);
+/** A rectangle's sides, in metres or feet. */
+const SIDE_LIMITS = { above: 0, max: MAX_SIDE_M };
+const LENGTH_KEYS = { si: "length_m", imperial: "length_ft" };
+const WIDTH_KEYS = { si: "width_m", imperial: "width_ft" };
 
 const position = z.tuple(
   [
@@ -59,14 +60,16 @@ const polygonGeometry = z.object({
 
 export const bedSchema = strictObject(
   {
-    length_m: side("length").optional(),
-    width_m: side("width").optional(),
+    ...measureKeys(LENGTH_KEYS, "length", LENGTH, SIDE_LIMITS),
+    ...measureKeys(WIDTH_KEYS, "width", LENGTH, SIDE_LIMITS),
     polygon: polygonGeometry.optional(),
   },
   "part of a bed's shape",
 )
   .superRefine((bed, ctx) => {
-    const hasSides = bed.length_m !== undefined || bed.width_m !== undefined;
+    const length = siValue(bed, LENGTH_KEYS, LENGTH, SIDE_LIMITS);
+    const width = siValue(bed, WIDTH_KEYS, LENGTH, SIDE_LIMITS);
+    const hasSides = length !== undefined || width !== undefined;
     if (bed.polygon && hasSides) {
       ctx.addIssue({ code: "custom", path: [], message: "Give either an outline or a length and width, not both" });
       return;
@@ -85,21 +88,26 @@ export const bedSchema = strictObject(
       if (problem) {
         ctx.addIssue({ code: "custom", path: problem.ring === null ? ["polygon"] : ["polygon", "coordinates", problem.ring], message: problem.message });
       } else if (polygonSpan(bed.polygon) > MAX_OUTLINE_SPAN_M) {
-        ctx.addIssue({ code: "custom", path: ["polygon"], message: `An outline can spread at most ${MAX_OUTLINE_SPAN_M} m from end to end` });
+        ctx.addIssue({ code: "custom", path: ["polygon"], message: `An outline can spread at most ${MAX_OUTLINE_SPAN_M} m (${formatQuantity(MAX_OUTLINE_SPAN_M, "m", "imperial")}) from end to end` });
       } else if (polygonArea(bed.polygon) > MAX_BED_AREA_M2) {
-        ctx.addIssue({ code: "custom", path: ["polygon"], message: `A bed can be at most ${MAX_BED_AREA_M2.toLocaleString("en-US")} m²` });
+        ctx.addIssue({ code: "custom", path: ["polygon"], message: `A bed can be at most ${MAX_BED_AREA_M2.toLocaleString("en-US")} m² (${formatQuantity(MAX_BED_AREA_M2, "m2", "imperial")})` });
       }
       return;
     }
-    if (bed.length_m === undefined) ctx.addIssue({ code: "custom", path: ["length_m"], message: "Give the bed's length" });
-    if (bed.width_m === undefined) ctx.addIssue({ code: "custom", path: ["width_m"], message: "Give the bed's width" });
-    if (bed.length_m !== undefined && bed.width_m !== undefined && bed.length_m * bed.width_m > MAX_BED_AREA_M2) {
-      ctx.addIssue({ code: "custom", path: [], message: `A bed can be at most ${MAX_BED_AREA_M2.toLocaleString("en-US")} m²` });
+    notBoth(bed, LENGTH_KEYS, ctx);
+    notBoth(bed, WIDTH_KEYS, ctx);
+    if (length === undefined) ctx.addIssue({ code: "custom", path: ["length_m"], message: "Give the bed's length" });
+    if (width === undefined) ctx.addIssue({ code: "custom", path: ["width_m"], message: "Give the bed's width" });
+    if (length !== undefined && width !== undefined && length * width > MAX_BED_AREA_M2) {
+      const system = unitOf(bed, LENGTH_KEYS) === "imperial" || unitOf(bed, WIDTH_KEYS) === "imperial" ? "imperial" : "metric";
+      ctx.addIssue({ code: "custom", path: [], message: `A bed can be at most ${formatQuantity(MAX_BED_AREA_M2, "m2", system)}` });
     }
   })
   // Out as plain GeoJSON, so callers holding a Turf or Leaflet Polygon can build the type.
   .transform((bed): { length_m: number; width_m: number } | { polygon: Polygon } =>
-    bed.polygon ? { polygon: bed.polygon } : { length_m: bed.length_m!, width_m: bed.width_m! },
+    bed.polygon
+      ? { polygon: bed.polygon }
+      : { length_m: siValue(bed, LENGTH_KEYS, LENGTH, SIDE_LIMITS)!, width_m: siValue(bed, WIDTH_KEYS, LENGTH, SIDE_LIMITS)! },
   );
 
 /**
@@ -122,43 +130,93 @@ const inRange = (what: string, unit: string, r: { min: number; max: number }) =>
 
 const ON_OFF_OR_SETTINGS = "Use true, false or an object of settings";
 
+const DEPTH_KEYS = { si: "depth_cm", imperial: "depth_in" };
+
+/** A loose layer: on, off, or its depth in cm or in. Out: { depth_cm? } in SI. */
+// Each transform sits outside its union: inside, zod could no longer tell which option an
+// object was meant for, and would drop the field's own message for the union's.
 const depthLayer = (r: { min: number; max: number }) =>
-  z.union([z.boolean(), strictObject({ depth_cm: inRange("depth", "cm", r).optional() }, "a setting of this layer")], { error: ON_OFF_OR_SETTINGS });
+  z
+    .union(
+      [z.boolean(), strictObject(measureKeys(DEPTH_KEYS, "depth", DEPTH, r), "a setting of this layer").superRefine((l, ctx) => notBoth(l, DEPTH_KEYS, ctx))],
+      { error: ON_OFF_OR_SETTINGS },
+    )
+    .transform((l): boolean | { depth_cm?: number } => {
+      if (typeof l === "boolean") return l;
+      const depth_cm = siValue(l, DEPTH_KEYS, DEPTH, r);
+      return depth_cm === undefined ? {} : { depth_cm };
+    });
 
 // Sheets shorter than this could not overlap a 30 cm seam and still cover anything.
-const sheetSide = z.number().min(0.35, "a sheet side must be at least 0.35 m").max(5, "a sheet side must be at most 5 m");
+const SHEET_LIMITS = { min: 0.35, max: 5 };
+const OVERLAP_KEYS = { si: "overlap_cm", imperial: "overlap_in" };
+const SHEET_LENGTH_KEYS = { si: "sheet_length_m", imperial: "sheet_length_in" };
+const SHEET_WIDTH_KEYS = { si: "sheet_width_m", imperial: "sheet_width_in" };
 
+const cardboardSettings = strictObject(
+  {
+    ...measureKeys(OVERLAP_KEYS, "overlap", DEPTH, CARDBOARD_OVERLAP_CM),
+    ...measureKeys(SHEET_LENGTH_KEYS, "a sheet side", SHEET_SIDE, SHEET_LIMITS),
+    ...measureKeys(SHEET_WIDTH_KEYS, "a sheet side", SHEET_SIDE, SHEET_LIMITS),
+  },
+  "a cardboard setting",
+)
+  .superRefine((c, ctx) => {
+    for (const keys of [OVERLAP_KEYS, SHEET_LENGTH_KEYS, SHEET_WIDTH_KEYS]) notBoth(c, keys, ctx);
+    // Wider seams bury most of each sheet, and tiny sheets with wide seams make a grid of
+    // millions: refused (lib/calc/cardboard.ts MAX_OVERLAP_SHARE).
+    const sl = siValue(c, SHEET_LENGTH_KEYS, SHEET_SIDE, SHEET_LIMITS) ?? DEFAULT_CARDBOARD_SHEET.length_m;
+    const sw = siValue(c, SHEET_WIDTH_KEYS, SHEET_SIDE, SHEET_LIMITS) ?? DEFAULT_CARDBOARD_SHEET.width_m;
+    const most_cm = MAX_OVERLAP_SHARE * Math.min(sl, sw) * 100;
+    const overlap = siValue(c, OVERLAP_KEYS, DEPTH, CARDBOARD_OVERLAP_CM) ?? CARDBOARD_OVERLAP_CM.default;
+    if (overlap > most_cm + 1e-9) {
+      const imperial = unitOf(c, OVERLAP_KEYS) === "imperial";
+      ctx.addIssue({
+        code: "custom",
+        path: [imperial ? OVERLAP_KEYS.imperial : OVERLAP_KEYS.si],
+        message: `overlap must be at most half the sheet's shorter side, ${imperial ? `${(Math.floor(DEPTH.fromSi(most_cm) * 10) / 10).toString()} in` : `${Number(most_cm.toFixed(1))} cm`}`,
+      });
+    }
+  });
+
+function cardboardToSi(c: Record<string, number | undefined>) {
+  const out: { overlap_cm?: number; sheet_length_m?: number; sheet_width_m?: number } = {};
+  const overlap_cm = siValue(c, OVERLAP_KEYS, DEPTH, CARDBOARD_OVERLAP_CM);
+  const sheet_length_m = siValue(c, SHEET_LENGTH_KEYS, SHEET_SIDE, SHEET_LIMITS);
+  const sheet_width_m = siValue(c, SHEET_WIDTH_KEYS, SHEET_SIDE, SHEET_LIMITS);
+  if (overlap_cm !== undefined) out.overlap_cm = overlap_cm;
+  if (sheet_length_m !== undefined) out.sheet_length_m = sheet_length_m;
+  if (sheet_width_m !== undefined) out.sheet_width_m = sheet_width_m;
+  return out;
+}
+
+// Bins run at a few kg/m²; past 5 a bed is a worm farm, so treat it as a typo.
+const STOCKING_LIMITS = { above: 0, max: 5 };
+const STOCKING_KEYS = { si: "kg_per_m2", imperial: "oz_per_ft2" };
+const wormSettings = strictObject(measureKeys(STOCKING_KEYS, "stocking", STOCKING, STOCKING_LIMITS), "a worm setting").superRefine((w, ctx) =>
+  notBoth(w, STOCKING_KEYS, ctx),
+);
+function wormsToSi(w: Record<string, number | undefined>): { kg_per_m2?: number } {
+  const kg_per_m2 = siValue(w, STOCKING_KEYS, STOCKING, STOCKING_LIMITS);
+  return kg_per_m2 === undefined ? {} : { kg_per_m2 };
+}
+
+/**
+ * Every measurement may come in metric or imperial units (depth_cm or depth_in, overlap_cm
+ * or overlap_in, sheet_length_m or sheet_length_in, kg_per_m2 or oz_per_ft2) and is checked,
+ * and its messages written, in the unit it came in; what comes out is SI.
+ */
 export const layersSchema = strictObject({
   cardboard: z
-    .union([
-      z.boolean(),
-      strictObject(
-        {
-          overlap_cm: inRange("overlap", "cm", CARDBOARD_OVERLAP_CM).optional(),
-          sheet_length_m: sheetSide.optional(),
-          sheet_width_m: sheetSide.optional(),
-        },
-        "a cardboard setting",
-      ).superRefine((c, ctx) => {
-        // Wider seams bury most of each sheet, and tiny sheets with wide seams make a grid
-        // of millions: refused (lib/calc/cardboard.ts MAX_OVERLAP_SHARE).
-        const shorter = Math.min(c.sheet_length_m ?? DEFAULT_CARDBOARD_SHEET.length_m, c.sheet_width_m ?? DEFAULT_CARDBOARD_SHEET.width_m);
-        const most = MAX_OVERLAP_SHARE * shorter * 100;
-        if ((c.overlap_cm ?? CARDBOARD_OVERLAP_CM.default) > most + 1e-9) {
-          ctx.addIssue({ code: "custom", path: ["overlap_cm"], message: `overlap must be at most half the sheet's shorter side, ${Number(most.toFixed(1))} cm` });
-        }
-      }),
-    ], { error: ON_OFF_OR_SETTINGS })
+    .union([z.boolean(), cardboardSettings], { error: ON_OFF_OR_SETTINGS })
+    .transform((c) => (typeof c === "boolean" ? c : cardboardToSi(c)))
     .optional(),
   leaves: depthLayer(LAYER_DEPTH_CM.leaves).optional(),
   straw: depthLayer(LAYER_DEPTH_CM.straw).optional(),
   wood_chips: depthLayer(LAYER_DEPTH_CM.wood_chips).optional(),
   worms: z
-    .union([
-      z.boolean(),
-      // Bins run at a few kg/m²; past 5 a bed is a worm farm, so treat it as a typo.
-      strictObject({ kg_per_m2: z.number().positive("stocking must be more than 0 kg/m²").max(5, "stocking must be at most 5 kg/m²").optional() }, "a worm setting"),
-    ], { error: ON_OFF_OR_SETTINGS })
+    .union([z.boolean(), wormSettings], { error: ON_OFF_OR_SETTINGS })
+    .transform((w) => (typeof w === "boolean" ? w : wormsToSi(w)))
     .optional(),
 }, "a layer");
 

@@ -74,7 +74,7 @@ describe("POST /api/estimate", () => {
     ["an outline spreading 1,200 m", outline([at(0, 0), at(1200, 0), at(1200, 4), at(4, 4), at(4, 1200), at(0, 1200), at(0, 0)]), "bed.polygon"],
     ["an unknown layer", { bed: { length_m: 3, width_m: 1 }, layers: { plutonium: true } }, "layers.plutonium"],
     ["an unknown layer setting", { bed: { length_m: 3, width_m: 1 }, layers: { leaves: { depth: 10 } } }, "layers.leaves.depth"],
-    ["an unknown cardboard setting", { bed: { length_m: 3, width_m: 1 }, layers: { cardboard: { overlap_in: 6 } } }, "layers.cardboard.overlap_in"],
+    ["an unknown cardboard setting", { bed: { length_m: 3, width_m: 1 }, layers: { cardboard: { overlap_mm: 150 } } }, "layers.cardboard.overlap_mm"],
     ["an unknown field", { bed: { length_m: 3, width_m: 1 }, colour: "red" }, "colour"],
     ["an unknown bed field", { bed: { length_m: 3, width_m: 1, height_m: 0.3 } }, "bed.height_m"],
     ["negative length", { bed: { length_m: -3, width_m: 1 } }, "bed.length_m"],

@@ -116,3 +116,49 @@ describe("blendSchema", () => {
     expect(paths(blendSchema.safeParse(input))).toContain(path);
   });
 });
+
+describe("estimateSchema in the request's own units", () => {
+  const issues = (input: unknown) => {
+    const r = estimateSchema.safeParse(input);
+    return r.success ? [] : r.error.issues.map((i) => [i.path.join("."), i.message]);
+  };
+  const bed = { length_m: 2, width_m: 2 };
+
+  it("answers a depth given in inches in inches: 13 in of leaves is over the 12 in limit (30 cm = 11.8 in, said as 12)", () => {
+    expect(issues({ bed, layers: { leaves: { depth_in: 13 } } })).toEqual([["layers.leaves.depth_in", "depth must be at most 12 in"]]);
+    expect(issues({ bed, layers: { leaves: { depth_cm: 31 } } })).toEqual([["layers.leaves.depth_cm", "depth must be at most 30 cm"]]);
+    // 2 cm of straw is 0.79 in: said as 0.8 in.
+    expect(issues({ bed, layers: { straw: { depth_in: 0.5 } } })).toEqual([["layers.straw.depth_in", "depth must be at least 0.8 in"]]);
+  });
+
+  it("takes 12 in as the 30 cm it stands for, and other imperial settings in SI (NIST HB44 inch and foot)", () => {
+    const r = estimateSchema.parse({
+      bed: { length_ft: 10, width_ft: 4 },
+      layers: { leaves: { depth_in: 12 }, straw: { depth_in: 2 }, cardboard: { overlap_in: 6, sheet_length_in: 40, sheet_width_in: 30 }, worms: { oz_per_ft2: 1 } },
+    });
+    expect(r.bed).toEqual({ length_m: expect.closeTo(3.048, 9), width_m: expect.closeTo(1.2192, 9) });
+    expect(r.layers!.leaves).toEqual({ depth_cm: 30 });
+    expect(r.layers!.straw).toEqual({ depth_cm: expect.closeTo(5.08, 9) });
+    expect(r.layers!.cardboard).toEqual({ overlap_cm: expect.closeTo(15.24, 9), sheet_length_m: expect.closeTo(1.016, 9), sheet_width_m: expect.closeTo(0.762, 9) });
+    // 1 oz/ft² = 0.028349523 kg / 0.09290304 m² = 0.30515 kg/m².
+    expect((r.layers!.worms as { kg_per_m2: number }).kg_per_m2).toBeCloseTo(0.30515, 5);
+  });
+
+  it("speaks feet, inches and ounces wherever the request did", () => {
+    expect(issues({ bed: { length_ft: -3, width_ft: 4 } })).toEqual([["bed.length_ft", "length must be more than 0 ft"]]);
+    // 10,000 m² = 107,639 ft², said to three figures.
+    expect(issues({ bed: { length_ft: 400, width_ft: 300 } })).toEqual([["bed", "A bed can be at most 108,000 ft²"]]);
+    expect(issues({ bed, layers: { cardboard: { overlap_in: 14 } } })[0]).toEqual(["layers.cardboard.overlap_in", "overlap must be at most 12 in"]);
+    // A 14 in sheet takes seams of at most 7 in.
+    expect(issues({ bed, layers: { cardboard: { sheet_length_in: 14, sheet_width_in: 14, overlap_in: 8 } } })).toEqual([
+      ["layers.cardboard.overlap_in", "overlap must be at most half the sheet's shorter side, 7 in"],
+    ]);
+    // 5 kg/m² = 16.4 oz/ft².
+    expect(issues({ bed, layers: { worms: { oz_per_ft2: 20 } } })).toEqual([["layers.worms.oz_per_ft2", "stocking must be at most 16.4 oz/ft²"]]);
+  });
+
+  it("refuses a measurement given both ways", () => {
+    expect(issues({ bed, layers: { leaves: { depth_cm: 10, depth_in: 4 } } })).toEqual([["layers.leaves.depth_in", "Give depth_cm or depth_in, not both"]]);
+    expect(issues({ bed: { length_m: 2, length_ft: 6, width_m: 1 } })).toEqual([["bed.length_ft", "Give length_m or length_ft, not both"]]);
+  });
+});
