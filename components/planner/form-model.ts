@@ -29,10 +29,11 @@ export interface PlanValues {
   worms_stocking: string;
   start_date: string;
   /**
-   * A saved bed's exact values and how each was shown: a number left as shown is sent back
-   * exactly, so editing a bed never nudges a setting through rounding for display.
+   * The exact SI value behind each number and how it was shown: a number left as shown is
+   * sent back exactly, so switching units back and forth, or editing a saved bed, never
+   * nudges a setting through rounding for display.
    */
-  saved?: Partial<Record<NumericField, { shown: string; si: number }>>;
+  exact?: Partial<Record<NumericField, { shown: string; si: number }>>;
 }
 
 /** The form's number fields and what each measures. */
@@ -80,103 +81,142 @@ function toSi(measure: Measure, n: number, system: UnitSystem): number {
   return ozFt2ToKgM2(n);
 }
 
-/** The SI value of a number field: the saved value while it is left as shown, else what is typed. */
+/** The exact SI value behind a field while it is left as shown. */
+function keptSi(v: PlanValues, field: NumericField): number | undefined {
+  const kept = v.exact?.[field];
+  return kept && kept.shown === v[field] ? kept.si : undefined;
+}
+
+/** The SI value of a number field: the exact value while it is left as shown, else what is typed. */
 function siOf(v: PlanValues, field: NumericField): number {
-  const kept = v.saved?.[field];
-  if (kept && kept.shown === v[field]) return kept.si;
-  return toSi(NUMERIC[field], num(v[field]), v.system);
+  return keptSi(v, field) ?? toSi(NUMERIC[field], num(v[field]), v.system);
+}
+
+/** Fields shown from exact SI values, each remembered with how it was shown. */
+function shownFrom(values: Partial<Record<NumericField, number>>, system: UnitSystem) {
+  const fields: Partial<Record<NumericField, string>> = {};
+  const exact: NonNullable<PlanValues["exact"]> = {};
+  for (const [field, si] of Object.entries(values) as [NumericField, number][]) {
+    fields[field] = show(NUMERIC[field], si, system);
+    exact[field] = { shown: fields[field]!, si };
+  }
+  return { fields, exact };
 }
 
 export function defaultPlanValues(system: UnitSystem, today: string): PlanValues {
-  const len = (m: number) => (system === "metric" ? fix(m, 2) : fix(mToFt(m), 1));
-  const depth = (cm: number) => (system === "metric" ? fix(cm, 1) : fix(cmToIn(cm), 1));
+  const { fields, exact } = shownFrom(
+    {
+      length: 3,
+      width: 1.2,
+      overlap: CARDBOARD_OVERLAP_CM.default,
+      leaves_depth: LAYER_DEPTH_CM.leaves.default,
+      straw_depth: LAYER_DEPTH_CM.straw.default,
+      chips_depth: LAYER_DEPTH_CM.wood_chips.default,
+    },
+    system,
+  );
   return {
     system,
     shape: "rectangle",
-    length: len(3),
-    width: len(1.2),
+    length: fields.length!,
+    width: fields.width!,
     outline: [],
     location: null,
     cardboard_on: true,
-    overlap: depth(CARDBOARD_OVERLAP_CM.default),
+    overlap: fields.overlap!,
     leaves_on: true,
-    leaves_depth: depth(LAYER_DEPTH_CM.leaves.default),
+    leaves_depth: fields.leaves_depth!,
     straw_on: true,
-    straw_depth: depth(LAYER_DEPTH_CM.straw.default),
+    straw_depth: fields.straw_depth!,
     chips_on: false,
-    chips_depth: depth(LAYER_DEPTH_CM.wood_chips.default),
+    chips_depth: fields.chips_depth!,
     sheet_length: "",
     sheet_width: "",
     worms_on: true,
     worms_stocking: "",
     start_date: today,
+    exact,
   };
 }
 
-/** Re-express the form's numbers when the gardener flips metric/imperial. */
+/**
+ * Re-express the form's numbers when the gardener flips metric/imperial. Each number's exact
+ * SI value goes with it, so flipping back shows what was there before (12.5 cm, not 12.4).
+ */
 export function convertValues(v: PlanValues, from: UnitSystem, to: UnitSystem): PlanValues {
   if (from === to) return v;
-  const len = (s: string) => (Number.isNaN(num(s)) ? s : to === "imperial" ? fix(mToFt(num(s)), 2) : fix(ftToM(num(s)), 2));
-  const depth = (s: string) => (Number.isNaN(num(s)) ? s : to === "imperial" ? fix(cmToIn(num(s)), 1) : fix(inToCm(num(s)), 1));
-  const stocking = (s: string) => (Number.isNaN(num(s)) ? s : to === "imperial" ? fix(kgM2ToOzFt2(num(s)), 2) : fix(ozFt2ToKgM2(num(s)), 2));
-  const convert = { len, depth, sheet: depth, stocking };
   const out: PlanValues = { ...v, system: to };
-  const saved: PlanValues["saved"] = {};
+  const exact: NonNullable<PlanValues["exact"]> = {};
   for (const field of NUMERIC_FIELDS) {
-    const kept = v.saved?.[field];
-    if (kept && kept.shown === v[field]) {
-      // Still the saved value: show it afresh from SI rather than converting a rounded figure.
-      out[field] = show(NUMERIC[field], kept.si, to);
-      saved[field] = { shown: out[field], si: kept.si };
-    } else {
-      out[field] = convert[NUMERIC[field]](v[field]);
-    }
+    const typed = num(v[field]);
+    const si = keptSi(v, field) ?? (Number.isNaN(typed) ? undefined : toSi(NUMERIC[field], typed, from));
+    if (si === undefined) continue; // blank or not a number: left as typed
+    out[field] = show(NUMERIC[field], si, to);
+    exact[field] = { shown: out[field], si };
   }
-  if (v.saved) out.saved = saved;
+  out.exact = exact;
   return out;
 }
 
-/** The request POST /api/estimate takes, in SI, built from the form. */
+/** The request keys of each number field, in SI and in imperial units. */
+const KEYS: Record<NumericField, { si: string; imperial: string }> = {
+  length: { si: "length_m", imperial: "length_ft" },
+  width: { si: "width_m", imperial: "width_ft" },
+  overlap: { si: "overlap_cm", imperial: "overlap_in" },
+  sheet_length: { si: "sheet_length_m", imperial: "sheet_length_in" },
+  sheet_width: { si: "sheet_width_m", imperial: "sheet_width_in" },
+  leaves_depth: { si: "depth_cm", imperial: "depth_in" },
+  straw_depth: { si: "depth_cm", imperial: "depth_in" },
+  chips_depth: { si: "depth_cm", imperial: "depth_in" },
+  worms_stocking: { si: "kg_per_m2", imperial: "oz_per_ft2" },
+};
+
+/**
+ * A number field as the request carries it: its exact SI value while left as shown; else
+ * what was typed, in the unit it was typed in (so a message about it comes back in that
+ * unit). Blank optional fields are left out.
+ */
+function entry(v: PlanValues, field: NumericField, optional = false): Record<string, number> {
+  if (optional && v[field].trim() === "") return {};
+  const kept = keptSi(v, field);
+  if (kept !== undefined) return { [KEYS[field].si]: kept };
+  const typed = num(v[field]);
+  if (v.system === "imperial") return { [KEYS[field].imperial]: typed };
+  // The metric form shows sheet sides in cm; the request takes metres.
+  return { [KEYS[field].si]: NUMERIC[field] === "sheet" ? typed / 100 : typed };
+}
+
+/** The request POST /api/estimate takes, built from the form. */
 export function toRequest(v: PlanValues): EstimateRequest {
-  const si = (field: NumericField) => siOf(v, field);
-  // A blank optional setting is left out, so the layer takes its usual value.
-  const optional = (field: NumericField) => (v[field].trim() === "" ? undefined : si(field));
   const ring = v.outline.map((p) => [p.lng, p.lat] as [number, number]);
   const bed =
     v.shape === "outline"
       ? { polygon: { type: "Polygon" as const, coordinates: [ring.length ? [...ring, ring[0]] : []] } }
-      : { length_m: si("length"), width_m: si("width") };
-  const sheetLength = optional("sheet_length");
-  const sheetWidth = optional("sheet_width");
-  const stocking = optional("worms_stocking");
+      : { ...entry(v, "length"), ...entry(v, "width") };
+  const stocking = entry(v, "worms_stocking", true);
   return {
     bed: bed as EstimateRequest["bed"],
     layers: {
-      cardboard: v.cardboard_on
-        ? {
-            overlap_cm: si("overlap"),
-            ...(sheetLength === undefined ? {} : { sheet_length_m: sheetLength }),
-            ...(sheetWidth === undefined ? {} : { sheet_width_m: sheetWidth }),
-          }
-        : false,
-      leaves: v.leaves_on ? { depth_cm: si("leaves_depth") } : false,
-      straw: v.straw_on ? { depth_cm: si("straw_depth") } : false,
-      wood_chips: v.chips_on ? { depth_cm: si("chips_depth") } : false,
-      worms: v.worms_on ? (stocking === undefined ? true : { kg_per_m2: stocking }) : false,
+      cardboard: v.cardboard_on ? { ...entry(v, "overlap"), ...entry(v, "sheet_length", true), ...entry(v, "sheet_width", true) } : false,
+      leaves: v.leaves_on ? entry(v, "leaves_depth") : false,
+      straw: v.straw_on ? entry(v, "straw_depth") : false,
+      wood_chips: v.chips_on ? entry(v, "chips_depth") : false,
+      worms: v.worms_on ? (Object.keys(stocking).length === 0 ? true : stocking) : false,
     },
     ...(v.start_date ? { start_date: v.start_date } : {}),
     ...(v.shape === "rectangle" && v.location ? { latitude: v.location.lat } : {}),
-  };
+    units: v.system,
+  } as EstimateRequest;
 }
 
 // Where each schema path shows its message in the form.
 const FIELD_FOR: [RegExp, keyof PlanValues][] = [
-  [/^bed\.length_m/, "length"],
-  [/^bed\.width_m/, "width"],
+  [/^bed\.length_/, "length"],
+  [/^bed\.width_/, "width"],
   [/^bed\.polygon/, "outline"],
   [/^bed$/, "length"],
-  [/^layers\.cardboard\.sheet_length_m/, "sheet_length"],
-  [/^layers\.cardboard\.sheet_width_m/, "sheet_width"],
+  [/^layers\.cardboard\.sheet_length_/, "sheet_length"],
+  [/^layers\.cardboard\.sheet_width_/, "sheet_width"],
   [/^layers\.cardboard/, "overlap"],
   [/^layers\.leaves/, "leaves_depth"],
   [/^layers\.straw/, "straw_depth"],
@@ -217,9 +257,9 @@ export function valuesFromBed(
   const base = defaultPlanValues("metric", today);
   const layer = (key: string) => bed.layers[key];
   const on = (key: string, byDefault = true) => (layer(key) === undefined ? byDefault : layer(key) !== false);
-  const saved: NonNullable<PlanValues["saved"]> = {};
+  const exact: NonNullable<PlanValues["exact"]> = { ...base.exact };
   const keep = (field: NumericField, si: unknown) => {
-    if (typeof si === "number" && Number.isFinite(si)) saved[field] = { shown: show(NUMERIC[field], si, "metric"), si };
+    if (typeof si === "number" && Number.isFinite(si)) exact[field] = { shown: show(NUMERIC[field], si, "metric"), si };
   };
   const setting = (key: string, name: string) => {
     const v = layer(key);
@@ -236,7 +276,7 @@ export function valuesFromBed(
   keep("straw_depth", setting("straw", "depth_cm"));
   keep("chips_depth", setting("wood_chips", "depth_cm"));
   keep("worms_stocking", setting("worms", "kg_per_m2"));
-  const shown = (field: NumericField) => saved[field]?.shown ?? base[field];
+  const shown = (field: NumericField) => exact[field]?.shown ?? base[field];
   const metric: PlanValues = {
     ...base,
     shape: "polygon" in bed.shape ? "outline" : "rectangle",
@@ -257,7 +297,7 @@ export function valuesFromBed(
     worms_on: on("worms"),
     worms_stocking: shown("worms_stocking"),
     start_date: bed.start_date ?? "",
-    saved,
+    exact,
   };
   return convertValues(metric, "metric", system);
 }

@@ -14,6 +14,8 @@ export interface Dimension {
   fromSi: (x: number) => number;
   /** A limit in the imperial unit, rounded the way a person says it. */
   nice: (x: number) => number;
+  /** The SI limit as forms also show it, when they use another metric unit ("35 cm"). */
+  siAlso?: (x: number) => string;
 }
 
 const oneDecimalUnderTen = (x: number) => (Math.abs(x) < 10 ? Math.round(x * 10) / 10 : Math.round(x));
@@ -28,6 +30,8 @@ export const SHEET_SIDE: Dimension = {
   toSi: (inches) => inToCm(inches) / 100,
   fromSi: (m) => cmToIn(m * 100),
   nice: oneDecimalUnderTen,
+  // The planner asks for sheet sides in cm.
+  siAlso: (m) => `${Number((m * 100).toPrecision(6))} cm`,
 };
 // 16 oz to the pound (exact); pound and foot from NIST (lib/calc/facts.ts).
 const kgM2ToOzFt2 = (x: number) => (kgToLb(x) * 16) / m2ToFt2(1);
@@ -50,11 +54,12 @@ export interface Limits {
 const n = (x: number) => x.toLocaleString("en-US", { maximumFractionDigits: 2 });
 
 /** One field's schema in one unit, with messages in that unit. */
-function field(what: string, symbol: string, limits: Limits) {
+function field(what: string, symbol: string, limits: Limits, also?: (x: number) => string) {
+  const say = (x: number) => `${n(x)} ${symbol}${also ? ` (${also(x)})` : ""}`;
   let s = z.number({ error: `${what} must be a number of ${symbol}` });
-  if (limits.above !== undefined) s = s.gt(limits.above, `${what} must be more than ${n(limits.above)} ${symbol}`);
-  if (limits.min !== undefined) s = s.min(limits.min, `${what} must be at least ${n(limits.min)} ${symbol}`);
-  return s.max(limits.max, `${what} must be at most ${n(limits.max)} ${symbol}`);
+  if (limits.above !== undefined) s = s.gt(limits.above, `${what} must be more than ${say(limits.above)}`);
+  if (limits.min !== undefined) s = s.min(limits.min, `${what} must be at least ${say(limits.min)}`);
+  return s.max(limits.max, `${what} must be at most ${say(limits.max)}`);
 }
 
 /** The limits of a metric range, in the imperial unit as a person would say them. */
@@ -72,7 +77,7 @@ export interface MeasureKeys {
 /** The pair of optional keys for a measurement, each checked in its own unit. */
 export function measureKeys(keys: MeasureKeys, what: string, d: Dimension, limits: Limits) {
   return {
-    [keys.si]: field(what, d.si.symbol, limits).optional(),
+    [keys.si]: field(what, d.si.symbol, limits, d.siAlso).optional(),
     [keys.imperial]: field(what, d.imperial.symbol, imperialLimits(d, limits)).optional(),
   } as Record<string, z.ZodOptional<z.ZodNumber>>;
 }

@@ -105,3 +105,34 @@ describe("editing a saved bed", () => {
     expect(saveBody({ ...v, chips_on: true }).layers?.wood_chips).toEqual({ depth_cm: 7.5 });
   });
 });
+
+describe("switching units", () => {
+  it("returns the same defaults after metric → imperial → metric, and imperial → metric → imperial", () => {
+    for (const system of ["metric", "imperial"] as const) {
+      const other = system === "metric" ? "imperial" : "metric";
+      const start = defaultPlanValues(system, "2027-03-01");
+      const back = convertValues(convertValues(start, system, other), other, system);
+      for (const field of ["length", "width", "overlap", "leaves_depth", "straw_depth", "chips_depth"] as const) expect(back[field]).toBe(start[field]);
+      expect(toRequest(back)).toEqual(toRequest(start));
+    }
+    // 12.5 cm shown as 4.9 in comes back as 12.5 cm, not 12.4 (4.9 × 2.54 = 12.446).
+    const metric = defaultPlanValues("metric", "2027-03-01");
+    expect(convertValues(metric, "metric", "imperial").leaves_depth).toBe("4.9");
+    expect(convertValues(convertValues(metric, "metric", "imperial"), "imperial", "metric").leaves_depth).toBe("12.5");
+  });
+
+  it("keeps what the gardener typed through a round trip too", () => {
+    const typed = { ...defaultPlanValues("metric", "2027-03-01"), leaves_depth: "17.3" };
+    expect(convertValues(convertValues(typed, "metric", "imperial"), "imperial", "metric").leaves_depth).toBe("17.3");
+  });
+
+  it("sends a number typed in imperial units in those units, so its message comes back in them", () => {
+    const v = { ...defaultPlanValues("imperial", "2027-03-01"), leaves_depth: "13", length: "12" };
+    const request = toRequest(v);
+    expect(request.layers?.leaves).toEqual({ depth_in: 13 });
+    expect(request.bed).toMatchObject({ length_ft: 12 });
+    expect(request.units).toBe("imperial");
+    const r = estimateSchema.safeParse(request);
+    expect(r.success ? [] : r.error.issues.map((i) => i.message)).toEqual(["depth must be at most 12 in"]);
+  });
+});
