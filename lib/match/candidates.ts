@@ -151,18 +151,47 @@ export function databaseSource(q: Db = db(), now: Date = new Date()): CandidateS
   };
 }
 
-export interface ListingSummary {
+/** A listing with what it holds and costs, as a plan prices it (public fields only). */
+export interface PricedListing {
+  id: string;
   title: string;
   supplier: string;
+  material: MaterialCode;
+  unit: ListingUnit;
+  unit_size: number | null;
+  unit_mass_kg: number | null;
+  price_cents: number;
   deposit_cents: number;
+  currency: string;
 }
 
-/** What a plan shows beside each pickup, for the listings it chose (public fields only). */
-export async function listingSummaries(ids: readonly string[], q: Db = db()): Promise<Record<string, ListingSummary>> {
+/**
+ * The listings a plan chose, or a gardener named, with their prices: those anyone may see
+ * (not drafts, not hidden by a moderator). Missing ids are simply absent.
+ */
+export async function pricedListings(ids: readonly string[], q: Db = db()): Promise<Record<string, PricedListing>> {
   if (!ids.length) return {};
-  const rows: { id: string; title: string; deposit_cents: number; supplier: string }[] = await q("listings as l")
+  const rows = await q("listings as l")
     .join("users as u", "u.id", "l.owner_id")
-    .select("l.id", "l.title", "l.deposit_cents", "u.display_name as supplier")
-    .whereIn("l.id", [...ids]);
-  return Object.fromEntries(rows.map((r) => [r.id, { title: r.title, supplier: r.supplier, deposit_cents: Number(r.deposit_cents) }]));
+    .select("l.id", "l.title", "u.display_name as supplier", "l.material_code", "l.unit", "l.unit_size", "l.unit_mass_kg", "l.price_cents", "l.deposit_cents", "l.currency")
+    .whereIn("l.id", [...ids])
+    .whereNotIn("l.status", ["draft", "hidden"]);
+  const num = (x: unknown) => (x === null || x === undefined ? null : Number(x));
+  return Object.fromEntries(
+    rows.map((r: Record<string, unknown>) => [
+      r.id,
+      {
+        id: String(r.id),
+        title: String(r.title),
+        supplier: String(r.supplier),
+        material: r.material_code as MaterialCode,
+        unit: r.unit as ListingUnit,
+        unit_size: num(r.unit_size),
+        unit_mass_kg: num(r.unit_mass_kg),
+        price_cents: Number(r.price_cents),
+        deposit_cents: Number(r.deposit_cents),
+        currency: String(r.currency),
+      },
+    ]),
+  );
 }

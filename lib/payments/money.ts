@@ -6,6 +6,11 @@ export { formatMoney } from "@/lib/listings/format";
 // clear 422 rather than a checkout that cannot start.
 export const MIN_CARD_CHARGE_CENTS: Record<string, number> = { eur: 50, usd: 50, gbp: 30 };
 
+/** The refundable no-show deposit a reservation holds: free listings only, since a price is commitment enough. */
+export function depositFor(unitPriceCents: number, depositCents: number): number {
+  return unitPriceCents > 0 ? 0 : depositCents;
+}
+
 /** The price of a reservation: a per-unit price times a quantity that may be fractional (m³, kg). */
 export function priceFor(unitPriceCents: number, quantity: number): number {
   return Math.round(unitPriceCents * quantity);

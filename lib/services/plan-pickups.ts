@@ -1,7 +1,8 @@
 import "server-only";
 import { ApiError, notFound } from "@/lib/api/errors";
 import type { SessionUser } from "@/lib/auth/current-user";
-import { databaseSource, listingSummaries } from "@/lib/match/candidates";
+import { databaseSource, pricedListings } from "@/lib/match/candidates";
+import { bedCosts, type PricedPickup } from "@/lib/match/costs";
 import { searchPlan } from "@/lib/match/search";
 import type { LatLng, Need } from "@/lib/match/types";
 import { bedEstimate, toBedView } from "@/lib/services/bed-view";
@@ -44,10 +45,19 @@ export async function planPickups(input: MatchInput, user: SessionUser | null) {
     costs: { cost_per_km_cents: input.cost_per_km_cents, cost_per_stop_cents: input.cost_per_stop_cents },
     vehicle: input.vehicle,
   });
-  const details = await listingSummaries(plan.allocations.map((a) => a.listing_id));
+  const listings = await pricedListings(plan.allocations.map((a) => a.listing_id));
+  const pickups: PricedPickup[] = plan.allocations.flatMap((a) => {
+    const l = listings[a.listing_id];
+    return l ? [{ ...l, listing_id: l.id, listing_quantity: a.listing_quantity }] : [];
+  });
   return {
     ...plan,
-    allocations: plan.allocations.map((a) => ({ ...a, ...details[a.listing_id] })),
+    allocations: plan.allocations.map((a) => {
+      const l = listings[a.listing_id] as (typeof listings)[string] | undefined;
+      return { ...a, title: l?.title, supplier: l?.supplier, deposit_cents: l?.deposit_cents ?? 0 };
+    }),
+    /** What the plan costs: free pickups, deposits held until pickup, and what is paid. */
+    costs: bedCosts(pickups, needs, plan.unmet),
     origin,
     radius_km: input.radius_km,
     bed,

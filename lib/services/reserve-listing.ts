@@ -9,7 +9,7 @@ import type { ReservationRow } from "@/db/types";
 import { ApiError, type FieldErrors } from "@/lib/api/errors";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { openCheckouts } from "@/lib/payments/checkout";
-import { MIN_CARD_CHARGE_CENTS, formatMoney, priceFor } from "@/lib/payments/money";
+import { MIN_CARD_CHARGE_CENTS, depositFor, formatMoney, priceFor } from "@/lib/payments/money";
 import { WHOLE_UNITS, quantityLabel } from "@/lib/reservations/labels";
 import { holdMinutes } from "@/lib/reservations/policy";
 import { datesState } from "@/lib/listings/status";
@@ -115,8 +115,7 @@ async function check(input: ReserveInput, q: Knex, now: Date): Promise<Checked[]
       fields[`${f}quantity`] = `At most ${quantityLabel(listing.max_per_reservation, listing.unit)} per reservation on this listing.`;
     }
     const amount = priceFor(listing.price_cents, item.quantity);
-    // Deposits are for free listings; a price is commitment enough.
-    const deposit = listing.price_cents > 0 ? 0 : listing.deposit_cents;
+    const deposit = depositFor(listing.price_cents, listing.deposit_cents);
     const charge = amount || deposit;
     const min = MIN_CARD_CHARGE_CENTS[listing.currency];
     if (charge > 0 && min && charge < min && !fields[`${f}quantity`]) {

@@ -5,9 +5,13 @@ import { z } from "zod";
 import { polygonArea, polygonProblem, polygonSpan } from "@/lib/calc/area";
 import { MAX_OVERLAP_SHARE } from "@/lib/calc/cardboard";
 import { formatQuantity } from "@/lib/format/quantity";
+import { originSchema, radiusSchema } from "./match";
 import { DEPTH, LENGTH, measureKeys, notBoth, SHEET_SIDE, siValue, STOCKING, unitOf } from "./measure";
 import { CARDBOARD_OVERLAP_CM, DEFAULT_CARDBOARD_SHEET, LAYER_DEPTH_CM, MOISTURE_PCT } from "@/lib/calc/facts";
 import { isCalendarDate } from "@/lib/calc/timeline";
+
+/** Pickups one estimate may price (a product limit, as for reserving a plan at once). */
+const MAX_PLAN_ITEMS = 20;
 
 /** A product limit, not a fact: a hectare is already a market garden, not a bed. */
 export const MAX_BED_AREA_M2 = 10_000;
@@ -233,7 +237,37 @@ export const estimateSchema = strictObject({
   target_moisture_pct: inRange("target moisture", "%", MOISTURE_PCT).optional(),
   /** The units the advice and timeline are written in; figures are always SI. */
   units: z.enum(["metric", "imperial"], { error: "units must be metric or imperial" }).optional(),
-}, "part of an estimate request");
+  /** Price the bed with these pickups (a plan from POST /api/match, or listings chosen by hand). */
+  plan: strictObject(
+    {
+      items: z
+        .array(
+          strictObject(
+            {
+              listing_id: z.string({ error: "listing_id must be a string" }).trim().min(1, "listing_id must not be empty").max(64, "listing_id is too long"),
+              quantity: z.number({ error: "quantity must be a number" }).positive("quantity must be more than 0").max(100_000, "quantity must be at most 100,000"),
+            },
+            "part of a pickup",
+          ),
+          { error: "items must be a list" },
+        )
+        .min(1, "Give at least one pickup")
+        .max(MAX_PLAN_ITEMS, `Give at most ${MAX_PLAN_ITEMS} pickups`),
+    },
+    "part of a plan",
+  ).optional(),
+  /** Or let Duffbank match the bed's needs to nearby listings and price that plan. */
+  match: strictObject(
+    {
+      origin: originSchema.optional(),
+      radius_km: radiusSchema,
+    },
+    "part of a match",
+  ).optional(),
+}, "part of an estimate request").superRefine((e, ctx) => {
+  if (e.plan && e.match) ctx.addIssue({ code: "custom", path: ["match"], message: "Give a plan or a match, not both" });
+  if (e.match && !e.match.origin && !("polygon" in e.bed)) ctx.addIssue({ code: "custom", path: ["match", "origin"], message: "Give the origin as {lat, lng}: a rectangle has no place of its own" });
+});
 
 export type EstimateInput = z.infer<typeof estimateSchema>;
 export type EstimateRequest = z.input<typeof estimateSchema>;

@@ -39,6 +39,13 @@ export const originSchema = z.object(
   { error: "origin must be an object with lat and lng" },
 );
 
+/** How far to look, km; the default when left out. */
+export const radiusSchema = z
+  .number({ error: "radius_km must be a number" })
+  .positive("radius_km must be more than 0 km")
+  .max(MAX_RADIUS_KM, `radius_km must be at most ${MAX_RADIUS_KM} km`)
+  .default(DEFAULT_RADIUS_KM);
+
 export const matchSchema = z
   .object({
     needs: z
@@ -48,11 +55,7 @@ export const matchSchema = z
       .optional(),
     bed_id: z.string({ error: "bed_id must be a string" }).trim().min(1, "bed_id must not be empty").max(64, "bed_id is too long").optional(),
     origin: originSchema.optional(),
-    radius_km: z
-      .number({ error: "radius_km must be a number" })
-      .positive("radius_km must be more than 0 km")
-      .max(MAX_RADIUS_KM, `radius_km must be at most ${MAX_RADIUS_KM} km`)
-      .default(DEFAULT_RADIUS_KM),
+    radius_km: radiusSchema,
     vehicle: z
       .object(
         {

@@ -2,10 +2,11 @@ import { NextResponse } from "next/server";
 import { handle, readJson } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { estimateSchema } from "@/lib/validation/estimate";
-import { estimate } from "@/lib/calc/estimate";
+import { estimateBed } from "@/lib/services/estimate-bed";
 
-// POST /api/estimate — what a bed needs: layer quantities, water, blend, timeline, cautions.
+// POST /api/estimate — what a bed needs: layer quantities, water, blend, timeline, cautions,
+// and with a plan (or a match) what it will cost.
 export const POST = handle(async ({ req }) => {
   const input = parseInput(estimateSchema, await readJson(req));
-  return NextResponse.json(estimate(input));
+  return NextResponse.json(await estimateBed(input));
 });

@@ -1,0 +1,61 @@
+import "server-only";
+import { ApiError } from "@/lib/api/errors";
+import { estimate, type EstimateResult } from "@/lib/calc/estimate";
+import { pricedListings } from "@/lib/match/candidates";
+import { bedCosts, type BedCosts, type PricedPickup } from "@/lib/match/costs";
+import type { LatLng, Need } from "@/lib/match/types";
+import type { EstimateInput } from "@/lib/validation/estimate";
+import { planPickups } from "./plan-pickups";
+
+export interface PricedEstimate extends EstimateResult {
+  /** What the bed will cost with the plan given or found: free, deposits held, paid. */
+  costs?: BedCosts;
+  /** The plan found, in brief, when the estimate was asked to match. */
+  match?: { origin: LatLng; radius_km: number; stops: number; total_distance_km: number; driving_distance_km: number; trips: number };
+}
+
+/** The needs an estimate's layers make, as matching takes them. */
+export function needsOf(result: EstimateResult): Need[] {
+  return result.needs.map((n) => ({ material: n.material, quantity: n.quantity, unit: n.unit })).filter((n) => n.quantity > 0);
+}
+
+/**
+ * POST /api/estimate: the bed's estimate and, when asked, its costs — with the pickups of a
+ * plan the gardener already has (their listings' own prices, read here, never the client's),
+ * or with a plan matched here from the bed's needs.
+ */
+export async function estimateBed(input: EstimateInput, now: Date = new Date()): Promise<PricedEstimate> {
+  const result = estimate(input, now);
+  const needs = needsOf(result);
+  if (input.plan) {
+    const listings = await pricedListings(input.plan.items.map((i) => i.listing_id));
+    const fields: Record<string, string> = {};
+    const pickups: PricedPickup[] = input.plan.items.flatMap((item, i) => {
+      const l = listings[item.listing_id];
+      if (!l) {
+        fields[`plan.items.${i}.listing_id`] = "That listing is not on offer.";
+        return [];
+      }
+      return [{ ...l, listing_id: l.id, listing_quantity: item.quantity }];
+    });
+    if (Object.keys(fields).length) throw new ApiError("invalid_input", "Some pickups could not be priced.", fields);
+    return { ...result, costs: bedCosts(pickups, needs) };
+  }
+  if (input.match) {
+    const origin = input.match.origin ?? result.centroid!;
+    const plan = await planPickups({ needs, origin, radius_km: input.match.radius_km }, null);
+    return {
+      ...result,
+      costs: plan.costs,
+      match: {
+        origin,
+        radius_km: input.match.radius_km,
+        stops: plan.stops.length,
+        total_distance_km: plan.total_distance_km,
+        driving_distance_km: plan.driving_distance_km,
+        trips: plan.trips.length,
+      },
+    };
+  }
+  return result;
+}
