@@ -2,6 +2,7 @@ import { z } from "zod";
 import { changePasswordSchema, profileSchema, signUpSchema } from "@/lib/validation/auth";
 import { roleDecisionSchema } from "@/lib/validation/moderation";
 import { estimateSchema } from "@/lib/validation/estimate";
+import { estimateResponseSchema } from "@/lib/validation/estimate-response";
 import { blendSchema } from "@/lib/validation/blend";
 import { createBedSchema, updateBedSchema } from "@/lib/validation/beds";
 import {
@@ -80,7 +81,7 @@ export const API_ROUTES: RouteDoc[] = [
   { method: "post", path: "/api/media/sign", summary: "Sign one browser upload of a listing photo", tag: "listings", auth: ["supplier", "grower", "council"], errors: [401, 403] },
   { method: "post", path: "/api/match", summary: "Plan pickups: nearby listings that cover needs or a saved bed, in visiting order and carloads", tag: "matching", auth: "public", body: matchSchema, errors: [400, 401, 404, 422] },
   { method: "post", path: "/api/moderation/role-requests/{userId}", summary: "Approve or refuse a requested role", tag: "moderation", auth: ["moderator"], body: roleDecisionSchema, errors: [400, 401, 403, 404, 409, 422] },
-  { method: "post", path: "/api/estimate", summary: "Quantities, water, C:N, timeline and cautions for a bed", tag: "planning", auth: "public", body: estimateSchema, errors: [400, 422] },
+  { method: "post", path: "/api/estimate", summary: "Quantities, the first soak as a range, C:N advice a bed can follow, timeline with planting dates, settling and top-ups, cautions; with a plan or a match, what the bed will cost", tag: "planning", auth: "public", body: estimateSchema, response: estimateResponseSchema, errors: [400, 422] },
   { method: "post", path: "/api/blend", summary: "C:N and moisture of a mix, and water to a target", tag: "planning", auth: "public", body: blendSchema, errors: [400, 422] },
   { method: "get", path: "/api/beds", summary: "My beds", tag: "beds", auth: ["gardener"], errors: [401, 403] },
   { method: "post", path: "/api/beds", summary: "Save a bed", tag: "beds", auth: ["gardener"], body: createBedSchema, status: 201, errors: [400, 401, 403, 422] },

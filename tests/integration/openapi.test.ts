@@ -11,6 +11,8 @@ function routeFiles(dir: string): string[] {
   });
 }
 
+const documentNow = () => openApiDocument() as any;
+
 describe("GET /api/openapi.json", () => {
   const doc = openApiDocument() as any;
 
@@ -43,6 +45,33 @@ describe("GET /api/openapi.json", () => {
     const schema = doc.paths["/api/users"].post.requestBody.content["application/json"].schema;
     expect(schema.required).toEqual(expect.arrayContaining(["email", "display_name", "password"]));
     expect(schema.properties.password.minLength).toBe(10);
+  });
+});
+
+describe("POST /api/estimate in the document", () => {
+  const op = documentNow().paths["/api/estimate"].post;
+  it("describes the new answer fields beside the old ones", () => {
+    const props = op.responses["200"].content["application/json"].schema.properties;
+    for (const key of ["area_m2", "needs", "water_l", "water_us_gal", "blend", "timeline", "cautions", "water_range_l", "water_depth_mm", "planting", "settling", "top_ups", "costs"]) {
+      expect(props[key], key).toBeTruthy();
+    }
+    expect(props.water_range_l.prefixItems).toHaveLength(2);
+    expect(props.planting.properties).toHaveProperty("plant_into_from");
+    expect(props.costs.properties.totals.items.properties).toHaveProperty("deposits_cents");
+  });
+  it("takes measurements in either unit system, and a plan or a match to price", () => {
+    const body = op.requestBody.content["application/json"].schema;
+    expect(body.properties).toHaveProperty("plan");
+    expect(body.properties).toHaveProperty("match");
+    expect(body.properties).toHaveProperty("units");
+    expect(JSON.stringify(body)).toContain("depth_in");
+  });
+  it("matches a real answer", async () => {
+    const { estimateResponseSchema } = await import("@/lib/validation/estimate-response");
+    const { estimate } = await import("@/lib/calc/estimate");
+    const answer = JSON.parse(JSON.stringify(estimate({ bed: { length_m: 3, width_m: 1.2 }, start_date: "2027-03-01" })));
+    const parsed = estimateResponseSchema.strict().safeParse(answer);
+    expect(parsed.success ? [] : parsed.error.issues).toEqual([]);
   });
 });
 
