@@ -11,14 +11,16 @@ import type { PickupPlan as Plan } from "./use-match";
 
 function Totals({ plan, system }: { plan: Plan; system: UnitSystem }) {
   const t = plan.totals;
+  const held = plan.costs.totals.reduce((sum, c) => sum + (c.currency === t.currency ? c.deposits_cents : 0), 0);
   const items = [
     ["Stops", String(t.stops)],
     ["Driving", formatQuantity(plan.driving_distance_km, "km", system)],
     ["Trips", `${t.trips} ${t.trips === 1 ? "carload" : "carloads"}`],
     ["To pay suppliers", formatCents(t.price_cents, t.currency)],
+    ["Deposits held", held > 0 ? `${formatCents(held, t.currency)}, back at pickup` : "none"],
   ];
   return (
-    <dl className="grid grid-cols-2 gap-3 sm:grid-cols-4">
+    <dl className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-5">
       {items.map(([k, v]) => (
         <div key={k} className="rounded-lg bg-white p-3 ring-1 ring-humus-200">
           <dt className="text-sm text-humus-600">{k}</dt>
@@ -45,6 +47,7 @@ export function PickupPlan({
   onSubstitute: (need: Need, material: MaterialCode) => void;
 }) {
   const byId = new Map(plan.allocations.map((a) => [a.listing_id, a]));
+  const costOf = new Map(plan.costs.lines.map((l) => [l.listing_id, l]));
   const orderOf = new Map(plan.stops.map((s) => [s.listing_id, s.order]));
   const lifting = plan.cautions.filter((c) => c.kind !== "material");
   const general = plan.cautions.filter((c) => c.kind === "material");
@@ -83,9 +86,10 @@ export function PickupPlan({
                       {a.listing_unit === a.unit ? "" : ` (${formatQuantity(a.quantity, a.unit, system)} of ${materialNoun(a.material)})`}
                       {a.listing_unit === a.unit ? ` of ${materialNoun(a.material)}` : ""}
                     </p>
-                    <p className="text-sm text-humus-600">
+                    <p className="text-sm text-humus-600" data-stop-cost={costOf.get(s.listing_id)?.kind}>
                       {formatCents(a.cost_cents, a.currency)}
-                      {a.deposit_cents ? ` · ${formatCents(a.deposit_cents, a.currency)} refundable deposit` : ""} · about {formatQuantity(a.load_kg, "kg", system)}, {formatQuantity(a.load_l, "l", system)}
+                      {costOf.get(s.listing_id)?.deposit_cents ? ` · ${formatCents(costOf.get(s.listing_id)!.deposit_cents, a.currency)} deposit held, back at pickup` : ""} · about{" "}
+                      {formatQuantity(a.load_kg, "kg", system)}, {formatQuantity(a.load_l, "l", system)}
                     </p>
                   </div>
                 </li>
