@@ -1,10 +1,14 @@
 import { type UnitSystem } from "@/lib/calc/units";
 import { formatQuantity } from "@/lib/format/quantity";
-import { crossSectionLayout, LAYER_COLOURS, LAYER_TEXT, type LayerDepths } from "./cross-section-layout";
+import { CARDBOARD_DRAW_CM, crossSectionLayout, LAYER_COLOURS, LAYER_TEXT, type LayerDepths } from "./cross-section-layout";
 
-/** The bed's layers drawn to scale vertically, with a scale bar. */
-export function CrossSection({ depths, system }: { depths: LayerDepths; system: UnitSystem }) {
+const WHEN: Record<number, string> = { 3: "3 months", 6: "6 months", 12: "a year" };
+
+/** The bed's layers drawn to scale vertically, with a scale bar and where the top will have sunk to. */
+export function CrossSection({ depths, system, settling }: { depths: LayerDepths; system: UnitSystem; settling?: { built_depth_cm: number; after: { months: number; depth_cm: number }[] } }) {
   const { layers, pxPerCm, height, soilTop, bands } = crossSectionLayout(depths);
+  const base = soilTop - (depths.cardboard ? CARDBOARD_DRAW_CM * pxPerCm : 0);
+  const sunk = settling && settling.built_depth_cm > 0 ? settling.after : [];
   const title = `Cross-section: ${layers.map((l) => `${l.label} ${formatQuantity(l.cm, "cm", system)}`).join(", ")} on the old soil`;
   return (
     <figure className="rounded-lg bg-white p-4 ring-1 ring-humus-200">
@@ -25,6 +29,14 @@ export function CrossSection({ depths, system }: { depths: LayerDepths; system: 
             ) : null}
           </g>
         ))}
+        {sunk.map((s) => (
+          <g key={s.months} aria-hidden="true" data-settled={s.months}>
+            <line x1="40" x2="290" y1={base - s.depth_cm * pxPerCm} y2={base - s.depth_cm * pxPerCm} stroke="#271c13" strokeWidth="1" strokeDasharray="4 3" />
+            <text x="37" y={base - s.depth_cm * pxPerCm + 3} fontSize="9" textAnchor="end" fill="#271c13">
+              {s.months === 12 ? "1 yr" : `${s.months} mo`}
+            </text>
+          </g>
+        ))}
         <g aria-hidden="true">
           <line x1="16" x2="16" y1={soilTop} y2={soilTop - 10 * pxPerCm} stroke="#271c13" strokeWidth="2" />
           <text x="4" y={soilTop - 10 * pxPerCm - 4} fontSize="10" fill="#271c13">
@@ -32,7 +44,12 @@ export function CrossSection({ depths, system }: { depths: LayerDepths; system: 
           </text>
         </g>
       </svg>
-      <figcaption className="mt-1 text-sm text-humus-600">Depths to scale (cardboard thickness is nominal). Layers settle by about a third in the first months.</figcaption>
+      <figcaption className="mt-1 text-sm text-humus-600">
+        Depths to scale (cardboard thickness is nominal).
+        {sunk.length
+          ? ` Dashed: about where the top sinks to as it settles (common practice) — ${sunk.map((s) => `${formatQuantity(s.depth_cm, "cm", system)} after ${WHEN[s.months] ?? `${s.months} months`}`).join(", ")}, from ${formatQuantity(settling!.built_depth_cm, "cm", system)} as built.`
+          : ""}
+      </figcaption>
     </figure>
   );
 }

@@ -14,7 +14,8 @@ import { buttonClass } from "@/components/ui/button-class";
 import { Notice } from "@/components/ui/notice";
 import { Spinner } from "@/components/ui/empty-state";
 import { convertValues, defaultPlanValues, planResolver, toRequest, type PlanValues } from "./form-model";
-import { EstimateView } from "./estimate-view";
+import { EstimateView, type ShownEstimate } from "./estimate-view";
+import { DEFAULT_RADIUS_KM } from "@/lib/match/defaults";
 import { UnitToggle } from "./unit-toggle";
 import { SaveBed } from "./save-bed";
 import { Form } from "@/components/ui/form";
@@ -30,7 +31,7 @@ export interface PlanFormProps {
 /** Builds the link to the match page from the estimate's needs. */
 function matchHref(result: EstimateResult, where: { lat: number; lng: number } | null): string {
   const needs = result.needs.map((n) => `${n.material}:${n.quantity}:${n.unit}`).join(",");
-  const p = new URLSearchParams({ needs, radius_km: "15" });
+  const p = new URLSearchParams({ needs, radius_km: String(DEFAULT_RADIUS_KM) });
   if (where) {
     p.set("lat", String(where.lat));
     p.set("lng", String(where.lng));
@@ -48,10 +49,20 @@ export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFor
   });
 
   const estimate = useMutation({
-    mutationFn: (values: PlanValues) => apiFetch<EstimateResult>("/api/estimate", { method: "POST", body: toRequest(values) }),
+    mutationFn: (values: PlanValues) => {
+      // With a place for the bed, the estimate also prices it from the nearest listings.
+      const at = values.shape === "outline" ? values.outline[0] : values.location;
+      const body = { ...toRequest(values), ...(at ? { match: { origin: at, radius_km: DEFAULT_RADIUS_KM } } : {}) };
+      return apiFetch<ShownEstimate>("/api/estimate", { method: "POST", body });
+    },
   });
 
-  const switchUnits = (u: UnitSystem) => form.reset(convertValues(getValues(), getValues("system"), u), { keepErrors: false });
+  // The advice and the timeline are written in the units asked for, so a shown estimate is
+  // asked for again in the new ones.
+  const switchUnits = (u: UnitSystem) => {
+    form.reset(convertValues(getValues(), getValues("system"), u), { keepErrors: false });
+    if (estimate.data) void form.handleSubmit((v) => estimate.mutate(v))();
+  };
 
   const onMapClick = (p: { lat: number; lng: number }) => {
     if (getValues("shape") === "outline") setValue("outline", [...getValues("outline"), p], { shouldValidate: formState.isSubmitted });
@@ -189,7 +200,11 @@ export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFor
                 <Link href="/sign-in?callbackUrl=%2Fplan" className="text-moss-700 underline">Sign in</Link> to save this bed and get its reminders by e-mail.
               </p>
             ) : null}
-            <EstimateView result={result} system={system} />
+            <EstimateView
+              result={result}
+              system={system}
+              costsHint={result.costs ? undefined : "Click the map where the bed is to see what it will cost from the nearest listings: what is free, what a deposit holds, what is paid for."}
+            />
           </>
         ) : null}
       </section>

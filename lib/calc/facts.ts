@@ -376,7 +376,7 @@ export const BED_MONTHS = { settling: 3, half_year: 6, ready: 12 } as const;
  * (Oregon State Extension), and 6–9 months before planting is the typical advice. Planting
  * into pockets of compost works earlier; the bed is mostly soil only at BED_MONTHS.ready.
  */
-export const PLANT_INTO_MONTHS = { from: 6, until: 9, source: "Oregon State Extension (cardboard breaks down over several months); 6–9 months is the typical advice" } as const;
+export const PLANT_INTO_MONTHS = { from: 6, until: 9, source: "the usual advice while the cardboard breaks down, which takes several months (Oregon State Extension)" } as const;
 /**
  * How far a bed of loose leaves, straw and chips sinks: to about 60 % of the depth it was
  * built to after 3 months, half after 6, and 40 % after a year, as it settles, wets through

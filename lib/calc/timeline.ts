@@ -207,7 +207,7 @@ export function timeline(start: string, latitude: number | null, opts: TimelineO
   at(addMonths(t0, PLANT_INTO_MONTHS.from), {
     key: "plant_into",
     title: "You can plant into it",
-    detail: `From now to about month ${PLANT_INTO_MONTHS.until} (${PLANT_INTO_MONTHS.source}): push a trowel through to the soil, and set plants into pockets of compost where the layers are still coarse.`,
+    detail: `Any time from now to about month ${PLANT_INTO_MONTHS.until}, ${PLANT_INTO_MONTHS.source}: push a trowel through to the soil, and set plants into pockets of compost where the layers are still coarse.`,
   });
   at(ready, {
     key: "ready",

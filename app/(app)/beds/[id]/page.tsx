@@ -3,28 +3,34 @@ import { notFound } from "next/navigation";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
 import { findBed } from "@/db/beds";
-import { bedEstimate, toBedView } from "@/lib/services/bed-view";
+import { toBedView } from "@/lib/services/bed-view";
+import { savedBedEstimate } from "@/lib/services/estimate-bed";
 import { PageHeading } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button-class";
 import { BedEstimate } from "@/components/planner/bed-estimate";
+import { BedStageNotice } from "@/components/planner/bed-stage";
 import { DeleteBedButton } from "@/components/planner/delete-bed-button";
+import type { UnitSystem } from "@/lib/calc/units";
 import { formatQuantity } from "@/lib/format/quantity";
 
 export const metadata: Metadata = { title: "Bed" };
 
-export default async function BedPage({ params }: { params: Promise<{ id: string }> }) {
+export default async function BedPage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<{ units?: string }> }) {
   const { id } = await params;
+  const { units } = await searchParams;
   const user = await pageUser(`/beds/${id}`, ["gardener"]);
   const row = await findBed(id, user.id);
   if (!row) notFound();
   const bed = toBedView(row);
-  const result = bedEstimate(bed, new Date(), user.unit_system);
+  const system: UnitSystem = units === "metric" || units === "imperial" ? units : user.unit_system;
+  const result = await savedBedEstimate(bed, system);
+  const today = new Date().toISOString().slice(0, 10);
   const size = "length_m" in bed.shape
-    ? `${formatQuantity(bed.shape.length_m, "m", user.unit_system)} × ${formatQuantity(bed.shape.width_m, "m", user.unit_system)}`
+    ? `${formatQuantity(bed.shape.length_m, "m", system)} × ${formatQuantity(bed.shape.width_m, "m", system)}`
     : "drawn outline";
   return (
     <div>
-      <PageHeading title={bed.name} lead={`${size}, ${formatQuantity(bed.area_m2, "m2", user.unit_system)}${bed.start_date ? ` · build day ${bed.start_date}` : ""}`} />
+      <PageHeading title={bed.name} lead={`${size}, ${formatQuantity(bed.area_m2, "m2", system)}${bed.start_date ? ` · build day ${bed.start_date}` : ""}`} />
       <div className="mb-6 flex flex-wrap gap-3">
         <Link className={buttonClass()} href={`/beds/${bed.id}/materials`}>
           Find materials for this bed
@@ -37,6 +43,9 @@ export default async function BedPage({ params }: { params: Promise<{ id: string
         </Link>
         <DeleteBedButton id={bed.id} name={bed.name} />
       </div>
+      <div className="mb-6">
+        <BedStageNotice startDate={bed.start_date} planting={result.planting} today={today} />
+      </div>
       <p className="mb-6 text-sm text-humus-700">
         We e-mail you on each date of the timeline{" "}
         <Link href="/profile" className="text-moss-700 underline">
@@ -44,7 +53,7 @@ export default async function BedPage({ params }: { params: Promise<{ id: string
         </Link>
         .
       </p>
-      <BedEstimate result={result} system={user.unit_system} />
+      <BedEstimate result={result} system={system} />
     </div>
   );
 }
