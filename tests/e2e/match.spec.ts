@@ -25,6 +25,8 @@ test.describe("a gardener's saved bed", () => {
     await expect(map.locator(".duff-stop-number")).toHaveCount(await stops(page).count());
     await expect(map.locator("path[stroke-dasharray='6 6']")).toHaveCount(1);
     await expect(page.locator("main [data-total='Stops']")).toHaveText(String(await stops(page).count()));
+    // The worms are priced; the free leaves hold a refundable deposit (seeds/listings.ts).
+    await expect(page.locator("main [data-total='To pay suppliers']")).toHaveText(/€\d/);
     await expect(page.getByRole("button", { name: /Reserve all \d+ pickups/ })).toBeEnabled();
     await page.screenshot({ path: path.join(shots, "bed-materials.png"), fullPage: true });
   });
@@ -84,9 +86,13 @@ test.describe("the public planner", () => {
     await page.goto("/match?lat=52.205&lng=0.847&radius_km=15&needs=leaves:0.45:m3,cardboard:3.6:m2,straw:0.18:m3");
     await expect(stops(page).first()).toBeVisible({ timeout: 20_000 });
     await expect(page.getByText(/Still missing/)).toHaveCount(0);
-    await expect(page.locator("main [data-total='Driving']")).toContainText("km");
+    // Distances to a tenth of a kilometre, the way a person reads a trip.
+    await expect(page.locator("main [data-total='Driving']")).toHaveText(/^\d+(\.\d)? km$/);
+    // What the plan costs: paid, and deposits held on the card until pickup.
+    await expect(page.locator("main [data-total='To pay suppliers']")).toBeVisible();
+    await expect(page.locator("main [data-total='Deposits held']")).toBeVisible();
     await page.getByText("ft, lb").click();
-    await expect(page.locator("main [data-total='Driving']")).toContainText("mi");
+    await expect(page.locator("main [data-total='Driving']")).toHaveText(/^\d+(\.\d)? mi$/);
     await expect(stops(page).filter({ hasText: "ft³" }).first()).toBeVisible();
     await page.screenshot({ path: path.join(shots, "match-public.png"), fullPage: true });
   });
