@@ -32,7 +32,7 @@ export function CrossSection({ depths, system, settling }: { depths: LayerDepths
         {sunk.map((s) => (
           <g key={s.months} aria-hidden="true" data-settled={s.months}>
             <line x1="40" x2="290" y1={base - s.depth_cm * pxPerCm} y2={base - s.depth_cm * pxPerCm} stroke="#271c13" strokeWidth="1" strokeDasharray="4 3" />
-            <text x="37" y={base - s.depth_cm * pxPerCm + 3} fontSize="9" textAnchor="end" fill="#271c13">
+            <text x="286" y={base - s.depth_cm * pxPerCm - 2} fontSize="9" textAnchor="end" fill="#271c13">
               {s.months === 12 ? "1 yr" : `${s.months} mo`}
             </text>
           </g>

@@ -77,7 +77,7 @@ export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFor
   const where = shape === "outline" && outline.length ? outline[0] : location;
 
   return (
-    <div className="grid gap-8 lg:grid-cols-[minmax(0,420px)_1fr]">
+    <div className="grid grid-cols-1 gap-8 lg:grid-cols-[minmax(0,420px)_minmax(0,1fr)]">
       <Form onSubmit={form.handleSubmit((v) => estimate.mutate(v))} noValidate className="flex flex-col gap-4" aria-label="Bed planner">
         <div className="flex flex-wrap items-center justify-between gap-2">
           <h2 className="text-lg font-semibold">The bed</h2>
@@ -173,7 +173,7 @@ export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFor
         </Button>
       </Form>
 
-      <section aria-labelledby="result-title" className="flex flex-col gap-4">
+      <section aria-labelledby="result-title" className="flex min-w-0 flex-col gap-4">
         <h2 id="result-title" className="text-lg font-semibold">
           What your bed needs
         </h2>
