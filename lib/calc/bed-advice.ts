@@ -4,9 +4,8 @@
 // wet, airless sheet. So here each extra is offered only as deep as a layer of it may go
 // (GREEN_LAYER_MAX_CM), in depth, volume, bags and mass; when that cannot reach the range
 // the advice says so and names the next step, which may simply be to wait.
-import type { BlendResult } from "./blend";
+import { type BlendResult, massToReachCn } from "./blend";
 import { BAG_M3, BROWN_LAYER_MAX_CM, CN_RATIO, GREEN_LAYER_MAX_CM, MATERIALS, type MaterialCode } from "./facts";
-import { massToReachCn } from "./blend";
 import { massOf } from "./mass";
 import { ceilWhole, roundTo } from "./numbers";
 import { formatQuantity } from "@/lib/format/quantity";
