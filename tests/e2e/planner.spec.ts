@@ -53,6 +53,8 @@ test("a visitor plans a bed and switches units", async ({ page }) => {
 
 test("switching metric → imperial → metric gives back the same defaults", async ({ page }) => {
   await page.goto("/plan");
+  // The form fills in its defaults once the page has come alive.
+  await expect(page.getByLabel("Length (m)")).toHaveValue("3");
   const before = await Promise.all(["Length (m)", "Width (m)", "Seam overlap (cm)", "Leaf depth (cm)", "Straw depth (cm)"].map((l) => page.getByLabel(l).inputValue()));
   await page.getByRole("radio", { name: /Imperial/ }).click();
   await expect(page.getByLabel("Leaf depth (in)")).toHaveValue("4.9");
@@ -75,7 +77,8 @@ test("a visitor who places the bed sees what it will cost, the worms' price amon
   const costs = page.getByTestId("bed-costs");
   await expect(costs).toBeVisible({ timeout: 20_000 });
   await expect(costs.locator("[data-cost='To pay suppliers']")).toHaveText(/€\d/);
-  await expect(costs.locator("[data-cost='Deposits held']")).toHaveText(/€\d/);
+  // Deposits only where a free listing asks one; this plan's may or may not.
+  await expect(costs.locator("[data-cost='Deposits held']")).toHaveText(/^(€\d+\.\d\d|none)$/);
   // The demo's worms are priced: the worm line shows its price before anything is reserved.
   await expect(page.locator("td[data-cost-of='worms']")).toHaveText(/€\d+\.\d\d/);
   await page.screenshot({ path: path.join(process.env.E2E_DIR ?? "test-results", "plan-costs.png"), fullPage: true });
