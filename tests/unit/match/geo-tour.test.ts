@@ -65,8 +65,9 @@ describe("the bounding box prefilter", () => {
         fc.double({ min: -180, max: 180, noNaN: true }),
         fc.double({ min: 0.999, max: 1, noNaN: true }),
         (origin, km, bearing, edge) => {
-          const [lng, lat] = destination([origin.lng, origin.lat], km * edge, bearing, { units: "kilometers" }).geometry.coordinates;
-          const p = { lat, lng };
+          const [rawLng, lat] = destination([origin.lng, origin.lat], km * edge, bearing, { units: "kilometers" }).geometry.coordinates;
+          // Turf does not wrap longitudes past ±180°; a stored point always lies within them.
+          const p = { lat, lng: ((rawLng + 540) % 360) - 180 };
           // Turf's own measure decides what is inside; the box must hold all of that.
           return distanceKm(origin, p) > km || inBox(p, boundingBox(origin, km));
         },
