@@ -3,6 +3,7 @@ import path from "node:path";
 import type { Knex } from "knex";
 import { migrationSource } from "./db/migration-source";
 import { ResilientSqliteClient } from "./db/sqlite-client";
+import { pgTypes } from "./db/dialect";
 
 // npm scripts, tests and the server all run from the project root; __dirname would point
 // into the build output once Next.js bundles this file.
@@ -21,33 +22,46 @@ export function sqliteAfterCreate(conn: { pragma: (sql: string) => unknown }, do
   }
 }
 
-function sqlite(filename: string): Knex.Config {
+const migrations = { migrationSource, tableName: "knex_migrations" };
+
+export function sqliteConfig(filename: string): Knex.Config {
   return {
     // better-sqlite3, with connections replaced after a storage fault (db/sqlite-client.ts).
     client: ResilientSqliteClient,
     connection: { filename },
     useNullAsDefault: true,
     pool: { afterCreate: sqliteAfterCreate },
-    migrations: { migrationSource, tableName: "knex_migrations" },
+    migrations,
   };
 }
 
-const config: Record<string, Knex.Config> = {
-  development: sqlite(process.env.DATABASE_FILE ?? path.join(root, "db", "duffbank.sqlite")),
-  // A fresh file for every test run, so no run sees another's rows.
-  test: sqlite(process.env.DATABASE_FILE ?? path.join(os.tmpdir(), `duffbank-test-${process.pid}-${Date.now()}.sqlite`)),
-  production: process.env.DATABASE_URL
-    ? {
-        client: "pg",
-        connection: process.env.DATABASE_URL,
-        pool: { min: 0, max: 10 },
-        migrations: { migrationSource, tableName: "knex_migrations" },
-      }
-    : sqlite(process.env.DATABASE_FILE ?? path.join(root, "db", "duffbank.sqlite")),
-};
-
-export function configFor(env: string = process.env.NODE_ENV ?? "development"): Knex.Config {
-  return config[env] ?? config.development;
+/**
+ * PostgreSQL: the app's own type parsers on its connections (db/dialect.ts), and every
+ * session in UTC so anything the server formats or truncates itself agrees with the ISO text
+ * the app writes. DATABASE_POOL_MAX bounds the connections of one process: N app processes
+ * and M workers open at most (N + M) × that many.
+ */
+export function pgConfig(url: string): Knex.Config {
+  return {
+    client: "pg",
+    connection: { connectionString: url, types: pgTypes, options: "-c TimeZone=UTC", application_name: "duffbank" } as Knex.PgConnectionConfig,
+    pool: { min: 0, max: Number(process.env.DATABASE_POOL_MAX) || 10 },
+    migrations,
+  };
 }
 
-export default config;
+function sqliteFile(env: string): string {
+  if (process.env.DATABASE_FILE) return process.env.DATABASE_FILE;
+  // A fresh file for every test run, so no run sees another's rows.
+  if (env === "test") return path.join(os.tmpdir(), `duffbank-test-${process.pid}-${Date.now()}.sqlite`);
+  return path.join(root, "db", "duffbank.sqlite");
+}
+
+/**
+ * The one switch: DATABASE_URL set means PostgreSQL for every command (dev, start, worker,
+ * db:*, tests, bench) whatever NODE_ENV says; otherwise the SQLite file.
+ */
+export function configFor(env: string = process.env.NODE_ENV ?? "development"): Knex.Config {
+  const url = process.env.DATABASE_URL;
+  return url ? pgConfig(url) : sqliteConfig(sqliteFile(env));
+}

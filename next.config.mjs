@@ -1,6 +1,6 @@
 /** @type {import('next').NextConfig} */
 const nextConfig = {
-  serverExternalPackages: ["knex", "better-sqlite3", "sharp", "smtp-server", "mailparser"],
+  serverExternalPackages: ["knex", "better-sqlite3", "pg", "sharp", "smtp-server", "mailparser"],
   poweredByHeader: false,
   typedRoutes: false,
   experimental: { authInterrupts: true },

@@ -1,7 +1,8 @@
 import "server-only";
 import type { Knex } from "knex";
 import type Stripe from "stripe";
-import { isUniqueViolation, writeTransaction } from "@/db/write-transaction";
+import { isUniqueViolation } from "@/db/dialect";
+import { writeTransaction } from "@/db/write-transaction";
 import { db } from "@/db/index";
 import { paymentByStripeRef, updatePayment } from "@/db/payments";
 import type { PaymentRow } from "@/db/types";

@@ -1,6 +1,7 @@
 import "server-only";
 import { db } from "@/db/index";
-import { isUniqueViolation, writeTransaction } from "@/db/write-transaction";
+import { isUniqueViolation } from "@/db/dialect";
+import { writeTransaction } from "@/db/write-transaction";
 import { findDay, findSlot, insertBooking, liveBookingFor, takeSlotPlace } from "@/db/giveaways";
 import { findOrganisation } from "@/db/organisations";
 import { findUserById } from "@/db/users";

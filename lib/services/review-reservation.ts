@@ -1,7 +1,8 @@
 import "server-only";
 import type { Knex } from "knex";
 import { db, newId } from "@/db/index";
-import { isUniqueViolation, writeTransaction } from "@/db/write-transaction";
+import { isUniqueViolation } from "@/db/dialect";
+import { writeTransaction } from "@/db/write-transaction";
 import { sideOf } from "@/db/reservations";
 import { ApiError } from "@/lib/api/errors";
 import type { ReviewInput } from "@/lib/validation/reservations";
