@@ -11,6 +11,8 @@ import * as giveawayDeposits from "../migrations/20261204_010_giveaway_deposits"
 import * as outboxClaims from "../migrations/20261205_011_outbox_claims";
 import * as sessionsAndLimits from "../migrations/20261206_012_sessions_and_limits";
 import * as operations from "../migrations/20261207_013_operations";
+import * as exactQuantities from "../migrations/20261207_014_exact_quantities";
+import * as spatialIndex from "../migrations/20261207_015_spatial_index";
 
 // Migrations are listed here rather than found on disk so that the same list runs under
 // the CLI script, Vitest and the bundled Next.js server alike. Add new ones at the end.
@@ -27,6 +29,8 @@ const migrations: Record<string, Knex.Migration> = {
   "20261205_011_outbox_claims": outboxClaims,
   "20261206_012_sessions_and_limits": sessionsAndLimits,
   "20261207_013_operations": operations,
+  "20261207_014_exact_quantities": exactQuantities,
+  "20261207_015_spatial_index": spatialIndex,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {
