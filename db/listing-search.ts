@@ -6,12 +6,14 @@
 // leak through ordering either.
 //
 // Keyset pagination: a page starts strictly after the last row of the one before in a total
-// order ((distance, id) near a point, (created_at desc, id desc) otherwise). A row inserted
+// order ((distance, id) near a point, (created_at desc, id desc) otherwise; ids compared as
+// bytes on both engines). A row inserted
 // meanwhile lands before or after the cursor but never shifts the rows that were already
 // there, so paging through never repeats or skips one (offset paging would). Text relevance
 // is not used as an order: it changes as other listings are added.
 import type { Knex } from "knex";
 import { EARTH_MEAN_RADIUS_M, type MaterialCode } from "@/lib/calc/facts";
+import { byteOrder, matchWords, nearBox, type TextIndex } from "./dialect";
 import { db, type Db } from "./index";
 import { LISTING_COLUMNS } from "./listings";
 import type { ListingRow } from "./types";
@@ -54,20 +56,12 @@ export function boundingBox(lat: number, lng: number, radiusKm: number) {
   return { minLat: lat - dLat, maxLat: lat + dLat, minLng: lng - dLng, maxLng: lng + dLng, wrapsLng: lng - dLng < -180 || lng + dLng > 180 };
 }
 
-function isPg(q: Db) {
-  return (q as Knex).client.config.client === "pg";
-}
-
-function textFilter(b: Knex.QueryBuilder, words: string[], q: Db) {
-  if (isPg(q)) {
-    b.whereRaw("to_tsvector('english', coalesce(title, '') || ' ' || coalesce(description, '')) @@ to_tsquery('english', ?)", [
-      words.map((w) => `${w}:*`).join(" & "),
-    ]);
-  } else {
-    // Each word quoted (so FTS5 syntax in a search cannot do anything) and prefix-matched.
-    b.whereRaw("listings.id IN (SELECT listing_id FROM listing_search WHERE listing_search MATCH ?)", [words.map((w) => `"${w}"*`).join(" ")]);
-  }
-}
+/** Titles and descriptions: the FTS5 table on SQLite, the GIN-indexed tsvector on PostgreSQL (migrations/20261201_003_listing_search). */
+const LISTING_TEXT: TextIndex = {
+  fts: { table: "listing_search", key: "listing_id", rowKey: "listings.id" },
+  document: "to_tsvector('english', coalesce(title, '') || ' ' || coalesce(description, ''))",
+  config: "english",
+};
 
 export async function searchListings(f: SearchFilters, after: SearchCursor | null, limit: number, q: Db = db()): Promise<PublicListingRow[]> {
   const base = q("listings")
@@ -76,14 +70,14 @@ export async function searchListings(f: SearchFilters, after: SearchCursor | nul
     .andWhere((b) => b.whereNull("available_until").orWhere("available_until", ">", f.now));
   if (f.materials?.length) base.whereIn("material_code", f.materials);
   if (f.free) base.where("price_cents", 0);
-  if (f.words?.length) textFilter(base, f.words, q);
+  if (f.words?.length) matchWords(base, LISTING_TEXT, f.words);
 
   if (!f.point) {
     base.select(PUBLIC_COLUMNS.map((c) => `listings.${c}`)).select(q.raw("NULL as distance_km"));
     if (after?.by === "newest") {
-      base.andWhere((b) => b.where("created_at", "<", after.t).orWhere((b2) => b2.where("created_at", after.t).andWhere("listings.id", "<", after.id)));
+      base.andWhere((b) => b.where("created_at", "<", after.t).orWhere((b2) => b2.where("created_at", after.t).andWhere(byteOrder(q, "listings.id"), "<", after.id)));
     }
-    const rows = await base.orderBy([{ column: "created_at", order: "desc" }, { column: "listings.id", order: "desc" }]).limit(limit);
+    const rows = await base.orderBy([{ column: "created_at", order: "desc" }, { column: byteOrder(q, "listings.id"), order: "desc" }]).limit(limit);
     return rows.map(normalise);
   }
 
@@ -107,24 +101,21 @@ async function nearPage(base: Knex.QueryBuilder, point: { lat: number; lng: numb
   const box = boundingBox(lat, lng, radiusKm);
   base.whereBetween("approx_lat", [box.minLat, box.maxLat]);
   if (!box.wrapsLng) base.whereBetween("approx_lng", [box.minLng, box.maxLng]);
+  // PostgreSQL: the spatial index (listings_near) finds the ring; SQLite: the box above does.
+  nearBox(base, point, radiusKm * 1000);
   base.select(PUBLIC_COLUMNS.map((c) => `listings.${c}`)).select(q.raw(`${DISTANCE_SQL} as distance_km`, [lat, lat, lng]));
 
   const outer = q.select("*").from(base.as("near")).where("distance_km", "<=", radiusKm);
   if (after?.by === "distance") {
     // The cursor carries the distance exactly as the database computed it, and the same
     // expression over the same numbers gives the same double, so ties compare equal.
-    outer.andWhere((b) => b.where("distance_km", ">", after.d).orWhere((b2) => b2.where("distance_km", after.d).andWhere("id", ">", after.id)));
+    outer.andWhere((b) => b.where("distance_km", ">", after.d).orWhere((b2) => b2.where("distance_km", after.d).andWhere(byteOrder(q, "id"), ">", after.id)));
   }
-  return outer.orderBy([{ column: "distance_km" }, { column: "id" }]).limit(limit);
+  return outer.orderBy([{ column: "distance_km" }, { column: byteOrder(q, "id") }]).limit(limit);
 }
 
 function normalise(r: Record<string, unknown>): PublicListingRow {
   const row = r as unknown as PublicListingRow;
-  // PostgreSQL hands timestamps back as Date objects; SQLite keeps the ISO text we wrote.
-  for (const k of ["available_from", "available_until", "created_at", "updated_at"] as const) {
-    const v = row[k] as unknown;
-    if (v instanceof Date) (row as Record<string, unknown>)[k] = v.toISOString();
-  }
   row.distance_km = row.distance_km === null || row.distance_km === undefined ? null : Number(row.distance_km);
   return row;
 }

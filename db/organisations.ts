@@ -1,3 +1,4 @@
+import { byteOrder } from "./dialect";
 import { db, type Db } from "./index";
 
 export async function membersOf(organisationId: string, q: Db = db()) {
@@ -5,7 +6,7 @@ export async function membersOf(organisationId: string, q: Db = db()) {
     .join("users as u", "u.id", "m.user_id")
     .select("u.id", "u.display_name as name", "u.email", "m.org_role", "m.created_at")
     .where("m.organisation_id", organisationId)
-    .orderBy([{ column: "m.org_role", order: "asc" }, { column: "u.display_name" }]);
+    .orderBy([{ column: "m.org_role", order: "asc" }, { column: byteOrder(q, "u.display_name") }]);
 }
 
 export async function pendingRoleRequests(q: Db = db()) {

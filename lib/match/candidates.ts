@@ -1,16 +1,20 @@
 import "server-only";
 import type { Knex } from "knex";
 import { db, type Db } from "@/db/index";
+import { isPg, nearBox } from "@/db/dialect";
 import type { MaterialCode } from "@/lib/calc/facts";
 import { UNIT_PRICE_INDEX, UNIT_PRICE_SQL } from "@/migrations/20261201_004_listing_unit_price";
-import { type Box, boundingBox, distanceKm } from "./geo";
+import { type Box, boundingBox, distanceKm, enclosingCircle } from "./geo";
 import type { CandidateSource, CheapestRows } from "./search";
 import type { CandidateListing, LatLng, ListingUnit } from "./types";
 
 // The one query module of matching. Every query names its index: a box on the public
 // point through listings_search_box (status, material_code, approx_lat, approx_lng), or the
 // price order through listings_unit_price; then Turf's exact distance decides. None reads
-// the whole table. SQLite is told which index to use; PostgreSQL's planner picks its own.
+// the whole table. SQLite is told which index to use. PostgreSQL's planner picks its own,
+// and has the spatial index besides (listings_near, a GiST index of points in space): each
+// box also asks for the cube around the circle that holds it (db/dialect.ts nearBox), so the
+// same rows come back either way.
 
 const COLUMNS = [
   "id",
@@ -48,12 +52,11 @@ interface Row {
 // Float quantities can leave a residue like 1e-12 behind a full reservation.
 const LEFT_EPS = 1e-9;
 
-const isPg = (q: Db) => q.client.config.client === "pg";
 const table = (q: Db, index: string) => (isPg(q) ? "listings" : q.raw(`listings INDEXED BY ${index}`));
 
 /** Active, with something left, within its dates (begun, not ended), inside the box. */
 function reservable(q: Db, index: string, materials: readonly MaterialCode[], box: Box, now: Date): Knex.QueryBuilder {
-  return q
+  const qb = q
     .from(table(q, index))
     .select(...COLUMNS)
     .where("status", "active")
@@ -64,6 +67,8 @@ function reservable(q: Db, index: string, materials: readonly MaterialCode[], bo
     .where((w) => w.whereNull("available_until").orWhere("available_until", ">", now.toISOString()))
     // Browse shows a listing ahead of its start date; a plan can only use what can be reserved now.
     .where((w) => w.whereNull("available_from").orWhere("available_from", "<=", now.toISOString()));
+  const circle = enclosingCircle(box);
+  return circle ? nearBox(qb, circle.centre, circle.km * 1000) : qb;
 }
 
 function toCandidate(r: Row, origin: LatLng): CandidateListing {
