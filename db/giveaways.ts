@@ -1,3 +1,4 @@
+import { byteOrder, lockForUpdate } from "./dialect";
 import { db, newId, nowIso, type Db } from "./index";
 import type { BookingStatus, GiveawayBookingRow, GiveawayDayRow, GiveawaySlotRow } from "./types";
 
@@ -63,9 +64,9 @@ export async function findDay(id: string, q: Db = db()): Promise<GiveawayDayRow 
   return (await q("giveaway_days").first(DAY_COLUMNS).where({ id })) as GiveawayDayRow | undefined;
 }
 
-/** A day of another organisation is simply not found. */
-export async function findOrgDay(id: string, organisationId: string, q: Db = db()): Promise<GiveawayDayRow | undefined> {
-  return (await q("giveaway_days").first(DAY_COLUMNS).where({ id, organisation_id: organisationId })) as GiveawayDayRow | undefined;
+/** A day of another organisation is simply not found. `lock`: held until `q` ends (FOR UPDATE on PostgreSQL). */
+export async function findOrgDay(id: string, organisationId: string, q: Db = db(), opts: { lock?: boolean } = {}): Promise<GiveawayDayRow | undefined> {
+  return (await lockForUpdate(q("giveaway_days").first(DAY_COLUMNS).where({ id, organisation_id: organisationId }), opts.lock)) as GiveawayDayRow | undefined;
 }
 
 export async function updateOrgDay(id: string, organisationId: string, patch: Partial<GiveawayDayRow>, q: Db = db()): Promise<number> {
@@ -181,8 +182,9 @@ export async function insertBooking(
   return (await findBooking(full.id, q))!;
 }
 
-export async function findBooking(id: string, q: Db = db()): Promise<GiveawayBookingRow | undefined> {
-  return (await q("giveaway_bookings").first(BOOKING_COLUMNS).where({ id })) as GiveawayBookingRow | undefined;
+/** `lock`: held until `q` ends (FOR UPDATE on PostgreSQL), for a transaction that decides on what it reads. */
+export async function findBooking(id: string, q: Db = db(), opts: { lock?: boolean } = {}): Promise<GiveawayBookingRow | undefined> {
+  return (await lockForUpdate(q("giveaway_bookings").first(BOOKING_COLUMNS).where({ id }), opts.lock)) as GiveawayBookingRow | undefined;
 }
 
 /** The household's live booking for a day (anything not cancelled). */
@@ -244,7 +246,7 @@ export async function sheetFor(dayId: string, opts: { includeCancelled?: boolean
     )
     .where("b.day_id", dayId);
   if (!opts.includeCancelled) query.whereNot("b.status", "cancelled");
-  return query.orderBy([{ column: "s.starts_at" }, { column: "u.display_name" }, { column: "b.id" }]);
+  return query.orderBy([{ column: "s.starts_at" }, { column: byteOrder(q, "u.display_name") }, { column: byteOrder(q, "b.id") }]);
 }
 
 export interface MyBookingRow extends GiveawayBookingRow {

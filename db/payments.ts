@@ -1,3 +1,4 @@
+import { lockForUpdate } from "./dialect";
 import { db, newId, type Db } from "./index";
 import type { PaymentRow } from "./types";
 
@@ -35,18 +36,22 @@ export async function insertPayment(
   return full;
 }
 
-export async function findPayment(id: string, q: Db = db()): Promise<PaymentRow | undefined> {
-  return q<PaymentRow>("payments").first("*").where({ id });
+// `lock` holds the row until the transaction `q` ends (FOR UPDATE on PostgreSQL). Lock what a
+// payment belongs to (the reservation or the booking) before the payment itself, in that
+// order everywhere, so two transactions never wait on each other the other way round.
+
+export async function findPayment(id: string, q: Db = db(), opts: { lock?: boolean } = {}): Promise<PaymentRow | undefined> {
+  return lockForUpdate(q<PaymentRow>("payments").first("*").where({ id }), opts.lock);
 }
 
 /** The checkout (price or deposit) of a reservation; refunds are separate rows. */
-export async function chargeOf(reservationId: string, q: Db = db()): Promise<PaymentRow | undefined> {
-  return q<PaymentRow>("payments").first("*").where({ reservation_id: reservationId }).whereIn("kind", ["payment", "deposit"]);
+export async function chargeOf(reservationId: string, q: Db = db(), opts: { lock?: boolean } = {}): Promise<PaymentRow | undefined> {
+  return lockForUpdate(q<PaymentRow>("payments").first("*").where({ reservation_id: reservationId }).whereIn("kind", ["payment", "deposit"]), opts.lock);
 }
 
 /** The no-show deposit of a giveaway booking. */
-export async function depositOfBooking(bookingId: string, q: Db = db()): Promise<PaymentRow | undefined> {
-  return q<PaymentRow>("payments").first("*").where({ giveaway_booking_id: bookingId, kind: "deposit" });
+export async function depositOfBooking(bookingId: string, q: Db = db(), opts: { lock?: boolean } = {}): Promise<PaymentRow | undefined> {
+  return lockForUpdate(q<PaymentRow>("payments").first("*").where({ giveaway_booking_id: bookingId, kind: "deposit" }), opts.lock);
 }
 
 export async function paymentsOf(reservationIds: string[], q: Db = db()): Promise<PaymentRow[]> {

@@ -1,4 +1,5 @@
 import type { Knex } from "knex";
+import { lockForUpdate } from "./dialect";
 import { db, type Db } from "./index";
 import { LISTING_COLUMNS } from "./listings";
 import { windowsFor } from "./pickup-windows";
@@ -66,8 +67,9 @@ export async function insertReservation(row: ReservationRow, q: Db = db()): Prom
   await q("reservations").insert(row);
 }
 
-export async function findReservation(id: string, q: Db = db()): Promise<ReservationRow | undefined> {
-  return q<ReservationRow>("reservations").first("*").where({ id });
+/** `lock`: held until `q` ends (FOR UPDATE on PostgreSQL), for a transaction that decides on what it reads. */
+export async function findReservation(id: string, q: Db = db(), opts: { lock?: boolean } = {}): Promise<ReservationRow | undefined> {
+  return lockForUpdate(q<ReservationRow>("reservations").first("*").where({ id }), opts.lock);
 }
 
 /**

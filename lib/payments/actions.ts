@@ -19,6 +19,11 @@ import { probeStripe, stripe, stripeUnreachable } from "./stripe";
 
 import { actionRetryDelayMs } from "./retry";
 
+// How long one process may take over a call before another may try it again: far longer
+// than a Stripe request with its retries, short enough that a crashed worker's call is soon
+// picked up (the idempotency key then makes the second attempt a replay, not a new call).
+export const ACTION_CLAIM_MS = 5 * 60_000;
+
 export { actionRetryDelayMs };
 
 type Outcome = Partial<PaymentRow>;
@@ -93,11 +98,27 @@ async function intentOfSession(row: PaymentRow): Promise<string | null> {
   return typeof session.payment_intent === "string" ? session.payment_intent : (session.payment_intent?.id ?? null);
 }
 
-type Attempt = "done" | "failed" | "unreachable";
+/**
+ * Takes the owed call for this process: one conditional UPDATE moves it out of everyone
+ * else's reach until ACTION_CLAIM_MS from now, so of two processes that read it (the request
+ * that wrote it and a worker, or two workers) exactly one calls Stripe.
+ */
+async function claimAction(row: PaymentRow, clock: () => Date, q: Db): Promise<boolean> {
+  const now = clock();
+  const changed = await q("payments")
+    .where({ id: row.id, pending_action: row.pending_action })
+    .andWhere((w) => w.whereNull("next_action_at").orWhere("next_action_at", "<=", now.toISOString()))
+    .update({ next_action_at: new Date(now.getTime() + ACTION_CLAIM_MS).toISOString() });
+  return changed === 1;
+}
+
+/** "elsewhere": another process claimed the call a moment ago and is making it. */
+type Attempt = "done" | "failed" | "unreachable" | "elsewhere";
 
 async function attempt(id: string, clock: () => Date, q: Db): Promise<Attempt> {
   const row = await findPayment(id, q);
   if (!row?.pending_action) return "done";
+  if (!(await claimAction(row, clock, q))) return "elsewhere";
   try {
     const outcome = await perform(row, clock, q);
     // Only clear the action this run performed: a newer one written meanwhile stays.
@@ -122,9 +143,10 @@ async function attempt(id: string, clock: () => Date, q: Db): Promise<Attempt> {
   }
 }
 
-/** Runs one payment's owed Stripe call; true when it is done (or nothing was owed). */
+/** Runs one payment's owed Stripe call; true when it is done (or nothing was owed, or another process is making it). */
 export async function runPaymentAction(id: string, clock: () => Date = () => new Date(), q: Db = db()): Promise<boolean> {
-  return (await attempt(id, clock, q)) === "done";
+  const outcome = await attempt(id, clock, q);
+  return outcome === "done" || outcome === "elsewhere";
 }
 
 /**
@@ -174,6 +196,7 @@ export async function settlePayments(clock: () => Date = () => new Date(), q: Db
       continue;
     }
     const outcome = await attempt(row.id, clock, q);
+    if (outcome === "elsewhere") continue; // another worker took it between the read and the claim
     if (outcome === "done") {
       done++;
       wakes.cooldownMs = 0;

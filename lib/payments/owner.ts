@@ -1,3 +1,5 @@
+import type { Knex } from "knex";
+import { lockRows } from "@/db/dialect";
 import type { Db } from "@/db/index";
 import { updatePayment } from "@/db/payments";
 import type { PaymentRow } from "@/db/types";
@@ -13,6 +15,15 @@ export function ownerOf(row: Pick<PaymentRow, "reservation_id" | "giveaway_booki
   if (row.reservation_id) return { type: "reservation", id: row.reservation_id };
   if (row.giveaway_booking_id) return { type: "giveaway_booking", id: row.giveaway_booking_id };
   throw new Error("a payment with no owner");
+}
+
+/**
+ * Holds what the payment pays for until `trx` ends (nothing to do on SQLite): the first lock
+ * of a transaction that decides on a payment, taken before the payment's own (db/payments.ts).
+ */
+export async function lockOwner(trx: Knex.Transaction, row: Pick<PaymentRow, "reservation_id" | "giveaway_booking_id">): Promise<void> {
+  const owner = ownerOf(row);
+  await lockRows(trx, owner.type === "reservation" ? "reservations" : "giveaway_bookings", { id: owner.id });
 }
 
 /** Stripe metadata naming the owner, so every event and object says what it is for. */

@@ -4,10 +4,10 @@ import type Stripe from "stripe";
 import { isUniqueViolation } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
 import { db } from "@/db/index";
-import { paymentByStripeRef, updatePayment } from "@/db/payments";
+import { findPayment, paymentByStripeRef, updatePayment } from "@/db/payments";
 import type { PaymentRow } from "@/db/types";
 import { runPaymentActions } from "@/lib/payments/actions";
-import { ownerOf } from "@/lib/payments/owner";
+import { lockOwner, ownerOf } from "@/lib/payments/owner";
 import { bookingDepositFollows } from "./giveaway-deposit";
 import { gardenerStepDone, moneyReturnedOutside } from "./reservation-steps";
 
@@ -85,7 +85,7 @@ export async function applyStripeEvent(event: Stripe.Event, deps: { db?: Knex; c
       const obj = event.data.object as unknown as Record<string, any>;
       const isSession = event.type.startsWith("checkout.session.");
       const isIntent = event.type.startsWith("payment_intent.");
-      const row = await paymentByStripeRef(
+      const found = await paymentByStripeRef(
         {
           payment_id: obj.metadata?.payment_id,
           session_id: isSession ? obj.id : null,
@@ -93,7 +93,12 @@ export async function applyStripeEvent(event: Stripe.Event, deps: { db?: Knex; c
         },
         trx,
       );
-      if (!row || row.kind === "refund") return [];
+      if (!found || found.kind === "refund") return [];
+      // Two events about one payment can arrive at once (a completed checkout and its intent's
+      // update). Lock what it pays for, then the payment, and decide on the row as it is now:
+      // the second waits for the first and then sees its status, so it cannot undo it.
+      await lockOwner(trx, found);
+      const row = (await findPayment(found.id, trx, { lock: true }))!;
       const target = targetFor(event, row);
       if (!target) return [];
       const forward = target.status !== undefined && RANK[target.status] > RANK[row.status];

@@ -1,6 +1,6 @@
 import "server-only";
 import { db } from "@/db/index";
-import { isUniqueViolation } from "@/db/dialect";
+import { isUniqueViolation, lockRows } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
 import { findDay, findSlot, insertBooking, liveBookingFor, takeSlotPlace } from "@/db/giveaways";
 import { findOrganisation } from "@/db/organisations";
@@ -58,9 +58,12 @@ export async function bookGiveaway(userId: string, dayId: string, input: BookInp
   if (slot.booked >= slot.capacity) throw slotFull();
 
   const booking = await writeTransaction(db(), async (trx) => {
-    // The conditional UPDATE is the transaction's first statement, so on SQLite it takes the
-    // write lock before anything is read, and on PostgreSQL it locks the slot row.
+    // The conditional UPDATE is the transaction's first statement on SQLite, so it takes the
+    // write lock before anything is read. On PostgreSQL the day is held first (shared with
+    // other bookings): staff calling the day off or changing it wait for this booking, and a
+    // booking waits for them and then sees what they did. The UPDATE locks the slot row.
     // It also re-checks the day: called off or closed since the read above means no booking.
+    await lockRows(trx, "giveaway_days", { id: dayId }, "share");
     if (!(await takeSlotPlace(slot.id, dayId, now.toISOString(), trx))) {
       const current = await findDay(dayId, trx);
       if (!current) throw notFound("That giveaway day");

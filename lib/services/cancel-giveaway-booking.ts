@@ -29,7 +29,7 @@ export async function cancelGiveawayBooking(userId: string, dayId: string, booki
   const now = clock();
   const owed = await writeTransaction(db(), async (trx) => {
     // Guarded on the deposit too: a hold landing meanwhile is released below, not left behind.
-    const current = (await findBooking(bookingId, trx))!;
+    const current = (await findBooking(bookingId, trx, { lock: true }))!;
     const changed = await setBookingStatus(
       { id: bookingId, user_id: userId },
       ["booked"],

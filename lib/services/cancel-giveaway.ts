@@ -1,5 +1,6 @@
 import "server-only";
 import { db } from "@/db/index";
+import { lockRows } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
 import { cancelOrgDay, findOrgDay, recountSlots, setBookingStatus, sheetFor, slotsOf } from "@/db/giveaways";
 import { enqueueEmail } from "@/db/outbox";
@@ -22,6 +23,9 @@ export async function cancelGiveaway(ctx: CouncilContext, dayId: string, reason:
       throw new ApiError("invalid_state", "That day is already cancelled.");
     }
     const day = (await findOrgDay(dayId, ctx.organisationId, trx))!;
+    // Hold the live bookings before reading them: a deposit landing or a household cancelling
+    // at this moment finishes first, and the sheet below shows what it left.
+    await lockRows(trx, "giveaway_bookings", { day_id: dayId, status: "booked" });
     const booked = (await sheetFor(dayId, {}, trx)).filter((b) => b.status === "booked");
     const at = clock();
     const now = at.toISOString();

@@ -1,5 +1,6 @@
 import "server-only";
 import type { Knex } from "knex";
+import { claimBatch } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
 import { db } from "@/db/index";
 import { reservationContext } from "@/db/reservation-context";
@@ -28,7 +29,9 @@ export async function expireHolds(clock: Clock = () => new Date(), q: Knex = db(
     let owed: string[];
     try {
       owed = await writeTransaction(q, async (trx) => {
-        const r = await trx<ReservationRow>("reservations").first("*").where({ id: due.id, status: "held" }).andWhere("hold_expires_at", "<=", now.toISOString());
+        // A second worker on the same batch skips the row this one holds (PostgreSQL), and
+        // finds it no longer held once this one commits.
+        const r = await claimBatch(trx<ReservationRow>("reservations").first("*").where({ id: due.id, status: "held" }).andWhere("hold_expires_at", "<=", now.toISOString()));
         if (!r) throw new StaleState();
         const waitingOnSupplier = r.payment_state !== "awaiting";
         const ids = await closeReservation(trx, r, "expired", { actorId: null, note: waitingOnSupplier ? "The supplier did not answer in time" : "Not paid in time", now, money: "return" });

@@ -32,7 +32,7 @@ export function depositAfterReturn(s: DepositStatus): DepositStatus {
 
 /** Writes the Stripe call a booking's deposit owes (inside the caller's transaction); returns the payments to run after the commit. */
 export async function settleBookingDeposit(trx: Knex | Trx, bookingId: string, rule: "return" | "keep", now: Date): Promise<string[]> {
-  const charge = await depositOfBooking(bookingId, trx);
+  const charge = await depositOfBooking(bookingId, trx, { lock: true });
   if (!charge) return [];
   return (await settleCheckout(trx, charge, rule, now)) ?? [];
 }
@@ -43,7 +43,7 @@ export async function settleBookingDeposit(trx: Knex | Trx, bookingId: string, r
  * if the booking ended meanwhile, the hold is let go at once.
  */
 export async function bookingDepositFollows(trx: Trx, row: PaymentRow, status: string, now: Date): Promise<string[]> {
-  const booking = await findBooking(row.giveaway_booking_id!, trx);
+  const booking = await findBooking(row.giveaway_booking_id!, trx, { lock: true });
   if (!booking) return [];
   const set = (deposit_status: DepositStatus, extra: Partial<GiveawayBookingRow> = {}) =>
     trx("giveaway_bookings").where({ id: booking.id }).update({ deposit_status, ...extra, updated_at: now.toISOString() });

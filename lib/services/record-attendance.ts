@@ -23,7 +23,7 @@ export async function recordAttendance(ctx: CouncilContext, dayId: string, booki
   const result = await writeTransaction(db(), async (trx) => {
     const day = await findOrgDay(dayId, ctx.organisationId, trx);
     if (!day) throw notFound("That giveaway day");
-    const before = await findBooking(bookingId, trx);
+    const before = await findBooking(bookingId, trx, { lock: true });
     if (!before || before.day_id !== dayId) throw notFound("That booking");
     if (day.status !== "scheduled") throw new ApiError("invalid_state", "That day has been cancelled.");
     if (before.status === "cancelled") throw new ApiError("invalid_state", "That booking was cancelled.");

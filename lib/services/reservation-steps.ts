@@ -4,7 +4,7 @@ import type { Db } from "@/db/index";
 import { chargeOf, insertPayment } from "@/db/payments";
 import { settleCheckout } from "@/lib/payments/owner";
 import { reservationContext, type ReservationContext } from "@/db/reservation-context";
-import { collectQuantity, recordReservationEvent, releaseQuantity, updateReservationIf, type PickupWindowRow } from "@/db/reservations";
+import { collectQuantity, findReservation, recordReservationEvent, releaseQuantity, updateReservationIf, type PickupWindowRow } from "@/db/reservations";
 import type { ReservationRow } from "@/db/types";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { mailCultureOrder } from "@/lib/mail/culture-order-mail";
@@ -65,7 +65,7 @@ export type MoneyRule = "return" | "keep" | "complete";
  * Returns the payment rows that now owe a Stripe call.
  */
 export async function settleMoney(trx: Db, r: ReservationRow, rule: MoneyRule, now: Date): Promise<string[]> {
-  const charge = await chargeOf(r.id, trx);
+  const charge = await chargeOf(r.id, trx, { lock: true });
   if (!charge) return [];
   const at = now.toISOString();
   const owed = await settleCheckout(trx, charge, rule, now);
@@ -113,7 +113,7 @@ export async function closeReservation(
  * that ended meanwhile gets its money straight back.
  */
 export async function gardenerStepDone(trx: Trx, reservationId: string, state: "paid" | "authorised", now: Date): Promise<string[]> {
-  const r = (await trx<ReservationRow>("reservations").first("*").where({ id: reservationId }))!;
+  const r = (await findReservation(reservationId, trx, { lock: true }))!;
   if (r.status === "held" && r.payment_state === "awaiting") {
     await trx("reservations").where({ id: r.id }).update({ payment_state: state, updated_at: now.toISOString() });
     const paid = { ...r, payment_state: state };

@@ -19,7 +19,7 @@ export interface StepRun {
 
 /**
  * One person's step on a reservation, the frame every transition shares: 404 for anyone not
- * on it; then one write transaction in which `step` checks its rules (403 wrong side, 409
+ * on it; then one write transaction, holding the reservation's row, in which `step` checks its rules (403 wrong side, 409
  * wrong state) and makes the change; a guarded update that lost a race is a 409; the Stripe
  * calls the change owes run after the commit, and the worker retries any that fail.
  */
@@ -29,7 +29,7 @@ export async function runReservationStep(run: StepRun, step: (trx: Knex.Transact
   if (!side) throw new ApiError("not_found", "That reservation was not found.");
   let paymentIds: string[] = [];
   try {
-    paymentIds = await writeTransaction(run.db, async (trx) => step(trx, (await findReservation(run.reservationId, trx))!, side, now));
+    paymentIds = await writeTransaction(run.db, async (trx) => step(trx, (await findReservation(run.reservationId, trx, { lock: true }))!, side, now));
   } catch (err) {
     if (err instanceof StaleState) throw new ApiError("invalid_state", `Someone changed this ${run.noun} a moment ago; reload to see it.`);
     throw err;

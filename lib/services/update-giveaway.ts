@@ -15,9 +15,12 @@ import type { CouncilContext } from "./council-access";
 /** Once anyone has booked, these would change what they booked, so they stay as they are. */
 const FIXED_ONCE_BOOKED = ["date", "time_zone", "material", "unit", "bag_m3"] as const;
 
-/** A day of the council's own, found inside `trx`: another council's day is a 404, a cancelled one a 409. */
+/**
+ * A day of the council's own, found and held inside `trx` (a booking waits for the change, and
+ * the change sees every booking made before it): another council's day is a 404, a cancelled one a 409.
+ */
 export async function scheduledOrgDay(ctx: CouncilContext, dayId: string, trx: Parameters<typeof findOrgDay>[2]) {
-  const day = await findOrgDay(dayId, ctx.organisationId, trx);
+  const day = await findOrgDay(dayId, ctx.organisationId, trx, { lock: true });
   if (!day) throw notFound("That giveaway day");
   if (day.status !== "scheduled") throw new ApiError("invalid_state", "That day has been cancelled and can no longer change.");
   return day;
