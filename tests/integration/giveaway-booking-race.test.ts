@@ -1,21 +1,21 @@
 // A booking that passes the day's checks and then meets a change before its write: the write
 // itself (takeSlotPlace's conditional UPDATE) must see that the day was called off or closed.
-// The change is made from a second connection to the same file at the moment the booking reads
-// its slot, i.e. after it has read the day and found it open — the gap a racing cancellation hits.
-import Database from "better-sqlite3";
+// The change is made from a second connection to the same database at the moment the booking
+// reads its slot, i.e. after it has read the day and found it open — the gap a racing
+// cancellation hits.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
+import { otherConnection, type OtherConnection } from "../helpers/engine";
 import { bookAs, createDayAs } from "../helpers/giveaways";
 import { createUser } from "../factories";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
-let other: Database.Database;
+let other: OtherConnection;
 let council: string;
 
 beforeAll(async () => {
   ctx = await freshDb({ materials: true });
-  other = new Database(ctx.file);
-  other.pragma("busy_timeout = 5000");
+  other = otherConnection(ctx.env);
   council = (await createUser({ roles: ["council"] })).id;
 });
 afterAll(async () => {
@@ -65,7 +65,7 @@ describe("booking while the day changes under it", () => {
 
   it("fails cleanly with 409 when the day is called off between the check and the write", async () => {
     const { res, bookings, booked } = await bookWith((dayId) => {
-      other.prepare("UPDATE giveaway_days SET status = 'cancelled', cancel_reason = 'Flooded', cancelled_at = ? WHERE id = ?").run(new Date().toISOString(), dayId);
+      other.run("UPDATE giveaway_days SET status = 'cancelled', cancel_reason = 'Flooded', cancelled_at = ? WHERE id = ?", [new Date().toISOString(), dayId]);
     });
     expect(res.status, JSON.stringify(res.json)).toBe(409);
     expect(res.json.error.code).toBe("invalid_state");
@@ -76,7 +76,7 @@ describe("booking while the day changes under it", () => {
 
   it("fails cleanly with 409 when booking closes between the check and the write", async () => {
     const { res, bookings, booked } = await bookWith((dayId) => {
-      other.prepare("UPDATE giveaway_days SET booking_closes_at = ? WHERE id = ?").run(new Date(Date.now() - 60_000).toISOString(), dayId);
+      other.run("UPDATE giveaway_days SET booking_closes_at = ? WHERE id = ?", [new Date(Date.now() - 60_000).toISOString(), dayId]);
     });
     expect(res.status, JSON.stringify(res.json)).toBe(409);
     expect(res.json.error.code).toBe("invalid_state");
@@ -87,7 +87,7 @@ describe("booking while the day changes under it", () => {
 
   it("still says slot_full when the last place goes between the check and the write", async () => {
     const { res, bookings } = await bookWith((_dayId, slotId) => {
-      other.prepare("UPDATE giveaway_slots SET booked = capacity WHERE id = ?").run(slotId);
+      other.run("UPDATE giveaway_slots SET booked = capacity WHERE id = ?", [slotId]);
     });
     expect(res.status, JSON.stringify(res.json)).toBe(409);
     expect(res.json.error.code).toBe("slot_full");

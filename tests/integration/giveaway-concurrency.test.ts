@@ -29,7 +29,7 @@ async function bookInParallel(dayId: string, perProcess: { userId: string; slotI
     perProcess.map((jobs) =>
       run(process.execPath, ["--conditions=react-server", "--import", "tsx", "tests/helpers/giveaway-book-worker.ts"], {
         cwd: ROOT,
-        env: { ...process.env, NODE_ENV: "test", DATABASE_FILE: ctx.file, DAY_ID: dayId, START_AT: String(startAt), JOBS: JSON.stringify(jobs) },
+        env: { ...process.env, NODE_ENV: "test", ...ctx.env, DAY_ID: dayId, START_AT: String(startAt), JOBS: JSON.stringify(jobs) },
         timeout: 90_000,
       }),
     ),

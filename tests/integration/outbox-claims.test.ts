@@ -56,7 +56,7 @@ async function deliverFromTwoWorkers(): Promise<Outcome[]> {
     [0, 1].map(() =>
       run(process.execPath, ["--conditions=react-server", "--import", "tsx", "tests/helpers/outbox-deliver-worker.ts"], {
         cwd: ROOT,
-        env: { ...process.env, NODE_ENV: "test", DATABASE_FILE: ctx.file, SMTP_PORT: String(smtp.smtpPort), START_AT: String(startAt) },
+        env: { ...process.env, NODE_ENV: "test", ...ctx.env, SMTP_PORT: String(smtp.smtpPort), START_AT: String(startAt) },
         timeout: 90_000,
       }),
     ),

@@ -25,7 +25,7 @@ afterAll(() => ctx.close());
 async function burst(listingId: string, processes: number, perProcess: number, sizes: number[], gardeners: string[]): Promise<string[]> {
   const startAt = Date.now() + 4000; // time for every process to start and open its connection
   const script = path.resolve(__dirname, "../helpers/reserve-burst.ts");
-  const env = { ...process.env, NODE_ENV: "test", DATABASE_FILE: ctx.file } as NodeJS.ProcessEnv;
+  const env = { ...process.env, NODE_ENV: "test", ...ctx.env } as NodeJS.ProcessEnv;
   const outs = await Promise.all(
     Array.from({ length: processes }, () =>
       run(process.execPath, ["--conditions=react-server", "--import", "tsx", script, listingId, String(perProcess), String(startAt), sizes.join(","), gardeners.join(",")], { env, cwd: path.resolve(__dirname, "../.."), encoding: "utf8" }),

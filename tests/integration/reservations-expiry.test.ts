@@ -2,6 +2,7 @@
 // back, warnings and pickup reminders go out once, and the outbox survives an SMTP outage.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
+import { refuseWrites } from "../helpers/engine";
 import { call, request } from "../helpers/http";
 import { createUser } from "../factories";
 import { createListing, listingQuantities } from "../reservation-factories";
@@ -138,7 +139,7 @@ describe("a reminder that cannot be written", () => {
       ids.push(r.id);
     }
     // Test-only: the outbox refuses the first reservation's reminders.
-    await db().raw(`CREATE TRIGGER refuse_one_reminder BEFORE INSERT ON email_outbox WHEN NEW.dedupe_key LIKE 'res:${ids[0]}:reminder:%' BEGIN SELECT RAISE(ABORT, 'refused for the test'); END`);
+    const allow = await refuseWrites(db(), { name: "refuse_one_reminder", table: "email_outbox", event: "INSERT", when: `NEW.dedupe_key LIKE 'res:${ids[0]}:reminder:%'`, message: "refused for the test" });
     const quiet = console.error;
     console.error = () => {};
     try {
@@ -150,7 +151,7 @@ describe("a reminder that cannot be written", () => {
     expect(await marked(ids[0])).toBeNull();
     expect(await marked(ids[1])).not.toBeNull();
     expect(await marked(ids[2])).not.toBeNull();
-    await db().raw("DROP TRIGGER refuse_one_reminder");
+    await allow();
     await sendReservationReminders(() => new Date(start.getTime() - 19 * 3_600_000));
     expect(await marked(ids[0])).not.toBeNull();
     expect(await db()("email_outbox").where("dedupe_key", "like", `res:${ids[0]}:reminder:%`)).toHaveLength(2);

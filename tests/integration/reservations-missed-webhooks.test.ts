@@ -14,6 +14,7 @@ import { submitHostedPayment } from "@/lib/fakes/stripe/testing";
 import { POST as reserve } from "@/app/api/reservations/route";
 import { expireHolds } from "@/lib/services/expire-holds";
 import { applyStripeEvent } from "@/lib/services/apply-stripe-event";
+import { isUniqueViolation } from "@/db/dialect";
 import { RECHECK_MINUTES, RECOVER_AFTER_MINUTES, reconcilePayments } from "@/lib/payments/reconcile";
 import { SUPPLIER_REPLY_HOURS } from "@/lib/reservations/policy";
 import { jobs } from "@/lib/worker/jobs";
@@ -161,7 +162,7 @@ describe("telling a repeated event from a failure", () => {
     await db()("reservation_events").insert({ reservation_id: r.id, from_status: "held", to_status: "held", actor_id: null, note: "Payment received", created_at: new Date().toISOString() });
     await db().raw("CREATE UNIQUE INDEX test_one_note_each ON reservation_events (reservation_id, note)");
     try {
-      await expect(applyStripeEvent(completed as any)).rejects.toThrow(/UNIQUE/);
+      await expect(applyStripeEvent(completed as any)).rejects.toSatisfy(isUniqueViolation);
       const answer = await signedWebhook(completed);
       expect(answer.status).toBe(500); // so Stripe delivers it again
       expect(await db()("webhook_events").where({ id: completed.id })).toHaveLength(0);

@@ -1,5 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
+import { foreignKeysEnforced, tableNames } from "../helpers/engine";
+import { isForeignKeyViolation } from "@/db/dialect";
 import { seed } from "@/seeds/demo";
 import { MATERIAL_CODES } from "@/lib/calc/facts";
 import { PEOPLE } from "@/seeds/town";
@@ -71,10 +73,9 @@ describe("demo seed", () => {
 describe("migrations", () => {
   it("go down completely and up again", async () => {
     await ctx.db.migrate.rollback(undefined, true);
-    const afterDown = await ctx.db.raw("select name from sqlite_master where type = 'table' and name not like 'knex_%' and name not like 'sqlite_%'");
-    expect(afterDown).toEqual([]);
+    expect(await tableNames(ctx.db)).toEqual([]);
     await ctx.db.migrate.latest();
-    const afterUp = (await ctx.db.raw("select name from sqlite_master where type = 'table'")).map((r: any) => r.name);
+    const afterUp = await tableNames(ctx.db);
     for (const t of [...TABLES, "reviews", "reservations", "payments", "webhook_events", "email_outbox", "audit_log", "listing_photos", "verification_tokens"]) expect(afterUp).toContain(t);
   });
 
@@ -89,8 +90,7 @@ describe("migrations", () => {
   });
 
   it("turn foreign keys on", async () => {
-    const [{ foreign_keys }] = await ctx.db.raw("PRAGMA foreign_keys");
-    expect(foreign_keys).toBe(1);
-    await expect(ctx.db("user_roles").insert({ user_id: "missing", role: "gardener", status: "active", created_at: "x" })).rejects.toThrow(/FOREIGN KEY/);
+    expect(await foreignKeysEnforced(ctx.db)).toBe(true);
+    await expect(ctx.db("user_roles").insert({ user_id: "missing", role: "gardener", status: "active", created_at: new Date().toISOString() })).rejects.toSatisfy(isForeignKeyViolation);
   });
 });

@@ -3,6 +3,7 @@
 // still expires instead of waiting behind it.
 import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from "vitest";
 import { freshDb } from "../helpers/db";
+import { refuseWrites } from "../helpers/engine";
 import { startPayments, type PaymentsHarness } from "../helpers/payments";
 import { bookAs, createDayAs } from "../helpers/giveaways";
 import { createUser } from "../factories";
@@ -81,14 +82,14 @@ describe("expire-giveaway-deposits", () => {
     // The broken one is due first; any write to its row fails.
     const first = (await db()("giveaway_bookings").whereIn("id", ids).min({ t: "hold_expires_at" }))[0].t as string;
     await db()("giveaway_bookings").where({ id: ids[0] }).update({ hold_expires_at: new Date(Date.parse(first) - 1000).toISOString() });
-    await db().raw(`CREATE TRIGGER test_broken_booking BEFORE UPDATE ON giveaway_bookings WHEN OLD.id = '${ids[0]}' BEGIN SELECT RAISE(ABORT, 'broken booking row'); END`);
+    const mend = await refuseWrites(db(), { name: "test_broken_booking", table: "giveaway_bookings", event: "UPDATE", when: `OLD.id = '${ids[0]}'`, message: "broken booking row" });
     const logged = vi.spyOn(console, "error").mockImplementation(() => {});
     const later = new Date(Date.parse(first) + minutes(1));
 
     try {
       expect(await expireGiveawayDepositHolds(() => later)).toEqual({ expired: 2 });
     } finally {
-      await db().raw("DROP TRIGGER test_broken_booking");
+      await mend();
     }
 
     expect(await booking(ids[0])).toMatchObject({ status: "booked", deposit_status: "awaiting" });
