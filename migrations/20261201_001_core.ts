@@ -1,4 +1,5 @@
 import type { Knex } from "knex";
+import { isPg } from "../db/dialect";
 
 // The core of the domain. Portable between SQLite and PostgreSQL: ids are text UUIDs made
 // by the app, times are ISO-8601 UTC strings in timestamp columns, money is integer cents.
@@ -98,7 +99,7 @@ export async function up(knex: Knex): Promise<void> {
   // Quantities can never go negative or past the total, whatever the app does.
   const quantityOk =
     "quantity_held >= 0 AND quantity_collected >= 0 AND quantity_held + quantity_collected <= quantity_total + 1e-9";
-  if (knex.client.config.client === "pg") {
+  if (isPg(knex)) {
     await knex.raw(`ALTER TABLE listings ADD CONSTRAINT listings_quantity_ok CHECK (${quantityOk})`);
   } else {
     // SQLite cannot add a CHECK to an existing table; triggers do the same job.
@@ -221,7 +222,7 @@ export async function up(knex: Knex): Promise<void> {
     t.index(["subject_type", "subject_id"]);
   });
   // Append-only in the database itself, not only by convention in the app.
-  if (knex.client.config.client === "pg") {
+  if (isPg(knex)) {
     await knex.raw(`CREATE FUNCTION audit_log_append_only() RETURNS trigger AS $$
       BEGIN RAISE EXCEPTION 'audit_log is append-only'; END; $$ LANGUAGE plpgsql`);
     await knex.raw(`CREATE TRIGGER audit_log_no_change BEFORE UPDATE OR DELETE ON audit_log
@@ -235,7 +236,7 @@ export async function up(knex: Knex): Promise<void> {
 }
 
 export async function down(knex: Knex): Promise<void> {
-  if (knex.client.config.client === "pg") {
+  if (isPg(knex)) {
     await knex.raw("DROP TRIGGER IF EXISTS audit_log_no_change ON audit_log");
     await knex.raw("DROP FUNCTION IF EXISTS audit_log_append_only()");
   }

@@ -1,4 +1,5 @@
 import type { Knex } from "knex";
+import { isPg } from "../db/dialect";
 
 // Reviews after a collection: each side of a reservation rates the other once.
 export async function up(knex: Knex): Promise<void> {
@@ -14,7 +15,7 @@ export async function up(knex: Knex): Promise<void> {
     t.index(["subject_id"]);
   });
   await knex.raw(
-    knex.client.config.client === "pg"
+    isPg(knex)
       ? "ALTER TABLE reviews ADD CONSTRAINT reviews_rating_range CHECK (rating BETWEEN 1 AND 5)"
       : `CREATE TRIGGER reviews_rating_range BEFORE INSERT ON reviews WHEN NEW.rating NOT BETWEEN 1 AND 5
          BEGIN SELECT RAISE(ABORT, 'rating out of range'); END`,

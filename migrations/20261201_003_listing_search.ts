@@ -1,4 +1,5 @@
 import type { Knex } from "knex";
+import { isPg } from "../db/dialect";
 
 // Text search over listings' titles and descriptions, and the automatic "gone" status.
 //
@@ -17,7 +18,7 @@ const LEFT = "NEW.quantity_total - NEW.quantity_held - NEW.quantity_collected";
 const EPS = "1e-9";
 
 export async function up(knex: Knex): Promise<void> {
-  if (knex.client.config.client === "pg") {
+  if (isPg(knex)) {
     await knex.raw(
       "CREATE INDEX listings_text_search ON listings USING GIN (to_tsvector('english', coalesce(title, '') || ' ' || coalesce(description, '')))",
     );
@@ -64,7 +65,7 @@ export async function down(knex: Knex): Promise<void> {
     t.dropIndex(["status", "created_at"], "listings_status_created");
     t.dropIndex(["status", "approx_lat"], "listings_status_lat");
   });
-  if (knex.client.config.client === "pg") {
+  if (isPg(knex)) {
     await knex.raw("DROP TRIGGER IF EXISTS listings_auto_gone ON listings");
     await knex.raw("DROP FUNCTION IF EXISTS listings_auto_gone()");
     await knex.raw("DROP INDEX IF EXISTS listings_text_search");

@@ -1,4 +1,5 @@
 import type { Knex } from "knex";
+import { isPg } from "../db/dialect";
 
 // What the reservation flow needs beyond the core tables: when the pickup is due, how far
 // the gardener's payment has got, the status history, the message thread, and the
@@ -102,7 +103,7 @@ export async function down(knex: Knex): Promise<void> {
 // Knex rebuilds a SQLite table to drop a column, which other tables' foreign keys refuse;
 // SQLite 3.35+ (and PostgreSQL) drop an unindexed, unconstrained column in place.
 async function dropColumns(knex: Knex, table: string, columns: string[]) {
-  if (knex.client.config.client === "pg") {
+  if (isPg(knex)) {
     await knex.schema.alterTable(table, (t) => t.dropColumns(...columns));
     return;
   }

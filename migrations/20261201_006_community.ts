@@ -1,9 +1,9 @@
 import type { Knex } from "knex";
+import { isPg } from "../db/dialect";
 
 // Councils' staff invitations and giveaway days, moderators' reports, and worm growers'
 // shipping settings. Portable like the core: text UUIDs, ISO-8601 UTC timestamps, cents.
 
-const isPg = (knex: Knex) => knex.client.config.client === "pg";
 
 /** A CHECK on an existing table: a constraint on PostgreSQL, a pair of triggers on SQLite. */
 async function addCheck(knex: Knex, table: string, name: string, condition: string, message: string, columns: string[]) {

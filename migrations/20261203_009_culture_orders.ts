@@ -1,4 +1,5 @@
 import type { Knex } from "knex";
+import { isPg } from "../db/dialect";
 
 // Live-culture orders ride on reservations: how the worms reach the buyer (collected or
 // posted), the private address a parcel goes to, and the parcel's progress after payment
@@ -20,7 +21,7 @@ export async function up(knex: Knex): Promise<void> {
 export async function down(knex: Knex): Promise<void> {
   // Unindexed, unconstrained columns: PostgreSQL and SQLite 3.35+ drop them in place (a Knex
   // table rebuild on SQLite would trip over the foreign keys pointing at reservations).
-  if (knex.client.config.client === "pg") {
+  if (isPg(knex)) {
     await knex.schema.alterTable("reservations", (t) => t.dropColumns(...COLUMNS));
     return;
   }

@@ -1,10 +1,10 @@
 import type { Knex } from "knex";
+import { isPg } from "../db/dialect";
 
 // A giveaway day's no-show deposit is held on a card through the same payments rows as a
 // reservation's: a payment now belongs to a reservation or to a giveaway booking, exactly one
 // of them. A booking waiting for its deposit has a time by which it must be put down.
 
-const isPg = (knex: Knex) => knex.client.config.client === "pg";
 const ONE_OWNER = "(reservation_id IS NULL) <> (giveaway_booking_id IS NULL)";
 
 export async function up(knex: Knex): Promise<void> {
