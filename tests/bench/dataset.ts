@@ -1,9 +1,13 @@
 // A synthetic county for the benchmark: listings clustered around a dozen invented
 // villages plus a scatter of farms, over about 50 × 50 km centred on Fernhollow, with a
-// material mix, units, prices and statuses like the demo's. Written to its own SQLite file.
+// material mix, units, prices and statuses like the demo's. Written to its own SQLite file,
+// or with DATABASE_URL set to its own database on that PostgreSQL server.
 import fs from "node:fs";
+import path from "node:path";
 import knex, { type Knex } from "knex";
-import { configFor } from "@/knexfile";
+import { pgConfig, sqliteConfig } from "@/knexfile";
+import { isPg } from "@/db/dialect";
+import { adminConnection, createDatabase, databaseUrl, dropDatabase } from "../helpers/pg-databases";
 import { BAG_M3, BALE_M3, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { prng } from "@/seeds/ids";
@@ -58,9 +62,34 @@ function weighted<T>(r: () => number, xs: [T, number][]): T {
 // Gaussian from two uniforms (Box–Muller).
 const gauss = (r: () => number) => Math.sqrt(-2 * Math.log(1 - r())) * Math.cos(2 * Math.PI * r());
 
-export async function buildDataset(file: string, size: number): Promise<Knex> {
-  for (const f of [file, `${file}-wal`, `${file}-shm`]) fs.rmSync(f, { force: true });
-  const k = knex({ ...configFor("test"), connection: { filename: file } });
+/** Where one size's dataset lives, and what a server process needs in its environment to open it. */
+export interface BenchStore {
+  label: string;
+  env: { DATABASE_FILE: string } | { DATABASE_URL: string };
+  open: () => Knex;
+}
+
+/** A new, empty store for `size` listings: a file in `dir`, or a database on DATABASE_URL's server. */
+export async function emptyStore(dir: string, size: number): Promise<BenchStore> {
+  if (!process.env.DATABASE_URL) {
+    const file = path.join(dir, `duffbank-bench-${size}.sqlite`);
+    for (const f of [file, `${file}-wal`, `${file}-shm`]) fs.rmSync(f, { force: true });
+    return { label: file, env: { DATABASE_FILE: file }, open: () => knex(sqliteConfig(file)) };
+  }
+  const name = `duffbank_bench_${size}`;
+  const admin = adminConnection();
+  try {
+    await dropDatabase(admin, name);
+    await createDatabase(admin, name);
+  } finally {
+    await admin.destroy();
+  }
+  const url = databaseUrl(name);
+  return { label: `database ${name}`, env: { DATABASE_URL: url }, open: () => knex(pgConfig(url)) };
+}
+
+export async function buildDataset(store: BenchStore, size: number): Promise<Knex> {
+  const k = store.open();
   await k.migrate.latest();
   const r = prng(size);
   const created = "2026-11-01T09:00:00.000Z";
@@ -97,5 +126,7 @@ export async function buildDataset(file: string, size: number): Promise<Knex> {
   await k.transaction(async (trx) => {
     for (let i = 0; i < rows.length; i += 500) await trx("listings").insert(rows.slice(i, i + 500));
   });
+  // PostgreSQL plans from statistics: gather them now rather than whenever autovacuum would.
+  if (isPg(k)) await k.raw("ANALYZE");
   return k;
 }

@@ -2,7 +2,6 @@
 // HTTP throughput of /api/match and /api/listings against /api/health on a production build.
 // Environment: BENCH_SIZES=1000,10000 to run fewer sizes; BENCH_HTTP=0 to skip the HTTP part.
 import os from "node:os";
-import path from "node:path";
 import { performance } from "node:perf_hooks";
 import type { Knex } from "knex";
 import { MATERIAL_CODES } from "@/lib/calc/facts";
@@ -12,7 +11,7 @@ import { matchPlan } from "@/lib/match/plan";
 import { searchPlan } from "@/lib/match/search";
 import type { Need } from "@/lib/match/types";
 import { prng } from "@/seeds/ids";
-import { at, buildDataset, HALF_SIDE_KM } from "./dataset";
+import { at, type BenchStore, buildDataset, emptyStore, HALF_SIDE_KM } from "./dataset";
 import { runHttpBench } from "./http";
 import { naiveCandidates, naiveNearest } from "./naive";
 
@@ -56,11 +55,11 @@ interface Row {
   costRatio: number;
 }
 
-async function benchSize(size: number, dir: string): Promise<{ row: Row; k: Knex; file: string }> {
-  const file = path.join(dir, `duffbank-bench-${size}.sqlite`);
+async function benchSize(size: number, dir: string): Promise<{ row: Row; k: Knex; store: BenchStore }> {
+  const store = await emptyStore(dir, size);
   const t0 = performance.now();
-  const k = await buildDataset(file, size);
-  console.log(`[bench] ${size.toLocaleString("en-US")} listings written to ${file} in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+  const k = await buildDataset(store, size);
+  console.log(`[bench] ${size.toLocaleString("en-US")} listings written to ${store.label} in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
   const r = prng(7 + size);
   const origins = Array.from({ length: 200 }, () => at((r() * 2 - 1) * (HALF_SIDE_KM - 3), (r() * 2 - 1) * (HALF_SIDE_KM - 3)));
   const runs = 200;
@@ -88,7 +87,7 @@ async function benchSize(size: number, dir: string): Promise<{ row: Row; k: Knex
     candidates: match.out.reduce((s, x) => s + x.stats.candidates, 0) / match.out.length,
     costRatio: ratios.reduce((a, b) => a + b, 0) / ratios.length,
   };
-  return { row, k, file };
+  return { row, k, store };
 }
 
 function table(rows: Row[]) {
@@ -105,14 +104,15 @@ function table(rows: Row[]) {
 
 async function main() {
   const dir = process.env.BENCH_DIR ?? os.tmpdir();
-  console.log(`[bench] ${os.cpus().length} × ${os.cpus()[0]?.model ?? "cpu"}, Node ${process.version}; ${BENCH_NEEDS.length} needs within ${RADIUS_KM} km; near-query = the ${NEAR_LIMIT} nearest listings within ${RADIUS_KM} km`);
+  const engine = process.env.DATABASE_URL ? "PostgreSQL (DATABASE_URL)" : "SQLite";
+  console.log(`[bench] ${engine}; ${os.cpus().length} × ${os.cpus()[0]?.model ?? "cpu"}, Node ${process.version}; ${BENCH_NEEDS.length} needs within ${RADIUS_KM} km; near-query = the ${NEAR_LIMIT} nearest listings within ${RADIUS_KM} km`);
   const rows: Row[] = [];
-  let biggest: { k: Knex; file: string } | null = null;
+  let biggest: { k: Knex; store: BenchStore } | null = null;
   for (const size of SIZES) {
-    const { row, k, file } = await benchSize(size, dir);
+    const { row, k, store } = await benchSize(size, dir);
     rows.push(row);
     if (biggest) await biggest.k.destroy();
-    biggest = { k, file };
+    biggest = { k, store };
   }
   console.log(`\n${table(rows)}\n`);
   const [first, last] = [rows[0], rows[rows.length - 1]];
@@ -120,7 +120,7 @@ async function main() {
     console.log(`[bench] listings grew ${(last.size / first.size).toFixed(0)}×; match p95 grew ${(last.match.p95 / first.match.p95).toFixed(1)}×, the naive scan's ${(last.matchNaive.p95 / first.matchNaive.p95).toFixed(1)}×`);
   }
   if (biggest) await biggest.k.destroy();
-  if (process.env.BENCH_HTTP !== "0" && biggest) await runHttpBench(biggest.file, BENCH_NEEDS);
+  if (process.env.BENCH_HTTP !== "0" && biggest) await runHttpBench(biggest.store, BENCH_NEEDS);
 }
 
 if (process.argv[1]?.endsWith("run.ts")) main().catch((err) => {
