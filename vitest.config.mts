@@ -8,7 +8,7 @@ export default defineConfig({
   resolve: { alias: { "@": path.resolve(__dirname) } },
   test: {
     environment: "node",
-    include: ["tests/unit/**/*.test.ts", "tests/integration/**/*.test.ts"],
+    include: ["tests/unit/**/*.test.ts", "tests/integration/**/*.test.ts", "tests/processes/**/*.test.ts"],
     setupFiles: ["tests/setup.ts"],
     globalSetup: ["tests/global-setup.ts"],
     testTimeout: 30_000,
