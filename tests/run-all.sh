@@ -1,8 +1,28 @@
 #!/usr/bin/env bash
-# The whole suite: unit, integration (real SQLite), then end-to-end in Chromium.
+# The whole suite: unit and integration tests on SQLite, the integration tests again on
+# PostgreSQL (each test file on a fresh database, either engine), end-to-end in Chromium, and
+# several app processes with several workers sharing one PostgreSQL database.
+#
+# PostgreSQL: DATABASE_URL names a server to use (a developer's own); without it a throwaway
+# PostgreSQL 15 cluster is started for the run and removed at the end (tests/postgres.sh),
+# installed from Debian's packages first when missing and running as root.
 set -euo pipefail
 cd "$(dirname "$0")/.."
-export NODE_ENV=test NEXT_TELEMETRY_DISABLED=1
-npx vitest run
-unset NODE_ENV
+source tests/debian-package.sh
+source tests/postgres.sh
+export NEXT_TELEMETRY_DISABLED=1
+PG_SERVER_URL="${DATABASE_URL:-}"
+unset DATABASE_URL
+
+echo "[test] unit and integration tests on SQLite"
+NODE_ENV=test npx vitest run
+
+start_postgres "$PG_SERVER_URL"
+echo "[test] integration tests on PostgreSQL"
+DATABASE_URL="$PG_TEST_URL" NODE_ENV=test npx vitest run tests/integration
+
+echo "[test] end-to-end tests (production build, SQLite)"
 bash tests/e2e/run.sh
+
+echo "[test] two app processes and two workers on one PostgreSQL database"
+DATABASE_URL="$PG_TEST_URL" NODE_ENV=test npx vitest run tests/processes

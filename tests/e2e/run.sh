@@ -5,18 +5,13 @@ set -euo pipefail
 cd "$(dirname "$0")/../.."
 
 export NEXT_TELEMETRY_DISABLED=1
+source tests/debian-package.sh
 CHROMIUM="${CHROMIUM_PATH:-/usr/bin/chromium}"
 if [ ! -x "$CHROMIUM" ]; then
-  if [ "$(id -u)" = "0" ] && command -v apt-get >/dev/null; then
-    echo "[e2e] Chromium not found; installing Debian's chromium package"
-    export DEBIAN_FRONTEND=noninteractive
-    apt-get update -qq </dev/null
-    apt-get install -y -qq chromium </dev/null >/dev/null
-  else
-    echo "[e2e] Chromium is missing. Install Debian's package as root: apt-get install -y chromium" >&2
+  need_debian_package e2e chromium || {
     echo "[e2e] (or set CHROMIUM_PATH to an existing Chromium binary)" >&2
     exit 1
-  fi
+  }
 fi
 export CHROMIUM_PATH="$CHROMIUM"
 
