@@ -3,8 +3,8 @@ import { db, type Db } from "./index";
 export interface CollectedRow {
   quantity: number;
   household: string;
-  /** An ISO string on SQLite; PostgreSQL hands timestamps back as Date. */
-  at: string | Date;
+  /** ISO text on both engines (db/dialect.ts). */
+  at: string;
   material_code: string;
   unit: string;
   unit_size: number | null;

@@ -23,14 +23,15 @@ export async function diversionReport(scope: DiversionScope | null, opts: { from
   };
 }
 
-function record(r: { quantity: number; household: string; at: string | Date; material_code: string; unit: string; unit_size: number | null; unit_mass_kg?: number | null }): DiversionRecord {
+// Rows have their declared types on both engines (db/dialect.ts): `at` is ISO text.
+function record(r: { quantity: number; household: string; at: string; material_code: string; unit: string; unit_size: number | null; unit_mass_kg?: number | null }): DiversionRecord {
   return {
     material: r.material_code as MaterialCode,
-    quantity: Number(r.quantity),
+    quantity: r.quantity,
     unit: r.unit as DiversionUnit,
-    unitSize: r.unit_size === null || r.unit_size === undefined ? undefined : Number(r.unit_size),
-    unitMassKg: r.unit_mass_kg === null || r.unit_mass_kg === undefined ? undefined : Number(r.unit_mass_kg),
-    month: (r.at instanceof Date ? r.at.toISOString() : String(r.at)).slice(0, 7),
+    unitSize: r.unit_size ?? undefined,
+    unitMassKg: r.unit_mass_kg ?? undefined,
+    month: r.at.slice(0, 7),
     household: r.household,
   };
 }
