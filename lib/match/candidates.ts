@@ -67,7 +67,8 @@ function reservable(q: Db, index: string, materials: readonly MaterialCode[], bo
     .where((w) => w.whereNull("available_until").orWhere("available_until", ">", now.toISOString()))
     // Browse shows a listing ahead of its start date; a plan can only use what can be reserved now.
     .where((w) => w.whereNull("available_from").orWhere("available_from", "<=", now.toISOString()));
-  const circle = enclosingCircle(box);
+  // The price-ordered queries read listings_unit_price in price order on both engines.
+  const circle = index === UNIT_PRICE_INDEX ? null : enclosingCircle(box);
   return circle ? nearBox(qb, circle.centre, circle.km * 1000) : qb;
 }
 
