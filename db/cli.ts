@@ -1,5 +1,6 @@
 // `npm run db:migrate | db:rollback | db:seed` — the same migration list the app uses.
 // `npm run db:backup -- <file>` and `npm run db:restore -- <file> [--force]` (db/backup.ts).
+import "../lib/env-files";
 import knex from "knex";
 import { checkStartup } from "../lib/env";
 import { configFor } from "../knexfile";

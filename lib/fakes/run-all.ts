@@ -2,6 +2,7 @@
 // the SMTP catcher with its inbox, the Stripe-compatible API with its hosted payment page,
 // and the Cloudinary-compatible upload and delivery server. Ports come from the
 // environment so tests and a second checkout can pick others.
+import "../env-files";
 import path from "node:path";
 import { checkStartup, secret } from "@/lib/env";
 import { startSmtpFake } from "./smtp/server";

@@ -5,6 +5,7 @@
 // `npm run worker -- --once expire-holds [more job names]` runs the named jobs once and
 // exits: with DUFFBANK_CLOCK set it is how a test (or an operator) runs a job "later" on
 // a real database. It is a command on the machine, not reachable through the web app.
+import "../env-files";
 import fs from "node:fs";
 import { db } from "@/db/index";
 import { checkStartup } from "@/lib/env";
