@@ -78,3 +78,15 @@ start_postgres() {
   export PG_TEST_URL
   echo "[postgres] throwaway PostgreSQL $PG_MAJOR cluster on 127.0.0.1:$port (collation ICU en-US)"
 }
+
+# Run directly (`bash tests/postgres.sh`): the same throwaway cluster for working by hand,
+# kept until Ctrl-C. Export the DATABASE_URL it prints in another shell.
+if [ "${BASH_SOURCE[0]}" = "$0" ]; then
+  set -euo pipefail
+  cd "$(dirname "$0")/.."
+  source tests/debian-package.sh
+  start_postgres ""
+  echo "export DATABASE_URL=$PG_TEST_URL"
+  echo "[postgres] Ctrl-C stops and removes it"
+  while true; do sleep 3600; done
+fi

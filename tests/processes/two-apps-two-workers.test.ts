@@ -45,6 +45,7 @@ describe.skipIf(!process.env.DATABASE_URL)("two app processes and two workers on
       NODE_ENV: "production",
       NEXTAUTH_SECRET: SECRET,
       LOCATION_SECRET: "two-apps-two-workers-location-secret",
+      STRIPE_WEBHOOK_SECRET: "whsec_two_apps_two_workers_not_the_demo_one",
       SMTP_PORT: String(smtp.smtpPort),
       STRIPE_FAKE_PORT: String(await freePort()),
       WORKER_INTERVAL_MS: "300",
