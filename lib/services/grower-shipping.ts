@@ -1,5 +1,6 @@
 import "server-only";
 import { db, type Db } from "@/db/index";
+import { lockRows } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
 import { findShipping, saveShipping, updateWormQuality, waitingPostedOrderIds, wormListingsOf } from "@/db/grower-shipping";
 import { reservationContexts } from "@/db/reservation-context";
@@ -38,6 +39,9 @@ export async function growerShipping(userId: string): Promise<ShippingView> {
 
 export async function saveGrowerShipping(userId: string, input: ShippingInput): Promise<ShippingView> {
   return writeTransaction(db(), async (trx) => {
+    // One save at a time per grower (the row may not exist yet, so the person's own row is
+    // held): two saves at once cannot both see "not paused" and both mail the pause.
+    await lockRows(trx, "users", { id: userId });
     const before = await findShipping(userId, trx);
     const row = {
       user_id: userId,
@@ -108,6 +112,7 @@ export async function cultureStock(userId: string): Promise<CultureStock[]> {
 
 export async function saveCulture(userId: string, listingId: string, input: CultureInput) {
   return writeTransaction(db(), async (trx) => {
+    await lockRows(trx, "listings", { id: listingId, owner_id: userId }); // merged into its quality JSON below
     const listing = (await wormListingsOf(userId, trx)).find((l) => l.id === listingId);
     if (!listing) throw notFound("That worm listing");
     const before = safeJson(listing.quality);

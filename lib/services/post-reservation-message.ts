@@ -1,6 +1,7 @@
 import "server-only";
 import type { Knex } from "knex";
 import { db } from "@/db/index";
+import { lockRows } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
 import { countMessagesSince, insertMessage, messagesOf } from "@/db/reservation-messages";
 import { reservationContext } from "@/db/reservation-context";
@@ -18,6 +19,8 @@ export async function postReservationMessage(input: { reservationId: string; use
   const side = await sideOf(input.reservationId, input.userId, q);
   if (!side) throw new ApiError("not_found", "That reservation was not found.");
   return writeTransaction(q, async (trx) => {
+    // Messages on one reservation one at a time, so parallel posts cannot all pass the count.
+    await lockRows(trx, "reservations", { id: input.reservationId });
     const since = new Date(now.getTime() - MESSAGE_LIMIT.windowMinutes * 60_000).toISOString();
     if ((await countMessagesSince(input.reservationId, input.userId, since, trx)) >= MESSAGE_LIMIT.count) {
       throw new ApiError("rate_limited", `That is ${MESSAGE_LIMIT.count} messages in ${MESSAGE_LIMIT.windowMinutes} minutes; wait a little before the next.`);
