@@ -1,22 +1,25 @@
-// Helpers the exchange journeys share: reading the e2e database, paying on the Stripe fake's
+// Helpers the exchange journeys share: reading the e2e database (either engine), paying on the Stripe fake's
 // local checkout page, and waiting for an e-mail in the local inbox.
-import Database from "better-sqlite3";
 import { expect, type APIRequestContext, type Page } from "@playwright/test";
+import { otherConnection } from "../helpers/engine";
 import { inboxUrl } from "./roles";
 
+/** The e2e run's database: its PostgreSQL database when DATABASE_URL is set, else its SQLite file. */
+const database = () => otherConnection(process.env.DATABASE_URL ? { DATABASE_URL: process.env.DATABASE_URL } : { DATABASE_FILE: process.env.DATABASE_FILE! });
+
 export function sql<T = any>(query: string, ...args: unknown[]): T[] {
-  const conn = new Database(process.env.DATABASE_FILE!);
+  const conn = database();
   try {
-    return conn.prepare(query).all(...args) as T[];
+    return conn.all<T>(query, args);
   } finally {
     conn.close();
   }
 }
 
 export function run(query: string, ...args: unknown[]) {
-  const conn = new Database(process.env.DATABASE_FILE!);
+  const conn = database();
   try {
-    conn.prepare(query).run(...args);
+    conn.run(query, args);
   } finally {
     conn.close();
   }

@@ -1,8 +1,8 @@
 import path from "node:path";
-import Database from "better-sqlite3";
 import sharp from "sharp";
 import { expect, test, type Page } from "./fixtures";
 import { storageState } from "./roles";
+import { sql } from "./exchange";
 
 // The supply side in a real browser: a supplier posts leaves with two photos (upload
 // progress visible, straight to the local Cloudinary fake), a visitor finds them by
@@ -179,9 +179,7 @@ test.describe.serial("listings", () => {
   });
 
   test("no public page or response carries an exact pickup point or address", async ({ playwright, baseURL }) => {
-    const db = new Database(process.env.DATABASE_FILE!, { readonly: true, fileMustExist: true });
-    const rows = db.prepare("SELECT id, lat, lng, address FROM listings WHERE status = 'active' ORDER BY id = ? DESC, id LIMIT 6").all(listingId) as { id: string; lat: number; lng: number; address: string }[];
-    db.close();
+    const rows = sql<{ id: string; lat: number; lng: number; address: string }>("SELECT id, lat, lng, address FROM listings WHERE status = 'active' ORDER BY id = ? DESC, id LIMIT 6", listingId);
     expect(rows[0].id).toBe(listingId);
     expect(rows[0].address).toBe(ADDRESS);
     // Signed in as someone else entirely, and signed out: neither may see them.

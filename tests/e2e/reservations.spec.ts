@@ -37,11 +37,11 @@ const card = (page: Page, title: string) => page.locator("article").filter({ has
 // A retry runs against the same database, so a test that checks one reservation finds it by id.
 const cardById = (page: Page, id: string) => page.locator(`article#r-${id}`);
 const newestReservation = (listingId: string) =>
-  sql<{ id: string }>("select id from reservations where listing_id = ? order by created_at desc, rowid desc limit 1", listingId)[0].id;
+  sql<{ id: string }>("select id from reservations where listing_id = ? order by created_at desc, id desc limit 1", listingId)[0].id;
 
 test("a gardener pays for straw, the farm accepts, the pickup code closes it, and both review", async ({ browser, request }) => {
   test.setTimeout(120_000);
-  const straw = listingOf("hartwell@duffbank.test", "l.material_code = 'straw' and l.price_cents > 0 and l.auto_accept = 0");
+  const straw = listingOf("hartwell@duffbank.test", "l.material_code = 'straw' and l.price_cents > 0 and l.auto_accept = false");
   expect(straw).toBeTruthy();
 
   const g = await signedIn(browser, "gardener");
@@ -224,7 +224,7 @@ test("200 parallel reservations of 1 through the HTTP API hold exactly 50 of 50"
   const now = new Date().toISOString();
   run(
     `insert into listings (id, owner_id, material_code, title, description, status, unit, unit_size, quantity_total, quantity_held, quantity_collected, price_cents, currency, deposit_cents, auto_accept, lat, lng, address, approx_lat, approx_lng, quality, created_at, updated_at)
-     values (?, ?, 'cardboard', 'Load test boxes', '', 'active', 'sheets', 0.8, 50, 0, 0, 0, 'eur', 0, 0, 52.2, 0.85, '1 Test Row, Fernhollow', 52.202, 0.852, '{}', ?, ?)`,
+     values (?, ?, 'cardboard', 'Load test boxes', '', 'active', 'sheets', 0.8, 50, 0, 0, 0, 'eur', 0, false, 52.2, 0.85, '1 Test Row, Fernhollow', 52.202, 0.852, '{}', ?, ?)`,
     id,
     owner,
     now,

@@ -3,6 +3,7 @@
 // that refuses a write (to inject a fault), and a second connection. Tests never read sqlite_master, PRAGMA
 // or EXPLAIN QUERY PLAN directly; they call these.
 import { execFileSync } from "node:child_process";
+import path from "node:path";
 import Database from "better-sqlite3";
 import type { Knex } from "knex";
 import { isPg } from "@/db/dialect";
@@ -68,34 +69,37 @@ export async function refuseWrites(db: Knex, o: { name: string; table: string; e
 
 /**
  * A second connection to the test's database whose statements run synchronously, so a test
- * can change a row in the middle of a query hook, before the app's next statement is sent.
- * SQLite: better-sqlite3 on the same file. PostgreSQL: a short-lived Node process with its
- * own pg connection (a synchronous client does not exist), committed before `run` returns.
+ * can change a row in the middle of a query hook, before the app's next statement is sent,
+ * and the end-to-end tests can read rows between clicks. `?` placeholders on both engines.
+ * SQLite: better-sqlite3 on the same file. PostgreSQL: a short-lived Node process per
+ * statement (tests/helpers/sql-once.ts; a synchronous client does not exist), committed
+ * before the call returns.
  */
 export interface OtherConnection {
+  all<T = any>(sql: string, params?: unknown[]): T[];
   run(sql: string, params?: unknown[]): void;
   close(): void;
 }
 
+const ROOT = path.resolve(__dirname, "../..");
+
 export function otherConnection(env: { DATABASE_FILE: string } | { DATABASE_URL: string }): OtherConnection {
   if ("DATABASE_URL" in env) {
-    const script = `
-      const { Client } = require("pg");
-      const { url, sql, params } = JSON.parse(require("fs").readFileSync(0, "utf8"));
-      const c = new Client({ connectionString: url });
-      c.connect().then(() => c.query(sql, params)).then(() => c.end(), (e) => { console.error(e.message); process.exit(1); });`;
-    return {
-      run(sql, params = []) {
-        let i = 0;
-        const numbered = sql.replace(/\?/g, () => `$${++i}`);
-        execFileSync(process.execPath, ["-e", script], { input: JSON.stringify({ url: env.DATABASE_URL, sql: numbered, params }), stdio: ["pipe", "ignore", "inherit"] });
-      },
-      close() {},
+    const all = <T,>(sql: string, params: unknown[] = []): T[] => {
+      const out = execFileSync(process.execPath, ["--conditions=react-server", "--import", "tsx", path.join(ROOT, "tests/helpers/sql-once.ts")], {
+        cwd: ROOT,
+        input: JSON.stringify({ url: env.DATABASE_URL, sql, params }),
+        stdio: ["pipe", "pipe", "inherit"],
+        encoding: "utf8",
+      });
+      return JSON.parse(out) as T[];
     };
+    return { all, run: (sql, params) => void all(sql, params), close() {} };
   }
   const conn = new Database(env.DATABASE_FILE);
   conn.pragma("busy_timeout = 5000");
   return {
+    all: <T,>(sql: string, params: unknown[] = []) => conn.prepare(sql).all(...params) as T[],
     run(sql, params = []) {
       conn.prepare(sql).run(...params);
     },
