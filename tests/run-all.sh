@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # The whole suite: unit and integration tests on SQLite, the integration tests again on
-# PostgreSQL (each test file on a fresh database, either engine), end-to-end in Chromium, and
-# several app processes with several workers sharing one PostgreSQL database.
+# PostgreSQL (each test file on a fresh database, either engine), end-to-end in Chromium on
+# SQLite and on PostgreSQL, and several app processes with several workers sharing one
+# PostgreSQL database.
 #
 # PostgreSQL: DATABASE_URL names a server to use (a developer's own); without it a throwaway
 # PostgreSQL 15 cluster is started for the run and removed at the end (tests/postgres.sh),
@@ -23,6 +24,11 @@ DATABASE_URL="$PG_TEST_URL" NODE_ENV=test npx vitest run tests/integration
 
 echo "[test] end-to-end tests (production build, SQLite)"
 bash tests/e2e/run.sh
+
+if [ "${E2E_POSTGRES:-1}" != "0" ]; then
+  echo "[test] end-to-end tests again on PostgreSQL (the same build; E2E_POSTGRES=0 skips)"
+  DATABASE_URL="$PG_TEST_URL" E2E_SKIP_BUILD=1 bash tests/e2e/run.sh
+fi
 
 echo "[test] two app processes and two workers on one PostgreSQL database"
 DATABASE_URL="$PG_TEST_URL" NODE_ENV=test npx vitest run tests/processes
