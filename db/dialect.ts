@@ -207,7 +207,7 @@ export function matchWords(qb: Knex.QueryBuilder, index: TextIndex, words: strin
 // the prefiltering.
 
 /**
- * The immutable SQL function the index is built on (migrations/20261206_013_spatial_index):
+ * The immutable SQL function the index is built on (migrations/20261207_015_spatial_index):
  * a latitude and longitude as a point on the sphere Turf measures on (radius 6,371,008.8 m).
  */
 export const EARTH_POINT_FUNCTION = "duffbank_earth_point";

@@ -4,7 +4,7 @@ import type Stripe from "stripe";
 import { db } from "@/db/index";
 import { findPayment, paymentByStripeRef, updatePayment } from "@/db/payments";
 import type { PaymentRow } from "@/db/types";
-import { isUniqueViolation } from "@/db/write-transaction";
+import { isUniqueViolation } from "@/db/dialect";
 import { syncPayment } from "@/lib/payments/reconcile";
 import { stripe } from "@/lib/payments/stripe";
 
