@@ -2,16 +2,11 @@
 // attempts per account (10 in 15 minutes) and, more loosely, per client address (50), sign-in
 // link requests per e-mail (5 an hour) and per address (20), sign-ups per address (20 an hour).
 // A refusal is 429 `rate_limited` with Retry-After; moving the clock on lifts it.
-import os from "node:os";
-import path from "node:path";
-import fs from "node:fs";
-import knex from "knex";
 import { NextRequest } from "next/server";
 import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
 import { createUser } from "../factories";
-import { configFor } from "@/knexfile";
 import { POST as signUp } from "@/app/api/users/route";
 import { limitAuthRequest } from "@/lib/auth/auth-limits";
 import { authOptions } from "@/lib/auth/options";
@@ -133,10 +128,9 @@ describe("sign-ups", () => {
 
 describe("the counters are shared", () => {
   it("adds up hits from two connections to one database at once (as two app processes would)", async () => {
-    const file = path.join(os.tmpdir(), `duffbank-limits-${process.pid}.sqlite`);
-    const a = knex({ ...configFor("test"), connection: { filename: file } });
-    await a.migrate.latest();
-    const b = knex({ ...configFor("test"), connection: { filename: file } });
+    // Two Knex instances with connections of their own on the test's database, either engine.
+    const a = ctx.connect();
+    const b = ctx.connect();
     try {
       const now = new Date().toISOString();
       const since = new Date(Date.now() - 60_000).toISOString();
@@ -144,9 +138,9 @@ describe("the counters are shared", () => {
       expect(Math.max(...hits.map((h) => h.count))).toBe(40);
       expect((await a("rate_limits").first("count").where({ key: "shared-key" })).count).toBe(40);
     } finally {
+      await a("rate_limits").where({ key: "shared-key" }).delete();
       await a.destroy();
       await b.destroy();
-      for (const f of [file, `${file}-wal`, `${file}-shm`]) fs.rmSync(f, { force: true });
     }
   });
 

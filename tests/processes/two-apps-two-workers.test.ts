@@ -14,6 +14,7 @@ import { ensureBuild, freePort, ROOT, stop, waitFor } from "../helpers/processes
 import { createUser } from "../factories";
 import { createListing, listingQuantities } from "../reservation-factories";
 import { startSmtpFake, type SmtpFake } from "@/lib/fakes/smtp/server";
+import { startSession } from "@/lib/auth/sessions";
 
 const SECRET = "two-apps-two-workers-session-secret-not-the-demo-one";
 const GARDENERS = 200;
@@ -69,7 +70,8 @@ describe.skipIf(!process.env.DATABASE_URL)("two app processes and two workers on
   it(`holds exactly ${UNITS} of ${GARDENERS} requests and sends each confirmation once`, async () => {
     const listing = await createListing({ quantity_total: UNITS, auto_accept: true });
     const gardeners = await Promise.all(Array.from({ length: GARDENERS }, () => createUser({ roles: ["gardener"] })));
-    const cookies = await Promise.all(gardeners.map(async (g) => `next-auth.session-token=${await encode({ token: { uid: g.id, sub: g.id }, secret: SECRET })}`));
+    // Signed in as each would be: a session row, named in a cookie signed with the apps' secret.
+    const cookies = await Promise.all(gardeners.map(async (g) => `next-auth.session-token=${await encode({ token: { uid: g.id, sub: g.id, sid: await startSession(g.id) }, secret: SECRET })}`));
 
     const answers = await Promise.all(
       gardeners.map(async (g, i) => {
