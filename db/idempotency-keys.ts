@@ -1,5 +1,5 @@
 import { db, type Db } from "./index";
-import { isUniqueViolation } from "./write-transaction";
+import { isUniqueViolation } from "./dialect";
 
 // The first answer to a request sent with an Idempotency-Key, per person and key, kept for a
 // day (lib/api/idempotency.ts). A row is "running" while its first request is being served.
