@@ -18,12 +18,15 @@ import pg from "pg";
 
 export type Engine = "sqlite" | "pg";
 
-type HasClient = { client: { config: { client?: unknown } } };
+type HasClient = { client: { dialect?: unknown; config: { client?: unknown } } };
 
-/** The engine behind a Knex instance, transaction or query builder. */
+/**
+ * The engine behind a Knex instance, transaction or query builder: by the client's dialect
+ * name, which also holds when the client is a class (db/sqlite-client.ts), not a name.
+ */
 export function engineOf(q: HasClient): Engine {
-  const client = q.client.config.client;
-  return client === "pg" || client === "postgres" || client === "postgresql" ? "pg" : "sqlite";
+  const name = q.client.dialect ?? q.client.config.client;
+  return name === "postgresql" || name === "pg" || name === "postgres" ? "pg" : "sqlite";
 }
 
 export const isPg = (q: HasClient): boolean => engineOf(q) === "pg";
@@ -100,7 +103,7 @@ function sqliteKind(code: string, message: string): ErrorKind | null {
   if (code === "SQLITE_CONSTRAINT_NOTNULL") return "not_null";
   if (code.startsWith("SQLITE_BUSY") || code.startsWith("SQLITE_LOCKED") || /database is locked/.test(message)) return "busy";
   if (code.startsWith("SQLITE_READONLY") || /attempt to write a readonly database/.test(message)) return "read_only";
-  if (/The database connection is not open/.test(message) || code === "SQLITE_IOERR" || code.startsWith("SQLITE_IOERR_")) return "connection";
+  if (/database connection is not open/.test(message) || code.startsWith("SQLITE_IOERR") || code.startsWith("SQLITE_CANTOPEN")) return "connection";
   return null;
 }
 

@@ -1,6 +1,7 @@
 import { createRequire } from "node:module";
 import path from "node:path";
 import type Client_BetterSQLite3Type from "knex/lib/dialects/better-sqlite3";
+import { errorKind } from "./dialect";
 
 // Loaded from node_modules when the process runs, never bundled: knex is an external package
 // of the Next.js server, and bundling this one file of it would drag in every other dialect.
@@ -16,13 +17,13 @@ const Client_BetterSQLite3 = runtimeRequire(["knex", "lib", "dialects", "better-
 // Knex's pool drops a connection whose __knex__disposed is set, the same mark its PostgreSQL
 // client puts on a connection that errored.
 
-const REPLACE = /^SQLITE_(READONLY|CANTOPEN|IOERR)/;
-
-/** Whether an error from better-sqlite3 means this connection will not recover by itself. */
+/**
+ * Whether an error from better-sqlite3 means this connection will not recover by itself:
+ * storage gone read-only, unopenable or failing, or the handle closed (db/dialect.ts says which).
+ */
 export function isBrokenSqliteConnection(err: unknown): boolean {
-  const e = err as { code?: unknown; message?: unknown };
-  if (typeof e?.code === "string" && REPLACE.test(e.code)) return true;
-  return err instanceof TypeError && /database connection is not open/.test(String(e.message));
+  const kind = errorKind(err);
+  return kind === "read_only" || kind === "connection";
 }
 
 export class ResilientSqliteClient extends Client_BetterSQLite3 {
