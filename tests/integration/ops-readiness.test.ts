@@ -44,7 +44,7 @@ afterAll(async () => {
 
 const check = async () => call(ready, await request("/api/health/ready"));
 const startWorker = async () => {
-  worker = startWorkerProcess({ DATABASE_FILE: ctx.file, SMTP_PORT: String(smtp.smtpPort) });
+  worker = startWorkerProcess({ ...ctx.env, SMTP_PORT: String(smtp.smtpPort) });
   await waitFor(async () => (await ctx.db("heartbeats").where({ kind: "worker" })).length > 0, 30_000, "the worker's first heartbeat");
 };
 

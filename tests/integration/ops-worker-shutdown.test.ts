@@ -43,7 +43,7 @@ describe("SIGTERM to a worker mid-batch", () => {
   it("delivers every message exactly once within a minute, across the stop and the next worker", async () => {
     const subjects = Array.from({ length: 40 }, (_, i) => `Deploy ${String(i).padStart(2, "0")}`);
     for (const subject of subjects) await enqueueEmail({ to: "deploy@example.test", subject, text: "x", template: "test", dedupe_key: subject });
-    const env = { DATABASE_FILE: ctx.file, SMTP_PORT: String((smtp.server.address() as AddressInfo).port) };
+    const env = { ...ctx.env, SMTP_PORT: String((smtp.server.address() as AddressInfo).port) };
     const started = Date.now();
 
     const first = startWorkerProcess(env);

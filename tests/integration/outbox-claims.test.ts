@@ -11,6 +11,7 @@ import { promisify } from "node:util";
 import { SMTPServer } from "smtp-server";
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
+import { refuseWrites } from "../helpers/engine";
 import { startSilentServer } from "../helpers/ports";
 import { startSmtpFake, type SmtpFake } from "@/lib/fakes/smtp/server";
 import { resetMailTransport, SMTP_TIMEOUTS } from "@/lib/mail/transport";
@@ -120,14 +121,14 @@ describe("recording a send", () => {
   it("retries a failed mark as a mark: the accepted message is never handed to SMTP again", async () => {
     await queue(1, "Marked later");
     // The database refuses the "sent" mark (a read-only or full disk for a moment).
-    await ctx.db.raw("CREATE TRIGGER refuse_mark BEFORE UPDATE OF status ON email_outbox WHEN NEW.status = 'sent' BEGIN SELECT RAISE(ABORT, 'disk I/O error'); END");
+    const allowMark = await refuseWrites(ctx.db, { name: "refuse_mark", table: "email_outbox", event: "UPDATE", when: "NEW.status = 'sent'", message: "disk I/O error" });
     const t0 = new Date();
     expect(await deliverOutbox(() => t0)).toEqual({ sent: 1, failed: 0 });
     expect(smtp.messages).toHaveLength(1);
     expect(messagesInFlight()).toHaveLength(1);
     // Still refused: the next runs try the mark only, and send nothing else meanwhile.
     expect(await deliverOutbox(() => new Date(t0.getTime() + 2000))).toEqual({ sent: 0, failed: 0 });
-    await ctx.db.raw("DROP TRIGGER refuse_mark");
+    await allowMark();
     // Later than the claim would last: the mark still comes first, and nothing is sent twice.
     expect(await deliverOutbox(() => new Date(t0.getTime() + CLAIM_MS + 5000))).toEqual({ sent: 0, failed: 0 });
     expect(smtp.messages).toHaveLength(1);
