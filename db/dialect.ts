@@ -8,8 +8,8 @@
 // - what an error means (`errorKind`): a unique or foreign-key violation, a busy database,
 //   a serialisation failure or deadlock worth running the transaction again, a read-only
 //   database, a lost connection;
-// - row locks (`lockForUpdate`, `claimBatch`): real locks on PostgreSQL, nothing on SQLite,
-//   where a write transaction already holds the whole database;
+// - row locks (`lockForUpdate`, `claimBatch`, `lockRows`): real locks on PostgreSQL, nothing
+//   on SQLite, where a write transaction already holds the whole database;
 // - byte-wise text order (`byteOrder`), so a sort never depends on the server's collation;
 // - the per-engine pieces of full-text search (`matchWords`) and of the spatial index
 //   (`EARTH_POINT_FUNCTION`, `nearBox`).
