@@ -2,6 +2,8 @@
 // runs (tests/helpers/reserve-load.ts, one process each), the figures a copy is judged by,
 // and the judgement: whole transactions only, taken between the live counts before and after.
 import { spawn } from "node:child_process";
+import fs from "node:fs";
+import os from "node:os";
 import path from "node:path";
 import { expect } from "vitest";
 
@@ -18,13 +20,26 @@ export const FIGURE_SQL = {
 
 export type Figures = Record<keyof typeof FIGURE_SQL, number>;
 
-/** One writer process per gardener, reserving one unit at a time until `until`, on the database `env` names. */
-export function startWriters(listingId: string, gardenerIds: string[], until: number, env: Record<string, string>): Promise<{ held: number }[]> {
-  return Promise.all(
+export interface Writers {
+  /** Resolves once every writer has held `atLeast` in all, rejects if a writer fails first. */
+  started(countNow: () => Promise<number> | number, atLeast: number): Promise<void>;
+  /** Tells the writers to stop after their current reservation, and waits for their tallies. */
+  stop(): Promise<{ held: number }[]>;
+}
+
+/**
+ * One writer process per gardener, reserving one unit at a time on the database `env` names,
+ * until told to stop. They stop on a file's appearing rather than at a time fixed before
+ * they start, so a slow start on a busy machine cannot leave them no time to write.
+ */
+export function startWriters(listingId: string, gardenerIds: string[], env: Record<string, string>): Writers {
+  const stopFile = path.join(os.tmpdir(), `duffbank-writers-${process.pid}-${Date.now()}-${Math.random().toString(36).slice(2)}`);
+  let failure: Error | null = null;
+  const done = Promise.all(
     gardenerIds.map(
       (id) =>
         new Promise<{ held: number }>((resolve, reject) => {
-          const child = spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", "tests/helpers/reserve-load.ts", listingId, id, String(until)], {
+          const child = spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", "tests/helpers/reserve-load.ts", listingId, id, stopFile], {
             cwd: ROOT,
             env: { ...process.env, NODE_ENV: "test", ...env },
           });
@@ -35,6 +50,23 @@ export function startWriters(listingId: string, gardenerIds: string[], until: nu
         }),
     ),
   );
+  done.catch((err: Error) => (failure = err));
+  return {
+    async started(countNow, atLeast) {
+      while ((await countNow()) < atLeast) {
+        if (failure) throw failure;
+        await new Promise((r) => setTimeout(r, 100));
+      }
+    },
+    async stop() {
+      fs.writeFileSync(stopFile, "");
+      try {
+        return await done;
+      } finally {
+        fs.rmSync(stopFile, { force: true });
+      }
+    },
+  };
 }
 
 /** A copy taken while the writers wrote: between the live counts, and whole transactions only. */
