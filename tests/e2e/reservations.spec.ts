@@ -219,6 +219,9 @@ test("a no-show keeps the deposit", async ({ browser, request }) => {
 });
 
 test("200 parallel reservations of 1 through the HTTP API hold exactly 50 of 50", async ({ browser }) => {
+  // 200 requests and 50 cancellations, each a locked write: on a loaded two-core machine
+  // (PostgreSQL's run especially) this takes longer than the default minute.
+  test.setTimeout(180_000);
   const owner = sql<{ id: string }>("select id from users where email = 'cycles@duffbank.test'")[0].id;
   const id = randomUUID();
   const now = new Date().toISOString();
