@@ -3,9 +3,11 @@ import { allowedMethods } from "@/lib/api/route-table";
 import { ERROR_STATUS, type ErrorCode } from "@/lib/api/errors";
 import { contentSecurityPolicy, newNonce, securityHeaders } from "@/lib/security/headers";
 import { STATE_CHANGING, isCrossSite } from "@/lib/security/origin";
+import { canonicalRedirect } from "@/lib/security/canonical";
 
-// In front of every route: the security headers and a fresh script nonce for each page,
-// and, for the API, the checks that need no handler: cross-site writes (403), bodies over
+// In front of every route: a page asked for on another host name than the public one is sent
+// there first (lib/security/canonical.ts), the security headers and a fresh script nonce for
+// each page, and, for the API, the checks that need no handler: cross-site writes (403), bodies over
 // 1 MB (413, before anything reads them), unknown paths (404) and wrong methods (405 with
 // Allow), each with the error envelope. next-auth's routes keep their own CSRF token and the
 // Stripe webhook its signature, so neither is asked for an Origin.
@@ -51,7 +53,13 @@ export function proxy(req: NextRequest): NextResponse {
   if (isApi) {
     const refusal = apiRefusal(req);
     if (refusal) return withHeaders(refusal, policy);
-  } else if (STATE_CHANGING.has(req.method.toUpperCase()) && isCrossSite(req.headers)) {
+  } else {
+    const canonical = canonicalRedirect(req.method, req.nextUrl.pathname + req.nextUrl.search, req.headers);
+    // Temporary (307), so a browser never keeps a redirect that a later change of APP_URL would
+    // turn into a loop.
+    if (canonical) return withHeaders(NextResponse.redirect(canonical, 307), policy);
+  }
+  if (!isApi && STATE_CHANGING.has(req.method.toUpperCase()) && isCrossSite(req.headers)) {
     // Pages take no writes of their own (no server actions); refuse any from another site.
     return withHeaders(envelope("forbidden", "This request came from another site, so it was refused."), policy);
   }

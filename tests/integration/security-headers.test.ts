@@ -1,8 +1,11 @@
 // The headers proxy.ts puts on every page and API answer (lib/security/headers.ts).
 import { NextRequest } from "next/server";
-import { afterEach, describe, expect, it, vi } from "vitest";
+import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
 import { proxy } from "@/proxy";
 
+// The requests below are addressed to the app's own public host (pages on another host name
+// are redirected first: tests/integration/canonical-host.test.ts).
+beforeEach(() => vi.stubEnv("APP_URL", "http://127.0.0.1:3000"));
 afterEach(() => vi.unstubAllEnvs());
 
 function get(path: string, method = "GET") {
