@@ -137,7 +137,7 @@ export async function heldDueToExpire(now: string, limit = 50, q: Db = db()): Pr
  */
 export async function dueForNotice(
   status: "held" | "confirmed",
-  timeColumn: "hold_expires_at" | "pickup_at" | "pickup_by",
+  timeColumn: "hold_expires_at" | "answer_remind_at" | "pickup_at" | "pickup_by",
   marker: "expiry_warned_at" | "pickup_reminded_at",
   after: string,
   until: string,
@@ -151,6 +151,10 @@ export async function dueForNotice(
     .andWhere(timeColumn, ">", after)
     .andWhere(timeColumn, "<=", until)
     .limit(limit);
+  // The end of a checkout's hold warns the gardener; a request waiting for the supplier is
+  // reminded half-way through its answer window instead (answer_remind_at).
+  if (timeColumn === "hold_expires_at") rows.where("payment_state", "awaiting");
+  if (timeColumn === "answer_remind_at") rows.whereNot("payment_state", "awaiting");
   // The deadline of a pickup with no fixed time; posted cultures have no pickup at all.
   if (timeColumn === "pickup_by") rows.whereNull("pickup_at").andWhere((b) => b.whereNull("fulfilment").orWhereNot("fulfilment", "post"));
   return rows;

@@ -150,6 +150,8 @@ export interface ReservationRow {
   closed_at: string | null;
   cancelled_by: "gardener" | "supplier" | null;
   expiry_warned_at: string | null;
+  /** A request waiting for the supplier: when the half-way reminder is due (lib/reservations/policy.ts). */
+  answer_remind_at: string | null;
   pickup_reminded_at: string | null;
   /** Live cultures only: collected or posted (lib/reservations/culture-orders.ts). */
   fulfilment: "pickup" | "post" | null;

@@ -8,10 +8,10 @@ import { reserveOneSchema } from "@/lib/validation/reservations";
 import { isApiError, submitOnce } from "@/lib/api/client";
 import { useSubmitKeys } from "@/components/ui/use-submit-keys";
 import { formatMoney, priceFor } from "@/lib/payments/money";
-import { quantityLabel, WHOLE_UNITS } from "@/lib/reservations/labels";
+import { quantityLabel, quantityLimitProblem, WHOLE_UNITS } from "@/lib/reservations/labels";
 import { equivalentOf } from "@/lib/reservations/equivalents";
 import { formatLocal } from "@/lib/reservations/pickup-times";
-import { CANCEL_NOTICE_HOURS, SUPPLIER_REPLY_HOURS } from "@/lib/reservations/policy";
+import { CANCEL_NOTICE_HOURS } from "@/lib/reservations/policy";
 import type { UnitSystem } from "@/lib/calc/units";
 import type { ReserveOffer } from "@/lib/services/load-reserve-offer";
 import { Field, TextAreaField } from "@/components/ui/field";
@@ -24,6 +24,26 @@ type Values = z.input<typeof reserveOneSchema>;
 type Answer = { reservation: { id: string; status: string }; checkout_url?: string };
 
 const UNIT_QUESTION: Record<string, string> = { bales: "How many bales", bags: "How many bags", sheets: "How many sheets", kg: "How many kilograms", m3: "How many cubic metres", m2: "How many square metres" };
+
+/**
+ * How long the hold lasts and who moves next, with the deadline the supplier would have to
+ * answer by for the chosen pickup (lib/reservations/policy.ts, worked out on the server).
+ */
+function holdSentence(offer: ReserveOffer, windowId: string | null, posted: boolean): string {
+  const name = offer.supplier.name;
+  const answerBy = windowId ? offer.windows.find((w) => w.id === windowId)?.answer_by : offer.answer_by_no_window;
+  const after = posted ? "then you are e-mailed when it is packed and posted, with the tracking." : "then you get the address and your pickup code by e-mail.";
+  if (offer.waits_for === "checkout") {
+    const answer = offer.auto_accept
+      ? `This listing accepts at once: ${posted ? "you are e-mailed when it is packed and when it is posted, with the tracking." : "you get the address and your pickup code by e-mail."}`
+      : `Once you have paid, ${name} has until ${answerBy ? formatLocal(answerBy) : "the pickup"} at the latest to accept (always before your pickup starts); ${after}`;
+    return `We hold it for ${offer.hold_minutes} minutes while you pay. ${answer}`;
+  }
+  if (offer.waits_for === "answer") {
+    return `We hold it for you while ${name} decides: they have until ${answerBy ? formatLocal(answerBy) : "the pickup"} to accept (always before your pickup starts), and are reminded half-way. When they accept, ${after.replace(/^then /, "")}`;
+  }
+  return "This listing accepts at once, and you get the address and your pickup code by e-mail.";
+}
 
 /** `cautions` are for collecting; `postedCautions`, where given, replace them while posting is chosen. */
 export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { offer: ReserveOffer; unitSystem: UnitSystem; cautions: string[]; postedCautions?: string[] }) {
@@ -49,6 +69,7 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
   const price = priceFor(offer.price_cents, Number.isFinite(quantity) ? quantity : 0);
   const equivalent = equivalentOf(offer, quantity, unitSystem);
   const limit = offer.max_per_reservation !== null ? Math.min(offer.max_per_reservation, offer.available) : offer.available;
+  const chosenWindow = useWatch({ control: form.control, name: "pickup_window_id" }) ?? null;
 
   const onSubmit = form.handleSubmit(async (values) => {
     setError(null);
@@ -63,7 +84,7 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
       return;
     }
     if (answer.checkout_url) window.location.assign(answer.checkout_url);
-    else router.push(`/reservations?new=${answer.reservation.id}#r-${answer.reservation.id}`);
+    else router.push(`/reservations/${answer.reservation.id}?new=1`);
   });
 
   const submitLabel = offer.price_cents > 0 ? `Reserve and pay ${formatMoney(price, offer.currency)}` : offer.deposit_cents > 0 ? `Reserve and place the ${formatMoney(offer.deposit_cents, offer.currency)} deposit` : "Reserve";
@@ -79,12 +100,19 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
           min={whole ? 1 : 0.01}
           step={whole ? 1 : 0.01}
           max={limit}
-          hint={`${quantityLabel(offer.available, offer.unit)} left${offer.max_per_reservation !== null ? ` · at most ${quantityLabel(offer.max_per_reservation, offer.unit)} per reservation` : ""}`}
-          {...form.register("quantity", { valueAsNumber: true })}
+          hint={`${quantityLabel(offer.available, offer.unit)} left${offer.max_per_reservation !== null && offer.max_per_reservation < offer.available ? ` · at most ${quantityLabel(offer.max_per_reservation, offer.unit)} per reservation` : ""}`}
+          {...form.register("quantity", {
+            valueAsNumber: true,
+            validate: (q) => (Number.isFinite(q) ? (quantityLimitProblem(q, offer) ?? true) : true),
+          })}
           error={form.formState.errors.quantity?.message}
           className="max-w-40"
         />
-        {equivalent ? <p className="-mt-3 text-sm text-humus-700">That is {equivalent}.</p> : null}
+        {equivalent ? (
+          <p className="text-sm text-humus-700" aria-live="polite">
+            That is {equivalent}.
+          </p>
+        ) : null}
       </div>
 
       {culture ? (
@@ -136,7 +164,10 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
               <input type="radio" value={w.id} {...form.register("pickup_window_id", { setValueAs: (v) => v || null })} className="mt-1 h-5 w-5 shrink-0" />
               <span>
                 <span className="font-medium">{w.label}</span>
-                <span className="block text-sm text-humus-600">Next: {formatLocal(w.next_start)}</span>
+                <span className="block text-sm text-humus-600">
+                  Yours: {formatLocal(w.next_start)}
+                  {w.answer_by ? ` · ${offer.supplier.name} answers by ${formatLocal(w.answer_by)}` : ""}
+                </span>
               </span>
             </label>
           ))}
@@ -169,20 +200,7 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
           ) : (
             <li>Nothing to pay. Please cancel if your plans change, so someone else can have it.</li>
           )}
-          <li>
-            {offer.price_cents > 0 || offer.deposit_cents > 0
-              ? `We hold it for ${offer.hold_minutes} minutes while you pay. `
-              : `We hold it for ${offer.hold_minutes} minutes for ${offer.supplier.name} to accept. `}
-            {posted
-              ? offer.auto_accept
-                ? "This listing accepts at once; you are e-mailed when it is packed and when it is posted, with the tracking."
-                : `Once you have paid, ${offer.supplier.name} has up to ${SUPPLIER_REPLY_HOURS} hours to accept; then you are e-mailed when it is packed and posted, with the tracking.`
-              : offer.auto_accept
-                ? "This listing accepts at once, and you get the address and your pickup code by e-mail."
-                : offer.price_cents > 0 || offer.deposit_cents > 0
-                  ? `Once you have paid, ${offer.supplier.name} has up to ${SUPPLIER_REPLY_HOURS} hours to accept; then you get the address and your pickup code.`
-                  : "When they accept, you get the address and your pickup code by e-mail."}
-          </li>
+          <li>{holdSentence(offer, posted ? null : chosenWindow, posted)}</li>
           {culture ? <li>A care sheet for the worms (bedding, temperature, feeding, when to add them to a bed) comes by e-mail when you order.</li> : null}
         </ul>
       </section>

@@ -28,3 +28,14 @@ export function moneySentence(r: { amount_cents: number; deposit_cents: number; 
   }
   return price ? `The ${money} you paid is not refunded.` : `The ${money} deposit is kept, as the listing said it would be for a no-show or a late cancellation.`;
 }
+
+/**
+ * Why `quantity` cannot be reserved, or null: the tighter of what is left and the listing's
+ * cap per reservation speaks, so nobody is told "at most 10" when 8 are left.
+ */
+export function quantityLimitProblem(quantity: number, l: { available: number; max_per_reservation: number | null; unit: string }): string | null {
+  const cap = l.max_per_reservation;
+  if (cap !== null && cap < l.available) return quantity > cap + 1e-9 ? `At most ${quantityLabel(cap, l.unit)} per reservation on this listing.` : null;
+  if (quantity > l.available + 1e-9) return l.available > 0 ? `Only ${quantityLabel(l.available, l.unit)} left.` : "Nothing is left.";
+  return null;
+}

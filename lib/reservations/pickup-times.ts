@@ -65,24 +65,31 @@ export function zonedTime(year: number, month: number, day: number, hhmm: string
   return new Date(second);
 }
 
-/** The next time the window is open that has not ended by `now`; null for a dated window in the past. */
-export function nextOccurrence(w: PickupWindow, now: Date, tz = PICKUP_TIME_ZONE): { start: Date; end: Date } | null {
+/**
+ * The next time the window is open that has not ended by `now`; null for a dated window in the
+ * past. With `notBefore`, the first opening that starts at or after it instead (a request the
+ * supplier must answer first): the next week's for a weekly window, null for a dated one.
+ */
+export function nextOccurrence(w: PickupWindow, now: Date, tz = PICKUP_TIME_ZONE, notBefore: Date | null = null): { start: Date; end: Date } | null {
+  const fits = (start: Date, end: Date) => (notBefore ? start >= notBefore : end > now);
   if (w.kind === "dated") {
     if (!w.starts_at || !w.ends_at) return null;
     const start = wallClockToInstant(w.starts_at, tz);
     const end = wallClockToInstant(w.ends_at, tz);
-    return end > now ? { start, end } : null;
+    return fits(start, end) ? { start, end } : null;
   }
   if (w.weekday === null || !w.start_time || !w.end_time) return null;
   const today = localParts(now, tz);
-  for (let d = 0; d <= 7; d++) {
+  // A week and a day covers any opening at least as late as notBefore when that is within a day.
+  const days = notBefore ? 7 + Math.ceil(Math.max(0, notBefore.getTime() - now.getTime()) / 86_400_000) : 7;
+  for (let d = 0; d <= days; d++) {
     // Noon UTC of the local date d days on: safely inside that calendar day in any zone near Europe.
     const probe = new Date(Date.UTC(today.year, today.month - 1, today.day + d, 12));
     const day = { y: probe.getUTCFullYear(), m: probe.getUTCMonth() + 1, d: probe.getUTCDate() };
     if (probe.getUTCDay() !== w.weekday) continue;
     const start = zonedTime(day.y, day.m, day.d, w.start_time, tz);
     const end = zonedTime(day.y, day.m, day.d, w.end_time, tz);
-    if (end > now) return { start, end };
+    if (fits(start, end)) return { start, end };
   }
   return null;
 }

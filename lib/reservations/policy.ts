@@ -3,13 +3,16 @@
 // handlers and the tests all read the same rules.
 //
 // The rule for "confirmed":
-//   1. Every new reservation is `held` for HOLD_MINUTES (hold_expires_at).
+//   1. Every new reservation is `held` (hold_expires_at). How long follows what it waits for
+//      (holdFor below): the gardener's checkout gets HOLD_MINUTES; a request waiting for the
+//      supplier's answer gets SUPPLIER_REPLY_HOURS, cut short so it always ends when the
+//      chosen pickup starts: no supplier is asked to answer after the pickup time.
 //   2. The gardener's step: nothing for a free listing without a deposit; paying for a
 //      priced listing; authorising the deposit of a free listing with one. Only a Stripe
 //      webhook completes this step, never the browser coming back from checkout.
 //   3. Once the gardener's step is done, an auto-accept listing confirms at once. Otherwise
-//      the supplier accepts (or declines); a gardener who has paid or put down a deposit
-//      has committed, so the hold is extended to SUPPLIER_REPLY_HOURS for that answer.
+//      the supplier accepts (or declines) within the answer window, which starts then; the
+//      supplier is reminded half-way through it.
 //   4. A hold that runs out expires: the quantity returns, an open checkout is closed, and
 //      any money taken is returned in full.
 // A priced listing takes its price only; deposits apply to free listings.
@@ -20,8 +23,12 @@ export function holdMinutes(env: Record<string, string | undefined> = process.en
   const n = Number(env.HOLD_MINUTES);
   return Number.isFinite(n) && n > 0 ? n : DEFAULT_HOLD_MINUTES;
 }
-// How long a supplier has to answer once the gardener has paid (common practice, no source).
+// How long a supplier has to answer a request, at most (common practice, no source): two days
+// covers a weekend away from e-mail without leaving a gardener waiting for a week.
 export const SUPPLIER_REPLY_HOURS = 48;
+// The least time a request leaves the supplier to answer before the pickup starts (common
+// practice, no source): a pickup window that starts sooner is too soon to ask for.
+export const MIN_ANSWER_MINUTES = 60;
 // Cancelling at least this long before the pickup window starts is "timely": a deposit is
 // released and a payment refunded in full (common practice, no source).
 export const CANCEL_NOTICE_HOURS = 24;
@@ -31,6 +38,53 @@ export const EXPIRY_WARNING_MINUTES = 10;
 export const PICKUP_REMINDER_HOURS = 24;
 // Messages: at most this many per person per reservation in the window (anti-spam).
 export const MESSAGE_LIMIT = { count: 5, windowMinutes: 10 } as const;
+
+/** What a held reservation waits for: the gardener's checkout, or the supplier's answer. */
+export type HoldWait = "checkout" | "answer";
+
+/** What a new reservation waits for, or null when it is confirmed at once (nothing to pay, auto-accept). */
+export function holdWaitFor(r: { owes: boolean; autoAccept: boolean }): HoldWait | null {
+  if (r.owes) return "checkout";
+  return r.autoAccept ? null : "answer";
+}
+
+const HOUR_MS = 3_600_000;
+
+/**
+ * When the supplier has to answer a request asked at `askedAt`: SUPPLIER_REPLY_HOURS later,
+ * or when the pickup starts (`pickupStart`: the chosen window's start, or the last day to
+ * collect when no time was fixed), whichever comes first.
+ */
+export function answerDeadline(askedAt: Date, pickupStart: Date | string | null): Date {
+  const full = askedAt.getTime() + SUPPLIER_REPLY_HOURS * HOUR_MS;
+  const start = pickupStart === null ? Infinity : new Date(pickupStart).getTime();
+  return new Date(Math.max(askedAt.getTime(), Math.min(full, start)));
+}
+
+/** Half-way through the answer window: when the supplier is reminded. */
+export function answerReminderAt(askedAt: Date, deadline: Date): Date {
+  return new Date(askedAt.getTime() + (deadline.getTime() - askedAt.getTime()) / 2);
+}
+
+/**
+ * The hold of a new reservation: until when, and when to remind the supplier (answer holds
+ * only). `pickupStart` as for answerDeadline.
+ */
+export function holdFor(wait: HoldWait, now: Date, pickupStart: Date | string | null, minutes = holdMinutes()): { hold_expires_at: string; answer_remind_at: string | null } {
+  if (wait === "checkout") return { hold_expires_at: new Date(now.getTime() + minutes * 60_000).toISOString(), answer_remind_at: null };
+  const deadline = answerDeadline(now, pickupStart);
+  return { hold_expires_at: deadline.toISOString(), answer_remind_at: answerReminderAt(now, deadline).toISOString() };
+}
+
+/**
+ * The earliest a chosen pickup may start for a new reservation: a request the supplier must
+ * answer leaves them MIN_ANSWER_MINUTES, after the checkout's hold when there is one to pay.
+ * Null when any window that has not ended will do (nothing to answer).
+ */
+export function earliestPickupStart(now: Date, r: { owes: boolean; autoAccept: boolean }, minutes = holdMinutes()): Date | null {
+  if (r.autoAccept) return null;
+  return new Date(now.getTime() + (r.owes ? minutes * 60_000 : 0) + MIN_ANSWER_MINUTES * 60_000);
+}
 
 export const RESERVATION_STATUSES = ["held", "confirmed", "collected", "declined", "cancelled", "expired", "no_show"] as const;
 export type ReservationStatus = (typeof RESERVATION_STATUSES)[number];

@@ -63,13 +63,14 @@ async function runOwedPayments(job: string, id: string, owed: string[], clock: C
   }
 }
 
-type Notice = { status: "held" | "confirmed"; time: "hold_expires_at" | "pickup_at" | "pickup_by"; marker: "expiry_warned_at" | "pickup_reminded_at"; aheadMs: number };
+type Notice = { status: "held" | "confirmed"; time: "hold_expires_at" | "answer_remind_at" | "pickup_at" | "pickup_by"; marker: "expiry_warned_at" | "pickup_reminded_at"; aheadMs: number; since?: "now" | "any" };
 
 /** Sends one kind of notice to every reservation due for it, each once: the marker column is claimed first. */
 async function sendNotices(q: Knex, n: Notice, now: Date, send: (trx: Knex.Transaction, r: ReservationRow) => Promise<void>): Promise<number> {
   const at = now.toISOString();
   let sent = 0;
-  for (const r of await dueForNotice(n.status, n.time, n.marker, at, new Date(now.getTime() + n.aheadMs).toISOString(), 100, q)) {
+  const after = n.since === "any" ? new Date(0).toISOString() : at;
+  for (const r of await dueForNotice(n.status, n.time, n.marker, after, new Date(now.getTime() + n.aheadMs).toISOString(), 100, q)) {
     try {
       const claimed = await writeTransaction(q, async (trx) => {
         const won = await trx("reservations").where({ id: r.id, status: n.status }).whereNull(n.marker).update({ [n.marker]: at });
@@ -85,13 +86,20 @@ async function sendNotices(q: Knex, n: Notice, now: Date, send: (trx: Knex.Trans
   return sent;
 }
 
-/** "Your hold ends soon" and "pickup tomorrow", each sent once (marker column + dedupe key). */
+/**
+ * "Your hold ends soon" (the gardener, before a checkout's hold ends), "waiting for your
+ * answer" (the supplier, half-way through a request's answer window) and "pickup tomorrow",
+ * each sent once (marker column + dedupe key).
+ */
 export async function sendReservationReminders(clock: Clock = () => new Date(), q: Knex = db()): Promise<{ warned: number; reminded: number }> {
   const now = clock();
-  const warned = await sendNotices(q, { status: "held", time: "hold_expires_at", marker: "expiry_warned_at", aheadMs: EXPIRY_WARNING_MINUTES * 60_000 }, now, async (trx, r) => {
-    // Whoever has the next move hears about it: the gardener to pay, or the supplier to answer.
-    await mailReservation(trx, "expiring", (await reservationContext(r.id, trx))!, [r.payment_state === "awaiting" ? "gardener" : "supplier"], {}, r.hold_expires_at ?? "");
-  });
+  const expiring = (to: "gardener" | "supplier") => async (trx: Knex.Transaction, r: ReservationRow) => {
+    await mailReservation(trx, "expiring", (await reservationContext(r.id, trx))!, [to], {}, r.hold_expires_at ?? "");
+  };
+  const warned =
+    (await sendNotices(q, { status: "held", time: "hold_expires_at", marker: "expiry_warned_at", aheadMs: EXPIRY_WARNING_MINUTES * 60_000 }, now, expiring("gardener"))) +
+    // Reminders whose half-way point has passed are still sent (a worker that was down catches up).
+    (await sendNotices(q, { status: "held", time: "answer_remind_at", marker: "expiry_warned_at", aheadMs: 0, since: "any" }, now, expiring("supplier")));
   const remind = async (trx: Knex.Transaction, r: ReservationRow) => {
     const ctx = (await reservationContext(r.id, trx))!;
     await mailReservation(trx, "reminder", ctx, ctx.gardener.reminders_opt_out ? ["supplier"] : ["gardener", "supplier"]);

@@ -10,7 +10,7 @@ import { mailReservation } from "@/lib/mail/reservation-mail";
 import { mailCultureOrder } from "@/lib/mail/culture-order-mail";
 import { newPickupCode } from "@/lib/reservations/pickup-code";
 import { nextOccurrence } from "@/lib/reservations/pickup-times";
-import { NO_WINDOW_PICKUP_DAYS, SUPPLIER_REPLY_HOURS, type ReservationStatus } from "@/lib/reservations/policy";
+import { MIN_ANSWER_MINUTES, NO_WINDOW_PICKUP_DAYS, holdFor, type ReservationStatus } from "@/lib/reservations/policy";
 
 // The building blocks every reservation change is made of, each run inside the caller's
 // transaction: a guarded status change, the quantity it moves, the money it settles, the
@@ -24,9 +24,12 @@ export class StaleState extends Error {
   }
 }
 
-/** When the pickup is: the chosen window's next opening, or a week to arrange one. */
-export function pickupTimes(window: PickupWindowRow | null, now: Date): { pickup_at: string | null; pickup_by: string } {
-  const occ = window ? nextOccurrence(window, now) : null;
+/**
+ * When the pickup is: the chosen window's next opening (the first to start at or after
+ * `notBefore` when the supplier has to answer first), or a week to arrange one.
+ */
+export function pickupTimes(window: PickupWindowRow | null, now: Date, notBefore: Date | null = null): { pickup_at: string | null; pickup_by: string } {
+  const occ = window ? nextOccurrence(window, now, undefined, notBefore) : null;
   if (occ) return { pickup_at: occ.start.toISOString(), pickup_by: occ.end.toISOString() };
   return { pickup_at: null, pickup_by: new Date(now.getTime() + NO_WINDOW_PICKUP_DAYS * 86_400_000).toISOString() };
 }
@@ -126,8 +129,13 @@ export async function gardenerStepDone(trx: Trx, reservationId: string, state: "
       await confirmReservation(trx, paid, null, now, `${note}; the listing accepts automatically`);
       return [];
     }
-    const holdUntil = new Date(now.getTime() + SUPPLIER_REPLY_HOURS * 3_600_000).toISOString();
-    await trx("reservations").where({ id: r.id }).update({ hold_expires_at: holdUntil, expiry_warned_at: null });
+    // The supplier's answer window starts now and ends before the pickup does. A weekly
+    // window whose opening is too close by now (a checkout paid late) moves to a later week.
+    const soon = new Date(now.getTime() + MIN_ANSWER_MINUTES * 60_000);
+    const later = r.pickup_at && ctx.window && new Date(r.pickup_at) < soon ? pickupTimes(ctx.window, now, soon) : null;
+    const moved = later?.pickup_at ? later : null;
+    const hold = holdFor("answer", now, moved?.pickup_at ?? r.pickup_at ?? r.pickup_by);
+    await trx("reservations").where({ id: r.id }).update({ ...(moved ?? {}), ...hold, expiry_warned_at: null });
     await recordReservationEvent({ reservation_id: r.id, from_status: "held", to_status: "held", actor_id: null, note, created_at: now.toISOString() }, trx);
     await mailReservation(trx, "requested", (await reservationContext(r.id, trx))!, ["supplier", "gardener"]);
     return [];

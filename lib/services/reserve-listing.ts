@@ -10,8 +10,8 @@ import { ApiError, type FieldErrors } from "@/lib/api/errors";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { openCheckouts } from "@/lib/payments/checkout";
 import { MIN_CARD_CHARGE_CENTS, depositFor, formatMoney, priceFor } from "@/lib/payments/money";
-import { WHOLE_UNITS, quantityLabel } from "@/lib/reservations/labels";
-import { holdMinutes } from "@/lib/reservations/policy";
+import { WHOLE_UNITS, quantityLabel, quantityLimitProblem } from "@/lib/reservations/labels";
+import { earliestPickupStart, holdFor, holdWaitFor } from "@/lib/reservations/policy";
 import { datesState } from "@/lib/listings/status";
 import { formatDay } from "@/lib/listings/format";
 import { nextOccurrence } from "@/lib/reservations/pickup-times";
@@ -51,8 +51,13 @@ type Checked = {
   amount: number;
   deposit: number;
   window: Awaited<ReturnType<typeof pickupWindowsOf>>[number] | null;
+  /** The earliest the pickup may start: the supplier must have time to answer first. */
+  notBefore: Date | null;
   fulfilment: Fulfilment | null;
 };
+
+/** What is left to reserve: whole pieces of sheets, bags and bales. */
+const leftOf = (l: ListingForReservation) => (WHOLE_UNITS.has(l.unit) ? Math.floor(availableOf(l) + 1e-9) : availableOf(l));
 
 function qualityOf(l: ListingForReservation): Record<string, unknown> {
   try {
@@ -111,8 +116,9 @@ async function check(input: ReserveInput, q: Knex, now: Date): Promise<Checked[]
       fields[`${f}quantity`] = `Reserve whole ${listing.unit}.`;
     } else if (Math.abs(item.quantity * 100 - Math.round(item.quantity * 100)) > 1e-6) {
       fields[`${f}quantity`] = "Use at most two decimals.";
-    } else if (listing.max_per_reservation !== null && item.quantity > listing.max_per_reservation + 1e-9) {
-      fields[`${f}quantity`] = `At most ${quantityLabel(listing.max_per_reservation, listing.unit)} per reservation on this listing.`;
+    } else if (listing.max_per_reservation !== null && item.quantity > listing.max_per_reservation + 1e-9 && listing.max_per_reservation < leftOf(listing)) {
+      // Only when the cap is the tighter limit: past what is left, the hold below answers 409.
+      fields[`${f}quantity`] = quantityLimitProblem(item.quantity, { available: leftOf(listing), max_per_reservation: listing.max_per_reservation, unit: listing.unit })!;
     }
     const amount = priceFor(listing.price_cents, item.quantity);
     const deposit = depositFor(listing.price_cents, listing.deposit_cents);
@@ -121,14 +127,19 @@ async function check(input: ReserveInput, q: Knex, now: Date): Promise<Checked[]
     if (charge > 0 && min && charge < min && !fields[`${f}quantity`]) {
       fields[`${f}quantity`] = `Card payments start at ${formatMoney(min, listing.currency)}; reserve a little more.`;
     }
+    // A request the supplier must answer is never made for a pickup that starts before they could.
+    const notBefore = earliestPickupStart(now, { owes: charge > 0, autoAccept: Boolean(listing.auto_accept) });
     let window = null;
     if (item.pickup_window_id) {
       window = windows.find((w) => w.id === item.pickup_window_id && w.listing_id === listing.id) ?? null;
       if (!window) fields[`${f}pickup_window_id`] = "Choose one of this listing's pickup windows.";
       else if (!nextOccurrence(window, now)) fields[`${f}pickup_window_id`] = "That pickup window is over; choose another.";
+      else if (!nextOccurrence(window, now, undefined, notBefore)) {
+        fields[`${f}pickup_window_id`] = "That pickup window starts too soon for the supplier to answer first; choose a later one.";
+      }
     }
     const fulfilment = await fulfilmentFor(item, listing, f, fields, q);
-    out.push({ item, listing, amount, deposit, window, fulfilment });
+    out.push({ item, listing, amount, deposit, window, notBefore, fulfilment });
   }
   if (input.bed_id) {
     const bed = await q("beds").first("id").where({ id: input.bed_id, owner_id: input.gardenerId });
@@ -144,7 +155,6 @@ export async function reserveListings(input: ReserveInput, deps: ReserveDeps = {
   const now = clock();
   const checked = await check(input, q, now);
   const groupId = input.items.length > 1 ? newId() : null;
-  const holdUntil = new Date(now.getTime() + holdMinutes() * 60_000).toISOString();
   const at = now.toISOString();
 
   const created = await writeTransaction(q, async (trx) => {
@@ -156,10 +166,16 @@ export async function reserveListings(input: ReserveInput, deps: ReserveDeps = {
         const fresh = (await listingsForReservation([c.listing.id], trx))[0];
         // "gone" is what the listings' trigger calls an active listing with nothing left.
         if (fresh.status !== "active" && fresh.status !== "gone") throw new ApiError("invalid_state", `“${fresh.title}” is not taking reservations right now.`);
-        const left = WHOLE_UNITS.has(fresh.unit) ? Math.floor(availableOf(fresh) + 1e-9) : availableOf(fresh);
-        throw new ApiError("insufficient_quantity", left > 0 ? `Only ${quantityLabel(left, fresh.unit)} of “${fresh.title}” is left.` : `Nothing of “${fresh.title}” is left.`);
+        const left = leftOf(fresh);
+        const message = left > 0 ? `Only ${quantityLabel(left, fresh.unit)} of “${fresh.title}” is left.` : `Nothing of “${fresh.title}” is left.`;
+        // Named on the item's quantity too, so a form (or a plan's stop) shows it where it belongs.
+        throw new ApiError("insufficient_quantity", message, { [`${input.fieldPrefix(checked.indexOf(c))}quantity`]: message });
       }
       const owes = c.amount > 0 || c.deposit > 0;
+      const times = pickupTimes(c.window, now, c.notBefore);
+      // A checkout keeps the short hold; a request waits for the supplier's answer until
+      // before the pickup starts; an auto-accept listing is confirmed below at once.
+      const hold = holdFor(holdWaitFor({ owes, autoAccept: Boolean(c.listing.auto_accept) }) ?? "checkout", now, times.pickup_at ?? times.pickup_by);
       const row: ReservationRow = {
         id: newId(),
         listing_id: c.listing.id,
@@ -170,9 +186,9 @@ export async function reserveListings(input: ReserveInput, deps: ReserveDeps = {
         quantity: c.item.quantity,
         status: "held",
         payment_state: owes ? "awaiting" : "none",
-        hold_expires_at: holdUntil,
+        ...hold,
         pickup_code: null,
-        ...pickupTimes(c.window, now),
+        ...times,
         amount_cents: c.amount,
         deposit_cents: c.deposit,
         currency: c.listing.currency,

@@ -30,10 +30,11 @@ describe("POST /api/reservations (one listing)", () => {
     const r = res.json.reservation;
     expect(r).toMatchObject({ status: "held", listing_id: l.id, quantity: 3 });
     expect(typeof r.id).toBe("string");
-    // Default hold: 30 minutes.
+    // A free request waits for the supplier's answer: SUPPLIER_REPLY_HOURS (48 h), well
+    // before the week a pickup with no fixed time leaves (tests/integration/reservations-answer-windows.test.ts).
     const holdMs = new Date(r.hold_expires_at).getTime() - before;
-    expect(holdMs).toBeGreaterThan(29.9 * 60_000);
-    expect(holdMs).toBeLessThan(30.1 * 60_000);
+    expect(holdMs).toBeGreaterThan(47.9 * 3_600_000);
+    expect(holdMs).toBeLessThan(48.1 * 3_600_000);
     expect(res.json.checkout_url).toBeUndefined();
     expect(await listingQuantities(l.id)).toMatchObject({ quantity_held: 3, quantity_collected: 0 });
     // Not confirmed: no address, no pickup code, no supplier e-mail.

@@ -9,7 +9,7 @@ import { createListing, listingQuantities } from "../reservation-factories";
 import { POST as reserve } from "@/app/api/reservations/route";
 import { POST as confirm } from "@/app/api/reservations/[id]/confirm/route";
 import { expireHolds, sendReservationReminders } from "@/lib/services/expire-holds";
-import { DEFAULT_HOLD_MINUTES } from "@/lib/reservations/policy";
+import { DEFAULT_HOLD_MINUTES, SUPPLIER_REPLY_HOURS } from "@/lib/reservations/policy";
 import { deliverOutbox } from "@/lib/mail/deliver-outbox";
 import { startSmtpFake, type SmtpFake } from "@/lib/fakes/smtp/server";
 import { resetMailTransport } from "@/lib/mail/transport";
@@ -26,6 +26,7 @@ beforeAll(async () => {
 afterAll(() => ctx.close());
 
 const minutes = (n: number) => n * 60_000;
+const hours = (n: number) => n * 3_600_000;
 async function holdOne(listingId: string, quantity = 1, extra: Record<string, unknown> = {}) {
   const res = await call(reserve, await request("/api/reservations", { body: { listing_id: listingId, quantity, ...extra }, as: gardener.id }));
   expect(res.status).toBe(201);
@@ -33,21 +34,23 @@ async function holdOne(listingId: string, quantity = 1, extra: Record<string, un
 }
 
 describe("hold expiry", () => {
-  it("expires a hold after 30 minutes, not before, and gives the quantity back", async () => {
-    expect(DEFAULT_HOLD_MINUTES).toBe(30);
+  it("expires an unanswered request after the supplier's 48 hours, not before, and gives the quantity back", async () => {
+    expect(SUPPLIER_REPLY_HOURS).toBe(48);
     const l = await createListing({ quantity_total: 5 });
     const r = await holdOne(l.id, 3);
     const t0 = new Date(r.created_at).getTime();
-    expect(await expireHolds(() => new Date(t0 + minutes(29)))).toEqual({ expired: 0 });
+    // Not after the 30 minutes a checkout gets: a free request waits for its supplier.
+    expect(await expireHolds(() => new Date(t0 + minutes(DEFAULT_HOLD_MINUTES + 1)))).toEqual({ expired: 0 });
+    expect(await expireHolds(() => new Date(t0 + hours(47.9)))).toEqual({ expired: 0 });
     expect((await listingQuantities(l.id)).quantity_held).toBe(3);
-    expect(await expireHolds(() => new Date(t0 + minutes(30) + 1000))).toEqual({ expired: 1 });
+    expect(await expireHolds(() => new Date(t0 + hours(48) + 1000))).toEqual({ expired: 1 });
     expect((await listingQuantities(l.id)).quantity_held).toBe(0);
     const row = await db()("reservations").first("status", "closed_at").where({ id: r.id });
     expect(row.status).toBe("expired");
     const history = await db()("reservation_events").where({ reservation_id: r.id }).orderBy("id").pluck("to_status");
     expect(history).toEqual(["held", "expired"]);
     // Run again (a restarted worker): nothing more happens.
-    expect(await expireHolds(() => new Date(t0 + minutes(60)))).toEqual({ expired: 0 });
+    expect(await expireHolds(() => new Date(t0 + hours(60)))).toEqual({ expired: 0 });
     expect((await listingQuantities(l.id)).quantity_held).toBe(0);
     const mail = await db()("email_outbox").where({ template: "reservation.expired" }).andWhere("dedupe_key", "like", `res:${r.id}:%`);
     // Nothing was owed, so the supplier was the one to act: both hear it ran out.
@@ -72,15 +75,19 @@ describe("hold expiry", () => {
 });
 
 describe("reminders", () => {
-  it("warns the supplier once, ten minutes before an unanswered hold runs out", async () => {
+  it("reminds the supplier once, half-way through the time they have to answer", async () => {
     const l = await createListing({ quantity_total: 5 });
     const r = await holdOne(l.id);
+    const t0 = new Date(r.created_at).getTime();
     const end = new Date(r.hold_expires_at).getTime();
-    expect((await sendReservationReminders(() => new Date(end - minutes(15)))).warned).toBe(0);
-    expect((await sendReservationReminders(() => new Date(end - minutes(9)))).warned).toBe(1);
-    expect((await sendReservationReminders(() => new Date(end - minutes(5)))).warned).toBe(0);
-    const mail = await db()("email_outbox").where({ dedupe_key: `res:${r.id}:expiring:supplier:${r.hold_expires_at}` });
-    expect(mail).toHaveLength(1);
+    expect(end - t0).toBeCloseTo(hours(48), -4);
+    expect((await sendReservationReminders(() => new Date(t0 + hours(23.5)))).warned).toBe(0);
+    expect((await sendReservationReminders(() => new Date(t0 + hours(24.1)))).warned).toBe(1);
+    // Once: not again later, nor ten minutes before the end as a checkout's hold would be.
+    expect((await sendReservationReminders(() => new Date(t0 + hours(30)))).warned).toBe(0);
+    expect((await sendReservationReminders(() => new Date(end - minutes(9)))).warned).toBe(0);
+    const mail = await db()("email_outbox").where("dedupe_key", "like", `res:${r.id}:expiring:%`);
+    expect(mail.map((m: any) => m.dedupe_key)).toEqual([`res:${r.id}:expiring:supplier:${r.hold_expires_at}`]);
     expect(mail[0].subject).toContain("Waiting for your answer");
   });
 

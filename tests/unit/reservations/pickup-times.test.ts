@@ -60,3 +60,19 @@ describe("pickup codes", () => {
     expect(pickupCodeMatches("K7M2QX", "K7M2Q")).toBe(false);
   });
 });
+
+describe("openings late enough to answer first", () => {
+  const w = { id: "w", kind: "weekly" as const, weekday: 6, start_time: "09:00", end_time: "12:00", starts_at: null, ends_at: null };
+  it("skips to next week's opening when this week's starts too soon", () => {
+    const now = new Date("2026-12-05T08:30:00Z"); // Saturday 08:30 in London
+    expect(nextOccurrence(w, now, "Europe/London")!.start.toISOString()).toBe("2026-12-05T09:00:00.000Z");
+    expect(nextOccurrence(w, now, "Europe/London", new Date("2026-12-05T09:30:00Z"))!.start.toISOString()).toBe("2026-12-12T09:00:00.000Z");
+    // An opening already under way is not offered to a request that must wait for an answer.
+    expect(nextOccurrence(w, new Date("2026-12-05T10:00:00Z"), "Europe/London", new Date("2026-12-05T11:00:00Z"))!.start.toISOString()).toBe("2026-12-12T09:00:00.000Z");
+  });
+  it("has no later opening for a dated window that starts too soon", () => {
+    const d = { id: "d", kind: "dated" as const, weekday: null, start_time: null, end_time: null, starts_at: "2026-12-12T10:00:00.000Z", ends_at: "2026-12-12T12:00:00.000Z" };
+    expect(nextOccurrence(d, new Date("2026-12-12T09:30:00Z"), "Europe/London", new Date("2026-12-12T10:30:00Z"))).toBeNull();
+    expect(nextOccurrence(d, new Date("2026-12-12T08:00:00Z"), "Europe/London", new Date("2026-12-12T09:00:00Z"))).not.toBeNull();
+  });
+});

@@ -1,5 +1,17 @@
 import { describe, expect, it } from "vitest";
-import { allowedActions, blockedReason, cancellationIsTimely, holdMinutes } from "@/lib/reservations/policy";
+import {
+  MIN_ANSWER_MINUTES,
+  SUPPLIER_REPLY_HOURS,
+  allowedActions,
+  answerDeadline,
+  answerReminderAt,
+  blockedReason,
+  cancellationIsTimely,
+  earliestPickupStart,
+  holdFor,
+  holdMinutes,
+  holdWaitFor,
+} from "@/lib/reservations/policy";
 import { moneySentence, quantityLabel } from "@/lib/reservations/labels";
 import { priceFor } from "@/lib/payments/money";
 
@@ -56,5 +68,39 @@ describe("labels and money", () => {
     expect(moneySentence(deposit, "kept")).toContain("€2.00 deposit is kept");
     expect(moneySentence({ ...deposit, payment_state: "awaiting" }, "returned")).toContain("Nothing was paid");
     expect(moneySentence({ amount_cents: 0, deposit_cents: 0, currency: "eur", payment_state: "none" }, "returned")).toBeNull();
+  });
+});
+
+describe("answer windows and holds", () => {
+  const at = new Date("2026-12-01T12:00:00Z");
+  const h = (n: number) => new Date(at.getTime() + n * 3_600_000);
+
+  it("gives the supplier 48 hours, cut short at the pickup's start", () => {
+    expect(answerDeadline(at, null)).toEqual(h(SUPPLIER_REPLY_HOURS));
+    expect(answerDeadline(at, h(72))).toEqual(h(48));
+    expect(answerDeadline(at, h(10))).toEqual(h(10));
+    expect(answerDeadline(at, h(10).toISOString())).toEqual(h(10));
+    // Never before it was asked, whatever the pickup says.
+    expect(answerDeadline(at, h(-2))).toEqual(at);
+  });
+
+  it("reminds half-way through the window", () => {
+    expect(answerReminderAt(at, h(48))).toEqual(h(24));
+    expect(answerReminderAt(at, h(10))).toEqual(h(5));
+  });
+
+  it("keeps the checkout's hold short and waits for an answer only where one is needed", () => {
+    expect(holdWaitFor({ owes: true, autoAccept: false })).toBe("checkout");
+    expect(holdWaitFor({ owes: true, autoAccept: true })).toBe("checkout");
+    expect(holdWaitFor({ owes: false, autoAccept: false })).toBe("answer");
+    expect(holdWaitFor({ owes: false, autoAccept: true })).toBeNull();
+    expect(holdFor("checkout", at, h(10), 30)).toEqual({ hold_expires_at: new Date(at.getTime() + 30 * 60_000).toISOString(), answer_remind_at: null });
+    expect(holdFor("answer", at, h(10))).toEqual({ hold_expires_at: h(10).toISOString(), answer_remind_at: h(5).toISOString() });
+  });
+
+  it("asks for a pickup late enough to pay and answer first", () => {
+    expect(earliestPickupStart(at, { owes: false, autoAccept: true })).toBeNull();
+    expect(earliestPickupStart(at, { owes: false, autoAccept: false })).toEqual(new Date(at.getTime() + MIN_ANSWER_MINUTES * 60_000));
+    expect(earliestPickupStart(at, { owes: true, autoAccept: false }, 30)).toEqual(new Date(at.getTime() + (30 + MIN_ANSWER_MINUTES) * 60_000));
   });
 });
