@@ -44,7 +44,7 @@ async function subjectOf(payment: PaymentRow, q: Db): Promise<CheckoutSubject | 
       reference: r.id,
       description: deposit ? `Duffbank deposit for reservation ${r.id}` : `Duffbank reservation ${r.id}`,
       successUrl: `${appUrl()}/reservations/paid?session_id={CHECKOUT_SESSION_ID}`,
-      cancelUrl: `${appUrl()}/reservations?checkout=cancelled#r-${r.id}`,
+      cancelUrl: `${appUrl()}/reservations/${r.id}?checkout=cancelled`,
     };
   }
   const b = await q("giveaway_bookings as b")

@@ -4,20 +4,10 @@ import { pageUser } from "@/lib/auth/page-guard";
 import { listReservations } from "@/lib/services/list-reservations";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button-class";
-import { Notice } from "@/components/ui/notice";
+import { ArrivalNotice } from "@/components/reservations/arrival-notice";
 import { ReservationCard } from "@/components/reservations/reservation-card";
-import type { ReservationView } from "@/lib/reservations/view";
 
 export const metadata: Metadata = { title: "My reservations" };
-
-/** What the page says on arrival from reserving, as things stand for that reservation. */
-function createdNotice(v: ReservationView | undefined) {
-  if (!v) return null;
-  if (v.payment.checkout === "not_opened") return <Notice tone="caution" title="Held — payment not opened yet">{v.payment.notice}</Notice>;
-  if (v.can_pay) return <Notice title="Held for you">Pay from the reservation below to complete it; the supplier hears about it once the payment is through.</Notice>;
-  if (v.status === "confirmed") return <Notice title="Reserved and accepted">The listing accepts at once: the address and your pickup code are below and on their way by e-mail.</Notice>;
-  return <Notice title="Reserved">We have told the supplier. You will get an e-mail at each step.</Notice>;
-}
 
 export default async function MyReservationsPage({ searchParams }: { searchParams: Promise<{ checkout?: string; new?: string }> }) {
   const user = await pageUser("/reservations", ["gardener"]);
@@ -29,10 +19,7 @@ export default async function MyReservationsPage({ searchParams }: { searchParam
     <div className="mx-auto max-w-3xl">
       <PageHeading title="My reservations" lead="What you are collecting, when and where, your pickup codes, and your messages with the people giving it." />
       <div className="mb-6 flex flex-col gap-3 empty:hidden">
-        {checkout === "cancelled" ? (
-          <Notice title="You left the payment page">Nothing was charged. The hold stays for now: pay from the reservation below, or cancel it so the material goes back.</Notice>
-        ) : null}
-        {createdNotice(views.find((v) => v.id === created))}
+        <ArrivalNotice v={views.find((v) => v.id === created)} created={!!created} cancelled={checkout === "cancelled"} />
       </div>
       {views.length === 0 ? (
         <EmptyState title="No reservations yet" action={<Link className={buttonClass()} href="/beds">Find material for a bed</Link>}>

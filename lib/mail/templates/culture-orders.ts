@@ -82,7 +82,7 @@ function parts(kind: CultureMailKind, i: CultureMailInput): { subject: string; b
   const { r, to } = i;
   const what = whatLabel(r);
   // The grower works through orders on the dashboard; reviews live on Requests.
-  const link = to === "gardener" ? `${appUrl()}/reservations#r-${r.id}` : kind === "delivered" ? `${appUrl()}/requests#r-${r.id}` : `${appUrl()}/grower#o-${r.id}`;
+  const link = to === "gardener" || kind === "delivered" ? `${appUrl()}/reservations/${r.id}` : `${appUrl()}/grower#o-${r.id}`;
   const action = (label: string) => ({ label, url: link });
   const lines = (...xs: (string | null | undefined)[]) => xs.filter((x): x is string => !!x);
   switch (kind) {

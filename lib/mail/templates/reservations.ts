@@ -31,7 +31,8 @@ export interface MailExtra {
   message?: { author: string; body: string };
 }
 
-const link = (r: ReservationContext, to: Audience) => `${appUrl()}/${to === "gardener" ? "reservations" : "requests"}#r-${r.id}`;
+// One page per reservation serves both sides, however long their lists grow.
+const link = (r: ReservationContext, _to: Audience) => `${appUrl()}/reservations/${r.id}`;
 
 function whenLine(r: ReservationContext): string {
   // A posted live culture has no pickup: say where it goes (lib/mail/templates/culture-orders.ts has its other e-mails).
