@@ -14,6 +14,7 @@ import * as operations from "../migrations/20261207_013_operations";
 import * as exactQuantities from "../migrations/20261207_014_exact_quantities";
 import * as spatialIndex from "../migrations/20261207_015_spatial_index";
 import * as answerWindows from "../migrations/20261209_030_answer_windows";
+import * as places from "../migrations/20261209_031_places";
 
 // Migrations are listed here rather than found on disk so that the same list runs under
 // the CLI script, Vitest and the bundled Next.js server alike. Add new ones at the end.
@@ -33,6 +34,7 @@ const migrations: Record<string, Knex.Migration> = {
   "20261207_014_exact_quantities": exactQuantities,
   "20261207_015_spatial_index": spatialIndex,
   "20261209_030_answer_windows": answerWindows,
+  "20261209_031_places": places,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

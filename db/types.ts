@@ -12,8 +12,22 @@ export interface UserRow {
   reminders_opt_out: boolean | 0 | 1;
   suspended_at: string | null;
   verified_at: string | null;
+  /** Where this gardener plans from when a bed has no place of its own (private). */
+  home_place: string | null;
+  home_lat: number | null;
+  home_lng: number | null;
   created_at: string;
   updated_at: string;
+}
+
+export interface PlaceRow {
+  id: string;
+  kind: "town" | "village" | "postcode" | "street" | "landmark";
+  name: string;
+  context: string | null;
+  lat: number;
+  lng: number;
+  created_at: string;
 }
 
 export interface UserRoleRow {

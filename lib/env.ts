@@ -54,6 +54,9 @@ const schema = z.object({
   // "0": serve pages on whatever host name reaches the server, instead of sending them to
   // the host of APP_URL (lib/security/canonical.ts); for a proxy that cannot pass the Host on.
   CANONICAL_HOST_REDIRECT: z.preprocess((v) => (typeof v === "string" ? v.trim() : v), z.enum(["", "0", "1", "true", "false"]).optional()).transform((v) => v !== "0" && v !== "false"),
+  // A geocoding service that speaks Photon's HTTP API (GET /api?q=…, /reverse?lat=…&lon=…),
+  // asked after the local gazetteer (lib/geo/geocoder.ts); unset: the gazetteer only.
+  GEOCODER_URL: optional.pipe(z.url({ protocol: /^https?$/, error: "must be an http(s) URL, like https://photon.example.org" }).optional()),
   // How long a request waits for Stripe, in ms (lib/payments/stripe.ts).
   STRIPE_TIMEOUT_MS: optional.pipe(z.string().regex(/^[1-9]\d*$/, "must be a whole number of milliseconds, like 5000").transform(Number).optional()),
 });

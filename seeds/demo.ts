@@ -7,6 +7,8 @@ import { seedId } from "./ids";
 import { seedCommunity } from "./community";
 import { seedPastPickups } from "./exchanges";
 import { hashPassword } from "../lib/auth/password";
+import { addPlaces } from "../db/places";
+import { gazetteerEntries } from "./gazetteer";
 
 // The demo scenario. Idempotent: every row has a fixed id and is written with
 // "insert or ignore", so a second run changes nothing, and rows people made while trying
@@ -137,10 +139,14 @@ export async function seed(knex: Knex): Promise<Record<string, number>> {
       .ignore();
     await seedCommunity(trx);
     await seedPastPickups(trx);
+    await addPlaces(gazetteerEntries(), CREATED, trx);
+    // The demo gardener plans from home when a bed has no place of its own.
+    const home = gazetteerEntries().find((p) => p.name === "Orchard Rise")!;
+    await trx("users").where({ id: seedId("user:gardener") }).whereNull("home_place").update({ home_place: `${home.name}, ${home.context}`, home_lat: home.lat, home_lng: home.lng });
   });
 
   const counts: Record<string, number> = {};
-  for (const table of ["materials", "organisations", "users", "user_roles", "memberships", "listings", "pickup_windows", "beds", "reservations", "reviews"]) {
+  for (const table of ["materials", "organisations", "users", "user_roles", "memberships", "listings", "pickup_windows", "beds", "reservations", "reviews", "places"]) {
     const [{ n }] = await knex(table).count({ n: "*" });
     counts[table] = Number(n);
   }

@@ -31,6 +31,7 @@ import { auditQuerySchema, closeReportSchema, listingModerationSchema, reportQue
 import { diversionQuerySchema } from "@/lib/validation/reports";
 import { cultureSchema, orderStepSchema, shipOrderSchema, shippingSchema } from "@/lib/validation/grower";
 import { matchSchema } from "@/lib/validation/match";
+import { nearestPlaceResponseSchema, nearestPlaceSchema, placeSearchResponseSchema, placeSearchSchema } from "@/lib/validation/places";
 
 export interface RouteDoc {
   method: "get" | "post" | "patch" | "put" | "delete";
@@ -70,6 +71,8 @@ export const API_ROUTES: RouteDoc[] = [
   { method: "patch", path: "/api/me", summary: "Update name, units, reminders and requested roles", tag: "accounts", auth: "signed-in", body: profileSchema, errors: [400, 401, 422] },
   { method: "get", path: "/api/council/members", summary: "Staff of my council", tag: "councils", auth: ["council"], errors: [401, 403] },
   { method: "get", path: "/api/moderation/role-requests", summary: "Roles waiting for a decision", tag: "moderation", auth: ["moderator"], errors: [401, 403] },
+  { method: "get", path: "/api/places", summary: "Places, streets and postcodes whose name starts with q, best first, each with its point: the local gazetteer, then the geocoding service when one is set", tag: "places", auth: "public", query: placeSearchSchema, response: placeSearchResponseSchema, errors: [422] },
+  { method: "get", path: "/api/places/nearest", summary: "A name for a point (the nearest known place), for \"use where I am\"", tag: "places", auth: "public", query: nearestPlaceSchema, response: nearestPlaceResponseSchema, errors: [422] },
   { method: "get", path: "/api/listings", summary: "Active listings with quantity left, nearest first around a point (approximate locations)", tag: "listings", auth: "public", query: browseQuerySchema, response: browseResponseSchema, errors: [422] },
   { method: "post", path: "/api/listings", summary: "Post a listing (with verified photo uploads)", tag: "listings", auth: ["supplier", "grower", "council"], body: createListingSchema, status: 201, errors: [400, 401, 403, 422] },
   { method: "get", path: "/api/listings/{id}", summary: "One listing; the exact pickup point and address only to those who manage it", tag: "listings", auth: "public", errors: [404] },

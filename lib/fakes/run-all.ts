@@ -1,6 +1,6 @@
 // Starts every local fake the app talks to in development, `npm start` and the e2e run:
 // the SMTP catcher with its inbox, the Stripe-compatible API with its hosted payment page,
-// and the Cloudinary-compatible upload and delivery server. Ports come from the
+// the Cloudinary-compatible upload and delivery server, and the Photon-compatible geocoder. Ports come from the
 // environment so tests and a second checkout can pick others.
 import "../env-files";
 import path from "node:path";
@@ -10,6 +10,7 @@ import { startStripeFake } from "./stripe/server";
 import { stripeDataFile } from "./stripe/state";
 import { startCloudinaryFake } from "./cloudinary/server";
 import { parseFakeEnv } from "./cloudinary/config";
+import { startGeocoderFake } from "./geocoder/server";
 
 async function main() {
   checkStartup("fakes");
@@ -42,11 +43,14 @@ async function main() {
   });
   console.log(`[fakes] Cloudinary at ${cloudinary.url} (cloud "${photos.cloudName}")`);
 
+  const geocoder = await startGeocoderFake({ port: Number(process.env.GEOCODER_FAKE_PORT ?? 12113) });
+  console.log(`[fakes] geocoder (Photon API) at ${geocoder.url}; the app asks it when GEOCODER_URL points there`);
+
   let closing = false;
   const stop = async () => {
     if (closing) return;
     closing = true;
-    await Promise.allSettled([smtp.close(), stripe.close(), cloudinary.close()]);
+    await Promise.allSettled([smtp.close(), stripe.close(), cloudinary.close(), geocoder.close()]);
     process.exit(0);
   };
   process.on("SIGINT", stop);

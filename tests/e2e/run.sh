@@ -16,12 +16,14 @@ fi
 export CHROMIUM_PATH="$CHROMIUM"
 
 # Free ports for this run, so a dev server on the usual ones does not get in the way.
-read -r E2E_PORT SMTP_PORT INBOX_PORT STRIPE_FAKE_PORT CLOUDINARY_FAKE_PORT < <(node -e '
+read -r E2E_PORT SMTP_PORT INBOX_PORT STRIPE_FAKE_PORT CLOUDINARY_FAKE_PORT GEOCODER_FAKE_PORT < <(node -e '
   const net = require("net");
   const one = () => new Promise((r) => { const s = net.createServer(); s.listen(0, "127.0.0.1", () => { const p = s.address().port; s.close(() => r(p)); }); });
-  (async () => { const ps = []; for (let i = 0; i < 5; i++) ps.push(await one()); console.log(ps.join(" ")); })();
+  (async () => { const ps = []; for (let i = 0; i < 6; i++) ps.push(await one()); console.log(ps.join(" ")); })();
 ')
-export E2E_PORT SMTP_PORT INBOX_PORT STRIPE_FAKE_PORT CLOUDINARY_FAKE_PORT
+export E2E_PORT SMTP_PORT INBOX_PORT STRIPE_FAKE_PORT CLOUDINARY_FAKE_PORT GEOCODER_FAKE_PORT
+# Place search asks the local Photon-compatible fake after the gazetteer, as production asks a real service.
+export GEOCODER_URL="http://127.0.0.1:$GEOCODER_FAKE_PORT"
 export E2E_DIR="${E2E_DIR:-$(mktemp -d -t duffbank-e2e-XXXXXX)}"
 export DATABASE_FILE="$E2E_DIR/e2e.sqlite"
 # With DATABASE_URL set the run is on PostgreSQL: a database of its own on that server,
