@@ -1,12 +1,12 @@
 "use client";
-import { useEffect, useState } from "react";
+import { useEffect } from "react";
 import { useRouter } from "next/navigation";
-import { useForm, useWatch, type FieldPath, type Resolver } from "react-hook-form";
+import { useForm, useWatch, type Resolver } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { Button } from "@/components/ui/button";
 import { Field, GroupError, SelectField, TextAreaField } from "@/components/ui/field";
-import { Notice } from "@/components/ui/notice";
-import { apiFetch, isApiError } from "@/lib/api/client";
+import { ErrorSummary, useErrorSummary } from "@/components/ui/error-summary";
+import { apiFetch } from "@/lib/api/client";
 import { MATERIAL_CODES, MATERIALS } from "@/lib/calc/facts";
 import type { UnitSystem } from "@/lib/calc/units";
 import { createListingSchema, defaultUnitSize, UNITS_BY_MATERIAL, type CreateListingInput } from "@/lib/validation/listings";
@@ -23,10 +23,21 @@ type Props =
   | { mode: "create"; unitSystem: UnitSystem; canSellWorms: boolean }
   | { mode: "edit"; unitSystem: UnitSystem; canSellWorms: boolean; listingId: string; initial: ListingFormState; photos: PhotoRecord[] };
 
+/** Where the summary's link for a field goes: the place search for the map point, a group's first control. */
+function listingErrorTarget(path: string): string | undefined {
+  if (path === "location" || path.startsWith("location.")) return "field-location";
+  const win = /^pickup_windows\.(\d+)/.exec(path);
+  if (win) return `pickup-window-${win[1]}-error`;
+  if (path === "pickup_windows") return "pickup-windows-error";
+  if (path === "quality.herbicide_history" || path === "quality.leaf_source") return `${path.replace(".", "-")}-error`;
+  if (path === "quality.species") return "field-species";
+  if (path === "photos" || path.startsWith("photos.")) return "photos-error";
+  return undefined;
+}
+
 export function ListingForm(props: Props) {
   const router = useRouter();
   const system = props.unitSystem;
-  const [error, setError] = useState<string | null>(null);
   // The form holds what people type, in their units; the shared schema checks the API body.
   const schemaResolver = zodResolver(createListingSchema);
   const resolver: Resolver<ListingFormState> = (values, context, options) =>
@@ -43,8 +54,10 @@ export function ListingForm(props: Props) {
     if (!units.includes(unit)) setValue("unit", units[0]);
   }, [material, unit, units, setValue]);
 
+  const summary = useErrorSummary(form, { target: listingErrorTarget });
+
   const onSubmit = form.handleSubmit(async (parsed) => {
-    setError(null);
+    summary.clear();
     const body = parsed as unknown as CreateListingInput;
     try {
       let id: string;
@@ -58,19 +71,16 @@ export function ListingForm(props: Props) {
       router.push(`/listings/${id}`);
       router.refresh();
     } catch (err) {
-      if (isApiError(err) && err.fields) {
-        for (const [key, message] of Object.entries(err.fields)) form.setError(key as FieldPath<ListingFormState>, { message });
-      }
-      setError(isApiError(err) ? err.message : "Saving failed. Please try again.");
+      summary.fail(err, "Saving failed. Please try again.");
     }
-  });
+  }, summary.invalid);
 
   const submitAs = (status: "active" | "draft") => () => setValue("status", status);
   const locationError = errors.location?.message ?? errors.location?.lat?.message ?? errors.location?.lng?.message;
 
   return (
     <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-8">
-      {error ? <Notice tone="error">{error}</Notice> : null}
+      <ErrorSummary {...summary.props} title="The listing needs another look" />
 
       <section className="flex flex-col gap-3" aria-labelledby="what-title">
         <h2 id="what-title" className="text-xl font-semibold">What you have</h2>

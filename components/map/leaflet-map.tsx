@@ -1,6 +1,7 @@
 "use client";
 import "leaflet/dist/leaflet.css";
 import { useEffect, useState } from "react";
+import type { Map as LeafletMapInstance } from "leaflet";
 import { CircleMarker, GeoJSON, MapContainer, Pane, Polygon, Polyline, TileLayer, Tooltip, useMap, useMapEvents } from "react-leaflet";
 import type { Feature, FeatureCollection } from "geojson";
 import type { PathOptions } from "leaflet";
@@ -91,10 +92,26 @@ function FitTo({ points }: { points?: { lat: number; lng: number }[] }) {
   return null;
 }
 
-export function LeafletMap({ center, zoom = 13, markers = [], polygon, line, onClick, fitTo, label, className = "h-80" }: MapProps) {
-  return (
-    <div className={`overflow-hidden rounded-lg ring-1 ring-humus-200 ${className}`} role="region" aria-label={label}>
-      <MapContainer center={[center.lat, center.lng]} zoom={zoom} minZoom={10} maxZoom={18} className="h-full w-full" style={{ background: "#f3ede4" }} attributionControl={!!TILE_URL}>
+function ViewTo({ view }: { view?: MapProps["view"] }) {
+  const map = useMap();
+  useEffect(() => {
+    if (view) map.setView([view.lat, view.lng], view.zoom ?? Math.max(map.getZoom(), 15));
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [view?.lat, view?.lng, view?.zoom]);
+  return null;
+}
+
+export function LeafletMap({ center, zoom = 13, markers = [], polygon, line, onClick, fitTo, view, centrePick, label, className = "h-80" }: MapProps) {
+  const [map, setMap] = useState<LeafletMapInstance | null>(null);
+  const box = (
+    <div className={`relative overflow-hidden rounded-lg ring-1 ring-humus-200 ${className}`} role="region" aria-label={label}>
+      {centrePick ? (
+        <span aria-hidden="true" className="pointer-events-none absolute left-1/2 top-1/2 z-[500] h-8 w-8 -translate-x-1/2 -translate-y-1/2">
+          <span className="absolute left-1/2 top-0 h-full w-0.5 -translate-x-1/2 bg-humus-900" />
+          <span className="absolute left-0 top-1/2 h-0.5 w-full -translate-y-1/2 bg-humus-900" />
+        </span>
+      ) : null}
+      <MapContainer ref={setMap} center={[center.lat, center.lng]} zoom={zoom} minZoom={10} maxZoom={18} className="h-full w-full" style={{ background: "#f3ede4" }} attributionControl={!!TILE_URL}>
         {TILE_URL ? (
           <TileLayer url={TILE_URL} attribution={process.env.NEXT_PUBLIC_TILE_ATTRIBUTION ?? ""} />
         ) : (
@@ -107,6 +124,7 @@ export function LeafletMap({ center, zoom = 13, markers = [], polygon, line, onC
         {TILE_URL ? null : <Labels />}
         <ClickCatcher onClick={onClick} />
         <FitTo points={fitTo} />
+        <ViewTo view={view} />
         {polygon && polygon.length > 0 ? (
           polygon.length > 2 ? (
             <Polygon positions={polygon.map((p) => [p.lat, p.lng])} pathOptions={{ color: "#40642e", weight: 3, fillColor: "#94b97c", fillOpacity: 0.45 }} />
@@ -140,6 +158,26 @@ export function LeafletMap({ center, zoom = 13, markers = [], polygon, line, onC
           </CircleMarker>
         ))}
       </MapContainer>
+    </div>
+  );
+  if (!centrePick) return box;
+  return (
+    <div className="flex flex-col gap-2">
+      {box}
+      <div className="flex flex-wrap items-center gap-2 text-sm">
+        <button
+          type="button"
+          className="min-h-11 rounded-lg px-3 py-2 font-medium ring-1 ring-humus-300 hover:bg-humus-100"
+          onClick={() => {
+            if (!map) return;
+            const c = map.getCenter();
+            centrePick.onPick({ lat: c.lat, lng: c.lng });
+          }}
+        >
+          {centrePick.label}
+        </button>
+        <span className="text-humus-600">Without a mouse: focus the map, move it with the arrow keys (+ and − zoom) until the cross sits on the spot.</span>
+      </div>
     </div>
   );
 }

@@ -25,6 +25,13 @@ export interface MapProps {
   onClick?: (p: LatLng) => void;
   /** Points the view should fit when they change. */
   fitTo?: LatLng[];
+  /** Where the view should go when this changes (a place found by name). */
+  view?: LatLng & { zoom?: number };
+  /**
+   * Drawing without a mouse: a cross in the middle of the map and a button that places a
+   * point there. Arrow keys move the map (once it has the focus), + and − zoom.
+   */
+  centrePick?: { label: string; onPick: (p: LatLng) => void };
   /** Accessible name of the map region. */
   label: string;
   className?: string;

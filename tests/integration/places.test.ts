@@ -21,7 +21,7 @@ beforeAll(async () => {
     // A place only the service knows, and one the gazetteer has too (left out of the answer once).
     entries: [
       { id: "x1", kind: "village", name: "Marrowby", context: null, lat: 52.31, lng: 0.99 },
-      { id: "x2", kind: "street", name: "Mill Leat Lane", context: "Fernhollow", ...gazetteerEntries().find((p) => p.name === "Mill Leat Lane")! },
+      { ...gazetteerEntries().find((p) => p.name === "Mill Leat Lane")!, id: "x2" },
     ],
   });
 });
