@@ -7,6 +7,7 @@ import { answerDeadline, earliestPickupStart, holdMinutes, holdWaitFor, NO_WINDO
 import { WHOLE_UNITS } from "@/lib/reservations/labels";
 import { datesState, effectiveStatus } from "@/lib/listings/status";
 import { cultureOffer } from "./culture-offer";
+import { depositFor } from "@/lib/payments/money";
 
 function qualityOf(text: string): Record<string, unknown> {
   try {
@@ -29,7 +30,7 @@ export async function loadReserveOffer(listingId: string, now = new Date()) {
     ratingsFor([l.owner_id]),
     cultureOffer({ material: l.material_code, owner_id: l.owner_id, quality: qualityOf(l.quality), available }, now),
   ]);
-  const deposit = l.price_cents > 0 ? 0 : l.deposit_cents;
+  const deposit = depositFor(l.price_cents, l.deposit_cents);
   const terms = { owes: l.price_cents > 0 || deposit > 0, autoAccept: Boolean(l.auto_accept) };
   // The openings this reservation would get: the first a supplier who must answer still has time for.
   const notBefore = earliestPickupStart(now, terms);
