@@ -12,6 +12,9 @@ const USER_COLUMNS: string[] = [
   "reminders_opt_out",
   "suspended_at",
   "verified_at",
+  "home_place",
+  "home_lat",
+  "home_lng",
   "created_at",
   "updated_at",
 ];
@@ -50,7 +53,7 @@ export async function insertUser(
 
 export async function updateUser(
   id: string,
-  patch: Partial<Pick<UserRow, "display_name" | "unit_system" | "reminders_opt_out" | "email_verified_at" | "suspended_at" | "verified_at">>,
+  patch: Partial<Pick<UserRow, "display_name" | "unit_system" | "reminders_opt_out" | "email_verified_at" | "suspended_at" | "verified_at" | "home_place" | "home_lat" | "home_lng">>,
   q: Db = db(),
 ): Promise<void> {
   await q("users").where({ id }).update({ ...patch, updated_at: nowIso() });

@@ -16,15 +16,23 @@ import { PlanPanel } from "./plan-panel";
 import { replaceNeed } from "./replace-need";
 import { useMatch } from "./use-match";
 import { Form } from "@/components/ui/form";
+import { PlaceSearch, type ChosenPlace } from "@/components/ui/place-search";
+import { usePointName } from "@/components/ui/use-point-name";
 
 /** "Find materials" for a saved bed: its own needs and point, a radius to try, and the plan. */
-export function BedMaterials({ bedId, bedPoint, system: defaultSystem }: { bedId: string; bedPoint: LatLng | null; system: UnitSystem }) {
+export function BedMaterials({ bedId, bedPoint, home, system: defaultSystem }: { bedId: string; bedPoint: LatLng | null; home: ChosenPlace | null; system: UnitSystem }) {
   const [system, setSystem] = useState<UnitSystem>(defaultSystem);
-  const [start, setStart] = useState<LatLng | null>(bedPoint);
+  // The plan starts at once from the bed's own place, or else from the gardener's home place.
+  const first: ChosenPlace | null = bedPoint ? { ...bedPoint, label: "The bed" } : home;
+  const [start, setStart] = useState<LatLng | null>(first);
+  const [startPlace, setStartPlace] = useState<ChosenPlace | null>(first);
+  const nameOf = usePointName();
   const [radius, setRadius] = useState(String(DEFAULT_RADIUS_KM));
   const [radiusError, setRadiusError] = useState<string | undefined>();
   const [needs, setNeeds] = useState<Need[] | null>(null);
-  const [request, setRequest] = useState<MatchRequest | null>(bedPoint ? { bed_id: bedId, radius_km: DEFAULT_RADIUS_KM } : null);
+  const [request, setRequest] = useState<MatchRequest | null>(
+    bedPoint ? { bed_id: bedId, radius_km: DEFAULT_RADIUS_KM } : home ? { bed_id: bedId, radius_km: DEFAULT_RADIUS_KM, origin: { lat: home.lat, lng: home.lng } } : null,
+  );
   const query = useMatch(request);
   const plan = query.data;
 
@@ -52,10 +60,11 @@ export function BedMaterials({ bedId, bedPoint, system: defaultSystem }: { bedId
     setNeeds(next);
     run({ needs: next });
   };
-  const pick = (p: LatLng) => {
+  const pick = async (p: LatLng, label?: string) => {
     const next = { lat: Number(p.lat.toFixed(6)), lng: Number(p.lng.toFixed(6)) };
     setStart(next);
     run({ origin: next });
+    setStartPlace({ ...next, label: label ?? (await nameOf(next, "Point on the map")) });
   };
 
   const shown = plan?.needs ?? needs ?? [];
@@ -99,7 +108,8 @@ export function BedMaterials({ bedId, bedPoint, system: defaultSystem }: { bedId
             {query.isFetching ? "Finding…" : "Find materials"}
           </Button>
         </Form>
-        {!bedPoint ? <Notice tone="caution">This bed has no location yet: tap the map where you will start from.</Notice> : null}
+        <PlaceSearch label="Start from" name="origin" hint={bedPoint ? "The bed's own place, unless you start from somewhere else." : "This bed has no place of its own yet: a street, village or postcode."} value={startPlace} onChange={(p) => void pick(p, p.label)} />
+        {!bedPoint && !home ? <Notice tone="caution">This bed has no place yet: find where you start from above, or tap the map.</Notice> : null}
       </aside>
       <PlanPanel title="Pickup plan" query={query} origin={origin} system={system} onSystem={setSystem} onPick={pick} onWiden={widen} onSubstitute={substitute} bedId={bedId} />
     </div>

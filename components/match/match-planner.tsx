@@ -14,21 +14,38 @@ import { NeedsForm } from "./needs-form";
 import { PlanPanel } from "./plan-panel";
 import { replaceNeed } from "./replace-need";
 import { useMatch } from "./use-match";
+import type { ChosenPlace } from "@/components/ui/place-search";
+import { usePointName } from "@/components/ui/use-point-name";
 
 const finite = (x: unknown): x is number => typeof x === "number" && Number.isFinite(x);
 
 /** The public planner: needs from the URL or the form, a start point picked on the map, and the plan. */
-export function MatchPlanner({ initial, run, system: defaultSystem, skipped }: { initial: MatchRequest; run: boolean; system: UnitSystem; skipped: number }) {
+export function MatchPlanner({
+  initial,
+  run,
+  system: defaultSystem,
+  skipped,
+  startLabel,
+}: {
+  initial: MatchRequest;
+  run: boolean;
+  system: UnitSystem;
+  skipped: number;
+  /** What the start in `initial` is called ("Orchard Rise, Fernhollow"); null when none was given. */
+  startLabel: string | null;
+}) {
   const router = useRouter();
   const pathname = usePathname();
   const [system, setSystem] = useState<UnitSystem>(defaultSystem);
   const [request, setRequest] = useState<MatchRequest | null>(null);
+  const [place, setPlace] = useState<ChosenPlace | null>(startLabel && initial.origin ? { ...initial.origin, label: startLabel } : null);
+  const nameOf = usePointName();
   const form = useForm<MatchRequest, unknown, MatchInput>({ resolver: zodResolver(matchSchema), defaultValues: initial, mode: "onSubmit" });
   const query = useMatch(request);
 
   const submit = form.handleSubmit((v) => {
     const next = { needs: v.needs, origin: v.origin, radius_km: v.radius_km };
-    const params = new URLSearchParams({ lat: String(v.origin!.lat), lng: String(v.origin!.lng), radius_km: String(v.radius_km), needs: needsToParam(v.needs ?? []) });
+    const params = new URLSearchParams({ lat: String(v.origin!.lat), lng: String(v.origin!.lng), radius_km: String(v.radius_km), needs: needsToParam(v.needs ?? []), ...(place ? { place: place.label } : {}) });
     router.replace(`${pathname}?${params}`, { scroll: false });
     setRequest(next);
   });
@@ -42,9 +59,10 @@ export function MatchPlanner({ initial, run, system: defaultSystem, skipped }: {
   const watched = useWatch({ control: form.control, name: "origin" });
   const origin = watched && finite(watched.lat) && finite(watched.lng) ? { lat: watched.lat, lng: watched.lng } : DEFAULT_CENTER;
 
-  const pick = (p: { lat: number; lng: number }) => {
-    form.setValue("origin.lat", Number(p.lat.toFixed(6)), { shouldValidate: form.formState.isSubmitted });
-    form.setValue("origin.lng", Number(p.lng.toFixed(6)), { shouldValidate: form.formState.isSubmitted });
+  const pick = async (p: { lat: number; lng: number }) => {
+    const point = { lat: Number(p.lat.toFixed(6)), lng: Number(p.lng.toFixed(6)) };
+    form.setValue("origin", point, { shouldValidate: form.formState.isSubmitted });
+    setPlace({ ...point, label: await nameOf(point, "Point on the map") });
   };
   const widen = (km: number) => {
     form.setValue("radius_km", km);
@@ -63,7 +81,7 @@ export function MatchPlanner({ initial, run, system: defaultSystem, skipped }: {
             <Notice tone="caution">{skipped === 1 ? "One need in the link could not be read and was left out." : `${skipped} needs in the link could not be read and were left out.`}</Notice>
           </div>
         ) : null}
-        <NeedsForm form={form} system={system} onSubmit={submit} busy={query.isFetching} />
+        <NeedsForm form={form} system={system} onSubmit={submit} busy={query.isFetching} place={place} onPlace={setPlace} />
       </aside>
       <PlanPanel
         title="Your pickup plan"
@@ -77,7 +95,7 @@ export function MatchPlanner({ initial, run, system: defaultSystem, skipped }: {
         empty={
           request ? null : (
             <EmptyState title="Tell us what the bed needs">
-              Add each material and how much of it, set where you start from (or tap the map), and we will find the nearby listings that cover it with the fewest, shortest, cheapest pickups.
+              Add each material and how much of it, say where you start from (a street, village or postcode, or tap the map), and we will find the nearby listings that cover it with the fewest, shortest, cheapest pickups.
             </EmptyState>
           )
         }

@@ -10,6 +10,7 @@ import { NEED_UNIT_LABEL, NEED_UNITS } from "@/lib/match/units";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Form } from "@/components/ui/form";
+import { PlaceSearch, type ChosenPlace } from "@/components/ui/place-search";
 
 /** The form holds what POST /api/match takes, checked by the same schema. */
 export type NeedsFormValues = MatchRequest;
@@ -18,16 +19,30 @@ export type NeedsFormApi = UseFormReturn<MatchRequest, unknown, MatchInput>;
 const selectClass = "min-h-11 rounded-lg border border-humus-300 bg-white px-2 py-2";
 
 /** The needs, the start point and the radius, as one form; the map beside it moves the start. */
-export function NeedsForm({ form, system, onSubmit, busy }: { form: NeedsFormApi; system: UnitSystem; onSubmit: () => void; busy: boolean }) {
+export function NeedsForm({
+  form,
+  system,
+  onSubmit,
+  busy,
+  place,
+  onPlace,
+}: {
+  form: NeedsFormApi;
+  system: UnitSystem;
+  onSubmit: () => void;
+  busy: boolean;
+  /** The start, in words (the map marks it too). */
+  place: ChosenPlace | null;
+  onPlace: (p: ChosenPlace) => void;
+}) {
   const { fields, append, remove } = useFieldArray({ control: form.control, name: "needs" });
   const errors = form.formState.errors;
   const needs = form.watch("needs") ?? [];
 
-  const locateMe = () =>
-    navigator.geolocation?.getCurrentPosition((pos) => {
-      form.setValue("origin.lat", Number(pos.coords.latitude.toFixed(6)), { shouldValidate: true });
-      form.setValue("origin.lng", Number(pos.coords.longitude.toFixed(6)), { shouldValidate: true });
-    });
+  const setStart = (p: ChosenPlace) => {
+    onPlace(p);
+    form.setValue("origin", { lat: p.lat, lng: p.lng }, { shouldValidate: form.formState.isSubmitted });
+  };
 
   return (
     <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label="What the bed needs">
@@ -107,16 +122,14 @@ export function NeedsForm({ form, system, onSubmit, busy }: { form: NeedsFormApi
         ) : null}
       </fieldset>
 
-      <fieldset className="flex flex-col gap-2">
-        <legend className="mb-1 text-lg font-semibold">Where you start</legend>
-        <div className="grid grid-cols-2 gap-2">
-          <Field label="Latitude" type="number" step="any" inputMode="decimal" {...form.register("origin.lat", { valueAsNumber: true })} error={errors.origin?.lat?.message ?? errors.origin?.message} />
-          <Field label="Longitude" type="number" step="any" inputMode="decimal" {...form.register("origin.lng", { valueAsNumber: true })} error={errors.origin?.lng?.message} />
-        </div>
-        <Button variant="quiet" className="self-start" onClick={locateMe}>
-          Use where I am now
-        </Button>
-      </fieldset>
+      <PlaceSearch
+        label="Where you start"
+        name="origin"
+        hint="A street, village or postcode, or where you are now; you can also tap the map."
+        value={place}
+        onChange={setStart}
+        error={errors.origin?.message ?? errors.origin?.lat?.message ?? errors.origin?.lng?.message}
+      />
 
       <Field
         label="Look within (km)"

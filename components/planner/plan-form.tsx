@@ -1,5 +1,5 @@
 "use client";
-import { useMemo } from "react";
+import { useMemo, useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { useMutation } from "@tanstack/react-query";
 import Link from "next/link";
@@ -19,6 +19,7 @@ import { DEFAULT_RADIUS_KM } from "@/lib/match/defaults";
 import { UnitToggle } from "./unit-toggle";
 import { SaveBed } from "./save-bed";
 import { Form } from "@/components/ui/form";
+import { PlaceSearch, type ChosenPlace } from "@/components/ui/place-search";
 
 export interface PlanFormProps {
   system: UnitSystem;
@@ -26,20 +27,23 @@ export interface PlanFormProps {
   /** Signed-in gardeners can save; `bed` means editing that saved bed. */
   canSave: boolean;
   bed?: { id: string; name: string; values: PlanValues };
+  /** The gardener's home place (profile), where matching starts when the bed has no place. */
+  home?: { lat: number; lng: number } | null;
 }
 
 /** Builds the link to the match page from the estimate's needs. */
-function matchHref(result: EstimateResult, where: { lat: number; lng: number } | null): string {
+function matchHref(result: EstimateResult, where: { lat: number; lng: number; label?: string } | null): string {
   const needs = result.needs.map((n) => `${n.material}:${n.quantity}:${n.unit}`).join(",");
   const p = new URLSearchParams({ needs, radius_km: String(DEFAULT_RADIUS_KM) });
   if (where) {
     p.set("lat", String(where.lat));
     p.set("lng", String(where.lng));
+    if (where.label) p.set("place", where.label);
   }
   return `/match?${p}`;
 }
 
-export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFormProps) {
+export function PlanForm({ system: initialSystem, today, canSave, bed, home = null }: PlanFormProps) {
   const resolver = useMemo(() => planResolver(), []);
   const form = useForm<PlanValues>({ resolver, defaultValues: bed?.values ?? defaultPlanValues(initialSystem, today) });
   const { register, setValue, getValues, formState, control } = form;
@@ -64,6 +68,13 @@ export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFor
     if (estimate.data) void form.handleSubmit((v) => estimate.mutate(v))();
   };
 
+  // Where the bed is, found by name (or "where I am"): the rectangle's point, or where the
+  // map goes to draw the outline.
+  const [place, setPlace] = useState<ChosenPlace | null>(null);
+  const findPlace = (p: ChosenPlace) => {
+    setPlace(p);
+    if (getValues("shape") === "rectangle") setValue("location", { lat: p.lat, lng: p.lng });
+  };
   const onMapClick = (p: { lat: number; lng: number }) => {
     if (getValues("shape") === "outline") setValue("outline", [...getValues("outline"), p], { shouldValidate: formState.isSubmitted });
     else setValue("location", p);
@@ -101,15 +112,24 @@ export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFor
         ) : null}
 
         <div className="flex flex-col gap-2">
+          <PlaceSearch
+            label="Where the bed is"
+            name="bed_place"
+            hint={shape === "outline" ? "Find the street or postcode; the map goes there for you to draw." : "Optional: a street, village or postcode, to find material near it."}
+            value={place ?? (location && shape === "rectangle" ? { ...location, label: "The point on the map" } : null)}
+            onChange={findPlace}
+          />
           <DuffMap
             // A map takes its zoom only when it mounts: a fresh one per shape, so drawing starts close in.
             key={shape}
             label={shape === "outline" ? "Map: click each corner of the bed" : "Map: click where the bed is"}
-            center={where ?? DEFAULT_CENTER}
+            center={where ?? place ?? DEFAULT_CENTER}
             zoom={shape === "outline" ? 17 : 13}
+            view={place ? { lat: place.lat, lng: place.lng, zoom: shape === "outline" ? 18 : 15 } : undefined}
             polygon={shape === "outline" ? outline : undefined}
             markers={shape === "rectangle" && location ? [{ id: "bed", ...location, label: "The bed", tone: "origin" }] : []}
             onClick={onMapClick}
+            centrePick={{ label: shape === "outline" ? "Add a corner at the cross" : "Put the bed at the cross", onPick: onMapClick }}
             className="h-72"
           />
           {shape === "outline" ? (
@@ -123,7 +143,7 @@ export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFor
               </Button>
             </div>
           ) : (
-            <p className="text-sm text-humus-600">{location ? "Bed placed on the map: matching will search from here." : "Optional: click the map where the bed is, to find material near it."}</p>
+            <p className="text-sm text-humus-600">{location ? "Bed placed on the map: matching will search from here." : "Optional: find the place above, or click the map where the bed is, to find material near it."}</p>
           )}
           <p id="field-outline-error" aria-live="polite" className="min-h-5 text-sm text-ember-600">
             {errors.outline?.message ?? ""}
@@ -190,7 +210,7 @@ export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFor
         {result ? (
           <>
             <div className="flex flex-wrap gap-3">
-              <Link className={buttonClass("secondary")} href={bed ? `/beds/${bed.id}/materials` : matchHref(result, where ?? result.centroid ?? null)}>
+              <Link className={buttonClass("secondary")} href={bed ? `/beds/${bed.id}/materials` : matchHref(result, where ? { ...where, label: place && shape === "rectangle" ? place.label : "The bed on the map" } : (result.centroid ?? home))}>
                 Find these materials nearby
               </Link>
             </div>
@@ -203,7 +223,7 @@ export function PlanForm({ system: initialSystem, today, canSave, bed }: PlanFor
             <EstimateView
               result={result}
               system={system}
-              costsHint={result.costs ? undefined : "Click the map where the bed is to see what it will cost from the nearest listings: what is free, what a deposit holds, what is paid for."}
+              costsHint={result.costs ? undefined : "Say where the bed is (a street or postcode above, or a click on the map) to see what it will cost from the nearest listings: what is free, what a deposit holds, what is paid for."}
             />
           </>
         ) : null}

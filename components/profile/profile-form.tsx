@@ -1,37 +1,40 @@
 "use client";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { z } from "zod";
 import { profileSchema } from "@/lib/validation/auth";
-import { apiFetch, isApiError } from "@/lib/api/client";
+import { apiFetch } from "@/lib/api/client";
 import { Field } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { UnitSystemChoice } from "@/components/ui/unit-system-choice";
 import type { Role } from "@/lib/auth/roles";
 import { Form } from "@/components/ui/form";
+import { PlaceSearch } from "@/components/ui/place-search";
+import { ErrorSummary, useErrorSummary } from "@/components/ui/error-summary";
 
 type Values = z.input<typeof profileSchema>;
 
 export function ProfileForm({ initial, roles, requested }: { initial: Values; roles: Role[]; requested: Role[] }) {
   const router = useRouter();
   const [saved, setSaved] = useState(false);
-  const [error, setError] = useState<string | null>(null);
   const form = useForm<Values>({ resolver: zodResolver(profileSchema), defaultValues: initial });
+  const summary = useErrorSummary(form);
+  const home = useWatch({ control: form.control, name: "home" });
 
   const onSubmit = form.handleSubmit(async (values) => {
     setSaved(false);
-    setError(null);
+    summary.clear();
     try {
       await apiFetch("/api/me", { method: "PATCH", body: values });
       setSaved(true);
       router.refresh();
     } catch (err) {
-      setError(isApiError(err) ? err.message : "Saving failed. Please try again.");
+      summary.fail(err, "Saving failed. Please try again.");
     }
-  });
+  }, summary.invalid);
 
   const roleBox = (role: "supplier" | "grower", label: string, note: string) => {
     const has = roles.includes(role);
@@ -50,9 +53,17 @@ export function ProfileForm({ initial, roles, requested }: { initial: Values; ro
   return (
     <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-3">
       {saved ? <Notice title="Saved">Your profile is up to date.</Notice> : null}
-      {error ? <Notice tone="error">{error}</Notice> : null}
+      <ErrorSummary {...summary.props} />
       <Field label="Your name" {...form.register("display_name")} error={form.formState.errors.display_name?.message} />
       <UnitSystemChoice field={form.register("unit_system")} />
+      <PlaceSearch
+        label="Home place (optional)"
+        name="home"
+        hint="Where your beds are, when a bed has no place of its own: finding materials starts from here. Only you see it."
+        value={home ?? null}
+        onChange={(p) => form.setValue("home", { label: p.label, lat: p.lat, lng: p.lng }, { shouldDirty: true })}
+        error={form.formState.errors.home?.message ?? form.formState.errors.home?.label?.message}
+      />
       <label className="flex items-center gap-2">
         <input type="checkbox" {...form.register("reminders_opt_out")} className="h-5 w-5" /> Do not e-mail me bed reminders
       </label>

@@ -19,6 +19,8 @@ export interface SessionUser {
   /** The address was confirmed (the link in the e-mail sent on joining, or a sign-in link). */
   email_verified: boolean;
   organisation: { id: string; name: string; kind: string; org_role: "owner" | "staff" } | null;
+  /** Where they plan from when a bed has no place of its own (their own eyes only). */
+  home: { label: string; lat: number; lng: number } | null;
 }
 
 /** The person behind a session, read fresh from the database so role changes and suspensions apply at once. */
@@ -38,6 +40,7 @@ export async function loadSessionUser(id: string): Promise<SessionUser | null> {
     verified: Boolean(user.verified_at),
     email_verified: Boolean(user.email_verified_at),
     organisation: org ? { id: org.organisation_id, name: org.name, kind: org.kind, org_role: org.org_role } : null,
+    home: user.home_place && user.home_lat !== null && user.home_lng !== null ? { label: user.home_place, lat: Number(user.home_lat), lng: Number(user.home_lng) } : null,
   };
 }
 

@@ -12,7 +12,8 @@ const GRANTED_AT_ONCE: Role[] = ["supplier"];
 
 export async function updateProfile(userId: string, input: ProfileInput) {
   await db().transaction(async (trx) => {
-    await updateUser(userId, { display_name: input.display_name, unit_system: input.unit_system, reminders_opt_out: input.reminders_opt_out }, trx);
+    const home = input.home === undefined ? {} : input.home === null ? { home_place: null, home_lat: null, home_lng: null } : { home_place: input.home.label, home_lat: input.home.lat, home_lng: input.home.lng };
+    await updateUser(userId, { display_name: input.display_name, unit_system: input.unit_system, reminders_opt_out: input.reminders_opt_out, ...home }, trx);
     const current = await rolesOf(userId, trx);
     for (const role of input.requested_roles) {
       const had = current.find((r) => r.role === role);

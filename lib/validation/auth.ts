@@ -48,6 +48,19 @@ export const profileSchema = z.object({
   unit_system: z.enum(["metric", "imperial"], { error: "Choose metric or imperial." }),
   reminders_opt_out: z.boolean().default(false),
   requested_roles: z.array(z.enum(REQUESTABLE_ROLES, { error: "That role cannot be requested." })).max(2).default([]),
+  // Where beds are planned from when they have no place of their own: a place found by name
+  // (GET /api/places) or the device's position. null clears it; absent leaves it as it is.
+  home: z
+    .object(
+      {
+        label: z.string({ error: "Name the place." }).trim().min(1, "Name the place.").max(300, "Keep the name under 300 characters."),
+        lat: z.number({ error: "Choose a place from the list." }).min(-90, "Choose a place from the list.").max(90, "Choose a place from the list."),
+        lng: z.number({ error: "Choose a place from the list." }).min(-180, "Choose a place from the list.").max(180, "Choose a place from the list."),
+      },
+      { error: "Choose a place from the list." },
+    )
+    .nullable()
+    .optional(),
 });
 
 export type SignUpInput = z.infer<typeof signUpSchema>;

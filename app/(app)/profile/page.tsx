@@ -28,7 +28,7 @@ export default async function ProfilePage({ searchParams }: { searchParams: Prom
       ) : null}
       <div className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
         <ProfileForm
-          initial={{ display_name: user.name, unit_system: user.unit_system, reminders_opt_out: Boolean(row?.reminders_opt_out), requested_roles: [] }}
+          initial={{ display_name: user.name, unit_system: user.unit_system, reminders_opt_out: Boolean(row?.reminders_opt_out), requested_roles: [], home: user.home }}
           roles={user.roles}
           requested={user.requested_roles}
         />

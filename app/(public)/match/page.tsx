@@ -2,7 +2,6 @@ import type { Metadata } from "next";
 import { currentUser } from "@/lib/auth/current-user";
 import { DEFAULT_RADIUS_KM, MAX_RADIUS_KM } from "@/lib/match/defaults";
 import { needsFromParam, type MatchRequest } from "@/lib/validation/match";
-import { DEFAULT_CENTER } from "@/components/map/types";
 import { PageHeading } from "@/components/ui/empty-state";
 import { MatchPlanner } from "@/components/match/match-planner";
 
@@ -25,18 +24,23 @@ export default async function MatchPage({ searchParams }: { searchParams: Promis
   const lng = num(params.lng);
   const radius = num(params.radius_km);
   const fromUrl = lat !== undefined && lng !== undefined;
+  // Needs with no start in the link: a signed-in gardener starts from their home place.
+  const home = !fromUrl ? (user?.home ?? null) : null;
+  const start = fromUrl ? { lat, lng } : home ? { lat: home.lat, lng: home.lng } : null;
   const initial: MatchRequest = {
     needs: needs.length ? needs : [{ material: "leaves", quantity: 0.45, unit: "m3" }],
-    origin: fromUrl ? { lat, lng } : DEFAULT_CENTER,
+    ...(start ? { origin: start } : {}),
     radius_km: radius !== undefined && radius > 0 ? Math.min(radius, MAX_RADIUS_KM) : DEFAULT_RADIUS_KM,
   };
+  const placeParam = one(params.place)?.trim().slice(0, 200) || null;
+  const startLabel = fromUrl ? (placeParam ?? "The point in the link") : home ? `${home.label} (your home place)` : null;
   return (
     <div>
       <PageHeading
         title="Find the materials"
         lead="Say what your bed needs and where you start from. Duffbank finds nearby listings that cover it, in as few, short and cheap pickups as it can, and draws the round trip."
       />
-      <MatchPlanner initial={initial} run={needs.length > 0 && fromUrl} system={user?.unit_system ?? "metric"} skipped={skipped} />
+      <MatchPlanner initial={initial} run={needs.length > 0 && start !== null} system={user?.unit_system ?? "metric"} skipped={skipped} startLabel={startLabel} />
     </div>
   );
 }

@@ -14,7 +14,7 @@ export default async function PlanPage() {
         title="Plan a bed"
         lead="Cardboard on the ground, leaves on the cardboard, straw on top, a good soak, and worms a week or two later. Tell us the size and we will work out the rest."
       />
-      <PlanForm system={user?.unit_system ?? "metric"} today={today} canSave={!!user?.roles.includes("gardener")} />
+      <PlanForm system={user?.unit_system ?? "metric"} today={today} canSave={!!user?.roles.includes("gardener")} home={user?.home ?? null} />
     </div>
   );
 }

@@ -26,7 +26,7 @@ export default async function BedMaterialsPage({ params }: { params: Promise<{ i
         title={`Find materials for ${bed.name}`}
         lead={`A ${formatQuantity(Number(bed.area_m2), "m2", user.unit_system)} bed. The nearest listings that cover it, in visiting order from the bed and back.`}
       />
-      <BedMaterials bedId={bed.id} bedPoint={point} system={user.unit_system} />
+      <BedMaterials bedId={bed.id} bedPoint={point} home={user.home ? { ...user.home, label: `${user.home.label} (your home place)` } : null} system={user.unit_system} />
     </div>
   );
 }
