@@ -2,18 +2,20 @@
 import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { type UnitSystem } from "@/lib/calc/units";
 import { formatQuantity } from "@/lib/format/quantity";
-import { formatCents, formatListingQuantity, materialNoun } from "@/lib/match/format";
+import { formatCents } from "@/lib/match/format";
 import type { Need } from "@/lib/match/types";
 import { Notice } from "@/components/ui/notice";
-import { ReserveAll } from "./reserve-all";
+import { useState } from "react";
+import { ReserveAll, type StopProblems } from "./reserve-all";
+import { PlanParcel, PlanStop, stopMoney, type PlanAllocation, type StopChoice } from "./plan-stop";
 import { UnmetNeeds } from "./unmet-needs";
-import type { PickupPlan as Plan } from "./use-match";
+import type { PickupPlan as Plan, ReserveAllItem } from "./use-match";
 
 function Totals({ plan, system }: { plan: Plan; system: UnitSystem }) {
   const t = plan.totals;
   const held = plan.costs.totals.reduce((sum, c) => sum + (c.currency === t.currency ? c.deposits_cents : 0), 0);
   const items = [
-    ["Stops", String(t.stops)],
+    ["Stops", t.parcels ? `${t.stops} + ${t.parcels} by post` : String(t.stops)],
     ["Driving", formatQuantity(plan.driving_distance_km, "km", system)],
     ["Trips", `${t.trips} ${t.trips === 1 ? "carload" : "carloads"}`],
     ["To pay suppliers", formatCents(t.price_cents, t.currency)],
@@ -49,6 +51,19 @@ export function PickupPlan({
   const byId = new Map(plan.allocations.map((a) => [a.listing_id, a]));
   const costOf = new Map(plan.costs.lines.map((l) => [l.listing_id, l]));
   const orderOf = new Map(plan.stops.map((s) => [s.listing_id, s.order]));
+  const parcels = plan.allocations.filter((a) => a.fulfilment === "post");
+  const [choices, setChoices] = useState<Record<string, StopChoice>>({});
+  const [problems, setProblems] = useState<StopProblems>({});
+  // A stop collects at its listing's first pickup time that leaves the supplier time to answer, unless changed.
+  const choiceOf = (a: PlanAllocation): StopChoice => choices[a.listing_id] ?? { window: a.pickup_choices[0]?.id ?? "", ship_to: "" };
+  const items: ReserveAllItem[] = [...plan.stops.map((s) => byId.get(s.listing_id)!), ...parcels].map((a) =>
+    a.fulfilment === "post"
+      ? { listing_id: a.listing_id, quantity: a.listing_quantity, fulfilment: "post", ship_to: choiceOf(a).ship_to.trim() || null }
+      : { listing_id: a.listing_id, quantity: a.listing_quantity, pickup_window_id: choiceOf(a).window || null },
+  );
+  const names = Object.fromEntries(
+    plan.allocations.map((a) => [a.listing_id, `${orderOf.has(a.listing_id) ? `Stop ${orderOf.get(a.listing_id)}` : "Parcel"}, ${a.title ?? MATERIALS[a.material].name}`]),
+  );
   const lifting = plan.cautions.filter((c) => c.kind !== "material");
   const general = plan.cautions.filter((c) => c.kind === "material");
   return (
@@ -71,31 +86,40 @@ export function PickupPlan({
             {plan.stops.map((s) => {
               const a = byId.get(s.listing_id)!;
               return (
-                <li key={s.listing_id} className="flex gap-3 rounded-lg bg-white p-3 ring-1 ring-humus-200" data-stop={s.order}>
-                  <span className="flex h-9 w-9 shrink-0 items-center justify-center rounded-full bg-moss-600 font-bold text-white" aria-label={`Stop ${s.order}`}>
-                    {s.order}
-                  </span>
-                  <div className="flex min-w-0 flex-1 flex-col gap-0.5">
-                    <p className="font-semibold">{a.title ?? MATERIALS[a.material].name}</p>
-                    <p className="text-sm text-humus-700">
-                      {a.supplier ? `${a.supplier} · ` : ""}
-                      {formatQuantity(a.distance_km, "km", system)} from the start
-                    </p>
-                    <p>
-                      Take <strong>{formatListingQuantity(a.listing_quantity, a.listing_unit, system)}</strong>
-                      {a.listing_unit === a.unit ? "" : ` (${formatQuantity(a.quantity, a.unit, system)} of ${materialNoun(a.material)})`}
-                      {a.listing_unit === a.unit ? ` of ${materialNoun(a.material)}` : ""}
-                    </p>
-                    <p className="text-sm text-humus-600" data-stop-cost={costOf.get(s.listing_id)?.kind}>
-                      {formatCents(a.cost_cents, a.currency)}
-                      {costOf.get(s.listing_id)?.deposit_cents ? ` · ${formatCents(costOf.get(s.listing_id)!.deposit_cents, a.currency)} deposit held, back at pickup` : ""} · about{" "}
-                      {formatQuantity(a.load_kg, "kg", system)}, {formatQuantity(a.load_l, "l", system)}
-                    </p>
-                  </div>
-                </li>
+                <PlanStop
+                  key={s.listing_id}
+                  a={a}
+                  order={s.order}
+                  system={system}
+                  money={stopMoney(a, costOf.get(s.listing_id)?.deposit_cents)}
+                  choice={choiceOf(a)}
+                  onChoice={(c) => setChoices({ ...choices, [a.listing_id]: c })}
+                  problems={problems[a.listing_id]}
+                />
               );
             })}
           </ol>
+        </section>
+      ) : null}
+
+      {parcels.length ? (
+        <section aria-labelledby="parcels-title">
+          <h3 id="parcels-title" className="mb-2 text-lg font-semibold">
+            By post
+          </h3>
+          <ul className="flex flex-col gap-2">
+            {parcels.map((a) => (
+              <PlanParcel
+                key={a.listing_id}
+                a={a}
+                system={system}
+                money={stopMoney(a, costOf.get(a.listing_id)?.deposit_cents)}
+                choice={choiceOf(a)}
+                onChoice={(c) => setChoices({ ...choices, [a.listing_id]: c })}
+                problems={problems[a.listing_id]}
+              />
+            ))}
+          </ul>
         </section>
       ) : null}
 
@@ -131,7 +155,7 @@ export function PickupPlan({
         </Notice>
       ) : null}
 
-      {plan.allocations.length ? <ReserveAll items={plan.allocations.map((a) => ({ listing_id: a.listing_id, quantity: a.listing_quantity }))} bedId={bedId} /> : null}
+      {plan.allocations.length ? <ReserveAll items={items} bedId={bedId} names={names} problems={problems} onProblems={setProblems} /> : null}
     </div>
   );
 }

@@ -18,8 +18,17 @@ export function useMatch(request: MatchRequest | null) {
   });
 }
 
+/** One stop of a plan as the reservation flow takes it: its pickup time, or a parcel's address. */
+export interface ReserveAllItem {
+  listing_id: string;
+  quantity: number;
+  pickup_window_id?: string | null;
+  fulfilment?: "pickup" | "post";
+  ship_to?: string | null;
+}
+
 export interface ReserveAllBody {
-  items: { listing_id: string; quantity: number }[];
+  items: ReserveAllItem[];
   bed_id?: string;
 }
 

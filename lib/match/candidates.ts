@@ -30,6 +30,7 @@ const COLUMNS = [
   "currency",
   "approx_lat",
   "approx_lng",
+  "quality",
 ] as const;
 
 interface Row {
@@ -46,6 +47,7 @@ interface Row {
   currency: string;
   approx_lat: number;
   approx_lng: number;
+  quality: string | null;
   unit_price?: number;
 }
 
@@ -72,8 +74,21 @@ function reservable(q: Db, index: string, materials: readonly MaterialCode[], bo
   return circle ? nearBox(qb, circle.centre, circle.km * 1000) : qb;
 }
 
+/** A live culture its grower only posts (lib/reservations/culture-orders.ts: an unset key means offered). */
+function postedOnly(r: Row): boolean {
+  if (r.material_code !== "worms" || !r.quality) return false;
+  try {
+    const q = JSON.parse(r.quality) as { ships?: unknown; pickup?: unknown };
+    return q.pickup === false && q.ships !== false;
+  } catch {
+    return false;
+  }
+}
+
 function toCandidate(r: Row, origin: LatLng): CandidateListing {
-  const location = { lat: Number(r.approx_lat), lng: Number(r.approx_lng) };
+  const posted = postedOnly(r);
+  // A parcel comes to the start: planned there, it adds no driving and no detour.
+  const location = posted ? origin : { lat: Number(r.approx_lat), lng: Number(r.approx_lng) };
   return {
     id: r.id,
     material: r.material_code,
@@ -85,7 +100,8 @@ function toCandidate(r: Row, origin: LatLng): CandidateListing {
     price_cents: Number(r.price_cents),
     currency: r.currency,
     location,
-    distance_km: distanceKm(origin, location),
+    distance_km: posted ? 0 : distanceKm(origin, location),
+    ...(posted ? { posted } : {}),
   };
 }
 
@@ -169,6 +185,7 @@ export interface PricedListing {
   price_cents: number;
   deposit_cents: number;
   currency: string;
+  auto_accept: boolean;
 }
 
 /**
@@ -179,7 +196,7 @@ export async function pricedListings(ids: readonly string[], q: Db = db()): Prom
   if (!ids.length) return {};
   const rows = await q("listings as l")
     .join("users as u", "u.id", "l.owner_id")
-    .select("l.id", "l.title", "u.display_name as supplier", "l.material_code", "l.unit", "l.unit_size", "l.unit_mass_kg", "l.price_cents", "l.deposit_cents", "l.currency")
+    .select("l.id", "l.title", "u.display_name as supplier", "l.material_code", "l.unit", "l.unit_size", "l.unit_mass_kg", "l.price_cents", "l.deposit_cents", "l.currency", "l.auto_accept")
     .whereIn("l.id", [...ids])
     .whereNotIn("l.status", ["draft", "hidden"]);
   const num = (x: unknown) => (x === null || x === undefined ? null : Number(x));
@@ -197,6 +214,7 @@ export async function pricedListings(ids: readonly string[], q: Db = db()): Prom
         price_cents: Number(r.price_cents),
         deposit_cents: Number(r.deposit_cents),
         currency: String(r.currency),
+        auto_accept: Boolean(r.auto_accept),
       },
     ]),
   );

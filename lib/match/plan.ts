@@ -84,15 +84,19 @@ export function buildPlan(
       load_l: roundTo(units * content.volume_l, 1),
       load_kg: roundTo(units * content.kg, 1),
       item_kg: option.whole ? roundTo(content.kg, 1) : null,
+      fulfilment: c.posted ? ("post" as const) : ("pickup" as const),
     };
   });
+  // A parcel is no stop: the route, the carloads and the stop count leave it out.
+  const onRoute = result.picks.map((_, i) => allocations[i].fulfilment === "pickup");
   const unmet = needs
     .map((n, i) => ({ material: n.material, quantity: roundTo(n.quantity - result.covered[i], 3), unit: n.unit }))
     .filter((u) => u.quantity > UNMET_TOLERANCE);
-  const stops = allocations.map((a, i) => ({ order: i + 1, listing_id: a.listing_id, location: candidates[result.picks[i].option.cand].location }));
+  const routed = result.picks.filter((_, i) => onRoute[i]);
+  const stops = routed.map(({ option }, i) => ({ order: i + 1, listing_id: candidates[option.cand].id, location: candidates[option.cand].location }));
   const split = splitTrips(
     origin,
-    result.picks.map(({ option, units }, i) => {
+    routed.map(({ option, units }, i) => {
       const c = candidates[option.cand];
       const content = unitContent(c)!;
       return { listing_id: c.id, location: stops[i].location, units, whole: option.whole, unit_l: content.volume_l, unit_kg: content.kg };
@@ -115,7 +119,7 @@ export function buildPlan(
   const price = allocations.reduce((s, a) => s + a.cost_cents, 0);
   // The driving actually done: several carloads drive more than one loop.
   const travel = Math.round(costs.cost_per_km_cents * split.distance_km);
-  const stopCents = Math.round(costs.cost_per_stop_cents * Math.max(0, allocations.length - 1));
+  const stopCents = Math.round(costs.cost_per_stop_cents * Math.max(0, stops.length - 1));
   return {
     needs: needs.map((n) => ({ ...n, quantity: roundTo(n.quantity, 3) })),
     allocations,
@@ -130,7 +134,8 @@ export function buildPlan(
       stop_cents: stopCents,
       cost_cents: price + travel + stopCents,
       currency: allocations[0]?.currency ?? "eur",
-      stops: allocations.length,
+      stops: stops.length,
+      parcels: allocations.length - stops.length,
       trips: split.trips.length,
     },
     cautions,

@@ -35,6 +35,11 @@ export interface CandidateListing {
   location: LatLng;
   /** Great-circle distance from the origin to `location`. */
   distance_km: number;
+  /**
+   * Sent by post (a live culture its grower only posts): no stop on the route, so it is
+   * planned at the origin, `location` the origin and `distance_km` 0.
+   */
+  posted?: boolean;
 }
 
 export interface Allocation {
@@ -54,6 +59,8 @@ export interface Allocation {
   load_kg: number;
   /** kg of one sheet, bag or bale; null for loose material. */
   item_kg: number | null;
+  /** "post": it comes as a parcel, not from a stop on the route. */
+  fulfilment: "pickup" | "post";
 }
 
 export interface Stop {
@@ -83,6 +90,8 @@ export interface PlanTotals {
   cost_cents: number;
   currency: string;
   stops: number;
+  /** Allocations that come by post. */
+  parcels: number;
   trips: number;
 }
 
@@ -90,6 +99,7 @@ export interface MatchPlan {
   needs: Need[];
   allocations: Allocation[];
   unmet: Need[];
+  /** The pickups in visiting order; posted allocations are parcels, not stops. */
   stops: Stop[];
   /** The visiting loop through `stops` from the origin and back, km. */
   total_distance_km: number;

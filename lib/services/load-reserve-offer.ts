@@ -2,8 +2,8 @@ import "server-only";
 import { db } from "@/db/index";
 import { availableOf, listingsForReservation, pickupWindowsOf } from "@/db/reservations";
 import { ratingsFor } from "@/db/reviews";
-import { nextOccurrence, windowLabel } from "@/lib/reservations/pickup-times";
-import { answerDeadline, earliestPickupStart, holdMinutes, holdWaitFor, NO_WINDOW_PICKUP_DAYS } from "@/lib/reservations/policy";
+import { holdMinutes, holdWaitFor } from "@/lib/reservations/policy";
+import { answerByFor, pickupChoices } from "@/lib/reservations/pickup-choices";
 import { WHOLE_UNITS } from "@/lib/reservations/labels";
 import { datesState, effectiveStatus } from "@/lib/listings/status";
 import { cultureOffer } from "./culture-offer";
@@ -32,10 +32,6 @@ export async function loadReserveOffer(listingId: string, now = new Date()) {
   ]);
   const deposit = depositFor(l.price_cents, l.deposit_cents);
   const terms = { owes: l.price_cents > 0 || deposit > 0, autoAccept: Boolean(l.auto_accept) };
-  // The openings this reservation would get: the first a supplier who must answer still has time for.
-  const notBefore = earliestPickupStart(now, terms);
-  /** When the supplier would have to answer, for a pickup starting at `start` (null: nothing to answer). */
-  const answerBy = (start: Date | null) => (l.auto_accept ? null : answerDeadline(now, start ?? new Date(now.getTime() + NO_WINDOW_PICKUP_DAYS * 86_400_000)).toISOString());
   return {
     id: l.id,
     title: l.title,
@@ -59,15 +55,11 @@ export async function loadReserveOffer(listingId: string, now = new Date()) {
     /** What a new reservation would wait for: the gardener's checkout, the supplier's answer, or nothing. */
     waits_for: holdWaitFor(terms),
     /** With no fixed pickup time: when the supplier would have to answer by. */
-    answer_by_no_window: answerBy(null),
+    answer_by_no_window: answerByFor(now, terms, null),
     supplier: { name: owner?.display_name ?? "The supplier", verified: Boolean(owner?.verified_at), rating: ratings.get(l.owner_id) ?? null },
     /** Live cultures only: how it can reach the buyer, and the grower's posting days or pause. */
     culture,
-    windows: windows
-      .map((w) => ({ id: w.id, label: windowLabel(w), next: nextOccurrence(w, now, undefined, notBefore) }))
-      .filter((w) => w.next)
-      .sort((a, b) => a.next!.start.getTime() - b.next!.start.getTime())
-      .map((w) => ({ id: w.id, label: w.label, next_start: w.next!.start.toISOString(), next_end: w.next!.end.toISOString(), answer_by: answerBy(w.next!.start) })),
+    windows: pickupChoices(windows, now, terms),
   };
 }
 

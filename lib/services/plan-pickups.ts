@@ -8,6 +8,9 @@ import type { LatLng, Need } from "@/lib/match/types";
 import { bedEstimate, toBedView } from "@/lib/services/bed-view";
 import type { MatchInput } from "@/lib/validation/match";
 import { type BedRow, findBed } from "@/db/beds";
+import { pickupWindowsOf } from "@/db/reservations";
+import { depositFor } from "@/lib/payments/money";
+import { answerByFor, pickupChoices } from "@/lib/reservations/pickup-choices";
 
 /** What a saved bed needs: its own estimate (the bed page's), as needs. */
 export function bedNeeds(row: BedRow): Need[] {
@@ -45,7 +48,9 @@ export async function planPickups(input: MatchInput, user: SessionUser | null) {
     costs: { cost_per_km_cents: input.cost_per_km_cents, cost_per_stop_cents: input.cost_per_stop_cents },
     vehicle: input.vehicle,
   });
-  const listings = await pricedListings(plan.allocations.map((a) => a.listing_id));
+  const ids = plan.allocations.map((a) => a.listing_id);
+  const [listings, windows] = await Promise.all([pricedListings(ids), pickupWindowsOf(ids)]);
+  const now = new Date();
   const pickups: PricedPickup[] = plan.allocations.flatMap((a) => {
     const l = listings[a.listing_id];
     return l ? [{ ...l, listing_id: l.id, listing_quantity: a.listing_quantity }] : [];
@@ -54,7 +59,17 @@ export async function planPickups(input: MatchInput, user: SessionUser | null) {
     ...plan,
     allocations: plan.allocations.map((a) => {
       const l = listings[a.listing_id] as (typeof listings)[string] | undefined;
-      return { ...a, title: l?.title, supplier: l?.supplier, deposit_cents: l?.deposit_cents ?? 0 };
+      const terms = { owes: a.cost_cents > 0 || depositFor(l?.price_cents ?? 0, l?.deposit_cents ?? 0) > 0, autoAccept: !!l?.auto_accept };
+      return {
+        ...a,
+        title: l?.title,
+        supplier: l?.supplier,
+        deposit_cents: l?.deposit_cents ?? 0,
+        // What reserving this stop asks: its pickup times (a parcel has none) and the supplier's answer.
+        auto_accept: terms.autoAccept,
+        pickup_choices: a.fulfilment === "post" ? [] : pickupChoices(windows.filter((w) => w.listing_id === a.listing_id), now, terms),
+        answer_by_no_window: answerByFor(now, terms, null),
+      };
     }),
     /** What the plan costs: free pickups, deposits held until pickup, and what is paid. */
     costs: bedCosts(pickups, needs, plan.unmet),

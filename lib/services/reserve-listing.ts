@@ -84,7 +84,7 @@ async function fulfilmentFor(item: ReserveItem, listing: ListingForReservation, 
     const shipping = shippingView(await findShipping(listing.owner_id, q));
     if (!offer.ships) fields[`${f}fulfilment`] = "This culture is for collection only.";
     else if (shipping.paused) fields[`${f}fulfilment`] = `${shipping.notice} Choose collection, or order once posting resumes.`;
-    if (!item.ship_to) fields[`${f}ship_to`] = f ? "A posted culture needs an address: reserve it on its own page." : "Give the full postal address the parcel goes to, with the postcode.";
+    if (!item.ship_to) fields[`${f}ship_to`] = f ? "A posted culture needs an address: give the postal address it goes to, with the postcode." : "Give the full postal address the parcel goes to, with the postcode.";
     if (item.pickup_window_id) fields[`${f}pickup_window_id`] = "A posted order has no pickup window.";
   }
   return chosen;
@@ -98,8 +98,33 @@ async function check(input: ReserveInput, q: Knex, now: Date): Promise<Checked[]
   const fields: FieldErrors = {};
   const seen = new Set<string>();
   const out: Checked[] = [];
+  // In a list ("Reserve all"), a stop that cannot be reserved at all is named on its own
+  // listing_id and the others are still checked, so each stop shows its own problem.
+  const many = input.fieldPrefix(0) !== "";
+  const refusals: ApiError[] = [];
   for (const [i, item] of input.items.entries()) {
     const f = input.fieldPrefix(i);
+    try {
+      out.push(await checkItem(item, f));
+    } catch (err) {
+      if (!many || !(err instanceof ApiError)) throw err;
+      fields[`${f}listing_id`] = err.message;
+      refusals.push(err);
+    }
+  }
+  if (input.bed_id) {
+    const bed = await q("beds").first("id").where({ id: input.bed_id, owner_id: input.gardenerId });
+    if (!bed) fields.bed_id = "Choose one of your own beds.";
+  }
+  if (Object.keys(fields).length) {
+    // A refusal keeps its own status (404 for a listing nobody may see, 409 for one not
+    // taking reservations); its message stands alone when it is the only problem.
+    const only = refusals.length === 1 && Object.keys(fields).length === 1 ? refusals[0].message : null;
+    throw new ApiError(refusals[0]?.code ?? "invalid_input", only ?? "Some of the reservation needs another look.", fields);
+  }
+  return out;
+
+  async function checkItem(item: ReserveItem, f: string): Promise<Checked> {
     const listing = listings.get(item.listing_id);
     if (!listing || listing.status === "draft" || listing.status === "hidden") throw new ApiError("not_found", "That listing was not found.");
     if (listing.owner_id === input.gardenerId || (listing.organisation_id && myOrgs.has(listing.organisation_id))) {
@@ -139,14 +164,8 @@ async function check(input: ReserveInput, q: Knex, now: Date): Promise<Checked[]
       }
     }
     const fulfilment = await fulfilmentFor(item, listing, f, fields, q);
-    out.push({ item, listing, amount, deposit, window, notBefore, fulfilment });
+    return { item, listing, amount, deposit, window, notBefore, fulfilment };
   }
-  if (input.bed_id) {
-    const bed = await q("beds").first("id").where({ id: input.bed_id, owner_id: input.gardenerId });
-    if (!bed) fields.bed_id = "Choose one of your own beds.";
-  }
-  if (Object.keys(fields).length) throw new ApiError("invalid_input", "Some of the reservation needs another look.", fields);
-  return out;
 }
 
 export async function reserveListings(input: ReserveInput, deps: ReserveDeps = {}) {

@@ -12,6 +12,13 @@ export const quantitySchema = z
 
 export const FULFILMENT_CHOICES = ["pickup", "post"] as const;
 
+const shipToSchema = z
+  .string({ error: "Give the address as text." })
+  .trim()
+  .max(400, "Keep the address under 400 characters.")
+  .nullish()
+  .transform((v) => v || null);
+
 export const reserveOneSchema = z
   .object({
     listing_id: id("a listing"),
@@ -20,19 +27,26 @@ export const reserveOneSchema = z
     bed_id: id("a bed").nullish(),
     // Live cultures only: collected (the default where offered) or posted to `ship_to`.
     fulfilment: z.enum(FULFILMENT_CHOICES, { error: "Choose collection or post." }).nullish(),
-    ship_to: z
-      .string({ error: "Give the address as text." })
-      .trim()
-      .max(400, "Keep the address under 400 characters.")
-      .nullish()
-      .transform((v) => v || null),
+    ship_to: shipToSchema,
   })
   .refine((r) => r.fulfilment !== "post" || (r.ship_to && r.ship_to.length >= 10), {
     path: ["ship_to"],
     message: "Give the full postal address the parcel goes to, with the postcode.",
   });
 
-export const reserveItemSchema = z.object({ listing_id: id("a listing"), quantity: quantitySchema, pickup_window_id: id("a pickup window").nullish() });
+/** One item of "Reserve all": a stop with its pickup window, or a live culture to post with its address. */
+export const reserveItemSchema = z
+  .object({
+    listing_id: id("a listing"),
+    quantity: quantitySchema,
+    pickup_window_id: id("a pickup window").nullish(),
+    fulfilment: z.enum(FULFILMENT_CHOICES, { error: "Choose collection or post." }).nullish(),
+    ship_to: shipToSchema,
+  })
+  .refine((r) => r.fulfilment !== "post" || !r.ship_to || r.ship_to.length >= 10, {
+    path: ["ship_to"],
+    message: "Give the full postal address the parcel goes to, with the postcode.",
+  });
 
 /** "Reserve all" from a match plan: one reservation per item, all or nothing. */
 export const reserveManySchema = z.object({

@@ -174,3 +174,27 @@ describe("bad input", () => {
     expect((await call(match.POST as never, await request("/api/match", { rawBody: "[1,2]" }))).status).toBe(422);
   });
 });
+
+describe("a live culture that only comes by post", () => {
+  it("is a parcel line, not a stop: no driving to it, no carload, still covered", async () => {
+    const spot = { lat: FERNHOLLOW.lat - 0.3, lng: FERNHOLLOW.lng }; // 33 km south of the demo town
+    const far = { lat: spot.lat + 0.05, lng: spot.lng + 0.05 }; // about 6.5 km away
+    const posted = await insertListing(ctx.db, { owner_id: supplier, material_code: "worms", unit: "kg", approx: far, price_cents: 3000, quality: JSON.stringify({ species: "Eisenia fetida", pickup: false }) });
+    const res = await post({ needs: [{ material: "worms", quantity: 0.5, unit: "kg" }], origin: spot, radius_km: 15 });
+    expect(res.status).toBe(200);
+    expect(res.json.unmet).toEqual([]);
+    expect(res.json.allocations).toEqual([expect.objectContaining({ listing_id: posted, fulfilment: "post", pickup_choices: [] })]);
+    expect(res.json.stops).toEqual([]);
+    expect(res.json.trips).toEqual([]);
+    expect(res.json.total_distance_km).toBe(0);
+    expect(res.json.totals).toMatchObject({ stops: 0, parcels: 1, travel_cents: 0 });
+  });
+
+  it("offers each stop its pickup times, the first one leaving time to answer", async () => {
+    const res = await post({ needs: NEEDS, origin: FERNHOLLOW, radius_km: 15 });
+    const stop = res.json.allocations.find((a: any) => a.fulfilment === "pickup" && a.pickup_choices.length);
+    expect(stop).toBeTruthy();
+    for (const c of stop.pickup_choices) expect(new Date(c.next_start).getTime()).toBeGreaterThan(Date.now());
+    if (!stop.auto_accept) expect(new Date(stop.pickup_choices[0].answer_by).getTime()).toBeLessThanOrEqual(new Date(stop.pickup_choices[0].next_start).getTime());
+  });
+});

@@ -178,6 +178,40 @@ describe("POST /api/reservations with items (Reserve all)", () => {
     expect(rows.find((r: { listing_id: string }) => r.listing_id === b.id).pickup_window_id).toBeNull();
   });
 
+  it("names each stop's own problem at once, keeps the status of a refusal, and holds nothing", async () => {
+    const fine = await createListing({ quantity_total: 5 });
+    const ended = await createListing({ quantity_total: 5 });
+    await ctx.db("listings").where({ id: ended.id }).update({ available_until: "2020-01-01T00:00:00.000Z" });
+    const culture = await createListing({ material: "worms", unit: "kg", price_cents: 3000, quantity_total: 3 });
+    await ctx.db("listings").where({ id: culture.id }).update({ quality: JSON.stringify({ species: "Eisenia fetida", pickup: false }) });
+    const items = [
+      { listing_id: fine.id, quantity: 1 },
+      { listing_id: ended.id, quantity: 1 },
+      { listing_id: culture.id, quantity: 1, fulfilment: "post" },
+    ];
+    const res = await post({ items });
+    expect(res.status).toBe(409);
+    expect(res.json.error.code).toBe("invalid_state");
+    expect(res.json.error.fields["items.1.listing_id"]).toMatch(/ended on/);
+    expect(res.json.error.fields["items.2.ship_to"]).toMatch(/posted culture needs an address/);
+    expect(res.json.error.fields).not.toHaveProperty(["items.0.listing_id"]);
+    expect((await listingQuantities(fine.id)).quantity_held).toBe(0);
+
+    // With the address given and the ended stop left out (a partial plan), both are held.
+    const partial = await post({ items: [items[0], { ...items[2], ship_to: "12 Orchard Rise, Fernhollow FH2 3NE" }] });
+    expect(partial.status).toBe(201);
+    expect(partial.json.reservations.map((r: any) => r.listing_id)).toEqual([fine.id, culture.id]);
+  });
+
+  it("names the item that is short on its quantity, with the conflict's own message", async () => {
+    const a = await createListing({ quantity_total: 5 });
+    const b = await createListing({ quantity_total: 2 });
+    const res = await post({ items: [{ listing_id: a.id, quantity: 1 }, { listing_id: b.id, quantity: 3 }] });
+    expect(res.status).toBe(409);
+    expect(res.json.error.code).toBe("insufficient_quantity");
+    expect(res.json.error.fields["items.1.quantity"]).toBe(res.json.error.message);
+  });
+
   it("refuses an empty list and the same listing twice", async () => {
     expect((await post({ items: [] })).status).toBe(422);
     const a = await createListing();
