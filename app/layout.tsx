@@ -4,6 +4,7 @@ import "./globals.css";
 import { Providers } from "./providers";
 import { SiteHeader } from "@/components/shell/site-header";
 import { currentUser } from "@/lib/auth/current-user";
+import { viewerUnits } from "@/lib/units/viewer";
 
 export const metadata: Metadata = {
   title: { default: "Duffbank", template: "%s · Duffbank" },
@@ -15,10 +16,11 @@ export const viewport: Viewport = { width: "device-width", initialScale: 1, them
 
 export default async function RootLayout({ children }: { children: ReactNode }) {
   const user = await currentUser();
+  const units = await viewerUnits(user);
   return (
     <html lang="en">
       <body className="flex min-h-screen flex-col">
-        <Providers>
+        <Providers units={units}>
           <SiteHeader user={user} />
           <main id="main" className="mx-auto w-full max-w-6xl flex-1 px-4 py-8">
             {children}

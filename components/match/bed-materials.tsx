@@ -18,10 +18,11 @@ import { useMatch } from "./use-match";
 import { Form } from "@/components/ui/form";
 import { PlaceSearch, type ChosenPlace } from "@/components/ui/place-search";
 import { usePointName } from "@/components/ui/use-point-name";
+import { useUnits } from "@/components/ui/units-context";
 
 /** "Find materials" for a saved bed: its own needs and point, a radius to try, and the plan. */
-export function BedMaterials({ bedId, bedPoint, home, system: defaultSystem }: { bedId: string; bedPoint: LatLng | null; home: ChosenPlace | null; system: UnitSystem }) {
-  const [system, setSystem] = useState<UnitSystem>(defaultSystem);
+export function BedMaterials({ bedId, bedPoint, home }: { bedId: string; bedPoint: LatLng | null; home: ChosenPlace | null }) {
+  const { system } = useUnits();
   // The plan starts at once from the bed's own place, or else from the gardener's home place.
   const first: ChosenPlace | null = bedPoint ? { ...bedPoint, label: "The bed" } : home;
   const [start, setStart] = useState<LatLng | null>(first);
@@ -111,7 +112,7 @@ export function BedMaterials({ bedId, bedPoint, home, system: defaultSystem }: {
         <PlaceSearch label="Start from" name="origin" hint={bedPoint ? "The bed's own place, unless you start from somewhere else." : "This bed has no place of its own yet: a street, village or postcode."} value={startPlace} onChange={(p) => void pick(p, p.label)} />
         {!bedPoint && !home ? <Notice tone="caution">This bed has no place yet: find where you start from above, or tap the map.</Notice> : null}
       </aside>
-      <PlanPanel title="Pickup plan" query={query} origin={origin} system={system} onSystem={setSystem} onPick={pick} onWiden={widen} onSubstitute={substitute} bedId={bedId} />
+      <PlanPanel title="Pickup plan" query={query} origin={origin} system={system} onPick={pick} onWiden={widen} onSubstitute={substitute} bedId={bedId} />
     </div>
   );
 }

@@ -16,6 +16,7 @@ import { replaceNeed } from "./replace-need";
 import { useMatch } from "./use-match";
 import type { ChosenPlace } from "@/components/ui/place-search";
 import { usePointName } from "@/components/ui/use-point-name";
+import { useUnits } from "@/components/ui/units-context";
 
 const finite = (x: unknown): x is number => typeof x === "number" && Number.isFinite(x);
 
@@ -23,20 +24,18 @@ const finite = (x: unknown): x is number => typeof x === "number" && Number.isFi
 export function MatchPlanner({
   initial,
   run,
-  system: defaultSystem,
   skipped,
   startLabel,
 }: {
   initial: MatchRequest;
   run: boolean;
-  system: UnitSystem;
   skipped: number;
   /** What the start in `initial` is called ("Orchard Rise, Fernhollow"); null when none was given. */
   startLabel: string | null;
 }) {
   const router = useRouter();
   const pathname = usePathname();
-  const [system, setSystem] = useState<UnitSystem>(defaultSystem);
+  const { system } = useUnits();
   const [request, setRequest] = useState<MatchRequest | null>(null);
   const [place, setPlace] = useState<ChosenPlace | null>(startLabel && initial.origin ? { ...initial.origin, label: startLabel } : null);
   const nameOf = usePointName();
@@ -88,7 +87,6 @@ export function MatchPlanner({
         query={query}
         origin={origin}
         system={system}
-        onSystem={setSystem}
         onPick={pick}
         onWiden={widen}
         onSubstitute={substitute}

@@ -7,7 +7,7 @@ import { Spinner } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";
 import { PickupPlan } from "./pickup-plan";
 import { PlanMap } from "./plan-map";
-import { UnitToggle } from "./unit-toggle";
+import { UnitSwitch } from "@/components/ui/unit-switch";
 import type { useMatch } from "./use-match";
 
 /** The right-hand side of both planners: the map, the states of the request, and the plan. */
@@ -16,7 +16,6 @@ export function PlanPanel(props: {
   query: ReturnType<typeof useMatch>;
   origin: LatLng;
   system: UnitSystem;
-  onSystem: (s: UnitSystem) => void;
   onPick: (p: LatLng) => void;
   onWiden: (km: number) => void;
   onSubstitute: (need: Need, material: MaterialCode) => void;
@@ -31,7 +30,7 @@ export function PlanPanel(props: {
         <h2 id="plan-title" className="text-2xl font-bold">
           {props.title}
         </h2>
-        <UnitToggle value={system} onChange={props.onSystem} />
+        <UnitSwitch />
       </div>
       <PlanMap origin={plan?.origin ?? props.origin} stops={plan?.stops ?? []} onPick={props.onPick} />
       {query.isFetching ? <Spinner label="Finding the nearest supplies" /> : null}

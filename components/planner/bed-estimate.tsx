@@ -1,19 +1,16 @@
 "use client";
-import { usePathname, useRouter } from "next/navigation";
 import type { UnitSystem } from "@/lib/calc/units";
+import { UnitSwitch } from "@/components/ui/unit-switch";
 import { EstimateView, type ShownEstimate } from "./estimate-view";
-import { UnitToggle } from "./unit-toggle";
 
 /**
  * A saved bed's estimate. Its advice and timeline are written on the server in the units
- * shown, so switching units asks the page again in the others.
+ * shown, so the unit switch asks the page again in the others.
  */
 export function BedEstimate({ result, system }: { result: ShownEstimate; system: UnitSystem }) {
-  const router = useRouter();
-  const pathname = usePathname();
   return (
     <div className="flex flex-col gap-4">
-      <UnitToggle value={system} onChange={(u) => router.replace(`${pathname}?units=${u}`, { scroll: false })} />
+      <UnitSwitch className="self-start" />
       <EstimateView
         result={result}
         system={system}

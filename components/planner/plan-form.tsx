@@ -1,5 +1,5 @@
 "use client";
-import { useMemo, useState } from "react";
+import { useEffect, useMemo, useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { useMutation } from "@tanstack/react-query";
 import Link from "next/link";
@@ -16,7 +16,8 @@ import { Spinner } from "@/components/ui/empty-state";
 import { convertValues, defaultPlanValues, planResolver, toRequest, type PlanValues } from "./form-model";
 import { EstimateView, type ShownEstimate } from "./estimate-view";
 import { DEFAULT_RADIUS_KM } from "@/lib/match/defaults";
-import { UnitToggle } from "./unit-toggle";
+import { UnitSwitch } from "@/components/ui/unit-switch";
+import { useUnits } from "@/components/ui/units-context";
 import { SaveBed } from "./save-bed";
 import { Form } from "@/components/ui/form";
 import { PlaceSearch, type ChosenPlace } from "@/components/ui/place-search";
@@ -67,6 +68,12 @@ export function PlanForm({ system: initialSystem, today, canSave, bed, home = nu
     form.reset(convertValues(getValues(), getValues("system"), u), { keepErrors: false });
     if (estimate.data) void form.handleSubmit((v) => estimate.mutate(v))();
   };
+  // The one unit switch (in the header, and beside the form) drives the planner's units.
+  const { system: viewerSystem } = useUnits();
+  useEffect(() => {
+    if (viewerSystem !== getValues("system")) switchUnits(viewerSystem);
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [viewerSystem]);
 
   // Where the bed is, found by name (or "where I am"): the rectangle's point, or where the
   // map goes to draw the outline.
@@ -92,7 +99,7 @@ export function PlanForm({ system: initialSystem, today, canSave, bed, home = nu
       <Form onSubmit={form.handleSubmit((v) => estimate.mutate(v))} noValidate className="flex flex-col gap-4" aria-label="Bed planner">
         <div className="flex flex-wrap items-center justify-between gap-2">
           <h2 className="text-lg font-semibold">The bed</h2>
-          <UnitToggle value={system} onChange={switchUnits} />
+          <UnitSwitch />
         </div>
         <fieldset className="flex gap-4">
           <legend className="sr-only">Shape</legend>

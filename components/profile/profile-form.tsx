@@ -13,12 +13,14 @@ import { UnitSystemChoice } from "@/components/ui/unit-system-choice";
 import type { Role } from "@/lib/auth/roles";
 import { Form } from "@/components/ui/form";
 import { PlaceSearch } from "@/components/ui/place-search";
+import { useUnits } from "@/components/ui/units-context";
 import { ErrorSummary, useErrorSummary } from "@/components/ui/error-summary";
 
 type Values = z.input<typeof profileSchema>;
 
 export function ProfileForm({ initial, roles, requested }: { initial: Values; roles: Role[]; requested: Role[] }) {
   const router = useRouter();
+  const units = useUnits();
   const [saved, setSaved] = useState(false);
   const form = useForm<Values>({ resolver: zodResolver(profileSchema), defaultValues: initial });
   const summary = useErrorSummary(form);
@@ -30,7 +32,10 @@ export function ProfileForm({ initial, roles, requested }: { initial: Values; ro
     try {
       await apiFetch("/api/me", { method: "PATCH", body: values });
       setSaved(true);
-      router.refresh();
+      // This device reads in the account's units from now on, as the header's switch would
+      // (which also renders the page again).
+      if (values.unit_system && values.unit_system !== units.system) units.setSystem(values.unit_system);
+      else router.refresh();
     } catch (err) {
       summary.fail(err, "Saving failed. Please try again.");
     }

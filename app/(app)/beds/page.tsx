@@ -5,11 +5,13 @@ import { db } from "@/db/index";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button-class";
 import { formatQuantity } from "@/lib/format/quantity";
+import { viewerUnits } from "@/lib/units/viewer";
 
 export const metadata: Metadata = { title: "My beds" };
 
 export default async function BedsPage() {
   const user = await pageUser("/beds", ["gardener"]);
+  const system = await viewerUnits(user);
   const beds: { id: string; name: string; area_m2: number; start_date: string | null }[] = await db()("beds")
     .select("id", "name", "area_m2", "start_date")
     .where({ owner_id: user.id })
@@ -29,7 +31,7 @@ export default async function BedsPage() {
                 {b.name}
               </Link>
               <p className="text-sm text-humus-600">
-                {formatQuantity(b.area_m2, "m2", user.unit_system)}
+                {formatQuantity(b.area_m2, "m2", system)}
                 {b.start_date ? ` · built ${b.start_date}` : ""}
               </p>
             </li>

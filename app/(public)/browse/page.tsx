@@ -6,6 +6,7 @@ import { PageHeading } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";
 import { BrowseView } from "@/components/listings/browse-view";
 import { BROWSE_PAGE, filtersFrom } from "@/components/listings/browse-filters";
+import { viewerUnits } from "@/lib/units/viewer";
 
 export const metadata: Metadata = { title: "Find material" };
 
@@ -25,7 +26,7 @@ export default async function BrowsePage({ searchParams }: { searchParams: Promi
           <Notice tone="caution">Part of that link did not make sense to us, so it shows everything on offer instead.</Notice>
         </div>
       )}
-      <BrowseView initial={{ filters: filtersFrom(query), page }} system={user?.unit_system ?? "metric"} />
+      <BrowseView initial={{ filters: filtersFrom(query), page }} system={await viewerUnits(user)} />
     </div>
   );
 }

@@ -40,7 +40,7 @@ export default async function MatchPage({ searchParams }: { searchParams: Promis
         title="Find the materials"
         lead="Say what your bed needs and where you start from. Duffbank finds nearby listings that cover it, in as few, short and cheap pickups as it can, and draws the round trip."
       />
-      <MatchPlanner initial={initial} run={needs.length > 0 && start !== null} system={user?.unit_system ?? "metric"} skipped={skipped} startLabel={startLabel} />
+      <MatchPlanner initial={initial} run={needs.length > 0 && start !== null} skipped={skipped} startLabel={startLabel} />
     </div>
   );
 }

@@ -10,19 +10,18 @@ import { buttonClass } from "@/components/ui/button-class";
 import { BedEstimate } from "@/components/planner/bed-estimate";
 import { BedStageNotice } from "@/components/planner/bed-stage";
 import { DeleteBedButton } from "@/components/planner/delete-bed-button";
-import type { UnitSystem } from "@/lib/calc/units";
+import { viewerUnits } from "@/lib/units/viewer";
 import { formatQuantity } from "@/lib/format/quantity";
 
 export const metadata: Metadata = { title: "Bed" };
 
-export default async function BedPage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<{ units?: string }> }) {
+export default async function BedPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
-  const { units } = await searchParams;
   const user = await pageUser(`/beds/${id}`, ["gardener"]);
   const row = await findBed(id, user.id);
   if (!row) notFound();
   const bed = toBedView(row);
-  const system: UnitSystem = units === "metric" || units === "imperial" ? units : user.unit_system;
+  const system = await viewerUnits(user);
   const result = await savedBedEstimate(bed, system);
   const today = new Date().toISOString().slice(0, 10);
   const size = "length_m" in bed.shape

@@ -7,6 +7,7 @@ import { effectiveStatus, quantityLeft } from "@/lib/listings/status";
 import { buttonClass } from "@/components/ui/button-class";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { MineTable, type MineRow } from "@/components/listings/mine-table";
+import { viewerUnits } from "@/lib/units/viewer";
 
 export const metadata: Metadata = { title: "What I'm giving" };
 
@@ -47,7 +48,7 @@ export default async function MyListingsPage() {
           When you post spare leaves, boxes or bales, they appear here with how much is left.
         </EmptyState>
       ) : (
-        <MineTable rows={rows} system={user.unit_system} />
+        <MineTable rows={rows} system={await viewerUnits(user)} />
       )}
     </div>
   );

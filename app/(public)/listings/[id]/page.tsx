@@ -17,6 +17,7 @@ import { StatusBadge, VerifiedBadge } from "@/components/listings/status-badge";
 import { QualityList } from "@/components/listings/quality-list";
 import { CultureFacts } from "@/components/grower/culture-facts";
 import { cultureOffer } from "@/lib/services/culture-offer";
+import { viewerUnits } from "@/lib/units/viewer";
 
 // One read per request for both the title and the page.
 const load = cache(async (id: string) => {
@@ -48,7 +49,7 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
   const found = await load(id);
   if (!found) notFound();
   const { viewer, listing } = found;
-  const system = viewer?.unit_system ?? "metric";
+  const system = await viewerUnits(viewer);
   const managed = "can_manage" in listing ? (listing as ManagedListingDetail) : null;
   const size = describeUnitSize(listing.unit, listing.unit_size, listing.unit_mass_kg, system, listing.material);
   const rating = listing.supplier.rating;

@@ -6,12 +6,14 @@ import { toBedView } from "@/lib/services/bed-view";
 import { PageHeading } from "@/components/ui/empty-state";
 import { PlanForm } from "@/components/planner/plan-form";
 import { valuesFromBed } from "@/components/planner/form-model";
+import { viewerUnits } from "@/lib/units/viewer";
 
 export const metadata: Metadata = { title: "Change a bed" };
 
 export default async function EditBedPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const user = await pageUser(`/beds/${id}/edit`, ["gardener"]);
+  const system = await viewerUnits(user);
   const row = await findBed(id, user.id);
   if (!row) notFound();
   const bed = toBedView(row);
@@ -19,7 +21,7 @@ export default async function EditBedPage({ params }: { params: Promise<{ id: st
   return (
     <div>
       <PageHeading title={`Change ${bed.name}`} lead="Adjust the size or the layers, work it out again, then save." />
-      <PlanForm system={user.unit_system} today={today} canSave bed={{ id: bed.id, name: bed.name, values: valuesFromBed(bed, user.unit_system, today) }} />
+      <PlanForm system={system} today={today} canSave bed={{ id: bed.id, name: bed.name, values: valuesFromBed(bed, system, today) }} />
     </div>
   );
 }

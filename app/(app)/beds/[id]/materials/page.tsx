@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 import { pageUser } from "@/lib/auth/page-guard";
 import { formatQuantity } from "@/lib/format/quantity";
 import { findBed } from "@/db/beds";
+import { viewerUnits } from "@/lib/units/viewer";
 import { PageHeading } from "@/components/ui/empty-state";
 import { BedMaterials } from "@/components/match/bed-materials";
 
@@ -24,9 +25,9 @@ export default async function BedMaterialsPage({ params }: { params: Promise<{ i
       </p>
       <PageHeading
         title={`Find materials for ${bed.name}`}
-        lead={`A ${formatQuantity(Number(bed.area_m2), "m2", user.unit_system)} bed. The nearest listings that cover it, in visiting order from the bed and back.`}
+        lead={`A ${formatQuantity(Number(bed.area_m2), "m2", await viewerUnits(user))} bed. The nearest listings that cover it, in visiting order from the bed and back.`}
       />
-      <BedMaterials bedId={bed.id} bedPoint={point} home={user.home ? { ...user.home, label: `${user.home.label} (your home place)` } : null} system={user.unit_system} />
+      <BedMaterials bedId={bed.id} bedPoint={point} home={user.home ? { ...user.home, label: `${user.home.label} (your home place)` } : null} />
     </div>
   );
 }

@@ -10,12 +10,14 @@ import { PageHeading } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";
 import { ListingForm } from "@/components/listings/listing-form";
 import { fromListing } from "@/components/listings/form-values";
+import { viewerUnits } from "@/lib/units/viewer";
 
 export const metadata: Metadata = { title: "Edit listing" };
 
 export default async function EditListingPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const user = await pageUser(`/listings/${id}/edit`, LISTING_ROLES);
+  const system = await viewerUnits(user);
   // Someone else's listing is a 404 here too, exactly as in the API.
   if (!(await findManagedListing(id, user.id))) notFound();
   const listing = (await getListing(id, user.id)) as ManagedListingDetail;
@@ -32,9 +34,9 @@ export default async function EditListingPage({ params }: { params: Promise<{ id
           <ListingForm
             mode="edit"
             listingId={id}
-            unitSystem={user.unit_system}
+            unitSystem={system}
             canSellWorms={user.roles.includes("grower")}
-            initial={fromListing({ ...listing, quality: listing.quality as Record<string, unknown> }, user.unit_system)}
+            initial={fromListing({ ...listing, quality: listing.quality as Record<string, unknown> }, system)}
             photos={listing.photo_records.map((p) => ({ id: p.id, url: p.url }))}
           />
         </div>

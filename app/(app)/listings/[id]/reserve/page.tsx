@@ -11,6 +11,7 @@ import { buttonClass } from "@/components/ui/button-class";
 import { Notice } from "@/components/ui/notice";
 import { ReserveForm } from "@/components/reservations/reserve-form";
 import { ConfirmEmailNotice } from "@/components/profile/account-security";
+import { viewerUnits } from "@/lib/units/viewer";
 
 export const metadata: Metadata = { title: "Reserve" };
 
@@ -63,7 +64,7 @@ export default async function ReservePage({ params }: { params: Promise<{ id: st
           </p>
           <ReserveForm
             offer={offer}
-            unitSystem={user.unit_system}
+            unitSystem={await viewerUnits(user)}
             cautions={pickupCautions({ material: offer.material, unit: offer.unit, unit_mass_kg: offer.unit_mass_kg })}
             // A culture the grower posts: the handling advice is for a parcel, not a trip to collect.
             postedCautions={offer.culture?.ships ? pickupCautions({ material: offer.material, unit: offer.unit, unit_mass_kg: offer.unit_mass_kg, fulfilment: "post" }) : undefined}
