@@ -4,6 +4,8 @@ import { navFor } from "@/lib/auth/navigation";
 import type { SessionUser } from "@/lib/auth/current-user";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { SignOutButton } from "@/components/auth/sign-out-button";
+import { UnitSwitch } from "@/components/ui/unit-switch";
+import { MobileMenu } from "./mobile-menu";
 
 export function SiteHeader({ user }: { user: SessionUser | null }) {
   const links = navFor(user?.roles ?? null);
@@ -16,14 +18,13 @@ export function SiteHeader({ user }: { user: SessionUser | null }) {
         <Link href="/" className="rounded" aria-label="Duffbank home">
           <Wordmark />
         </Link>
-        <details className="group relative md:hidden">
-          <summary className="flex min-h-11 cursor-pointer list-none items-center rounded-lg px-3 ring-1 ring-humus-300">Menu</summary>
-          <div className="absolute right-0 z-40 mt-2 w-64 rounded-lg bg-white p-3 shadow-lg ring-1 ring-humus-200">
-            <NavList links={links} user={user} vertical />
-          </div>
-        </details>
-        <div className="hidden md:block">
+        <MobileMenu>
+          <NavList links={links} user={user} vertical />
+          <UnitSwitch className="mt-3" />
+        </MobileMenu>
+        <div className="hidden items-center gap-3 md:flex">
           <NavList links={links} user={user} />
+          <UnitSwitch />
         </div>
       </div>
     </header>

@@ -68,7 +68,7 @@ export const API_ROUTES: RouteDoc[] = [
   { method: "delete", path: "/api/me/sessions", summary: "Sign out everywhere: ends every session of the account", tag: "accounts", auth: "signed-in", errors: [401] },
   { method: "post", path: "/api/me/confirmation", summary: "Send the e-mail address confirmation link again", tag: "accounts", auth: "signed-in", status: 202, errors: [401, 409, 429] },
   { method: "get", path: "/api/me", summary: "The signed-in person", tag: "accounts", auth: "signed-in", errors: [401] },
-  { method: "patch", path: "/api/me", summary: "Update name, units, reminders and requested roles", tag: "accounts", auth: "signed-in", body: profileSchema, errors: [400, 401, 422] },
+  { method: "patch", path: "/api/me", summary: "Update name, units, home place, reminders and requested roles", tag: "accounts", auth: "signed-in", body: profileSchema, errors: [400, 401, 422] },
   { method: "get", path: "/api/council/members", summary: "Staff of my council", tag: "councils", auth: ["council"], errors: [401, 403] },
   { method: "get", path: "/api/moderation/role-requests", summary: "Roles waiting for a decision", tag: "moderation", auth: ["moderator"], errors: [401, 403] },
   { method: "get", path: "/api/places", summary: "Places, streets and postcodes whose name starts with q, best first, each with its point: the local gazetteer, then the geocoding service when one is set", tag: "places", auth: "public", query: placeSearchSchema, response: placeSearchResponseSchema, errors: [422] },
