@@ -25,7 +25,7 @@ export function ReviewForm({ id, subject }: { id: string; subject: string }) {
         <legend className="font-medium">How was it with {subject}?</legend>
         <div className="mt-1 flex flex-wrap gap-2">
           {[1, 2, 3, 4, 5].map((n) => (
-            <label key={n} className="flex min-h-11 cursor-pointer items-center gap-1 rounded-lg bg-white px-3 ring-1 ring-humus-300 has-[:checked]:bg-moss-600 has-[:checked]:text-white has-[:focus-visible]:ring-2 has-[:focus-visible]:ring-litter-500">
+            <label key={n} className="flex min-h-11 cursor-pointer items-center gap-1 rounded-lg bg-white px-3 ring-1 ring-humus-300 has-[:checked]:bg-moss-600 has-[:checked]:text-white has-[:focus-visible]:outline has-[:focus-visible]:outline-[3px] has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-humus-900">
               {/* Set as a number by hand: react-hook-form's setValueAs does not apply to radios. */}
               <input type="radio" name={`rating-${id}`} value={n} className="sr-only" checked={rating === n} onChange={() => form.setValue("rating", n, { shouldValidate: form.formState.isSubmitted })} />
               <span aria-hidden="true">{"★".repeat(n)}</span>
