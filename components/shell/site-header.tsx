@@ -15,7 +15,7 @@ export function SiteHeader({ user }: { user: SessionUser | null }) {
         Skip to content
       </a>
       <div className="mx-auto flex max-w-6xl flex-wrap items-center justify-between gap-3 px-4 py-3">
-        <Link href="/" className="rounded" aria-label="Duffbank home">
+        <Link href={user ? "/home" : "/"} className="rounded" aria-label={user ? "Duffbank: what is waiting for you" : "Duffbank home"}>
           <Wordmark />
         </Link>
         <MobileMenu>

@@ -38,3 +38,15 @@ export function safeCallbackPath(raw: unknown): string {
   // Still decoding after four rounds: nobody links like that on purpose.
   return HOME;
 }
+
+/** Where a signed-in person lands: what is waiting for them (app/(app)/home). */
+export const SIGNED_IN_HOME = "/home";
+
+/**
+ * Where signing in leads: the page they came from, or — when they came from the public home
+ * page or from nowhere in particular — the page of what is waiting for them.
+ */
+export function afterSignInPath(raw: unknown): string {
+  const path = safeCallbackPath(raw);
+  return path === HOME ? SIGNED_IN_HOME : path;
+}

@@ -3,7 +3,7 @@ import type { Metadata } from "next";
 import { MagicLinkForm, SignInForm } from "@/components/auth/sign-in-form";
 import { Notice } from "@/components/ui/notice";
 import { PageHeading } from "@/components/ui/empty-state";
-import { safeCallbackPath } from "@/lib/auth/callback-url";
+import { afterSignInPath } from "@/lib/auth/callback-url";
 
 export const metadata: Metadata = { title: "Sign in" };
 
@@ -25,7 +25,7 @@ function errorMessage(error: string, retryAfter: string | undefined): string {
 export default async function SignInPage({ searchParams }: { searchParams: Promise<{ callbackUrl?: string; error?: string; retry_after?: string; changed?: string }> }) {
   const { callbackUrl, error, retry_after, changed } = await searchParams;
   // Only paths on this site, so a crafted link cannot bounce people elsewhere.
-  const target = safeCallbackPath(callbackUrl);
+  const target = afterSignInPath(callbackUrl);
   return (
     <div className="mx-auto max-w-md">
       <PageHeading title="Sign in" lead={<>New to Duffbank? <Link className="text-moss-700 underline" href="/sign-up">Join in a minute</Link>.</>} />
