@@ -6,7 +6,8 @@ import Link from "next/link";
 import { bookingSchema, giveawayQuantityIssue } from "@/lib/validation/giveaways";
 import type { SlotView } from "@/lib/services/giveaway-view";
 import type { VisitorBooking } from "@/lib/services/giveaway-for-visitor";
-import { formatGiveawayQuantity } from "@/lib/format/giveaway";
+import { formatGiveawayQuantity, formatTypedGiveawayQuantity } from "@/lib/format/giveaway";
+import { useUnits } from "@/components/ui/units-context";
 import { formatMoney } from "@/lib/payments/money";
 import { depositLabel } from "@/lib/format/giveaway-deposit";
 import { readableDateTime, wallTime } from "@/lib/time/zoned";
@@ -66,6 +67,7 @@ function BookForm(p: BookingPanelProps) {
   const keys = useSubmitKeys();
   const firstOpen = p.slots.find((s) => s.remaining > 0);
   const form = useForm<Values>({ resolver: zodResolver(bookingSchema), defaultValues: { slot_id: firstOpen?.id ?? "", quantity: Math.min(p.householdCap, p.unit === "bags" ? 2 : 0.5) } });
+  const { system } = useUnits();
   const unitWord = p.unit === "bags" ? "bags" : "m³";
   const onSubmit = form.handleSubmit(async (values) => {
     setError(null);
@@ -75,7 +77,7 @@ function BookForm(p: BookingPanelProps) {
       return;
     }
     if (values.quantity > p.householdCap) {
-      form.setError("quantity", { message: `At most ${formatGiveawayQuantity(p.householdCap, p.unit)} a household.` });
+      form.setError("quantity", { message: `At most ${formatTypedGiveawayQuantity(p.householdCap, p.unit, system)} a household.` });
       return;
     }
     try {
@@ -116,7 +118,7 @@ function BookForm(p: BookingPanelProps) {
         step={p.unit === "bags" ? 1 : 0.01}
         min={0}
         inputMode="decimal"
-        hint={`Up to ${formatGiveawayQuantity(p.householdCap, p.unit)} a household.`}
+        hint={`Up to ${formatTypedGiveawayQuantity(p.householdCap, p.unit, system)} a household.`}
         {...form.register("quantity", { valueAsNumber: true })}
         error={form.formState.errors.quantity?.message}
       />
@@ -137,6 +139,7 @@ function BookForm(p: BookingPanelProps) {
 function MyBooking(p: BookingPanelProps & { booking: VisitorBooking }) {
   const action = useApiAction();
   const b = p.booking;
+  const { system } = useUnits();
   const canCancel = b.status === "booked" && Date.parse(p.now) < Date.parse(b.cancel_until);
   const awaiting = b.status === "booked" && b.deposit_status === "awaiting";
   return (
@@ -150,7 +153,7 @@ function MyBooking(p: BookingPanelProps & { booking: VisitorBooking }) {
           {wallTime(b.starts_at, p.timeZone)}–{wallTime(b.ends_at, p.timeZone)}
         </dd>
         <dt className="font-medium">Taking</dt>
-        <dd>{formatGiveawayQuantity(b.quantity, p.unit)}</dd>
+        <dd>{formatGiveawayQuantity(b.quantity, p.unit, system)}</dd>
         <dt className="font-medium">Where</dt>
         <dd>{b.address}</dd>
         {b.deposit_cents > 0 ? (

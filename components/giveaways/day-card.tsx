@@ -4,6 +4,8 @@ import { bookingWindowState } from "@/lib/services/giveaway-view";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { formatMoney } from "@/lib/payments/money";
 import { longDate, readableDateTime, wallTime } from "@/lib/time/zoned";
+import { formatQuantity } from "@/lib/format/quantity";
+import type { UnitSystem } from "@/lib/calc/units";
 
 export function windowLabel(day: PublicDayView, now: Date): string {
   switch (bookingWindowState(day, now)) {
@@ -19,7 +21,7 @@ export function windowLabel(day: PublicDayView, now: Date): string {
 }
 
 /** A giveaway day in a list: what, when, how much a household may take, and how full it is. */
-export function DayCard({ day, now }: { day: PublicDayView; now: Date }) {
+export function DayCard({ day, now, system = "metric" }: { day: PublicDayView; now: Date; system?: UnitSystem }) {
   const left = day.slots.reduce((n, s) => n + s.remaining, 0);
   const first = day.slots[0];
   const last = day.slots[day.slots.length - 1];
@@ -39,7 +41,7 @@ export function DayCard({ day, now }: { day: PublicDayView; now: Date }) {
       </p>
       <dl className="grid grid-cols-2 gap-x-4 gap-y-1 text-sm text-humus-700">
         <dt>Each household</dt>
-        <dd>up to {formatGiveawayQuantity(day.household_cap, day.unit)}</dd>
+        <dd>up to {formatGiveawayQuantity(day.household_cap, day.unit, system)}</dd>
         <dt>Places left</dt>
         <dd>
           {left} in {day.slots.length} {day.slots.length === 1 ? "slot" : "slots"}
@@ -53,7 +55,7 @@ export function DayCard({ day, now }: { day: PublicDayView; now: Date }) {
         {day.distance_km !== undefined ? (
           <>
             <dt>Distance</dt>
-            <dd>about {day.distance_km} km</dd>
+            <dd>about {formatQuantity(day.distance_km, "km", system)}</dd>
           </>
         ) : null}
       </dl>

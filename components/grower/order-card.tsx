@@ -5,6 +5,7 @@ import { formatLocal } from "@/lib/reservations/pickup-times";
 import type { ReservationView } from "@/lib/reservations/view";
 import { ReservationActions } from "@/components/reservations/reservation-actions";
 import { OrderPanel } from "./order-panel";
+import type { UnitSystem } from "@/lib/calc/units";
 
 function waiting(v: ReservationView): string | null {
   if (v.status !== "held") return null;
@@ -12,7 +13,7 @@ function waiting(v: ReservationView): string | null {
 }
 
 /** One open order on the grower's dashboard: who, what, where it goes, and the next step. */
-export function OrderCard({ v }: { v: ReservationView }) {
+export function OrderCard({ v, system = "metric" }: { v: ReservationView; system?: UnitSystem }) {
   const titleId = `o-${v.id}-title`;
   const note = waiting(v);
   const paid = v.amount_cents > 0 && ["paid", "refunded"].includes(v.payment.state) ? `${formatMoney(v.amount_cents, v.currency)} ${v.payment.state}` : null;
@@ -20,7 +21,7 @@ export function OrderCard({ v }: { v: ReservationView }) {
     <article id={`o-${v.id}`} aria-labelledby={titleId} className="flex scroll-mt-24 flex-col gap-3 border-t border-humus-100 pt-4 first:border-0 first:pt-0" data-order={v.id}>
       <header className="flex flex-col gap-0.5">
         <h3 id={titleId} className="font-semibold">
-          {quantityLabel(v.quantity, v.unit)} of {v.listing.title}
+          {quantityLabel(v.quantity, v.unit, system)} of {v.listing.title}
         </h3>
         <p className="text-sm text-humus-700">
           For {v.gardener.name} · ordered {formatLocal(v.created_at)}

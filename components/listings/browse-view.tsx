@@ -12,6 +12,7 @@ import { ListingCard } from "./listing-card";
 import { RADIUS_CHOICES, searchString, type BrowseFilters } from "./browse-filters";
 import { useListings, type BrowsePage } from "./use-listings";
 import { Form } from "@/components/ui/form";
+import { formatQuantity } from "@/lib/format/quantity";
 
 const control = "min-h-11 rounded-lg border border-humus-300 bg-white px-3";
 
@@ -84,7 +85,7 @@ export function BrowseView({ initial, system }: { initial: { filters: BrowseFilt
             <option value="">Anywhere</option>
             {RADIUS_CHOICES.map((r) => (
               <option key={r} value={r}>
-                Within {r} km
+                Within {formatQuantity(r, "km", system)}
               </option>
             ))}
           </select>

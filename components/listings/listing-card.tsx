@@ -51,7 +51,7 @@ export function ListingCard({ item, system, selected = false, onHover }: { item:
           </Link>
         </h3>
         <p className="text-sm text-humus-700">
-          {formatListingQuantity(item.quantity_available, item.unit, system)} left · <span className="font-medium">{formatPrice(item.price_cents, item.currency, item.unit)}</span>
+          {formatListingQuantity(item.quantity_available, item.unit, system)} left · <span className="font-medium">{formatPrice(item.price_cents, item.currency, item.unit, system)}</span>
           {item.deposit_cents > 0 ? ` · ${formatMoney(item.deposit_cents, item.currency)} deposit` : ""}
         </p>
         <p className="flex flex-wrap items-center gap-x-2 gap-y-1 text-sm text-humus-600">

@@ -10,7 +10,8 @@ import { matchSchema, needsToParam, type MatchRequest } from "@/lib/validation/m
 import { DEFAULT_CENTER } from "@/components/map/types";
 import { Button } from "@/components/ui/button";
 import { buttonClass } from "@/components/ui/button-class";
-import { Field } from "@/components/ui/field";
+import { MeasureField } from "@/components/ui/measure-field";
+import { radiusHint, radiusProblem } from "@/lib/match/format";
 import { Notice } from "@/components/ui/notice";
 import { PlanPanel } from "./plan-panel";
 import { replaceNeed } from "./replace-need";
@@ -45,7 +46,7 @@ export function BedMaterials({ bedId, bedPoint, home }: { bedId: string; bedPoin
     const parsed = matchSchema.safeParse(body);
     if (!parsed.success) {
       const issue = parsed.error.issues.find((i) => i.path[0] === "radius_km") ?? parsed.error.issues[0];
-      setRadiusError(issue.message);
+      setRadiusError(issue.path[0] === "radius_km" ? radiusProblem(system) : issue.message);
       return;
     }
     setRadiusError(undefined);
@@ -104,7 +105,7 @@ export function BedMaterials({ bedId, bedPoint, home }: { bedId: string; bedPoin
           noValidate
           className="flex flex-col gap-2"
         >
-          <Field label="Look within (km)" name="radius_km" type="number" inputMode="decimal" step="any" min={1} max={MAX_RADIUS_KM} value={radius} onChange={(e) => setRadius(e.target.value)} error={radiusError} />
+          <MeasureField label="Look within" name="radius_km" unit="km" system={system} max={MAX_RADIUS_KM} value={Number(radius)} onChange={(km) => setRadius(String(km))} error={radiusError} hint={radiusHint(system)} />
           <Button type="submit" disabled={query.isFetching || !start}>
             {query.isFetching ? "Finding…" : "Find materials"}
           </Button>

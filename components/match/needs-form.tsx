@@ -1,14 +1,14 @@
 "use client";
-import { useFieldArray, type UseFormReturn } from "react-hook-form";
+import { Controller, useFieldArray, type UseFormReturn } from "react-hook-form";
 import { MATERIAL_CODES, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
-import { type UnitSystem } from "@/lib/calc/units";
+import { inputUnit, type UnitSystem } from "@/lib/calc/units";
 import { formatQuantity } from "@/lib/format/quantity";
-import { materialNoun } from "@/lib/match/format";
+import { materialNoun, radiusHint, radiusProblem } from "@/lib/match/format";
 import { MAX_NEEDS, MAX_RADIUS_KM } from "@/lib/match/defaults";
 import type { MatchInput, MatchRequest } from "@/lib/validation/match";
-import { NEED_UNIT_LABEL, NEED_UNITS } from "@/lib/match/units";
+import { NEED_UNITS } from "@/lib/match/units";
 import { Button } from "@/components/ui/button";
-import { Field } from "@/components/ui/field";
+import { MeasureField } from "@/components/ui/measure-field";
 import { Form } from "@/components/ui/form";
 import { PlaceSearch, type ChosenPlace } from "@/components/ui/place-search";
 
@@ -83,16 +83,22 @@ export function NeedsForm({
                   ))}
                 </select>
               </div>
-              <Field
-                label="Amount"
-                id={`need-${i}-quantity`}
-                type="number"
-                inputMode="decimal"
-                step="any"
-                min={0}
-                {...form.register(`needs.${i}.quantity`, { valueAsNumber: true })}
-                error={err?.quantity?.message}
-                hint={system === "imperial" && quantity > 0 ? `≈ ${formatQuantity(quantity, unit, "imperial")}` : undefined}
+              <Controller
+                control={form.control}
+                name={`needs.${i}.quantity`}
+                render={({ field }) => (
+                  <MeasureField
+                    label="Amount"
+                    name={field.name}
+                    id={`need-${i}-quantity`}
+                    unit={unit}
+                    system={system}
+                    value={Number(field.value)}
+                    onChange={field.onChange}
+                    error={err?.quantity?.message}
+                    hint={system === "imperial" && quantity > 0 ? `≈ ${formatQuantity(quantity, unit, "imperial")}` : undefined}
+                  />
+                )}
               />
               <div className="flex flex-col gap-1">
                 <label htmlFor={unitId} className="font-medium">
@@ -101,7 +107,7 @@ export function NeedsForm({
                 <select id={unitId} className={selectClass} aria-describedby={err?.unit ? `${unitId}-error` : undefined} {...form.register(`needs.${i}.unit`)}>
                   {NEED_UNITS[material].map((u) => (
                     <option key={u} value={u}>
-                      {NEED_UNIT_LABEL[u]}
+                      {inputUnit(u, system).symbol}
                     </option>
                   ))}
                 </select>
@@ -131,16 +137,23 @@ export function NeedsForm({
         error={errors.origin?.message ?? errors.origin?.lat?.message ?? errors.origin?.lng?.message}
       />
 
-      <Field
-        label="Look within (km)"
-        type="number"
-        step="any"
-        inputMode="decimal"
-        min={1}
-        max={MAX_RADIUS_KM}
-        {...form.register("radius_km", { valueAsNumber: true })}
-        error={errors.radius_km?.message}
-        hint={`Up to ${MAX_RADIUS_KM} km.`}
+      <Controller
+        control={form.control}
+        name="radius_km"
+        render={({ field }) => (
+          <MeasureField
+            label="Look within"
+            name={field.name}
+            unit="km"
+            system={system}
+            value={Number(field.value)}
+            onChange={field.onChange}
+            max={MAX_RADIUS_KM}
+            // The schema speaks in km (the API's unit); the reader is told in theirs.
+            error={errors.radius_km ? radiusProblem(system) : undefined}
+            hint={radiusHint(system)}
+          />
+        )}
       />
       <Button type="submit" disabled={busy}>
         {busy ? "Finding…" : "Find materials"}

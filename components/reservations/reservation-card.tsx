@@ -9,6 +9,7 @@ import { ReservationActions } from "./reservation-actions";
 import { MessagesPanel } from "./message-thread";
 import { ReviewForm } from "./review-form";
 import { OrderPanel } from "@/components/grower/order-panel";
+import type { UnitSystem } from "@/lib/calc/units";
 
 const BY = { gardener: "the gardener", supplier: "the supplier", duffbank: "Duffbank" } as const;
 
@@ -86,7 +87,7 @@ function moneyLine(v: ReservationView): string | null {
   }
 }
 
-export function ReservationCard({ v }: { v: ReservationView }) {
+export function ReservationCard({ v, system = "metric" }: { v: ReservationView; system?: UnitSystem }) {
   const titleId = `r-${v.id}-title`;
   const other = v.side === "gardener" ? v.supplier.name : v.gardener.name;
   const otherId = v.side === "gardener" ? v.supplier.id : v.gardener.id;
@@ -98,7 +99,7 @@ export function ReservationCard({ v }: { v: ReservationView }) {
       <header className="flex flex-wrap items-start justify-between gap-3">
         <div>
           <h2 id={titleId} className="text-lg font-semibold">
-            {quantityLabel(v.quantity, v.unit)} of {v.listing.title}
+            {quantityLabel(v.quantity, v.unit, system)} of {v.listing.title}
           </h2>
           <p className="text-sm text-humus-700">
             {v.side === "gardener" ? `From ${v.supplier.name}` : `For ${v.gardener.name}`} ·{" "}

@@ -8,7 +8,8 @@ import { reserveOneSchema } from "@/lib/validation/reservations";
 import { isApiError, submitOnce } from "@/lib/api/client";
 import { useSubmitKeys } from "@/components/ui/use-submit-keys";
 import { formatMoney, priceFor } from "@/lib/payments/money";
-import { quantityLabel, quantityLimitProblem, WHOLE_UNITS } from "@/lib/reservations/labels";
+import { formatPrice } from "@/lib/listings/format";
+import { quantityLimitProblem, typedQuantityLabel, WHOLE_UNITS } from "@/lib/reservations/labels";
 import { equivalentOf } from "@/lib/reservations/equivalents";
 import { formatLocal } from "@/lib/reservations/pickup-times";
 import { CANCEL_NOTICE_HOURS } from "@/lib/reservations/policy";
@@ -100,10 +101,10 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
           min={whole ? 1 : 0.01}
           step={whole ? 1 : 0.01}
           max={limit}
-          hint={`${quantityLabel(offer.available, offer.unit)} left${offer.max_per_reservation !== null && offer.max_per_reservation < offer.available ? ` · at most ${quantityLabel(offer.max_per_reservation, offer.unit)} per reservation` : ""}`}
+          hint={`${typedQuantityLabel(offer.available, offer.unit, unitSystem)} left${offer.max_per_reservation !== null && offer.max_per_reservation < offer.available ? ` · at most ${typedQuantityLabel(offer.max_per_reservation, offer.unit, unitSystem)} per reservation` : ""}`}
           {...form.register("quantity", {
             valueAsNumber: true,
-            validate: (q) => (Number.isFinite(q) ? (quantityLimitProblem(q, offer) ?? true) : true),
+            validate: (q) => (Number.isFinite(q) ? (quantityLimitProblem(q, offer, unitSystem) ?? true) : true),
           })}
           error={form.formState.errors.quantity?.message}
           className="max-w-40"
@@ -191,7 +192,7 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
         <ul className="mt-2 list-disc pl-5 text-sm leading-relaxed text-humus-800">
           {offer.price_cents > 0 ? (
             <li>
-              {formatMoney(offer.price_cents, offer.currency)} per {quantityLabel(1, offer.unit).replace(/^1 /, "")}, paid by card on the next page. Refunded in full if {offer.supplier.name} declines or cancels, or if you cancel {posted ? "before it is packed" : `at least ${CANCEL_NOTICE_HOURS} hours before your pickup`}.
+              {formatPrice(offer.price_cents, offer.currency, offer.unit, unitSystem)}, paid by card on the next page. Refunded in full if {offer.supplier.name} declines or cancels, or if you cancel {posted ? "before it is packed" : `at least ${CANCEL_NOTICE_HOURS} hours before your pickup`}.
             </li>
           ) : offer.deposit_cents > 0 ? (
             <li>

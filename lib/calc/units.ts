@@ -61,3 +61,28 @@ const METRIC_SYMBOL: Record<DisplayUnit, string> = {
   l: "L",
   kg: "kg",
 };
+
+/**
+ * The unit a person types a quantity in, for fields that hold an SI value: one fixed unit per
+ * system (an input cannot switch between ft³ and yd³ as its number grows), bulk volume in
+ * cubic yards, distance in miles, weight in pounds.
+ */
+export function inputUnit(unit: DisplayUnit, system: UnitSystem): { symbol: string; fromSI: (x: number) => number; toSI: (x: number) => number } {
+  if (system === "metric") return { symbol: METRIC_SYMBOL[unit], fromSI: (x) => x, toSI: (x) => x };
+  switch (unit) {
+    case "m":
+      return { symbol: "ft", fromSI: mToFt, toSI: ftToM };
+    case "km":
+      return { symbol: "mi", fromSI: kmToMi, toSI: (mi) => mi / kmToMi(1) };
+    case "m2":
+      return { symbol: "ft²", fromSI: m2ToFt2, toSI: ft2ToM2 };
+    case "cm":
+      return { symbol: "in", fromSI: cmToIn, toSI: inToCm };
+    case "m3":
+      return { symbol: "yd³", fromSI: m3ToYd3, toSI: yd3ToM3 };
+    case "l":
+      return { symbol: "US gal", fromSI: lToUsGal, toSI: usGalToL };
+    case "kg":
+      return { symbol: "lb", fromSI: kgToLb, toSI: lbToKg };
+  }
+}

@@ -1,7 +1,7 @@
 // How listings read on screen: quantities in the reader's unit system, unit sizes, money and
 // pickup times. Pure and free of server code, so the browse list, the detail page and the
 // form all say the same thing.
-import { lToUsGal, m2ToFt2, m3ToFt3, kgToLb, type UnitSystem } from "@/lib/calc/units";
+import { lToUsGal, m2ToFt2, m3ToFt3, kgToLb, ft2ToM2, lbToKg, yd3ToM3, type UnitSystem } from "@/lib/calc/units";
 import { formatQuantity } from "@/lib/format/quantity";
 import { FOOT_M, LITRE_M3, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { unitAmount } from "@/lib/calc/mass";
@@ -71,10 +71,18 @@ export function formatMoney(cents: number, currency: string): string {
   return new Intl.NumberFormat("en-GB", { style: "currency", currency: currency.toUpperCase() }).format(cents / 100);
 }
 
-export function formatPrice(cents: number, currency: string, unit: ListingUnit): string {
+/**
+ * "£4.00 a bale", "£6.00 a kg" — or, for an imperial reader, the same price a pound, a cubic
+ * yard or a square foot (rounded to the cent; the listing's own price stays per SI unit).
+ */
+export function formatPrice(cents: number, currency: string, unit: ListingUnit, system: UnitSystem = "metric"): string {
   if (cents === 0) return "Free";
-  const per = unit === "sheets" || unit === "bags" || unit === "bales" ? COUNT_WORDS[unit][0] : unit === "m3" ? "m³" : unit === "m2" ? "m²" : "kg";
-  return `${formatMoney(cents, currency)} a ${per}`;
+  if (unit === "sheets" || unit === "bags" || unit === "bales") return `${formatMoney(cents, currency)} a ${COUNT_WORDS[unit][0]}`;
+  if (system === "imperial") {
+    const [perUnit, word] = unit === "m3" ? [yd3ToM3(1), "yd³"] : unit === "m2" ? [ft2ToM2(1), "ft²"] : [lbToKg(1), "lb"];
+    return `${formatMoney(Math.max(1, Math.round(cents * perUnit)), currency)} a ${word}`;
+  }
+  return `${formatMoney(cents, currency)} a ${unit === "m3" ? "m³" : unit === "m2" ? "m²" : "kg"}`;
 }
 
 export const WEEKDAYS = ["Sunday", "Monday", "Tuesday", "Wednesday", "Thursday", "Friday", "Saturday"] as const;

@@ -1,17 +1,28 @@
 // How a reservation's quantity and money read in pages and e-mails.
 import { formatListingQuantity, formatMoney } from "@/lib/listings/format";
 import type { ListingUnit } from "@/lib/validation/listings";
+import type { UnitSystem } from "@/lib/calc/units";
 
 /** Units counted in whole pieces: nobody collects half a bale. */
 export const WHOLE_UNITS = new Set(["sheets", "bags", "bales"]);
 
-/** "3 bales", "0.5 kg": e-mails and history read in the listing's own unit. */
-export function quantityLabel(quantity: number, unit: string): string {
-  return formatListingQuantity(quantity, unit as ListingUnit);
+/** "3 bales", "0.5 kg" (or "1.1 lb" for an imperial reader); e-mails read in the listing's own unit. */
+export function quantityLabel(quantity: number, unit: string, system: UnitSystem = "metric"): string {
+  return formatListingQuantity(quantity, unit as ListingUnit, system);
 }
 
-export function whatLabel(r: { quantity: number; listing: { unit: string; title: string } }): string {
-  return `${quantityLabel(r.quantity, r.listing.unit)} of ${r.listing.title}`;
+/**
+ * A quantity typed in the listing's own unit, for a form's hints and messages: the reader's
+ * unit first, the one they type in after it ("26 lb (12 kg)"), so an imperial reader is never
+ * shown a metric figure alone.
+ */
+export function typedQuantityLabel(quantity: number, unit: string, system: UnitSystem): string {
+  const own = quantityLabel(quantity, unit);
+  return system === "metric" || WHOLE_UNITS.has(unit) ? own : `${quantityLabel(quantity, unit, system)} (${own})`;
+}
+
+export function whatLabel(r: { quantity: number; listing: { unit: string; title: string } }, system: UnitSystem = "metric"): string {
+  return `${quantityLabel(r.quantity, r.listing.unit, system)} of ${r.listing.title}`;
 }
 
 export type MoneyOutcome = "returned" | "kept" | "none";
@@ -33,9 +44,9 @@ export function moneySentence(r: { amount_cents: number; deposit_cents: number; 
  * Why `quantity` cannot be reserved, or null: the tighter of what is left and the listing's
  * cap per reservation speaks, so nobody is told "at most 10" when 8 are left.
  */
-export function quantityLimitProblem(quantity: number, l: { available: number; max_per_reservation: number | null; unit: string }): string | null {
+export function quantityLimitProblem(quantity: number, l: { available: number; max_per_reservation: number | null; unit: string }, system: UnitSystem = "metric"): string | null {
   const cap = l.max_per_reservation;
-  if (cap !== null && cap < l.available) return quantity > cap + 1e-9 ? `At most ${quantityLabel(cap, l.unit)} per reservation on this listing.` : null;
-  if (quantity > l.available + 1e-9) return l.available > 0 ? `Only ${quantityLabel(l.available, l.unit)} left.` : "Nothing is left.";
+  if (cap !== null && cap < l.available) return quantity > cap + 1e-9 ? `At most ${typedQuantityLabel(cap, l.unit, system)} per reservation on this listing.` : null;
+  if (quantity > l.available + 1e-9) return l.available > 0 ? `Only ${typedQuantityLabel(l.available, l.unit, system)} left.` : "Nothing is left.";
   return null;
 }

@@ -12,12 +12,14 @@ import { ShippingForm } from "@/components/grower/shipping-form";
 import { ShippingNotice } from "@/components/grower/shipping-notice";
 import { CultureForm } from "@/components/grower/culture-form";
 import { Panel } from "@/components/ui/panel";
+import { viewerUnits } from "@/lib/units/viewer";
 
 export const metadata: Metadata = { title: "Worm cultures" };
 export const dynamic = "force-dynamic";
 
 export default async function GrowerPage() {
   const user = await pageUser("/grower", ["grower"]);
+  const system = await viewerUnits(user);
   const [stock, { orders, shipping, next_posting_day }] = await Promise.all([cultureStock(user.id), growerOrders(user.id)]);
   const count = (stage: string) => orders.filter((o) => o.status === "confirmed" && o.order?.fulfilment === "post" && o.order.stage === stage).length;
   const toAnswer = orders.filter((o) => o.status === "held").length;
@@ -57,7 +59,7 @@ export default async function GrowerPage() {
         ) : (
           <div className="flex flex-col gap-4">
             {orders.map((v) => (
-              <OrderCard key={v.id} v={v} />
+              <OrderCard key={v.id} v={v} system={system} />
             ))}
           </div>
         )}

@@ -5,6 +5,7 @@ import { listReservations } from "@/lib/services/list-reservations";
 import type { ReservationView } from "@/lib/reservations/view";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { ReservationCard } from "@/components/reservations/reservation-card";
+import { viewerUnits } from "@/lib/units/viewer";
 
 export const metadata: Metadata = { title: "Requests" };
 
@@ -16,6 +17,7 @@ const GROUPS: { id: string; title: string; empty: string; has: (v: ReservationVi
 
 export default async function RequestsPage() {
   const user = await pageUser("/requests", LISTING_ROLES);
+  const system = await viewerUnits(user);
   const views = await listReservations(user.id, "supplier");
   return (
     <div className="mx-auto max-w-3xl">
@@ -35,7 +37,7 @@ export default async function RequestsPage() {
                 <h2 id={`${g.id}-title`} className="text-xl font-bold">
                   {g.title} ({items.length})
                 </h2>
-                {items.length === 0 ? <p className="text-humus-700">{g.empty}</p> : items.map((v) => <ReservationCard key={v.id} v={v} />)}
+                {items.length === 0 ? <p className="text-humus-700">{g.empty}</p> : items.map((v) => <ReservationCard key={v.id} v={v} system={system} />)}
               </section>
             );
           })}

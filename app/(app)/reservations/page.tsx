@@ -6,11 +6,13 @@ import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button-class";
 import { ArrivalNotice } from "@/components/reservations/arrival-notice";
 import { ReservationCard } from "@/components/reservations/reservation-card";
+import { viewerUnits } from "@/lib/units/viewer";
 
 export const metadata: Metadata = { title: "My reservations" };
 
 export default async function MyReservationsPage({ searchParams }: { searchParams: Promise<{ checkout?: string; new?: string }> }) {
   const user = await pageUser("/reservations", ["gardener"]);
+  const system = await viewerUnits(user);
   const { checkout, new: created } = await searchParams;
   const views = await listReservations(user.id, "gardener");
   const current = views.filter((v) => v.status === "held" || v.status === "confirmed");
@@ -31,7 +33,7 @@ export default async function MyReservationsPage({ searchParams }: { searchParam
             <h2 id="current-title" className="text-xl font-bold">
               Coming up ({current.length})
             </h2>
-            {current.length === 0 ? <p className="text-humus-700">Nothing on hold or waiting to be collected.</p> : current.map((v) => <ReservationCard key={v.id} v={v} />)}
+            {current.length === 0 ? <p className="text-humus-700">Nothing on hold or waiting to be collected.</p> : current.map((v) => <ReservationCard key={v.id} v={v} system={system} />)}
           </section>
           {earlier.length > 0 ? (
             <section aria-labelledby="earlier-title" className="flex flex-col gap-4">
@@ -39,7 +41,7 @@ export default async function MyReservationsPage({ searchParams }: { searchParam
                 Earlier ({earlier.length})
               </h2>
               {earlier.map((v) => (
-                <ReservationCard key={v.id} v={v} />
+                <ReservationCard key={v.id} v={v} system={system} />
               ))}
             </section>
           ) : null}

@@ -8,6 +8,7 @@ import { addDays, longDate, wallTime } from "@/lib/time/zoned";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { DayCard } from "@/components/giveaways/day-card";
 import { GiveawayMap } from "@/components/giveaways/giveaway-map";
+import { viewerUnits } from "@/lib/units/viewer";
 
 export const metadata: Metadata = { title: "Giveaway days" };
 export const dynamic = "force-dynamic";
@@ -15,6 +16,7 @@ export const dynamic = "force-dynamic";
 export default async function GiveawaysPage() {
   const now = new Date();
   const [user, days] = await Promise.all([currentUser(), searchGiveaways({ radius_km: 25 })]);
+  const system = await viewerUnits(user);
   const mine = user ? (await bookingsOf(user.id, { fromDate: addDays(now.toISOString().slice(0, 10), -1) })).filter((b) => b.status !== "cancelled") : [];
   return (
     <div className="flex flex-col gap-8">
@@ -33,7 +35,7 @@ export default async function GiveawaysPage() {
                 <Link href={`/giveaways/${b.day_id}`} className="font-medium text-moss-800 underline underline-offset-4">
                   {b.title}
                 </Link>{" "}
-                — {longDate(b.date)}, {wallTime(b.starts_at, b.time_zone)}–{wallTime(b.ends_at, b.time_zone)}, {formatGiveawayQuantity(b.quantity, b.unit)}
+                — {longDate(b.date)}, {wallTime(b.starts_at, b.time_zone)}–{wallTime(b.ends_at, b.time_zone)}, {formatGiveawayQuantity(b.quantity, b.unit, system)}
                 {b.status === "checked_in" ? " (collected)" : ""}
                 {b.day_status === "cancelled" ? " — called off" : ""}
               </li>
@@ -51,7 +53,7 @@ export default async function GiveawaysPage() {
             </h2>
             <ul className="grid gap-4 md:grid-cols-2">
               {days.map((d) => (
-                <DayCard key={d.id} day={d} now={now} />
+                <DayCard key={d.id} day={d} now={now} system={system} />
               ))}
             </ul>
           </section>

@@ -8,6 +8,7 @@ import { whatLabel } from "@/lib/reservations/labels";
 import { PageHeading } from "@/components/ui/empty-state";
 import { ReservationCard } from "@/components/reservations/reservation-card";
 import { ArrivalNotice } from "@/components/reservations/arrival-notice";
+import { viewerUnits } from "@/lib/units/viewer";
 
 export const metadata: Metadata = { title: "Reservation" };
 
@@ -17,6 +18,7 @@ export default async function ReservationPage({ params, searchParams }: { params
   const { id } = await params;
   const { checkout, new: created } = await searchParams;
   const user = await pageUser(`/reservations/${encodeURIComponent(id)}`);
+  const system = await viewerUnits(user);
   const v = await getReservation(id, user.id).catch((err) => {
     if (err instanceof ApiError && err.code === "not_found") notFound();
     throw err;
@@ -29,11 +31,11 @@ export default async function ReservationPage({ params, searchParams }: { params
           {back.label}
         </Link>
       </nav>
-      <PageHeading title={v.side === "gardener" ? "Your reservation" : `Request from ${v.gardener.name}`} lead={whatLabel({ quantity: v.quantity, listing: v.listing })} />
+      <PageHeading title={v.side === "gardener" ? "Your reservation" : `Request from ${v.gardener.name}`} lead={whatLabel({ quantity: v.quantity, listing: v.listing }, system)} />
       <div className="flex flex-col gap-3 empty:hidden">
         {v.side === "gardener" ? <ArrivalNotice v={v} created={created === "1"} cancelled={checkout === "cancelled"} /> : null}
       </div>
-      <ReservationCard v={v} />
+      <ReservationCard v={v} system={system} />
     </div>
   );
 }

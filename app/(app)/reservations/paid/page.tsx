@@ -13,6 +13,7 @@ import { ReservationCard } from "@/components/reservations/reservation-card";
 import type { ReservationView } from "@/lib/reservations/view";
 import { formatMoney } from "@/lib/payments/money";
 import { formatLocal } from "@/lib/reservations/pickup-times";
+import { viewerUnits } from "@/lib/units/viewer";
 
 export const metadata: Metadata = { title: "Payment" };
 
@@ -41,6 +42,7 @@ export default async function PaidPage({ searchParams }: { searchParams: Promise
   const { session_id } = await searchParams;
   // Signed out (a session that ended meanwhile): sign in and come back to this very page.
   const user = await pageUser(session_id ? `/reservations/paid?session_id=${encodeURIComponent(session_id)}` : "/reservations");
+  const system = await viewerUnits(user);
   if (!session_id) notFound();
   const row = await db()("payments as p")
     .join("reservations as r", "r.id", "p.reservation_id")
@@ -73,7 +75,7 @@ export default async function PaidPage({ searchParams }: { searchParams: Promise
       )}
       {next ? (
         <Notice tone="caution" title="One more to pay">
-          <p>{whatLabel({ quantity: next.quantity, listing: next.listing })} is still waiting for its payment.</p>
+          <p>{whatLabel({ quantity: next.quantity, listing: next.listing }, system)} is still waiting for its payment.</p>
           {next.payment.checkout_url ? (
             <a className={buttonClass("primary", "mt-2")} href={next.payment.checkout_url}>
               Pay for the next one
@@ -81,7 +83,7 @@ export default async function PaidPage({ searchParams }: { searchParams: Promise
           ) : null}
         </Notice>
       ) : null}
-      <ReservationCard v={mine} />
+      <ReservationCard v={mine} system={system} />
       <Link href="/reservations" className={buttonClass("secondary", "self-start")}>
         All my reservations
       </Link>

@@ -12,6 +12,7 @@ import { Notice } from "@/components/ui/notice";
 import { BookingPanel } from "@/components/giveaways/booking-panel";
 import { windowLabel } from "@/components/giveaways/day-card";
 import { GiveawayMap } from "@/components/giveaways/giveaway-map";
+import { viewerUnits } from "@/lib/units/viewer";
 
 export const metadata: Metadata = { title: "Giveaway day" };
 export const dynamic = "force-dynamic";
@@ -40,7 +41,7 @@ export default async function GiveawayPage({ params }: { params: Promise<{ id: s
         lead={
           <>
             {day.material_name} from {day.organisation.name} on <strong>{longDate(day.date)}</strong>. Each household may take up to{" "}
-            {formatGiveawayQuantity(day.household_cap, day.unit)}
+            {formatGiveawayQuantity(day.household_cap, day.unit, await viewerUnits(user))}
             {day.bag_m3 ? ` (a bag of about ${Math.round(day.bag_m3 * 1000)} litres)` : ""}.
           </>
         }

@@ -122,7 +122,7 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
               {formatListingQuantity(listing.quantity_available, listing.unit, system)}
               {size ? <span className="block text-sm font-normal text-humus-600">{size}</span> : null}
             </Fact>
-            <Fact label="Price">{formatPrice(listing.price_cents, listing.currency, listing.unit)}</Fact>
+            <Fact label="Price">{formatPrice(listing.price_cents, listing.currency, listing.unit, system)}</Fact>
             <Fact label="No-show deposit">{listing.deposit_cents > 0 ? `${formatMoney(listing.deposit_cents, listing.currency)}, refunded on pickup` : "None"}</Fact>
             {listing.max_per_reservation ? <Fact label="Most per person">{formatListingQuantity(listing.max_per_reservation, listing.unit, system)}</Fact> : null}
             {listing.available_from ? <Fact label="Available from">{formatDay(listing.available_from)}</Fact> : null}

@@ -18,6 +18,7 @@ export const metadata: Metadata = { title: "Reserve" };
 export default async function ReservePage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const user = await pageUser(`/listings/${id}/reserve`, ["gardener"]);
+  const system = await viewerUnits(user);
   const offer = await loadReserveOffer(id);
   if (!offer) notFound();
   const rating = offer.supplier.rating;
@@ -58,13 +59,13 @@ export default async function ReservePage({ params }: { params: Promise<{ id: st
       ) : (
         <div className="rounded-leaf bg-white p-6 ring-1 ring-humus-200">
           <p className="mb-4 text-sm text-humus-700">
-            {quantityLabel(offer.available, offer.unit)} available
+            {quantityLabel(offer.available, offer.unit, system)} available
             {offer.culture ? `, about ${offer.culture.estimated_count.toLocaleString("en-GB")} worms${offer.culture.species ? ` of ${offer.culture.species}` : ""} (roughly 1,000 a pound)` : ""}.{" "}
             {offer.culture && !offer.culture.pickup ? null : `The exact pickup address is sent to you once ${offer.supplier.name} has accepted.`}
           </p>
           <ReserveForm
             offer={offer}
-            unitSystem={await viewerUnits(user)}
+            unitSystem={system}
             cautions={pickupCautions({ material: offer.material, unit: offer.unit, unit_mass_kg: offer.unit_mass_kg })}
             // A culture the grower posts: the handling advice is for a parcel, not a trip to collect.
             postedCautions={offer.culture?.ships ? pickupCautions({ material: offer.material, unit: offer.unit, unit_mass_kg: offer.unit_mass_kg, fulfilment: "post" }) : undefined}
