@@ -6,7 +6,7 @@ import { longDate } from "@/lib/time/zoned";
 export function DaysTable({ days, caption }: { days: StaffDayView[]; caption: string }) {
   return (
     <div className="overflow-x-auto">
-      <table className="w-full text-left text-sm">
+      <table className="stack-table w-full text-left text-sm">
         <caption className="sr-only">{caption}</caption>
         <thead className="bg-humus-100">
           <tr>
@@ -32,10 +32,10 @@ export function DaysTable({ days, caption }: { days: StaffDayView[]; caption: st
                     {longDate(d.date)} · {d.material_name}
                   </div>
                 </td>
-                <td className="p-2">
+                <td className="p-2" data-label="Booked">
                   {booked} of {capacity}
                 </td>
-                <td className="p-2">{d.status === "cancelled" ? "Called off" : "Scheduled"}</td>
+                <td className="p-2" data-label="Status">{d.status === "cancelled" ? "Called off" : "Scheduled"}</td>
                 <td className="p-2">
                   <span className="flex flex-wrap gap-3">
                     <Link href={`/council/giveaways/${d.id}/sheet`} className="text-moss-700 underline">

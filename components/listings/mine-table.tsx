@@ -121,7 +121,7 @@ export function MineTable({ rows, system }: { rows: MineRow[]; system: UnitSyste
         />
       </label>
       <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-humus-200">
-        <table className="w-full text-left text-sm">
+        <table className="stack-table w-full text-left text-sm">
           <caption className="sr-only">My listings; select a column heading to sort</caption>
           <thead className="bg-humus-100">
             {table.getHeaderGroups().map((group) => (
@@ -148,7 +148,7 @@ export function MineTable({ rows, system }: { rows: MineRow[]; system: UnitSyste
             {shown.map((row) => (
               <tr key={row.id} className="border-t border-humus-100 align-top" data-listing-id={row.original.id}>
                 {row.getAllCells().map((cell) => (
-                  <td key={cell.id} className="p-3">
+                  <td key={cell.id} className="p-3" data-label={cell.column.id === "title" ? undefined : String(cell.column.columnDef.header ?? "")}>
                     <table.FlexRender cell={cell} />
                   </td>
                 ))}

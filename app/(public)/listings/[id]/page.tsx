@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import type { ReactNode } from "react";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { cache } from "react";
@@ -178,13 +179,17 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
             // Listed ahead of its start: reserving opens that day (the API refuses it before).
             <Notice>Reservations open on {formatDay(listing.reservable_from)}.</Notice>
           ) : listing.status === "active" && hasRole(viewer, "gardener") ? (
-            <Link href={`/listings/${listing.id}/reserve`} className={buttonClass("primary")}>
-              Reserve
-            </Link>
+            <ReachableAction>
+              <Link href={`/listings/${listing.id}/reserve`} className={buttonClass("primary", "w-full md:w-auto")}>
+                Reserve
+              </Link>
+            </ReachableAction>
           ) : listing.status === "active" && !viewer ? (
-            <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`/listings/${listing.id}`)}`} className={buttonClass("secondary")}>
-              Sign in to reserve
-            </Link>
+            <ReachableAction>
+              <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`/listings/${listing.id}`)}`} className={buttonClass("secondary", "w-full md:w-auto")}>
+                Sign in to reserve
+              </Link>
+            </ReachableAction>
           ) : listing.status !== "active" ? (
             <Notice>This listing is not taking reservations right now.</Notice>
           ) : null}
@@ -196,5 +201,17 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
         </aside>
       </div>
     </article>
+  );
+}
+
+/** On a phone the reserve action stays at the foot of the screen however far down one reads; beside the facts on a wider one. */
+function ReachableAction({ children }: { children: ReactNode }) {
+  return (
+    <>
+      <div data-reserve-bar className="max-md:fixed max-md:inset-x-0 max-md:bottom-0 max-md:z-[1050] max-md:border-t max-md:border-humus-200 max-md:bg-humus-50 max-md:p-3 max-md:shadow-lg">
+        {children}
+      </div>
+      <div aria-hidden="true" className="h-16 md:hidden" />
+    </>
   );
 }
