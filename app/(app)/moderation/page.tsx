@@ -3,6 +3,8 @@ import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
 import { pendingRoleRequests } from "@/db/organisations";
 import { reportQueue, type QueueRow } from "@/db/reports";
+import { groupReports } from "@/lib/moderation/group-reports";
+import { formatLocal } from "@/lib/reservations/pickup-times";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { RoleRequestActions } from "@/components/profile/role-request-actions";
 import { ReportActions } from "@/components/moderation/report-actions";
@@ -44,8 +46,8 @@ export default async function ModerationPage({ searchParams }: { searchParams: P
           <EmptyState title={status === "open" ? "No open reports" : "No closed reports yet"}>Reports about listings and people appear here, oldest first.</EmptyState>
         ) : (
           <ul className="flex flex-col gap-4">
-            {reports.map((r) => (
-              <ReportCard key={r.id} r={r} />
+            {groupReports(reports).map((g) => (
+              <ReportCard key={g.key} reports={g.reports} />
             ))}
           </ul>
         )}
@@ -75,13 +77,18 @@ export default async function ModerationPage({ searchParams }: { searchParams: P
   );
 }
 
-function ReportCard({ r }: { r: QueueRow }) {
+function ReportCard({ reports }: { reports: QueueRow[] }) {
+  const r = reports[0];
   const subject = r.listing_id ? `Listing “${r.listing_title}”` : `Account ${r.subject_name}`;
+  const reasons = [...new Set(reports.map((x) => REPORT_REASON_LABELS[x.reason]))];
   return (
     <li className="grid gap-4 rounded-leaf bg-white p-5 ring-1 ring-humus-200 md:grid-cols-[1fr_minmax(0,360px)]" data-report={r.id}>
       <div className="flex flex-col gap-2">
-        <p className="text-sm font-medium text-ember-800">{REPORT_REASON_LABELS[r.reason]}</p>
-        <h3 className="text-lg font-semibold">{subject}</h3>
+        <p className="text-sm font-medium text-ember-800">{reasons.join(" · ")}</p>
+        <h3 className="text-lg font-semibold">
+          {subject}
+          {reports.length > 1 ? <span className="ml-2 text-base font-normal text-humus-700">{reports.length} reports</span> : null}
+        </h3>
         <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm">
           {r.listing_id ? (
             <>
@@ -95,16 +102,28 @@ function ReportCard({ r }: { r: QueueRow }) {
             {r.subject_suspended_at ? " · suspended" : ""}
             {r.subject_verified_at ? " · verified" : ""}
           </dd>
-          <dt className="font-medium">Reported by</dt>
-          <dd>
-            {r.reporter_name} <span className="text-humus-600">{r.reporter_email}</span>
-          </dd>
-          <dt className="font-medium">When</dt>
-          <dd>{new Date(r.created_at).toLocaleString("en-GB", { timeZone: "Europe/London" })}</dd>
-          <dt className="font-medium">Reports on this</dt>
+          <dt className="font-medium">Reports on this, ever</dt>
           <dd>{r.reports_on_subject}</dd>
         </dl>
-        <blockquote className="whitespace-pre-line border-l-4 border-humus-200 pl-3 text-humus-800">{r.text}</blockquote>
+        <ol className="flex flex-col gap-3">
+          {reports.map((x, i) => (
+            <li key={x.id} className={i >= 3 ? "hidden" : undefined}>
+              <ReportVoice r={x} />
+            </li>
+          ))}
+        </ol>
+        {reports.length > 3 ? (
+          <details>
+            <summary className="cursor-pointer text-sm font-medium text-moss-700 underline underline-offset-2">The other {reports.length - 3} reports</summary>
+            <ol className="mt-2 flex flex-col gap-3">
+              {reports.slice(3).map((x) => (
+                <li key={x.id}>
+                  <ReportVoice r={x} />
+                </li>
+              ))}
+            </ol>
+          </details>
+        ) : null}
         {r.outcome_note ? (
           <p className="text-sm">
             <strong>Outcome:</strong> {r.outcome_note}
@@ -112,7 +131,7 @@ function ReportCard({ r }: { r: QueueRow }) {
         ) : null}
       </div>
       <ReportActions
-        reportId={r.id}
+        reportIds={reports.map((x) => x.id)}
         listingId={r.listing_id}
         listingHidden={r.listing_status === "hidden"}
         userId={r.subject_user_id}
@@ -122,5 +141,17 @@ function ReportCard({ r }: { r: QueueRow }) {
         open={r.status === "open"}
       />
     </li>
+  );
+}
+
+/** One person's report: who, when, why and in their words. */
+function ReportVoice({ r }: { r: QueueRow }) {
+  return (
+    <figure className="flex flex-col gap-1">
+      <blockquote className="whitespace-pre-line border-l-4 border-humus-200 pl-3 text-humus-800">{r.text}</blockquote>
+      <figcaption className="text-sm text-humus-700">
+        {r.reporter_name} <span className="text-humus-600">{r.reporter_email}</span> · {REPORT_REASON_LABELS[r.reason]} · {formatLocal(r.created_at)}
+      </figcaption>
+    </figure>
   );
 }
