@@ -38,10 +38,27 @@ export interface AuditSearch {
 }
 
 /** Newest first, with the actor's name; filters match exactly except `action`, which matches a prefix ("giveaway."). */
-export async function searchAudit(s: AuditSearch, q: Db = db()): Promise<(AuditRow & { actor_name: string | null; actor_email: string | null })[]> {
+export async function searchAudit(s: AuditSearch, q: Db = db()): Promise<(AuditRow & { actor_name: string | null; actor_email: string | null; subject_name: string | null })[]> {
+  // What the subject is called, for the log in words: a listing's title, a person's name, a day's title, a council's name.
   const query = q("audit_log as a")
     .leftJoin("users as u", "u.id", "a.actor_id")
-    .select("a.id", "a.actor_id", "a.action", "a.subject_type", "a.subject_id", "a.before", "a.after", "a.created_at", "u.display_name as actor_name", "u.email as actor_email");
+    .leftJoin("listings as sl", (j) => j.on("sl.id", "a.subject_id").andOnVal("a.subject_type", "listing"))
+    .leftJoin("users as su", (j) => j.on("su.id", "a.subject_id").andOnVal("a.subject_type", "user"))
+    .leftJoin("giveaway_days as sg", (j) => j.on("sg.id", "a.subject_id").andOnVal("a.subject_type", "giveaway_day"))
+    .leftJoin("organisations as so", (j) => j.on("so.id", "a.subject_id").andOnVal("a.subject_type", "organisation"))
+    .select(
+      "a.id",
+      "a.actor_id",
+      "a.action",
+      "a.subject_type",
+      "a.subject_id",
+      "a.before",
+      "a.after",
+      "a.created_at",
+      "u.display_name as actor_name",
+      "u.email as actor_email",
+      q.raw("coalesce(sl.title, su.display_name, sg.title, so.name) as subject_name"),
+    );
   if (s.action) query.where("a.action", "like", `${s.action.replace(/[%_\\]/g, "")}%`);
   if (s.actor_id) query.where("a.actor_id", s.actor_id);
   if (s.subject_type) query.where("a.subject_type", s.subject_type);

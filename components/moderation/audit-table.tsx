@@ -15,6 +15,8 @@ import {
   tableFeatures,
   useTable,
 } from "@tanstack/react-table";
+import { auditSentence, changeLines, subjectWords } from "@/lib/moderation/audit-words";
+import { formatLocal } from "@/lib/reservations/pickup-times";
 
 export interface AuditItem {
   id: number;
@@ -26,6 +28,7 @@ export interface AuditItem {
   subject_id: string | null;
   before: string | null;
   after: string | null;
+  subject_name?: string | null;
 }
 
 const features = tableFeatures({
@@ -41,28 +44,60 @@ const features = tableFeatures({
 
 const helper = createColumnHelper<typeof features, AuditItem>();
 const columns = helper.columns([
-  helper.accessor("id", { header: "#", sortFn: "basic", enableColumnFilter: false }),
   helper.accessor("created_at", {
     header: "When",
     sortFn: "alphanumeric",
     filterFn: "includesString",
-    cell: (c) => new Date(c.getValue()).toLocaleString("en-GB", { timeZone: "Europe/London" }),
+    cell: (c) => formatLocal(c.getValue()),
   }),
-  helper.accessor((r) => `${r.actor_name ?? "system"} ${r.actor_email ?? ""}`.trim(), { id: "who", header: "Who", filterFn: "includesString", sortFn: "alphanumeric" }),
-  helper.accessor("action", { header: "What", filterFn: "includesString", sortFn: "alphanumeric" }),
-  helper.accessor("subject_type", { header: "On", filterFn: "equalsString", sortFn: "alphanumeric" }),
-  helper.accessor((r) => r.subject_id ?? "", { id: "subject_id", header: "Which", filterFn: "includesString", sortFn: "alphanumeric" }),
-  helper.accessor((r) => r.before ?? "", { id: "before", header: "Before", filterFn: "includesString", enableSorting: false, cell: (c) => <Json text={c.getValue()} /> }),
-  helper.accessor((r) => r.after ?? "", { id: "after", header: "After", filterFn: "includesString", enableSorting: false, cell: (c) => <Json text={c.getValue()} /> }),
+  helper.accessor((r) => `${r.actor_name ?? "Duffbank"} ${r.actor_email ?? ""}`.trim(), {
+    id: "who",
+    header: "Who",
+    filterFn: "includesString",
+    sortFn: "alphanumeric",
+    cell: (c) => (
+      <span className="flex flex-col">
+        <span>{c.row.original.actor_name ?? "Duffbank"}</span>
+        {c.row.original.actor_email ? <span className="text-xs text-humus-700">{c.row.original.actor_email}</span> : null}
+      </span>
+    ),
+  }),
+  helper.accessor((r) => auditSentence(r), { id: "what", header: "What happened", filterFn: "includesString", sortFn: "alphanumeric" }),
+  helper.accessor("subject_type", { header: "On", filterFn: "equalsString", sortFn: "alphanumeric", cell: (c) => subjectWords({ subject_type: c.getValue(), subject_name: null }) }),
+  helper.display({ id: "details", header: "Details", cell: (c) => <Details item={c.row.original} /> }),
 ]);
 
-function Json({ text }: { text: string }) {
-  if (!text) return <span className="text-humus-500">—</span>;
+/** The values before and after, as "field: value" lines, behind a toggle; the stored codes for those who need them. */
+function Details({ item }: { item: AuditItem }) {
+  const before = changeLines(item.before);
+  const after = changeLines(item.after);
   return (
     <details>
-      <summary className="max-w-[16rem] cursor-pointer truncate font-mono text-xs">{text}</summary>
-      <pre className="max-w-md overflow-x-auto whitespace-pre-wrap break-all font-mono text-xs">{JSON.stringify(JSON.parse(text), null, 2)}</pre>
+      <summary className="cursor-pointer text-moss-700 underline underline-offset-2">Details</summary>
+      <div className="mt-2 flex max-w-md flex-col gap-2 text-xs">
+        {before.length ? <Lines title="Before" lines={before} /> : null}
+        {after.length ? <Lines title="After" lines={after} /> : null}
+        <p className="text-humus-700">
+          Entry {item.id} · {item.action} · {item.subject_type} {item.subject_id ?? ""}
+        </p>
+      </div>
     </details>
+  );
+}
+
+function Lines({ title, lines }: { title: string; lines: { field: string; value: string }[] }) {
+  return (
+    <div>
+      <p className="font-semibold">{title}</p>
+      <dl className="grid grid-cols-[auto_1fr] gap-x-3">
+        {lines.map((l) => (
+          <div key={l.field} className="contents">
+            <dt>{l.field}</dt>
+            <dd className="break-words">{l.value}</dd>
+          </div>
+        ))}
+      </dl>
+    </div>
   );
 }
 
@@ -75,7 +110,7 @@ export function AuditTable({ items }: { items: AuditItem[] }) {
     columns,
     data,
     getRowId: (r) => String(r.id),
-    initialState: { sorting: [{ id: "id", desc: true }], pagination: { pageIndex: 0, pageSize: 50 } },
+    initialState: { sorting: [{ id: "created_at", desc: true }], pagination: { pageIndex: 0, pageSize: 50 } },
   });
   const filter = (id: string) => table.getColumn(id)!;
   const rows = table.getRowModel().rows;
@@ -83,7 +118,7 @@ export function AuditTable({ items }: { items: AuditItem[] }) {
     <div className="flex flex-col gap-3">
       <div className="grid gap-3 rounded-lg bg-white p-4 ring-1 ring-humus-200 sm:grid-cols-2 lg:grid-cols-4" role="search" aria-label="Filter the audit log">
         <TextFilter label="Who" value={(filter("who").getFilterValue() as string) ?? ""} onChange={(v) => filter("who").setFilterValue(v || undefined)} />
-        <TextFilter label="Action" hint="e.g. listing.hide, giveaway." value={(filter("action").getFilterValue() as string) ?? ""} onChange={(v) => filter("action").setFilterValue(v || undefined)} />
+        <TextFilter label="What happened" hint="e.g. hid, suspended, checked in" value={(filter("what").getFilterValue() as string) ?? ""} onChange={(v) => filter("what").setFilterValue(v || undefined)} />
         <div className="flex flex-col gap-1">
           <label htmlFor="audit-on" className="text-sm font-medium">
             On
@@ -92,12 +127,12 @@ export function AuditTable({ items }: { items: AuditItem[] }) {
             <option value="">anything</option>
             {subjectTypes.map((t) => (
               <option key={t} value={t}>
-                {t}
+                {subjectWords({ subject_type: t, subject_name: null })}
               </option>
             ))}
           </select>
         </div>
-        <TextFilter label="Which (id)" value={(filter("subject_id").getFilterValue() as string) ?? ""} onChange={(v) => filter("subject_id").setFilterValue(v || undefined)} />
+        <TextFilter label="When" hint="e.g. 3 Dec" value={(filter("created_at").getFilterValue() as string) ?? ""} onChange={(v) => filter("created_at").setFilterValue(v || undefined)} />
       </div>
       <p aria-live="polite" className="text-sm text-humus-700">
         {table.getFilteredRowModel().rows.length} of {items.length} entries

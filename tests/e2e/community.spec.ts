@@ -168,13 +168,17 @@ test("a moderator hides a reported listing and it is gone from browse", async ({
   await g.goto(`/report?listing=${listingId}`);
   await expect(g.getByText("already hidden from browsing")).toBeVisible();
 
-  // The audit log has both actions, filterable.
+  // The audit log has both actions in words, filterable, the values behind a details toggle.
   await m.goto("/moderation/audit");
-  await m.getByLabel("Action").fill("listing.hide");
-  await m.getByLabel("Which (id)").fill(listingId);
-  await expect(m.locator("tr[data-action='listing.hide']").filter({ hasText: "Hidden while the supplier sorts the bags." })).toHaveCount(1);
-  await expect(m.locator("tr[data-action='listing.hide']").filter({ hasText: "Sol Ferreira" }).first()).toBeVisible();
+  await m.getByLabel("What happened").fill("hid the listing “Bagged oak");
+  const hid = m.locator("tr[data-action='listing.hide']").filter({ hasText: "Hidden while the supplier sorts the bags." });
+  await expect(hid).toHaveCount(1);
+  await expect(hid).toContainText("Sol Ferreira hid the listing “Bagged oak and beech leaves”");
   await expect(m.locator("tr[data-action='report.close']")).toHaveCount(0);
+  await hid.getByText("Details").click();
+  await expect(hid.getByText("Note", { exact: true })).toBeVisible();
+  // No raw JSON or dotted codes in the readable part of the row.
+  await expect(hid.locator("td").nth(2)).not.toContainText("{");
   await m.screenshot({ path: shot("audit-log"), fullPage: true });
 
   // Put the demo back as it was for the specs that follow.
