@@ -3,7 +3,7 @@ import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { isApiError } from "@/lib/api/client";
-import { STAGES_OF, stageLabel } from "@/lib/reservations/culture-orders";
+import { dayLabel, STAGES_OF, stageLabel } from "@/lib/reservations/culture-orders";
 import { formatLocal } from "@/lib/reservations/pickup-times";
 import type { ReservationView } from "@/lib/reservations/view";
 import { shipOrderSchema } from "@/lib/validation/grower";
@@ -68,6 +68,12 @@ export function OrderPanel({ v }: { v: ReservationView }) {
         ) : null}
       </dl>
 
+      {v.side === "supplier" && order.posting && !order.posting.today && !order.posting.paused && (order.actions.includes("pack") || order.actions.includes("ship")) ? (
+        <p className="rounded-lg bg-litter-100 p-2 text-sm ring-1 ring-litter-300" data-testid="posting-day-warning">
+          Today is not one of your posting days: live worms packed or handed to the carrier now would wait in the parcel.
+          {order.posting.next_day ? ` The next posting day is ${dayLabel(order.posting.next_day)}.` : ""}
+        </p>
+      ) : null}
       {order.actions.length ? (
         <div className="flex flex-wrap items-start gap-2">
           {order.actions.includes("pack") ? (

@@ -105,3 +105,14 @@ export function nextPostingDay(weekdays: readonly number[], now: Date, tz = PICK
 export function dayLabel(date: string): string {
   return new Intl.DateTimeFormat("en-GB", { timeZone: "UTC", weekday: "long", day: "numeric", month: "long" }).format(new Date(`${date}T12:00:00Z`));
 }
+
+/**
+ * Where a posted order stands against the grower's posting days: whether today (in the town's
+ * zone) is one, and the next one after it, so a grower is warned before packing live worms
+ * that would sit waiting for the post.
+ */
+export function postingState(weekdays: readonly number[], paused: boolean, now: Date, tz = PICKUP_TIME_ZONE): { today: boolean; next_day: string | null; paused: boolean } {
+  const [y, m, d] = new Intl.DateTimeFormat("en-CA", { timeZone: tz, year: "numeric", month: "2-digit", day: "2-digit" }).format(now).split("-").map(Number);
+  const weekday = new Date(Date.UTC(y, m - 1, d, 12)).getUTCDay();
+  return { today: !paused && weekdays.includes(weekday), next_day: paused ? null : nextPostingDay(weekdays, now, tz), paused };
+}

@@ -5,7 +5,7 @@ import type { ReservationContext } from "@/db/reservation-context";
 import type { PaymentRow, ReservationEventRow } from "@/db/types";
 import { allowedActions, owesPayment, type ReservationAction, type Side } from "./policy";
 import { windowLabel } from "./pickup-times";
-import { allowedOrderActions, estimatedWorms, type Fulfilment, type OrderAction, type OrderStage } from "./culture-orders";
+import { allowedOrderActions, estimatedWorms, postingState, type Fulfilment, type OrderAction, type OrderStage } from "./culture-orders";
 
 export interface ReservationView {
   id: string;
@@ -63,6 +63,8 @@ export interface ReservationView {
     shipped_at: string | null;
     estimated_count: number;
     actions: OrderAction[];
+    /** Posted orders: whether today is one of the grower's posting days, and the next one (YYYY-MM-DD). */
+    posting: { today: boolean; next_day: string | null; paused: boolean } | null;
   } | null;
 }
 
@@ -74,8 +76,8 @@ export interface ViewInput {
   payments: PaymentRow[];
   history: ReservationEventRow[];
   reviews: { author_id: string; rating: number; comment: string }[];
-  /** The grower's posting pause, for whether "shipped" can be offered. */
-  shipping?: { paused: boolean };
+  /** The grower's posting pause, for whether "shipped" can be offered, and posting weekdays (0 Sunday). */
+  shipping?: { paused: boolean; weekdays?: readonly number[] };
 }
 
 const REVEALED = new Set(["confirmed", "collected", "no_show"]);
@@ -173,6 +175,7 @@ export function reservationView({ r, side, viewerId, now, payments, history, rev
           shipped_at: r.shipped_at,
           estimated_count: estimatedWorms(r.quantity),
           actions: allowedOrderActions(r, side, { postingPaused: !!shipping?.paused }),
+          posting: r.fulfilment === "post" && shipping?.weekdays ? postingState(shipping.weekdays, !!shipping.paused, now) : null,
         }
       : null,
   };

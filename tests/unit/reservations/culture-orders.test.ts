@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { allowedOrderActions, cultureOptions, dayLabel, defaultFulfilment, estimatedWorms, nextPostingDay, orderBlockedReason, type OrderSubject } from "@/lib/reservations/culture-orders";
+import { allowedOrderActions, cultureOptions, dayLabel, defaultFulfilment, estimatedWorms, nextPostingDay, orderBlockedReason, postingState, type OrderSubject } from "@/lib/reservations/culture-orders";
 
 const order = (over: Partial<OrderSubject> = {}): OrderSubject => ({ status: "confirmed", fulfilment: "post", order_stage: "paid", ...over });
 const open = { postingPaused: false };
@@ -52,5 +52,19 @@ describe("what a culture listing offers", () => {
     // 1 kg ÷ 0.45359237 kg/lb × 1,000 = 2,204.6 → 2,200; 0.5 kg → 1,102 → 1,100.
     expect(estimatedWorms(1)).toBe(2200);
     expect(estimatedWorms(0.5)).toBe(1100);
+  });
+});
+
+describe("a posted order against the grower's posting days", () => {
+  // 3 December 2026 is a Thursday, 7 December a Monday (calendar).
+  const thursday = new Date("2026-12-03T11:00:00Z");
+  it("warns on a day the grower does not post, and names the next posting day", () => {
+    expect(postingState([1, 2], false, thursday)).toEqual({ today: false, next_day: "2026-12-07", paused: false });
+  });
+  it("is quiet on a posting day", () => {
+    expect(postingState([4], false, thursday).today).toBe(true);
+  });
+  it("has no posting day while posting is paused", () => {
+    expect(postingState([4], true, thursday)).toEqual({ today: false, next_day: null, paused: true });
   });
 });
