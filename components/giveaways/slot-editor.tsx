@@ -16,6 +16,9 @@ export function SlotEditor({ dayId, slots, timeZone, editable }: { dayId: string
     <div className="flex flex-col gap-3">
       {action.error ? <Notice tone="error">{action.error}</Notice> : null}
       {slots.length === 0 ? <p className="text-humus-700">No slots yet: households cannot book until there is one.</p> : null}
+      {editable && slots.length > 0 ? (
+        <p className="text-sm text-humus-700">Change how many households a slot takes and save it; it cannot go below the households already booked. A slot nobody has booked can be removed.</p>
+      ) : null}
       <ul className="divide-y divide-humus-100">
         {slots.map((s) => {
           const label = `${wallTime(s.starts_at, timeZone)}–${wallTime(s.ends_at, timeZone)}`;
@@ -30,8 +33,8 @@ export function SlotEditor({ dayId, slots, timeZone, editable }: { dayId: string
               </span>
               {editable ? (
                 <span className="flex items-center gap-2">
-                  <label className="sr-only" htmlFor={`size-${s.id}`}>
-                    Households in the {label} slot
+                  <label className="text-sm" htmlFor={`size-${s.id}`}>
+                    Households<span className="sr-only"> in the {label} slot</span>
                   </label>
                   <input
                     id={`size-${s.id}`}
@@ -41,7 +44,7 @@ export function SlotEditor({ dayId, slots, timeZone, editable }: { dayId: string
                     onChange={(e) => setSizes({ ...sizes, [s.id]: e.target.value })}
                   />
                   <Button variant="secondary" disabled={action.busy} onClick={() => action.run(`/api/council/giveaways/${dayId}/slots/${s.id}`, { method: "PATCH", body: { capacity: Number(sizes[s.id] ?? s.capacity) } })}>
-                    Resize<span className="sr-only"> {label}</span>
+                    Save places<span className="sr-only"> for {label}</span>
                   </Button>
                   {s.booked === 0 ? (
                     <Button variant="quiet" disabled={action.busy} onClick={() => action.run(`/api/council/giveaways/${dayId}/slots/${s.id}`, { method: "DELETE" })}>
