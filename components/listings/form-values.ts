@@ -43,7 +43,7 @@ export interface ListingFormState {
   address: string;
   available_from: string;
   available_until: string;
-  quality: { tape_removed: boolean; no_glossy_print: boolean; herbicide_history: string; leaf_source: string; species: string };
+  quality: { tape_removed: boolean; no_glossy_print: boolean; herbicide_history: string; leaf_source: string; species: string; ships: boolean; pickup: boolean };
   pickup_windows: WindowValues[];
   photos: UploadedPhoto[];
 }
@@ -107,7 +107,7 @@ const fromWallClock = (iso: string | null) => (iso ? iso.slice(0, 16) : "");
 function qualityBody(material: MaterialCode, q: ListingFormState["quality"]) {
   if (material === "cardboard") return { tape_removed: q.tape_removed, no_glossy_print: q.no_glossy_print };
   if (material === "leaves") return q.leaf_source ? { leaf_source: q.leaf_source } : {};
-  if (material === "worms") return q.species.trim() ? { species: q.species.trim() } : {};
+  if (material === "worms") return { ...(q.species.trim() ? { species: q.species.trim() } : {}), ships: q.ships, pickup: q.pickup };
   if (HERBICIDE_MATERIALS.includes(material)) return q.herbicide_history ? { herbicide_history: q.herbicide_history } : {};
   return {};
 }
@@ -167,7 +167,7 @@ export function emptyForm(material: MaterialCode = "leaves"): ListingFormState {
     address: "",
     available_from: "",
     available_until: "",
-    quality: { tape_removed: true, no_glossy_print: true, herbicide_history: "", leaf_source: "", species: "" },
+    quality: { tape_removed: true, no_glossy_print: true, herbicide_history: "", leaf_source: "", species: "", ships: true, pickup: true },
     pickup_windows: [{ kind: "weekly", weekday: "6", start_time: "09:00", end_time: "12:00", starts_at: "", ends_at: "" }],
     photos: [],
   };
@@ -195,7 +195,7 @@ export interface StoredListingValues {
   pickup: { address: string; location: { lat: number; lng: number } };
   available_from: string | null;
   available_until: string | null;
-  quality: Partial<Record<"tape_removed" | "no_glossy_print" | "herbicide_history" | "leaf_source" | "species", unknown>>;
+  quality: Partial<Record<"tape_removed" | "no_glossy_print" | "herbicide_history" | "leaf_source" | "species" | "ships" | "pickup", unknown>>;
   pickup_windows: { kind: "weekly" | "dated"; weekday: number | null; start_time: string | null; end_time: string | null; starts_at: string | null; ends_at: string | null }[];
 }
 
@@ -228,6 +228,8 @@ export function fromListing(l: StoredListingValues, system: UnitSystem): Listing
       herbicide_history: typeof l.quality.herbicide_history === "string" ? l.quality.herbicide_history : "",
       leaf_source: typeof l.quality.leaf_source === "string" ? l.quality.leaf_source : "",
       species: typeof l.quality.species === "string" ? l.quality.species : "",
+      ships: l.quality.ships !== false,
+      pickup: l.quality.pickup !== false,
     },
     pickup_windows: l.pickup_windows.map((w) => ({
       kind: w.kind,

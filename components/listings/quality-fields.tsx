@@ -90,6 +90,18 @@ export function QualityFields({ form, material }: { form: UseFormReturn<ListingF
             ))}
           </datalist>
           <GroupError id="field-species-error" error={errors?.species?.message} />
+          <fieldset className="mt-2 flex flex-col gap-1" aria-describedby="field-quality.ships-error">
+            <legend className="font-medium">How buyers get it</legend>
+            <div className="flex flex-wrap gap-4">
+              <label className="flex min-h-11 items-center gap-2">
+                <input id="field-quality.ships" type="checkbox" className="h-5 w-5" {...form.register("quality.ships")} /> Posted to them
+              </label>
+              <label className="flex min-h-11 items-center gap-2">
+                <input type="checkbox" className="h-5 w-5" {...form.register("quality.pickup")} /> Collected from you
+              </label>
+            </div>
+            <GroupError id="field-quality.ships-error" error={errors?.ships?.message} />
+          </fieldset>
         </div>
       ) : null}
       {errors?.message ? <GroupError id="quality-error" error={errors.message} /> : null}

@@ -58,6 +58,9 @@ export const qualitySchema = z
     herbicide_history: z.enum(HERBICIDE_HISTORY, { error: "Choose what you know about sprays." }).optional(),
     leaf_source: z.enum(LEAF_SOURCES, { error: "Choose where the leaves came from." }).optional(),
     species: z.string().trim().min(3, "Name the worm species (at least 3 letters).").max(80, "Use at most 80 characters.").optional(),
+    /** Live cultures: posted to the buyer, collected from the grower, or both (both when not said). */
+    ships: z.boolean({ error: "Say whether you post it." }).optional(),
+    pickup: z.boolean({ error: "Say whether it can be collected." }).optional(),
   })
   .strict();
 export type QualityInput = z.infer<typeof qualitySchema>;
@@ -164,7 +167,7 @@ export function checkListingRules(l: Fields, ctx: z.RefinementCtx): void {
       : l.material === "leaves"
         ? ["leaf_source"]
         : l.material === "worms"
-          ? ["species"]
+          ? ["species", "ships", "pickup"]
           : HERBICIDE_MATERIALS.includes(l.material)
             ? ["herbicide_history"]
             : [],
@@ -174,6 +177,7 @@ export function checkListingRules(l: Fields, ctx: z.RefinementCtx): void {
   }
   // Buyers must be able to tell which worms they get: some species are invasive in some regions.
   if (l.material === "worms" && !q.species) ctx.addIssue({ code: "custom", path: ["quality", "species"], message: "Name the worm species." });
+  if (l.material === "worms" && q.ships === false && q.pickup === false) ctx.addIssue({ code: "custom", path: ["quality", "ships"], message: "Offer posting, collection or both." });
   if (HERBICIDE_MATERIALS.includes(l.material) && !q.herbicide_history) {
     ctx.addIssue({ code: "custom", path: ["quality", "herbicide_history"], message: "Say what you know about sprays on it." });
   }

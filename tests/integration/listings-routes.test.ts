@@ -109,6 +109,13 @@ describe("who may call the listing routes", () => {
     const grower = await call(listings.POST as never, await request("/api/listings", { as: who.grower, body }));
     expect(grower.status).toBe(201);
   });
+
+  it("a culture says at creation whether it is posted, collected or both", async () => {
+    const body = listingBody({ material: "worms", unit: "kg", quantity: 1, quality: { species: "Eisenia fetida", ships: true, pickup: false }, title: "Posted wigglers" });
+    const res = await call(listings.POST as never, await request("/api/listings", { as: who.grower, body }));
+    expect(res.status).toBe(201);
+    expect(res.json.listing.quality).toMatchObject({ ships: true, pickup: false });
+  });
 });
 
 describe("bad input gets a 4xx with a message on the field", () => {
@@ -130,6 +137,7 @@ describe("bad input gets a 4xx with a message on the field", () => {
     ["leaves without their source", { quality: {} }, "quality.leaf_source"],
     ["a declaration for another material", { quality: { leaf_source: "garden", tape_removed: true } }, "quality"],
     ["worms without a species", { material: "worms", unit: "kg", quantity: 1, quality: {} }, "quality.species"],
+    ["a culture neither posted nor collected", { material: "worms", unit: "kg", quantity: 1, quality: { species: "Eisenia fetida", ships: false, pickup: false } }, "quality.ships"],
     ["straw without its spray history", { material: "straw", unit: "bales", quantity: 4, quality: {} }, "quality.herbicide_history"],
     ["half a bag per person", { max_per_reservation: 1.5 }, "max_per_reservation"],
     ["a bale weight on bags", { unit_mass_kg: 20 }, "unit_mass_kg"],
