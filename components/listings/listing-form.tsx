@@ -42,7 +42,8 @@ export function ListingForm(props: Props) {
   const schemaResolver = zodResolver(createListingSchema);
   const resolver: Resolver<ListingFormState> = (values, context, options) =>
     schemaResolver(toBody(values, system) as never, context, options as never) as never;
-  const form = useForm<ListingFormState>({ resolver, defaultValues: props.mode === "edit" ? props.initial : emptyForm() });
+  // The error summary takes the focus on a failed submit (react-hook-form would move it to the first field).
+  const form = useForm<ListingFormState>({ resolver, defaultValues: props.mode === "edit" ? props.initial : emptyForm(), shouldFocusError: false });
   const { register, setValue, formState } = form;
   const errors = formState.errors;
   const [material, unit, priced, location] = useWatch({ control: form.control, name: ["material", "unit", "priced", "location"] });

@@ -22,7 +22,8 @@ export function ProfileForm({ initial, roles, requested }: { initial: Values; ro
   const router = useRouter();
   const units = useUnits();
   const [saved, setSaved] = useState(false);
-  const form = useForm<Values>({ resolver: zodResolver(profileSchema), defaultValues: initial });
+  // The error summary takes the focus on a failed submit.
+  const form = useForm<Values>({ resolver: zodResolver(profileSchema), defaultValues: initial, shouldFocusError: false });
   const summary = useErrorSummary(form);
   const home = useWatch({ control: form.control, name: "home" });
 

@@ -22,11 +22,12 @@ export function UnitSwitch({ className = "" }: { className?: string }) {
         <label
           key={c.value}
           title={c.units}
-          className={`flex min-h-10 cursor-pointer items-center rounded-md px-3 font-semibold has-[:focus-visible]:outline has-[:focus-visible]:outline-[3px] has-[:focus-visible]:outline-offset-1 has-[:focus-visible]:outline-humus-900 ${
+          className={`relative flex min-h-10 cursor-pointer items-center rounded-md px-3 font-semibold has-[:focus-visible]:outline has-[:focus-visible]:outline-[3px] has-[:focus-visible]:outline-offset-1 has-[:focus-visible]:outline-humus-900 ${
             system === c.value ? "bg-white text-humus-900 shadow-sm ring-1 ring-humus-400" : "text-humus-800"
           }`}
         >
-          <input type="radio" name={name} value={c.value} checked={system === c.value} onChange={() => setSystem(c.value)} className="sr-only" />
+          {/* Laid over its label, invisible: a click or tap lands on the radio itself, and it keeps the arrow keys of a radio group. */}
+          <input type="radio" name={name} value={c.value} checked={system === c.value} onChange={() => setSystem(c.value)} className="absolute inset-0 m-0 h-full w-full cursor-pointer opacity-0" />
           {c.label}
         </label>
       ))}
