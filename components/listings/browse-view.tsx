@@ -12,7 +12,7 @@ import { ListingCard } from "./listing-card";
 import { RADIUS_CHOICES, searchString, type BrowseFilters } from "./browse-filters";
 import { useListings, type BrowsePage } from "./use-listings";
 import { Form } from "@/components/ui/form";
-import { formatQuantity } from "@/lib/format/quantity";
+import { fewHundred, formatQuantity } from "@/lib/format/quantity";
 
 const control = "min-h-11 rounded-lg border border-humus-300 bg-white px-3";
 
@@ -152,7 +152,7 @@ export function BrowseView({ initial, system }: { initial: { filters: BrowseFilt
           />
           <div className="flex flex-wrap items-center gap-3 text-sm text-humus-700">
             <span>
-              {filters.point ? (fromTown ? "Distances from the centre of Fernhollow." : "Distances from the point you chose.") : "Points are moved a few hundred metres to keep addresses private."}
+              {filters.point ? (fromTown ? "Distances from the centre of Fernhollow." : "Distances from the point you chose.") : `Points are moved ${fewHundred(system)} to keep addresses private.`}
             </span>
             <button type="button" onClick={() => setPicking((p) => !p)} aria-pressed={picking} className="rounded-lg px-3 py-1.5 font-medium ring-1 ring-humus-300 hover:bg-humus-100">
               {picking ? "Click the map…" : "Measure from a point on the map"}

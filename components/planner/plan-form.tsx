@@ -44,6 +44,29 @@ function matchHref(result: EstimateResult, where: { lat: number; lng: number; la
   return `/match?${p}`;
 }
 
+// The usual values beside each field, in the reader's own units (common practice, as in
+// lib/calc/facts.ts; the imperial figures are the ones gardeners quote, not conversions).
+const HINTS: Record<UnitSystem, Record<"overlap" | "sheet_length" | "sheet_width" | "leaves" | "straw" | "chips" | "worms", string>> = {
+  metric: {
+    overlap: "Usually about 15 cm.",
+    sheet_length: "Blank for 100 cm.",
+    sheet_width: "Blank for 80 cm.",
+    leaves: "Usually 10–15 cm.",
+    straw: "Usually about 5 cm.",
+    chips: "Usually about 7.5 cm.",
+    worms: "Blank for about 0.5 kg/m².",
+  },
+  imperial: {
+    overlap: "Usually about 6 in.",
+    sheet_length: "Blank for 39 in.",
+    sheet_width: "Blank for 31.5 in.",
+    leaves: "Usually 4–6 in.",
+    straw: "Usually about 2 in.",
+    chips: "Usually about 3 in.",
+    worms: "Blank for about 1.6 oz/ft².",
+  },
+};
+
 export function PlanForm({ system: initialSystem, today, canSave, bed, home = null }: PlanFormProps) {
   const resolver = useMemo(() => planResolver(), []);
   const form = useForm<PlanValues>({ resolver, defaultValues: bed?.values ?? defaultPlanValues(initialSystem, today) });
@@ -162,30 +185,30 @@ export function PlanForm({ system: initialSystem, today, canSave, bed, home = nu
           <LayerSwitch label="Cardboard" {...register("cardboard_on")} />
           {cardboardOn ? (
             <>
-              <Field label={`Seam overlap (${unitDepth})`} hint="Usually about 15 cm (6 in)." inputMode="decimal" {...register("overlap")} error={errors.overlap?.message} />
+              <Field label={`Seam overlap (${unitDepth})`} hint={HINTS[system].overlap} inputMode="decimal" {...register("overlap")} error={errors.overlap?.message} />
               <div className="grid grid-cols-2 gap-3">
-                <Field label={`Sheet length (${unitDepth})`} hint="Blank for 100 cm (39 in)." inputMode="decimal" {...register("sheet_length")} error={errors.sheet_length?.message} />
-                <Field label={`Sheet width (${unitDepth})`} hint="Blank for 80 cm (31.5 in)." inputMode="decimal" {...register("sheet_width")} error={errors.sheet_width?.message} />
+                <Field label={`Sheet length (${unitDepth})`} hint={HINTS[system].sheet_length} inputMode="decimal" {...register("sheet_length")} error={errors.sheet_length?.message} />
+                <Field label={`Sheet width (${unitDepth})`} hint={HINTS[system].sheet_width} inputMode="decimal" {...register("sheet_width")} error={errors.sheet_width?.message} />
               </div>
             </>
           ) : null}
           <LayerSwitch label="Leaves" {...register("leaves_on")} />
           {leavesOn ? (
-            <Field label={`Leaf depth (${unitDepth})`} hint="Usually 10–15 cm (4–6 in)." inputMode="decimal" {...register("leaves_depth")} error={errors.leaves_depth?.message} />
+            <Field label={`Leaf depth (${unitDepth})`} hint={HINTS[system].leaves} inputMode="decimal" {...register("leaves_depth")} error={errors.leaves_depth?.message} />
           ) : null}
           <LayerSwitch label="Straw on top" {...register("straw_on")} />
           {strawOn ? (
-            <Field label={`Straw depth (${unitDepth})`} hint="Usually about 5 cm (2 in)." inputMode="decimal" {...register("straw_depth")} error={errors.straw_depth?.message} />
+            <Field label={`Straw depth (${unitDepth})`} hint={HINTS[system].straw} inputMode="decimal" {...register("straw_depth")} error={errors.straw_depth?.message} />
           ) : null}
           <LayerSwitch label="Wood chips" {...register("chips_on")} />
           {chipsOn ? (
-            <Field label={`Wood chip depth (${unitDepth})`} hint="Usually about 7.5 cm (3 in)." inputMode="decimal" {...register("chips_depth")} error={errors.chips_depth?.message} />
+            <Field label={`Wood chip depth (${unitDepth})`} hint={HINTS[system].chips} inputMode="decimal" {...register("chips_depth")} error={errors.chips_depth?.message} />
           ) : null}
           <LayerSwitch label="Composting worms, a week or two later" {...register("worms_on")} />
           {wormsOn ? (
             <Field
               label={`Worms to stock (${unitStocking})`}
-              hint="Blank for about 0.5 kg/m² (1.6 oz/ft²)."
+              hint={HINTS[system].worms}
               inputMode="decimal"
               {...register("worms_stocking")}
               error={errors.worms_stocking?.message}

@@ -97,3 +97,6 @@ export function formatRange(low: number, high: number, unit: DisplayUnit, system
 
 /** Litres as US gallons, rounded the way water is poured. */
 export const litresAsUsGallons = (l: number) => roundUsGallons(lToUsGal(l));
+
+/** How far a public point is moved from the real one, in words the reader measures in. */
+export const fewHundred = (system: UnitSystem) => (system === "imperial" ? "a few hundred yards" : "a few hundred metres");

@@ -9,6 +9,7 @@ import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { DayCard } from "@/components/giveaways/day-card";
 import { GiveawayMap } from "@/components/giveaways/giveaway-map";
 import { viewerUnits } from "@/lib/units/viewer";
+import { fewHundred } from "@/lib/format/quantity";
 
 export const metadata: Metadata = { title: "Giveaway days" };
 export const dynamic = "force-dynamic";
@@ -61,7 +62,7 @@ export default async function GiveawaysPage() {
         </div>
       )}
       <p className="max-w-prose text-sm text-humus-600">
-        Places on the map are approximate, a few hundred metres off; the exact address comes with your booking. One booking per household a day — for now a
+        Places on the map are approximate, {fewHundred(system)} off; the exact address comes with your booking. One booking per household a day — for now a
         household is one Duffbank account.
       </p>
       {!user ? (

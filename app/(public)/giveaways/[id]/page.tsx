@@ -13,6 +13,7 @@ import { BookingPanel } from "@/components/giveaways/booking-panel";
 import { windowLabel } from "@/components/giveaways/day-card";
 import { GiveawayMap } from "@/components/giveaways/giveaway-map";
 import { viewerUnits } from "@/lib/units/viewer";
+import { fewHundred, formatQuantity } from "@/lib/format/quantity";
 
 export const metadata: Metadata = { title: "Giveaway day" };
 export const dynamic = "force-dynamic";
@@ -29,6 +30,7 @@ async function load(id: string, userId: string | null) {
 export default async function GiveawayPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const user = await currentUser();
+  const system = await viewerUnits(user);
   const found = await load(id, user?.id ?? null);
   if (!found) notFound();
   const { giveaway: day, my_booking: booking } = found;
@@ -41,8 +43,8 @@ export default async function GiveawayPage({ params }: { params: Promise<{ id: s
         lead={
           <>
             {day.material_name} from {day.organisation.name} on <strong>{longDate(day.date)}</strong>. Each household may take up to{" "}
-            {formatGiveawayQuantity(day.household_cap, day.unit, await viewerUnits(user))}
-            {day.bag_m3 ? ` (a bag of about ${Math.round(day.bag_m3 * 1000)} litres)` : ""}.
+            {formatGiveawayQuantity(day.household_cap, day.unit, system)}
+            {day.bag_m3 ? ` (a bag of about ${formatQuantity(day.bag_m3 * 1000, "l", system)})` : ""}.
           </>
         }
       />
@@ -84,7 +86,7 @@ export default async function GiveawayPage({ params }: { params: Promise<{ id: s
         </div>
         <div className="flex flex-col gap-3">
           <GiveawayMap points={[{ id: day.id, ...point, label: booking ? "The place" : "Roughly here" }]} label={booking ? "Map: where to collect" : "Map: roughly where (the exact place comes with a booking)"} className="h-80" />
-          <p className="text-sm text-humus-600">{booking ? booking.address : "The point is a few hundred metres from the real place; booked households get the address."}</p>
+          <p className="text-sm text-humus-600">{booking ? booking.address : `The point is ${fewHundred(system)} from the real place; booked households get the address.`}</p>
           <table className="w-full rounded-lg bg-white text-left text-sm ring-1 ring-humus-200">
             <caption className="p-2 text-left font-semibold">Time slots</caption>
             <thead className="bg-humus-100">

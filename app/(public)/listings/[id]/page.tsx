@@ -19,6 +19,7 @@ import { QualityList } from "@/components/listings/quality-list";
 import { CultureFacts } from "@/components/grower/culture-facts";
 import { cultureOffer } from "@/lib/services/culture-offer";
 import { viewerUnits } from "@/lib/units/viewer";
+import { formatQuantity } from "@/lib/format/quantity";
 
 // One read per request for both the title and the page.
 const load = cache(async (id: string) => {
@@ -154,7 +155,7 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
             <h2 id="where-title" className="font-semibold">Roughly where</h2>
             <DuffMap center={listing.location} zoom={13} markers={[{ id: listing.id, ...listing.location, label: "Approximate pickup area" }]} label="Map of the approximate pickup area" className="h-56" />
             <p className="text-sm text-humus-600">
-              The point is within about {APPROX_MAX_M} m of the pickup. The exact address is shared once the supplier confirms your reservation.
+              The point is within about {formatQuantity(APPROX_MAX_M, "m", system)} of the pickup. The exact address is shared once the supplier confirms your reservation.
             </p>
           </section>
 
