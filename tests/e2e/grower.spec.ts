@@ -58,7 +58,7 @@ test("a gardener buys a worm culture by post, the grower packs and ships it, and
   await page.getByRole("button", { name: "Reserve and pay €16.00" }).click();
   await page.waitForURL(/\/pay\/cs_test_/);
   await payOnCheckoutPage(page, "4242 4242 4242 4242");
-  await expect(page.getByRole("heading", { name: "Payment received" })).toBeVisible({ timeout: 20_000 });
+  await expect(page.getByRole("heading", { level: 1, name: "Paid" })).toBeVisible({ timeout: 20_000 });
 
   const care = await latestMail(request, "gardener@duffbank.test", new RegExp(`^Care sheet: 0\\.5 kg of ${escape(culture.title)}`));
   expect(care.text).toContain("Eisenia fetida");

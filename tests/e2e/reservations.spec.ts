@@ -60,7 +60,7 @@ test("a gardener pays for straw, the farm accepts, the pickup code closes it, an
   await g.page.screenshot({ path: shots("checkout-page"), fullPage: true });
   await payOnCheckoutPage(g.page, "4242 4242 4242 4242");
   await g.page.waitForURL(/\/reservations\/paid\?session_id=cs_test_/);
-  await expect(g.page.getByRole("heading", { name: "Payment received" })).toBeVisible({ timeout: 20_000 });
+  await expect(g.page.getByRole("heading", { level: 1, name: "Paid" })).toBeVisible({ timeout: 20_000 });
   await expect(g.page.getByText(/sent your request to Hartwell Farm/)).toBeVisible();
   await g.page.screenshot({ path: shots("paid"), fullPage: true });
   const receipt = await latestMail(request, "gardener@duffbank.test", /^Receipt: €9\.00/);
@@ -185,7 +185,7 @@ test("a no-show keeps the deposit", async ({ browser, request }) => {
   await g.page.waitForURL(/\/pay\/cs_test_/);
   await expect(g.page.getByText(/places a hold on the card/)).toBeVisible();
   await payOnCheckoutPage(g.page, "4242 4242 4242 4242");
-  await expect(g.page.getByRole("heading", { name: "Payment received" })).toBeVisible({ timeout: 20_000 });
+  await expect(g.page.getByRole("heading", { level: 1, name: "Deposit held" })).toBeVisible({ timeout: 20_000 });
 
   const s = await signedIn(browser, "supplier");
   await s.page.goto("/requests");

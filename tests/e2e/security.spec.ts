@@ -35,9 +35,9 @@ test.describe("where the sign-in page sends you", () => {
     "javascript:alert(document.cookie)",
   ];
   for (const variant of variants) {
-    test(`callbackUrl ${JSON.stringify(variant)} stays on this site, at the home page`, async ({ browser }) => {
+    test(`callbackUrl ${JSON.stringify(variant)} stays on this site, at what is waiting`, async ({ browser }) => {
       const { context, page } = await signInAt(browser, `/sign-in?callbackUrl=${encodeURIComponent(variant)}`);
-      await expect(page).toHaveURL(`${own()}/`);
+      await expect(page).toHaveURL(`${own()}/home`);
       await context.close();
     });
   }
