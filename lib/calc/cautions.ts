@@ -1,6 +1,7 @@
 // Short safety notes for the layers chosen. They point at real hazards and then step aside:
 // local rules and licensed advice outrank anything written here.
 import { BALE_MASS_LB, NIOSH_LIFT_LIMIT_KG, NIOSH_LIFT_LIMIT_LB, POUND_KG, type MaterialCode } from "./facts";
+import type { UnitSystem } from "./units";
 
 export interface CautionLayers {
   cardboard: boolean;
@@ -11,6 +12,20 @@ export interface CautionLayers {
 }
 
 const baleKg = (lb: number) => Math.round(lb * POUND_KG);
+
+// Weights in the reader's units: metric readers get kilograms with pounds beside them (the
+// limit is published in pounds); imperial readers get pounds alone.
+export const NIOSH_LIMIT: Record<UnitSystem, string> = {
+  metric: `${NIOSH_LIFT_LIMIT_KG} kg (${NIOSH_LIFT_LIMIT_LB} lb)`,
+  imperial: `${NIOSH_LIFT_LIMIT_LB} lb`,
+};
+const weighs = (kg: number, system: UnitSystem) => (system === "imperial" ? `${Math.round(kg / POUND_KG)} lb` : `${Math.round(kg)} kg (${Math.round(kg / POUND_KG)} lb)`);
+
+/** What a small bale weighs and how to lift it. */
+export function smallBaleText(system: UnitSystem): string {
+  const range = system === "imperial" ? `${BALE_MASS_LB.min}–${BALE_MASS_LB.max} lb` : `${baleKg(BALE_MASS_LB.min)}–${baleKg(BALE_MASS_LB.max)} kg (${BALE_MASS_LB.min}–${BALE_MASS_LB.max} lb)`;
+  return `A small bale weighs about ${range}; the heavier ones are over the ${NIOSH_LIMIT[system]} NIOSH recommends for one lift in ideal conditions, and all of them are awkward: keep it close, bend your knees, and share the lift with a second person.`;
+}
 
 // The words of each caution, shared by the bed estimate and the listing pages.
 export const CAUTION_TEXT = {
@@ -23,7 +38,7 @@ export const CAUTION_TEXT = {
   herbicide:
     "Straw (like hay, manure and clippings) can carry weedkiller residues that survive composting and stunt vegetables. Ask the supplier what was sprayed, and grow a few beans or peas in pots of it for two or three weeks before you build.",
   // NIOSH's limit sits inside the usual range: the lighter bales are under it, the heavier over.
-  smallBale: `A small bale weighs about ${baleKg(BALE_MASS_LB.min)}–${baleKg(BALE_MASS_LB.max)} kg (${BALE_MASS_LB.min}–${BALE_MASS_LB.max} lb); the heavier ones are over the ${NIOSH_LIFT_LIMIT_KG} kg (${NIOSH_LIFT_LIMIT_LB} lb) NIOSH recommends for one lift in ideal conditions, and all of them are awkward: keep it close, bend your knees, and share the lift with a second person.`,
+  smallBale: smallBaleText("metric"),
   worms:
     "Worms are live animals, and some earthworm species are invasive in some regions. Buy from a grower who can tell you the species, and follow your local rules.",
   // How live worms travel, by the way they reach the buyer (common practice, no source).
@@ -36,11 +51,11 @@ export const CAUTION_TEXT = {
     "These are general notes, not advice for your site: your local rules come first, and a licensed professional can advise where you need it.",
 } as const;
 
-export function estimateCautions(layers: CautionLayers): string[] {
+export function estimateCautions(layers: CautionLayers, system: UnitSystem = "metric"): string[] {
   const notes: string[] = [];
   if (layers.cardboard) notes.push(CAUTION_TEXT.cardboard);
   if (layers.leaves) notes.push(CAUTION_TEXT.roadsideLeaves);
-  if (layers.straw) notes.push(CAUTION_TEXT.herbicide, CAUTION_TEXT.smallBale);
+  if (layers.straw) notes.push(CAUTION_TEXT.herbicide, smallBaleText(system));
   if (layers.worms) notes.push(CAUTION_TEXT.worms);
   notes.push(CAUTION_TEXT.gloves, CAUTION_TEXT.watering, CAUTION_TEXT.defer);
   return notes;
@@ -79,7 +94,7 @@ const MATERIAL_WORD: Partial<Record<MaterialCode, string>> = {
  * supplier declared. Sources as in CAUTION_TEXT; herbicide carryover (NC State Extension,
  * UF/IFAS SS-AGR-415) and the bean or pea pot test (WSU Whatcom County Extension).
  */
-export function listingCautions(l: ListingCautionInput): ListingCaution[] {
+export function listingCautions(l: ListingCautionInput, system: UnitSystem = "metric"): ListingCaution[] {
   const out: ListingCaution[] = [];
   const q = l.quality;
   if (l.material === "cardboard") {
@@ -109,10 +124,10 @@ export function listingCautions(l: ListingCautionInput): ListingCaution[] {
       kind: "lifting",
       text:
         kg == null
-          ? CAUTION_TEXT.smallBale
+          ? smallBaleText(system)
           : kg > NIOSH_LIFT_LIMIT_KG
-            ? `Each bale weighs about ${Math.round(kg)} kg (${Math.round(kg / POUND_KG)} lb), over the ${NIOSH_LIFT_LIMIT_KG} kg (${NIOSH_LIFT_LIMIT_LB} lb) NIOSH limit for one lift: keep it close, bend your knees, and share the lift with a second person.`
-            : `Each bale weighs about ${Math.round(kg)} kg (${Math.round(kg / POUND_KG)} lb), under the ${NIOSH_LIFT_LIMIT_KG} kg (${NIOSH_LIFT_LIMIT_LB} lb) NIOSH limit for one lift in ideal conditions: still keep it close and bend your knees.`,
+            ? `Each bale weighs about ${weighs(kg, system)}, over the ${NIOSH_LIMIT[system]} NIOSH limit for one lift: keep it close, bend your knees, and share the lift with a second person.`
+            : `Each bale weighs about ${weighs(kg, system)}, under the ${NIOSH_LIMIT[system]} NIOSH limit for one lift in ideal conditions: still keep it close and bend your knees.`,
     });
   }
   if (l.material === "worms") {

@@ -179,7 +179,7 @@ export function estimate(input: EstimateInput, now: Date = new Date()): Estimate
       straw: straw !== null,
       wood_chips: chips !== null,
       worms: worms !== null,
-    }),
+    }, units),
     ...(centroid ? { centroid } : {}),
   };
 }

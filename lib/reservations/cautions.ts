@@ -1,7 +1,8 @@
 // The short cautions shown where a gardener decides to collect a material. They name the
 // hazard and step aside: local rules and licensed advice come first.
-import { NIOSH_LIFT_LIMIT_KG, NIOSH_LIFT_LIMIT_LB } from "@/lib/calc/facts";
-import { CAUTION_TEXT } from "@/lib/calc/cautions";
+import { NIOSH_LIFT_LIMIT_KG } from "@/lib/calc/facts";
+import { CAUTION_TEXT, NIOSH_LIMIT } from "@/lib/calc/cautions";
+import { kgToLb, type UnitSystem } from "@/lib/calc/units";
 
 export interface CautionInput {
   material: string;
@@ -12,7 +13,7 @@ export interface CautionInput {
   fulfilment?: "pickup" | "post" | null;
 }
 
-export function pickupCautions(l: CautionInput): string[] {
+export function pickupCautions(l: CautionInput, system: UnitSystem = "metric"): string[] {
   const notes: string[] = [];
   if (["straw", "manure", "grass_clippings", "compost"].includes(l.material)) {
     // NC State Extension "Herbicide Carryover"; bean/pea pot test per WSU Whatcom County Extension.
@@ -22,9 +23,10 @@ export function pickupCautions(l: CautionInput): string[] {
   }
   const heavy = l.unit === "bales" || (l.unit_mass_kg ?? 0) >= NIOSH_LIFT_LIMIT_KG;
   if (heavy) {
-    const each = l.unit_mass_kg ? `about ${Math.round(l.unit_mass_kg)} kg each` : "heavy";
+    const kg = l.unit_mass_kg;
+    const each = kg ? `about ${system === "imperial" ? `${Math.round(kgToLb(kg))} lb` : `${Math.round(kg)} kg`} each` : "heavy";
     notes.push(
-      `These are ${each}; NIOSH puts the limit for one lift at ${NIOSH_LIFT_LIMIT_KG} kg (${NIOSH_LIFT_LIMIT_LB} lb) in ideal conditions. Keep the load close, bend your knees, and lift with a second person.`,
+      `These are ${each}; NIOSH puts the limit for one lift at ${NIOSH_LIMIT[system]} in ideal conditions. Keep the load close, bend your knees, and lift with a second person.`,
     );
   }
   if (l.material === "leaves") {

@@ -8,6 +8,8 @@ import { quantityLimitProblem, typedQuantityLabel } from "@/lib/reservations/lab
 import { inputUnit } from "@/lib/calc/units";
 import { formatGiveawayQuantity, formatTypedGiveawayQuantity } from "@/lib/format/giveaway";
 import { unitsFor } from "@/lib/units/preference";
+import { listingCautions, smallBaleText } from "@/lib/calc/cautions";
+import { pickupCautions } from "@/lib/reservations/cautions";
 
 describe("a price per unit for an imperial reader", () => {
   it("€6.00 a kg is €2.72 a lb (600 × 0.45359237 = 272.2 cents)", () => {
@@ -60,5 +62,19 @@ describe("whose units a page is read in", () => {
     expect(unitsFor("imperial", "metric")).toBe("imperial");
     expect(unitsFor(undefined, "imperial")).toBe("imperial");
     expect(unitsFor("nonsense", null)).toBe("metric");
+  });
+});
+
+describe("cautions in the reader's units", () => {
+  // NIOSH recommended weight limit: 51 lb (23 kg) under ideal conditions (NIOSH lifting equation).
+  it("a 25 kg bale reads in pounds alone for an imperial reader (25 / 0.45359237 = 55 lb)", () => {
+    const lifting = listingCautions({ material: "straw", unit: "bales", unit_mass_kg: 25, quality: { herbicide_history: "unknown" } }, "imperial").find((c) => c.kind === "lifting")!;
+    expect(lifting.text).toContain("Each bale weighs about 55 lb, over the 51 lb NIOSH limit");
+    expect(lifting.text).not.toMatch(/\bkg\b/);
+  });
+  it("the planner's bale note likewise, and metric readers keep both", () => {
+    expect(smallBaleText("imperial")).not.toMatch(/\bkg\b/);
+    expect(smallBaleText("metric")).toMatch(/kg \(\d+–\d+ lb\)/);
+    expect(pickupCautions({ material: "straw", unit: "bales", unit_mass_kg: 20 }, "imperial").join(" ")).toContain("about 44 lb each; NIOSH puts the limit for one lift at 51 lb");
   });
 });

@@ -20,6 +20,8 @@ import { CultureFacts } from "@/components/grower/culture-facts";
 import { cultureOffer } from "@/lib/services/culture-offer";
 import { viewerUnits } from "@/lib/units/viewer";
 import { formatQuantity } from "@/lib/format/quantity";
+import { listingCautions, type ListingCautionInput } from "@/lib/calc/cautions";
+import type { MaterialCode } from "@/lib/calc/facts";
 
 // One read per request for both the title and the page.
 const load = cache(async (id: string) => {
@@ -108,7 +110,7 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
             <h2 id="care-title" className="text-lg font-semibold">{culture ? "Before you order" : "Before you collect"}</h2>
             <Notice tone="caution">
               <ul className="flex list-disc flex-col gap-1 pl-5">
-                {listing.cautions.map((c) => (
+                {listingCautions({ material: listing.material as MaterialCode, unit: listing.unit, unit_mass_kg: listing.unit_mass_kg, quality: listing.quality as ListingCautionInput["quality"] }, system).map((c) => (
                   <li key={c.kind} data-caution={c.kind}>
                     {c.text}
                   </li>

@@ -66,9 +66,9 @@ export default async function ReservePage({ params }: { params: Promise<{ id: st
           <ReserveForm
             offer={offer}
             unitSystem={system}
-            cautions={pickupCautions({ material: offer.material, unit: offer.unit, unit_mass_kg: offer.unit_mass_kg })}
+            cautions={pickupCautions({ material: offer.material, unit: offer.unit, unit_mass_kg: offer.unit_mass_kg }, system)}
             // A culture the grower posts: the handling advice is for a parcel, not a trip to collect.
-            postedCautions={offer.culture?.ships ? pickupCautions({ material: offer.material, unit: offer.unit, unit_mass_kg: offer.unit_mass_kg, fulfilment: "post" }) : undefined}
+            postedCautions={offer.culture?.ships ? pickupCautions({ material: offer.material, unit: offer.unit, unit_mass_kg: offer.unit_mass_kg, fulfilment: "post" }, system) : undefined}
           />
         </div>
       )}
