@@ -4,8 +4,7 @@ import { useFieldArray, useForm, useWatch } from "react-hook-form";
 import { useRouter } from "next/navigation";
 import { apiFetch, isApiError } from "@/lib/api/client";
 import { GIVEAWAY_MATERIAL_LABELS, GIVEAWAY_MATERIALS } from "@/lib/validation/giveaways";
-import { DuffMap } from "@/components/map/map";
-import { DEFAULT_CENTER } from "@/components/map/types";
+import { LocationPicker } from "@/components/listings/location-picker";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
@@ -84,22 +83,18 @@ export function DayForm({ mode, initial, dayId, locked = false }: DayFormProps) 
         <Field label="Address households come to" hint="Shown only to households that book." {...register("address")} error={errors.address?.message} />
       </div>
 
-      <div className="flex flex-col gap-2">
-        <DuffMap
-          label="Map: click where households collect"
-          center={location ?? DEFAULT_CENTER}
-          zoom={14}
-          markers={location ? [{ id: "place", ...location, label: "The place", tone: "origin" }] : []}
-          onClick={(p) => setValue("location", p, { shouldDirty: true, shouldValidate: formState.isSubmitted })}
-          className="h-64"
-        />
-        <p className="text-sm text-humus-600">
-          {location ? `Placed at ${location.lat.toFixed(5)}, ${location.lng.toFixed(5)}. The public sees a point a few hundred metres away.` : "Click the map at the gate or the pile."}
-        </p>
-        <p id="field-location-error" aria-live="polite" className="min-h-5 text-sm text-ember-600">
-          {errors.location?.message ?? ""}
-        </p>
-      </div>
+      <LocationPicker
+        value={location ?? { lat: null, lng: null }}
+        onChange={(p) => setValue("location", p, { shouldDirty: true, shouldValidate: formState.isSubmitted })}
+        error={errors.location?.message}
+        words={{
+          label: "Where households collect",
+          hint: "Find the street or postcode, then click the map on the gate or the pile. The public sees a point a few hundred metres away until they book.",
+          map: "Map: click where households collect",
+          placed: "The place on the map",
+        }}
+        className="h-64"
+      />
 
       <fieldset className="grid gap-4 rounded-lg bg-white p-4 ring-1 ring-humus-200 md:grid-cols-3">
         <legend className="px-1 font-semibold">How much a household may take</legend>

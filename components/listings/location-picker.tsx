@@ -8,9 +8,29 @@ import { usePointName } from "@/components/ui/use-point-name";
 // Picks the exact pickup point: a place found by name (street, postcode), the device's own
 // position, or a click on the map to put it on the very gate. Nobody types coordinates.
 
-export function LocationPicker({ value, onChange, error }: { value: { lat: number | null; lng: number | null }; onChange: (p: LatLng) => void; error?: string }) {
+const PICKUP_WORDS = {
+  label: "Pickup point",
+  hint: "Find the street or postcode, then click the map on the exact spot if you like. Only you see this point; everyone else sees a spot a few hundred metres away until you confirm their reservation.",
+  map: "Map: click to set the pickup point",
+  placed: "The pickup point on the map",
+};
+
+export function LocationPicker({
+  value,
+  onChange,
+  error,
+  words = PICKUP_WORDS,
+  className = "h-72",
+}: {
+  value: { lat: number | null; lng: number | null };
+  onChange: (p: LatLng) => void;
+  error?: string;
+  /** The field's label and hint, the map's label and what an existing point is called. */
+  words?: typeof PICKUP_WORDS;
+  className?: string;
+}) {
   const chosen = value.lat !== null && value.lng !== null ? { lat: value.lat, lng: value.lng } : null;
-  const [label, setLabel] = useState<string | null>(chosen ? "The pickup point on the map" : null);
+  const [label, setLabel] = useState<string | null>(chosen ? words.placed : null);
   const nameOf = usePointName();
   const round = (p: LatLng) => ({ lat: Math.round(p.lat * 1e6) / 1e6, lng: Math.round(p.lng * 1e6) / 1e6 });
 
@@ -22,9 +42,9 @@ export function LocationPicker({ value, onChange, error }: { value: { lat: numbe
   return (
     <div className="flex flex-col gap-2">
       <PlaceSearch
-        label="Pickup point"
+        label={words.label}
         name="location"
-        hint="Find the street or postcode, then click the map on the exact spot if you like. Only you see this point; everyone else sees a spot a few hundred metres away until you confirm their reservation."
+        hint={words.hint}
         value={chosen && label ? { ...chosen, label } : null}
         onChange={pick}
         error={error}
@@ -32,14 +52,14 @@ export function LocationPicker({ value, onChange, error }: { value: { lat: numbe
       <DuffMap
         center={chosen ?? DEFAULT_CENTER}
         zoom={chosen ? 16 : 13}
-        label="Map: click to set the pickup point"
-        markers={chosen ? [{ id: "pickup", ...chosen, tone: "origin", label: "Pickup point" }] : []}
+        label={words.map}
+        markers={chosen ? [{ id: "pickup", ...chosen, tone: "origin", label: words.label }] : []}
         onClick={async (p) => {
           const point = round(p);
           onChange(point);
           setLabel(await nameOf(point, "Point on the map"));
         }}
-        className="h-72"
+        className={className}
       />
     </div>
   );
