@@ -55,7 +55,6 @@ export function NeedsForm({
         ) : null}
         {fields.map((f, i) => {
           const material = needs[i]?.material ?? f.material;
-          const quantity = Number(needs[i]?.quantity);
           const unit = needs[i]?.unit ?? f.unit;
           const err = errors.needs?.[i];
           const unitId = `need-${i}-unit`;
@@ -96,7 +95,6 @@ export function NeedsForm({
                     value={Number(field.value)}
                     onChange={field.onChange}
                     error={err?.quantity?.message}
-                    hint={system === "imperial" && quantity > 0 ? `≈ ${formatQuantity(quantity, unit, "imperial")}` : undefined}
                   />
                 )}
               />
