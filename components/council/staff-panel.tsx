@@ -8,6 +8,7 @@ import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { useApiAction } from "@/components/ui/use-api-action";
 import { Form } from "@/components/ui/form";
+import { formatLocal } from "@/lib/reservations/pickup-times";
 
 type InviteValues = z.infer<typeof inviteSchema>;
 
@@ -66,7 +67,7 @@ export function StaffPanel({ members, invites, isOwner, me }: { members: Member[
             {invites.map((i) => (
               <li key={i.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
                 <span>
-                  {i.email} <span className="text-sm text-humus-600">link works until {new Date(i.expires_at).toLocaleDateString("en-GB")}</span>
+                  {i.email} <span className="text-sm text-humus-600">link works until {formatLocal(i.expires_at)}</span>
                 </span>
                 {isOwner ? (
                   <Button variant="quiet" disabled={action.busy} onClick={() => action.run(`/api/council/invites/${i.id}`, { method: "DELETE" })}>

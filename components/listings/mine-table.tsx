@@ -20,6 +20,7 @@ import { formatListingQuantity, materialName, STATUS_LABELS } from "@/lib/listin
 import type { ListingUnit } from "@/lib/validation/listings";
 import { StatusActions } from "./status-actions";
 import { StatusBadge } from "./status-badge";
+import { formatLocal } from "@/lib/reservations/pickup-times";
 
 export interface MineRow {
   id: string;
@@ -73,7 +74,7 @@ function columnsFor(system: UnitSystem) {
     helper.accessor("updated_at", {
       header: "Changed",
       sortFn: "datetime",
-      cell: (c) => new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", timeZone: "UTC" }).format(new Date(c.getValue())),
+      cell: (c) => formatLocal(c.getValue()),
     }),
     helper.display({
       id: "actions",
