@@ -91,6 +91,37 @@ test.describe("on a phone", () => {
   });
 });
 
+test.describe("on a phone, signed in", () => {
+  test("the council desk's days and 'What I'm giving' fit at 390 px as cards", async ({ browser }) => {
+    const context = await browser.newContext({ storageState: storageState("council"), viewport: PHONE });
+    const page = await context.newPage();
+    for (const [name, url] of [["council-desk", "/council"], ["giving", "/listings/mine"]] as const) {
+      await page.goto(url);
+      await expect(page.getByRole("heading", { level: 1 })).toBeVisible();
+      // Nothing wider than the screen: no sideways scrolling.
+      expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
+      await expectNoAxeViolations(page, name);
+      await page.screenshot({ path: shots(`phone-${name}`), fullPage: true });
+    }
+    await expect(page.locator("td[data-label='Status']").first()).toBeVisible();
+    await context.close();
+  });
+
+  test("a listing's reserve action stays in reach at the foot of the screen", async ({ browser }) => {
+    const context = await browser.newContext({ storageState: storageState("gardener"), viewport: PHONE });
+    const page = await context.newPage();
+    const listing = sql<{ id: string }>("select id from listings where status = 'active' and material_code = 'straw' order by title limit 1")[0];
+    await page.goto(`/listings/${listing.id}`);
+    const reserve = page.getByRole("link", { name: "Reserve", exact: true });
+    await expect(reserve).toBeInViewport();
+    await page.mouse.wheel(0, 2000);
+    await expect(reserve).toBeInViewport();
+    await expectNoAxeViolations(page, "listing on a phone");
+    await page.screenshot({ path: shots("phone-listing-reserve") });
+    await context.close();
+  });
+});
+
 test.describe("each role's landing page", () => {
   const WAITING: Record<DemoRole, string[]> = {
     gardener: ["To pay or put a deposit on", "Pickups to make", "Waiting for a supplier's answer"],
