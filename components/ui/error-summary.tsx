@@ -42,15 +42,18 @@ export function focusTarget(id: string): boolean {
 
 export function ErrorSummary({ title = "Please check the form", message, items, attempt }: { title?: string; message: string | null; items: SummaryItem[]; attempt: number }) {
   const ref = useRef<HTMLDivElement>(null);
+  const focused = useRef(0);
   const shown = !!message || items.length > 0;
   useEffect(() => {
-    if (attempt > 0 && shown) {
-      ref.current?.focus({ preventScroll: true });
-      ref.current?.scrollIntoView({ block: "start", behavior: "auto" });
+    // Only a new failed submit moves the focus; fixing fields one by one does not. The
+    // attempt can be counted a render before react-hook-form hands over its errors, so the
+    // focus waits until the summary is there for that attempt.
+    if (attempt > focused.current && shown && ref.current) {
+      focused.current = attempt;
+      ref.current.focus({ preventScroll: true });
+      ref.current.scrollIntoView({ block: "start", behavior: "auto" });
     }
-    // Only a new failed submit moves the focus; fixing fields one by one does not.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [attempt]);
+  }, [attempt, shown]);
   if (!shown) return null;
   return (
     <div ref={ref} tabIndex={-1} role="alert" aria-labelledby="error-summary-title" data-error-summary className="scroll-mt-24 rounded-lg border-l-4 border-ember-600 bg-ember-100 p-4 text-ember-800">
