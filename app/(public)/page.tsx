@@ -3,6 +3,8 @@ import { buttonClass } from "@/components/ui/button-class";
 import { platformDivertedKg, platformGiveawayKg } from "@/lib/services/diversion-report";
 import { countVisibleListings } from "@/db/listing-status";
 import { formatKg } from "@/components/reports/format";
+import { currentUser } from "@/lib/auth/current-user";
+import { viewerUnits } from "@/lib/units/viewer";
 
 // The figures below are live, so the page is rendered per request.
 export const dynamic = "force-dynamic";
@@ -15,7 +17,8 @@ const STEPS = [
 ];
 
 export default async function Home() {
-  const [keptKg, giveawayKg, onOffer] = await Promise.all([platformDivertedKg(), platformGiveawayKg(), countVisibleListings()]);
+  const [keptKg, giveawayKg, onOffer, viewer] = await Promise.all([platformDivertedKg(), platformGiveawayKg(), countVisibleListings(), currentUser()]);
+  const system = await viewerUnits(viewer);
   return (
     <div className="flex flex-col gap-12">
       <section className="grid items-center gap-8 md:grid-cols-[1.2fr_1fr]">
@@ -62,14 +65,14 @@ export default async function Home() {
             Kept from the bin so far
           </h2>
           <p className="text-4xl font-bold" data-testid="kept-kg">
-            {formatKg(keptKg)}
+            {formatKg(keptKg, system)}
           </p>
           <p className="mt-1 max-w-prose text-sm text-moss-100">
             Leaves, straw, cardboard, grounds and chips collected from Duffbank listings (collected reservations only), weighed with published bulk densities.
           </p>
           {giveawayKg > 0 ? (
             <p className="mt-1 max-w-prose text-sm text-moss-100">
-              Council giveaway days, counted apart: <strong data-testid="giveaway-kg">{formatKg(giveawayKg)}</strong> taken home by households checked in.
+              Council giveaway days, counted apart: <strong data-testid="giveaway-kg">{formatKg(giveawayKg, system)}</strong> taken home by households checked in.
             </p>
           ) : null}
         </div>

@@ -12,7 +12,8 @@ import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button-class";
 import { StaffPanel } from "@/components/council/staff-panel";
 import { DaysTable } from "@/components/council/days-table";
-import { formatKg } from "@/components/reports/format";
+import { formatKg, formatM3 } from "@/components/reports/format";
+import { viewerUnits } from "@/lib/units/viewer";
 import { Panel } from "@/components/ui/panel";
 
 export const metadata: Metadata = { title: "Council desk" };
@@ -24,6 +25,7 @@ export default async function CouncilPage() {
     return <EmptyState title="Your account is not linked to a council yet">Ask a colleague who owns your council&apos;s account to invite you.</EmptyState>;
   }
   const ctx = councilOf(user);
+  const system = await viewerUnits(user);
   const [members, invites, days, report] = await Promise.all([membersOf(ctx.organisationId), listInvites(ctx), councilDays(ctx), diversionReport(diversionScopeOf(user))]);
   const today = localDate(new Date(), "Europe/London");
   const upcoming = days.filter((d) => d.date >= today).reverse();
@@ -55,7 +57,7 @@ export default async function CouncilPage() {
 
       <Panel id="kept" title="Kept out of the bin" action={<Link href="/reports" className="font-semibold text-moss-700 underline underline-offset-4">Charts and CSV</Link>}>
         <p>
-          <strong className="text-2xl">{formatKg(report.total_kg)}</strong> collected by <strong>{report.households}</strong>{" "}
+          <strong className="text-2xl">{formatKg(report.total_kg, system)}</strong> collected by <strong>{report.households}</strong>{" "}
           {report.households === 1 ? "household" : "households"}, from your listings and checked-in giveaway bookings.
         </p>
         {report.by_day.length ? (
@@ -76,7 +78,7 @@ export default async function CouncilPage() {
                   </td>
                   <td className="p-2">{d.households}</td>
                   <td className="p-2">
-                    {formatKg(d.kg)} ({d.m3.toFixed(2)} m³)
+                    {formatKg(d.kg, system)} ({formatM3(d.m3, system)})
                   </td>
                 </tr>
               ))}

@@ -10,6 +10,7 @@ import { formatGiveawayQuantity, formatTypedGiveawayQuantity } from "@/lib/forma
 import { unitsFor } from "@/lib/units/preference";
 import { listingCautions, smallBaleText } from "@/lib/calc/cautions";
 import { pickupCautions } from "@/lib/reservations/cautions";
+import { formatKg, formatM3 } from "@/components/reports/format";
 
 describe("a price per unit for an imperial reader", () => {
   it("€6.00 a kg is €2.72 a lb (600 × 0.45359237 = 272.2 cents)", () => {
@@ -76,5 +77,14 @@ describe("cautions in the reader's units", () => {
     expect(smallBaleText("imperial")).not.toMatch(/\bkg\b/);
     expect(smallBaleText("metric")).toMatch(/kg \(\d+–\d+ lb\)/);
     expect(pickupCautions({ material: "straw", unit: "bales", unit_mass_kg: 20 }, "imperial").join(" ")).toContain("about 44 lb each; NIOSH puts the limit for one lift at 51 lb");
+  });
+});
+
+describe("the reports' totals in the reader's units", () => {
+  it("228 kg is 503 lb (228 / 0.45359237 = 502.7); 2.4 m³ is 3.14 yd³ (2.4 / 0.764554857984)", () => {
+    expect(formatKg(228)).toBe("228 kg");
+    expect(formatKg(228, "imperial")).toBe("503 lb");
+    expect(formatM3(2.4)).toBe("2.40 m³");
+    expect(formatM3(2.4, "imperial")).toBe("3.14 yd³");
   });
 });
