@@ -5,6 +5,8 @@ import { useRouter } from "next/navigation";
 import { apiFetch, isApiError } from "@/lib/api/client";
 import { GIVEAWAY_MATERIAL_LABELS, GIVEAWAY_MATERIALS } from "@/lib/validation/giveaways";
 import { LocationPicker } from "@/components/listings/location-picker";
+import { useUnits } from "@/components/ui/units-context";
+import { fewHundred } from "@/lib/format/quantity";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
@@ -27,6 +29,7 @@ export function DayForm({ mode, initial, dayId, locked = false }: DayFormProps) 
   const [saved, setSaved] = useState(false);
   const resolver = useMemo(() => dayResolver(mode), [mode]);
   const form = useForm<DayFormValues>({ resolver, defaultValues: initial });
+  const { system } = useUnits();
   const { register, control, setValue, formState } = form;
   const slots = useFieldArray({ control, name: "slots" });
   const [unit, location] = useWatch({ control, name: ["unit", "location"] });
@@ -89,7 +92,7 @@ export function DayForm({ mode, initial, dayId, locked = false }: DayFormProps) 
         error={errors.location?.message}
         words={{
           label: "Where households collect",
-          hint: "Find the street or postcode, then click the map on the gate or the pile. The public sees a point a few hundred metres away until they book.",
+          hint: `Find the street or postcode, then click the map on the gate or the pile. The public sees a point ${fewHundred(system)} away until they book.`,
           map: "Map: click where households collect",
           placed: "The place on the map",
         }}
