@@ -133,6 +133,8 @@ test.describe("each role's landing page", () => {
   for (const role of Object.keys(DEMO) as DemoRole[]) {
     for (const viewport of [DESKTOP, PHONE]) {
       test(`a ${role} lands on what is waiting for them after signing in (${viewport.width} px)`, async ({ browser }) => {
+        // Signing in, axe over the page and a full-page shot: give a loaded machine room.
+        test.setTimeout(120_000);
         const context = await browser.newContext({ viewport });
         const page = await context.newPage();
         await page.goto("/sign-in");
@@ -242,7 +244,7 @@ test.describe("a supplier's listing form", () => {
     await page.getByRole("button", { name: "Publish listing" }).click();
     const summary = page.locator("[data-error-summary]");
     await expect(summary).toBeFocused();
-    const toPoint = summary.getByRole("link", { name: /Pickup point/ });
+    const toPoint = summary.getByRole("link", { name: /pickup point/i });
     await expect(toPoint).toBeVisible();
     await toPoint.click();
     await expect(page.getByRole("combobox", { name: "Pickup point" })).toBeFocused();
