@@ -30,5 +30,4 @@ export interface MapProps {
   className?: string;
 }
 
-/** The demo town's centre, where maps open when nothing else is known. */
-export const DEFAULT_CENTER: LatLng = { lat: 52.205, lng: 0.847 };
+export { DEFAULT_CENTER } from "@/lib/geo/default-center";

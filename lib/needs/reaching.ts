@@ -1,0 +1,46 @@
+import "server-only";
+import { db, type Db } from "@/db/index";
+import { openNeedsInBand, type ReachingNeed } from "@/db/needs";
+import type { MaterialCode } from "@/lib/calc/facts";
+import { boundingBox, distanceKm } from "@/lib/match/geo";
+import type { LatLng, ListingUnit } from "@/lib/match/types";
+import { needPerListingUnit } from "@/lib/match/units";
+import { REACH_BANDS_KM } from "./reach";
+
+// The one query module of alerts: which open needs a listing could serve. It never reads
+// every need: for each reach band it reads the needs filed under that band whose place lies
+// in a box as wide as the band around the listing's public point (db/needs.ts,
+// openNeedsInBand), and Turf's exact distance against each need's own radius decides.
+
+/** A listing as alerts see it: its public point, never the exact one. */
+export interface AlertingListing {
+  id: string;
+  owner_id: string;
+  material: MaterialCode;
+  unit: ListingUnit;
+  unit_size: number | null;
+  unit_mass_kg: number | null;
+  location: LatLng;
+  /** The first day it can be reserved (today, or its start date): needs dated earlier are past helping. */
+  from_day: string;
+}
+
+export interface ReachedNeed {
+  need: ReachingNeed;
+  /** From the need's place to the listing's public point. */
+  distance_km: number;
+}
+
+/** Every open need the listing could serve: its material, a unit it can be measured in, within the need's radius, dated on or after from_day; never its owner's own. */
+export async function needsReaching(l: AlertingListing, q: Db = db()): Promise<ReachedNeed[]> {
+  const out: ReachedNeed[] = [];
+  for (const band of REACH_BANDS_KM) {
+    const rows = await openNeedsInBand(l.material, band, boundingBox(l.location, band), l.from_day, l.owner_id, q);
+    for (const need of rows) {
+      if (needPerListingUnit(l, need.unit) === null) continue;
+      const km = distanceKm({ lat: Number(need.lat), lng: Number(need.lng) }, l.location);
+      if (km <= Number(need.radius_km)) out.push({ need, distance_km: km });
+    }
+  }
+  return out;
+}
