@@ -10,6 +10,7 @@ const YD3_M3 = YARD_M ** 3;
 
 export const mToFt = (m: number) => m / FOOT_M;
 export const kmToMi = (km: number) => (km * 1000) / (FEET_PER_MILE * FOOT_M);
+export const miToKm = (mi: number) => (mi * FEET_PER_MILE * FOOT_M) / 1000;
 export const ftToM = (ft: number) => ft * FOOT_M;
 export const m2ToFt2 = (m2: number) => m2 / FOOT_M ** 2;
 export const ft2ToM2 = (ft2: number) => ft2 * FOOT_M ** 2;

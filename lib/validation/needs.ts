@@ -54,28 +54,28 @@ function foldPoint(v: unknown): unknown {
   return v;
 }
 
+/** A need to open, with its place as `location` (the form sends exactly this). */
+export const openNeedFieldsSchema = z
+  .object({
+    material,
+    quantity,
+    /** SI: m2, m3 or kg; the material's usual one when left out. */
+    unit: unit.optional(),
+    radius_km: radius.default(DEFAULT_NEED_RADIUS_KM),
+    /** YYYY-MM-DD; the bed's build day (or eight weeks ahead) when left out. */
+    needed_by: neededBy.optional(),
+    location: locationSchema.optional(),
+    bed_id: idSchema("a bed").optional(),
+    alerts: alerts.default("daily"),
+  })
+  .superRefine((n, ctx) => {
+    const issue = n.unit ? unitIssue(n.material, n.unit) : null;
+    if (issue) ctx.addIssue({ code: "custom", path: ["unit"], message: issue });
+    if (!n.location && !n.bed_id) ctx.addIssue({ code: "custom", path: ["location"], message: "Give the place as location {lat, lng}, or the bed_id of one of your beds" });
+  });
+
 /** POST /api/needs: a typed need, or a saved bed's unmet one (bed_id brings the bed's place). */
-export const openNeedSchema = z.preprocess(
-  foldPoint,
-  z
-    .object({
-      material,
-      quantity,
-      /** SI: m2, m3 or kg; the material's usual one when left out. */
-      unit: unit.optional(),
-      radius_km: radius.default(DEFAULT_NEED_RADIUS_KM),
-      /** YYYY-MM-DD; the bed's build day (or eight weeks ahead) when left out. */
-      needed_by: neededBy.optional(),
-      location: locationSchema.optional(),
-      bed_id: idSchema("a bed").optional(),
-      alerts: alerts.default("daily"),
-    })
-    .superRefine((n, ctx) => {
-      const issue = n.unit ? unitIssue(n.material, n.unit) : null;
-      if (issue) ctx.addIssue({ code: "custom", path: ["unit"], message: issue });
-      if (!n.location && !n.bed_id) ctx.addIssue({ code: "custom", path: ["location"], message: "Give the place as location {lat, lng}, or the bed_id of one of your beds" });
-    }),
-);
+export const openNeedSchema = z.preprocess(foldPoint, openNeedFieldsSchema);
 
 /** PATCH /api/needs/:id: change the amount, reach, date or alerts; close it, or open it again. */
 export const updateNeedSchema = z.preprocess(

@@ -1,5 +1,5 @@
 import "server-only";
-import { dismissAlert, markAlertsSeen } from "@/db/need-alerts";
+import { dismissAlert, markAlertsSeen, unseenAlerts } from "@/db/need-alerts";
 import { findOwnNeed } from "@/db/needs";
 import { notFound } from "@/lib/api/errors";
 import type { MaterialCode } from "@/lib/calc/facts";
@@ -130,6 +130,11 @@ export async function listAlerts(userId: string, opts: { openOnly?: boolean } = 
   if (opts.openOnly) b.andWhere("n.status", "open");
   const now = clock();
   return ((await b) as AlertJoin[]).map((r) => toView(r, now));
+}
+
+/** How many notices on open needs I have not looked at (the count beside "My needs"). */
+export async function countNewAlerts(userId: string, ctx: NeedsContext = {}): Promise<number> {
+  return unseenAlerts(userId, resolveContext(ctx).q);
 }
 
 /** PATCH /api/needs/alerts/:id: mark seen, or dismiss. Anyone else's notice is a 404. */
