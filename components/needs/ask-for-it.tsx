@@ -33,7 +33,7 @@ export function AskForIt({ bedId, need, radiusKm, system }: { bedId: string; nee
   if (!open) {
     return (
       <Button variant="secondary" className="self-start" onClick={() => setOpen(true)}>
-        Tell me when {materialNoun(need.material)} is listed nearby
+        Tell me when someone lists {materialNoun(need.material)} nearby
       </Button>
     );
   }

@@ -7,7 +7,7 @@ import { apiFetch, isApiError } from "@/lib/api/client";
 import { MATERIAL_CODES, MATERIALS } from "@/lib/calc/facts";
 import type { UnitSystem } from "@/lib/calc/units";
 import { materialNoun } from "@/lib/match/format";
-import { needInputUnits } from "@/lib/needs/units";
+import { BAG_WORDS, needInputUnits } from "@/lib/needs/units";
 import type { NeedView } from "@/lib/needs/view";
 import { openNeedFieldsSchema } from "@/lib/validation/needs";
 import { Button } from "@/components/ui/button";
@@ -57,16 +57,17 @@ export function OpenNeedForm({
   const form = useForm<NeedFormValues>({ resolver, defaultValues: initial });
   const { register, setValue, formState } = form;
   const errors = formState.errors;
-  const [material, bedId, location] = useWatch({ control: form.control, name: ["material", "bed_id", "location"] });
+  const [material, bedId, location, unit] = useWatch({ control: form.control, name: ["material", "bed_id", "location", "unit"] });
   const units = needInputUnits(material, system);
   const prefix = fixed ? `need-${initial.material}` : "need";
 
-  const onSubmit = form.handleSubmit(async (values) => {
+  // The resolver hands over the parsed API body (SI), not what was typed.
+  const onSubmit = form.handleSubmit(async (parsed) => {
     setError(null);
     try {
-      const { need } = await apiFetch<{ need: NeedView }>("/api/needs", { body: toNeedBody(values, system) });
+      const { need } = await apiFetch<{ need: NeedView }>("/api/needs", { body: parsed });
       onOpened?.(need);
-      if (!fixed) form.reset({ ...values, quantity: "" });
+      if (!fixed) form.reset({ ...form.getValues(), quantity: "" });
       router.refresh();
     } catch (err) {
       if (isApiError(err) && err.fields) for (const [k, message] of Object.entries(err.fields)) form.setError(k.split(".")[0] as FieldPath<NeedFormValues>, { message });
@@ -107,6 +108,7 @@ export function OpenNeedForm({
           ))}
         </SelectField>
       </div>
+      {unit === "bags" ? <p className="-mt-3 text-sm text-humus-600">{BAG_WORDS}</p> : null}
       <div className="grid gap-2 sm:grid-cols-2">
         <Field
           label={`How far you would go (${radiusSymbol(system)})`}

@@ -21,10 +21,13 @@ const OPTIONS: Record<NeedInputUnit, NeedInputOption> = {
   ft2: { code: "ft2", label: "ft²", si: "m2" },
   m3: { code: "m3", label: "m³", si: "m3" },
   yd3: { code: "yd3", label: "yd³", si: "m3" },
-  bags: { code: "bags", label: "bags (30 US gal)", si: "m3" },
+  bags: { code: "bags", label: "bags", si: "m3" },
   kg: { code: "kg", label: "kg", si: "kg" },
   lb: { code: "lb", label: "lb", si: "kg" },
 };
+
+/** What a bag is, for the form's hint: the paper lawn-and-leaf sack BAG_M3 stands for. */
+export const BAG_WORDS = "A bag is a 30 US gal (114 L) paper leaf sack.";
 
 /** Loose materials are counted in bags too; cardboard by area, worms and grounds by weight. */
 const BAGGED = new Set<MaterialCode>(["leaves", "straw", "grass_clippings", "wood_chips", "manure", "compost"]);
@@ -68,7 +71,7 @@ export function fromSiNeed(quantity: number, unit: NeedInputUnit): number {
 /** "0.45 m³ (about 4 bags)": the measure in the reader's units, and bags for loose volumes. */
 export function formatNeedQuantity(quantity: number, unit: NeedUnit, material: MaterialCode, system: UnitSystem): string {
   const measure = formatQuantity(quantity, unit, system);
-  if (unit !== "m3" || !BAGGED.has(material)) return measure;
+  if (unit !== "m3" || !BAGGED.has(material) || quantity <= 0) return measure;
   const bags = Math.max(1, Math.round(quantity / BAG_M3));
   return `${measure} (about ${bags} ${bags === 1 ? "bag" : "bags"})`;
 }

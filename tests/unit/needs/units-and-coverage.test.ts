@@ -28,6 +28,7 @@ describe("a need in the gardener's units", () => {
   it("reads a loose volume back with the bags it makes", () => {
     expect(formatNeedQuantity(0.45, "m3", "leaves", "metric")).toBe("0.45 m³ (about 4 bags)");
     expect(formatNeedQuantity(3.6, "m2", "cardboard", "metric")).toBe("3.6 m²");
+    expect(formatNeedQuantity(0, "m3", "leaves", "metric")).toBe("0 m³");
   });
 });
 

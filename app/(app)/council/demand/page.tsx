@@ -75,7 +75,7 @@ export default async function CouncilDemandPage({ searchParams }: { searchParams
           {s ? (
             <div className="flex flex-col gap-3" data-suggestion>
               <p>
-                <strong>{longDate(s.date)}</strong>, at the marked spot (within {formatQuantity(s.catchment_km, "km", system)} of the busiest area): <strong>{s.households} households</strong> need {materialNoun(s.material)} then,
+                <strong>{longDate(s.date)}</strong>, at the marked spot (within {formatQuantity(s.catchment_km, "km", system)} of the busiest area): <strong>{s.households} households</strong> still need {materialNoun(s.material)} on that day,
                 about {formatQuantity(s.quantity, s.unit, system)} in all. That fills <strong>{s.slots} {s.slots === 1 ? "slot" : "slots"}</strong> of {s.slot_households} households.
               </p>
               <p className="text-sm text-humus-600">The latest Saturday, at least two weeks out, that still comes before three in four of their “needed by” dates.</p>
