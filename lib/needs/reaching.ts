@@ -32,10 +32,11 @@ export interface ReachedNeed {
 }
 
 /** Every open need the listing could serve: its material, a unit it can be measured in, within the need's radius, dated on or after from_day; never its owner's own. */
-export async function needsReaching(l: AlertingListing, q: Db = db()): Promise<ReachedNeed[]> {
+export async function needsReaching(l: AlertingListing, q: Db = db(), stats?: { read: number }): Promise<ReachedNeed[]> {
   const out: ReachedNeed[] = [];
   for (const band of REACH_BANDS_KM) {
     const rows = await openNeedsInBand(l.material, band, boundingBox(l.location, band), l.from_day, l.owner_id, q);
+    if (stats) stats.read += rows.length;
     for (const need of rows) {
       if (needPerListingUnit(l, need.unit) === null) continue;
       const km = distanceKm({ lat: Number(need.lat), lng: Number(need.lng) }, l.location);

@@ -1,6 +1,8 @@
 // npm run bench — matching at 1k, 10k and 100k listings against a naive full scan, then the
 // HTTP throughput of /api/match and /api/listings against /api/health on a production build.
-// Environment: BENCH_SIZES=1000,10000 to run fewer sizes; BENCH_HTTP=0 to skip the HTTP part.
+// Then the alert fan-out at 100,000 open needs (tests/bench/needs.ts).
+// Environment: BENCH_SIZES=1000,10000 to run fewer sizes; BENCH_HTTP=0 to skip the HTTP part;
+// BENCH_OPEN_NEEDS=0 to skip the needs, or another count of them.
 import os from "node:os";
 import { performance } from "node:perf_hooks";
 import type { Knex } from "knex";
@@ -14,6 +16,7 @@ import { prng } from "@/seeds/ids";
 import { at, type BenchStore, buildDataset, emptyStore, HALF_SIDE_KM } from "./dataset";
 import { runHttpBench } from "./http";
 import { naiveCandidates, naiveNearest } from "./naive";
+import { needsTable, runNeedsBench } from "./needs";
 
 const SIZES = (process.env.BENCH_SIZES ?? "1000,10000,100000").split(",").map(Number);
 const RADIUS_KM = 25;
@@ -120,6 +123,9 @@ async function main() {
     console.log(`[bench] listings grew ${(last.size / first.size).toFixed(0)}×; match p95 grew ${(last.match.p95 / first.match.p95).toFixed(1)}×, the naive scan's ${(last.matchNaive.p95 / first.matchNaive.p95).toFixed(1)}×`);
   }
   if (biggest) await biggest.k.destroy();
+  // The alert fan-out: what a new listing costs at 100,000 open needs.
+  const needsCount = Number(process.env.BENCH_OPEN_NEEDS ?? 100_000);
+  if (needsCount > 0) console.log(`\n${needsTable(await runNeedsBench(dir, needsCount))}\n`);
   if (process.env.BENCH_HTTP !== "0" && biggest) await runHttpBench(biggest.store, BENCH_NEEDS);
 }
 

@@ -3,7 +3,7 @@ import type { Knex } from "knex";
 import { newId } from "@/db/index";
 import { findListing } from "@/db/listings";
 import { alertedNeeds, insertAlerts, matchedGardeners } from "@/db/need-alerts";
-import { enqueueEmail } from "@/db/outbox";
+import { enqueueEmails, type NewEmail } from "@/db/outbox";
 import type { ListingRow, NeedAlertRow } from "@/db/types";
 import { appUrl } from "@/lib/app-url";
 import { formatQuantity, type UnitSystem } from "@/lib/calc/units";
@@ -96,7 +96,8 @@ async function writeAlerts(trx: Knex.Transaction, l: ListingRow, fresh: ReachedN
     user_id: f.need.owner_id,
     distance_km: Math.round(f.distance_km * 1000) / 1000,
     delivery: f.need.alerts,
-    emailed_at: null,
+    // "At once" alerts are e-mailed in this same transaction, so the digest never carries them.
+    emailed_at: f.need.alerts === "immediate" ? at : null,
     seen_at: null,
     dismissed_at: null,
     created_at: at,
@@ -105,24 +106,26 @@ async function writeAlerts(trx: Knex.Transaction, l: ListingRow, fresh: ReachedN
   const immediate = rows.filter((r) => r.delivery === "immediate");
   if (!immediate.length) return;
 
-  const people = new Map<string, Recipient>(
-    ((await trx("users").select("id", "email", "display_name", "unit_system", "suspended_at").whereIn("id", [...new Set(immediate.map((r) => r.user_id))])) as Recipient[]).map((u) => [u.id, u]),
-  );
+  const people = new Map<string, Recipient>();
+  const ids = [...new Set(immediate.map((r) => r.user_id))];
+  for (let i = 0; i < ids.length; i += 5_000) {
+    for (const u of (await trx("users").select("id", "email", "display_name", "unit_system", "suspended_at").whereIn("id", ids.slice(i, i + 5_000))) as Recipient[]) people.set(u.id, u);
+  }
   const bedOf = new Map(fresh.map((f) => [f.need.id, f.need.bed_id]));
   const bedIds = [...new Set(fresh.map((f) => f.need.bed_id).filter((b): b is string => !!b))];
   const beds = new Map<string, string>(bedIds.length ? ((await trx("beds").select("id", "name").whereIn("id", bedIds)) as { id: string; name: string }[]).map((b) => [b.id, b.name]) : []);
   const supplier = (await trx("users").first("display_name").where({ id: l.owner_id }))?.display_name ?? "A supplier";
   const cautions = alertCautions(l);
+  const mails: NewEmail[] = [];
   for (const r of immediate) {
     const person = people.get(r.user_id);
     if (!person || person.suspended_at) continue;
     const bed = bedOf.get(r.need_id);
     const line = alertLine(l, supplier, r, bed ? (beds.get(bed) ?? null) : null, person.unit_system, now);
     const mail = needAlertEmail({ name: person.display_name, line, cautions, needsUrl: `${appUrl()}/needs` });
-    // Claimed in the same transaction, so the digest never carries it again.
-    await trx("need_alerts").where({ id: r.id }).update({ emailed_at: at });
-    await enqueueEmail({ to: person.email, ...mail, template: "need.alert", dedupe_key: `need-alert:${r.need_id}:${l.id}` }, trx);
+    mails.push({ to: person.email, ...mail, template: "need.alert", dedupe_key: `need-alert:${r.need_id}:${l.id}` });
   }
+  await enqueueEmails(mails, trx);
 }
 
 export interface FanOut {
