@@ -1,12 +1,13 @@
 "use client";
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { apiFetch, isApiError } from "@/lib/api/client";
+import { isApiError, submitOnce } from "@/lib/api/client";
 import { quantityLabel } from "@/lib/reservations/labels";
 import { formatMoney, priceFor } from "@/lib/payments/money";
 import { formatLocal } from "@/lib/reservations/pickup-times";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
+import { useSubmitKeys } from "@/components/ui/use-submit-keys";
 
 type Answer = { reservation: { id: string }; checkout_url?: string };
 
@@ -27,6 +28,8 @@ export function ReserveFromAlert(props: {
   window: { id: string; label: string; next_start: string } | null;
 }) {
   const router = useRouter();
+  // One Idempotency-Key per click: a retry after a lost answer cannot reserve twice.
+  const keys = useSubmitKeys();
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
   const what = quantityLabel(props.amount, props.unit);
@@ -36,7 +39,7 @@ export function ReserveFromAlert(props: {
     setBusy(true);
     setError(null);
     try {
-      const answer = await apiFetch<Answer>("/api/reservations", {
+      const answer = await submitOnce<Answer>(keys, "/api/reservations", {
         body: { listing_id: props.listingId, quantity: props.amount, need_id: props.needId, bed_id: props.bedId, pickup_window_id: props.window?.id ?? null },
       });
       if (answer.checkout_url) window.location.assign(answer.checkout_url);
