@@ -42,7 +42,8 @@ export function needFormValues(
     material,
     quantity: start.quantity ? trimmed(fromSiNeed(start.quantity, unit), unit === "bags" ? 1 : 2) : "",
     unit,
-    radius_km: trimmed(system === "imperial" ? kmToMi(radius) : radius, 1),
+    // Rounded down, so a radius at the limit does not come back a hair over it.
+    radius_km: String(Math.floor((system === "imperial" ? kmToMi(radius) : radius) * 10 + 1e-9) / 10),
     needed_by: start.needed_by ?? "",
     bed_id: start.bed_id ?? "",
     location: { lat: null, lng: null },
