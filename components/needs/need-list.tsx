@@ -1,6 +1,6 @@
 import Link from "next/link";
 import type { UnitSystem } from "@/lib/calc/units";
-import { formatQuantity } from "@/lib/calc/units";
+import { formatQuantity } from "@/lib/format/quantity";
 import { MATERIALS } from "@/lib/calc/facts";
 import { formatCents, formatListingQuantity, materialNoun } from "@/lib/match/format";
 import { formatNeedQuantity } from "@/lib/needs/units";

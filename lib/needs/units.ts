@@ -3,7 +3,8 @@
 // be asked for in paper lawn-and-leaf bags, the way people count leaves. Every factor comes
 // from lib/calc (BAG_M3, the NIST unit definitions), none is typed here.
 import { BAG_M3, type MaterialCode } from "@/lib/calc/facts";
-import { formatQuantity, ft2ToM2, kgToLb, lbToKg, m2ToFt2, m3ToYd3, yd3ToM3, type UnitSystem } from "@/lib/calc/units";
+import { ft2ToM2, kgToLb, lbToKg, m2ToFt2, m3ToYd3, yd3ToM3, type UnitSystem } from "@/lib/calc/units";
+import { formatQuantity } from "@/lib/format/quantity";
 import { NEED_UNITS } from "@/lib/match/units";
 import type { NeedUnit } from "@/lib/match/types";
 

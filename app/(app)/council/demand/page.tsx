@@ -2,7 +2,7 @@ import Link from "next/link";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
 import { MATERIAL_CODES, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
-import { formatQuantity } from "@/lib/calc/units";
+import { formatQuantity } from "@/lib/format/quantity";
 import { materialNoun } from "@/lib/match/format";
 import { councilOf } from "@/lib/services/council-access";
 import { councilDemand } from "@/lib/services/needs/council-demand";

@@ -4,7 +4,7 @@ import { notFound } from "next/navigation";
 import { pageUser } from "@/lib/auth/page-guard";
 import { loadAlertPage } from "@/lib/services/needs/list-alerts";
 import { MATERIALS } from "@/lib/calc/facts";
-import { formatQuantity } from "@/lib/calc/units";
+import { formatQuantity } from "@/lib/format/quantity";
 import { formatCents, formatListingQuantity, materialNoun } from "@/lib/match/format";
 import { formatNeedQuantity } from "@/lib/needs/units";
 import { formatDay } from "@/lib/listings/format";
