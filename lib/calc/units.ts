@@ -17,6 +17,7 @@ export const ft2ToM2 = (ft2: number) => ft2 * FOOT_M ** 2;
 export const cmToIn = (cm: number) => cm / 100 / INCH_M;
 export const inToCm = (inches: number) => inches * INCH_M * 100;
 export const m3ToFt3 = (m3: number) => m3 / FT3_M3;
+export const ft3ToM3 = (ft3: number) => ft3 * FT3_M3;
 export const m3ToYd3 = (m3: number) => m3 / YD3_M3;
 export const yd3ToM3 = (yd3: number) => yd3 * YD3_M3;
 export const lToUsGal = (l: number) => (l * LITRE_M3) / US_GALLON_M3;

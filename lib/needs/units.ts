@@ -2,13 +2,15 @@
 // Needs are stored in SI (m², m³ or kg, as lib/match measures them); a loose material can also
 // be asked for in paper lawn-and-leaf bags, the way people count leaves. Every factor comes
 // from lib/calc (BAG_M3, the NIST unit definitions), none is typed here.
-import { BAG_M3, type MaterialCode } from "@/lib/calc/facts";
-import { ft2ToM2, kgToLb, lbToKg, m2ToFt2, m3ToYd3, yd3ToM3, type UnitSystem } from "@/lib/calc/units";
+import { BAG_M3, LITRE_M3, type MaterialCode } from "@/lib/calc/facts";
+import { ft2ToM2, ft3ToM3, kgToLb, lbToKg, m2ToFt2, m3ToFt3, m3ToYd3, yd3ToM3, type UnitSystem } from "@/lib/calc/units";
 import { formatQuantity } from "@/lib/format/quantity";
 import { NEED_UNITS } from "@/lib/match/units";
 import type { NeedUnit } from "@/lib/match/types";
 
-export type NeedInputUnit = "m2" | "ft2" | "m3" | "yd3" | "bags" | "kg" | "lb";
+/** Every unit a need may be given in, to the API or on the form; stored as its `si` unit. */
+export const NEED_INPUT_UNITS = ["m2", "ft2", "m3", "yd3", "ft3", "l", "bags", "kg", "lb"] as const;
+export type NeedInputUnit = (typeof NEED_INPUT_UNITS)[number];
 
 export interface NeedInputOption {
   code: NeedInputUnit;
@@ -22,6 +24,8 @@ const OPTIONS: Record<NeedInputUnit, NeedInputOption> = {
   ft2: { code: "ft2", label: "ft²", si: "m2" },
   m3: { code: "m3", label: "m³", si: "m3" },
   yd3: { code: "yd3", label: "yd³", si: "m3" },
+  ft3: { code: "ft3", label: "ft³", si: "m3" },
+  l: { code: "l", label: "L", si: "m3" },
   bags: { code: "bags", label: "bags", si: "m3" },
   kg: { code: "kg", label: "kg", si: "kg" },
   lb: { code: "lb", label: "lb", si: "kg" },
@@ -45,12 +49,24 @@ export function needInputUnits(material: MaterialCode, system: UnitSystem): Need
   return out;
 }
 
-/** A typed amount in an input unit, as the API takes it (SI). */
+/** The SI unit an input unit is stored in. */
+export const siUnitOf = (unit: NeedInputUnit): NeedUnit => OPTIONS[unit].si;
+
+const TO_SI: Record<NeedInputUnit, (x: number) => number> = {
+  m2: (x) => x,
+  ft2: ft2ToM2,
+  m3: (x) => x,
+  yd3: yd3ToM3,
+  ft3: ft3ToM3,
+  l: (x) => x * LITRE_M3,
+  bags: (x) => x * BAG_M3,
+  kg: (x) => x,
+  lb: lbToKg,
+};
+
+/** A typed amount in an input unit, as it is stored (SI). */
 export function toSiNeed(amount: number, unit: NeedInputUnit): { quantity: number; unit: NeedUnit } {
-  const si = OPTIONS[unit].si;
-  const quantity =
-    unit === "ft2" ? ft2ToM2(amount) : unit === "yd3" ? yd3ToM3(amount) : unit === "bags" ? amount * BAG_M3 : unit === "lb" ? lbToKg(amount) : amount;
-  return { quantity, unit: si };
+  return { quantity: TO_SI[unit](amount), unit: OPTIONS[unit].si };
 }
 
 /** An SI amount in an input unit (to fill the form with a bed's unmet need). */
@@ -60,6 +76,10 @@ export function fromSiNeed(quantity: number, unit: NeedInputUnit): number {
       return m2ToFt2(quantity);
     case "yd3":
       return m3ToYd3(quantity);
+    case "ft3":
+      return m3ToFt3(quantity);
+    case "l":
+      return quantity / LITRE_M3;
     case "bags":
       return quantity / BAG_M3;
     case "lb":

@@ -2,8 +2,10 @@
 // two aggregate questions others may ask about them. Shared by the forms and the handlers.
 import { z } from "zod";
 import { MATERIAL_CODES, MATERIALS } from "@/lib/calc/facts";
+import { ApiError, parseInput } from "@/lib/api/errors";
 import { NEED_UNIT_LABEL, NEED_UNITS } from "@/lib/match/units";
 import { MAX_NEED_RADIUS_KM, DEFAULT_NEED_RADIUS_KM } from "@/lib/needs/reach";
+import { NEED_INPUT_UNITS, siUnitOf, toSiNeed, type NeedInputUnit } from "@/lib/needs/units";
 import { MAX_NEED_QUANTITY } from "./match";
 import { calendarDateSchema, idSchema, locationSchema, queryNumber } from "./common";
 
@@ -28,7 +30,8 @@ const quantity = z
   .number({ error: "quantity must be a number" })
   .positive("quantity must be more than 0")
   .max(MAX_NEED_QUANTITY, `quantity must be at most ${MAX_NEED_QUANTITY.toLocaleString("en-US")}`);
-const unit = z.enum(NEED_UNIT_CODES, { error: "unit must be m2, m3 or kg" });
+// Stored in SI; given in any of these (12 "bags" of leaves, 20 "lb" of grounds).
+const unit = z.enum(NEED_INPUT_UNITS, { error: `unit must be one of ${NEED_INPUT_UNITS.join(", ")}` });
 const radius = z
   .number({ error: "radius_km must be a number" })
   .positive("radius_km must be more than 0 km")
@@ -39,19 +42,65 @@ const neededBy = calendarDateSchema.superRefine((d, ctx) => {
 });
 const alerts = z.enum(NEED_ALERT_MODES, { error: "alerts must be daily (one e-mail a day at most) or immediate" });
 
-const unitIssue = (m: (typeof MATERIAL_CODES)[number], u: (typeof NEED_UNIT_CODES)[number]) =>
-  NEED_UNITS[m].includes(u) ? null : `${MATERIALS[m].name} is measured in ${NEED_UNITS[m].map((x) => NEED_UNIT_LABEL[x]).join(" or ")}, not ${NEED_UNIT_LABEL[u]}`;
+/** Why a material cannot be measured in a unit, or null. */
+export function unitIssue(m: (typeof MATERIAL_CODES)[number], u: NeedInputUnit): string | null {
+  const si = siUnitOf(u);
+  return NEED_UNITS[m].includes(si) ? null : `${MATERIALS[m].name} is measured in ${NEED_UNITS[m].map((x) => NEED_UNIT_LABEL[x]).join(" or ")}, not ${NEED_UNIT_LABEL[si]}`;
+}
 
-/** A place may come as `location: {lat, lng}` or as `lat` and `lng` beside the other fields. */
-function foldPoint(v: unknown): unknown {
-  if (v && typeof v === "object" && !Array.isArray(v)) {
-    const o = v as Record<string, unknown>;
-    if (o.location === undefined && (o.lat !== undefined || o.lng !== undefined)) {
-      const { lat, lng, ...rest } = o;
-      return { ...rest, location: { lat, lng } };
+/** A quantity given with its unit, as it is stored: SI. */
+function inSi<T extends { quantity?: number; unit?: NeedInputUnit }>(n: T): Omit<T, "unit"> & { unit?: (typeof NEED_UNIT_CODES)[number] } {
+  if (n.unit === undefined) return n as Omit<T, "unit">;
+  if (n.quantity === undefined) return { ...n, unit: siUnitOf(n.unit) };
+  return { ...n, ...toSiNeed(n.quantity, n.unit) };
+}
+
+/**
+ * Other names clients use for the same fields ("radius", "deadline", "amount" …): read as the
+ * field, and an error about it is reported under both names.
+ */
+export const NEED_FIELD_ALIASES: Record<string, readonly string[]> = {
+  material: ["material_code"],
+  quantity: ["amount", "qty"],
+  radius_km: ["radius", "distance_km", "max_distance_km", "within_km"],
+  needed_by: ["by", "by_date", "deadline", "needed_by_date", "date", "until"],
+  location: ["point", "place", "origin"],
+  alerts: ["alert", "notify", "frequency"],
+};
+
+/** A body with its aliases read as the fields they stand for, lat and lng beside the others folded into location. */
+function normalise(v: unknown): unknown {
+  if (!v || typeof v !== "object" || Array.isArray(v)) return v;
+  const o: Record<string, unknown> = { ...(v as Record<string, unknown>) };
+  for (const [field, names] of Object.entries(NEED_FIELD_ALIASES)) {
+    for (const name of names) {
+      if (o[field] === undefined && o[name] !== undefined) o[field] = o[name];
+      delete o[name];
     }
   }
-  return v;
+  if (o.location === undefined && (o.lat !== undefined || o.lng !== undefined)) {
+    o.location = { lat: o.lat, lng: o.lng };
+  }
+  delete o.lat;
+  delete o.lng;
+  return o;
+}
+
+/** parseInput for a need's body: an error about a field is also given under the alias the client sent. */
+export function parseNeedBody<S extends z.ZodType>(schema: S, body: unknown): z.infer<S> {
+  try {
+    return parseInput(schema, body);
+  } catch (err) {
+    if (!(err instanceof ApiError) || !err.fields || !body || typeof body !== "object") throw err;
+    const sent = body as Record<string, unknown>;
+    const fields = { ...err.fields };
+    for (const [key, message] of Object.entries(err.fields)) {
+      const [field, ...rest] = key.split(".");
+      for (const alias of NEED_FIELD_ALIASES[field] ?? []) if (sent[alias] !== undefined) fields[[alias, ...rest].join(".")] ??= message;
+      if (field === "location" && sent.location === undefined) for (const c of ["lat", "lng"]) if (rest[0] === c || !rest.length) fields[c] ??= message;
+    }
+    throw new ApiError(err.code, err.message, fields);
+  }
 }
 
 /** A need to open, with its place as `location` (the form sends exactly this). */
@@ -72,14 +121,15 @@ export const openNeedFieldsSchema = z
     const issue = n.unit ? unitIssue(n.material, n.unit) : null;
     if (issue) ctx.addIssue({ code: "custom", path: ["unit"], message: issue });
     if (!n.location && !n.bed_id) ctx.addIssue({ code: "custom", path: ["location"], message: "Give the place as location {lat, lng}, or the bed_id of one of your beds" });
-  });
+  })
+  .transform(inSi);
 
 /** POST /api/needs: a typed need, or a saved bed's unmet one (bed_id brings the bed's place). */
-export const openNeedSchema = z.preprocess(foldPoint, openNeedFieldsSchema);
+export const openNeedSchema = z.preprocess(normalise, openNeedFieldsSchema);
 
 /** PATCH /api/needs/:id: change the amount, reach, date or alerts; close it, or open it again. */
 export const updateNeedSchema = z.preprocess(
-  foldPoint,
+  normalise,
   z
     .object({
       quantity: quantity.optional(),
@@ -90,7 +140,9 @@ export const updateNeedSchema = z.preprocess(
       alerts: alerts.optional(),
       status: z.enum(["open", "closed"], { error: "status must be open or closed" }).optional(),
     })
-    .refine((p) => Object.values(p).some((v) => v !== undefined), { message: "Give at least one of quantity, unit, radius_km, needed_by, location, alerts or status", path: ["_"] }),
+    .refine((p) => Object.values(p).some((v) => v !== undefined), { message: "Give at least one of quantity, unit, radius_km, needed_by, location, alerts or status", path: ["_"] })
+    .refine((p) => p.unit === undefined || p.quantity !== undefined || siUnitOf(p.unit) === p.unit, { message: "Give the quantity with a unit like bags or lb", path: ["quantity"] })
+    .transform(inSi),
 );
 
 export type OpenNeedInput = z.infer<typeof openNeedSchema>;

@@ -64,6 +64,30 @@ describe("POST /api/needs", () => {
     expect(res.json.need).toMatchObject({ unit: "kg", radius_km: 10, location: { lat: 52.2, lng: 0.86 } });
   });
 
+  it("takes the amount in bags, litres, cubic feet or pounds, and keeps it in SI", async () => {
+    // 12 paper leaf bags of 30 US gal (common practice, no source); NIST HB44: 1 gal = 3.785411784 L.
+    const bags = await post(typed({ quantity: 12, unit: "bags" }));
+    expect(bags.status, JSON.stringify(bags.json)).toBe(201);
+    expect(bags.json.need.unit).toBe("m3");
+    expect(bags.json.need.quantity).toBeCloseTo(1.36274824, 6);
+    const lb = await post(typed({ material: "coffee_grounds", quantity: 20, unit: "lb" }));
+    expect(lb.json.need).toMatchObject({ unit: "kg", quantity: expect.closeTo(9.0718474, 6) }); // NIST HB44: 1 lb = 0.45359237 kg
+    const litres = await post(typed({ quantity: 250, unit: "l" }));
+    expect(litres.json.need.quantity).toBeCloseTo(0.25, 9);
+    const wrong = await post(typed({ material: "worms", quantity: 2, unit: "bags" }));
+    expect(wrong.status).toBe(422);
+    expect(wrong.json.error.fields.unit).toMatch(/measured in kg/);
+  });
+
+  it("reads the names other clients use for the fields, and names them back in errors", async () => {
+    const ok = await post({ material: "leaves", amount: 0.3, unit: "m3", radius: 4, deadline: later, lat: 52.2, lng: 0.85 });
+    expect(ok.status, JSON.stringify(ok.json)).toBe(201);
+    expect(ok.json.need).toMatchObject({ quantity: 0.3, radius_km: 4, needed_by: later, location: { lat: 52.2, lng: 0.85 } });
+    const far = await post({ material: "leaves", quantity: 1, unit: "m3", radius: 60, deadline: addDays(today, -2), lat: 95, lng: 0.85 });
+    expect(far.status).toBe(422);
+    expect(far.json.error.fields).toMatchObject({ radius_km: expect.any(String), radius: expect.any(String), needed_by: expect.any(String), deadline: expect.any(String), lat: expect.any(String) });
+  });
+
   it("opens a bed's unmet need with the bed's place and build day", async () => {
     const res = await post({ material: "straw", quantity: 0.18, unit: "m3", bed_id: bedId, alerts: "immediate" });
     expect(res.status, JSON.stringify(res.json)).toBe(201);

@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { browseParams } from "@/lib/validation/listings";
-import { listNeedsQuerySchema, openNeedSchema } from "@/lib/validation/needs";
+import { listNeedsQuerySchema, openNeedSchema, parseNeedBody } from "@/lib/validation/needs";
 import { listNeeds } from "@/lib/services/needs/list-needs";
 import { openNeed } from "@/lib/services/needs/open-need";
 
@@ -14,6 +14,6 @@ export const GET = withAuth(async ({ req, user }) => {
 
 // POST /api/needs — open a need: a bed's unmet layer (bed_id) or a typed one (location).
 export const POST = withAuth(async ({ req, user }) => {
-  const input = parseInput(openNeedSchema, await readJson(req));
+  const input = parseNeedBody(openNeedSchema, await readJson(req));
   return NextResponse.json({ need: await openNeed(user.id, input) }, { status: 201 });
 }, ["gardener"]);

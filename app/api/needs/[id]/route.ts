@@ -1,7 +1,6 @@
 import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
-import { parseInput } from "@/lib/api/errors";
-import { updateNeedSchema } from "@/lib/validation/needs";
+import { parseNeedBody, updateNeedSchema } from "@/lib/validation/needs";
 import { getNeed } from "@/lib/services/needs/list-needs";
 import { changeNeed } from "@/lib/services/needs/change-need";
 import { deleteNeed } from "@/lib/services/needs/delete-need";
@@ -15,7 +14,7 @@ export const GET = withAuth<P>(async ({ params, user }) => {
 
 // PATCH /api/needs/:id — change the amount, radius, date or alerts; close it, or open it again.
 export const PATCH = withAuth<P>(async ({ req, params, user }) => {
-  const patch = parseInput(updateNeedSchema, await readJson(req));
+  const patch = parseNeedBody(updateNeedSchema, await readJson(req));
   return NextResponse.json({ need: await changeNeed(user.id, params.id, patch) });
 });
 
