@@ -237,3 +237,17 @@ describe("closing needs", () => {
     expect((await ctx.db("needs").first("status").where({ id: n.cyFar })).status).toBe("open");
   });
 });
+
+describe("an address nobody has confirmed", () => {
+  it("sends no mail to an address nobody has confirmed, and keeps the notice in the app", async () => {
+    const unconfirmed = await createUser({ roles: ["gardener"], unconfirmed: true });
+    // Far from everyone else's needs, so nobody else's alerts or digests are touched.
+    const elsewhere = from(40, 45);
+    const need = await openNeed(unconfirmed.id, { location: elsewhere, radius_km: 5, alerts: "immediate" });
+    const posted = await call(listings.POST as never, await request("/api/listings", { as: who.supplier, body: listingBody({ title: "Alder leaves", location: elsewhere }) }));
+    expect(await alertsFor(posted.json.listing.id)).toContain(need);
+    expect(await mails(unconfirmed.email)).toHaveLength(0);
+    await sendNeedDigests(() => new Date(Date.now() + 48 * 3_600_000), { db: ctx.db });
+    expect(await mails(unconfirmed.email)).toHaveLength(0);
+  });
+});

@@ -52,6 +52,7 @@ interface Recipient {
   display_name: string;
   unit_system: UnitSystem;
   suspended_at: string | null;
+  email_verified_at: string | null;
 }
 
 /** The words of one alert for its reader. */
@@ -110,7 +111,7 @@ async function writeAlerts(trx: Knex.Transaction, l: ListingRow, fresh: ReachedN
   const people = new Map<string, Recipient>();
   const ids = [...new Set(immediate.map((r) => r.user_id))];
   for (let i = 0; i < ids.length; i += 5_000) {
-    for (const u of (await trx("users").select("id", "email", "display_name", "unit_system", "suspended_at").whereIn("id", ids.slice(i, i + 5_000))) as Recipient[]) people.set(u.id, u);
+    for (const u of (await trx("users").select("id", "email", "display_name", "unit_system", "suspended_at", "email_verified_at").whereIn("id", ids.slice(i, i + 5_000))) as Recipient[]) people.set(u.id, u);
   }
   const bedOf = new Map(fresh.map((f) => [f.need.id, f.need.bed_id]));
   const bedIds = [...new Set(fresh.map((f) => f.need.bed_id).filter((b): b is string => !!b))];
@@ -120,7 +121,8 @@ async function writeAlerts(trx: Knex.Transaction, l: ListingRow, fresh: ReachedN
   const mails: NewEmail[] = [];
   for (const r of immediate) {
     const person = people.get(r.user_id);
-    if (!person || person.suspended_at) continue;
+    // An address nobody has confirmed gets no mail: the notice waits in the app.
+    if (!person || person.suspended_at || !person.email_verified_at) continue;
     const bed = bedOf.get(r.need_id);
     const line = alertLine(l, supplier, r, bed ? (beds.get(bed) ?? null) : null, person.unit_system, now);
     const mail = needAlertEmail({ name: person.display_name, line, cautions, needsUrl: `${appUrl()}/needs` });

@@ -33,8 +33,9 @@ export async function sendNeedDigests(clock: () => Date = () => new Date(), ctx:
     if (signal?.aborted) break;
     const last = await lastDigestAt(userId, q);
     if (last && last > since) continue;
-    const person = await q("users").first("email", "display_name", "unit_system", "suspended_at").where({ id: userId });
-    if (!person || person.suspended_at) continue;
+    const person = await q("users").first("email", "display_name", "unit_system", "suspended_at", "email_verified_at").where({ id: userId });
+    // An address nobody has confirmed gets no mail (anyone could have typed it): the notices wait in the app.
+    if (!person || person.suspended_at || !person.email_verified_at) continue;
     const done = await q.transaction(async (trx) => {
       const pending: PendingRow[] = await trx("need_alerts as a")
         .join("needs as n", "n.id", "a.need_id")
