@@ -1,7 +1,7 @@
 // npm run bench — matching at 1k, 10k and 100k listings against a naive full scan, then the
 // HTTP throughput of /api/match and /api/listings against /api/health on a production build.
 // Then the alert fan-out at 100,000 open needs (tests/bench/needs.ts).
-// Environment: BENCH_SIZES=1000,10000 to run fewer sizes; BENCH_HTTP=0 to skip the HTTP part;
+// Environment: BENCH_SIZES=1000,10000 to run fewer sizes (0: none, only the needs); BENCH_HTTP=0 to skip the HTTP part;
 // BENCH_OPEN_NEEDS=0 to skip the needs, or another count of them.
 import os from "node:os";
 import { performance } from "node:perf_hooks";
@@ -18,7 +18,8 @@ import { runHttpBench } from "./http";
 import { naiveCandidates, naiveNearest } from "./naive";
 import { needsTable, runNeedsBench } from "./needs";
 
-const SIZES = (process.env.BENCH_SIZES ?? "1000,10000,100000").split(",").map(Number);
+// BENCH_SIZES=0 skips the listings (and the HTTP part, which runs on the largest of them).
+const SIZES = (process.env.BENCH_SIZES ?? "1000,10000,100000").split(",").map(Number).filter((n) => n > 0);
 const RADIUS_KM = 25;
 const NEAR_LIMIT = 50;
 
