@@ -154,9 +154,9 @@ const lng = queryNumber("lng").pipe(z.number().min(-180, "lng must be between -1
 
 /** GET /api/needs/nearby-demand?lat&lng&material: the aggregates a supplier may see. */
 export const nearbyDemandQuerySchema = z.object({
-  lat: z.string({ error: "Give lat" }).pipe(lat),
-  lng: z.string({ error: "Give lng" }).pipe(lng),
-  material: z.string({ error: "Give material" }).pipe(queryMaterial),
+  lat: z.string({ error: "Give lat" }).pipe(lat).describe("Latitude of the pickup point, decimal degrees (-90 to 90)"),
+  lng: z.string({ error: "Give lng" }).pipe(lng).describe("Longitude of the pickup point, decimal degrees (-180 to 180)"),
+  material: z.string({ error: "Give material" }).pipe(queryMaterial).describe(`The listing's material: ${MATERIAL_CODES.join(", ")}`),
 });
 
 /** GET /api/council/demand(.csv): open needs by cell around a point (the council's own by default). */
