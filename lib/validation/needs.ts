@@ -132,6 +132,8 @@ export const updateNeedSchema = z.preprocess(
   normalise,
   z
     .object({
+      /** A need keeps its material (its alerts are for it): the same one is accepted, another is refused. */
+      material: material.optional(),
       quantity: quantity.optional(),
       unit: unit.optional(),
       radius_km: radius.optional(),

@@ -191,6 +191,8 @@ describe("PATCH and DELETE /api/needs/:id", () => {
     ["a date in the past", { needed_by: addDays(today, -3) }, "needed_by"],
     ["a unit compost is not measured in", { unit: "m2" }, "unit"],
     ["nothing to change", {}, "_"],
+    ["an unknown material", { material: "plutonium" }, "material"],
+    ["another material", { material: "leaves", quantity: 0.2 }, "material"],
   ] as const) {
     it(`refuses ${label} with 422 naming ${field}`, async () => {
       const res = await patch(body);
@@ -199,6 +201,12 @@ describe("PATCH and DELETE /api/needs/:id", () => {
       expect(await ctx.db("needs").first("quantity", "radius_km").where({ id })).toEqual({ quantity: 0.6, radius_km: 20 });
     });
   }
+
+  it("accepts the need's own material beside a change", async () => {
+    const res = await patch({ material: "compost", quantity: 0.6 });
+    expect(res.status, JSON.stringify(res.json)).toBe(200);
+    expect(res.json.need).toMatchObject({ material: "compost", quantity: 0.6 });
+  });
 
   it("closes by hand, refuses edits while closed, and opens again", async () => {
     const closed = await patch({ status: "closed" });

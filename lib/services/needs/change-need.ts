@@ -22,6 +22,9 @@ export async function changeNeed(userId: string, id: string, patch: UpdateNeedIn
   const today = dayOf(now);
   const row = await findOwnNeed(id, userId, q);
   if (!row) throw notFound("That need");
+  if (patch.material !== undefined && patch.material !== row.material_code) {
+    throw invalid("material", `This need is for ${MATERIALS[row.material_code].name.toLowerCase()}; a need's material cannot change: open a new need for ${MATERIALS[patch.material].name.toLowerCase()}.`);
+  }
   const current = effectiveNeedStatus(row, today);
   const reopening = patch.status === "open" && current !== "open";
   const edits = patch.quantity !== undefined || patch.unit !== undefined || patch.radius_km !== undefined || patch.needed_by !== undefined || patch.location !== undefined || patch.alerts !== undefined;
