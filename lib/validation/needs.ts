@@ -83,6 +83,8 @@ function normalise(v: unknown): unknown {
   }
   delete o.lat;
   delete o.lng;
+  // A date and time ("2027-03-01T00:00:00Z") is read as the calendar day it was written on.
+  if (typeof o.needed_by === "string" && /^\d{4}-\d{2}-\d{2}T/.test(o.needed_by) && !Number.isNaN(Date.parse(o.needed_by))) o.needed_by = o.needed_by.slice(0, 10);
   return o;
 }
 

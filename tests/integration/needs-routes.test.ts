@@ -88,6 +88,12 @@ describe("POST /api/needs", () => {
     expect(far.json.error.fields).toMatchObject({ radius_km: expect.any(String), radius: expect.any(String), needed_by: expect.any(String), deadline: expect.any(String), lat: expect.any(String) });
   });
 
+  it("reads a date with a time as the day it was written on", async () => {
+    const res = await post(typed({ needed_by: `${later}T18:30:00.000Z` }));
+    expect(res.status, JSON.stringify(res.json)).toBe(201);
+    expect(res.json.need.needed_by).toBe(later);
+  });
+
   it("opens a bed's unmet need with the bed's place and build day", async () => {
     const res = await post({ material: "straw", quantity: 0.18, unit: "m3", bed_id: bedId, alerts: "immediate" });
     expect(res.status, JSON.stringify(res.json)).toBe(201);
@@ -106,6 +112,7 @@ describe("POST /api/needs", () => {
     ["an unknown material", typed({ material: "plutonium" }), "material"],
     ["a date in the past", typed({ needed_by: addDays(today, -1) }), "needed_by"],
     ["a date that is not a date", typed({ needed_by: "2027-02-30" }), "needed_by"],
+    ["a past date with a time", typed({ needed_by: `${addDays(today, -3)}T12:00:00Z` }), "needed_by"],
     ["a unit the material is not measured in", typed({ material: "worms", unit: "m3" }), "unit"],
     ["a quantity that is text", typed({ quantity: "lots" }), "quantity"],
     ["no place and no bed", typed({ location: undefined }), "location"],
