@@ -109,7 +109,8 @@ function table(rows: Row[]) {
 async function main() {
   const dir = process.env.BENCH_DIR ?? os.tmpdir();
   const engine = process.env.DATABASE_URL ? "PostgreSQL (DATABASE_URL)" : "SQLite";
-  console.log(`[bench] ${engine}; ${os.cpus().length} × ${os.cpus()[0]?.model ?? "cpu"}, Node ${process.version}; ${BENCH_NEEDS.length} needs within ${RADIUS_KM} km; near-query = the ${NEAR_LIMIT} nearest listings within ${RADIUS_KM} km`);
+  console.log(`[bench] ${engine}; ${os.cpus().length} × ${os.cpus()[0]?.model ?? "cpu"}, Node ${process.version}`);
+  if (SIZES.length) console.log(`[bench] matching: ${BENCH_NEEDS.length} needs within ${RADIUS_KM} km; near-query = the ${NEAR_LIMIT} nearest listings within ${RADIUS_KM} km`);
   const rows: Row[] = [];
   let biggest: { k: Knex; store: BenchStore } | null = null;
   for (const size of SIZES) {
@@ -118,7 +119,7 @@ async function main() {
     if (biggest) await biggest.k.destroy();
     biggest = { k, store };
   }
-  console.log(`\n${table(rows)}\n`);
+  if (rows.length) console.log(`\n${table(rows)}\n`);
   const [first, last] = [rows[0], rows[rows.length - 1]];
   if (rows.length > 1) {
     console.log(`[bench] listings grew ${(last.size / first.size).toFixed(0)}×; match p95 grew ${(last.match.p95 / first.match.p95).toFixed(1)}×, the naive scan's ${(last.matchNaive.p95 / first.matchNaive.p95).toFixed(1)}×`);
