@@ -62,6 +62,7 @@ export default async function CouncilDemandPage({ searchParams }: { searchParams
           centre={d.centre}
           areas={d.cells.map((c) => ({ id: c.id, south: c.south, west: c.west, north: c.north, east: c.east, intensity: c.people / most, label: `${c.people} people, ${formatQuantity(c.quantity, c.unit, system)}` }))}
           suggestion={s ? { ...s.place, label: `Suggested giveaway day, ${longDate(s.date)}` } : null}
+          minPeople={d.min_people}
         />
         <Panel
           id="suggestion"
