@@ -108,7 +108,17 @@ test.describe("the council's demand map", () => {
     const map = page.getByRole("region", { name: "Map of open needs by area" });
     await expect(map.locator("path.duff-demand-cell")).toHaveCount(2);
     await expect(page.locator("[data-suggestion]")).toContainText("households");
-    await page.screenshot({ path: shots("council-demand"), fullPage: true });
+    await expect(page.locator("[data-map-key]")).toContainText("3 or more people");
+    // A desk and a phone: the map, suggestion and table fit the width at both.
+    for (const width of [1366, 390]) {
+      await page.setViewportSize({ width, height: width > 500 ? 900 : 844 });
+      await page.reload();
+      await expect(map.locator("path.duff-demand-cell")).toHaveCount(2);
+      // The shipped base map drawn under the areas (Leaflet adds its shapes to their own pane).
+      await expect(map.locator(".leaflet-duff-basemap-pane path").first()).toBeAttached();
+      expect(await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)).toBeLessThanOrEqual(0);
+      await page.screenshot({ path: shots(`council-demand-${width}`), fullPage: true });
+    }
     const csv = await page.request.get("/api/council/demand.csv?material=leaves");
     expect(csv.headers()["content-type"]).toMatch(/text\/csv/);
     expect((await csv.text()).trim().split(/\r\n/)).toHaveLength(3);
