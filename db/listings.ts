@@ -1,6 +1,8 @@
 import type { Knex } from "knex";
 import { db, nowIso, type Db } from "./index";
 import type { ListingRow, ListingStatus } from "./types";
+import type { MaterialCode } from "@/lib/calc/facts";
+import type { Box } from "@/lib/match/geo";
 
 export const LISTING_COLUMNS = [
   "id",
@@ -74,6 +76,20 @@ export async function insertListing(row: Omit<ListingRow, "created_at" | "update
 /** Any listing by id, whatever its status: callers decide what the asker may see. */
 export async function findListing(id: string, q: Db = db()): Promise<ListingRow | undefined> {
   return (await q("listings").first(cols()).where("listings.id", id)) as ListingRow | undefined;
+}
+
+/**
+ * Active listings of `material` whose public point lies in `box`, not `excludeOwner`'s, at
+ * most `limit`: one range of listings_search_box (status, material_code, approx_lat, approx_lng).
+ */
+export async function activeListingsInBox(material: MaterialCode, box: Box, excludeOwner: string, limit: number, q: Db = db()): Promise<ListingRow[]> {
+  return (await q("listings")
+    .select(cols())
+    .where({ "listings.status": "active", "listings.material_code": material })
+    .whereBetween("listings.approx_lat", [box.minLat, box.maxLat])
+    .whereBetween("listings.approx_lng", [box.minLng, box.maxLng])
+    .andWhereNot("listings.owner_id", excludeOwner)
+    .limit(limit)) as ListingRow[];
 }
 
 /** A listing the person may manage, or undefined (which the caller answers as 404). */

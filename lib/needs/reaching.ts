@@ -31,16 +31,26 @@ export interface ReachedNeed {
   distance_km: number;
 }
 
-/** Every open need the listing could serve: its material, a unit it can be measured in, within the need's radius, dated on or after from_day; never its owner's own. */
+/**
+ * How far a listing is from a need it could serve (km), or null when it cannot: a unit the
+ * need can be measured in, within the need's own radius, reservable on or before its date,
+ * and not the need's owner's own listing. The material is the caller's query.
+ */
+export function servingDistance(l: AlertingListing, need: Pick<ReachingNeed, "owner_id" | "unit" | "lat" | "lng" | "radius_km" | "needed_by">): number | null {
+  if (need.owner_id === l.owner_id || need.needed_by < l.from_day || needPerListingUnit(l, need.unit) === null) return null;
+  const km = distanceKm({ lat: Number(need.lat), lng: Number(need.lng) }, l.location);
+  return km <= Number(need.radius_km) ? km : null;
+}
+
+/** Every open need the listing could serve (servingDistance), read band by band through the index. */
 export async function needsReaching(l: AlertingListing, q: Db = db(), stats?: { read: number }): Promise<ReachedNeed[]> {
   const out: ReachedNeed[] = [];
   for (const band of REACH_BANDS_KM) {
     const rows = await openNeedsInBand(l.material, band, boundingBox(l.location, band), l.from_day, l.owner_id, q);
     if (stats) stats.read += rows.length;
     for (const need of rows) {
-      if (needPerListingUnit(l, need.unit) === null) continue;
-      const km = distanceKm({ lat: Number(need.lat), lng: Number(need.lng) }, l.location);
-      if (km <= Number(need.radius_km)) out.push({ need, distance_km: km });
+      const km = servingDistance(l, need);
+      if (km !== null) out.push({ need, distance_km: km });
     }
   }
   return out;

@@ -125,17 +125,27 @@ describe("a listing published", () => {
 });
 
 describe("restocked, come into its dates, a hold returned", () => {
-  it("reaches a need opened since, when the supplier adds more", async () => {
+  it("notices a need opened since at once, and reaches one opened while it was spoken for when the supplier adds more", async () => {
     n.later = await openNeed(who.dee, { location: from(1.5, 60), radius_km: 5 });
-    expect(await alertsFor(listingId)).not.toContain(n.later);
-    const res = await call(oneListing.PATCH as never, await request(`/api/listings/${listingId}`, { method: "PATCH", as: who.supplier, body: { quantity: 14 } }), { id: listingId });
-    expect(res.status, JSON.stringify(res.json)).toBe(200);
+    // Listings already on offer are noticed as a need is opened (need-notices.test.ts).
     expect(await alertsFor(listingId)).toContain(n.later);
     expect(await ctx.db("need_alerts").where({ listing_id: listingId }).count({ n: "*" })).toEqual([{ n: 5 }]);
+
+    const small = await call(listings.POST as never, await request("/api/listings", { as: who.supplier, body: listingBody({ quantity: 2, title: "Two bags of birch" }) }));
+    const id = small.json.listing.id as string;
+    const held = await call(reservations.POST as never, await request("/api/reservations", { as: who.cy, body: { listing_id: id, quantity: 2 } }));
+    expect(held.status, JSON.stringify(held.json)).toBe(201);
+    n.spokenFor = await openNeed(who.dee, { location: from(0.5, 90, small.json.listing.location), radius_km: 3 });
+    expect(await alertsFor(id)).not.toContain(n.spokenFor);
+    const res = await call(oneListing.PATCH as never, await request(`/api/listings/${id}`, { method: "PATCH", as: who.supplier, body: { quantity: 5 } }), { id });
+    expect(res.status, JSON.stringify(res.json)).toBe(200);
+    expect(await alertsFor(id)).toContain(n.spokenFor);
   });
 
   it("reaches a need opened while it waited for its start date, on that date", async () => {
     n.waiting = await openNeed(who.ed, { material: "leaves", location: from(2.5, 330), radius_km: 5 });
+    // As a need written straight into the database (a seed, an import) would be: not noticed on opening.
+    await ctx.db("need_alerts").where({ need_id: n.waiting }).delete();
     // Nothing changed on the listing, and its start date is still to come.
     await alertDueListings(() => new Date(), { db: ctx.db });
     expect(await alertsFor(listingId)).not.toContain(n.waiting);

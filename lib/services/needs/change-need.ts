@@ -9,6 +9,7 @@ import { effectiveNeedStatus, type NeedView } from "@/lib/needs/view";
 import { neededByIssue, type UpdateNeedInput } from "@/lib/validation/needs";
 import { dayOf, resolveContext, type NeedsContext } from "./context";
 import { needViews } from "./list-needs";
+import { noticeListingsQuietly } from "./notice-listings";
 
 const invalid = (field: string, message: string) => new ApiError("invalid_input", "Some fields need another look.", { [field]: message });
 
@@ -58,5 +59,10 @@ export async function changeNeed(userId: string, id: string, patch: UpdateNeedIn
       throw err;
     }
   }
-  return (await needViews([(await findOwnNeed(id, userId, q))!], q, now))[0];
+  const after = (await findOwnNeed(id, userId, q))!;
+  // Somewhere new, further, later, measured otherwise or open again: listings already on offer may serve it now.
+  if (reopening || changes.lat !== undefined || changes.radius_km !== undefined || changes.needed_by !== undefined || changes.unit !== undefined) {
+    await noticeListingsQuietly(after, { db: q, clock });
+  }
+  return (await needViews([after], q, now))[0];
 }

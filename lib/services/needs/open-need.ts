@@ -12,6 +12,7 @@ import { addDays } from "@/lib/time/zoned";
 import { neededByIssue, type OpenNeedInput } from "@/lib/validation/needs";
 import { dayOf, resolveContext, type NeedsContext } from "./context";
 import { needViews } from "./list-needs";
+import { noticeListingsQuietly } from "./notice-listings";
 
 /** A need with no date of its own, and no bed day to borrow, runs this long (a product choice: a season's planning). */
 export const DEFAULT_NEED_DAYS = 56;
@@ -64,5 +65,6 @@ export async function openNeed(userId: string, input: OpenNeedInput, ctx: NeedsC
     if (isUniqueViolation(err)) throw new ApiError("conflict", "This bed already has an open need for that material: change that one instead.");
     throw err;
   }
+  await noticeListingsQuietly(row, { db: q, clock });
   return (await needViews([row], q, now))[0];
 }
