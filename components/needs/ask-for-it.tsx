@@ -24,8 +24,9 @@ export function AskForIt({ bedId, need, radiusKm, system }: { bedId: string; nee
     return (
       <p className="text-sm text-moss-800" data-open-need={need.material}>
         You have an open need for {formatNeedQuantity(existing.quantity, existing.unit, existing.material, system)} of {materialNoun(need.material)} until {longDate(existing.needed_by)}: we tell you when it is listed.{" "}
+        {existing.alert_count > 0 ? `${existing.alert_count === 1 ? "One listing" : `${existing.alert_count} listings`} within your reach could serve it already. ` : ""}
         <Link href="/needs" className="font-medium underline underline-offset-4">
-          Your needs
+          {existing.alert_count > 0 ? "See them in your needs" : "Your needs"}
         </Link>
       </p>
     );
