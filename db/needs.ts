@@ -1,8 +1,10 @@
 import type { Knex } from "knex";
 import type { MaterialCode } from "@/lib/calc/facts";
-import type { Box } from "@/lib/match/geo";
+import { boundingBox } from "@/lib/match/geo";
+import type { LatLng } from "@/lib/match/types";
 import type { CountedReservation } from "@/lib/needs/coverage";
 import { REACH_BANDS_KM } from "@/lib/needs/reach";
+import { isPg, lockForUpdate, nearBox } from "./dialect";
 import { db, type Db } from "./index";
 import type { NeedRow, NeedStatus } from "./types";
 
@@ -29,15 +31,20 @@ export type NeedPatch = Partial<Pick<NeedRow, "quantity" | "unit" | "radius_km" 
 
 const cols = (alias = "needs") => NEED_COLUMNS.map((c) => `${alias}.${c}`);
 
-/** PostgreSQL hands a DATE back as a Date; keep the calendar day as text, as SQLite does. */
-function normalise(r: NeedRow): NeedRow {
-  const v = r.needed_by as unknown;
-  if (v instanceof Date) r.needed_by = v.toISOString().slice(0, 10);
-  for (const k of ["closed_at", "created_at", "updated_at"] as const) {
-    const t = r[k] as unknown;
-    if (t instanceof Date) (r as unknown as Record<string, unknown>)[k] = t.toISOString();
-  }
-  return r;
+/** A place and a distance around it (km): the circle a query reads, through each engine's index. */
+export interface Around {
+  centre: LatLng;
+  km: number;
+}
+
+/**
+ * Needs whose place lies around `a`: a latitude/longitude box on both engines (SQLite's
+ * B-tree needs_reach_box narrows by it), and on PostgreSQL the cube of the GiST index
+ * needs_near as well. Callers measure the exact distance themselves.
+ */
+function placedAround(b: Knex.QueryBuilder, a: Around): Knex.QueryBuilder {
+  const box = boundingBox(a.centre, a.km);
+  return nearBox(b.whereBetween("lat", [box.minLat, box.maxLat]).whereBetween("lng", [box.minLng, box.maxLng]), a.centre, a.km * 1000, "lat", "lng");
 }
 
 export async function insertNeed(row: NeedRow, q: Db = db()): Promise<void> {
@@ -47,7 +54,7 @@ export async function insertNeed(row: NeedRow, q: Db = db()): Promise<void> {
 /** A need its owner may see and change; anyone else's is simply not found. */
 export async function findOwnNeed(id: string, ownerId: string, q: Db = db()): Promise<NeedRow | undefined> {
   const row = (await q("needs").first(cols()).where({ id, owner_id: ownerId })) as NeedRow | undefined;
-  return row && normalise(row);
+  return row;
 }
 
 export async function listOwnNeeds(ownerId: string, opts: { openOnly?: boolean; bedId?: string } = {}, q: Db = db()): Promise<NeedRow[]> {
@@ -55,7 +62,7 @@ export async function listOwnNeeds(ownerId: string, opts: { openOnly?: boolean; 
   if (opts.openOnly) b.andWhere("status", "open");
   if (opts.bedId) b.andWhere("bed_id", opts.bedId);
   const rows = (await b.orderBy([{ column: "created_at", order: "desc" }, { column: "id", order: "desc" }])) as NeedRow[];
-  return rows.map(normalise);
+  return rows;
 }
 
 export async function updateOwnNeed(id: string, ownerId: string, patch: NeedPatch, now: string, q: Db = db()): Promise<number> {
@@ -86,28 +93,19 @@ export async function expireNeeds(today: string, now: string, q: Db = db()): Pro
 export type ReachingNeed = Pick<NeedRow, "id" | "owner_id" | "bed_id" | "quantity" | "unit" | "radius_km" | "lat" | "lng" | "needed_by" | "alerts">;
 
 /**
- * Open needs of `material` filed under `band` whose place lies in `box`, dated `fromDay` or
- * later, not `excludeOwner`'s: one range of the needs_reach_box index (status, material_code,
- * reach_km, lat, lng). SQLite is told to use it; PostgreSQL's planner picks its own.
+ * Open needs of `material` filed under `band` whose place lies within the band around
+ * `centre`, dated `fromDay` or later, not `excludeOwner`'s: one range of the needs_reach_box
+ * index (status, material_code, reach_km, lat, lng) on SQLite, which is told to use it; one
+ * search of the GiST index needs_near on PostgreSQL.
  */
-export async function openNeedsInBand(
-  material: MaterialCode,
-  band: number,
-  box: Box,
-  fromDay: string,
-  excludeOwner: string,
-  q: Db = db(),
-): Promise<ReachingNeed[]> {
-  const from = (q as Knex).client.config.client === "pg" ? "needs" : q.raw("needs INDEXED BY needs_reach_box");
-  const rows = await q
-    .from(from)
+export async function openNeedsInBand(material: MaterialCode, band: number, centre: LatLng, fromDay: string, excludeOwner: string, q: Db = db()): Promise<ReachingNeed[]> {
+  const b = q
+    .from(isPg(q) ? "needs" : q.raw("needs INDEXED BY needs_reach_box"))
     .select("id", "owner_id", "bed_id", "quantity", "unit", "radius_km", "lat", "lng", "needed_by", "alerts")
     .where({ status: "open", material_code: material, reach_km: band })
-    .whereBetween("lat", [box.minLat, box.maxLat])
-    .whereBetween("lng", [box.minLng, box.maxLng])
     .andWhere("needed_by", ">=", fromDay)
     .andWhereNot("owner_id", excludeOwner);
-  return (rows as ReachingNeed[]).map((r) => normalise(r as NeedRow));
+  return (await placedAround(b, { centre, km: band })) as ReachingNeed[];
 }
 
 /** What the aggregates read of a need: no id, no bed, never returned as is (lib/needs/demand.ts). */
@@ -122,18 +120,15 @@ export interface DemandSourceRow {
   lng: number;
 }
 
-/** Open needs (of `materials`, or all) dated `fromDay` or later whose place lies in `box`, through the same index. */
-export async function openNeedsInBox(box: Box, fromDay: string, materials: readonly MaterialCode[] | null, q: Db = db()): Promise<DemandSourceRow[]> {
+/** Open needs (of `materials`, or all) dated `fromDay` or later whose place lies around `a`, through the same indexes. */
+export async function openNeedsInBox(a: Around, fromDay: string, materials: readonly MaterialCode[] | null, q: Db = db()): Promise<DemandSourceRow[]> {
   const b = q("needs")
     .select("owner_id", "material_code", "quantity", "unit", "radius_km", "needed_by", "lat", "lng")
     .where("status", "open")
     .whereIn("reach_km", [...REACH_BANDS_KM])
-    .whereBetween("lat", [box.minLat, box.maxLat])
-    .whereBetween("lng", [box.minLng, box.maxLng])
     .andWhere("needed_by", ">=", fromDay);
   if (materials) b.whereIn("material_code", [...materials]);
-  const rows = (await b) as DemandSourceRow[];
-  return rows.map((r) => normalise(r as unknown as NeedRow) as unknown as DemandSourceRow);
+  return (await placedAround(b, a)) as DemandSourceRow[];
 }
 
 /** The open needs a reservation might count towards: the one it names, or its bed's of the listing's material. */
@@ -144,7 +139,8 @@ export async function needsLinkedTo(r: { need_id: string | null; bed_id: string 
     if (r.need_id) w.orWhere("id", r.need_id);
     if (r.bed_id) w.orWhere((x) => x.where({ bed_id: r.bed_id, material_code: material }));
   });
-  return ((await b) as NeedRow[]).map(normalise);
+  // Locked on PostgreSQL: two reservations settling the same need at once decide one after the other.
+  return (await lockForUpdate(b)) as NeedRow[];
 }
 
 /** Reservations (held, confirmed or collected) that may count towards these needs. */
@@ -162,5 +158,5 @@ export async function reservationsCounting(needs: readonly Pick<NeedRow, "id" | 
       w.whereIn("r.need_id", ids);
       if (beds.length) w.orWhere((x) => x.whereNull("r.need_id").whereIn("r.bed_id", beds));
     });
-  return (rows as CountedReservation[]).map((r) => ({ ...r, created_at: (r.created_at as unknown) instanceof Date ? (r.created_at as unknown as Date).toISOString() : r.created_at }));
+  return rows as CountedReservation[];
 }

@@ -1,4 +1,5 @@
 import type { Knex } from "knex";
+import { EARTH_POINT_FUNCTION, isPg } from "../db/dialect";
 
 // Open needs: what a gardener still wants (a bed's unmet layer, or something typed), where,
 // within what radius and by when; the alerts each one got; and, on listings, when a listing
@@ -10,7 +11,9 @@ import type { Knex } from "knex";
 // as wide as that band around its own point, through the B-tree on
 // (status, material_code, reach_km, lat, lng). Turf's exact distance to each need's own
 // radius decides what the box let through. Without the band, a box as wide as the largest
-// radius would read every need in a town for each listing.
+// radius would read every need in a town for each listing. On PostgreSQL a GiST index holds
+// the same columns with the place as a point in space (needs_near, like listings_near in
+// 20261207_015_spatial_index), and the query asks it for a cube as wide as the band.
 //
 // needs_due_at on listings: the moment a listing should next be checked against open needs
 // (null: nothing to do). A listing posted as active is due at once (the service sets it);
@@ -27,7 +30,7 @@ const LEFT = (row: "NEW" | "OLD") => `(${row}.quantity_total - ${row}.quantity_h
 const CHANGED_COLUMNS = ["status", "available_from", "available_until", "approx_lat", "approx_lng", "unit", "unit_size"];
 
 export async function up(knex: Knex): Promise<void> {
-  const pg = knex.client.config.client === "pg";
+  const pg = isPg(knex);
 
   await knex.schema.createTable("needs", (t) => {
     t.string("id", 36).primary();
@@ -55,6 +58,8 @@ export async function up(knex: Knex): Promise<void> {
     t.index(["bed_id"]);
     t.index(["status", "needed_by"], "needs_status_date");
   });
+
+  if (pg) await knex.raw(`CREATE INDEX needs_near ON needs USING gist (status, material_code, reach_km, ${EARTH_POINT_FUNCTION}(lat, lng))`);
 
   // One open need per bed and material, even when two requests race: both engines take a partial index.
   await knex.raw("CREATE UNIQUE INDEX needs_one_open_per_bed ON needs (bed_id, material_code) WHERE status = 'open' AND bed_id IS NOT NULL");
@@ -118,7 +123,7 @@ export async function up(knex: Knex): Promise<void> {
 }
 
 export async function down(knex: Knex): Promise<void> {
-  const pg = knex.client.config.client === "pg";
+  const pg = isPg(knex);
   if (pg) {
     await knex.raw("DROP TRIGGER IF EXISTS listings_needs_due ON listings");
     await knex.raw("DROP FUNCTION IF EXISTS listings_needs_due()");

@@ -2,15 +2,16 @@ import "server-only";
 import { db, type Db } from "@/db/index";
 import { openNeedsInBand, type ReachingNeed } from "@/db/needs";
 import type { MaterialCode } from "@/lib/calc/facts";
-import { boundingBox, distanceKm } from "@/lib/match/geo";
+import { distanceKm } from "@/lib/match/geo";
 import type { LatLng, ListingUnit } from "@/lib/match/types";
 import { needPerListingUnit } from "@/lib/match/units";
 import { REACH_BANDS_KM } from "./reach";
 
 // The one query module of alerts: which open needs a listing could serve. It never reads
 // every need: for each reach band it reads the needs filed under that band whose place lies
-// in a box as wide as the band around the listing's public point (db/needs.ts,
-// openNeedsInBand), and Turf's exact distance against each need's own radius decides.
+// within the band around the listing's public point (db/needs.ts openNeedsInBand: a box on
+// SQLite's B-tree, a cube on PostgreSQL's GiST index), and Turf's exact distance against each
+// need's own radius decides.
 
 /** A listing as alerts see it: its public point, never the exact one. */
 export interface AlertingListing {
@@ -46,7 +47,7 @@ export function servingDistance(l: AlertingListing, need: Pick<ReachingNeed, "ow
 export async function needsReaching(l: AlertingListing, q: Db = db(), stats?: { read: number }): Promise<ReachedNeed[]> {
   const out: ReachedNeed[] = [];
   for (const band of REACH_BANDS_KM) {
-    const rows = await openNeedsInBand(l.material, band, boundingBox(l.location, band), l.from_day, l.owner_id, q);
+    const rows = await openNeedsInBand(l.material, band, l.location, l.from_day, l.owner_id, q);
     if (stats) stats.read += rows.length;
     for (const need of rows) {
       const km = servingDistance(l, need);

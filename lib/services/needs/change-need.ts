@@ -1,6 +1,6 @@
 import "server-only";
 import { findOwnNeed, updateOwnNeed, type NeedPatch } from "@/db/needs";
-import { isUniqueViolation } from "@/db/write-transaction";
+import { isUniqueViolation } from "@/db/dialect";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { MATERIALS } from "@/lib/calc/facts";
 import { NEED_UNIT_LABEL, NEED_UNITS } from "@/lib/match/units";

@@ -2,7 +2,7 @@ import "server-only";
 import { openNeedsInBox } from "@/db/needs";
 import { MATERIAL_CODES, type MaterialCode } from "@/lib/calc/facts";
 import { toCsv } from "@/lib/format/csv";
-import { boundingBox, distanceKm } from "@/lib/match/geo";
+import { distanceKm } from "@/lib/match/geo";
 import { demandCells, demandSummary, MIN_PEOPLE, suggestGiveaway, SUGGESTED_MATERIALS, type DemandCell, type GiveawaySuggestion } from "@/lib/needs/demand";
 import { cellOf, MIN_CELL_AREA_KM2 } from "@/lib/needs/grid";
 import { DEFAULT_CENTER } from "@/lib/geo/default-center";
@@ -45,7 +45,7 @@ export async function councilDemand(
   const now = clock();
   const centre = query.lat !== undefined && query.lng !== undefined ? { lat: query.lat, lng: query.lng } : await councilCentre(council, q);
   const radius_km = query.radius_km ?? COUNCIL_DEMAND_RADIUS_KM;
-  const rows = (await openNeedsInBox(boundingBox(centre, radius_km), dayOf(now), null, q))
+  const rows = (await openNeedsInBox({ centre, km: radius_km }, dayOf(now), null, q))
     .map(toDemandRow)
     // Whole cells: a cell is in or out by its centre, so no cell is cut to fewer people by the edge.
     .filter((r) => distanceKm(centre, cellOf(r.lat, r.lng).centre) <= radius_km);

@@ -1,7 +1,6 @@
 import "server-only";
 import { openNeedsInBox, type DemandSourceRow } from "@/db/needs";
 import type { MaterialCode } from "@/lib/calc/facts";
-import { boundingBox } from "@/lib/match/geo";
 import { demandRings, MIN_PEOPLE, PREVIEW_READ_KM, type DemandRing, type DemandRow } from "@/lib/needs/demand";
 import { cellOf } from "@/lib/needs/grid";
 import { consume, LIMITS } from "@/lib/security/rate-limit";
@@ -37,6 +36,6 @@ export async function nearbyDemand(askerId: string, point: { lat: number; lng: n
   const now = clock();
   await consume([[LIMITS.demandPreview, askerId]], clock, q);
   const centre = cellOf(point.lat, point.lng).centre;
-  const rows = await openNeedsInBox(boundingBox(centre, PREVIEW_READ_KM + CELL_SLACK_KM), dayOf(now), [material], q);
+  const rows = await openNeedsInBox({ centre, km: PREVIEW_READ_KM + CELL_SLACK_KM }, dayOf(now), [material], q);
   return { material, rings: demandRings(rows.map(toDemandRow), point, material, askerId), min_people: MIN_PEOPLE };
 }

@@ -1,9 +1,8 @@
 import "server-only";
 import { newId } from "@/db/index";
-import { activeListingsInBox } from "@/db/listings";
+import { activeListingsAround } from "@/db/listings";
 import { insertAlerts } from "@/db/need-alerts";
 import type { NeedAlertRow, NeedRow } from "@/db/types";
-import { boundingBox } from "@/lib/match/geo";
 import { servingDistance } from "@/lib/needs/reaching";
 import { alertingListing } from "./alert-needs";
 import { resolveContext, type NeedsContext } from "./context";
@@ -26,9 +25,8 @@ export async function noticeListingsFor(need: NoticedNeed, ctx: NeedsContext = {
   const { q, clock } = resolveContext(ctx);
   const now = clock();
   if (need.status !== "open") return 0;
-  const box = boundingBox({ lat: Number(need.lat), lng: Number(need.lng) }, Number(need.radius_km));
   const found: { listing_id: string; km: number }[] = [];
-  for (const l of await activeListingsInBox(need.material_code, box, need.owner_id, READ_AT_MOST, q)) {
+  for (const l of await activeListingsAround(need.material_code, { lat: Number(need.lat), lng: Number(need.lng) }, Number(need.radius_km), need.owner_id, READ_AT_MOST, q)) {
     const alerting = alertingListing(l, now);
     const km = alerting ? servingDistance(alerting, need) : null;
     if (km !== null) found.push({ listing_id: l.id, km });

@@ -1,7 +1,7 @@
 import "server-only";
 import { findBed } from "@/db/beds";
 import { newId } from "@/db/index";
-import { isUniqueViolation } from "@/db/write-transaction";
+import { isUniqueViolation } from "@/db/dialect";
 import { insertNeed } from "@/db/needs";
 import type { NeedRow } from "@/db/types";
 import { ApiError } from "@/lib/api/errors";
