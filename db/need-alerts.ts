@@ -60,8 +60,7 @@ export async function digestRecipients(q: Db = db()): Promise<string[]> {
 /** When a person was last sent a digest (the newest e-mailed daily alert), or null. */
 export async function lastDigestAt(userId: string, q: Db = db()): Promise<string | null> {
   const row = await q("need_alerts").where({ user_id: userId, delivery: "daily" }).whereNotNull("emailed_at").max({ at: "emailed_at" }).first();
-  const at = row?.at as unknown;
-  return at instanceof Date ? at.toISOString() : ((at as string | null) ?? null);
+  return (row?.at as string | null | undefined) ?? null;
 }
 
 /** Claims alerts for an e-mail: only those still un-mailed are marked, so two workers cannot both send them. */

@@ -345,7 +345,8 @@ export interface NeedAlertRow {
   listing_id: string;
   user_id: string;
   distance_km: number;
-  delivery: "daily" | "immediate";
+  /** How the e-mail goes: at once, in the day's digest, or none (in_app: found as the need was opened, while its owner was in the app). */
+  delivery: "daily" | "immediate" | "in_app";
   emailed_at: string | null;
   seen_at: string | null;
   dismissed_at: string | null;

@@ -71,7 +71,7 @@ export async function up(knex: Knex): Promise<void> {
     t.string("user_id", 36).notNullable().references("users.id").onDelete("CASCADE");
     // From the need's place to the listing's public point, km.
     t.double("distance_km").notNullable();
-    t.string("delivery", 10).notNullable(); // immediate | daily: how the e-mail goes
+    t.string("delivery", 10).notNullable(); // immediate | daily: how the e-mail goes; in_app: no e-mail
     t.timestamp("emailed_at", { useTz: true });
     t.timestamp("seen_at", { useTz: true });
     t.timestamp("dismissed_at", { useTz: true });

@@ -80,4 +80,16 @@ describe("opening a need where listings are already on offer", () => {
     const res = await call((await import("@/app/api/listings/[id]/route")).GET as never, await request(`/api/listings/${l.near.id}`, { as: who.supplier }), { id: l.near.id });
     expect(res.json.listing.matched_gardeners).toBe(1);
   });
+
+  it("keeps the day's digest for what is listed later, as if the notices had not been", async () => {
+    const bo = await createUser({ roles: ["gardener"] });
+    const res = await call(needs.POST as never, await request("/api/needs", { as: bo.id, body: { material: "leaves", quantity: 0.5, unit: "m3", radius_km: 5, needed_by: addDays(today, 30), location: from(0.5, 0), alerts: "daily" } }));
+    expect(res.json.need.alert_count).toBe(3); // lime, plane and Ines's own leaves
+    const later = await post(who.supplier, { title: "Hazel leaves", location: from(0.8, 0) });
+    expect(await noticesOf(res.json.need.id)).toContain(later.id);
+    expect(await sendNeedDigests(() => new Date(), { db: ctx.db })).toBe(1);
+    const [digest] = await ctx.db("email_outbox").where({ to_address: bo.email, template: "need.digest" });
+    expect(digest.text_body).toContain("Hazel leaves");
+    expect(digest.text_body).not.toContain("Lime leaves");
+  });
 });

@@ -13,7 +13,7 @@ export const LISTINGS_ON_OPENING = 20;
 const READ_AT_MOST = 2_000;
 
 /** A need as stored (its needed_by a calendar day, as db/needs.ts hands it back). */
-type NoticedNeed = Pick<NeedRow, "id" | "owner_id" | "material_code" | "unit" | "radius_km" | "lat" | "lng" | "needed_by" | "alerts" | "status">;
+type NoticedNeed = Pick<NeedRow, "id" | "owner_id" | "material_code" | "unit" | "radius_km" | "lat" | "lng" | "needed_by" | "status">;
 
 /**
  * A need opened (or moved, widened, redated or opened again) where listings that could serve
@@ -41,9 +41,9 @@ export async function noticeListingsFor(need: NoticedNeed, ctx: NeedsContext = {
       listing_id: f.listing_id,
       user_id: need.owner_id,
       distance_km: Math.round(f.km * 1000) / 1000,
-      delivery: need.alerts,
-      // Counted as delivered, so neither an e-mail nor the digest carries it.
-      emailed_at: at,
+      // Neither an e-mail nor the digest carries it, and it does not count as a digest sent.
+      delivery: "in_app",
+      emailed_at: null,
       seen_at: null,
       dismissed_at: null,
       created_at: at,
