@@ -1,14 +1,13 @@
 // The alert fan-out at 100,000 open needs: for each new listing, the open needs it could
-// serve (needsReaching: a box per reach band through needs_reach_box, then Turf), against the
+// serve (needsReaching: a box per reach band through needs_reach_box, or needs_near on
+// PostgreSQL when DATABASE_URL is set, then Turf), against the
 // naive way (read every open need, measure each with Turf). Both must find the same needs.
 // Then the whole fan-out with its writes (alerts, and e-mails for the "at once" needs).
 // Needs are spread over the same 50 × 50 km county as the listings, seven in ten around a
 // dozen villages. Environment: BENCH_OPEN_NEEDS=100000 (how many; 0 skips this part).
-import path from "node:path";
-import fs from "node:fs";
 import { performance } from "node:perf_hooks";
-import knex, { type Knex } from "knex";
-import { configFor } from "@/knexfile";
+import type { Knex } from "knex";
+import { isPg } from "@/db/dialect";
 import { BAG_M3, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { distanceKm } from "@/lib/match/geo";
 import type { ListingUnit } from "@/lib/match/types";
@@ -19,7 +18,7 @@ import { alertNeedsFor } from "@/lib/services/needs/alert-needs";
 import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { DUE_NOW } from "@/migrations/20261208_020_open_needs";
 import { prng } from "@/seeds/ids";
-import { at, HALF_SIDE_KM } from "./dataset";
+import { at, type BenchStore, emptyStore, HALF_SIDE_KM } from "./dataset";
 
 type Timing = { p50: number; p95: number };
 
@@ -53,9 +52,8 @@ function placer(seed: number) {
 
 const day = (offsetDays: number) => new Date(Date.now() + offsetDays * 86_400_000).toISOString().slice(0, 10);
 
-async function buildNeeds(file: string, count: number): Promise<Knex> {
-  for (const f of [file, `${file}-wal`, `${file}-shm`]) fs.rmSync(f, { force: true });
-  const k = knex({ ...configFor("test"), connection: { filename: file } });
+async function buildNeeds(store: BenchStore, count: number): Promise<Knex> {
+  const k = store.open();
   await k.migrate.latest();
   const created = new Date().toISOString();
   await k("materials").insert(Object.values(MATERIALS).map((m) => ({ code: m.code, name: m.name, n_pct: m.n_pct, cn_ratio: m.cn_ratio, moisture_pct: m.moisture_pct, bulk_density_kg_m3: m.bulk_density_kg_m3, default_unit: m.default_unit, source: m.source })));
@@ -87,6 +85,8 @@ async function buildNeeds(file: string, count: number): Promise<Knex> {
   await k.transaction(async (trx) => {
     for (let i = 0; i < rows.length; i += 500) await trx("needs").insert(rows.slice(i, i + 500));
   });
+  // PostgreSQL plans from statistics: give it those of the table as it now is.
+  if (isPg(k)) await k.raw("ANALYZE needs");
   return k;
 }
 
@@ -137,10 +137,10 @@ export interface NeedsBenchRow {
 }
 
 export async function runNeedsBench(dir: string, count: number): Promise<NeedsBenchRow> {
-  const file = path.join(dir, `duffbank-bench-needs-${count}.sqlite`);
+  const store = await emptyStore(dir, `needs_${count}`);
   const t0 = performance.now();
-  const k = await buildNeeds(file, count);
-  console.log(`[bench] ${count.toLocaleString("en-US")} open needs (and ${Math.round(count * 0.1).toLocaleString("en-US")} closed) written to ${file} in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+  const k = await buildNeeds(store, count);
+  console.log(`[bench] ${count.toLocaleString("en-US")} open needs (and ${Math.round(count * 0.1).toLocaleString("en-US")} closed) written to ${store.label} in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
   try {
     const listings = newListings(200, 4242);
     const reads: number[] = [];
