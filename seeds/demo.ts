@@ -6,6 +6,7 @@ import { DEMO_PASSWORD, ORGANISATIONS, PEOPLE, TOWN } from "./town";
 import { seedId } from "./ids";
 import { seedCommunity } from "./community";
 import { seedPastPickups } from "./exchanges";
+import { seedNeeds } from "./needs";
 import { hashPassword } from "../lib/auth/password";
 
 // The demo scenario. Idempotent: every row has a fixed id and is written with
@@ -137,10 +138,11 @@ export async function seed(knex: Knex): Promise<Record<string, number>> {
       .ignore();
     await seedCommunity(trx);
     await seedPastPickups(trx);
+    await seedNeeds(trx);
   });
 
   const counts: Record<string, number> = {};
-  for (const table of ["materials", "organisations", "users", "user_roles", "memberships", "listings", "pickup_windows", "beds", "reservations", "reviews"]) {
+  for (const table of ["materials", "organisations", "users", "user_roles", "memberships", "listings", "pickup_windows", "beds", "reservations", "reviews", "needs"]) {
     const [{ n }] = await knex(table).count({ n: "*" });
     counts[table] = Number(n);
   }

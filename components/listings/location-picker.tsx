@@ -7,7 +7,36 @@ import { GroupError } from "@/components/ui/field";
 // Picks the exact pickup point: a click on the map, the device's own position, or typed
 // coordinates (for keyboards and screen readers, where a map click is no use).
 
-export function LocationPicker({ value, onChange, error }: { value: { lat: number | null; lng: number | null }; onChange: (p: LatLng) => void; error?: string }) {
+/** The words around the map; the listing form's pickup point by default. */
+export interface PickerWords {
+  id: string;
+  label: string;
+  help: string;
+  mapLabel: string;
+  marker: string;
+}
+
+const PICKUP_WORDS: PickerWords = {
+  id: "pickup-point",
+  label: "Pickup point",
+  help: "Click where people collect. Only you see this exact point; everyone else sees a spot a few hundred metres away until you confirm their reservation.",
+  mapLabel: "Map: click to set the pickup point",
+  marker: "Pickup point",
+};
+
+export function LocationPicker({
+  value,
+  onChange,
+  error,
+  words = PICKUP_WORDS,
+  className = "h-72",
+}: {
+  value: { lat: number | null; lng: number | null };
+  onChange: (p: LatLng) => void;
+  error?: string;
+  words?: PickerWords;
+  className?: string;
+}) {
   const [status, setStatus] = useState<string | null>(null);
   const chosen = value.lat !== null && value.lng !== null ? { lat: value.lat, lng: value.lng } : null;
   const round = (p: LatLng) => ({ lat: Math.round(p.lat * 1e6) / 1e6, lng: Math.round(p.lng * 1e6) / 1e6 });
@@ -27,19 +56,17 @@ export function LocationPicker({ value, onChange, error }: { value: { lat: numbe
 
   return (
     <div className="flex flex-col gap-2">
-      <p className="font-medium" id="pickup-point-label">
-        Pickup point
+      <p className="font-medium" id={`${words.id}-label`}>
+        {words.label}
       </p>
-      <p className="text-sm text-humus-600">
-        Click where people collect. Only you see this exact point; everyone else sees a spot a few hundred metres away until you confirm their reservation.
-      </p>
+      <p className="text-sm text-humus-600">{words.help}</p>
       <DuffMap
         center={chosen ?? DEFAULT_CENTER}
         zoom={chosen ? 15 : 13}
-        label="Map: click to set the pickup point"
-        markers={chosen ? [{ id: "pickup", ...chosen, tone: "origin", label: "Pickup point" }] : []}
+        label={words.mapLabel}
+        markers={chosen ? [{ id: "pickup", ...chosen, tone: "origin", label: words.marker }] : []}
         onClick={(p) => onChange(round(p))}
-        className="h-72"
+        className={className}
       />
       <div className="flex flex-wrap items-center gap-3 text-sm">
         <button type="button" onClick={useMyPosition} className="rounded-lg px-3 py-2 font-medium ring-1 ring-humus-300 hover:bg-humus-100">
@@ -67,7 +94,7 @@ export function LocationPicker({ value, onChange, error }: { value: { lat: numbe
           ))}
         </div>
       </details>
-      <GroupError id="pickup-point-error" error={error} />
+      <GroupError id={`${words.id}-error`} error={error} />
     </div>
   );
 }

@@ -1,7 +1,7 @@
 "use client";
 import "leaflet/dist/leaflet.css";
 import { useEffect, useState } from "react";
-import { CircleMarker, GeoJSON, MapContainer, Pane, Polygon, Polyline, TileLayer, Tooltip, useMap, useMapEvents } from "react-leaflet";
+import { CircleMarker, GeoJSON, MapContainer, Pane, Polygon, Polyline, Rectangle, TileLayer, Tooltip, useMap, useMapEvents } from "react-leaflet";
 import type { Feature, FeatureCollection } from "geojson";
 import type { PathOptions } from "leaflet";
 import type { MapProps } from "./types";
@@ -91,7 +91,7 @@ function FitTo({ points }: { points?: { lat: number; lng: number }[] }) {
   return null;
 }
 
-export function LeafletMap({ center, zoom = 13, markers = [], polygon, line, onClick, fitTo, label, className = "h-80" }: MapProps) {
+export function LeafletMap({ center, zoom = 13, markers = [], areas = [], polygon, line, onClick, fitTo, label, className = "h-80" }: MapProps) {
   return (
     <div className={`overflow-hidden rounded-lg ring-1 ring-humus-200 ${className}`} role="region" aria-label={label}>
       <MapContainer center={[center.lat, center.lng]} zoom={zoom} minZoom={10} maxZoom={18} className="h-full w-full" style={{ background: "#f3ede4" }} attributionControl={!!TILE_URL}>
@@ -107,6 +107,19 @@ export function LeafletMap({ center, zoom = 13, markers = [], polygon, line, onC
         {TILE_URL ? null : <Labels />}
         <ClickCatcher onClick={onClick} />
         <FitTo points={fitTo} />
+        {areas.map((a) => (
+          <Rectangle
+            key={a.id}
+            bounds={[
+              [a.south, a.west],
+              [a.north, a.east],
+            ]}
+            pathOptions={{ color: "#93600f", weight: 1, fillColor: "#d9962b", fillOpacity: 0.2 + 0.55 * Math.min(1, Math.max(0, a.intensity)) }}
+            className="duff-demand-cell"
+          >
+            <Tooltip>{a.label}</Tooltip>
+          </Rectangle>
+        ))}
         {polygon && polygon.length > 0 ? (
           polygon.length > 2 ? (
             <Polygon positions={polygon.map((p) => [p.lat, p.lng])} pathOptions={{ color: "#40642e", weight: 3, fillColor: "#94b97c", fillOpacity: 0.45 }} />
