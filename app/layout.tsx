@@ -5,6 +5,7 @@ import { Providers } from "./providers";
 import { SiteHeader } from "@/components/shell/site-header";
 import { currentUser } from "@/lib/auth/current-user";
 import { viewerUnits } from "@/lib/units/viewer";
+import { countNewAlerts } from "@/lib/services/needs/list-alerts";
 
 export const metadata: Metadata = {
   title: { default: "Duffbank", template: "%s · Duffbank" },
@@ -17,11 +18,13 @@ export const viewport: Viewport = { width: "device-width", initialScale: 1, them
 export default async function RootLayout({ children }: { children: ReactNode }) {
   const user = await currentUser();
   const units = await viewerUnits(user);
+  // Listings found for a gardener's open needs that they have not looked at yet.
+  const newAlerts = user?.roles.includes("gardener") ? await countNewAlerts(user.id) : 0;
   return (
     <html lang="en">
       <body className="flex min-h-screen flex-col">
         <Providers units={units}>
-          <SiteHeader user={user} />
+          <SiteHeader user={user} counts={{ "/needs": newAlerts }} />
           <main id="main" className="mx-auto w-full max-w-6xl flex-1 px-4 py-8">
             {children}
           </main>

@@ -1,6 +1,10 @@
 import type { Knex } from "knex";
 import { db, nowIso, type Db } from "./index";
 import type { ListingRow, ListingStatus } from "./types";
+import type { MaterialCode } from "@/lib/calc/facts";
+import { boundingBox } from "@/lib/match/geo";
+import type { LatLng } from "@/lib/match/types";
+import { nearBox } from "./dialect";
 
 export const LISTING_COLUMNS = [
   "id",
@@ -74,6 +78,23 @@ export async function insertListing(row: Omit<ListingRow, "created_at" | "update
 /** Any listing by id, whatever its status: callers decide what the asker may see. */
 export async function findListing(id: string, q: Db = db()): Promise<ListingRow | undefined> {
   return (await q("listings").first(cols()).where("listings.id", id)) as ListingRow | undefined;
+}
+
+/**
+ * Active listings of `material` whose public point lies within `km` of `centre` (a box, and
+ * the cube of listings_near on PostgreSQL; callers measure the exact distance), not
+ * `excludeOwner`'s, at most `limit`.
+ */
+export async function activeListingsAround(material: MaterialCode, centre: LatLng, km: number, excludeOwner: string, limit: number, q: Db = db()): Promise<ListingRow[]> {
+  const box = boundingBox(centre, km);
+  const b = q("listings")
+    .select(cols())
+    .where({ "listings.status": "active", "listings.material_code": material })
+    .whereBetween("listings.approx_lat", [box.minLat, box.maxLat])
+    .whereBetween("listings.approx_lng", [box.minLng, box.maxLng])
+    .andWhereNot("listings.owner_id", excludeOwner)
+    .limit(limit);
+  return (await nearBox(b, centre, km * 1000, "listings.approx_lat", "listings.approx_lng")) as ListingRow[];
 }
 
 /** A listing the person may manage, or undefined (which the caller answers as 404). */

@@ -12,24 +12,30 @@ export interface NewEmail {
   send_after?: string;
 }
 
+const outboxRow = (mail: NewEmail, now: string) => ({
+  id: newId(),
+  to_address: mail.to,
+  subject: mail.subject,
+  text_body: mail.text,
+  html_body: mail.html ?? null,
+  template: mail.template,
+  dedupe_key: mail.dedupe_key ?? null,
+  status: "pending",
+  attempts: 0,
+  next_attempt_at: mail.send_after ?? now,
+  created_at: now,
+});
+
 export async function enqueueEmail(mail: NewEmail, q: Db = db()): Promise<void> {
+  await q("email_outbox").insert(outboxRow(mail, nowIso())).onConflict("dedupe_key").ignore();
+}
+
+/** Many messages at once (an alert fan-out), in a few statements; each dedupe key still keeps one. */
+export async function enqueueEmails(mails: NewEmail[], q: Db = db()): Promise<void> {
   const now = nowIso();
-  await q("email_outbox")
-    .insert({
-      id: newId(),
-      to_address: mail.to,
-      subject: mail.subject,
-      text_body: mail.text,
-      html_body: mail.html ?? null,
-      template: mail.template,
-      dedupe_key: mail.dedupe_key ?? null,
-      status: "pending",
-      attempts: 0,
-      next_attempt_at: mail.send_after ?? now,
-      created_at: now,
-    })
-    .onConflict("dedupe_key")
-    .ignore();
+  for (let i = 0; i < mails.length; i += 200) {
+    await q("email_outbox").insert(mails.slice(i, i + 200).map((m) => outboxRow(m, now))).onConflict("dedupe_key").ignore();
+  }
 }
 
 /** Pending messages whose time has come and that no live claim holds, oldest first. */

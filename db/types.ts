@@ -117,6 +117,8 @@ export interface ListingRow {
   available_until: string | null;
   /** JSON text of the material's quality declarations. */
   quality: string;
+  /** When the listing is next due to be checked against open needs; null: nothing to do (migrations/20261208_020_open_needs.ts). */
+  needs_due_at?: string | null;
   created_at: string;
   updated_at: string;
 }
@@ -175,6 +177,8 @@ export interface ReservationRow {
   carrier: string | null;
   tracking: string | null;
   shipped_at: string | null;
+  /** The open need it was reserved for (from an alert), counted towards meeting it. */
+  need_id: string | null;
   created_at: string;
   updated_at: string;
 }
@@ -325,4 +329,42 @@ export interface GrowerShippingRow {
   pause_reason: "heat" | "frost" | "other" | null;
   pause_note: string | null;
   updated_at: string;
+}
+
+export type NeedStatus = "open" | "met" | "expired" | "closed";
+
+/** An open need; lat and lng are its owner's alone (aggregates use the demand grid's cells). */
+export interface NeedRow {
+  id: string;
+  owner_id: string;
+  bed_id: string | null;
+  material_code: MaterialCode;
+  /** SI, in `unit`. */
+  quantity: number;
+  unit: "m2" | "m3" | "kg";
+  radius_km: number;
+  reach_km: number;
+  lat: number;
+  lng: number;
+  /** YYYY-MM-DD. */
+  needed_by: string;
+  alerts: "daily" | "immediate";
+  status: NeedStatus;
+  closed_at: string | null;
+  created_at: string;
+  updated_at: string;
+}
+
+export interface NeedAlertRow {
+  id: string;
+  need_id: string;
+  listing_id: string;
+  user_id: string;
+  distance_km: number;
+  /** How the e-mail goes: at once, in the day's digest, or none (in_app: found as the need was opened, while its owner was in the app). */
+  delivery: "daily" | "immediate" | "in_app";
+  emailed_at: string | null;
+  seen_at: string | null;
+  dismissed_at: string | null;
+  created_at: string;
 }

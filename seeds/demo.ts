@@ -6,6 +6,7 @@ import { DEMO_PASSWORD, ORGANISATIONS, PEOPLE, TOWN } from "./town";
 import { seedId } from "./ids";
 import { seedCommunity } from "./community";
 import { seedPastPickups } from "./exchanges";
+import { seedNeeds } from "./needs";
 import { hashPassword } from "../lib/auth/password";
 import { addPlaces } from "../db/places";
 import { gazetteerEntries } from "./gazetteer";
@@ -139,6 +140,7 @@ export async function seed(knex: Knex): Promise<Record<string, number>> {
       .ignore();
     await seedCommunity(trx);
     await seedPastPickups(trx);
+    await seedNeeds(trx);
     await addPlaces(gazetteerEntries(), CREATED, trx);
     // The demo gardener plans from home when a bed has no place of its own.
     const home = gazetteerEntries().find((p) => p.name === "Orchard Rise")!;
@@ -146,7 +148,7 @@ export async function seed(knex: Knex): Promise<Record<string, number>> {
   });
 
   const counts: Record<string, number> = {};
-  for (const table of ["materials", "organisations", "users", "user_roles", "memberships", "listings", "pickup_windows", "beds", "reservations", "reviews", "places"]) {
+  for (const table of ["materials", "organisations", "users", "user_roles", "memberships", "listings", "pickup_windows", "beds", "reservations", "reviews", "needs", "places"]) {
     const [{ n }] = await knex(table).count({ n: "*" });
     counts[table] = Number(n);
   }

@@ -47,4 +47,13 @@ export const PEOPLE: DemoPerson[] = [
   { key: "maeve", email: "maeve@duffbank.test", name: "Maeve Lindqvist", roles: ["gardener", "supplier"] },
   { key: "tobias", email: "tobias@duffbank.test", name: "Tobias Arkwright", roles: ["gardener", "supplier"], unit_system: "imperial" },
   { key: "priya", email: "priya@duffbank.test", name: "Priya Nandakumar", roles: ["gardener", "supplier"] },
+  // Households with open needs (seeds/needs.ts), so the council's demand map has areas to show.
+  { key: "hazel", email: "hazel@duffbank.test", name: "Hazel Penrose", roles: ["gardener"] },
+  { key: "idris", email: "idris@duffbank.test", name: "Idris Kettleby", roles: ["gardener"] },
+  { key: "juno", email: "juno@duffbank.test", name: "Juno Achterberg", roles: ["gardener"] },
+  { key: "kit", email: "kit@duffbank.test", name: "Kit Marwood", roles: ["gardener"] },
+  { key: "lorna", email: "lorna@duffbank.test", name: "Lorna Sallow", roles: ["gardener"], unit_system: "imperial" },
+  { key: "nico", email: "nico@duffbank.test", name: "Nico Brightwater", roles: ["gardener"] },
+  { key: "oona", email: "oona@duffbank.test", name: "Oona Fairweather", roles: ["gardener"] },
+  { key: "pim", email: "pim@duffbank.test", name: "Pim Vasquez-Lowe", roles: ["gardener"] },
 ];

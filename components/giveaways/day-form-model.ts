@@ -136,3 +136,27 @@ export function makeSlots(from: string, to: string, minutes: number, capacity: s
   for (let m = toMin(from); m + minutes <= toMin(to) && out.length < 48; m += minutes) out.push({ start: fmt(m), end: fmt(m + minutes), capacity });
   return out;
 }
+
+/**
+ * A new day filled from the demand map's suggestion (/council/demand): its material, date,
+ * place and as many hour-long slots from 09:00 as it would fill. Anything that does not
+ * read is left as the plain default.
+ */
+export function suggestedDayValues(base: DayFormValues, p: Record<string, string | string[] | undefined>): DayFormValues {
+  const one = (k: string) => (Array.isArray(p[k]) ? p[k]![0] : p[k]);
+  const out = { ...base };
+  const material = one("material");
+  if (material === "leaves" || material === "wood_chips" || material === "compost") {
+    out.material = material;
+    if (material !== "leaves") out.unit = "m3";
+  }
+  const date = one("date");
+  if (date && /^\d{4}-\d{2}-\d{2}$/.test(date)) out.date = date;
+  const lat = Number(one("lat"));
+  const lng = Number(one("lng"));
+  if (Number.isFinite(lat) && Number.isFinite(lng) && Math.abs(lat) <= 90 && Math.abs(lng) <= 180 && one("lat") && one("lng")) out.location = { lat, lng };
+  const slots = Math.min(12, Math.max(0, Math.floor(Number(one("slots")))));
+  const capacity = Math.floor(Number(one("capacity")));
+  if (slots > 0) out.slots = makeSlots("09:00", `${String(9 + slots).padStart(2, "0")}:00`, 60, String(capacity > 0 ? capacity : 10));
+  return out;
+}

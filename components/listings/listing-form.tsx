@@ -11,6 +11,7 @@ import { MATERIAL_CODES, MATERIALS } from "@/lib/calc/facts";
 import type { UnitSystem } from "@/lib/calc/units";
 import { createListingSchema, defaultUnitSize, UNITS_BY_MATERIAL, type CreateListingInput } from "@/lib/validation/listings";
 import { emptyForm, quantitySymbol, toBody, unitSizeField, unitSizePlaceholder, type ListingFormState } from "./form-values";
+import { DemandPreview } from "./demand-preview";
 import { LocationPicker } from "./location-picker";
 import { PhotoManager, type PhotoRecord } from "./photo-manager";
 import { PickupWindowFields } from "./pickup-window-fields";
@@ -161,6 +162,7 @@ export function ListingForm(props: Props) {
       <section className="flex flex-col gap-4" aria-labelledby="where-title">
         <h2 id="where-title" className="text-xl font-semibold">Where and when</h2>
         <LocationPicker value={location} onChange={(p) => setValue("location", p, { shouldValidate: formState.isSubmitted })} error={locationError} />
+        <DemandPreview material={material} location={location} system={system} />
         <Field label="Pickup address" {...register("address")} error={errors.address?.message} hint="Shown only to people whose reservation you confirm." autoComplete="street-address" />
         <div className="grid gap-3 sm:grid-cols-2">
           <Field label="Available from (optional)" type="date" {...register("available_from")} error={errors.available_from?.message} />

@@ -5,6 +5,7 @@ import { apiFetch, isApiError } from "@/lib/api/client";
 import { actionsFor } from "@/lib/listings/status";
 import type { ListingStatus } from "@/db/types";
 import type { ListingAction } from "@/lib/validation/listings";
+import { smallButtonClass } from "@/components/ui/button-class";
 
 const LABELS: Record<ListingAction, string> = { publish: "Publish", pause: "Pause", resume: "Resume", archive: "Archive" };
 
@@ -40,7 +41,7 @@ export function StatusActions({ id, status, title, compact = false }: { id: stri
             onClick={() => void run(a)}
             disabled={busy !== null}
             aria-label={compact ? `${LABELS[a]} “${title}”` : undefined}
-            className={`min-h-9 rounded-lg px-3 py-1.5 text-sm font-medium ring-1 disabled:opacity-50 ${a === "archive" ? "text-ember-800 ring-ember-600/40 hover:bg-ember-100" : "ring-humus-300 hover:bg-humus-100"}`}
+            className={smallButtonClass(a === "archive" ? "danger" : "plain")}
           >
             {busy === a ? `${LABELS[a]}…` : LABELS[a]}
           </button>

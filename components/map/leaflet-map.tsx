@@ -2,7 +2,7 @@
 import "leaflet/dist/leaflet.css";
 import { useEffect, useState } from "react";
 import type { Map as LeafletMapInstance } from "leaflet";
-import { CircleMarker, GeoJSON, MapContainer, Pane, Polygon, Polyline, TileLayer, Tooltip, useMap, useMapEvents } from "react-leaflet";
+import { CircleMarker, GeoJSON, MapContainer, Pane, Polygon, Polyline, Rectangle, TileLayer, Tooltip, useMap, useMapEvents } from "react-leaflet";
 import type { Feature, FeatureCollection } from "geojson";
 import type { PathOptions } from "leaflet";
 import type { MapProps } from "./types";
@@ -101,7 +101,7 @@ function ViewTo({ view }: { view?: MapProps["view"] }) {
   return null;
 }
 
-export function LeafletMap({ center, zoom = 13, markers = [], polygon, line, onClick, fitTo, view, centrePick, label, className = "h-80" }: MapProps) {
+export function LeafletMap({ center, zoom = 13, markers = [], areas = [], polygon, line, onClick, fitTo, view, centrePick, label, className = "h-80" }: MapProps) {
   const [map, setMap] = useState<LeafletMapInstance | null>(null);
   const box = (
     <div className={`relative overflow-hidden rounded-lg ring-1 ring-humus-200 ${className}`} role="region" aria-label={label}>
@@ -125,6 +125,19 @@ export function LeafletMap({ center, zoom = 13, markers = [], polygon, line, onC
         <ClickCatcher onClick={onClick} />
         <FitTo points={fitTo} />
         <ViewTo view={view} />
+        {areas.map((a) => (
+          <Rectangle
+            key={a.id}
+            bounds={[
+              [a.south, a.west],
+              [a.north, a.east],
+            ]}
+            pathOptions={{ color: "#93600f", weight: 1, fillColor: "#d9962b", fillOpacity: 0.2 + 0.55 * Math.min(1, Math.max(0, a.intensity)) }}
+            className="duff-demand-cell"
+          >
+            <Tooltip>{a.label}</Tooltip>
+          </Rectangle>
+        ))}
         {polygon && polygon.length > 0 ? (
           polygon.length > 2 ? (
             <Polygon positions={polygon.map((p) => [p.lat, p.lng])} pathOptions={{ color: "#40642e", weight: 3, fillColor: "#94b97c", fillOpacity: 0.45 }} />

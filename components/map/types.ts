@@ -14,12 +14,26 @@ export interface MapMarker extends LatLng {
   className?: string;
 }
 
+/** A shaded rectangle: a demand cell, darker the more people are behind it. */
+export interface MapArea {
+  id: string;
+  south: number;
+  west: number;
+  north: number;
+  east: number;
+  /** 0–1: how strongly to shade it. */
+  intensity: number;
+  label: string;
+}
+
 export interface MapProps {
   center: LatLng;
   zoom?: number;
   markers?: MapMarker[];
   /** A drawn outline (vertices in order); closed when it has three or more. */
   polygon?: LatLng[];
+  /** Shaded rectangles under the markers (the council's demand map). */
+  areas?: MapArea[];
   /** A route drawn as straight segments. */
   line?: LatLng[];
   onClick?: (p: LatLng) => void;
@@ -37,5 +51,4 @@ export interface MapProps {
   className?: string;
 }
 
-/** The demo town's centre, where maps open when nothing else is known. */
-export const DEFAULT_CENTER: LatLng = { lat: 52.205, lng: 0.847 };
+export { DEFAULT_CENTER } from "@/lib/geo/default-center";

@@ -75,7 +75,7 @@ export function PickupPlan({
         Driving counted at {formatCents(plan.totals.travel_cents, plan.totals.currency)}, stops at {formatCents(plan.totals.stop_cents, plan.totals.currency)}.
       </p>
 
-      <UnmetNeeds unmet={plan.unmet} radiusKm={plan.radius_km} system={system} onWiden={onWiden} onSubstitute={onSubstitute} />
+      <UnmetNeeds unmet={plan.unmet} radiusKm={plan.radius_km} system={system} onWiden={onWiden} onSubstitute={onSubstitute} bedId={bedId} />
 
       {plan.stops.length ? (
         <section aria-labelledby="stops-title">

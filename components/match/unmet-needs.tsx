@@ -7,6 +7,7 @@ import { MAX_RADIUS_KM } from "@/lib/match/defaults";
 import { NO_SUBSTITUTE, SUBSTITUTES } from "@/lib/match/substitutes";
 import type { Need } from "@/lib/match/types";
 import { Button } from "@/components/ui/button";
+import { AskForIt } from "@/components/needs/ask-for-it";
 
 /** The next radius to offer: double, at least 10 km more, never past the limit. */
 export const widerRadius = (km: number) => Math.min(MAX_RADIUS_KM, Math.max(km * 2, km + 10));
@@ -17,10 +18,13 @@ export function UnmetNeeds({
   system,
   onWiden,
   onSubstitute,
+  bedId,
 }: {
   unmet: Need[];
   radiusKm: number;
   system: UnitSystem;
+  /** A saved bed's plan: each unmet material can become an open need. */
+  bedId?: string;
   onWiden: (km: number) => void;
   onSubstitute: (need: Need, material: MaterialCode) => void;
 }) {
@@ -51,6 +55,7 @@ export function UnmetNeeds({
             ) : NO_SUBSTITUTE[n.material] ? (
               <p className="text-sm text-humus-700">{NO_SUBSTITUTE[n.material]}</p>
             ) : null}
+            {bedId ? <AskForIt bedId={bedId} need={n} radiusKm={radiusKm} system={system} /> : null}
           </li>
         ))}
       </ul>

@@ -7,7 +7,8 @@ import { SignOutButton } from "@/components/auth/sign-out-button";
 import { UnitSwitch } from "@/components/ui/unit-switch";
 import { MobileMenu } from "./mobile-menu";
 
-export function SiteHeader({ user }: { user: SessionUser | null }) {
+/** `counts`: a number to show beside a link (new alerts beside "My needs"). */
+export function SiteHeader({ user, counts = {} }: { user: SessionUser | null; counts?: Record<string, number> }) {
   const links = navFor(user?.roles ?? null);
   return (
     <header className="border-b border-humus-200 bg-white">
@@ -19,11 +20,11 @@ export function SiteHeader({ user }: { user: SessionUser | null }) {
           <Wordmark />
         </Link>
         <MobileMenu>
-          <NavList links={links} user={user} vertical />
+          <NavList links={links} user={user} counts={counts} vertical />
           <UnitSwitch className="mt-3" />
         </MobileMenu>
         <div className="hidden items-center gap-3 md:flex">
-          <NavList links={links} user={user} />
+          <NavList links={links} user={user} counts={counts} />
           <UnitSwitch />
         </div>
       </div>
@@ -31,7 +32,7 @@ export function SiteHeader({ user }: { user: SessionUser | null }) {
   );
 }
 
-function NavList({ links, user, vertical = false }: { links: { href: string; label: string }[]; user: SessionUser | null; vertical?: boolean }) {
+function NavList({ links, user, counts, vertical = false }: { links: { href: string; label: string }[]; user: SessionUser | null; counts: Record<string, number>; vertical?: boolean }) {
   return (
     <nav aria-label="Main">
       <ul className={`flex gap-1 ${vertical ? "flex-col" : "flex-wrap items-center justify-end"}`}>
@@ -39,6 +40,14 @@ function NavList({ links, user, vertical = false }: { links: { href: string; lab
           <li key={l.href}>
             <Link href={l.href} className="block whitespace-nowrap rounded-lg px-3 py-2 font-medium text-humus-800 hover:bg-humus-100">
               {l.label}
+              {counts[l.href] ? (
+                <>
+                  <span aria-hidden="true" className="ml-1.5 rounded-full bg-ember-600 px-1.5 py-0.5 text-xs font-semibold text-white">
+                    {counts[l.href]}
+                  </span>
+                  <span className="sr-only">, {counts[l.href]} new</span>
+                </>
+              ) : null}
             </Link>
           </li>
         ))}

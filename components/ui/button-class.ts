@@ -12,3 +12,9 @@ export function buttonClass(variant: ButtonVariant = "primary", extra = "") {
   const base = variant === "quiet" ? "" : "inline-flex items-center justify-center gap-2 rounded-lg px-4 py-2.5 font-semibold min-h-11";
   return `${base} ${VARIANTS[variant]} disabled:cursor-not-allowed ${extra}`.trim();
 }
+
+/** The small buttons beside a row (pause, close, dismiss …): plain, or red for what cannot be undone. */
+export function smallButtonClass(tone: "plain" | "danger" = "plain") {
+  const ring = tone === "danger" ? "text-ember-800 ring-ember-600/40 hover:bg-ember-100" : "ring-humus-300 hover:bg-humus-100";
+  return `min-h-9 rounded-lg px-3 py-1.5 text-sm font-medium ring-1 disabled:opacity-50 ${ring}`;
+}

@@ -36,7 +36,14 @@ const idempotencyKeyHeader = {
 };
 
 function parameters(route: RouteDoc) {
-  const query = route.query ? Object.entries((jsonSchema(route.query).properties ?? {}) as Record<string, unknown>).map(([name, schema]) => ({ name, in: "query", schema })) : [];
+  const doc = route.query ? (jsonSchema(route.query) as { properties?: Record<string, Record<string, unknown>>; required?: string[] }) : {};
+  const query = Object.entries(doc.properties ?? {}).map(([name, { description, ...schema }]) => ({
+    name,
+    in: "query",
+    required: (doc.required ?? []).includes(name),
+    ...(description ? { description } : {}),
+    schema,
+  }));
   return route.idempotent ? [...query, idempotencyKeyHeader] : query;
 }
 

@@ -32,6 +32,17 @@ import { diversionQuerySchema } from "@/lib/validation/reports";
 import { cultureSchema, orderStepSchema, shipOrderSchema, shippingSchema } from "@/lib/validation/grower";
 import { matchSchema } from "@/lib/validation/match";
 import { nearestPlaceResponseSchema, nearestPlaceSchema, placeSearchResponseSchema, placeSearchSchema } from "@/lib/validation/places";
+import {
+  councilDemandQuerySchema,
+  listAlertsQuerySchema,
+  listNeedsQuerySchema,
+  nearbyDemandQuerySchema,
+  nearbyDemandResponseSchema,
+  needResponseSchema,
+  openNeedSchema,
+  updateAlertSchema,
+  updateNeedSchema,
+} from "@/lib/validation/needs";
 
 export interface RouteDoc {
   method: "get" | "post" | "patch" | "put" | "delete";
@@ -141,5 +152,15 @@ export const API_ROUTES: RouteDoc[] = [
   { method: "get", path: "/api/grower/shipping", summary: "My shipping weekdays and pause", tag: "growers", auth: ["grower"], errors: [401, 403] },
   { method: "put", path: "/api/grower/shipping", summary: "Set shipping weekdays; pause posting in heat or frost", tag: "growers", auth: ["grower"], body: shippingSchema, errors: [400, 401, 403, 422] },
   { method: "put", path: "/api/grower/listings/{id}/culture", summary: "Species (required), posting and collection of a worm listing", tag: "growers", auth: ["grower"], body: cultureSchema, errors: [400, 401, 403, 404, 422] },
+  { method: "get", path: "/api/needs", summary: "My needs, newest first (only mine: nobody else's need is ever shown)", tag: "needs", auth: "signed-in", query: listNeedsQuerySchema, response: z.object({ needs: z.array(needResponseSchema) }), errors: [401, 422] },
+  { method: "post", path: "/api/needs", summary: "Open a need: a saved bed's unmet layer (bed_id) or a typed one (location); alerts come when a listing that could serve it appears", tag: "needs", auth: ["gardener"], body: openNeedSchema, status: 201, response: z.object({ need: needResponseSchema }), errors: [400, 401, 403, 409, 415, 422] },
+  { method: "get", path: "/api/needs/{id}", summary: "One of my needs", tag: "needs", auth: "signed-in", response: z.object({ need: needResponseSchema }), errors: [401, 404] },
+  { method: "patch", path: "/api/needs/{id}", summary: "Change the amount, radius, date, place or alerts of my need; close it, or open it again", tag: "needs", auth: "signed-in", body: updateNeedSchema, response: z.object({ need: needResponseSchema }), errors: [400, 401, 404, 409, 415, 422] },
+  { method: "delete", path: "/api/needs/{id}", summary: "Delete my need and its alerts", tag: "needs", auth: "signed-in", status: 204, errors: [401, 404] },
+  { method: "get", path: "/api/needs/nearby-demand", summary: "Open needs a listing of a material at a point would serve within 5, 10 and 25 km: rounded, anonymous counts, and sums only where at least 3 people make them up", tag: "needs", auth: "signed-in", query: nearbyDemandQuerySchema, response: nearbyDemandResponseSchema, errors: [401, 422, 429] },
+  { method: "get", path: "/api/needs/alerts", summary: "Listings found for my open needs (the in-app notices)", tag: "needs", auth: "signed-in", query: listAlertsQuerySchema, responseDescription: "{ alerts }", errors: [401, 422] },
+  { method: "patch", path: "/api/needs/alerts/{id}", summary: "Mark one of my notices seen, or dismiss it", tag: "needs", auth: "signed-in", body: updateAlertSchema, status: 204, errors: [400, 401, 404, 415, 422] },
+  { method: "get", path: "/api/council/demand", summary: "Open needs around my council by cell (at least 1 km², each figure from at least 3 people) and a giveaway-day suggestion", tag: "councils", auth: ["council"], query: councilDemandQuerySchema, responseDescription: "{ centre, radius_km, material, cells, materials, suggestion }", errors: [401, 403, 422] },
+  { method: "get", path: "/api/council/demand.csv", summary: "The demand map's cells as CSV", tag: "councils", auth: ["council"], query: councilDemandQuerySchema, responseDescription: "text/csv", errors: [401, 403, 422] },
   { method: "get", path: "/api/growers/{id}/shipping", summary: "A grower's shipping days and pause, for buyers", tag: "growers", auth: "public", errors: [404] },
 ];

@@ -13,6 +13,7 @@ const LINKS: { href: string; label: string; roles: Role[] | "public" }[] = [
   { href: "/giveaways", label: "Giveaway days", roles: "public" },
   { href: "/beds", label: "My beds", roles: ["gardener"] },
   { href: "/reservations", label: "My reservations", roles: ["gardener"] },
+  { href: "/needs", label: "My needs", roles: ["gardener"] },
   { href: "/listings/mine", label: "What I'm giving", roles: ["supplier", "grower", "council"] },
   { href: "/requests", label: "Requests", roles: ["supplier", "grower", "council"] },
   { href: "/grower", label: "Worm cultures", roles: ["grower"] },

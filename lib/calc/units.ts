@@ -10,12 +10,14 @@ const YD3_M3 = YARD_M ** 3;
 
 export const mToFt = (m: number) => m / FOOT_M;
 export const kmToMi = (km: number) => (km * 1000) / (FEET_PER_MILE * FOOT_M);
+export const miToKm = (mi: number) => (mi * FEET_PER_MILE * FOOT_M) / 1000;
 export const ftToM = (ft: number) => ft * FOOT_M;
 export const m2ToFt2 = (m2: number) => m2 / FOOT_M ** 2;
 export const ft2ToM2 = (ft2: number) => ft2 * FOOT_M ** 2;
 export const cmToIn = (cm: number) => cm / 100 / INCH_M;
 export const inToCm = (inches: number) => inches * INCH_M * 100;
 export const m3ToFt3 = (m3: number) => m3 / FT3_M3;
+export const ft3ToM3 = (ft3: number) => ft3 * FT3_M3;
 export const m3ToYd3 = (m3: number) => m3 / YD3_M3;
 export const yd3ToM3 = (yd3: number) => yd3 * YD3_M3;
 export const lToUsGal = (l: number) => (l * LITRE_M3) / US_GALLON_M3;

@@ -7,6 +7,7 @@ import { db } from "@/db/index";
 import { organisationNames, suppliersOf } from "@/db/listings";
 import { photosFor } from "@/db/listing-photos";
 import { windowsFor } from "@/db/pickup-windows";
+import { matchedGardeners } from "@/db/need-alerts";
 import { ratingsFor } from "@/db/reviews";
 import type { ListingPhotoRow, ListingRow, ListingStatus, PickupWindowRow } from "@/db/types";
 import type { PublicListingRow } from "@/db/listing-search";
@@ -62,6 +63,8 @@ export interface ManagedListingDetail extends ListingDetail {
   quantity_total: number;
   quantity_held: number;
   quantity_collected: number;
+  /** How many different gardeners' open needs it has been matched to (alerts sent); no one is named. */
+  matched_gardeners: number;
   photo_records: { id: string; public_id: string; width: number; height: number; format: string; url: string }[];
 }
 
@@ -149,6 +152,7 @@ export async function presentDetail(r: ListingRow, opts: { manage: boolean; now?
     updated_at: r.updated_at,
   };
   if (!opts.manage) return detail;
+  const matched = await matchedGardeners(r.id, q);
   return {
     ...detail,
     can_manage: true,
@@ -156,6 +160,7 @@ export async function presentDetail(r: ListingRow, opts: { manage: boolean; now?
     quantity_total: r.quantity_total,
     quantity_held: r.quantity_held,
     quantity_collected: r.quantity_collected,
+    matched_gardeners: matched,
     photo_records: photoRows.map((p) => ({ id: p.id, public_id: p.public_id, width: p.width, height: p.height, format: p.format, url: photoUrl(p, "thumb").url })),
   };
 }

@@ -4,6 +4,8 @@ export interface EmailParts {
   heading: string;
   paragraphs: string[];
   action?: { label: string; url: string };
+  /** Several things to open (a digest): each a line of text and a link of its own. */
+  items?: { text: string; label: string; url: string }[];
   footer?: string;
 }
 
@@ -16,6 +18,7 @@ export function renderEmail(subject: string, parts: EmailParts): { subject: stri
     parts.heading,
     "",
     ...parts.paragraphs.flatMap((p) => [p, ""]),
+    ...(parts.items ?? []).flatMap((i) => [`- ${i.text}`, `  ${i.label}: ${i.url}`, ""]),
     ...(parts.action ? [`${parts.action.label}: ${parts.action.url}`, ""] : []),
     "--",
     footer,
@@ -25,6 +28,7 @@ export function renderEmail(subject: string, parts: EmailParts): { subject: stri
 <p style="font-weight:700;color:#40642e;margin:0 0 16px">Duffbank</p>
 <h1 style="font-size:20px;margin:0 0 12px">${escape(parts.heading)}</h1>
 ${parts.paragraphs.map((p) => `<p style="line-height:1.5">${escape(p)}</p>`).join("\n")}
+${parts.items?.length ? `<ul style="padding-left:20px">${parts.items.map((i) => `<li style="line-height:1.5;margin-bottom:8px">${escape(i.text)} <a href="${escape(i.url)}" style="color:#40642e">${escape(i.label)}</a></li>`).join("")}</ul>` : ""}
 ${parts.action ? `<p><a href="${escape(parts.action.url)}" style="display:inline-block;background:#40642e;color:#fff;padding:10px 16px;border-radius:8px;text-decoration:none">${escape(parts.action.label)}</a></p>` : ""}
 <p style="color:#6a4e31;font-size:13px;margin-top:24px">${escape(footer)}</p>
 </div></body></html>`;

@@ -26,6 +26,8 @@ export const LIMITS = {
   linkEmail: { name: "link:email", max: 5, windowMs: 60 * MINUTE, what: "sign-in links asked for this address" },
   linkAddress: { name: "link:address", max: 20, windowMs: 60 * MINUTE, what: "sign-in links asked for from your network" },
   signUpAddress: { name: "sign-up:address", max: 20, windowMs: 60 * MINUTE, what: "new accounts from your network" },
+  // Enough to move a pin about while filling in a listing, too few to sweep a town for one need.
+  demandPreview: { name: "demand:account", max: 120, windowMs: 60 * MINUTE, what: "demand look-ups from your account" },
 } satisfies Record<string, Limit>;
 
 type Clock = () => Date;

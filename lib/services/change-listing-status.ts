@@ -6,10 +6,11 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import { planStatusChange, quantityLeft } from "@/lib/listings/status";
 import type { ListingAction } from "@/lib/validation/listings";
 import type { ListingStatus } from "@/db/types";
+import { alertIfDue } from "@/lib/services/needs/alert-needs";
 
 /** Publish, pause, resume or archive. Asking for the state a listing is already in is a no-op. */
 export async function changeListingStatus(userId: string, id: string, action: ListingAction, now: Date = new Date()): Promise<{ status: ListingStatus }> {
-  return db().transaction(async (trx) => {
+  const result = await db().transaction(async (trx) => {
     const row = await findManagedListing(id, userId, trx);
     if (!row) throw notFound("That listing");
     const ended = Boolean(row.available_until && Date.parse(row.available_until) <= now.getTime());
@@ -23,4 +24,7 @@ export async function changeListingStatus(userId: string, id: string, action: Li
     await recordAudit({ actor_id: userId, action: `listing.${action}`, subject_type: "listing", subject_id: id, before: { status: row.status }, after: { status: plan.to } }, trx);
     return { status: plan.to };
   });
+  // Published or resumed: the open needs it could serve hear of it now.
+  await alertIfDue(id);
+  return result;
 }

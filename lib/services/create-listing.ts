@@ -10,6 +10,8 @@ import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { checkUploadedPhotos } from "@/lib/media/verify-upload";
 import { COUNTED_UNITS, defaultUnitSize, type CreateListingInput } from "@/lib/validation/listings";
 import { listingDates } from "@/lib/listings/dates";
+import { alertIfDue } from "@/lib/services/needs/alert-needs";
+import { DUE_NOW } from "@/migrations/20261208_020_open_needs";
 
 /** Posts a listing with its pickup windows and photos in one transaction: all of it or none. */
 export async function createListing(user: SessionUser, input: CreateListingInput, now: Date = new Date()): Promise<{ id: string }> {
@@ -52,6 +54,8 @@ export async function createListing(user: SessionUser, input: CreateListingInput
         available_from: dates.from,
         available_until: dates.until,
         quality: JSON.stringify(input.quality),
+        // Posted on offer: due to be checked against open needs straight away.
+        needs_due_at: input.status === "active" ? DUE_NOW : null,
       },
       trx,
     );
@@ -59,5 +63,8 @@ export async function createListing(user: SessionUser, input: CreateListingInput
     await insertPhotos(id, input.photos, 0, trx);
     await recordAudit({ actor_id: user.id, action: "listing.create", subject_type: "listing", subject_id: id, after: { status: input.status, material: input.material } }, trx);
   });
+  // Open needs it could serve are alerted now, so the supplier sees whom it reached; the
+  // worker picks it up instead if this fails.
+  await alertIfDue(id);
   return { id };
 }

@@ -7,6 +7,7 @@ import { reservationContext, type ReservationContext } from "@/db/reservation-co
 import { collectQuantity, findReservation, recordReservationEvent, releaseQuantity, updateReservationIf, type PickupWindowRow } from "@/db/reservations";
 import type { ReservationRow } from "@/db/types";
 import { mailReservation } from "@/lib/mail/reservation-mail";
+import { settleNeedsAfter } from "@/lib/services/needs/close-needs";
 import { mailCultureOrder } from "@/lib/mail/culture-order-mail";
 import { newPickupCode } from "@/lib/reservations/pickup-code";
 import { nextOccurrence } from "@/lib/reservations/pickup-times";
@@ -38,6 +39,8 @@ async function move(trx: Db, r: ReservationRow, to: ReservationStatus, patch: Pa
   const ok = await updateReservationIf(r.id, [r.status], { ...patch, status: to, updated_at: now.toISOString() }, trx);
   if (!ok) throw new StaleState();
   await recordReservationEvent({ reservation_id: r.id, from_status: r.status, to_status: to, actor_id: actorId, note, created_at: now.toISOString() }, trx);
+  // A gardener's open need this reservation counts towards is met, or open again, with it.
+  await settleNeedsAfter(trx, r, now);
 }
 
 /**

@@ -36,6 +36,8 @@ export interface ReserveInput {
   gardenerId: string;
   items: ReserveItem[];
   bed_id?: string | null;
+  /** An open need of the gardener's (reserving from an alert): counted for the items of its material. */
+  need_id?: string | null;
   /** Field names in errors: "quantity" for a single reservation, "items.2.quantity" for a list. */
   fieldPrefix: (index: number) => string;
 }
@@ -47,6 +49,7 @@ export interface ReserveDeps {
 
 type Checked = {
   item: ReserveItem;
+  need_id: string | null;
   listing: ListingForReservation;
   amount: number;
   deposit: number;
@@ -116,6 +119,13 @@ async function check(input: ReserveInput, q: Knex, now: Date): Promise<Checked[]
     const bed = await q("beds").first("id").where({ id: input.bed_id, owner_id: input.gardenerId });
     if (!bed) fields.bed_id = "Choose one of your own beds.";
   }
+  if (input.need_id) {
+    const need = await q("needs").first("material_code").where({ id: input.need_id, owner_id: input.gardenerId });
+    const serving = need ? out.filter((c) => c.listing.material_code === need.material_code) : [];
+    if (!need) fields.need_id = "Choose one of your own needs.";
+    else if (!serving.length) fields.need_id = "That need is for another material.";
+    for (const c of serving) c.need_id = input.need_id;
+  }
   if (Object.keys(fields).length) {
     // A refusal keeps its own status (404 for a listing nobody may see, 409 for one not
     // taking reservations); its message stands alone when it is the only problem.
@@ -164,7 +174,7 @@ async function check(input: ReserveInput, q: Knex, now: Date): Promise<Checked[]
       }
     }
     const fulfilment = await fulfilmentFor(item, listing, f, fields, q);
-    return { item, listing, amount, deposit, window, notBefore, fulfilment };
+    return { item, listing, amount, deposit, window, notBefore, fulfilment, need_id: null };
   }
 }
 
@@ -200,6 +210,7 @@ export async function reserveListings(input: ReserveInput, deps: ReserveDeps = {
         listing_id: c.listing.id,
         gardener_id: input.gardenerId,
         bed_id: input.bed_id ?? null,
+        need_id: c.need_id,
         pickup_window_id: c.window?.id ?? null,
         group_id: groupId,
         quantity: c.item.quantity,

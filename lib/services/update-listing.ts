@@ -7,6 +7,7 @@ import { recordAudit } from "@/db/audit";
 import { ApiError, fromZod, notFound } from "@/lib/api/errors";
 import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { listingDates } from "@/lib/listings/dates";
+import { alertIfDue } from "@/lib/services/needs/alert-needs";
 import { checkListingRules, COUNTED_UNITS, type LISTING_CURRENCIES, defaultUnitSize, listingFieldsSchema, type UpdateListingInput } from "@/lib/validation/listings";
 
 // The same rules as a new listing, checked on the listing as it would be after the change.
@@ -84,4 +85,6 @@ export async function updateListing(userId: string, id: string, patch: UpdateLis
     if (patch.pickup_windows !== undefined) await replaceWindows(id, l.pickup_windows, trx);
     await recordAudit({ actor_id: userId, action: "listing.update", subject_type: "listing", subject_id: id, after: Object.keys(patch) }, trx);
   });
+  // More of it, new dates or a new place: open needs it can now serve hear of it.
+  await alertIfDue(id);
 }

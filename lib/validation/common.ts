@@ -19,3 +19,11 @@ export const noteSchema = (min = 3, max = 2000) =>
     .trim()
     .min(min, `Write at least ${min} characters.`)
     .max(max, `Use at most ${max} characters.`);
+
+/** A number in a query string (every value arrives as text), with the message naming the parameter. */
+export const queryNumber = (what: string) =>
+  z
+    .string()
+    .trim()
+    .regex(/^-?\d+(\.\d+)?$/, `${what} must be a number.`)
+    .transform(Number);

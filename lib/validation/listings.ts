@@ -3,6 +3,7 @@
 // bag or bale, kg per bale), so lib/calc can convert them without knowing who typed them.
 import { z } from "zod";
 import { BAG_M3, BALE_M3, DEFAULT_CARDBOARD_SHEET, MATERIAL_CODES, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
+import { queryNumber } from "./common";
 
 export const LISTING_UNITS = ["sheets", "m2", "bags", "m3", "bales", "kg"] as const;
 export type ListingUnit = (typeof LISTING_UNITS)[number];
@@ -233,12 +234,7 @@ export const MAX_RADIUS_KM = 200;
 export const DEFAULT_PAGE = 20;
 export const MAX_PAGE = 100;
 
-const num = (what: string) =>
-  z
-    .string()
-    .trim()
-    .regex(/^-?\d+(\.\d+)?$/, `${what} must be a number.`)
-    .transform(Number);
+const num = queryNumber;
 
 /** GET /api/listings query string (every value arrives as a string). */
 export const browseQuerySchema = z

@@ -25,6 +25,8 @@ export const reserveOneSchema = z
     quantity: quantitySchema,
     pickup_window_id: id("a pickup window").nullish(),
     bed_id: id("a bed").nullish(),
+    /** The open need this is for (reserving from an alert): it counts towards meeting it. */
+    need_id: id("a need").nullish(),
     // Live cultures only: collected (the default where offered) or posted to `ship_to`.
     fulfilment: z.enum(FULFILMENT_CHOICES, { error: "Choose collection or post." }).nullish(),
     ship_to: shipToSchema,
@@ -52,6 +54,8 @@ export const reserveItemSchema = z
 export const reserveManySchema = z.object({
   items: z.array(reserveItemSchema, { error: "List what to reserve." }).min(1, "List at least one listing.").max(20, "Reserve at most 20 listings at once."),
   bed_id: id("a bed").nullish(),
+  /** The open need this is for: it counts for the items of its material. */
+  need_id: id("a need").nullish(),
 });
 
 export const createReservationSchema = z.union([reserveManySchema, reserveOneSchema]);

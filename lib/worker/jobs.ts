@@ -7,6 +7,9 @@ import { expireListings } from "@/lib/services/expire-listings";
 import { expireGiveawayDepositHolds } from "@/lib/services/giveaway-deposit";
 import { sendBedReminders } from "@/lib/services/send-bed-reminders";
 import { pruneSecurityRecords } from "@/lib/services/prune-security-records";
+import { alertDueListings } from "@/lib/services/needs/alert-needs";
+import { sendNeedDigests } from "@/lib/services/needs/send-need-digests";
+import { expireOpenNeeds } from "@/lib/services/needs/close-needs";
 
 export type Clock = () => Date;
 
@@ -32,6 +35,12 @@ export const jobs: Job[] = [
   // Giveaway bookings whose no-show deposit was not put down within the hold.
   { name: "expire-giveaway-deposits", everyMs: 15_000, run: (clock) => expireGiveawayDepositHolds(clock) },
   { name: "reservation-reminders", everyMs: 60_000, run: (clock) => sendReservationReminders(clock) },
+  // Listings posted, restocked, changed or come into their dates, against the open needs
+  // (the services alert at once; this is the net, and the only path for a start date arriving).
+  { name: "alert-needs", everyMs: 30_000, run: (clock, ctx) => alertDueListings(clock, {}, ctx?.signal) },
+  // Daily alerts: one e-mail a person, at most once in 24 hours.
+  { name: "need-digests", everyMs: 5 * 60_000, run: (clock, ctx) => sendNeedDigests(clock, {}, ctx?.signal) },
+  { name: "expire-needs", everyMs: 10 * 60_000, run: (clock) => expireOpenNeeds(clock) },
   // Ended sessions and spent rate-limit windows are kept a while for support, then dropped.
   { name: "prune-security-records", everyMs: 60 * 60_000, run: () => pruneSecurityRecords() },
   // Owed Stripe calls, then the lost-webhook net: checkouts still open after a few minutes

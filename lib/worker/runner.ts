@@ -4,6 +4,7 @@
 // writes the outbox marks still owed, lets go of every outbox claim it holds except on a
 // message still in the SMTP server's hands, and removes its heartbeat, so another worker
 // carries on at once instead of waiting for claims to run out.
+import { setMaxListeners } from "node:events";
 import os from "node:os";
 import { setTimeout as sleep } from "node:timers/promises";
 import { beat, pruneBeats, removeBeat } from "@/db/heartbeats";
@@ -38,6 +39,8 @@ export function startWorker(opts: WorkerOptions): RunningWorker {
   const id = workerId();
   const log = opts.log ?? ((line) => console.log(line));
   const stopping = new AbortController();
+  // Every loop naps on this one signal, and the jobs pass it on: more listeners than Node's default warning allows.
+  setMaxListeners(4 * (opts.jobs.length + 1), stopping.signal);
   const startedAt = new Date().toISOString();
 
   const nap = (ms: number) => sleep(ms, undefined, { signal: stopping.signal }).catch(() => undefined);

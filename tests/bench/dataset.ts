@@ -69,8 +69,8 @@ export interface BenchStore {
   open: () => Knex;
 }
 
-/** A new, empty store for `size` listings: a file in `dir`, or a database on DATABASE_URL's server. */
-export async function emptyStore(dir: string, size: number): Promise<BenchStore> {
+/** A new, empty store for `size` listings (or named `size`): a file in `dir`, or a database on DATABASE_URL's server. */
+export async function emptyStore(dir: string, size: number | string): Promise<BenchStore> {
   if (!process.env.DATABASE_URL) {
     const file = path.join(dir, `duffbank-bench-${size}.sqlite`);
     for (const f of [file, `${file}-wal`, `${file}-shm`]) fs.rmSync(f, { force: true });

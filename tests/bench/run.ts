@@ -1,6 +1,8 @@
 // npm run bench — matching at 1k, 10k and 100k listings against a naive full scan, then the
 // HTTP throughput of /api/match and /api/listings against /api/health on a production build.
-// Environment: BENCH_SIZES=1000,10000 to run fewer sizes; BENCH_HTTP=0 to skip the HTTP part.
+// Then the alert fan-out at 100,000 open needs (tests/bench/needs.ts).
+// Environment: BENCH_SIZES=1000,10000 to run fewer sizes (0: none, only the needs); BENCH_HTTP=0 to skip the HTTP part;
+// BENCH_OPEN_NEEDS=0 to skip the needs, or another count of them.
 import os from "node:os";
 import { performance } from "node:perf_hooks";
 import type { Knex } from "knex";
@@ -14,8 +16,10 @@ import { prng } from "@/seeds/ids";
 import { at, type BenchStore, buildDataset, emptyStore, HALF_SIDE_KM } from "./dataset";
 import { runHttpBench } from "./http";
 import { naiveCandidates, naiveNearest } from "./naive";
+import { needsTable, runNeedsBench } from "./needs";
 
-const SIZES = (process.env.BENCH_SIZES ?? "1000,10000,100000").split(",").map(Number);
+// BENCH_SIZES=0 skips the listings (and the HTTP part, which runs on the largest of them).
+const SIZES = (process.env.BENCH_SIZES ?? "1000,10000,100000").split(",").map(Number).filter((n) => n > 0);
 const RADIUS_KM = 25;
 const NEAR_LIMIT = 50;
 
@@ -105,7 +109,8 @@ function table(rows: Row[]) {
 async function main() {
   const dir = process.env.BENCH_DIR ?? os.tmpdir();
   const engine = process.env.DATABASE_URL ? "PostgreSQL (DATABASE_URL)" : "SQLite";
-  console.log(`[bench] ${engine}; ${os.cpus().length} × ${os.cpus()[0]?.model ?? "cpu"}, Node ${process.version}; ${BENCH_NEEDS.length} needs within ${RADIUS_KM} km; near-query = the ${NEAR_LIMIT} nearest listings within ${RADIUS_KM} km`);
+  console.log(`[bench] ${engine}; ${os.cpus().length} × ${os.cpus()[0]?.model ?? "cpu"}, Node ${process.version}`);
+  if (SIZES.length) console.log(`[bench] matching: ${BENCH_NEEDS.length} needs within ${RADIUS_KM} km; near-query = the ${NEAR_LIMIT} nearest listings within ${RADIUS_KM} km`);
   const rows: Row[] = [];
   let biggest: { k: Knex; store: BenchStore } | null = null;
   for (const size of SIZES) {
@@ -114,12 +119,15 @@ async function main() {
     if (biggest) await biggest.k.destroy();
     biggest = { k, store };
   }
-  console.log(`\n${table(rows)}\n`);
+  if (rows.length) console.log(`\n${table(rows)}\n`);
   const [first, last] = [rows[0], rows[rows.length - 1]];
   if (rows.length > 1) {
     console.log(`[bench] listings grew ${(last.size / first.size).toFixed(0)}×; match p95 grew ${(last.match.p95 / first.match.p95).toFixed(1)}×, the naive scan's ${(last.matchNaive.p95 / first.matchNaive.p95).toFixed(1)}×`);
   }
   if (biggest) await biggest.k.destroy();
+  // The alert fan-out: what a new listing costs at 100,000 open needs.
+  const needsCount = Number(process.env.BENCH_OPEN_NEEDS ?? 100_000);
+  if (needsCount > 0) console.log(`\n${needsTable(await runNeedsBench(dir, needsCount))}\n`);
   if (process.env.BENCH_HTTP !== "0" && biggest) await runHttpBench(biggest.store, BENCH_NEEDS);
 }
 

@@ -82,3 +82,22 @@ describe("the OpenAPI document", () => {
     await expect(SwaggerParser.validate(doc as never)).resolves.toBeTruthy();
   });
 });
+
+describe("the open needs in the document", () => {
+  const doc = documentNow();
+  it("has every route of the contract, with bad input as a documented 422", () => {
+    for (const [path, method] of [["/api/needs", "get"], ["/api/needs", "post"], ["/api/needs/{id}", "patch"], ["/api/needs/{id}", "delete"], ["/api/needs/nearby-demand", "get"]]) {
+      expect(doc.paths[path]?.[method], `${method.toUpperCase()} ${path}`).toBeTruthy();
+    }
+    expect(doc.paths["/api/needs"].post.responses).toHaveProperty("422");
+    expect(doc.paths["/api/needs/{id}"].patch.responses).toHaveProperty("422");
+    const body = doc.paths["/api/needs"].post.requestBody.content["application/json"].schema;
+    expect(body.properties.radius_km.maximum).toBe(50);
+    expect(body.properties.quantity.exclusiveMinimum).toBe(0);
+  });
+  it("marks lat, lng and material as required for the nearby demand", () => {
+    const params = doc.paths["/api/needs/nearby-demand"].get.parameters as { name: string; required: boolean; description?: string }[];
+    expect(params.map((p) => [p.name, p.required])).toEqual([["lat", true], ["lng", true], ["material", true]]);
+    expect(params.every((p) => p.description)).toBe(true);
+  });
+});

@@ -13,7 +13,7 @@ beforeAll(async () => {
 });
 afterAll(() => ctx.close());
 
-const TABLES = ["materials", "organisations", "users", "user_roles", "memberships", "listings", "pickup_windows", "beds", "giveaway_days", "giveaway_slots", "giveaway_bookings", "grower_shipping", "reservations", "reservation_events", "reviews"];
+const TABLES = ["materials", "organisations", "users", "user_roles", "memberships", "listings", "pickup_windows", "beds", "giveaway_days", "giveaway_slots", "giveaway_bookings", "grower_shipping", "reservations", "reservation_events", "reviews", "needs", "need_alerts"];
 
 async function snapshot() {
   const out: Record<string, unknown[]> = {};

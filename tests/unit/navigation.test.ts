@@ -7,7 +7,7 @@ describe("navigation by role", () => {
     expect(labels(null)).toEqual(["/plan", "/mix", "/browse", "/giveaways"]);
   });
   it("adds each role's own area", () => {
-    expect(labels(["gardener"])).toEqual(["/plan", "/mix", "/browse", "/giveaways", "/beds", "/reservations"]);
+    expect(labels(["gardener"])).toEqual(["/plan", "/mix", "/browse", "/giveaways", "/beds", "/reservations", "/needs"]);
     expect(labels(["supplier"])).toEqual(["/plan", "/mix", "/browse", "/giveaways", "/listings/mine", "/requests", "/reports"]);
     expect(labels(["grower"])).toContain("/requests");
     expect(labels(["council"])).toEqual(expect.arrayContaining(["/council", "/listings/mine", "/requests"]));

@@ -15,6 +15,10 @@ import { DaysTable } from "@/components/council/days-table";
 import { formatKg, formatM3 } from "@/components/reports/format";
 import { viewerUnits } from "@/lib/units/viewer";
 import { Panel } from "@/components/ui/panel";
+import { councilDemand } from "@/lib/services/needs/council-demand";
+import { SUGGESTED_MATERIALS } from "@/lib/needs/demand";
+import { MATERIALS } from "@/lib/calc/facts";
+import { materialNoun } from "@/lib/match/format";
 
 export const metadata: Metadata = { title: "Council desk" };
 export const dynamic = "force-dynamic";
@@ -26,7 +30,14 @@ export default async function CouncilPage() {
   }
   const ctx = councilOf(user);
   const system = await viewerUnits(user);
-  const [members, invites, days, report] = await Promise.all([membersOf(ctx.organisationId), listInvites(ctx), councilDays(ctx), diversionReport(diversionScopeOf(user))]);
+  const [members, invites, days, report, demand] = await Promise.all([
+    membersOf(ctx.organisationId),
+    listInvites(ctx),
+    councilDays(ctx),
+    diversionReport(diversionScopeOf(user)),
+    councilDemand(ctx, { material: "leaves" }),
+  ]);
+  const waiting = demand.materials.filter((m) => (SUGGESTED_MATERIALS as readonly string[]).includes(m.material));
   const today = localDate(new Date(), "Europe/London");
   const upcoming = days.filter((d) => d.date >= today).reverse();
   const past = days.filter((d) => d.date < today);
@@ -52,6 +63,25 @@ export default async function CouncilPage() {
             <summary className="cursor-pointer font-medium">Past days ({past.length})</summary>
             <DaysTable days={past} caption="Past days" />
           </details>
+        ) : null}
+      </Panel>
+
+      <Panel id="demand" title="Who is waiting for material" action={<Link href="/council/demand" className="font-semibold text-moss-700 underline underline-offset-4">Demand map and CSV</Link>}>
+        <ul className="flex flex-wrap gap-x-6 gap-y-1">
+          {waiting.map((m) => (
+            <li key={m.material}>
+              <strong>{MATERIALS[m.material].name}:</strong> {m.people ? `${m.people} people in ${m.cells} ${m.cells === 1 ? "area" : "areas"}` : "no area with three or more people yet"}
+            </li>
+          ))}
+        </ul>
+        {demand.suggestion ? (
+          <p className="mt-2">
+            A leaf day on <strong>{longDate(demand.suggestion.date)}</strong> would serve {demand.suggestion.households} households who need {materialNoun("leaves")} by then, in {demand.suggestion.slots}{" "}
+            {demand.suggestion.slots === 1 ? "slot" : "slots"}.{" "}
+            <Link href="/council/demand?material=leaves" className="font-semibold text-moss-700 underline underline-offset-4">
+              See where
+            </Link>
+          </p>
         ) : null}
       </Panel>
 

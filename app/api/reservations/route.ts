@@ -25,6 +25,7 @@ export const POST = withAuth(idempotent(async ({ req, user }) => {
     gardenerId: user.id,
     items,
     bed_id: input.bed_id,
+    need_id: input.need_id,
     fieldPrefix: (i) => (many ? `items.${i}.` : ""),
   });
   const reservations = await getReservations(result.ids, user.id, "gardener");

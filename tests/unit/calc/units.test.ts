@@ -2,11 +2,13 @@ import { describe, expect, it } from "vitest";
 import {
   cmToIn,
   ft2ToM2,
+  ft3ToM3,
   ftToM,
   inToCm,
   kgToLb,
   kmToMi,
   lbToKg,
+  miToKm,
   lToUsGal,
   m2ToFt2,
   m3ToFt3,
@@ -49,6 +51,8 @@ describe("conversions against NIST HB44 Appendix C", () => {
     expect(kgToLb(0.45359237)).toBeCloseTo(1, 12);
     expect(lbToKg(51)).toBeCloseTo(23.133, 3); // NIOSH 51 lb
     expect(kmToMi(1.609344)).toBeCloseTo(1, 12); // NIST HB44: 1 mile = 5,280 ft = 1,609.344 m
+    expect(miToKm(5)).toBeCloseTo(8.04672, 12); // NIST HB44: 5 × 1,609.344 m
+    expect(ft3ToM3(10)).toBeCloseTo(0.28316846592, 12); // NIST HB44: 1 ft = 0.3048 m, so 1 ft³ = 0.028316846592 m³
     expect(m3ToYd3(0.764554857984)).toBeCloseTo(1, 12);
   });
 

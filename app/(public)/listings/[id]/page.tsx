@@ -16,6 +16,7 @@ import { MaterialArt } from "@/components/listings/material-art";
 import { StatusActions } from "@/components/listings/status-actions";
 import { StatusBadge, VerifiedBadge } from "@/components/listings/status-badge";
 import { QualityList } from "@/components/listings/quality-list";
+import { ListingCautions } from "@/components/listings/listing-cautions";
 import { CultureFacts } from "@/components/grower/culture-facts";
 import { cultureOffer } from "@/lib/services/culture-offer";
 import { viewerUnits } from "@/lib/units/viewer";
@@ -106,18 +107,10 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
             </ul>
           ) : null}
           {listing.description ? <p className="whitespace-pre-line text-humus-800">{listing.description}</p> : null}
-          <section aria-labelledby="care-title" className="flex flex-col gap-2">
-            <h2 id="care-title" className="text-lg font-semibold">{culture ? "Before you order" : "Before you collect"}</h2>
-            <Notice tone="caution">
-              <ul className="flex list-disc flex-col gap-1 pl-5">
-                {listingCautions({ material: listing.material as MaterialCode, unit: listing.unit, unit_mass_kg: listing.unit_mass_kg, quality: listing.quality as ListingCautionInput["quality"] }, system).map((c) => (
-                  <li key={c.kind} data-caution={c.kind}>
-                    {c.text}
-                  </li>
-                ))}
-              </ul>
-            </Notice>
-          </section>
+          <ListingCautions
+            cautions={listingCautions({ material: listing.material as MaterialCode, unit: listing.unit, unit_mass_kg: listing.unit_mass_kg, quality: listing.quality as ListingCautionInput["quality"] }, system)}
+            title={culture ? "Before you order" : "Before you collect"}
+          />
         </div>
 
         <aside className="flex flex-col gap-4">
@@ -170,6 +163,11 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
                   Exact point {managed.pickup.location.lat.toFixed(5)}, {managed.pickup.location.lng.toFixed(5)} · {formatListingQuantity(managed.quantity_held, listing.unit, system)} on hold ·{" "}
                   {formatListingQuantity(managed.quantity_collected, listing.unit, system)} collected
                 </span>
+              </p>
+              <p data-matched-needs={managed.matched_gardeners}>
+                {managed.matched_gardeners === 0
+                  ? "No gardener nearby has an open need for this yet."
+                  : `You have been matched to ${managed.matched_gardeners} ${managed.matched_gardeners === 1 ? "gardener's need" : "gardeners' needs"}: each of them has been told about this listing.`}
               </p>
               <div className="flex flex-wrap items-center gap-3">
                 <Link href={`/listings/${listing.id}/edit`} className={buttonClass("primary")}>

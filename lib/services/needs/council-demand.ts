@@ -1,0 +1,82 @@
+import "server-only";
+import { openNeedsInBox } from "@/db/needs";
+import { MATERIAL_CODES, type MaterialCode } from "@/lib/calc/facts";
+import { toCsv } from "@/lib/format/csv";
+import { distanceKm } from "@/lib/match/geo";
+import { demandCells, demandSummary, MIN_PEOPLE, suggestGiveaway, SUGGESTED_MATERIALS, type DemandCell, type GiveawaySuggestion } from "@/lib/needs/demand";
+import { cellOf, MIN_CELL_AREA_KM2 } from "@/lib/needs/grid";
+import { DEFAULT_CENTER } from "@/lib/geo/default-center";
+import type { CouncilContext } from "@/lib/services/council-access";
+import { dayOf, resolveContext, type NeedsContext } from "./context";
+import { toDemandRow } from "./nearby-demand";
+
+/** How far around the council's place the desk looks by default, km. */
+export const COUNCIL_DEMAND_RADIUS_KM = 25;
+
+export interface CouncilDemand {
+  centre: { lat: number; lng: number };
+  radius_km: number;
+  material: MaterialCode;
+  min_people: number;
+  cell_min_area_km2: number;
+  cells: (Omit<DemandCell, "cell"> & { id: string; south: number; west: number; north: number; east: number; centre: { lat: number; lng: number }; area_km2: number })[];
+  /** Per material, what its visible cells add up to (for choosing what to look at). */
+  materials: { material: MaterialCode; cells: number; people: number }[];
+  suggestion: GiveawaySuggestion | null;
+}
+
+/** Where the council's last giveaway day was, or the map's default, when the desk gives no point. */
+async function councilCentre(ctx: CouncilContext, q: ReturnType<typeof resolveContext>["q"]) {
+  const day = await q("giveaway_days").first("lat", "lng").where({ organisation_id: ctx.organisationId }).orderBy("date", "desc");
+  return day ? { lat: Number(day.lat), lng: Number(day.lng) } : DEFAULT_CENTER;
+}
+
+/**
+ * GET /api/council/demand: open needs around the council's place, by demand-grid cell and
+ * material, each cell only when at least MIN_PEOPLE people are behind it; and where and when
+ * a giveaway day of leaves, chips or compost would serve the most of them.
+ */
+export async function councilDemand(
+  council: CouncilContext,
+  query: { material: MaterialCode; lat?: number; lng?: number; radius_km?: number },
+  ctx: NeedsContext = {},
+): Promise<CouncilDemand> {
+  const { q, clock } = resolveContext(ctx);
+  const now = clock();
+  const centre = query.lat !== undefined && query.lng !== undefined ? { lat: query.lat, lng: query.lng } : await councilCentre(council, q);
+  const radius_km = query.radius_km ?? COUNCIL_DEMAND_RADIUS_KM;
+  const rows = (await openNeedsInBox({ centre, km: radius_km }, dayOf(now), null, q))
+    .map(toDemandRow)
+    // Whole cells: a cell is in or out by its centre, so no cell is cut to fewer people by the edge.
+    .filter((r) => distanceKm(centre, cellOf(r.lat, r.lng).centre) <= radius_km);
+  const suggestable = (SUGGESTED_MATERIALS as readonly MaterialCode[]).includes(query.material);
+  return {
+    centre,
+    radius_km,
+    material: query.material,
+    min_people: MIN_PEOPLE,
+    cell_min_area_km2: MIN_CELL_AREA_KM2,
+    cells: demandCells(rows, query.material).map(({ cell, ...figures }) => ({
+      id: cell.id,
+      south: cell.south,
+      west: cell.west,
+      north: cell.north,
+      east: cell.east,
+      centre: cell.centre,
+      area_km2: Math.round(cell.area_km2 * 100) / 100,
+      ...figures,
+    })),
+    materials: demandSummary(rows, MATERIAL_CODES),
+    suggestion: suggestable ? suggestGiveaway(rows, query.material, dayOf(now)) : null,
+  };
+}
+
+/** The same cells as CSV, for a spreadsheet or a GIS. */
+export function councilDemandCsv(d: CouncilDemand): string {
+  const header = ["cell_id", "material", "centre_lat", "centre_lng", "south", "west", "north", "east", "area_km2", "people", "open_needs", "total_quantity", "unit"];
+  const round6 = (x: number) => Math.round(x * 1e6) / 1e6;
+  return toCsv(
+    header,
+    d.cells.map((c) => [c.id, c.material, round6(c.centre.lat), round6(c.centre.lng), round6(c.south), round6(c.west), round6(c.north), round6(c.east), c.area_km2, c.people, c.needs, c.quantity, c.unit]),
+  );
+}

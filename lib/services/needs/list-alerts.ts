@@ -1,0 +1,191 @@
+import "server-only";
+import { dismissAlert, markAlertsSeen, unseenAlerts } from "@/db/need-alerts";
+import { findOwnNeed } from "@/db/needs";
+import { notFound } from "@/lib/api/errors";
+import type { MaterialCode } from "@/lib/calc/facts";
+import { listingCautions, type ListingCaution } from "@/lib/calc/cautions";
+import { datesState, effectiveStatus, quantityLeft } from "@/lib/listings/status";
+import type { ListingUnit } from "@/lib/match/types";
+import { amountToReserve } from "@/lib/needs/coverage";
+import type { NeedView } from "@/lib/needs/view";
+import { WHOLE_UNITS } from "@/lib/reservations/labels";
+import { loadReserveOffer, type ReserveOffer } from "@/lib/services/load-reserve-offer";
+import { resolveContext, type NeedsContext } from "./context";
+import { needViews } from "./list-needs";
+
+/** An in-app notice: a listing that could serve one of my open needs (public facts about it only). */
+export interface AlertView {
+  id: string;
+  created_at: string;
+  seen: boolean;
+  need: { id: string; material: MaterialCode; status: string; bed: { id: string; name: string } | null };
+  listing: {
+    id: string;
+    title: string;
+    material: MaterialCode;
+    supplier: string;
+    /** From the need's place to the listing's public point. */
+    distance_km: number;
+    quantity_available: number;
+    unit: ListingUnit;
+    price_cents: number;
+    deposit_cents: number;
+    currency: string;
+    status: string;
+    reservable_from: string | null;
+  };
+}
+
+interface AlertJoin {
+  id: string;
+  created_at: string;
+  seen_at: string | null;
+  distance_km: number;
+  need_id: string;
+  need_material: MaterialCode;
+  need_status: string;
+  bed_id: string | null;
+  bed_name: string | null;
+  listing_id: string;
+  title: string;
+  material_code: MaterialCode;
+  supplier: string;
+  unit: ListingUnit;
+  quantity_total: number;
+  quantity_held: number;
+  quantity_collected: number;
+  price_cents: number;
+  deposit_cents: number;
+  currency: string;
+  status: string;
+  available_from: string | null;
+  available_until: string | null;
+}
+
+function toView(r: AlertJoin, now: Date): AlertView {
+  const status = effectiveStatus(r.status as never, r.available_until, now);
+  return {
+    id: r.id,
+    created_at: r.created_at,
+    seen: r.seen_at !== null,
+    need: { id: r.need_id, material: r.need_material, status: r.need_status, bed: r.bed_id && r.bed_name ? { id: r.bed_id, name: r.bed_name } : null },
+    listing: {
+      id: r.listing_id,
+      title: r.title,
+      material: r.material_code,
+      supplier: r.supplier,
+      distance_km: Math.round(Number(r.distance_km) * 10) / 10,
+      quantity_available: quantityLeft(r),
+      unit: r.unit,
+      price_cents: Number(r.price_cents),
+      deposit_cents: Number(r.price_cents) > 0 ? 0 : Number(r.deposit_cents),
+      currency: r.currency,
+      status,
+      reservable_from: datesState(r, now) === "not_yet" ? r.available_from : null,
+    },
+  };
+}
+
+function alertQuery(q: ReturnType<typeof resolveContext>["q"], userId: string) {
+  return q("need_alerts as a")
+    .join("needs as n", "n.id", "a.need_id")
+    .join("listings as l", "l.id", "a.listing_id")
+    .join("users as s", "s.id", "l.owner_id")
+    .leftJoin("organisations as o", "o.id", "l.organisation_id")
+    .leftJoin("beds as b", "b.id", "n.bed_id")
+    .select(
+      "a.id",
+      "a.created_at",
+      "a.seen_at",
+      "a.distance_km",
+      "a.need_id",
+      "n.material_code as need_material",
+      "n.status as need_status",
+      "n.bed_id",
+      "b.name as bed_name",
+      "a.listing_id",
+      "l.title",
+      "l.material_code",
+      // A council's listing is the council's, whoever typed it in (as on the listing page).
+      q.raw("coalesce(o.name, s.display_name) as supplier"),
+      "l.unit",
+      "l.quantity_total",
+      "l.quantity_held",
+      "l.quantity_collected",
+      "l.price_cents",
+      "l.deposit_cents",
+      "l.currency",
+      "l.status",
+      "l.available_from",
+      "l.available_until",
+    )
+    .where("a.user_id", userId)
+    .whereNull("a.dismissed_at");
+}
+
+/** GET /api/needs/alerts: my notices, newest first, for needs still open (or all of them). */
+export async function listAlerts(userId: string, opts: { openOnly?: boolean } = {}, ctx: NeedsContext = {}): Promise<AlertView[]> {
+  const { q, clock } = resolveContext(ctx);
+  const b = alertQuery(q, userId).orderBy([{ column: "a.created_at", order: "desc" }, { column: "a.id", order: "desc" }]).limit(200);
+  if (opts.openOnly) b.andWhere("n.status", "open");
+  const now = clock();
+  return ((await b) as AlertJoin[]).map((r) => toView(r, now));
+}
+
+/** How many notices on open needs I have not looked at (the count beside "My needs"). */
+export async function countNewAlerts(userId: string, ctx: NeedsContext = {}): Promise<number> {
+  return unseenAlerts(userId, resolveContext(ctx).q);
+}
+
+/** PATCH /api/needs/alerts/:id: mark seen, or dismiss. Anyone else's notice is a 404. */
+export async function updateAlert(userId: string, id: string, change: { seen?: boolean; dismissed?: boolean }, ctx: NeedsContext = {}): Promise<void> {
+  const { q, clock } = resolveContext(ctx);
+  const at = clock().toISOString();
+  const mine = await q("need_alerts").first("id").where({ id, user_id: userId });
+  if (!mine) throw notFound("That alert");
+  if (change.dismissed) await dismissAlert(userId, id, at, q);
+  else if (change.seen) await markAlertsSeen(userId, [id], at, q);
+}
+
+export interface AlertPage {
+  alert: AlertView;
+  need: NeedView;
+  offer: ReserveOffer | null;
+  cautions: ListingCaution[];
+  /** What one click reserves, in the listing's unit (0: nothing to reserve). */
+  amount: number;
+}
+
+/** The alert page: the notice, my need as it stands, the listing's reservable facts, and what one click takes. Marks it seen. */
+export async function loadAlertPage(userId: string, id: string, ctx: NeedsContext = {}): Promise<AlertPage | null> {
+  const { q, clock } = resolveContext(ctx);
+  const now = clock();
+  const row = (await alertQuery(q, userId).andWhere("a.id", id).first()) as AlertJoin | undefined;
+  if (!row) return null;
+  const needRow = await findOwnNeed(row.need_id, userId, q);
+  if (!needRow) return null;
+  const [need] = await needViews([needRow], q, now);
+  const offer = await loadReserveOffer(row.listing_id, now);
+  const listing = await q("listings").first("quality", "unit_size", "unit_mass_kg", "max_per_reservation").where({ id: row.listing_id });
+  let quality: Record<string, unknown> = {};
+  try {
+    quality = JSON.parse(listing?.quality ?? "{}");
+  } catch {
+    // An unreadable declaration: the material's general cautions still apply.
+  }
+  const cautions = listingCautions({ material: row.material_code, unit: row.unit, unit_mass_kg: listing?.unit_mass_kg ?? null, quality });
+  const amount =
+    offer && need.status === "open"
+      ? amountToReserve(need.quantity_left, need.unit, {
+          material: offer.material,
+          unit: offer.unit,
+          unit_size: offer.unit_size,
+          unit_mass_kg: offer.unit_mass_kg,
+          available: WHOLE_UNITS.has(offer.unit) ? Math.floor(offer.available + 1e-9) : offer.available,
+          max_per_reservation: offer.max_per_reservation,
+        })
+      : 0;
+  await markAlertsSeen(userId, [id], now.toISOString(), q);
+  return { alert: toView(row, now), need, offer, cautions, amount };
+}
+

@@ -1,0 +1,41 @@
+import "server-only";
+import { openNeedsInBox, type DemandSourceRow } from "@/db/needs";
+import type { MaterialCode } from "@/lib/calc/facts";
+import { demandRings, MIN_PEOPLE, PREVIEW_READ_KM, type DemandRing, type DemandRow } from "@/lib/needs/demand";
+import { cellOf } from "@/lib/needs/grid";
+import { consume, LIMITS } from "@/lib/security/rate-limit";
+import { dayOf, resolveContext, type NeedsContext } from "./context";
+
+/** Past a cell's half-diagonal at both ends, a need counted between cell centres may lie this much further out, km. */
+const CELL_SLACK_KM = 3;
+
+export const toDemandRow = (r: DemandSourceRow): DemandRow => ({
+  owner_id: r.owner_id,
+  material: r.material_code,
+  quantity: Number(r.quantity),
+  unit: r.unit,
+  radius_km: Number(r.radius_km),
+  needed_by: r.needed_by,
+  lat: Number(r.lat),
+  lng: Number(r.lng),
+});
+
+export interface NearbyDemand {
+  material: MaterialCode;
+  rings: DemandRing[];
+  min_people: number;
+}
+
+/**
+ * GET /api/needs/nearby-demand: how many open needs a listing of `material` at a point would
+ * serve within 5, 10 and 25 km, and what they add up to, in rounded, anonymous figures
+ * (lib/needs/demand.ts). Counted per account, so nobody can sweep a town with it.
+ */
+export async function nearbyDemand(askerId: string, point: { lat: number; lng: number }, material: MaterialCode, ctx: NeedsContext = {}): Promise<NearbyDemand> {
+  const { q, clock } = resolveContext(ctx);
+  const now = clock();
+  await consume([[LIMITS.demandPreview, askerId]], clock, q);
+  const centre = cellOf(point.lat, point.lng).centre;
+  const rows = await openNeedsInBox({ centre, km: PREVIEW_READ_KM + CELL_SLACK_KM }, dayOf(now), [material], q);
+  return { material, rings: demandRings(rows.map(toDemandRow), point, material, askerId), min_people: MIN_PEOPLE };
+}
