@@ -1,7 +1,7 @@
 import "server-only";
 import { db } from "@/db/index";
 import { availableOf, listingsForReservation, pickupWindowsOf } from "@/db/reservations";
-import { ratingsFor } from "@/db/reviews";
+import { collectionsFor, ratingsFor } from "@/db/reviews";
 import { nextOccurrence, windowLabel } from "@/lib/reservations/pickup-times";
 import { holdMinutes } from "@/lib/reservations/policy";
 import { WHOLE_UNITS } from "@/lib/reservations/labels";
@@ -23,11 +23,12 @@ export async function loadReserveOffer(listingId: string, now = new Date()) {
   if (!l || l.status === "draft" || l.status === "hidden") return null;
   // Nobody can take 0.7 of a bale, whatever the listing's total says.
   const available = WHOLE_UNITS.has(l.unit) ? Math.floor(availableOf(l) + 1e-9) : availableOf(l);
-  const [windows, owner, ratings, culture] = await Promise.all([
+  const [windows, owner, ratings, culture, collections] = await Promise.all([
     pickupWindowsOf([l.id]),
     db()("users").first("display_name", "verified_at").where({ id: l.owner_id }),
     ratingsFor([l.owner_id]),
     cultureOffer({ material: l.material_code, owner_id: l.owner_id, quality: qualityOf(l.quality), available }, now),
+    collectionsFor([l.owner_id]),
   ]);
   return {
     id: l.id,
@@ -49,7 +50,7 @@ export async function loadReserveOffer(listingId: string, now = new Date()) {
     currency: l.currency,
     auto_accept: Boolean(l.auto_accept),
     hold_minutes: holdMinutes(),
-    supplier: { name: owner?.display_name ?? "The supplier", verified: Boolean(owner?.verified_at), rating: ratings.get(l.owner_id) ?? null },
+    supplier: { name: owner?.display_name ?? "The supplier", verified: Boolean(owner?.verified_at), rating: ratings.get(l.owner_id) ?? null, collections: collections.get(l.owner_id) ?? 0 },
     /** Live cultures only: how it can reach the buyer, and the grower's posting days or pause. */
     culture,
     windows: windows
