@@ -32,16 +32,17 @@ export function BrowseView({ initial, system, beds, signedIn }: { initial: { fil
   const query = useListings(filters, initial);
   const loaded = useMemo(() => query.data?.pages.flatMap((p) => p.items) ?? [], [query.data]);
   // How much and when are answered here, from what the page holds.
+  // "Still there in a week" counts from when the page opened.
+  const [weekOn] = useState(() => Date.now() + WEEK_MS);
   const items = useMemo(() => {
     const minL = AMOUNT_CHOICES.find((c) => c.id === filters.amount)?.min_l ?? 0;
-    const weekOn = Date.now() + WEEK_MS;
     return loaded.filter(
       (i) =>
         handedLitres(i) >= minL &&
         (filters.when !== "now" || !i.reservable_from) &&
         (filters.when !== "week" || !i.available_until || new Date(i.available_until).getTime() >= weekOn),
     );
-  }, [loaded, filters.amount, filters.when]);
+  }, [loaded, filters.amount, filters.when, weekOn]);
 
   // The address bar follows the filters (without a server round trip), so a search can be shared.
   useEffect(() => {
