@@ -4,7 +4,7 @@
 import { execFileSync } from "node:child_process";
 import { randomUUID } from "node:crypto";
 import { expect, test, type Browser, type Page } from "./fixtures";
-import { latestMail, payOnCheckoutPage, run, sql } from "./exchange";
+import { latestMail, payOnCheckoutPage, run, sql, typeOnCheckoutPage } from "./exchange";
 import { DEMO_PASSWORD, storageState } from "./roles";
 
 const shots = (name: string) => `${process.env.E2E_DIR ?? "test-results"}/shots/${name}.png`;
@@ -148,7 +148,7 @@ test("a declined card holds the bales only until the hold runs out", async ({ br
   await g.page.getByRole("button", { name: /^Reserve and pay/ }).click();
   await g.page.waitForURL(/\/pay\/cs_test_/);
   const checkoutUrl = g.page.url();
-  await payOnCheckoutPage(g.page, "4000 0000 0000 0002");
+  await typeOnCheckoutPage(g.page, "4000 0000 0000 0002");
   await expect(g.page.getByRole("alert")).toContainText("declined");
   await g.page.screenshot({ path: shots("checkout-declined"), fullPage: true });
   expect(sql("select quantity_held from listings where id = ?", straw.id)[0].quantity_held).toBe(heldBefore + 3);
