@@ -68,3 +68,9 @@ export async function reservedForBeds(bedIds: string[], q: Db = db()) {
     unit_mass_kg: number | null;
   }[];
 }
+
+/** How many beds have been planned on Duffbank and the ground they cover, for the home page. */
+export async function bedTotals(q: Db = db()): Promise<{ beds: number; area_m2: number }> {
+  const row = (await q("beds").count({ n: "*" }).sum({ area: "area_m2" }).first()) as { n: number | string; area: number | string | null } | undefined;
+  return { beds: Number(row?.n ?? 0), area_m2: Number(row?.area ?? 0) };
+}

@@ -237,9 +237,10 @@ test("the council owner invites a colleague who joins first, accepts, and is rem
   await newcomer.close();
 });
 
-test("the home page shows how much has been kept from the bin", async ({ page }) => {
+test("the home page shows how much has been passed on", async ({ page }) => {
   await page.goto("/");
-  await expect(page.getByRole("heading", { name: "Kept from the bin so far" })).toBeVisible();
+  await expect(page.getByRole("heading", { name: "Where the layers come from" })).toBeVisible();
+  await expect(page.getByRole("heading", { name: "A bed's first year" })).toBeVisible();
   // The figure is collected reservations only: the seed's five November pickups
   // (seeds/exchanges.ts; reservations.spec.ts, which collects more, runs after this file):
   //   8 sheets × 0.8 m² × 0.5 kg/m² (from memory)                          =   3.2 kg
