@@ -63,6 +63,8 @@ export interface ReservationView {
     shipped_at: string | null;
     estimated_count: number;
     actions: OrderAction[];
+    /** The grower's posting days and whether posting is paused (posted orders). */
+    posting: { days: string[]; paused: boolean } | null;
   } | null;
 }
 
@@ -75,7 +77,7 @@ export interface ViewInput {
   history: ReservationEventRow[];
   reviews: { author_id: string; rating: number; comment: string }[];
   /** The grower's posting pause, for whether "shipped" can be offered. */
-  shipping?: { paused: boolean };
+  shipping?: { paused: boolean; ship_days?: string[] };
 }
 
 const REVEALED = new Set(["confirmed", "collected", "no_show"]);
@@ -173,6 +175,7 @@ export function reservationView({ r, side, viewerId, now, payments, history, rev
           shipped_at: r.shipped_at,
           estimated_count: estimatedWorms(r.quantity),
           actions: allowedOrderActions(r, side, { postingPaused: !!shipping?.paused }),
+          posting: r.fulfilment === "post" ? { days: shipping?.ship_days ?? [], paused: !!shipping?.paused } : null,
         }
       : null,
   };

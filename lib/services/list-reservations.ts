@@ -7,6 +7,7 @@ import { historyOf, reservationIdsFor, sideOf } from "@/db/reservations";
 import { ApiError } from "@/lib/api/errors";
 import type { Side } from "@/lib/reservations/policy";
 import { reservationView, type ReservationView } from "@/lib/reservations/view";
+import { shippingView, type ShippingView } from "./grower-shipping";
 
 // Reading reservations for one side: a gardener's own, or the requests on a supplier's
 // (or their organisation's) listings. Other people's reservations are simply not found.
@@ -20,7 +21,14 @@ async function views(ids: string[], viewerId: string, side: Side, q: Knex, now: 
   ]);
   // Growers who paused posting: their parcels cannot be marked shipped until it resumes.
   const growers = [...new Set(contexts.filter((r) => r.fulfilment === "post").map((r) => r.listing.owner_id))];
-  const paused = new Set<string>(growers.length ? await q("grower_shipping").whereIn("user_id", growers).andWhere("paused", true).pluck("user_id") : []);
+  // Their posting days too, so a buyer sees when the box goes out.
+  const rows: { user_id: string; ship_weekdays: string; paused: boolean | 0 | 1; pause_reason: ShippingView["pause_reason"]; pause_note: string | null }[] = growers.length
+    ? await q("grower_shipping").select("user_id", "ship_weekdays", "paused", "pause_reason", "pause_note").whereIn("user_id", growers)
+    : [];
+  const shippingOf = (owner: string) => {
+    const v = shippingView(rows.find((row) => row.user_id === owner));
+    return { paused: v.paused, ship_days: v.ship_days };
+  };
   return contexts.map((r) =>
     reservationView({
       r,
@@ -30,7 +38,7 @@ async function views(ids: string[], viewerId: string, side: Side, q: Knex, now: 
       payments: payments.filter((p) => p.reservation_id === r.id),
       history: history.filter((h) => h.reservation_id === r.id),
       reviews: (reviews as { reservation_id: string; author_id: string; rating: number; comment: string }[]).filter((v) => v.reservation_id === r.id),
-      shipping: { paused: paused.has(r.listing.owner_id) },
+      shipping: shippingOf(r.listing.owner_id),
     }),
   );
 }

@@ -102,7 +102,10 @@ test("a gardener buys a worm culture by post, the grower packs and ships it, and
   await page.goto(`/reservations#r-${id}`);
   const mine = page.locator(`#r-${id}`);
   await expect(mine).toContainText("In the post with Fernhollow Parcel Post");
-  await expect(mine.locator('[aria-current="step"]')).toContainText("Shipped");
+  await expect(mine.locator('[aria-current="step"]')).toContainText("In the post");
+  // What matters for live animals on the way: the temperatures, and opening the box at once.
+  await expect(mine.getByRole("list", { name: "The culture's journey" })).toContainText("55–78 °F");
+  await expect(mine.getByRole("list", { name: "The culture's journey" })).toContainText("Open the box within a day");
   await page.screenshot({ path: shot("grower-buyer-phone"), fullPage: true });
   await mine.getByRole("button", { name: "It has arrived" }).click();
   await expect(mine).toContainText(/Delivered /);

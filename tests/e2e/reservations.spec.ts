@@ -73,7 +73,7 @@ test("a gardener pays for straw, the farm accepts, the pickup code closes it, an
   await expect(request1).toContainText("€9.00 paid");
   await farm.page.screenshot({ path: shots("requests-waiting"), fullPage: true });
   await request1.getByRole("button", { name: "Accept" }).click();
-  await expect(request1.getByText("Confirmed", { exact: true })).toBeVisible();
+  await expect(request1.getByText("Agreed", { exact: true })).toBeVisible();
 
   const confirmed = await latestMail(request, "gardener@duffbank.test", /^Confirmed: 2 bales/);
   expect(confirmed.text).toContain(straw.address);
@@ -168,7 +168,7 @@ test("a declined card holds the bales only until the hold runs out", async ({ br
   });
   expect(sql("select quantity_held from listings where id = ?", straw.id)[0].quantity_held).toBe(heldBefore);
   await g.page.reload();
-  await expect(card(g.page, `3 bales of ${straw.title}`).getByText("Hold ran out", { exact: true })).toBeVisible();
+  await expect(card(g.page, `3 bales of ${straw.title}`).getByText("No answer in time", { exact: true })).toBeVisible();
   // The checkout closed with it: the old link takes no money.
   await g.page.goto(checkoutUrl);
   await expect(g.page.getByRole("heading", { name: "This payment link has expired" })).toBeVisible();
@@ -192,7 +192,7 @@ test("a no-show keeps the deposit", async ({ browser, request }) => {
   const req = card(s.page, `1 bag of ${leaves.title}`);
   await expect(req).toContainText("€2.00 deposit on hold");
   await req.getByRole("button", { name: "Accept" }).click();
-  await expect(req.getByText("Confirmed", { exact: true })).toBeVisible();
+  await expect(req.getByText("Agreed", { exact: true })).toBeVisible();
   await expect(req.getByRole("button", { name: "They did not come" })).toHaveCount(0);
 
   // Test-only: move this pickup into the past in the e2e database.
@@ -201,7 +201,7 @@ test("a no-show keeps the deposit", async ({ browser, request }) => {
   await s.page.reload();
   await req.getByRole("button", { name: "They did not come" }).click();
   await req.getByRole("button", { name: "Record a no-show" }).click();
-  await expect(req.getByText("Not collected", { exact: true })).toBeVisible();
+  await expect(req.getByText("Nobody came", { exact: true })).toBeVisible();
   await expect.poll(async () => {
     await s.page.reload();
     return (await card(s.page, `1 bag of ${leaves.title}`).textContent()) ?? "";
