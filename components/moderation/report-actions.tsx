@@ -1,6 +1,7 @@
 "use client";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
+import { Dialog } from "@/components/ui/dialog";
 import { Notice } from "@/components/ui/notice";
 import { useApiAction } from "@/components/ui/use-api-action";
 
@@ -20,13 +21,22 @@ export function ReportActions(p: ReportActionsProps) {
   const action = useApiAction();
   const [note, setNote] = useState("");
   const [noteError, setNoteError] = useState<string | null>(null);
+  // A step that takes something away from someone waits for a second, deliberate yes.
+  const [confirm, setConfirm] = useState<{ title: string; yes: string; path: string; body: Record<string, unknown> } | null>(null);
   const noteId = `note-${p.reportId}`;
-  const go = (path: string, body: Record<string, unknown>) => {
+  const noted = () => {
     if (note.trim().length < 3) {
       setNoteError("Write a short note first (at least 3 characters): it goes into the audit log.");
-      return;
+      return false;
     }
     setNoteError(null);
+    return true;
+  };
+  const ask = (c: NonNullable<typeof confirm>) => {
+    if (noted()) setConfirm(c);
+  };
+  const go = (path: string, body: Record<string, unknown>) => {
+    if (!noted()) return;
     void action.run(path, { body: { ...body, note: note.trim() } }, () => {
       if (path.endsWith("/close")) setNote("");
     });
@@ -50,20 +60,20 @@ export function ReportActions(p: ReportActionsProps) {
       </p>
       {action.error ? <Notice tone="error">{action.error}</Notice> : null}
       <div className="flex flex-wrap gap-2">
-        {p.listingId ? (
-          <Button variant={p.listingHidden ? "secondary" : "danger"} disabled={action.busy} onClick={() => go(`/api/moderation/listings/${p.listingId}`, { action: p.listingHidden ? "restore" : "hide", report_id: p.reportId })}>
-            {p.listingHidden ? "Show the listing again" : "Hide the listing"}
+        {p.listingId && p.listingHidden ? (
+          <Button variant="secondary" disabled={action.busy} onClick={() => go(`/api/moderation/listings/${p.listingId}`, { action: "restore", report_id: p.reportId })}>
+            Show the listing again
+          </Button>
+        ) : null}
+        {p.userId && p.suspended ? (
+          <Button variant="secondary" disabled={action.busy} onClick={() => go(`/api/moderation/users/${p.userId}`, { action: "restore", report_id: p.reportId })}>
+            Lift {p.userName}&apos;s suspension
           </Button>
         ) : null}
         {p.userId ? (
-          <>
-            <Button variant={p.suspended ? "secondary" : "danger"} disabled={action.busy} onClick={() => go(`/api/moderation/users/${p.userId}`, { action: p.suspended ? "restore" : "suspend", report_id: p.reportId })}>
-              {p.suspended ? `Lift ${p.userName}'s suspension` : `Suspend ${p.userName}`}
-            </Button>
-            <Button variant="secondary" disabled={action.busy} onClick={() => go(`/api/moderation/users/${p.userId}`, { action: p.verified ? "unverify" : "verify", report_id: p.reportId })}>
-              {p.verified ? "Remove the verified badge" : "Verify as a supplier"}
-            </Button>
-          </>
+          <Button variant="secondary" disabled={action.busy} onClick={() => go(`/api/moderation/users/${p.userId}`, { action: p.verified ? "unverify" : "verify", report_id: p.reportId })}>
+            {p.verified ? "Take back “checked by Duffbank”" : "Mark as checked by Duffbank"}
+          </Button>
         ) : null}
         {p.open ? (
           <Button disabled={action.busy} onClick={() => go(`/api/moderation/reports/${p.reportId}/close`, {})}>
@@ -71,6 +81,58 @@ export function ReportActions(p: ReportActionsProps) {
           </Button>
         ) : null}
       </div>
+      {(p.listingId && !p.listingHidden) || (p.userId && !p.suspended) ? (
+        <div className="flex flex-col gap-2 rounded-lg border-2 border-dashed border-ember-600/60 bg-ember-100/50 p-3">
+          <p className="text-sm font-semibold text-ember-800">Takes something away: asks again before it acts</p>
+          <div className="flex flex-wrap gap-2">
+            {p.listingId && !p.listingHidden ? (
+              <Button
+                variant="danger"
+                disabled={action.busy}
+                onClick={() => ask({ title: "Hide this listing?", yes: "Yes, hide the listing", path: `/api/moderation/listings/${p.listingId}`, body: { action: "hide", report_id: p.reportId } })}
+              >
+                Hide the listing
+              </Button>
+            ) : null}
+            {p.userId && !p.suspended ? (
+              <Button
+                variant="danger"
+                disabled={action.busy}
+                onClick={() => ask({ title: `Suspend ${p.userName}?`, yes: `Yes, suspend ${p.userName}`, path: `/api/moderation/users/${p.userId}`, body: { action: "suspend", report_id: p.reportId } })}
+              >
+                Suspend {p.userName}
+              </Button>
+            ) : null}
+          </div>
+        </div>
+      ) : null}
+      <Dialog
+        open={confirm !== null}
+        onClose={() => setConfirm(null)}
+        title={confirm?.title ?? ""}
+        footer={
+          <>
+            <Button variant="secondary" onClick={() => setConfirm(null)}>
+              Keep it as it is
+            </Button>
+            <Button
+              variant="danger"
+              disabled={action.busy}
+              onClick={() => {
+                const c = confirm!;
+                setConfirm(null);
+                go(c.path, c.body);
+              }}
+            >
+              {confirm?.yes ?? "Yes"}
+            </Button>
+          </>
+        }
+      >
+        <p>
+          Your note goes into the audit log with it: <q>{note.trim()}</q>
+        </p>
+      </Dialog>
     </div>
   );
 }

@@ -149,7 +149,9 @@ test("a moderator hides a reported listing and it is gone from browse", async ({
   await expect(card).toContainText("Rowan Pike");
   await expect(card).toContainText("Ines Okafor");
   await card.getByLabel(/Note for the record/).fill("Hidden while the supplier sorts the bags.");
+  // Hiding takes something away, so it asks again first.
   await card.getByRole("button", { name: "Hide the listing" }).click();
+  await m.getByRole("dialog", { name: "Hide this listing?" }).getByRole("button", { name: "Yes, hide the listing" }).click();
   await expect(card.getByRole("button", { name: "Show the listing again" })).toBeVisible();
   await m.screenshot({ path: shot("moderation-queue"), fullPage: true });
   await card.getByLabel(/Note for the record/).fill("We hid the listing and wrote to the supplier.");
