@@ -1,12 +1,13 @@
 import Link from "next/link";
 import { Wordmark } from "@/components/ui/logo";
-import { navFor } from "@/lib/auth/navigation";
+import { navGroupsFor, type NavGroup, type NavLink } from "@/lib/auth/navigation";
 import type { SessionUser } from "@/lib/auth/current-user";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { SignOutButton } from "@/components/auth/sign-out-button";
+import { NavMenu } from "./nav-menu";
 
 export function SiteHeader({ user }: { user: SessionUser | null }) {
-  const links = navFor(user?.roles ?? null);
+  const links = navGroupsFor(user?.roles ?? null);
   return (
     <header className="border-b border-humus-200 bg-white">
       <a href="#main" className="skip-link">
@@ -30,22 +31,54 @@ export function SiteHeader({ user }: { user: SessionUser | null }) {
   );
 }
 
-function NavList({ links, user, vertical = false }: { links: { href: string; label: string }[]; user: SessionUser | null; vertical?: boolean }) {
+const linkClass = "block whitespace-nowrap rounded-lg px-3 py-2 font-medium text-humus-800 hover:bg-humus-100";
+
+/** The navigation: menus by task in the row, the same groups under headings in the phone menu. */
+function NavList({ links, user, vertical = false }: { links: (NavGroup | NavLink)[]; user: SessionUser | null; vertical?: boolean }) {
+  const org = user?.organisation?.name;
   return (
     <nav aria-label="Main">
-      <ul className={`flex gap-1 ${vertical ? "flex-col" : "flex-wrap items-center justify-end"}`}>
-        {links.map((l) => (
-          <li key={l.href}>
-            <Link href={l.href} className="block whitespace-nowrap rounded-lg px-3 py-2 font-medium text-humus-800 hover:bg-humus-100">
-              {l.label}
-            </Link>
-          </li>
-        ))}
+      <ul className={`flex gap-1 ${vertical ? "flex-col" : "items-center justify-end"}`}>
+        {links.map((entry) =>
+          "links" in entry ? (
+            <li key={entry.label}>
+              {vertical ? (
+                <>
+                  <p className="px-3 pt-2 text-sm font-semibold text-humus-600">{entry.label}</p>
+                  <ul>
+                    {entry.links.map((l) => (
+                      <li key={l.href}>
+                        <Link href={l.href} className={linkClass}>
+                          {l.label}
+                        </Link>
+                      </li>
+                    ))}
+                  </ul>
+                </>
+              ) : (
+                <NavMenu label={entry.label} links={entry.links} />
+              )}
+            </li>
+          ) : (
+            <li key={entry.href}>
+              <Link href={entry.href} className={linkClass}>
+                {entry.label}
+              </Link>
+            </li>
+          ),
+        )}
         {user ? (
           <>
-            <li>
-              <Link href="/profile" className="block max-w-[14rem] truncate rounded-lg px-3 py-2 font-medium text-humus-800 hover:bg-humus-100" title={user.roles.map((r) => ROLE_LABELS[r]).join(", ")}>
-                {user.name}
+            <li className={vertical ? "border-t border-humus-200 pt-1" : "ml-2"}>
+              {/* Long names, a council's especially, are cut short here; the whole name is the link's title and accessible name. */}
+              <Link
+                href="/profile"
+                className="flex max-w-[13rem] flex-col rounded-lg px-3 py-1 leading-tight text-humus-800 hover:bg-humus-100"
+                title={[user.name, org, user.roles.map((r) => ROLE_LABELS[r]).join(", ")].filter(Boolean).join(" · ")}
+                aria-label={`Your profile: ${user.name}${org ? `, ${org}` : ""}`}
+              >
+                <span className="truncate font-medium">{user.name}</span>
+                {org ? <span className="truncate text-sm text-humus-600" data-testid="org-name">{org}</span> : null}
               </Link>
             </li>
             <li>
