@@ -15,7 +15,12 @@ import { useToast } from "./toast";
 import { EmptyState, Spinner } from "./empty-state";
 import { tableClass, tableShell, headClass, rowClass } from "./data-table";
 
-const SWATCH_TEXT = (shade: number) => (shade >= 500 ? "text-white" : "text-humus-900");
+// White or dark ink on a swatch, whichever reads better (WCAG relative luminance).
+function luminance(hex: string): number {
+  const [r, g, b] = [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16) / 255).map((c) => (c <= 0.03928 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4));
+  return 0.2126 * r + 0.7152 * g + 0.0722 * b;
+}
+const SWATCH_TEXT = (hex: string) => (1.05 / (luminance(hex) + 0.05) >= (luminance(hex) + 0.05) / (luminance(PALETTE.humus[900]) + 0.05) ? "text-white" : "text-humus-900");
 
 export function StyleGuide() {
   const [open, setOpen] = useState(false);
@@ -29,7 +34,7 @@ export function StyleGuide() {
             <div key={family} className="flex flex-wrap gap-1">
               <span className="w-16 font-semibold">{family}</span>
               {Object.entries(PALETTE[family]).map(([shade, hex]) => (
-                <span key={shade} className={`rounded px-2 py-1 text-xs ${SWATCH_TEXT(Number(shade))}`} style={{ background: hex }}>
+                <span key={shade} className={`rounded px-2 py-1 text-xs ${SWATCH_TEXT(hex)}`} style={{ background: hex }}>
                   {shade} {hex}
                 </span>
               ))}
