@@ -3,7 +3,7 @@
 // declined card that runs out; a no-show that keeps the deposit; and the hold under load.
 import { execFileSync } from "node:child_process";
 import { randomUUID } from "node:crypto";
-import { expect, test, type Browser, type Page } from "./fixtures";
+import { expect, test, type Browser, type Page, expectAccessible } from "./fixtures";
 import { latestMail, payOnCheckoutPage, run, sql, typeOnCheckoutPage } from "./exchange";
 import { DEMO_PASSWORD, storageState } from "./roles";
 
@@ -58,6 +58,7 @@ test("a gardener pays for straw, the farm accepts, the pickup code closes it, an
   const reservationId = newestReservation(straw.id);
   await expect(g.page.getByRole("heading", { name: "Pay €9.00" })).toBeVisible();
   await g.page.screenshot({ path: shots("checkout-page"), fullPage: true });
+  await expectAccessible(g.page, "the local test checkout");
   await payOnCheckoutPage(g.page, "4242 4242 4242 4242");
   await g.page.waitForURL(/\/reservations\/paid\?session_id=cs_test_/);
   await expect(g.page.getByRole("heading", { name: "Payment received" })).toBeVisible({ timeout: 20_000 });
