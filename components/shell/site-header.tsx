@@ -70,13 +70,13 @@ function NavList({ links, user, vertical = false }: { links: (NavGroup | NavLink
         {user ? (
           <>
             <li className={vertical ? "border-t border-humus-200 pt-1" : "ml-2"}>
-              {/* Long names, a council's especially, are cut short here; the whole name is the link's title and accessible name. */}
+              {/* Long names, a council's especially, are cut short on screen; the whole name stays in the text (read out) and the title. */}
               <Link
                 href="/profile"
                 className="flex max-w-[13rem] flex-col rounded-lg px-3 py-1 leading-tight text-humus-800 hover:bg-humus-100"
                 title={[user.name, org, user.roles.map((r) => ROLE_LABELS[r]).join(", ")].filter(Boolean).join(" · ")}
-                aria-label={`Your profile: ${user.name}${org ? `, ${org}` : ""}`}
               >
+                <span className="sr-only">Your profile: </span>
                 <span className="truncate font-medium">{user.name}</span>
                 {org ? <span className="truncate text-sm text-humus-600" data-testid="org-name">{org}</span> : null}
               </Link>

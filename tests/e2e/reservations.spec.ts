@@ -117,14 +117,14 @@ test("a gardener pays for straw, the farm accepts, the pickup code closes it, an
   await expect(done.getByRole("radio", { name: "5 of 5, excellent" })).toBeChecked();
   await done.getByLabel("A line about it (optional)").fill("Dry bales, easy pickup.");
   await done.getByRole("button", { name: "Send review" }).click();
-  await expect(done.getByText(/You rated Hartwell Farm ★★★★★/)).toBeVisible();
+  await expect(done.getByText(/You gave Hartwell Farm 5 of 5 \(excellent\)/)).toBeVisible();
 
   await farm.page.reload();
   const theirs = cardById(farm.page, reservationId);
   await theirs.locator("label").filter({ hasText: "4 of 5, good" }).click();
   await theirs.getByRole("button", { name: "Send review" }).click();
-  await expect(theirs.getByText(/You rated Ines Okafor ★★★★/)).toBeVisible();
-  await expect(theirs.getByText(/Ines Okafor rated you ★★★★★/)).toBeVisible();
+  await expect(theirs.getByText(/You gave Ines Okafor 4 of 5 \(good\)/)).toBeVisible();
+  await expect(theirs.getByText(/Ines Okafor gave you 5 of 5 \(excellent\)/)).toBeVisible();
   await farm.page.screenshot({ path: shots("requests-reviewed"), fullPage: true });
 
   // The supplier's average now shows where gardeners choose.
