@@ -39,8 +39,8 @@ export function fitLine(l: FitListing, need: FitNeed | undefined, bedName: strin
   const fit = fitOf(l, need);
   if (!fit) return null;
   const total = formatListingQuantity(fit.needed, l.unit, system);
-  if (fit.covered >= fit.needed) return `covers all ${total} ${bedName} still needs`;
-  return `covers ${formatListingQuantity(fit.covered, l.unit, system).replace(/ \S+$/, "")} of the ${total} ${bedName} still needs`;
+  if (fit.covered >= fit.needed) return `covers all ${total} still needed for ${bedName}`;
+  return `covers ${formatListingQuantity(fit.covered, l.unit, system).replace(/ \S+$/, "")} of the ${total} still needed for ${bedName}`;
 }
 
 /** Litres a listing's whole amount takes up as handed over, for the "how much" filter. */

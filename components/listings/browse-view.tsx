@@ -69,7 +69,7 @@ export function BrowseView({ initial, system, beds, signedIn }: { initial: { fil
     const out: Partial<Record<LaneId, string>> = {};
     for (const n of bed.needs) {
       const l = laneOf(n.material);
-      out[l] = n.quantity > 0 ? `${bed.name} needs ${formatQuantity(n.quantity, n.unit, system)}` : `${bed.name} has enough`;
+      out[l] = n.quantity > 0 ? `still needed: ${formatQuantity(n.quantity, n.unit, system)}` : "your bed has enough";
     }
     return out;
   }, [bed, system]);
@@ -264,6 +264,7 @@ function BedMode({ beds, bedId, onChoose, signedIn }: { beds: Bed[]; bedId: stri
       </label>
       <label className="flex min-h-11 items-center gap-2 font-medium">
         <input type="radio" name="browse-for" checked={bedId !== null} onChange={() => onChoose(beds[0].id)} /> For my bed
+        {beds.length === 1 ? <span className="font-normal text-humus-700">({beds[0].name})</span> : null}
       </label>
       {bedId !== null && beds.length > 1 ? (
         <label className="flex items-center gap-2 text-sm font-medium">

@@ -12,7 +12,7 @@ export function trustWords(s: TrustFacts): string[] {
   if (s.verified) words.push("checked by Duffbank");
   const n = s.collections ?? 0;
   words.push(n === 0 ? "no collections yet" : n === 1 ? "collected from once" : `collected from ${n} times`);
-  if (s.rating) words.push(`gardeners say ${s.rating.average.toFixed(1)} of 5 (${s.rating.count} ${s.rating.count === 1 ? "word" : "words"})`);
+  if (s.rating) words.push(`gardeners give ${s.rating.average.toFixed(1)} of 5 (${s.rating.count} ${s.rating.count === 1 ? "review" : "reviews"})`);
   return words;
 }
 
@@ -30,12 +30,16 @@ function CheckedMark() {
 export function TrustMarks({ supplier, className = "" }: { supplier: TrustFacts; className?: string }) {
   const [first, ...rest] = trustWords(supplier);
   return (
-    <span className={`inline-flex flex-wrap items-center gap-x-1.5 text-sm text-humus-700 ${className}`.trim()} data-testid="trust">
-      {supplier.verified ? <CheckedMark /> : null}
-      <span className={supplier.verified ? "font-medium text-moss-800" : undefined}>{first}</span>
-      {rest.map((w) => (
-        <span key={w}>· {w}</span>
-      ))}
+    <span className={`text-sm text-humus-700 ${className}`.trim()} data-testid="trust">
+      {supplier.verified ? (
+        <span className="inline-flex items-center gap-1 align-middle font-medium text-moss-800">
+          <CheckedMark />
+          {first}
+        </span>
+      ) : (
+        first
+      )}
+      {rest.map((w) => ` · ${w}`).join("")}
     </span>
   );
 }

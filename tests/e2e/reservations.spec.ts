@@ -135,7 +135,7 @@ test("a gardener pays for straw, the farm accepts, the pickup code closes it, an
     straw.id,
   );
   expect(n).toBeGreaterThanOrEqual(1);
-  await expect(g.page.getByText(`gardeners say ${avg.toFixed(1)} of 5 (${n} word${n === 1 ? "" : "s"})`)).toBeVisible();
+  await expect(g.page.getByText(`gardeners give ${avg.toFixed(1)} of 5 (${n} review${n === 1 ? "" : "s"})`)).toBeVisible();
   await g.context.close();
   await farm.context.close();
 });
