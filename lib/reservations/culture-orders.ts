@@ -35,8 +35,16 @@ export const STAGES_OF: Record<Fulfilment, OrderStage[]> = {
   pickup: ["paid", "collected"],
 };
 
-// A live culture's journey in the worm trade's words.
 export const ORDER_STAGE_LABELS: Record<OrderStage, string> = {
+  paid: "Paid",
+  packed: "Packed",
+  shipped: "Shipped",
+  delivered: "Delivered",
+  collected: "Collected",
+};
+
+/** The same stages as the buyer and the grower follow them on screen, in the worm trade's words. */
+export const JOURNEY_LABELS: Record<OrderStage, string> = {
   paid: "Paid for",
   packed: "Boxed in bedding",
   shipped: "In the post",
@@ -45,7 +53,7 @@ export const ORDER_STAGE_LABELS: Record<OrderStage, string> = {
 };
 
 /** "Paid" reads oddly for a free culture; it is simply confirmed. */
-export const stageLabel = (stage: OrderStage, amountCents: number) => (stage === "paid" && amountCents === 0 ? "Agreed" : ORDER_STAGE_LABELS[stage]);
+export const stageLabel = (stage: OrderStage, amountCents: number) => (stage === "paid" && amountCents === 0 ? "Agreed" : JOURNEY_LABELS[stage]);
 
 export const FULFILMENT_LABELS: Record<Fulfilment, string> = { pickup: "Collected from the grower", post: "Posted" };
 
