@@ -70,7 +70,7 @@ export function OrderPanel({ v }: { v: ReservationView }) {
           ) : null}
         </div>
       ) : null}
-      {order.actions.includes("ship") ? <ShipForm id={v.id} /> : null}
+      {order.actions.includes("ship") ? <ShipForm id={v.id} what={`${v.listing.title} for ${v.gardener.name}, ordered ${formatLocal(v.created_at)}`} /> : null}
       {error ? (
         <p role="alert" className="text-sm text-ember-600">
           {error.message}
@@ -80,7 +80,8 @@ export function OrderPanel({ v }: { v: ReservationView }) {
   );
 }
 
-function ShipForm({ id }: { id: string }) {
+// Named per order: a grower's page holds one of these forms for each order to post.
+function ShipForm({ id, what }: { id: string; what: string }) {
   const { run, busy, error } = useReservationAction(id);
   const form = useForm<z.input<typeof shipOrderSchema>>({ resolver: zodResolver(shipOrderSchema), defaultValues: { carrier: "", tracking: "" } });
   const fields = error && isApiError(error) ? error.fields : undefined;
@@ -88,7 +89,7 @@ function ShipForm({ id }: { id: string }) {
     await run("ship", values);
   });
   return (
-    <Form onSubmit={onSubmit} noValidate className="grid gap-x-3 sm:grid-cols-2" aria-label="Mark shipped">
+    <Form onSubmit={onSubmit} noValidate className="grid gap-x-3 sm:grid-cols-2" aria-label={`Mark shipped: ${what}`}>
       <Field label="Carrier" id={`carrier-${id}`} autoComplete="off" {...form.register("carrier")} error={form.formState.errors.carrier?.message ?? fields?.carrier} />
       <Field label="Tracking number or link" id={`tracking-${id}`} autoComplete="off" {...form.register("tracking")} error={form.formState.errors.tracking?.message ?? fields?.tracking} />
       <Button type="submit" disabled={!!busy} className="self-start sm:col-span-2 sm:justify-self-start">

@@ -11,6 +11,9 @@ const WIDTHS = [
   { name: "phone", width: 390, height: 844 },
 ] as const;
 
+// Each page is loaded, drawn and checked twice; a loaded machine needs more than the default minute.
+test.describe.configure({ timeout: 180_000 });
+
 async function look(page: Page, url: string, name: string, ready: (page: Page) => Promise<void>) {
   for (const size of WIDTHS) {
     await page.setViewportSize({ width: size.width, height: size.height });

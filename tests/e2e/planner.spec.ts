@@ -142,7 +142,7 @@ test("a gardener saves a bed, downloads its calendar, and gets the reminder on t
 test("the mix calculator works out a blend", async ({ page }) => {
   await page.goto("/mix");
   // Amounts as people have them: the default is two barrows of leaves and a bucket of clippings.
-  await expect(page.getByRole("button", { name: "Fallen leaves" })).toHaveAttribute("aria-pressed", "true");
+  await expect(page.getByRole("button", { name: "Fallen leaves", exact: true })).toHaveAttribute("aria-pressed", "true");
   await page.getByRole("button", { name: "Work out the mix" }).click();
   await expect(page.getByTestId("balance")).toContainText("Heavy on browns");
   await expect(page.getByTestId("squeeze")).toContainText("Squeeze test:");

@@ -108,7 +108,7 @@ test("a gardener pays for straw, the farm accepts, the pickup code closes it, an
   await expect(atGate.getByText(/not the code on this reservation/)).toBeVisible();
   await atGate.getByLabel("Pickup code").fill(code!.toLowerCase());
   await atGate.getByRole("button", { name: "Confirm pickup" }).click();
-  await expect(atGate.getByText("Collected", { exact: true })).toBeVisible();
+  await expect(atGate.getByText("Passed on", { exact: true })).toBeVisible();
   expect(sql("select quantity_collected from listings where id = ?", straw.id)[0].quantity_collected).toBeGreaterThanOrEqual(2);
 
   await g.page.reload();
