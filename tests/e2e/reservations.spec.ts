@@ -184,7 +184,7 @@ test("a no-show keeps the deposit", async ({ browser, request }) => {
   await g.page.getByLabel("How many bags").fill("1");
   await g.page.getByRole("button", { name: /^Reserve and place the €2\.00 deposit/ }).click();
   await g.page.waitForURL(/\/pay\/cs_test_/);
-  await expect(g.page.getByText(/places a hold on the card/)).toBeVisible();
+  await expect(g.page.getByText(/held on the test card now/)).toBeVisible();
   await payOnCheckoutPage(g.page, "4242 4242 4242 4242");
   await expect(g.page.getByRole("heading", { name: "Payment received" })).toBeVisible({ timeout: 20_000 });
 
