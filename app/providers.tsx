@@ -4,6 +4,7 @@ import { SessionProvider } from "next-auth/react";
 import { useState, type ReactNode } from "react";
 import type { UnitSystem } from "@/lib/calc/units";
 import { UnitsProvider } from "@/components/ui/units-context";
+import { ToastProvider } from "@/components/ui/toast";
 
 export function createQueryClient() {
   return new QueryClient({ defaultOptions: { queries: { staleTime: 30_000, retry: 1, refetchOnWindowFocus: false } } });
@@ -15,7 +16,7 @@ export function Providers({ children, units }: { children: ReactNode; units: Uni
     <SessionProvider>
       <QueryClientProvider client={client}>
         <UnitsProvider initial={units}>
-          {children}
+          <ToastProvider>{children}</ToastProvider>
         </UnitsProvider>
       </QueryClientProvider>
     </SessionProvider>

@@ -51,3 +51,26 @@ export async function bedsForReminders(q: Db = db()) {
     .andWhere("u.reminders_opt_out", false)
     .whereNull("u.suspended_at");
 }
+
+/** What is already reserved towards each bed (held, confirmed or collected), with the listing's unit shape. */
+export async function reservedForBeds(bedIds: string[], q: Db = db()) {
+  if (bedIds.length === 0) return [];
+  return (await q("reservations as r")
+    .join("listings as l", "l.id", "r.listing_id")
+    .select("r.bed_id", "r.quantity", "l.material_code as material", "l.unit", "l.unit_size", "l.unit_mass_kg")
+    .whereIn("r.bed_id", bedIds)
+    .whereIn("r.status", ["held", "confirmed", "collected"])) as {
+    bed_id: string;
+    quantity: number;
+    material: string;
+    unit: string;
+    unit_size: number | null;
+    unit_mass_kg: number | null;
+  }[];
+}
+
+/** How many beds have been planned on Duffbank and the ground they cover, for the home page. */
+export async function bedTotals(q: Db = db()): Promise<{ beds: number; area_m2: number }> {
+  const row = (await q("beds").count({ n: "*" }).sum({ area: "area_m2" }).first()) as { n: number | string; area: number | string | null } | undefined;
+  return { beds: Number(row?.n ?? 0), area_m2: Number(row?.area ?? 0) };
+}

@@ -18,3 +18,21 @@ export async function ratingsFor(userIds: string[], q: Db = db()): Promise<Map<s
   for (const r of rows) out.set(r.subject_id, { average: Math.round(Number(r.average) * 10) / 10, count: Number(r.count) });
   return out;
 }
+
+/**
+ * How many times gardeners have collected from each supplier's listings: the plain trust
+ * figure shown beside a supplier's name ("collected from 12 times").
+ */
+export async function collectionsFor(userIds: string[], q: Db = db()): Promise<Map<string, number>> {
+  const out = new Map<string, number>();
+  if (userIds.length === 0) return out;
+  const rows: { owner_id: string; count: number | string }[] = await q("reservations as r")
+    .join("listings as l", "l.id", "r.listing_id")
+    .select("l.owner_id")
+    .count({ count: "*" })
+    .whereIn("l.owner_id", [...new Set(userIds)])
+    .where("r.status", "collected")
+    .groupBy("l.owner_id");
+  for (const r of rows) out.set(r.owner_id, Number(r.count));
+  return out;
+}

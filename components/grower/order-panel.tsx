@@ -11,6 +11,7 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { useReservationAction } from "@/components/reservations/use-reservation-action";
 import { Form } from "@/components/ui/form";
+import { CultureJourney } from "./culture-journey";
 
 const LIVE = new Set(["held", "confirmed", "collected"]);
 const isLink = (s: string) => /^https?:\/\/\S+$/i.test(s);
@@ -23,22 +24,10 @@ export function OrderPanel({ v }: { v: ReservationView }) {
   const { run, busy, error } = useReservationAction(v.id);
   const order = v.order;
   if (!order || !LIVE.has(v.status)) return null;
-  const stages = STAGES_OF[order.fulfilment];
-  const current = order.stage ? stages.indexOf(order.stage) : -1;
   return (
     <div className="flex flex-col gap-3 rounded-lg bg-humus-50 p-3 ring-1 ring-humus-200" data-testid="order-panel">
-      <ol aria-label="Order progress" className="flex flex-wrap items-center gap-x-1 gap-y-2 text-sm">
-        {stages.map((s, i) => (
-          <li key={s} aria-current={i === current ? "step" : undefined} className="flex items-center gap-1">
-            {i > 0 ? <span aria-hidden="true" className="text-humus-400">→</span> : null}
-            <span className={`rounded-full px-2.5 py-1 font-medium ring-1 ${i <= current ? "bg-moss-600 text-white ring-moss-700" : "bg-white text-humus-600 ring-humus-200"}`}>
-              {stageLabel(s, v.amount_cents)}
-              {i <= current ? <span className="sr-only"> (done)</span> : null}
-            </span>
-          </li>
-        ))}
-      </ol>
-      {current < 0 ? <p className="text-sm text-humus-700">{v.side === "gardener" ? "The order starts once the grower accepts it." : "Accept it to start the order."}</p> : null}
+      <CultureJourney v={v} />
+      {!order.stage ? <p className="text-sm text-humus-700">{v.side === "gardener" ? "The order starts once the grower accepts it." : "Accept it to start the order."}</p> : null}
 
       <dl className="grid gap-x-4 gap-y-1 text-sm sm:grid-cols-[max-content_1fr]">
         <dt className="font-medium text-humus-600">{order.fulfilment === "post" ? "Posted to" : "Handed over"}</dt>
@@ -88,7 +77,7 @@ export function OrderPanel({ v }: { v: ReservationView }) {
           ) : null}
         </div>
       ) : null}
-      {order.actions.includes("ship") ? <ShipForm id={v.id} /> : null}
+      {order.actions.includes("ship") ? <ShipForm id={v.id} what={`${v.listing.title} for ${v.gardener.name}, ordered ${formatLocal(v.created_at)}`} /> : null}
       {error ? (
         <p role="alert" className="text-sm text-ember-600">
           {error.message}
@@ -98,7 +87,8 @@ export function OrderPanel({ v }: { v: ReservationView }) {
   );
 }
 
-function ShipForm({ id }: { id: string }) {
+// Named per order: a grower's page holds one of these forms for each order to post.
+function ShipForm({ id, what }: { id: string; what: string }) {
   const { run, busy, error } = useReservationAction(id);
   const form = useForm<z.input<typeof shipOrderSchema>>({ resolver: zodResolver(shipOrderSchema), defaultValues: { carrier: "", tracking: "" } });
   const fields = error && isApiError(error) ? error.fields : undefined;
@@ -106,7 +96,7 @@ function ShipForm({ id }: { id: string }) {
     await run("ship", values);
   });
   return (
-    <Form onSubmit={onSubmit} noValidate className="grid gap-x-3 sm:grid-cols-2" aria-label="Mark shipped">
+    <Form onSubmit={onSubmit} noValidate className="grid gap-x-3 sm:grid-cols-2" aria-label={`Mark shipped: ${what}`}>
       <Field label="Carrier" id={`carrier-${id}`} autoComplete="off" {...form.register("carrier")} error={form.formState.errors.carrier?.message ?? fields?.carrier} />
       <Field label="Tracking number or link" id={`tracking-${id}`} autoComplete="off" {...form.register("tracking")} error={form.formState.errors.tracking?.message ?? fields?.tracking} />
       <Button type="submit" disabled={!!busy} className="self-start sm:col-span-2 sm:justify-self-start">

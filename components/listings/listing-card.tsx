@@ -3,8 +3,8 @@ import type { UnitSystem } from "@/lib/calc/units";
 import { formatDay, formatDistance, formatListingQuantity, formatMoney, formatPrice, materialName } from "@/lib/listings/format";
 import type { ListingUnit } from "@/lib/validation/listings";
 import type { MaterialCode } from "@/lib/calc/facts";
-import { MaterialArt } from "./material-art";
-import { VerifiedBadge } from "./status-badge";
+import { TrustMarks } from "./trust-marks";
+import { UnitDrawing } from "./unit-drawing";
 
 export interface CardItem {
   id: string;
@@ -12,18 +12,25 @@ export interface CardItem {
   title: string;
   quantity_available: number;
   unit: ListingUnit;
+  unit_size?: number | null;
+  unit_mass_kg?: number | null;
   price_cents: number;
   currency: string;
   deposit_cents: number;
   distance_km: number | null;
-  supplier: { name: string; verified: boolean; rating?: { average: number; count: number } | null };
+  supplier: { name: string; verified: boolean; rating?: { average: number; count: number } | null; collections?: number };
   photos: { url: string; width: number; height: number }[];
   available_until: string | null;
   /** Set while the listing is shown ahead of its start date. */
   reservable_from?: string | null;
 }
 
-export function ListingCard({ item, system, selected = false, onHover }: { item: CardItem; system: UnitSystem; selected?: boolean; onHover?: (id: string | null) => void }) {
+/**
+ * One listing, led by what it is and how much is left (drawn as the bags, bales or sheets
+ * it comes in), then how far, what it costs, when, and who offers it. `fit` is the line
+ * saying how much of the chosen bed's need it covers.
+ */
+export function ListingCard({ item, system, selected = false, fit, onHover }: { item: CardItem; system: UnitSystem; selected?: boolean; fit?: string | null; onHover?: (id: string | null) => void }) {
   const photo = item.photos[0];
   const until = formatDay(item.available_until);
   // Listed ahead of its start: shown, but reservable only from that day.
@@ -31,42 +38,45 @@ export function ListingCard({ item, system, selected = false, onHover }: { item:
   return (
     <article
       id={`listing-${item.id}`}
-      className={`flex gap-3 rounded-lg bg-white p-3 ring-1 transition ${selected ? "ring-2 ring-litter-500" : "ring-humus-200"}`}
+      data-material={item.material}
+      className={`grid gap-x-4 gap-y-2 rounded-leaf bg-white p-4 ring-1 transition sm:grid-cols-[minmax(0,11rem)_minmax(0,1fr)] ${selected ? "ring-2 ring-litter-500" : "ring-humus-200"}`}
       onMouseEnter={onHover ? () => onHover(item.id) : undefined}
       onMouseLeave={onHover ? () => onHover(null) : undefined}
     >
-      <div className="h-24 w-32 shrink-0 overflow-hidden rounded bg-humus-100">
+      <div className="flex items-start justify-between gap-3 sm:row-span-4 sm:flex-col sm:justify-start">
+        <div className="flex min-w-0 flex-col gap-1">
+          <p className="text-sm font-semibold text-moss-800" data-testid="card-material">
+            {materialName(item.material)}
+          </p>
+          <p className="text-2xl font-bold leading-tight text-humus-900">{formatListingQuantity(item.quantity_available, item.unit, system)} left</p>
+          <UnitDrawing material={item.material} unit={item.unit} amount={item.quantity_available} />
+        </div>
         {photo ? (
           // eslint-disable-next-line @next/next/no-img-element
-          <img src={photo.url} width={photo.width} height={photo.height} alt="" loading="lazy" className="h-full w-full object-cover" />
-        ) : (
-          <MaterialArt material={item.material} className="h-full w-full" />
-        )}
+          <img src={photo.url} width={photo.width} height={photo.height} alt="" loading="lazy" className="h-16 w-20 shrink-0 rounded-lg object-cover ring-1 ring-humus-200" />
+        ) : null}
       </div>
-      <div className="flex min-w-0 flex-1 flex-col gap-1">
-        <p className="text-xs font-semibold uppercase tracking-wide text-moss-700">{materialName(item.material)}</p>
-        <h3 className="font-semibold leading-snug">
-          <Link href={`/listings/${item.id}`} className="hover:underline">
-            {item.title}
-          </Link>
-        </h3>
-        <p className="text-sm text-humus-700">
-          {formatListingQuantity(item.quantity_available, item.unit, system)} left · <span className="font-medium">{formatPrice(item.price_cents, item.currency, item.unit, system)}</span>
-          {item.deposit_cents > 0 ? ` · ${formatMoney(item.deposit_cents, item.currency)} deposit` : ""}
+      {fit ? (
+        <p className="self-start rounded-lg bg-litter-100 px-2.5 py-1 text-sm font-semibold text-humus-900 ring-1 ring-litter-300" data-testid="fit">
+          {fit}
         </p>
-        <p className="flex flex-wrap items-center gap-x-2 gap-y-1 text-sm text-humus-600">
-          {item.distance_km !== null ? <span>{formatDistance(item.distance_km, system)} away</span> : null}
-          <span>{item.supplier.name}</span>
-          {item.supplier.verified ? <VerifiedBadge /> : null}
-          {item.supplier.rating ? (
-            <span aria-label={`Rated ${item.supplier.rating.average.toFixed(1)} out of 5 from ${item.supplier.rating.count} review${item.supplier.rating.count === 1 ? "" : "s"}`}>
-              ★ {item.supplier.rating.average.toFixed(1)} ({item.supplier.rating.count})
-            </span>
-          ) : null}
-          {from ? <span className="font-medium text-moss-800">available from {from}</span> : null}
-          {until ? <span>until {until}</span> : null}
-        </p>
-      </div>
+      ) : null}
+      <h3 className="font-semibold leading-snug">
+        <Link href={`/listings/${item.id}`} className="underline-offset-4 hover:underline">
+          {item.title}
+        </Link>
+      </h3>
+      <p className="flex flex-wrap gap-x-2 text-sm text-humus-700">
+        {item.distance_km !== null ? <span className="font-medium">{formatDistance(item.distance_km, system)} away</span> : null}
+        <span className="font-medium">{formatPrice(item.price_cents, item.currency, item.unit, system)}</span>
+        {item.deposit_cents > 0 ? <span>{formatMoney(item.deposit_cents, item.currency)} back when you collect</span> : null}
+        {from ? <span className="font-medium text-moss-800">collect from {from}</span> : null}
+        {until ? <span>until {until}</span> : null}
+      </p>
+      <p className="flex flex-wrap items-center gap-x-2 text-sm text-humus-700">
+        <span>{item.supplier.name}</span>
+        <TrustMarks supplier={item.supplier} />
+      </p>
     </article>
   );
 }

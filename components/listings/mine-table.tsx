@@ -21,6 +21,7 @@ import type { ListingUnit } from "@/lib/validation/listings";
 import { StatusActions } from "./status-actions";
 import { StatusBadge } from "./status-badge";
 import { formatLocal } from "@/lib/reservations/pickup-times";
+import { DataTable } from "@/components/ui/data-table";
 
 export interface MineRow {
   id: string;
@@ -93,8 +94,6 @@ function columnsFor(system: UnitSystem) {
   ]);
 }
 
-const SORT_MARK = { asc: " ↑", desc: " ↓" } as const;
-
 /** The owner's listings: sortable by any column, filtered by words in the title, material or status. */
 export function MineTable({ rows, system }: { rows: MineRow[]; system: UnitSystem }) {
   // Rows change when the page refreshes after a status change; memoised so the table keeps its models otherwise.
@@ -108,7 +107,6 @@ export function MineTable({ rows, system }: { rows: MineRow[]; system: UnitSyste
     getColumnCanGlobalFilter: (column) => column.id === "title",
     initialState: { sorting: [{ id: "updated_at", desc: true }] },
   });
-  const shown = table.getRowModel().rows;
   return (
     <div className="flex flex-col gap-3">
       <label className="flex max-w-sm flex-col gap-1 text-sm font-medium">
@@ -121,44 +119,14 @@ export function MineTable({ rows, system }: { rows: MineRow[]; system: UnitSyste
           className="min-h-11 rounded-lg border border-humus-300 bg-white px-3"
         />
       </label>
-      <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-humus-200">
-        <table className="stack-table w-full text-left text-sm">
-          <caption className="sr-only">My listings; select a column heading to sort</caption>
-          <thead className="bg-humus-100">
-            {table.getHeaderGroups().map((group) => (
-              <tr key={group.id}>
-                {group.headers.map((header) => {
-                  const sorted = header.column.getIsSorted();
-                  return (
-                    <th key={header.id} scope="col" className="p-3" aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : undefined}>
-                      {header.column.getCanSort() && header.column.id !== "actions" ? (
-                        <button type="button" onClick={header.column.getToggleSortingHandler()} className="font-semibold hover:underline">
-                          <table.FlexRender header={header} />
-                          {sorted ? SORT_MARK[sorted] : ""}
-                        </button>
-                      ) : (
-                        <table.FlexRender header={header} />
-                      )}
-                    </th>
-                  );
-                })}
-              </tr>
-            ))}
-          </thead>
-          <tbody>
-            {shown.map((row) => (
-              <tr key={row.id} className="border-t border-humus-100 align-top" data-listing-id={row.original.id}>
-                {row.getAllCells().map((cell) => (
-                  <td key={cell.id} className="p-3" data-label={cell.column.id === "title" ? undefined : String(cell.column.columnDef.header ?? "")}>
-                    <table.FlexRender cell={cell} />
-                  </td>
-                ))}
-              </tr>
-            ))}
-          </tbody>
-        </table>
-        {shown.length === 0 ? <p className="p-4 text-humus-700">No listing matches that filter.</p> : null}
-      </div>
+      <DataTable
+        table={table}
+        caption="My listings; select a column heading to sort"
+        empty="No listing matches that filter."
+        unsortable={["actions"]}
+        rowProps={(r) => ({ "data-listing-id": r.id })}
+        stack={{ unlabelled: ["title"] }}
+      />
     </div>
   );
 }

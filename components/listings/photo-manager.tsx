@@ -12,6 +12,8 @@ interface Item {
   key: string;
   name: string;
   url: string | null;
+  /** The chosen file, shown from the browser's memory while it uploads. */
+  preview?: string;
   state: "uploading" | "done" | "error";
   progress: number;
   error?: string;
@@ -65,7 +67,7 @@ export function PhotoManager(props: Props) {
       setNotice(isApiError(err) ? err.message : "Uploading is not available right now. Try again in a moment.");
       return;
     }
-    const fresh: Item[] = chosen.map((f) => ({ key: `new-${++counter}`, name: f.name, url: null, state: "uploading", progress: 0 }));
+    const fresh: Item[] = chosen.map((f) => ({ key: `new-${++counter}`, name: f.name, url: null, preview: URL.createObjectURL(f), state: "uploading", progress: 0 }));
     setItems((prev) => [...prev, ...fresh]);
     await Promise.all(
       chosen.map(async (file, n) => {
@@ -77,6 +79,7 @@ export function PhotoManager(props: Props) {
         }
         try {
           const result = await uploadPhoto(file, signed, (p) => patch(key, { progress: p }));
+          URL.revokeObjectURL(fresh[n].preview!);
           const { secure_url, ...upload } = result;
           if (props.mode === "create") {
             patch(key, { state: "done", progress: 1, url: secure_url, upload });
@@ -147,10 +150,17 @@ export function PhotoManager(props: Props) {
             const index = done.indexOf(item);
             return (
               <li key={item.key} className="flex flex-col gap-2 rounded-lg bg-white p-2 ring-1 ring-humus-200">
-                <div className="aspect-[4/3] overflow-hidden rounded bg-humus-100">
+                <div className="relative aspect-[4/3] overflow-hidden rounded bg-humus-100">
                   {item.url ? (
                     // eslint-disable-next-line @next/next/no-img-element
                     <img src={item.url} alt={`Photo ${index + 1}`} className="h-full w-full object-cover" />
+                  ) : item.preview && item.state === "uploading" ? (
+                    <>
+                      {/* eslint-disable-next-line @next/next/no-img-element */}
+                      <img src={item.preview} alt={`${item.name}, uploading`} className="h-full w-full object-cover" />
+                      {/* A veil that lifts as the upload goes through. */}
+                      <span aria-hidden="true" className="absolute inset-x-0 top-0 bg-humus-50/75 transition-[height]" style={{ height: `${100 - Math.round(item.progress * 100)}%` }} />
+                    </>
                   ) : (
                     <div className="flex h-full items-center justify-center p-2 text-center text-xs text-humus-600">{item.name}</div>
                   )}
@@ -162,7 +172,7 @@ export function PhotoManager(props: Props) {
                 ) : (
                   <div className="flex flex-col gap-1">
                     <progress
-                      className="h-2 w-full accent-moss-600"
+                      className="h-2 w-full"
                       max={100}
                       value={Math.round(item.progress * 100)}
                       aria-label={`Upload of ${item.name}`}

@@ -1,4 +1,5 @@
 "use client";
+import { DataTable } from "@/components/ui/data-table";
 import { useMemo, useState } from "react";
 import {
   columnFilteringFeature,
@@ -113,7 +114,6 @@ export function AuditTable({ items }: { items: AuditItem[] }) {
     initialState: { sorting: [{ id: "created_at", desc: true }], pagination: { pageIndex: 0, pageSize: 50 } },
   });
   const filter = (id: string) => table.getColumn(id)!;
-  const rows = table.getRowModel().rows;
   return (
     <div className="flex flex-col gap-3">
       <div className="grid gap-3 rounded-lg bg-white p-4 ring-1 ring-humus-200 sm:grid-cols-2 lg:grid-cols-4" role="search" aria-label="Filter the audit log">
@@ -137,44 +137,7 @@ export function AuditTable({ items }: { items: AuditItem[] }) {
       <p aria-live="polite" className="text-sm text-humus-700">
         {table.getFilteredRowModel().rows.length} of {items.length} entries
       </p>
-      <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-humus-200">
-        <table className="w-full text-left text-sm">
-          <caption className="sr-only">Audit log</caption>
-          <thead className="bg-humus-100">
-            {table.getHeaderGroups().map((g) => (
-              <tr key={g.id}>
-                {g.headers.map((h) => {
-                  const sorted = h.column.getIsSorted();
-                  return (
-                    <th key={h.id} scope="col" className="p-2" aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : undefined}>
-                      {h.column.getCanSort() ? (
-                        <button type="button" onClick={h.column.getToggleSortingHandler()} className="font-semibold underline-offset-4 hover:underline">
-                          <table.FlexRender header={h} />
-                          {sorted === "asc" ? " ▲" : sorted === "desc" ? " ▼" : ""}
-                        </button>
-                      ) : (
-                        <table.FlexRender header={h} />
-                      )}
-                    </th>
-                  );
-                })}
-              </tr>
-            ))}
-          </thead>
-          <tbody>
-            {rows.map((row) => (
-              <tr key={row.id} className="border-t border-humus-100 align-top" data-action={row.original.action}>
-                {row.getAllCells().map((cell) => (
-                  <td key={cell.id} className="p-2">
-                    <table.FlexRender cell={cell} />
-                  </td>
-                ))}
-              </tr>
-            ))}
-          </tbody>
-        </table>
-        {rows.length === 0 ? <p className="p-4 text-humus-700">Nothing matches these filters.</p> : null}
-      </div>
+      <DataTable table={table} caption="Audit log" empty="Nothing matches these filters." dense rowProps={(r) => ({ "data-action": r.action })} />
       <div className="flex items-center gap-3">
         <button type="button" className="min-h-11 rounded-lg px-3 ring-1 ring-humus-300 disabled:opacity-50" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>
           Newer

@@ -1,6 +1,7 @@
 "use client";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
+import { Dialog } from "@/components/ui/dialog";
 import { Notice } from "@/components/ui/notice";
 import { useApiAction } from "@/components/ui/use-api-action";
 
@@ -22,14 +23,23 @@ export function ReportActions(p: ReportActionsProps) {
   const [note, setNote] = useState("");
   const [noteError, setNoteError] = useState<string | null>(null);
   const reportId = p.reportIds[0];
-  const noteId = `note-${reportId}`;
   const many = p.reportIds.length > 1;
-  const go = (path: string | string[], body: Record<string, unknown>) => {
+  // A step that takes something away from someone waits for a second, deliberate yes.
+  const [confirm, setConfirm] = useState<{ title: string; yes: string; path: string; body: Record<string, unknown> } | null>(null);
+  const noteId = `note-${reportId}`;
+  const noted = () => {
     if (note.trim().length < 3) {
       setNoteError("Write a short note first (at least 3 characters): it goes into the audit log.");
-      return;
+      return false;
     }
     setNoteError(null);
+    return true;
+  };
+  const ask = (c: NonNullable<typeof confirm>) => {
+    if (noted()) setConfirm(c);
+  };
+  const go = (path: string | string[], body: Record<string, unknown>) => {
+    if (!noted()) return;
     void (async () => {
       // Closing a group closes each report in turn, so every reporter hears the outcome.
       for (const one of Array.isArray(path) ? path : [path]) {
@@ -58,20 +68,20 @@ export function ReportActions(p: ReportActionsProps) {
       </p>
       {action.error ? <Notice tone="error">{action.error}</Notice> : null}
       <div className="flex flex-wrap gap-2">
-        {p.listingId ? (
-          <Button variant={p.listingHidden ? "secondary" : "danger"} disabled={action.busy} onClick={() => go(`/api/moderation/listings/${p.listingId}`, { action: p.listingHidden ? "restore" : "hide", report_id: reportId })}>
-            {p.listingHidden ? "Show the listing again" : "Hide the listing"}
+        {p.listingId && p.listingHidden ? (
+          <Button variant="secondary" disabled={action.busy} onClick={() => go(`/api/moderation/listings/${p.listingId}`, { action: "restore", report_id: reportId })}>
+            Show the listing again
+          </Button>
+        ) : null}
+        {p.userId && p.suspended ? (
+          <Button variant="secondary" disabled={action.busy} onClick={() => go(`/api/moderation/users/${p.userId}`, { action: "restore", report_id: reportId })}>
+            Lift {p.userName}&apos;s suspension
           </Button>
         ) : null}
         {p.userId ? (
-          <>
-            <Button variant={p.suspended ? "secondary" : "danger"} disabled={action.busy} onClick={() => go(`/api/moderation/users/${p.userId}`, { action: p.suspended ? "restore" : "suspend", report_id: reportId })}>
-              {p.suspended ? `Lift ${p.userName}'s suspension` : `Suspend ${p.userName}`}
-            </Button>
-            <Button variant="secondary" disabled={action.busy} onClick={() => go(`/api/moderation/users/${p.userId}`, { action: p.verified ? "unverify" : "verify", report_id: reportId })}>
-              {p.verified ? "Remove the verified badge" : "Verify as a supplier"}
-            </Button>
-          </>
+          <Button variant="secondary" disabled={action.busy} onClick={() => go(`/api/moderation/users/${p.userId}`, { action: p.verified ? "unverify" : "verify", report_id: reportId })}>
+            {p.verified ? "Take back “checked by Duffbank”" : "Mark as checked by Duffbank"}
+          </Button>
         ) : null}
         {p.open ? (
           <Button disabled={action.busy} onClick={() => go(p.reportIds.map((id) => `/api/moderation/reports/${id}/close`), {})}>
@@ -79,6 +89,58 @@ export function ReportActions(p: ReportActionsProps) {
           </Button>
         ) : null}
       </div>
+      {(p.listingId && !p.listingHidden) || (p.userId && !p.suspended) ? (
+        <div className="flex flex-col gap-2 rounded-lg border-2 border-dashed border-ember-600/60 bg-ember-100/50 p-3">
+          <p className="text-sm font-semibold text-ember-800">Takes something away: asks again before it acts</p>
+          <div className="flex flex-wrap gap-2">
+            {p.listingId && !p.listingHidden ? (
+              <Button
+                variant="danger"
+                disabled={action.busy}
+                onClick={() => ask({ title: "Hide this listing?", yes: "Yes, hide the listing", path: `/api/moderation/listings/${p.listingId}`, body: { action: "hide", report_id: reportId } })}
+              >
+                Hide the listing
+              </Button>
+            ) : null}
+            {p.userId && !p.suspended ? (
+              <Button
+                variant="danger"
+                disabled={action.busy}
+                onClick={() => ask({ title: `Suspend ${p.userName}?`, yes: `Yes, suspend ${p.userName}`, path: `/api/moderation/users/${p.userId}`, body: { action: "suspend", report_id: reportId } })}
+              >
+                Suspend {p.userName}
+              </Button>
+            ) : null}
+          </div>
+        </div>
+      ) : null}
+      <Dialog
+        open={confirm !== null}
+        onClose={() => setConfirm(null)}
+        title={confirm?.title ?? ""}
+        footer={
+          <>
+            <Button variant="secondary" onClick={() => setConfirm(null)}>
+              Keep it as it is
+            </Button>
+            <Button
+              variant="danger"
+              disabled={action.busy}
+              onClick={() => {
+                const c = confirm!;
+                setConfirm(null);
+                go(c.path, c.body);
+              }}
+            >
+              {confirm?.yes ?? "Yes"}
+            </Button>
+          </>
+        }
+      >
+        <p>
+          Your note goes into the audit log with it: <q>{note.trim()}</q>
+        </p>
+      </Dialog>
     </div>
   );
 }

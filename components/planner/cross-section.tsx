@@ -15,15 +15,15 @@ export function CrossSection({ depths, system, settling }: { depths: LayerDepths
       <svg viewBox={`0 0 360 ${height}`} role="img" aria-labelledby="xsec-title" className="w-full">
         <title id="xsec-title">{title}</title>
         <rect x="0" y={soilTop} width="360" height={height - soilTop} fill={LAYER_COLOURS.soil} />
-        <text x="8" y={height - 12} fill="#f7f3ee" fontSize="12">old soil (not dug)</text>
+        <text x="8" y={height - 12} fill="#f7f3ee" fontSize="15">old soil (not dug)</text>
         {bands.map((b) => (
           <g key={b.key} data-layer={b.key}>
-            <rect x="40" y={b.y} width="250" height={b.h} fill={LAYER_COLOURS[b.key]} stroke="#3b2b1d" strokeWidth="0.5" />
-            <text x="296" y={b.y + b.h / 2 + 4} fontSize="11" fill="#271c13">
+            <rect x="40" y={b.y} width="200" height={b.h} fill={LAYER_COLOURS[b.key]} stroke="#3b2b1d" strokeWidth="0.5" />
+            <text x="248" y={b.y + b.h / 2 + 5} fontSize="15" fill="#271c13">
               {b.label}
             </text>
-            {b.h > 14 ? (
-              <text x="48" y={b.y + b.h / 2 + 4} fontSize="11" fill={LAYER_TEXT[b.key]}>
+            {b.h > 18 ? (
+              <text x="48" y={b.y + b.h / 2 + 5} fontSize="15" fill={LAYER_TEXT[b.key]}>
                 {formatQuantity(b.cm, "cm", system)}
               </text>
             ) : null}
@@ -31,15 +31,15 @@ export function CrossSection({ depths, system, settling }: { depths: LayerDepths
         ))}
         {sunk.map((s) => (
           <g key={s.months} aria-hidden="true" data-settled={s.months}>
-            <line x1="40" x2="290" y1={base - s.depth_cm * pxPerCm} y2={base - s.depth_cm * pxPerCm} stroke="#271c13" strokeWidth="1" strokeDasharray="4 3" />
-            <text x="286" y={base - s.depth_cm * pxPerCm - 2} fontSize="9" textAnchor="end" fill="#271c13">
+            <line x1="40" x2="240" y1={base - s.depth_cm * pxPerCm} y2={base - s.depth_cm * pxPerCm} stroke="#271c13" strokeWidth="1" strokeDasharray="4 3" />
+            <text x="236" y={base - s.depth_cm * pxPerCm - 3} fontSize="13" textAnchor="end" fill="#271c13">
               {s.months === 12 ? "1 yr" : `${s.months} mo`}
             </text>
           </g>
         ))}
         <g aria-hidden="true">
           <line x1="16" x2="16" y1={soilTop} y2={soilTop - 10 * pxPerCm} stroke="#271c13" strokeWidth="2" />
-          <text x="4" y={soilTop - 10 * pxPerCm - 4} fontSize="10" fill="#271c13">
+          <text x="4" y={soilTop - 10 * pxPerCm - 5} fontSize="13" fill="#271c13">
             {system === "metric" ? "10 cm" : "3.9 in"}
           </text>
         </g>

@@ -8,6 +8,7 @@ import { StatusBadge } from "./status-badge";
 import { ReservationActions } from "./reservation-actions";
 import { MessagesPanel } from "./message-thread";
 import { ReviewForm } from "./review-form";
+import { WORDS } from "./review-words";
 import { OrderPanel } from "@/components/grower/order-panel";
 import type { UnitSystem } from "@/lib/calc/units";
 
@@ -176,8 +177,8 @@ export function ReservationCard({ v, system = "metric" }: { v: ReservationView; 
       <ReservationActions id={v.id} side={v.side} actions={v.actions} canPay={v.can_pay} payAgain={v.payment.checkout === "not_opened"} cancelNote={cancelNote} posted={v.order?.fulfilment === "post"} />
 
       {v.can_review ? <ReviewForm id={v.id} subject={other} /> : null}
-      {v.my_review ? <p className="text-sm">You rated {other} {"★".repeat(v.my_review.rating)}{v.my_review.comment ? `: “${v.my_review.comment}”` : "."}</p> : null}
-      {v.their_review ? <p className="text-sm">{other} rated you {"★".repeat(v.their_review.rating)}{v.their_review.comment ? `: “${v.their_review.comment}”` : "."}</p> : null}
+      {v.my_review ? <p className="text-sm">You gave {other} {v.my_review.rating} of 5 ({WORDS[v.my_review.rating].toLowerCase()}){v.my_review.comment ? `: “${v.my_review.comment}”` : "."}</p> : null}
+      {v.their_review ? <p className="text-sm">{other} gave you {v.their_review.rating} of 5 ({WORDS[v.their_review.rating].toLowerCase()}){v.their_review.comment ? `: “${v.their_review.comment}”` : "."}</p> : null}
 
       <MessagesPanel id={v.id} otherName={other} closed={v.status === "expired"} />
 

@@ -1,4 +1,5 @@
 "use client";
+import { WORDS } from "./review-words";
 import { useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
@@ -8,7 +9,6 @@ import { Field } from "@/components/ui/field";
 import { useReservationAction } from "./use-reservation-action";
 import { Form } from "@/components/ui/form";
 
-const WORDS = ["", "Poor", "Not great", "All right", "Good", "Excellent"];
 
 /** One rating of the other side after a collection: 1–5 and an optional comment. */
 export function ReviewForm({ id, subject }: { id: string; subject: string }) {
@@ -28,7 +28,7 @@ export function ReviewForm({ id, subject }: { id: string; subject: string }) {
             <label key={n} className="flex min-h-11 cursor-pointer items-center gap-1 rounded-lg bg-white px-3 ring-1 ring-humus-300 has-[:checked]:bg-moss-600 has-[:checked]:text-white has-[:focus-visible]:outline has-[:focus-visible]:outline-[3px] has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-humus-900">
               {/* Set as a number by hand: react-hook-form's setValueAs does not apply to radios. */}
               <input type="radio" name={`rating-${id}`} value={n} className="sr-only" checked={rating === n} onChange={() => form.setValue("rating", n, { shouldValidate: form.formState.isSubmitted })} />
-              <span aria-hidden="true">{"★".repeat(n)}</span>
+              <span aria-hidden="true">{WORDS[n]}</span>
               <span className="sr-only">{`${n} of 5, ${WORDS[n].toLowerCase()}`}</span>
             </label>
           ))}

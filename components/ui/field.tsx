@@ -36,8 +36,10 @@ function Shell({ label, error, hint, ids, children }: ShellProps & { ids: Return
   );
 }
 
-const controlClass = (error: string | undefined, extra: string) =>
-  `min-h-11 rounded-lg border bg-white px-3 py-2 ${error ? "border-ember-600" : "border-humus-300"} ${extra}`;
+/** The look of a text box or a select, for the few placed without a Field around them. */
+export const inputClass = "min-h-11 rounded-lg border border-humus-300 bg-white px-3 py-2";
+
+const controlClass = (error: string | undefined, extra: string) => `${inputClass} ${error ? "border-ember-600" : ""} ${extra}`;
 
 interface FieldProps extends Omit<InputHTMLAttributes<HTMLInputElement>, "name">, ShellProps {}
 

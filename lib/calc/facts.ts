@@ -303,6 +303,13 @@ export const BROWN_LAYER_MAX_CM = { leaves: 10, straw: 5 } as const;
 export const BAG_US_GAL = 30;
 export const BAG_M3 = BAG_US_GAL * US_GALLON_M3;
 
+/** A household bucket, 10 L (common practice, no source: the usual size sold for garden and cleaning use). */
+export const BUCKET_L = 10;
+export const BUCKET_M3 = BUCKET_L * LITRE_M3;
+/** A garden wheelbarrow's load, 80 L (common practice, no source: garden barrows hold 60–100 L; 80 L is the middle). */
+export const BARROW_L = 80;
+export const BARROW_M3 = BARROW_L * LITRE_M3;
+
 
 // ---------------------------------------------------------------------------------------
 // Targets

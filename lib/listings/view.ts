@@ -8,7 +8,7 @@ import { organisationNames, suppliersOf } from "@/db/listings";
 import { photosFor } from "@/db/listing-photos";
 import { windowsFor } from "@/db/pickup-windows";
 import { matchedGardeners } from "@/db/need-alerts";
-import { ratingsFor } from "@/db/reviews";
+import { collectionsFor, ratingsFor } from "@/db/reviews";
 import type { ListingPhotoRow, ListingRow, ListingStatus, PickupWindowRow } from "@/db/types";
 import type { PublicListingRow } from "@/db/listing-search";
 import { listingCautions, type ListingCaution } from "@/lib/calc/cautions";
@@ -32,8 +32,11 @@ export interface PublicListingItem {
   distance_km: number | null;
   /** The approximate public point, a stable few hundred metres from the real one. */
   location: { lat: number; lng: number };
-  /** `rating`: what gardeners said of this supplier after collecting (null before any review). */
-  supplier: { id: string; name: string; verified: boolean; rating: { average: number; count: number } | null };
+  /**
+   * `rating`: what gardeners said of this supplier after collecting (null before any review);
+   * `collections`: how many reservations of theirs were collected.
+   */
+  supplier: { id: string; name: string; verified: boolean; rating: { average: number; count: number } | null; collections: number };
   photos: PhotoVariant[];
   available_until: string | null;
   /** Listed ahead of its start date: shown, but reservable only from this moment (null once it is). */
@@ -113,8 +116,11 @@ function item(r: Row, supplier: PublicListingItem["supplier"], photos: PhotoVari
 
 /** Browse results as the API and the browse page return them. */
 export async function presentItems(rows: PublicListingRow[], q: Db = db(), now: Date = new Date()): Promise<PublicListingItem[]> {
-  const [supplierOf, photos, ratings] = await Promise.all([suppliersFor(rows, q), photosFor(rows.map((r) => r.id), q), ratingsFor(rows.map((r) => r.owner_id), q)]);
-  return rows.map((r) => item(r, { ...supplierOf(r), rating: ratings.get(r.owner_id) ?? null }, photoList(photos.get(r.id), "card"), r.distance_km, now));
+  const owners = rows.map((r) => r.owner_id);
+  const [supplierOf, photos, ratings, collections] = await Promise.all([suppliersFor(rows, q), photosFor(rows.map((r) => r.id), q), ratingsFor(owners, q), collectionsFor(owners, q)]);
+  return rows.map((r) =>
+    item(r, { ...supplierOf(r), rating: ratings.get(r.owner_id) ?? null, collections: collections.get(r.owner_id) ?? 0 }, photoList(photos.get(r.id), "card"), r.distance_km, now),
+  );
 }
 
 const windowView = ({ listing_id: _listing, ...w }: PickupWindowRow): PickupWindowView => w;
@@ -129,16 +135,17 @@ function parseQuality(text: string): QualityInput {
 }
 
 export async function presentDetail(r: ListingRow, opts: { manage: boolean; now?: Date }, q: Db = db()): Promise<ListingDetail | ManagedListingDetail> {
-  const [supplierOf, photos, windows, ratings] = await Promise.all([
+  const [supplierOf, photos, windows, ratings, collections] = await Promise.all([
     suppliersFor([r], q),
     photosFor([r.id], q),
     windowsFor([r.id], q),
     ratingsFor([r.owner_id], q),
+    collectionsFor([r.owner_id], q),
   ]);
   const quality = parseQuality(r.quality);
   const photoRows = photos.get(r.id) ?? [];
   const detail: ListingDetail = {
-    ...item(r, { ...supplierOf(r), rating: ratings.get(r.owner_id) ?? null }, photoList(photoRows, "large"), null, opts.now ?? new Date()),
+    ...item(r, { ...supplierOf(r), rating: ratings.get(r.owner_id) ?? null, collections: collections.get(r.owner_id) ?? 0 }, photoList(photoRows, "large"), null, opts.now ?? new Date()),
     status: effectiveStatus(r.status, r.available_until, opts.now),
     description: r.description,
     available_from: r.available_from,

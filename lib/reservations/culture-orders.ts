@@ -43,8 +43,17 @@ export const ORDER_STAGE_LABELS: Record<OrderStage, string> = {
   collected: "Collected",
 };
 
+/** The same stages as the buyer and the grower follow them on screen, in the worm trade's words. */
+export const JOURNEY_LABELS: Record<OrderStage, string> = {
+  paid: "Paid for",
+  packed: "Boxed in bedding",
+  shipped: "In the post",
+  delivered: "Arrived",
+  collected: "Fetched from the grower",
+};
+
 /** "Paid" reads oddly for a free culture; it is simply confirmed. */
-export const stageLabel = (stage: OrderStage, amountCents: number) => (stage === "paid" && amountCents === 0 ? "Confirmed" : ORDER_STAGE_LABELS[stage]);
+export const stageLabel = (stage: OrderStage, amountCents: number) => (stage === "paid" && amountCents === 0 ? "Agreed" : JOURNEY_LABELS[stage]);
 
 export const FULFILMENT_LABELS: Record<Fulfilment, string> = { pickup: "Collected from the grower", post: "Posted" };
 

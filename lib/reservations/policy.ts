@@ -151,12 +151,13 @@ export function cancellationIsTimely(
   return new Date(start).getTime() - now.getTime() >= CANCEL_NOTICE_HOURS * 3_600_000;
 }
 
+// In our own words, the way the two people would say it to each other.
 export const STATUS_LABELS: Record<ReservationStatus, string> = {
-  held: "On hold",
-  confirmed: "Confirmed",
-  collected: "Collected",
-  declined: "Declined",
-  cancelled: "Cancelled",
-  expired: "Hold ran out",
-  no_show: "Not collected",
+  held: "Asked, waiting for a yes",
+  confirmed: "Agreed",
+  collected: "Passed on",
+  declined: "Turned down",
+  cancelled: "Called off",
+  expired: "No answer in time",
+  no_show: "Nobody came",
 };

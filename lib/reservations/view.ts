@@ -63,8 +63,8 @@ export interface ReservationView {
     shipped_at: string | null;
     estimated_count: number;
     actions: OrderAction[];
-    /** Posted orders: whether today is one of the grower's posting days, and the next one (YYYY-MM-DD). */
-    posting: { today: boolean; next_day: string | null; paused: boolean } | null;
+    /** Posted orders: whether today is one of the grower's posting days, the next one (YYYY-MM-DD), and the days by name. */
+    posting: { today: boolean; next_day: string | null; paused: boolean; days: string[] } | null;
   } | null;
 }
 
@@ -76,8 +76,8 @@ export interface ViewInput {
   payments: PaymentRow[];
   history: ReservationEventRow[];
   reviews: { author_id: string; rating: number; comment: string }[];
-  /** The grower's posting pause, for whether "shipped" can be offered, and posting weekdays (0 Sunday). */
-  shipping?: { paused: boolean; weekdays?: readonly number[] };
+  /** The grower's posting pause, for whether "shipped" can be offered, and posting weekdays (0 Sunday) and their names. */
+  shipping?: { paused: boolean; weekdays?: readonly number[]; ship_days?: string[] };
 }
 
 const REVEALED = new Set(["confirmed", "collected", "no_show"]);
@@ -175,7 +175,7 @@ export function reservationView({ r, side, viewerId, now, payments, history, rev
           shipped_at: r.shipped_at,
           estimated_count: estimatedWorms(r.quantity),
           actions: allowedOrderActions(r, side, { postingPaused: !!shipping?.paused }),
-          posting: r.fulfilment === "post" && shipping?.weekdays ? postingState(shipping.weekdays, !!shipping.paused, now) : null,
+          posting: r.fulfilment === "post" && shipping?.weekdays ? { ...postingState(shipping.weekdays, !!shipping.paused, now), days: shipping.ship_days ?? [] } : null,
         }
       : null,
   };

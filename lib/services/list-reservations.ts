@@ -22,12 +22,13 @@ async function views(ids: string[], viewerId: string, side: Side, q: Knex, now: 
   // Growers' posting days and pauses: a paused grower's parcels cannot be marked shipped until
   // it resumes, and one packed off a posting day waits for the next.
   const growers = [...new Set(contexts.filter((r) => r.fulfilment === "post").map((r) => r.listing.owner_id))];
+  // Their posting days too, so a buyer sees when the box goes out.
   const rows: { user_id: string; ship_weekdays: string; paused: boolean | 0 | 1; pause_reason: ShippingView["pause_reason"]; pause_note: string | null }[] = growers.length
     ? await q("grower_shipping").select("user_id", "ship_weekdays", "paused", "pause_reason", "pause_note").whereIn("user_id", growers)
     : [];
   const shippingOf = (owner: string) => {
     const s = shippingView(rows.find((x) => x.user_id === owner));
-    return { paused: s.paused, weekdays: s.ship_weekdays };
+    return { paused: s.paused, weekdays: s.ship_weekdays, ship_days: s.ship_days };
   };
   return contexts.map((r) =>
     reservationView({

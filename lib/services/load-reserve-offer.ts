@@ -1,7 +1,8 @@
 import "server-only";
 import { db } from "@/db/index";
 import { availableOf, listingsForReservation, pickupWindowsOf } from "@/db/reservations";
-import { ratingsFor } from "@/db/reviews";
+import { collectionsFor, ratingsFor } from "@/db/reviews";
+import { nextOccurrence, windowLabel } from "@/lib/reservations/pickup-times";
 import { holdMinutes, holdWaitFor } from "@/lib/reservations/policy";
 import { answerByFor, pickupChoices } from "@/lib/reservations/pickup-choices";
 import { WHOLE_UNITS } from "@/lib/reservations/labels";
@@ -24,11 +25,12 @@ export async function loadReserveOffer(listingId: string, now = new Date()) {
   if (!l || l.status === "draft" || l.status === "hidden") return null;
   // Nobody can take 0.7 of a bale, whatever the listing's total says.
   const available = WHOLE_UNITS.has(l.unit) ? Math.floor(availableOf(l) + 1e-9) : availableOf(l);
-  const [windows, owner, ratings, culture] = await Promise.all([
+  const [windows, owner, ratings, culture, collections] = await Promise.all([
     pickupWindowsOf([l.id]),
     db()("users").first("display_name", "verified_at").where({ id: l.owner_id }),
     ratingsFor([l.owner_id]),
     cultureOffer({ material: l.material_code, owner_id: l.owner_id, quality: qualityOf(l.quality), available }, now),
+    collectionsFor([l.owner_id]),
   ]);
   const deposit = depositFor(l.price_cents, l.deposit_cents);
   const terms = { owes: l.price_cents > 0 || deposit > 0, autoAccept: Boolean(l.auto_accept) };
@@ -56,7 +58,7 @@ export async function loadReserveOffer(listingId: string, now = new Date()) {
     waits_for: holdWaitFor(terms),
     /** With no fixed pickup time: when the supplier would have to answer by. */
     answer_by_no_window: answerByFor(now, terms, null),
-    supplier: { name: owner?.display_name ?? "The supplier", verified: Boolean(owner?.verified_at), rating: ratings.get(l.owner_id) ?? null },
+    supplier: { name: owner?.display_name ?? "The supplier", verified: Boolean(owner?.verified_at), rating: ratings.get(l.owner_id) ?? null, collections: collections.get(l.owner_id) ?? 0 },
     /** Live cultures only: how it can reach the buyer, and the grower's posting days or pause. */
     culture,
     windows: pickupChoices(windows, now, terms),

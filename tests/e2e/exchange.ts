@@ -25,8 +25,15 @@ export function run(query: string, ...args: unknown[]) {
   }
 }
 
+/** On Duffbank's local test checkout, press the outcome that sends this test card. */
 export async function payOnCheckoutPage(page: Page, card: string) {
-  await expect(page.getByText("Local test payment page")).toBeVisible();
+  await expect(page.getByRole("heading", { name: "Duffbank's local test checkout" })).toBeVisible();
+  await page.getByRole("button", { name: new RegExp(card.replace(/\s/g, " ")) }).click();
+}
+
+/** The same, typed by hand into the test checkout's own form. */
+export async function typeOnCheckoutPage(page: Page, card: string) {
+  await page.getByText("Or type a test card by hand").click();
   await page.getByLabel("Card number").fill(card);
   await page.getByLabel("Expiry (MM/YY)").fill(`12/${String((new Date().getFullYear() + 1) % 100).padStart(2, "0")}`);
   await page.getByLabel("CVC").fill("123");

@@ -56,3 +56,11 @@ export const mailTo = (request: APIRequestContext, to: string, subjectPart: stri
 
 /** The first link in a message's text. */
 export const firstLink = (mail: { text: string }) => mail.text.match(/https?:\/\/\S+/)![0];
+
+/** Runs axe on the page as it is now and fails on any violation, naming each rule and where. */
+export async function expectAccessible(page: import("@playwright/test").Page, what: string) {
+  const { AxeBuilder } = await import("@axe-core/playwright");
+  const result = await new AxeBuilder({ page }).analyze();
+  const found = result.violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).slice(0, 3).join(" | ")}`);
+  expect(found, `axe violations on ${what}`).toEqual([]);
+}

@@ -3,7 +3,7 @@
 // arrives; the grower accepts, packs and ships it from the dashboard; the shipped e-mail
 // carries the carrier and tracking; the buyer marks it arrived.
 import path from "node:path";
-import { expect, test, type Page } from "./fixtures";
+import { expect, test, type Page, expectAccessible } from "./fixtures";
 import { latestMail, payOnCheckoutPage, sql } from "./exchange";
 import { storageState } from "./roles";
 
@@ -102,8 +102,12 @@ test("a gardener buys a worm culture by post, the grower packs and ships it, and
   await page.goto(`/reservations#r-${id}`);
   const mine = page.locator(`#r-${id}`);
   await expect(mine).toContainText("In the post with Fernhollow Parcel Post");
-  await expect(mine.locator('[aria-current="step"]')).toContainText("Shipped");
+  await expect(mine.locator('[aria-current="step"]')).toContainText("In the post");
+  // What matters for live animals on the way: the temperatures, and opening the box at once.
+  await expect(mine.getByRole("list", { name: "The culture's journey" })).toContainText("55–78 °F");
+  await expect(mine.getByRole("list", { name: "The culture's journey" })).toContainText("Open the box within a day");
   await page.screenshot({ path: shot("grower-buyer-phone"), fullPage: true });
+  await expectAccessible(page, "a culture order on the buyer's reservations, by phone");
   await mine.getByRole("button", { name: "It has arrived" }).click();
   await expect(mine).toContainText(/Delivered /);
   expect(sql("select status, order_stage from reservations where id = ?", id)[0]).toEqual({ status: "collected", order_stage: "delivered" });

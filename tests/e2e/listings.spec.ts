@@ -93,8 +93,10 @@ test.describe.serial("listings", () => {
   test("a visitor filters by material and distance, sees it on the map and opens it", async ({ page }) => {
     await page.goto("/browse");
     await expect(page.getByRole("heading", { name: "Find material" })).toBeVisible();
-    await page.getByLabel("Material", { exact: true }).selectOption("leaves");
-    await page.getByLabel("Distance", { exact: true }).selectOption("5");
+    const lanes = page.getByRole("navigation", { name: "Materials" });
+    await lanes.getByRole("button", { name: /^Leaves/ }).click();
+    await expect(lanes.getByRole("button", { name: /^Leaves/ })).toHaveAttribute("aria-pressed", "true");
+    await page.getByLabel("How far", { exact: true }).selectOption("5");
     await expect(page).toHaveURL(/material=leaves/);
     await expect(page).toHaveURL(/radius_km=5/);
     await expect(page.getByText("nearest first", { exact: true })).toBeVisible();
@@ -102,7 +104,7 @@ test.describe.serial("listings", () => {
     await expect(card).toBeVisible();
     await expect(card).toContainText(/about [\d.]+ (m|km) away/);
     // Every card is leaves now.
-    const kinds = await page.locator("article p.uppercase").allTextContents();
+    const kinds = await page.getByTestId("card-material").allTextContents();
     expect(kinds.length).toBeGreaterThan(0);
     expect(new Set(kinds)).toEqual(new Set(["Fallen leaves"]));
 

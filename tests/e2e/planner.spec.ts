@@ -142,9 +142,17 @@ test("a gardener saves a bed, downloads its calendar, and gets the reminder on t
 
 test("the mix calculator works out a blend", async ({ page }) => {
   await page.goto("/mix");
+  // Amounts as people have them: the default is two barrows of leaves and a bucket of clippings.
+  await expect(page.getByRole("button", { name: "Fallen leaves", exact: true })).toHaveAttribute("aria-pressed", "true");
   await page.getByRole("button", { name: "Work out the mix" }).click();
+  await expect(page.getByTestId("balance")).toContainText("Heavy on browns");
+  await expect(page.getByTestId("squeeze")).toContainText("Squeeze test:");
+  // The per-material figures, their sources and the numbers sit behind one toggle.
+  await expect(page.getByText("Water to add")).toHaveCount(0);
+  await page.getByRole("button", { name: "Show the figures" }).click();
   await expect(page.getByText(/: 1$/).first()).toBeVisible();
   await expect(page.getByText("Water to add")).toBeVisible();
+  await expect(page.getByText(/Source: .*NRAES/).first()).toBeVisible();
   // The calculator keeps its full advice: the mass of clippings that brings this pile to 40,
   // however much (a bed is told only what fits as a layer).
   await expect(page.getByTestId("mix-advice")).toContainText(/kg of grass clippings/);

@@ -80,12 +80,17 @@ describe("creating a Checkout Session", () => {
 });
 
 describe("the hosted page", () => {
-  it("is a labelled, self-contained form marked as a test page", async () => {
+  it("is plainly Duffbank's local test checkout: outcomes to click, a labelled form, nothing loaded from elsewhere", async () => {
     const session = await newSession();
     const res = await fetch(session.url!);
     const html = await res.text();
     expect(res.status).toBe(200);
-    expect(html).toContain("Local test payment page — no real money");
+    expect(html).toContain("<h1>Duffbank's local test checkout</h1>");
+    expect(html).toContain("no real money");
+    // Each public test card is an outcome button that posts its number.
+    for (const number of [TEST_CARDS.approved, TEST_CARDS.declined]) {
+      expect(html).toContain(`name="card_number" value="${number.replace(/\s/g, "")}"`);
+    }
     for (const [id, label] of [
       ["field-card_number", "Card number"],
       ["field-expiry", "Expiry (MM/YY)"],

@@ -100,7 +100,7 @@ describe("filters and distance", () => {
       );
       expect(item.quantity_available).toBeGreaterThan(0);
       expect(Object.keys(item.location).sort()).toEqual(["lat", "lng"]);
-      expect(Object.keys(item.supplier).sort()).toEqual(["id", "name", "rating", "verified"]);
+      expect(Object.keys(item.supplier).sort()).toEqual(["collections", "id", "name", "rating", "verified"]);
       expect(item.distance_km).toBeNull();
     }
     // The seed's past pickups were reviewed (seeds/exchanges.ts): a reviewed supplier's cards carry

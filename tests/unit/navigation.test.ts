@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { navFor } from "@/lib/auth/navigation";
+import { navFor, navGroupsFor } from "@/lib/auth/navigation";
 
 describe("navigation by role", () => {
   const labels = (roles: Parameters<typeof navFor>[0]) => navFor(roles).map((l) => l.href);
@@ -20,5 +20,26 @@ describe("navigation by role", () => {
     expect(labels(["gardener"])).not.toContain("/reports");
     expect(labels(["council"])).toContain("/reports");
     expect(labels(["moderator"])).not.toContain("/grower");
+  });
+});
+
+describe("navigation gathered into menus by task", () => {
+  const shape = (roles: Parameters<typeof navGroupsFor>[0]) => navGroupsFor(roles).map((e) => ("links" in e ? `${e.label}: ${e.links.map((l) => l.href).join(" ")}` : e.href));
+  it("leaves a visitor's four links as they are", () => {
+    expect(shape(null)).toEqual(["/plan", "/mix", "/browse", "/giveaways"]);
+  });
+  it("gathers a gardener's into building a bed and finding material", () => {
+    expect(shape(["gardener"])).toEqual(["Build a bed: /plan /mix /beds", "Find material: /browse /giveaways /reservations"]);
+  });
+  it("adds giving for suppliers and growers, and a desk of their own for councils and moderators", () => {
+    expect(shape(["gardener", "grower"])).toEqual(["Build a bed: /plan /mix /beds", "Find material: /browse /giveaways /reservations", "Give material: /listings/mine /requests /grower /reports"]);
+    expect(shape(["council"])).toEqual(["Build a bed: /plan /mix", "Find material: /browse /giveaways", "Give material: /listings/mine /requests /reports", "/council"]);
+    expect(shape(["moderator"])).toEqual(["/plan", "/mix", "/browse", "/giveaways", "/moderation"]);
+  });
+  it("keeps every link of the flat list, once", () => {
+    for (const roles of [null, ["gardener"], ["supplier", "gardener"], ["council"], ["moderator"], ["gardener", "grower", "council", "moderator"]] as const) {
+      const flat = navGroupsFor(roles).flatMap((e) => ("links" in e ? e.links : [e]));
+      expect(flat.map((l) => l.href).sort()).toEqual(navFor(roles).map((l) => l.href).sort());
+    }
   });
 });

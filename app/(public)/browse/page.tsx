@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { currentUser } from "@/lib/auth/current-user";
 import { browseListings } from "@/lib/services/browse-listings";
+import { bedsStillNeed } from "@/lib/services/beds-still-need";
 import { browseParams, browseQuerySchema } from "@/lib/validation/listings";
 import { PageHeading } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";
@@ -11,22 +12,23 @@ import { viewerUnits } from "@/lib/units/viewer";
 export const metadata: Metadata = { title: "Find material" };
 
 export default async function BrowsePage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
-  const { cursor: _cursor, limit: _limit, ...raw } = browseParams(await searchParams);
+  const { cursor: _cursor, limit: _limit, amount, when, ...raw } = browseParams(await searchParams);
   const parsed = browseQuerySchema.safeParse(raw);
   const query = parsed.success ? parsed.data : {};
-  const [page, user] = await Promise.all([browseListings({ ...query, limit: BROWSE_PAGE }), currentUser()]);
+  const user = await currentUser();
+  const [page, beds] = await Promise.all([browseListings({ ...query, limit: BROWSE_PAGE }), user?.roles.includes("gardener") ? bedsStillNeed(user.id) : Promise.resolve([])]);
   return (
     <div>
       <PageHeading
         title="Find material"
-        lead="Leaves, board, bales, grounds, chips and worms that people near you have spare. Pick a distance to see the nearest first."
+        lead="Board, leaves, straw, worms and the greens that go with them, from people near you with some to spare. Choose a lane, say how far you can go, and how much you are after."
       />
       {parsed.success ? null : (
         <div className="mb-4">
           <Notice tone="caution">Part of that link did not make sense to us, so it shows everything on offer instead.</Notice>
         </div>
       )}
-      <BrowseView initial={{ filters: filtersFrom(query), page }} system={await viewerUnits(user)} />
+      <BrowseView initial={{ filters: filtersFrom(query, { amount, when }), page }} system={await viewerUnits(user)} beds={beds} signedIn={user !== null} />
     </div>
   );
 }

@@ -14,7 +14,8 @@ import { Notice } from "@/components/ui/notice";
 import { DuffMap } from "@/components/map/map";
 import { MaterialArt } from "@/components/listings/material-art";
 import { StatusActions } from "@/components/listings/status-actions";
-import { StatusBadge, VerifiedBadge } from "@/components/listings/status-badge";
+import { StatusBadge } from "@/components/listings/status-badge";
+import { TrustMarks } from "@/components/listings/trust-marks";
 import { QualityList } from "@/components/listings/quality-list";
 import { ListingCautions } from "@/components/listings/listing-cautions";
 import { CultureFacts } from "@/components/grower/culture-facts";
@@ -57,7 +58,6 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
   const system = await viewerUnits(viewer);
   const managed = "can_manage" in listing ? (listing as ManagedListingDetail) : null;
   const size = describeUnitSize(listing.unit, listing.unit_size, listing.unit_mass_kg, system, listing.material);
-  const rating = listing.supplier.rating;
   const [cover, ...more] = listing.photos;
   // Live cultures: species, rough count, collection or post, and the grower's posting days or pause.
   const culture = await cultureOffer({ material: listing.material, owner_id: listing.supplier.id, quality: listing.quality as Record<string, unknown>, available: listing.quantity_available });
@@ -75,14 +75,13 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
           <span>
             from <span className="font-medium">{listing.supplier.name}</span>
           </span>
-          {listing.supplier.verified ? <VerifiedBadge /> : null}
+          <TrustMarks supplier={listing.supplier} />
           {!managed && viewer?.id !== listing.supplier.id ? (
             // The form asks a visitor to sign in first, then comes back here.
             <Link href={`/report?user=${encodeURIComponent(listing.supplier.id)}`} className="text-sm text-humus-700 underline underline-offset-4">
               Report this supplier
             </Link>
           ) : null}
-          <span className="text-sm">{rating ? `★ ${rating.average.toFixed(1)} from ${rating.count} review${rating.count === 1 ? "" : "s"}` : "No reviews yet"}</span>
         </div>
       </header>
 

@@ -12,6 +12,7 @@ import { Notice } from "@/components/ui/notice";
 import { ReserveForm } from "@/components/reservations/reserve-form";
 import { ConfirmEmailNotice } from "@/components/profile/account-security";
 import { viewerUnits } from "@/lib/units/viewer";
+import { TrustMarks } from "@/components/listings/trust-marks";
 
 export const metadata: Metadata = { title: "Reserve" };
 
@@ -21,16 +22,9 @@ export default async function ReservePage({ params }: { params: Promise<{ id: st
   const system = await viewerUnits(user);
   const offer = await loadReserveOffer(id);
   if (!offer) notFound();
-  const rating = offer.supplier.rating;
   const lead = (
     <>
-      From {offer.supplier.name}
-      {offer.supplier.verified ? <span className="ml-2 rounded bg-moss-100 px-2 py-0.5 text-xs font-semibold text-moss-800">Verified</span> : null}
-      {rating ? (
-        <span className="ml-2 text-sm" aria-label={`Rated ${rating.average} out of 5 from ${rating.count} reviews`}>
-          ★ {rating.average.toFixed(1)} ({rating.count} {rating.count === 1 ? "review" : "reviews"})
-        </span>
-      ) : null}
+      From {offer.supplier.name} <TrustMarks supplier={offer.supplier} className="ml-1" />
     </>
   );
   const back = (
