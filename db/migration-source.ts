@@ -13,6 +13,7 @@ import * as sessionsAndLimits from "../migrations/20261206_012_sessions_and_limi
 import * as operations from "../migrations/20261207_013_operations";
 import * as exactQuantities from "../migrations/20261207_014_exact_quantities";
 import * as spatialIndex from "../migrations/20261207_015_spatial_index";
+import * as listingPoints from "../migrations/20261208_016_listing_points";
 
 // Migrations are listed here rather than found on disk so that the same list runs under
 // the CLI script, Vitest and the bundled Next.js server alike. Add new ones at the end.
@@ -31,6 +32,7 @@ const migrations: Record<string, Knex.Migration> = {
   "20261207_013_operations": operations,
   "20261207_014_exact_quantities": exactQuantities,
   "20261207_015_spatial_index": spatialIndex,
+  "20261208_016_listing_points": listingPoints,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {
