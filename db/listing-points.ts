@@ -18,8 +18,9 @@ export interface PointBox {
  * the R*Tree is read first (CROSS JOIN keeps that order: the planner would otherwise prefer
  * a B-tree band of latitude) and the listing's own point is checked exactly, since the
  * R*Tree stores rounded floats; elsewhere the exact check alone, for the engine's own index.
+ * With `materials`, listings of other materials are passed over inside the R*Tree.
  */
-export function listingsInBox(q: Db, box: PointBox): Knex.QueryBuilder {
+export function listingsInBox(q: Db, box: PointBox, materials?: readonly string[]): Knex.QueryBuilder {
   const lng: [number, number] | null = box.minLng !== undefined && box.maxLng !== undefined ? [box.minLng, box.maxLng] : null;
   let builder: Knex.QueryBuilder;
   if (!isPg(q)) {
@@ -28,9 +29,11 @@ export function listingsInBox(q: Db, box: PointBox): Knex.QueryBuilder {
       .where("listing_points.max_lat", ">=", box.minLat)
       .where("listing_points.min_lat", "<=", box.maxLat);
     if (lng) builder.where("listing_points.max_lng", ">=", lng[0]).where("listing_points.min_lng", "<=", lng[1]);
+    if (materials) builder.whereIn("listing_points.material_code", [...materials]);
   } else {
     builder = q.from("listings");
   }
+  if (materials) builder.whereIn("listings.material_code", [...materials]);
   builder.whereBetween("listings.approx_lat", [box.minLat, box.maxLat]);
   if (lng) builder.whereBetween("listings.approx_lng", lng);
   return builder;

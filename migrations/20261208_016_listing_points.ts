@@ -8,7 +8,8 @@ import { isPg } from "../db/dialect";
 // SQLite: an R*Tree (built into better-sqlite3) kept in step by triggers. Its key must be an
 // integer, and listings has a text primary key whose rowid VACUUM may renumber, so each
 // listing gets a stable integer key of its own in listing_point_keys; the listing id rides in
-// the R*Tree as an auxiliary column so a search joins straight to listings. The R*Tree keeps
+// the R*Tree as an auxiliary column so a search joins straight to listings, and the material
+// beside it so a search for some materials skips the others without reading them. The R*Tree keeps
 // 32-bit floats rounded outwards, so it answers "maybe in the box": queries check the exact
 // point on the listing row afterwards.
 //
@@ -17,17 +18,17 @@ import { isPg } from "../db/dialect";
 export async function up(knex: Knex): Promise<void> {
   if (isPg(knex)) return;
   await knex.raw("CREATE TABLE listing_point_keys (key INTEGER PRIMARY KEY, listing_id TEXT NOT NULL UNIQUE REFERENCES listings (id) ON DELETE CASCADE)");
-  await knex.raw("CREATE VIRTUAL TABLE listing_points USING rtree(key, min_lat, max_lat, min_lng, max_lng, +listing_id TEXT)");
+  await knex.raw("CREATE VIRTUAL TABLE listing_points USING rtree(key, min_lat, max_lat, min_lng, max_lng, +listing_id TEXT, +material_code TEXT)");
   await knex.raw("INSERT INTO listing_point_keys (listing_id) SELECT id FROM listings");
-  await knex.raw(`INSERT INTO listing_points (key, min_lat, max_lat, min_lng, max_lng, listing_id)
-    SELECT k.key, l.approx_lat, l.approx_lat, l.approx_lng, l.approx_lng, l.id FROM listings l JOIN listing_point_keys k ON k.listing_id = l.id`);
+  await knex.raw(`INSERT INTO listing_points (key, min_lat, max_lat, min_lng, max_lng, listing_id, material_code)
+    SELECT k.key, l.approx_lat, l.approx_lat, l.approx_lng, l.approx_lng, l.id, l.material_code FROM listings l JOIN listing_point_keys k ON k.listing_id = l.id`);
   await knex.raw(`CREATE TRIGGER listing_points_insert AFTER INSERT ON listings BEGIN
     INSERT INTO listing_point_keys (listing_id) VALUES (NEW.id);
-    INSERT INTO listing_points (key, min_lat, max_lat, min_lng, max_lng, listing_id)
-      VALUES ((SELECT key FROM listing_point_keys WHERE listing_id = NEW.id), NEW.approx_lat, NEW.approx_lat, NEW.approx_lng, NEW.approx_lng, NEW.id);
+    INSERT INTO listing_points (key, min_lat, max_lat, min_lng, max_lng, listing_id, material_code)
+      VALUES ((SELECT key FROM listing_point_keys WHERE listing_id = NEW.id), NEW.approx_lat, NEW.approx_lat, NEW.approx_lng, NEW.approx_lng, NEW.id, NEW.material_code);
   END`);
-  await knex.raw(`CREATE TRIGGER listing_points_update AFTER UPDATE OF approx_lat, approx_lng ON listings BEGIN
-    UPDATE listing_points SET min_lat = NEW.approx_lat, max_lat = NEW.approx_lat, min_lng = NEW.approx_lng, max_lng = NEW.approx_lng
+  await knex.raw(`CREATE TRIGGER listing_points_update AFTER UPDATE OF approx_lat, approx_lng, material_code ON listings BEGIN
+    UPDATE listing_points SET min_lat = NEW.approx_lat, max_lat = NEW.approx_lat, min_lng = NEW.approx_lng, max_lng = NEW.approx_lng, material_code = NEW.material_code
       WHERE key = (SELECT key FROM listing_point_keys WHERE listing_id = NEW.id);
   END`);
   // BEFORE, so the key is still there to find (the foreign key removes it with the listing).

@@ -60,11 +60,12 @@ const table = (q: Db, index: string) => (isPg(q) ? "listings" : q.raw(`listings 
  * through the spatial index, or with `index` (one that holds the point) read in its order.
  */
 function reservable(q: Db, index: string | null, materials: readonly MaterialCode[], box: Box, now: Date): Knex.QueryBuilder {
-  const from: Knex.QueryBuilder = index ? q.from(table(q, index)).whereBetween("approx_lat", [box.minLat, box.maxLat]).whereBetween("approx_lng", [box.minLng, box.maxLng]) : listingsInBox(q, box);
+  const from: Knex.QueryBuilder = index
+    ? q.from(table(q, index)).whereIn("material_code", [...materials]).whereBetween("approx_lat", [box.minLat, box.maxLat]).whereBetween("approx_lng", [box.minLng, box.maxLng])
+    : listingsInBox(q, box, materials);
   const qb = from
     .select(COLUMNS.map((c) => `listings.${c}`))
-    .where("status", "active")
-    .whereIn("material_code", [...materials])
+    .where("listings.status", "active")
     .whereRaw("quantity_total - quantity_held - quantity_collected > ?", [LEFT_EPS])
     .where((w) => w.whereNull("available_until").orWhere("available_until", ">", now.toISOString()))
     // Browse shows a listing ahead of its start date; a plan can only use what can be reserved now.
