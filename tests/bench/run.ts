@@ -1,6 +1,8 @@
-// npm run bench — matching at 1k, 10k and 100k listings against a naive full scan, then the
-// HTTP throughput of /api/match and /api/listings against /api/health on a production build.
-// Environment: BENCH_SIZES=1000,10000 to run fewer sizes; BENCH_HTTP=0 to skip the HTTP part.
+// npm run bench — matching at 1k, 10k, 100k and 1M listings against a naive full scan, then the
+// HTTP throughput of /api/listings, /api/match and /api/estimate against /api/health on a
+// production build, at 100k and 1M listings. SQLite, or PostgreSQL with DATABASE_URL set.
+// Environment: BENCH_SIZES=1000,10000 to run fewer sizes; BENCH_HTTP=0 to skip the HTTP part;
+// BENCH_HTTP_SIZES=100000 to measure HTTP at fewer sizes (default: every size from 100,000).
 import os from "node:os";
 import { performance } from "node:perf_hooks";
 import type { Knex } from "knex";
@@ -11,11 +13,14 @@ import { matchPlan } from "@/lib/match/plan";
 import { searchPlan } from "@/lib/match/search";
 import type { Need } from "@/lib/match/types";
 import { prng } from "@/seeds/ids";
-import { at, type BenchStore, buildDataset, emptyStore, HALF_SIDE_KM } from "./dataset";
-import { runHttpBench } from "./http";
+import { at, type BenchStore, buildDataset, emptyStore, halfSideKm } from "./dataset";
+import { runHttpBench, type HttpResult } from "./http";
 import { naiveCandidates, naiveNearest } from "./naive";
 
-const SIZES = (process.env.BENCH_SIZES ?? "1000,10000,100000").split(",").map(Number);
+const SIZES = (process.env.BENCH_SIZES ?? "1000,10000,100000,1000000").split(",").map(Number);
+const HTTP_SIZES = process.env.BENCH_HTTP_SIZES ? process.env.BENCH_HTTP_SIZES.split(",").map(Number) : SIZES.filter((n) => n >= 100_000);
+/** A full scan of a million rows takes tens of seconds a run, so the naive side stops here. */
+const NAIVE_MAX = 100_000;
 const RADIUS_KM = 25;
 const NEAR_LIMIT = 50;
 
@@ -40,10 +45,11 @@ async function time<T>(runs: number, origins: { lat: number; lng: number }[], fn
     out.push(await fn(origins[i % origins.length]));
     ms.push(performance.now() - t);
   }
-  return { p50: percentile(ms, 50), p95: percentile(ms, 95), out };
+  return { p50: ms.length ? percentile(ms, 50) : NaN, p95: ms.length ? percentile(ms, 95) : NaN, out };
 }
 
-const f1 = (x: number) => x.toFixed(x < 10 ? 2 : 1);
+const f1 = (x: number) => (Number.isNaN(x) ? "—" : x.toFixed(x < 10 ? 2 : 1));
+const times = (a: number, b: number) => (Number.isNaN(a / b) ? "—" : (a / b).toFixed(0));
 
 interface Row {
   size: number;
@@ -61,9 +67,10 @@ async function benchSize(size: number, dir: string): Promise<{ row: Row; k: Knex
   const k = await buildDataset(store, size);
   console.log(`[bench] ${size.toLocaleString("en-US")} listings written to ${store.label} in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
   const r = prng(7 + size);
-  const origins = Array.from({ length: 200 }, () => at((r() * 2 - 1) * (HALF_SIDE_KM - 3), (r() * 2 - 1) * (HALF_SIDE_KM - 3)));
+  const half = halfSideKm(size);
+  const origins = Array.from({ length: 200 }, () => at((r() * 2 - 1) * (half - 3), (r() * 2 - 1) * (half - 3)));
   const runs = 200;
-  const naiveRuns = size >= 100_000 ? 30 : size >= 10_000 ? 60 : 200;
+  const naiveRuns = size > NAIVE_MAX ? 0 : size >= 100_000 ? 30 : size >= 10_000 ? 60 : 200;
   const source = databaseSource(k);
   const materials = BENCH_NEEDS.map((n) => n.material);
 
@@ -95,8 +102,8 @@ function table(rows: Row[]) {
     "| listings | near-query p50 / p95 (ms) | naive p50 / p95 (ms) | × faster (p95) | match p50 / p95 (ms) | naive match p50 / p95 (ms) | × faster (p95) | listings read per match | plan cost vs naive |",
     "|---:|---:|---:|---:|---:|---:|---:|---:|---:|",
     ...rows.map((r) =>
-      `| ${r.size.toLocaleString("en-US")} | ${f1(r.near.p50)} / ${f1(r.near.p95)} | ${f1(r.nearNaive.p50)} / ${f1(r.nearNaive.p95)} | ${(r.nearNaive.p95 / r.near.p95).toFixed(0)} | ` +
-      `${f1(r.match.p50)} / ${f1(r.match.p95)} | ${f1(r.matchNaive.p50)} / ${f1(r.matchNaive.p95)} | ${(r.matchNaive.p95 / r.match.p95).toFixed(0)} | ${r.candidates.toFixed(0)} | ${(100 * r.costRatio).toFixed(1)} % |`,
+      `| ${r.size.toLocaleString("en-US")} | ${f1(r.near.p50)} / ${f1(r.near.p95)} | ${f1(r.nearNaive.p50)} / ${f1(r.nearNaive.p95)} | ${times(r.nearNaive.p95, r.near.p95)} | ` +
+      `${f1(r.match.p50)} / ${f1(r.match.p95)} | ${f1(r.matchNaive.p50)} / ${f1(r.matchNaive.p95)} | ${times(r.matchNaive.p95, r.match.p95)} | ${r.candidates.toFixed(0)} | ${Number.isNaN(r.costRatio) ? "— (no full scan)" : `${(100 * r.costRatio).toFixed(1)} %`} |`,
     ),
   ];
   return lines.join("\n");
@@ -105,22 +112,43 @@ function table(rows: Row[]) {
 async function main() {
   const dir = process.env.BENCH_DIR ?? os.tmpdir();
   const engine = process.env.DATABASE_URL ? "PostgreSQL (DATABASE_URL)" : "SQLite";
-  console.log(`[bench] ${engine}; ${os.cpus().length} × ${os.cpus()[0]?.model ?? "cpu"}, Node ${process.version}; ${BENCH_NEEDS.length} needs within ${RADIUS_KM} km; near-query = the ${NEAR_LIMIT} nearest listings within ${RADIUS_KM} km`);
+  console.log(`[bench] ${engine}; ${os.cpus().length} × ${os.cpus()[0]?.model ?? "cpu"}, Node ${process.version}; load average ${os.loadavg().map((x) => x.toFixed(1)).join(" ")}; ${BENCH_NEEDS.length} needs within ${RADIUS_KM} km; near-query = the ${NEAR_LIMIT} nearest listings within ${RADIUS_KM} km`);
   const rows: Row[] = [];
-  let biggest: { k: Knex; store: BenchStore } | null = null;
+  const stores = new Map<number, BenchStore>();
   for (const size of SIZES) {
     const { row, k, store } = await benchSize(size, dir);
     rows.push(row);
-    if (biggest) await biggest.k.destroy();
-    biggest = { k, store };
+    await k.destroy();
+    if (HTTP_SIZES.includes(size)) stores.set(size, store);
   }
   console.log(`\n${table(rows)}\n`);
   const [first, last] = [rows[0], rows[rows.length - 1]];
   if (rows.length > 1) {
-    console.log(`[bench] listings grew ${(last.size / first.size).toFixed(0)}×; match p95 grew ${(last.match.p95 / first.match.p95).toFixed(1)}×, the naive scan's ${(last.matchNaive.p95 / first.matchNaive.p95).toFixed(1)}×`);
+    const naive = Number.isNaN(last.matchNaive.p95) ? "" : `, the naive scan's ${(last.matchNaive.p95 / first.matchNaive.p95).toFixed(1)}×`;
+    console.log(`[bench] listings grew ${(last.size / first.size).toFixed(0)}×; match p95 grew ${(last.match.p95 / first.match.p95).toFixed(1)}×${naive}`);
   }
-  if (biggest) await biggest.k.destroy();
-  if (process.env.BENCH_HTTP !== "0" && biggest) await runHttpBench(biggest.store, BENCH_NEEDS);
+  if (process.env.BENCH_HTTP === "0" || stores.size === 0) return;
+  const http: HttpResult[] = [];
+  for (const [size, store] of stores) http.push(await runHttpBench(store, size, BENCH_NEEDS));
+  if (http.length > 1) console.log(`\n${scaleTable(http[0], http[http.length - 1])}`);
+}
+
+/** The biggest size against the first HTTP size: throughput may drop at most 1.5×. */
+function scaleTable(small: HttpResult, big: HttpResult): string {
+  const lines = [
+    `[bench] HTTP at ${big.size.toLocaleString("en-US")} against ${small.size.toLocaleString("en-US")} listings (target: each route within 1.5×: its share of /api/health's requests/s at least 0.67× the smaller size's)`,
+    "",
+    `| endpoint | ${small.size.toLocaleString("en-US")}: requests/s (× health) | ${big.size.toLocaleString("en-US")}: requests/s (× health) | ratio | met |`,
+    "|---|---:|---:|---:|---|",
+  ];
+  for (const s of small.rows) {
+    const b = big.rows.find((x) => x.name === s.name);
+    if (!b) continue;
+    // Against /api/health in the same run, so a machine busier in one run than the other does not count.
+    const ratio = b.ofHealth / s.ofHealth;
+    lines.push(`| ${s.name} | ${s.rps.toFixed(0)} (${s.ofHealth.toFixed(2)}×) | ${b.rps.toFixed(0)} (${b.ofHealth.toFixed(2)}×) | ${ratio.toFixed(2)} | ${ratio >= 1 / 1.5 ? "yes" : "no"} |`);
+  }
+  return lines.join("\n");
 }
 
 if (process.argv[1]?.endsWith("run.ts")) main().catch((err) => {
