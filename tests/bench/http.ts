@@ -5,7 +5,7 @@ import autocannon from "autocannon";
 import type { Need } from "@/lib/match/types";
 import { prng } from "@/seeds/ids";
 import { at, type BenchStore, halfSideKm } from "./dataset";
-import { startApp } from "./server";
+import { type RunningApp, startApp } from "./server";
 
 /** Seconds of load per route in all. */
 const SECONDS = Number(process.env.BENCH_HTTP_SECONDS ?? 15);
@@ -32,14 +32,37 @@ export interface HttpRow {
 
 export interface HttpResult {
   size: number;
+  processes: number;
   rows: HttpRow[];
+}
+
+type Result = Awaited<ReturnType<typeof autocannon>>;
+
+/** Several autocannon runs at once (one per app process, as a balancer would spread them), as one result. */
+function merged(results: Result[]): Result {
+  return {
+    requests: { average: results.reduce((s, r) => s + r.requests.average, 0) },
+    latency: {
+      p50: Math.max(...results.map((r) => r.latency.p50)),
+      p97_5: Math.max(...results.map((r) => r.latency.p97_5)),
+      p99: Math.max(...results.map((r) => r.latency.p99)),
+    },
+    non2xx: results.reduce((s, r) => s + r.non2xx, 0),
+    errors: results.reduce((s, r) => s + r.errors, 0),
+    timeouts: results.reduce((s, r) => s + r.timeouts, 0),
+  };
 }
 
 /** Seconds per round, rounds per route: the routes take turns, so a spell of load from elsewhere falls on all of them. */
 const ROUNDS = Number(process.env.BENCH_HTTP_ROUNDS ?? 3);
 
-export async function runHttpBench(store: BenchStore, size: number, needs: Need[]): Promise<HttpResult> {
-  const { base, stop } = await startApp(store.env);
+/** Load the routes on `processes` app processes over one database (each its own port, the connections split between them). */
+export async function runHttpBench(store: BenchStore, size: number, needs: Need[], processes = 1): Promise<HttpResult> {
+  const apps: RunningApp[] = [];
+  // One after another: the first migrates and seeds, the others find it done.
+  for (let i = 0; i < processes; i++) apps.push(await startApp(store.env));
+  const fire = async (t: Target, duration: number) =>
+    merged(await Promise.all(apps.map((a) => autocannon({ ...t.opts(a.base), connections: Math.max(1, Math.round(CONNECTIONS / processes)), duration }))));
   try {
     const r = prng(11);
     const half = halfSideKm(size);
@@ -65,12 +88,12 @@ export async function runHttpBench(store: BenchStore, size: number, needs: Need[
       { name: "POST /api/estimate (4 × 2.5 m bed)", target: 0.8, opts: (b) => post(b, "/api/estimate", () => ({ bed: { length_m: 4, width_m: 2.5 } })) },
     ];
     // Warm-up: the first requests load each route's code and fill the JIT.
-    for (const t of targets) await autocannon({ ...t.opts(base), connections: CONNECTIONS, duration: 2 });
+    for (const t of targets) await fire(t, 2);
     const load = os.loadavg();
-    const runs = new Map<string, Awaited<ReturnType<typeof autocannon>>[]>();
+    const runs = new Map<string, Result[]>();
     for (let round = 0; round < ROUNDS; round++) {
       for (const t of targets) {
-        const res = await autocannon({ ...t.opts(base), connections: CONNECTIONS, duration: SECONDS / ROUNDS });
+        const res = await fire(t, SECONDS / ROUNDS);
         runs.set(t.name, [...(runs.get(t.name) ?? []), res]);
       }
     }
@@ -95,7 +118,7 @@ export async function runHttpBench(store: BenchStore, size: number, needs: Need[
       return { ...x, ofHealth: x.rps / health };
     });
     console.log(
-      `\n[bench] HTTP, production build, ${size.toLocaleString("en-US")} listings on ${"DATABASE_URL" in store.env ? "PostgreSQL" : "SQLite"}: ${CONNECTIONS} connections, ${ROUNDS} turns of ${(SECONDS / ROUNDS).toFixed(1)} s per route; ` +
+      `\n[bench] HTTP, production build, ${size.toLocaleString("en-US")} listings on ${"DATABASE_URL" in store.env ? "PostgreSQL" : "SQLite"}, ${processes} app process${processes > 1 ? "es" : ""}: ${CONNECTIONS} connections, ${ROUNDS} turns of ${(SECONDS / ROUNDS).toFixed(1)} s per route; ` +
         `load average ${load[0].toFixed(1)} before, ${loadAfter[0].toFixed(1)} after, on ${os.cpus().length} cores (autocannon shares them)\n`,
     );
     console.log("| endpoint | requests/s | × health | target | met | latency p50 / p97.5 / p99 (ms), worst turn | non-2xx | errors |");
@@ -104,8 +127,8 @@ export async function runHttpBench(store: BenchStore, size: number, needs: Need[
       const met = x.target === undefined ? "" : x.ofHealth >= x.target && x.non2xx === 0 && x.errors === 0 ? "yes" : "no";
       console.log(`| ${x.name} | ${x.rps.toFixed(0)} | ${x.ofHealth.toFixed(2)} | ${x.target === undefined ? "" : `≥ ${x.target}`} | ${met} | ${x.p50} / ${x.p97_5} / ${x.p99} | ${x.non2xx} | ${x.errors} |`);
     }
-    return { size, rows };
+    return { size, processes, rows };
   } finally {
-    await stop();
+    for (const a of apps) await a.stop();
   }
 }

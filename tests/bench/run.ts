@@ -19,6 +19,8 @@ import { naiveCandidates, naiveNearest } from "./naive";
 
 const SIZES = (process.env.BENCH_SIZES ?? "1000,10000,100000,1000000").split(",").map(Number);
 const HTTP_SIZES = process.env.BENCH_HTTP_SIZES ? process.env.BENCH_HTTP_SIZES.split(",").map(Number) : SIZES.filter((n) => n >= 100_000);
+/** App processes to measure HTTP with: one on SQLite (a file on one machine); one and two on PostgreSQL. */
+const HTTP_PROCESSES = (process.env.BENCH_HTTP_PROCESSES ?? (process.env.DATABASE_URL ? "1,2" : "1")).split(",").map(Number);
 /** A full scan of a million rows takes tens of seconds a run, so the naive side stops here. */
 const NAIVE_MAX = 100_000;
 const RADIUS_KM = 25;
@@ -129,8 +131,29 @@ async function main() {
   }
   if (process.env.BENCH_HTTP === "0" || stores.size === 0) return;
   const http: HttpResult[] = [];
-  for (const [size, store] of stores) http.push(await runHttpBench(store, size, BENCH_NEEDS));
-  if (http.length > 1) console.log(`\n${scaleTable(http[0], http[http.length - 1])}`);
+  for (const [size, store] of stores) for (const n of HTTP_PROCESSES) http.push(await runHttpBench(store, size, BENCH_NEEDS, n));
+  const single = http.filter((h) => h.processes === HTTP_PROCESSES[0]);
+  if (single.length > 1) console.log(`\n${scaleTable(single[0], single[single.length - 1])}`);
+  if (HTTP_PROCESSES.length > 1) console.log(`\n${processTable(http)}`);
+}
+
+/** How throughput grows with app processes, per size and route (on a machine with os.cpus() cores, autocannon and the database on it too). */
+function processTable(http: HttpResult[]): string {
+  const counts = [...new Set(http.map((h) => h.processes))];
+  const lines = [
+    `[bench] HTTP requests/s by app processes (${os.cpus().length} cores, shared with the load generator and the database server)`,
+    "",
+    `| listings | endpoint | ${counts.map((n) => `${n} process${n > 1 ? "es" : ""}`).join(" | ")} | × from ${counts[0]} to ${counts[counts.length - 1]} |`,
+    `|---:|---|${counts.map(() => "---:").join("|")}|---:|`,
+  ];
+  for (const size of [...new Set(http.map((h) => h.size))]) {
+    const bySize = http.filter((h) => h.size === size);
+    for (const row of bySize[0].rows) {
+      const rps = counts.map((n) => bySize.find((h) => h.processes === n)?.rows.find((x) => x.name === row.name)?.rps ?? NaN);
+      lines.push(`| ${size.toLocaleString("en-US")} | ${row.name} | ${rps.map((x) => x.toFixed(0)).join(" | ")} | ${(rps[rps.length - 1] / rps[0]).toFixed(2)} |`);
+    }
+  }
+  return lines.join("\n");
 }
 
 /** The biggest size against the first HTTP size: throughput may drop at most 1.5×. */
