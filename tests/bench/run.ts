@@ -2,7 +2,8 @@
 // HTTP throughput of /api/listings, /api/match and /api/estimate against /api/health on a
 // production build, at 100k and 1M listings. SQLite, or PostgreSQL with DATABASE_URL set.
 // Environment: BENCH_SIZES=1000,10000 to run fewer sizes; BENCH_HTTP=0 to skip the HTTP part;
-// BENCH_HTTP_SIZES=100000 to measure HTTP at fewer sizes (default: every size from 100,000).
+// BENCH_HTTP_SIZES=100000 to measure HTTP at fewer sizes (default: every size from 100,000);
+// BENCH_NAIVE=0 to leave out the full scans (minutes at 100,000 listings on a busy machine).
 import os from "node:os";
 import { performance } from "node:perf_hooks";
 import type { Knex } from "knex";
@@ -72,7 +73,7 @@ async function benchSize(size: number, dir: string): Promise<{ row: Row; k: Knex
   const half = halfSideKm(size);
   const origins = Array.from({ length: 200 }, () => at((r() * 2 - 1) * (half - 3), (r() * 2 - 1) * (half - 3)));
   const runs = 200;
-  const naiveRuns = size > NAIVE_MAX ? 0 : size >= 100_000 ? 30 : size >= 10_000 ? 60 : 200;
+  const naiveRuns = process.env.BENCH_NAIVE === "0" || size > NAIVE_MAX ? 0 : size >= 100_000 ? 30 : size >= 10_000 ? 60 : 200;
   const source = databaseSource(k);
   const materials = BENCH_NEEDS.map((n) => n.material);
 
