@@ -40,7 +40,7 @@ const config: Config = {
         ember: { 100: "#fbe3dc", 600: "#b3401f", 800: "#7a2a13" },
       },
       fontFamily: {
-        sans: ["Work Sans", "ui-sans-serif", "system-ui", "sans-serif"],
+        sans: ["var(--font-work-sans)", "ui-sans-serif", "system-ui", "sans-serif"],
       },
       borderRadius: { leaf: "1.25rem 0.375rem 1.25rem 0.375rem" },
     },

@@ -1,4 +1,5 @@
 import type { Metadata, Viewport } from "next";
+import localFont from "next/font/local";
 import type { ReactNode } from "react";
 import "./globals.css";
 import { Providers } from "./providers";
@@ -13,6 +14,15 @@ export const metadata: Metadata = {
   icons: { icon: "/icon.svg" },
 };
 
+// One variable font file (every weight), shipped with the app and preloaded; text shows at
+// once in a fallback sized to match, so the swap moves nothing.
+const workSans = localFont({
+  src: "../node_modules/@fontsource-variable/work-sans/files/work-sans-latin-wght-normal.woff2",
+  weight: "100 900",
+  display: "swap",
+  variable: "--font-work-sans",
+});
+
 export const viewport: Viewport = { width: "device-width", initialScale: 1, themeColor: "#40642e" };
 
 export default async function RootLayout({ children }: { children: ReactNode }) {
@@ -21,7 +31,7 @@ export default async function RootLayout({ children }: { children: ReactNode }) 
   // Listings found for a gardener's open needs that they have not looked at yet.
   const newAlerts = user?.roles.includes("gardener") ? await countNewAlerts(user.id) : 0;
   return (
-    <html lang="en">
+    <html lang="en" className={workSans.variable}>
       <body className="flex min-h-screen flex-col">
         <Providers units={units}>
           <SiteHeader user={user} counts={{ "/needs": newAlerts }} />

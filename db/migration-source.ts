@@ -13,6 +13,7 @@ import * as sessionsAndLimits from "../migrations/20261206_012_sessions_and_limi
 import * as operations from "../migrations/20261207_013_operations";
 import * as exactQuantities from "../migrations/20261207_014_exact_quantities";
 import * as spatialIndex from "../migrations/20261207_015_spatial_index";
+import * as listingPoints from "../migrations/20261208_016_listing_points";
 import * as openNeeds from "../migrations/20261208_020_open_needs";
 import * as answerWindows from "../migrations/20261209_030_answer_windows";
 import * as places from "../migrations/20261209_031_places";
@@ -34,6 +35,7 @@ const migrations: Record<string, Knex.Migration> = {
   "20261207_013_operations": operations,
   "20261207_014_exact_quantities": exactQuantities,
   "20261207_015_spatial_index": spatialIndex,
+  "20261208_016_listing_points": listingPoints,
   "20261208_020_open_needs": openNeeds,
   "20261209_030_answer_windows": answerWindows,
   "20261209_031_places": places,

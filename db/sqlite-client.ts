@@ -26,7 +26,41 @@ export function isBrokenSqliteConnection(err: unknown): boolean {
   return kind === "read_only" || kind === "connection";
 }
 
+/** Statements kept per connection; the app sends a few hundred distinct ones. */
+const STATEMENT_CACHE = 500;
+
+interface Preparing {
+  prepare: (sql: string) => unknown;
+}
+
+/**
+ * Keep each connection's prepared statements. Knex prepares every query afresh, and for a
+ * browse page's few queries SQLite's parsing and planning cost more than running them.
+ * A kept statement stays right across schema changes: SQLite prepares it again by itself.
+ */
+export function cacheStatements<C extends Preparing>(connection: C, size: number = STATEMENT_CACHE): C {
+  const prepare = connection.prepare.bind(connection);
+  const kept = new Map<string, unknown>();
+  connection.prepare = (sql: string) => {
+    let statement = kept.get(sql);
+    if (statement) {
+      // Most recently used last, so the first key is the one to drop.
+      kept.delete(sql);
+    } else {
+      statement = prepare(sql);
+      if (kept.size >= size) kept.delete(kept.keys().next().value!);
+    }
+    kept.set(sql, statement);
+    return statement;
+  };
+  return connection;
+}
+
 export class ResilientSqliteClient extends Client_BetterSQLite3 {
+  async acquireRawConnection(): Promise<unknown> {
+    return cacheStatements((await super.acquireRawConnection()) as Preparing);
+  }
+
   async _query(connection: unknown, obj: unknown): Promise<unknown> {
     try {
       return await super._query(connection, obj);

@@ -63,7 +63,20 @@ const schema = z.object({
 
 export type AppEnv = z.infer<typeof schema>;
 
+const KEYS = Object.keys(schema.shape) as (keyof AppEnv)[];
+// Read on every request (the proxy's headers, the location key), so the last answer is kept
+// for as long as the variables it came from are the same; tests that change them get a new one.
+let last: { key: string; value: AppEnv } | null = null;
+
 export function readEnv(env: Env = process.env): AppEnv {
+  const key = KEYS.map((k) => env[k] ?? "\u0000").join("\u0001");
+  if (last?.key === key) return last.value;
+  const value = parseEnv(env);
+  last = { key, value };
+  return value;
+}
+
+function parseEnv(env: Env): AppEnv {
   const parsed = schema.safeParse(env);
   if (parsed.success) return parsed.data;
   // A malformed value is reported by startupProblems; here fall back to reading it as unset.

@@ -6,6 +6,7 @@
 // and %C = %N × C:N (Cornell, "C/N Ratio", Richard & Trautmann).
 import { CN_RATIO, MATERIALS, type MaterialCode } from "./facts";
 import { waterToTarget } from "./water";
+import { formatNumber } from "@/lib/format/number";
 
 export interface BlendComponent {
   material?: MaterialCode;
@@ -106,7 +107,7 @@ const CARBON_SOURCES: readonly MaterialCode[] = ["leaves", "straw", "cardboard"]
 function kgText(kg: number): string {
   const step = kg < 10 ? 0.1 : 1;
   const up = Math.ceil(kg / step - 1e-9) * step;
-  return `${up.toLocaleString("en-US", { maximumFractionDigits: kg < 10 ? 1 : 0 })} kg`;
+  return `${formatNumber(up, kg < 10 ? 1 : 0)} kg`;
 }
 
 function orList(items: string[]): string {

@@ -4,10 +4,7 @@
 // accuracy the facts do not have: worms "about 11,000", not 11,023; "0.9 km", not 0.888;
 // water to 5 or 10 litres.
 import { lToUsGal, toDisplay, type DisplayUnit, type UnitSystem } from "@/lib/calc/units";
-
-const EN = (value: number, decimals: number) =>
-  // Fixed locale so the server and the browser render the same string.
-  value.toLocaleString("en-US", { maximumFractionDigits: Math.max(0, decimals) });
+import { formatNumber as EN } from "./number";
 
 /** `value` rounded to the nearest multiple of `step` (steps like 0.5 or 5 keep their decimals clean). */
 export function roundToStep(value: number, step: number): number {

@@ -41,10 +41,11 @@ export interface Place {
   lng: number;
 }
 
-export function approximatePoint(place: Place): { lat: number; lng: number } {
+/** The public point of `place`; `key` defaults to the configured one (passed in by bulk writers). */
+export function approximatePoint(place: Place, key: string = locationKey()): { lat: number; lng: number } {
   const { owner, lat, lng } = place;
   const cell = `${Math.floor(lat / CELL_DEG)}:${Math.floor(lng / CELL_DEG)}`;
-  const digest = createHmac("sha256", locationKey()).update(`${owner}|${cell}`).digest();
+  const digest = createHmac("sha256", key).update(`${owner}|${cell}`).digest();
   const u1 = digest.readUInt32BE(0) / 0xffffffff;
   const u2 = digest.readUInt32BE(4) / 0xffffffff;
   const distanceM = APPROX_MIN_M + (APPROX_MAX_M - APPROX_MIN_M) * u1;

@@ -1,6 +1,7 @@
 // How listings read on screen: quantities in the reader's unit system, unit sizes, money and
 // pickup times. Pure and free of server code, so the browse list, the detail page and the
 // form all say the same thing.
+import { formatAmount } from "@/lib/format/number";
 import { lToUsGal, m2ToFt2, m3ToFt3, kgToLb, ft2ToM2, lbToKg, yd3ToM3, type UnitSystem } from "@/lib/calc/units";
 import { formatQuantity } from "@/lib/format/quantity";
 import { FOOT_M, LITRE_M3, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
@@ -68,7 +69,7 @@ export function formatDistance(km: number, system: UnitSystem = "metric"): strin
 
 /** "Free", or the price with its currency, per unit. Fixed locale so server and browser agree. */
 export function formatMoney(cents: number, currency: string): string {
-  return new Intl.NumberFormat("en-GB", { style: "currency", currency: currency.toUpperCase() }).format(cents / 100);
+  return formatAmount(cents / 100, currency);
 }
 
 /**

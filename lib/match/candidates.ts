@@ -2,6 +2,7 @@ import "server-only";
 import type { Knex } from "knex";
 import { db, type Db } from "@/db/index";
 import { isPg, nearBox } from "@/db/dialect";
+import { listingsInBox } from "@/db/listing-points";
 import type { MaterialCode } from "@/lib/calc/facts";
 import { UNIT_PRICE_INDEX, UNIT_PRICE_SQL } from "@/migrations/20261201_004_listing_unit_price";
 import { type Box, boundingBox, distanceKm, enclosingCircle } from "./geo";
@@ -9,12 +10,12 @@ import type { CandidateSource, CheapestRows } from "./search";
 import type { CandidateListing, LatLng, ListingUnit } from "./types";
 
 // The one query module of matching. Every query names its index: a box on the public
-// point through listings_search_box (status, material_code, approx_lat, approx_lng), or the
-// price order through listings_unit_price; then Turf's exact distance decides. None reads
-// the whole table. SQLite is told which index to use. PostgreSQL's planner picks its own,
-// and has the spatial index besides (listings_near, a GiST index of points in space): each
-// box also asks for the cube around the circle that holds it (db/dialect.ts nearBox), so the
-// same rows come back either way.
+// point through the spatial index (db/listing-points.ts: an R*Tree on SQLite, listings_near,
+// a GiST index of points in space, on PostgreSQL), or the price order through
+// listings_unit_price (status, material_code, unit price, approx_lat, approx_lng); then Turf's
+// exact distance decides. None reads the whole table. SQLite is told which index to use for
+// the price order. On PostgreSQL each box also asks for the cube around the circle that holds
+// it (db/dialect.ts nearBox), so the same rows come back either way.
 
 const COLUMNS = [
   "id",
@@ -56,15 +57,17 @@ const LEFT_EPS = 1e-9;
 
 const table = (q: Db, index: string) => (isPg(q) ? "listings" : q.raw(`listings INDEXED BY ${index}`));
 
-/** Active, with something left, within its dates (begun, not ended), inside the box. */
-function reservable(q: Db, index: string, materials: readonly MaterialCode[], box: Box, now: Date): Knex.QueryBuilder {
-  const qb = q
-    .from(table(q, index))
-    .select(...COLUMNS)
-    .where("status", "active")
-    .whereIn("material_code", [...materials])
-    .whereBetween("approx_lat", [box.minLat, box.maxLat])
-    .whereBetween("approx_lng", [box.minLng, box.maxLng])
+/**
+ * Active, with something left, within its dates (begun, not ended), inside the box: found
+ * through the spatial index, or with `index` (one that holds the point) read in its order.
+ */
+function reservable(q: Db, index: string | null, materials: readonly MaterialCode[], box: Box, now: Date): Knex.QueryBuilder {
+  const from: Knex.QueryBuilder = index
+    ? q.from(table(q, index)).whereIn("material_code", [...materials]).whereBetween("approx_lat", [box.minLat, box.maxLat]).whereBetween("approx_lng", [box.minLng, box.maxLng])
+    : listingsInBox(q, box, materials);
+  const qb = from
+    .select(COLUMNS.map((c) => `listings.${c}`))
+    .where("listings.status", "active")
     .whereRaw("quantity_total - quantity_held - quantity_collected > ?", [LEFT_EPS])
     .where((w) => w.whereNull("available_until").orWhere("available_until", ">", now.toISOString()))
     // Browse shows a listing ahead of its start date; a plan can only use what can be reserved now.
@@ -125,7 +128,7 @@ export async function findInBox(
   // Under a price cap the price index reads only the listings that cheap.
   const rows: Row[] =
     opts.maxUnitPrice === undefined
-      ? await reservable(q, "listings_search_box", materials, box, now)
+      ? await reservable(q, null, materials, box, now)
       : await reservable(q, UNIT_PRICE_INDEX, materials, box, now).whereRaw(`${UNIT_PRICE_SQL} <= ?`, [opts.maxUnitPrice]);
   return rows.map((r) => toCandidate(r, origin));
 }

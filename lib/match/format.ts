@@ -1,5 +1,6 @@
 import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { type UnitSystem } from "@/lib/calc/units";
+import { formatAmount } from "@/lib/format/number";
 import { formatQuantity } from "@/lib/format/quantity";
 import type { ListingUnit, NeedUnit } from "./types";
 import { MAX_RADIUS_KM } from "./defaults";
@@ -7,7 +8,7 @@ import { MAX_RADIUS_KM } from "./defaults";
 /** Integer cents as money, e.g. "€4.50"; free is "free". */
 export function formatCents(cents: number, currency: string): string {
   if (cents === 0) return "free";
-  return new Intl.NumberFormat("en-GB", { style: "currency", currency: currency.toUpperCase() }).format(cents / 100);
+  return formatAmount(cents / 100, currency);
 }
 
 const COUNTED: Partial<Record<ListingUnit, [string, string]>> = { sheets: ["sheet", "sheets"], bags: ["bag", "bags"], bales: ["bale", "bales"] };

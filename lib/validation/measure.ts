@@ -5,6 +5,7 @@
 // value inside them is stored in SI, kept within the metric limits (12 in is 30 cm, not
 // 30.48: the difference is below what "12 in" says).
 import { z } from "zod";
+import { formatNumber } from "@/lib/format/number";
 import { cmToIn, ftToM, inToCm, kgToLb, lbToKg, m2ToFt2, mToFt } from "@/lib/calc/units";
 
 export interface Dimension {
@@ -51,7 +52,7 @@ export interface Limits {
   max: number;
 }
 
-const n = (x: number) => x.toLocaleString("en-US", { maximumFractionDigits: 2 });
+const n = (x: number) => formatNumber(x, 2);
 
 /** One field's schema in one unit, with messages in that unit. */
 function field(what: string, symbol: string, limits: Limits, also?: (x: number) => string) {

@@ -2,6 +2,10 @@
 // villages plus a scatter of farms, over about 50 × 50 km centred on Fernhollow, with a
 // material mix, units, prices and statuses like the demo's. Written to its own SQLite file,
 // or with DATABASE_URL set to its own database on that PostgreSQL server.
+//
+// Up to 100,000 listings the county only gets denser. Past that the table covers a region
+// of several counties at the county's density (1,000,000 listings: about 158 × 158 km with
+// 120 villages), so a 25 km search reads a county's worth of listings whatever the table holds.
 import fs from "node:fs";
 import path from "node:path";
 import knex, { type Knex } from "knex";
@@ -9,11 +13,18 @@ import { pgConfig, sqliteConfig } from "@/knexfile";
 import { isPg } from "@/db/dialect";
 import { adminConnection, createDatabase, databaseUrl, dropDatabase } from "../helpers/pg-databases";
 import { BAG_M3, BALE_M3, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
-import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
+import { approximatePoint, locationKey, placeOwner } from "@/lib/geo/approximate";
 import { prng } from "@/seeds/ids";
 
 export const CENTRE = { lat: 52.205, lng: 0.847 };
 export const HALF_SIDE_KM = 25;
+/** Listings the county holds at most; more spread over a wider region at this density. */
+const COUNTY_LISTINGS = 100_000;
+
+/** Half the side of the square the dataset covers, km. */
+export function halfSideKm(size: number): number {
+  return HALF_SIDE_KM * Math.sqrt(Math.max(1, size / COUNTY_LISTINGS));
+}
 const KM_PER_DEG_LAT = 111.2;
 const KM_PER_DEG_LNG = KM_PER_DEG_LAT * Math.cos((CENTRE.lat * Math.PI) / 180);
 
@@ -88,43 +99,87 @@ export async function emptyStore(dir: string, size: number | string): Promise<Be
   return { label: `database ${name}`, env: { DATABASE_URL: url }, open: () => knex(pgConfig(url)) };
 }
 
+const COLUMNS = [
+  "id", "owner_id", "material_code", "title", "description", "status", "unit", "unit_size", "unit_mass_kg", "quantity_total", "quantity_held",
+  "quantity_collected", "price_cents", "currency", "deposit_cents", "max_per_reservation", "auto_accept", "lat", "lng", "address",
+  "approx_lat", "approx_lng", "available_from", "available_until", "quality", "created_at", "updated_at",
+] as const;
+/** Rows per transaction while writing: keeps the write-ahead log to a few hundred MB. */
+const CHUNK = 50_000;
+
+interface Sqlite {
+  pragma(sql: string): unknown;
+  prepare(sql: string): { run(...args: unknown[]): unknown };
+  transaction(fn: () => void): () => void;
+}
+
+/**
+ * Write `size` rows made by `row`, CHUNK to a transaction. On SQLite straight through the
+ * driver with one prepared statement (the triggers and indexes do the same work as for any
+ * listing, without a million query builders in between); on PostgreSQL in batches of 1,000.
+ */
+async function writeListings(k: Knex, size: number, row: (i: number) => unknown[]): Promise<void> {
+  if (isPg(k)) {
+    const asObject = (values: unknown[]) => Object.fromEntries(COLUMNS.map((c, j) => [c, c === "auto_accept" ? values[j] === 1 : values[j]]));
+    for (let from = 0; from < size; from += CHUNK) {
+      await k.transaction(async (trx) => {
+        for (let i = from; i < Math.min(size, from + CHUNK); i += 1000) {
+          await trx("listings").insert(Array.from({ length: Math.min(1000, size - i, from + CHUNK - i) }, (_, j) => asObject(row(i + j))));
+        }
+      });
+    }
+    return;
+  }
+  const conn = (await k.client.acquireConnection()) as Sqlite;
+  // Room for the indexes being filled (SQLite keeps 2 MB by default), else every insert
+  // reads index pages back in from the file once the table outgrows the cache.
+  conn.pragma("cache_size = -524288");
+  try {
+    const insert = conn.prepare(`INSERT INTO listings (${COLUMNS.join(", ")}) VALUES (${COLUMNS.map(() => "?").join(", ")})`);
+    for (let from = 0; from < size; from += CHUNK) {
+      conn.transaction(() => {
+        for (let i = from; i < Math.min(size, from + CHUNK); i++) insert.run(...row(i));
+      })();
+    }
+  } finally {
+    conn.pragma("cache_size = -2000");
+    await k.client.releaseConnection(conn);
+  }
+}
+
 export async function buildDataset(store: BenchStore, size: number): Promise<Knex> {
   const k = store.open();
   await k.migrate.latest();
   const r = prng(size);
   const created = "2026-11-01T09:00:00.000Z";
+  const regions = Math.max(1, size / COUNTY_LISTINGS);
+  const half = halfSideKm(size);
   await k("materials").insert(Object.values(MATERIALS).map((m) => ({ code: m.code, name: m.name, n_pct: m.n_pct, cn_ratio: m.cn_ratio, moisture_pct: m.moisture_pct, bulk_density_kg_m3: m.bulk_density_kg_m3, default_unit: m.default_unit, source: m.source })));
-  const owners = Array.from({ length: 200 }, (_, i) => `bench-owner-${i}`);
+  const owners = Array.from({ length: Math.round(200 * regions) }, (_, i) => `bench-owner-${i}`);
   await k.batchInsert("users", owners.map((id, i) => ({ id, email: `bench${i}@bench.invalid`, display_name: `Bench supplier ${i}`, unit_system: "metric", reminders_opt_out: false, created_at: created, updated_at: created })), 100);
 
-  const villages = Array.from({ length: 12 }, () => ({ ...at((r() * 2 - 1) * 20, (r() * 2 - 1) * 20), spread: 1 + r() * 3 }));
+  const villages = Array.from({ length: Math.round(12 * regions) }, () => ({ ...at((r() * 2 - 1) * (half - 5), (r() * 2 - 1) * (half - 5)), spread: 1 + r() * 3 }));
   const kinds: [Kind, number][] = KINDS.map((kd) => [kd, kd.share]);
   const now = Date.now();
-  const rows: Record<string, unknown>[] = [];
-  for (let i = 0; i < size; i++) {
+  const key = locationKey();
+  const clamp = (x: number) => Math.max(-half, Math.min(half, x));
+  await writeListings(k, size, (i) => {
     // Seven in ten listings are in a village, the rest anywhere in the county.
     let p: { lat: number; lng: number };
     if (r() < 0.7) {
       const v = pick(r, villages);
-      p = at(Math.max(-HALF_SIDE_KM, Math.min(HALF_SIDE_KM, (v.lng - CENTRE.lng) * KM_PER_DEG_LNG + gauss(r) * v.spread)), Math.max(-HALF_SIDE_KM, Math.min(HALF_SIDE_KM, (v.lat - CENTRE.lat) * KM_PER_DEG_LAT + gauss(r) * v.spread)));
-    } else p = at((r() * 2 - 1) * HALF_SIDE_KM, (r() * 2 - 1) * HALF_SIDE_KM);
+      p = at(clamp((v.lng - CENTRE.lng) * KM_PER_DEG_LNG + gauss(r) * v.spread), clamp((v.lat - CENTRE.lat) * KM_PER_DEG_LAT + gauss(r) * v.spread));
+    } else p = at((r() * 2 - 1) * half, (r() * 2 - 1) * half);
     const kind = weighted(r, kinds);
     const m = kind.make(r);
-    const id = `bench-${size}-${i}`;
     const held = r() < 0.1 ? m.qty : r() < 0.2 ? Math.floor(m.qty / 2) : 0;
     const owner = pick(r, owners);
-    const approx = approximatePoint({ owner: placeOwner({ owner_id: owner }), lat: p.lat, lng: p.lng });
-    rows.push({
-      id, owner_id: owner, material_code: kind.material, title: `${MATERIALS[kind.material].name} ${i}`, description: "", status: weighted(r, STATUSES),
-      unit: m.unit, unit_size: m.unit_size, unit_mass_kg: m.unit_mass_kg, quantity_total: m.qty, quantity_held: held, quantity_collected: 0,
-      price_cents: m.price, currency: "eur", deposit_cents: 0, max_per_reservation: m.max, auto_accept: r() < 0.5,
-      lat: p.lat, lng: p.lng, address: `${i} Bench Lane`, approx_lat: approx.lat, approx_lng: approx.lng,
-      available_from: created, available_until: new Date(now + (r() < 0.05 ? -1 : 1) * (1 + r() * 200) * 86_400_000).toISOString(),
-      quality: "{}", created_at: created, updated_at: created,
-    });
-  }
-  await k.transaction(async (trx) => {
-    for (let i = 0; i < rows.length; i += 500) await trx("listings").insert(rows.slice(i, i + 500));
+    const approx = approximatePoint({ owner: placeOwner({ owner_id: owner }), lat: p.lat, lng: p.lng }, key);
+    const until = new Date(now + (r() < 0.05 ? -1 : 1) * (1 + r() * 200) * 86_400_000).toISOString();
+    return [
+      `bench-${size}-${i}`, owner, kind.material, `${MATERIALS[kind.material].name} ${i}`, "", weighted(r, STATUSES), m.unit, m.unit_size, m.unit_mass_kg,
+      m.qty, held, 0, m.price, "eur", 0, m.max, r() < 0.5 ? 1 : 0, p.lat, p.lng, `${i} Bench Lane`, approx.lat, approx.lng, created, until, "{}", created, created,
+    ];
   });
   // PostgreSQL plans from statistics: gather them now rather than whenever autovacuum would.
   if (isPg(k)) await k.raw("ANALYZE");
