@@ -1,4 +1,4 @@
-import { expect, firstLink, mailTo, test, type Page } from "./fixtures";
+import { expect, expectAccessible, firstLink, mailTo, test, type Page } from "./fixtures";
 import { DEMO, DEMO_PASSWORD, storageState, type DemoRole } from "./roles";
 
 const mainNav = (page: Page) => page.locator("header nav[aria-label='Main']").last();
@@ -41,11 +41,13 @@ test("a visitor signs up, confirms the address from the inbox, signs out, signs 
   await page.getByRole("button", { name: "Create my account" }).click();
   // The page says the same for any address; the e-mail carries the link.
   await expect(page.getByText("Check your inbox", { exact: true })).toBeVisible();
+  await expectAccessible(page, "sign-up, checking the inbox");
   const mail = await mailTo(page.request, email, "Confirm your e-mail address");
   await page.goto(firstLink(mail));
   await expect(page.getByRole("heading", { name: "Your profile" })).toBeVisible();
   await expect(page.getByText("Welcome to Duffbank")).toBeVisible();
   await expect(page.getByText("Confirm your e-mail address")).toHaveCount(0);
+  await expectAccessible(page, "profile after confirming");
   await mainNav(page).getByRole("button", { name: "Build a bed" }).click();
   await expect(mainNav(page).getByRole("link", { name: "My beds" })).toBeVisible();
   await page.keyboard.press("Escape");
@@ -70,6 +72,7 @@ test("a wrong password gives a clear error and no session", async ({ page }) => 
   await page.getByLabel("Password", { exact: true }).fill("not the password");
   await page.getByRole("button", { name: "Sign in" }).click();
   await expect(page.locator("main [role='alert']")).toContainText("do not match an account");
+  await expectAccessible(page, "sign-in with an error");
   await page.goto("/beds");
   await expect(page).toHaveURL(/\/sign-in\?callbackUrl=%2Fbeds/);
 });
@@ -93,6 +96,7 @@ test("a gardener opening the council desk gets the 403 page", async ({ browser }
   const res = await page.goto("/council");
   expect(res?.status()).toBe(403);
   await expect(page.getByRole("heading", { name: /not open to your account/ })).toBeVisible();
+  await expectAccessible(page, "the 403 page");
   await context.close();
 });
 

@@ -1,6 +1,6 @@
 import fs from "node:fs";
 import path from "node:path";
-import { expect, firstLink, mailTo, test } from "./fixtures";
+import { expect, firstLink, mailTo, test, expectAccessible } from "./fixtures";
 import { DEMO, storageState } from "./roles";
 import { seedId } from "../../seeds/ids";
 import { payOnCheckoutPage } from "./exchange";
@@ -42,11 +42,13 @@ test("council staff create a day with slots, a gardener books, staff check them 
   await desk.getByLabel("Households a slot").fill("2");
   await desk.getByRole("button", { name: "Make slots" }).click();
   await expect(desk.getByLabel("Slot 2 starts")).toHaveValue("09:30");
+  await expectAccessible(desk, "council-new-day");
   await desk.screenshot({ path: shot("council-new-day"), fullPage: true });
   await desk.getByRole("button", { name: "Create the day" }).click();
   await expect(desk.getByRole("heading", { name: title })).toBeVisible();
   const dayId = desk.url().split("/").pop()!;
   await expect(desk.getByText("0 of 2 booked").first()).toBeVisible();
+  await expectAccessible(desk, "council-day");
   await desk.screenshot({ path: shot("council-day"), fullPage: true });
 
   // A gardener finds it on the public page and books.
@@ -56,6 +58,7 @@ test("council staff create a day with slots, a gardener books, staff check them 
   const card = g.locator(`[data-giveaway='${dayId}']`);
   await expect(card).toContainText(title);
   await expect(card).toContainText("up to 5 bags");
+  await expectAccessible(g, "giveaways-list");
   await g.screenshot({ path: shot("giveaways-list"), fullPage: true });
   await card.getByRole("link", { name: /Times and booking/ }).click();
   await expect(g.getByText("Gate B, Mill Leat Lane")).toHaveCount(0); // the exact place only after booking
@@ -70,6 +73,7 @@ test("council staff create a day with slots, a gardener books, staff check them 
   }).toPass({ timeout: 30_000 });
   await expect(g.getByText("Gate B, Mill Leat Lane depot, Fernhollow").first()).toBeVisible();
   await expect(g.getByText("€2.50 on hold on the card")).toBeVisible();
+  await expectAccessible(g, "giveaway-booked");
   await g.screenshot({ path: shot("giveaway-booked"), fullPage: true });
 
   // The confirmation arrives in the local inbox with a calendar link that works without a session.
@@ -94,6 +98,7 @@ test("council staff create a day with slots, a gardener books, staff check them 
     await p.reload();
     await expect(p.getByText("deposit €2.50 released")).toBeVisible({ timeout: 2_000 });
   }).toPass({ timeout: 30_000 });
+  await expectAccessible(p, "check-in-phone");
   await p.screenshot({ path: shot("check-in-phone"), fullPage: true });
   await phone.close();
 
@@ -118,6 +123,7 @@ test("council staff create a day with slots, a gardener books, staff check them 
     await expect(desk.getByTestId(`${id}-chart`).locator("svg.recharts-surface .recharts-bar-rectangle").first()).toBeVisible();
   }
   await expect(desk.getByRole("figure", { name: "Cubic metres passed on each month, by material" })).toBeVisible();
+  await expectAccessible(desk, "council-reports");
   await desk.screenshot({ path: shot("council-reports"), fullPage: true });
   await staff.close();
   await gardener.close();
@@ -140,6 +146,7 @@ test("a moderator hides a reported listing and it is gone from browse", async ({
   await g.getByRole("link", { name: "Report a problem with this listing" }).click();
   await g.getByLabel(/Contaminated material/).check();
   await g.getByLabel("What happened").fill("Three of the bags were full of crisp packets and a broken bottle.");
+  await expectAccessible(g, "report-form");
   await g.screenshot({ path: shot("report-form"), fullPage: true });
   await g.getByRole("button", { name: "Send the report" }).click();
   await expect(g.getByText("the report is with our moderators")).toBeVisible();
@@ -156,6 +163,7 @@ test("a moderator hides a reported listing and it is gone from browse", async ({
   await card.getByRole("button", { name: "Hide the listing" }).click();
   await m.getByRole("dialog", { name: "Hide this listing?" }).getByRole("button", { name: "Yes, hide the listing" }).click();
   await expect(card.getByRole("button", { name: "Show the listing again" })).toBeVisible();
+  await expectAccessible(m, "moderation-queue");
   await m.screenshot({ path: shot("moderation-queue"), fullPage: true });
   await card.getByLabel(/Note for the record/).fill("We hid the listing and wrote to the supplier.");
   await card.getByRole("button", { name: "Close the report" }).click();
@@ -184,6 +192,7 @@ test("a moderator hides a reported listing and it is gone from browse", async ({
   await expect(hid.getByText("Note", { exact: true })).toBeVisible();
   // No raw JSON or dotted codes in the readable part of the row.
   await expect(hid.locator("td").nth(2)).not.toContainText("{");
+  await expectAccessible(m, "audit-log");
   await m.screenshot({ path: shot("audit-log"), fullPage: true });
 
   // Put the demo back as it was for the specs that follow.
@@ -203,6 +212,7 @@ test("a grower pauses posting for the heat, and the page says what buyers read",
   await page.getByLabel("Heat", { exact: true }).check();
   await page.getByRole("button", { name: "Save shipping" }).click();
   await expect(page.getByText(/Posting is paused because of a heatwave/)).toBeVisible();
+  await expectAccessible(page, "grower");
   await page.screenshot({ path: shot("grower"), fullPage: true });
   await page.getByLabel("Pause posting for the weather").uncheck();
   await page.getByRole("button", { name: "Save shipping" }).click();
@@ -218,6 +228,7 @@ test("the council owner invites a colleague who joins first, accepts, and is rem
   await o.getByLabel("Invite a colleague by e-mail").fill(email);
   await o.getByRole("button", { name: "Send invitation" }).click();
   await expect(o.getByRole("button", { name: `Withdraw the invitation to ${email}` })).toBeVisible();
+  await expectAccessible(o, "council-desk");
   await o.screenshot({ path: shot("council-desk"), fullPage: true });
 
   const invite = await mailTo(o.request, email, "Join Fernhollow Town Council");
@@ -263,5 +274,6 @@ test("the home page shows how much has been passed on", async ({ page }) => {
   // 540 lb ≈ 245 kg; the check-in earlier in this file adds to it.
   const giveawayKg = Number((await page.getByTestId("giveaway-kg").textContent())!.replace(/[^\d.]/g, ""));
   expect(giveawayKg).toBeGreaterThanOrEqual(245);
+  await expectAccessible(page, "home");
   await page.screenshot({ path: shot("home"), fullPage: true });
 });

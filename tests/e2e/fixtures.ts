@@ -3,6 +3,7 @@
 // when the policy (proxy.ts) blocks anything the app needs. Also the local inbox helpers.
 import { expect, test as base, type APIRequestContext, type Browser, type BrowserContext } from "@playwright/test";
 import { latestMail } from "./exchange";
+import { expectNoAxeViolations } from "./axe";
 
 const violations: string[] = [];
 const watched = new WeakSet<BrowserContext>();
@@ -57,10 +58,5 @@ export const mailTo = (request: APIRequestContext, to: string, subjectPart: stri
 /** The first link in a message's text. */
 export const firstLink = (mail: { text: string }) => mail.text.match(/https?:\/\/\S+/)![0];
 
-/** Runs axe on the page as it is now and fails on any violation, naming each rule and where. */
-export async function expectAccessible(page: import("@playwright/test").Page, what: string) {
-  const { AxeBuilder } = await import("@axe-core/playwright");
-  const result = await new AxeBuilder({ page }).analyze();
-  const found = result.violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).slice(0, 3).join(" | ")}`);
-  expect(found, `axe violations on ${what}`).toEqual([]);
-}
+/** Runs axe on the page as it is now and fails on any violation, naming each rule and where (./axe.ts). */
+export const expectAccessible = (page: import("@playwright/test").Page, what: string) => expectNoAxeViolations(page, what);

@@ -39,8 +39,10 @@ test("a gardener buys a worm culture by post, the grower packs and ships it, and
   await expect(facts.getByTestId("posting-days")).toContainText(/Parcels go out on Monday and Tuesday.*goes out on (Monday|Tuesday) \d+ \w+ at the earliest/);
   const report = page.getByRole("link", { name: "Report this supplier" });
   await expect(report).toHaveAttribute("href", `/report?user=${grower.id}`);
+  await expectAccessible(page, "grower-listing");
   await page.screenshot({ path: shot("grower-listing"), fullPage: true });
   await page.setViewportSize(PHONE);
+  await expectAccessible(page, "grower-listing-phone");
   await page.screenshot({ path: shot("grower-listing-phone"), fullPage: true });
   await report.click();
   await expect(page.getByRole("heading", { name: "Report a problem" })).toBeVisible();
@@ -54,6 +56,7 @@ test("a gardener buys a worm culture by post, the grower packs and ships it, and
   await page.getByRole("button", { name: "Reserve and pay €16.00" }).click();
   await expect(page.getByText(/full postal address/)).toBeVisible(); // the address is required
   await page.getByLabel("Postal address").fill("Flat 3, 21 Quarry Row\nFernhollow FH2 7QT");
+  await expectAccessible(page, "grower-order-phone");
   await page.screenshot({ path: shot("grower-order-phone"), fullPage: true });
   await page.getByRole("button", { name: "Reserve and pay €16.00" }).click();
   await page.waitForURL(/\/pay\/cs_test_/);
@@ -84,11 +87,13 @@ test("a gardener buys a worm culture by post, the grower packs and ships it, and
   await expect(order.getByText("Name the carrier: the postal service or a courier.")).toBeVisible();
   await order.getByLabel("Carrier").fill("Fernhollow Parcel Post");
   await order.getByLabel("Tracking number or link").fill("FPP 1234 5678 5");
+  await expectAccessible(dash, "grower-dashboard");
   await dash.screenshot({ path: shot("grower-dashboard"), fullPage: true });
   await order.getByRole("button", { name: "Mark shipped" }).click();
   await expect(order.getByTestId("tracking")).toHaveText("FPP 1234 5678 5");
   await expect(order.getByRole("button", { name: "Mark delivered" })).toBeVisible();
   await dash.setViewportSize(PHONE);
+  await expectAccessible(dash, "grower-dashboard-phone");
   await dash.screenshot({ path: shot("grower-dashboard-phone"), fullPage: true });
   await order.screenshot({ path: shot("grower-order-card-phone") });
 
@@ -106,6 +111,7 @@ test("a gardener buys a worm culture by post, the grower packs and ships it, and
   // What matters for live animals on the way: the temperatures, and opening the box at once.
   await expect(mine.getByRole("list", { name: "The culture's journey" })).toContainText("55–78 °F");
   await expect(mine.getByRole("list", { name: "The culture's journey" })).toContainText("Open the box within a day");
+  await expectAccessible(page, "grower-buyer-phone");
   await page.screenshot({ path: shot("grower-buyer-phone"), fullPage: true });
   await expectAccessible(page, "a culture order on the buyer's reservations, by phone");
   await mine.getByRole("button", { name: "It has arrived" }).click();

@@ -252,3 +252,48 @@ test.describe("a supplier's listing form", () => {
     await page.screenshot({ path: shots("listing-form-errors"), fullPage: true });
   });
 });
+
+/** Presses Tab (or Shift+Tab) until `target` has the focus, as a keyboard user would; fails after `max` presses. */
+async function tabTo(page: Page, target: ReturnType<Page["locator"]>, { back = false, max = 25 } = {}) {
+  for (let i = 0; i < max; i++) {
+    if (await target.evaluate((el) => el === document.activeElement).catch(() => false)) return;
+    await page.keyboard.press(back ? "Shift+Tab" : "Tab");
+  }
+  throw new Error(`the focus did not reach the target within ${max} presses`);
+}
+
+test.describe("the planner with the keyboard alone", () => {
+  test("finds the place by name, draws the outline at the cross with the arrow keys, and works the bed out", async ({ page }) => {
+    await page.goto("/plan");
+    const form = page.getByRole("form", { name: "Bed planner" });
+    // The one click-free start: the focus on the first choice of the form, then only keys.
+    await form.getByRole("radio", { name: "Length × width" }).focus();
+    await page.keyboard.press("ArrowRight");
+    await expect(form.getByRole("radio", { name: "Draw it on the map" })).toBeChecked();
+
+    const place = form.getByRole("combobox", { name: "Where the bed is" });
+    await tabTo(page, place);
+    await page.keyboard.type("Orchard");
+    await expect(page.getByRole("option").first()).toBeVisible();
+    await page.keyboard.press("ArrowDown");
+    await page.keyboard.press("Enter");
+    await expect(place).toHaveValue(/Orchard/);
+
+    const map = form.locator(".leaflet-container");
+    const corner = form.getByRole("button", { name: "Add a corner at the cross" });
+    // Four corners of a square, one arrow-key pan apart.
+    for (const key of ["ArrowRight", "ArrowDown", "ArrowLeft", null]) {
+      await tabTo(page, corner);
+      await page.keyboard.press("Enter");
+      if (!key) break;
+      await tabTo(page, map, { back: true });
+      await page.keyboard.press(key);
+    }
+    await expect(form.getByText("4 corners placed.")).toBeVisible();
+
+    await tabTo(page, form.getByRole("button", { name: "Work out what it takes" }));
+    await page.keyboard.press("Enter");
+    await expect(page.getByRole("link", { name: "Find these materials nearby" })).toBeVisible({ timeout: 20_000 });
+    await expectNoAxeViolations(page, "planner worked out by keyboard");
+  });
+});

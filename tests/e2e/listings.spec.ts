@@ -1,6 +1,6 @@
 import path from "node:path";
 import sharp from "sharp";
-import { expect, test, type Page } from "./fixtures";
+import { expect, test, type Page, expectAccessible } from "./fixtures";
 import { storageState } from "./roles";
 import { sql } from "./exchange";
 
@@ -68,6 +68,7 @@ test.describe.serial("listings", () => {
     await expect(page.getByRole("progressbar")).toHaveCount(2);
     // The second photo becomes the cover.
     await page.getByRole("button", { name: "Move photo 2 earlier" }).click();
+    await expectAccessible(page, "form");
     await page.screenshot({ path: shots("form"), fullPage: true });
 
     await page.getByRole("button", { name: "Publish listing" }).click();
@@ -111,6 +112,7 @@ test.describe.serial("listings", () => {
     await mapReady(page, "Map of the listings shown; points are approximate");
     const marker = page.locator(`.listing-marker-${listingId}`);
     await expect(marker).toHaveCount(1);
+    await expectAccessible(page, "browse");
     await page.screenshot({ path: shots("browse"), fullPage: true });
     await marker.dispatchEvent("click");
     const panel = page.getByRole("link", { name: "Open this listing" });
@@ -120,6 +122,7 @@ test.describe.serial("listings", () => {
     await expect(page.getByRole("link", { name: "Sign in to reserve" })).toBeVisible();
     await expect(page.getByRole("link", { name: "Reserve", exact: true })).toHaveCount(0);
     await expect(page.locator("[data-caution='roadside']")).toBeVisible();
+    await expectAccessible(page, "detail");
     await page.screenshot({ path: shots("detail"), fullPage: true });
   });
 
@@ -140,6 +143,7 @@ test.describe.serial("listings", () => {
     await expect(s.locator("tbody tr")).toHaveCount(1);
     await row.getByRole("button", { name: `Pause “${TITLE}”` }).click();
     await expect(row).toContainText("Paused");
+    await expectAccessible(s, "mine");
     await s.screenshot({ path: shots("mine"), fullPage: true });
     const api = await s.request.get(`/api/listings?q=${stamp}`);
     expect((await api.json()).items).toHaveLength(0);
@@ -154,6 +158,7 @@ test.describe.serial("listings", () => {
     await s.getByRole("button", { name: "Move photo 2 earlier" }).click();
     await expect(s.getByRole("img", { name: "Photo 1" })).not.toHaveAttribute("src", before!);
     await s.getByLabel("Quantity (bags)").fill("12");
+    await expectAccessible(s, "edit");
     await s.screenshot({ path: shots("edit"), fullPage: true });
     await s.getByRole("button", { name: "Save changes" }).click();
     await expect(s).toHaveURL(new RegExp(`/listings/${listingId}$`));
@@ -174,10 +179,12 @@ test.describe.serial("listings", () => {
     await expect(page.getByRole("heading", { name: "Find material" })).toBeVisible();
     await mapReady(page, "Map of the listings shown; points are approximate");
     await expect(page.locator("article").first()).toBeVisible();
+    await expectAccessible(page, "browse-phone");
     await page.screenshot({ path: shots("browse-phone"), fullPage: true });
     await page.locator("article h3 a").first().click();
     await expect(page.locator("[data-caution='herbicide']")).toContainText("beans or peas");
     await expect(page.locator("[data-caution='lifting']")).toContainText("NIOSH");
+    await expectAccessible(page, "detail-phone");
     await page.screenshot({ path: shots("detail-phone"), fullPage: true });
     await context.close();
   });

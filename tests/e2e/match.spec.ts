@@ -1,5 +1,5 @@
 import path from "node:path";
-import { expect, test, type Page } from "./fixtures";
+import { expect, test, type Page, expectAccessible } from "./fixtures";
 import { seedId } from "../../seeds/ids";
 import { storageState } from "./roles";
 
@@ -28,6 +28,7 @@ test.describe("a gardener's saved bed", () => {
     // The worms are priced; the free leaves hold a refundable deposit (seeds/listings.ts).
     await expect(page.locator("main [data-total='To pay suppliers']")).toHaveText(/€\d/);
     await expect(page.getByRole("button", { name: /Reserve all \d+ pickups/ })).toBeEnabled();
+    await expectAccessible(page, "bed-materials");
     await page.screenshot({ path: path.join(shots, "bed-materials.png"), fullPage: true });
   });
 
@@ -94,6 +95,7 @@ test.describe("the public planner", () => {
     await page.getByRole("main").getByRole("radio", { name: "Imperial" }).click();
     await expect(page.locator("main [data-total='Driving']")).toHaveText(/^\d+(\.\d)? mi$/);
     await expect(stops(page).filter({ hasText: "ft³" }).first()).toBeVisible();
+    await expectAccessible(page, "match-public");
     await page.screenshot({ path: path.join(shots, "match-public.png"), fullPage: true });
   });
 
@@ -103,6 +105,7 @@ test.describe("the public planner", () => {
     await page.getByRole("button", { name: /Look further, up to 20 km/ }).click();
     await expect(page).toHaveURL(/radius_km=20/);
     await expect(page.getByRole("heading", { name: /Not enough within 20 km/ })).toBeVisible({ timeout: 20_000 });
+    await expectAccessible(page, "match-unmet");
     await page.screenshot({ path: path.join(shots, "match-unmet.png"), fullPage: true });
   });
 

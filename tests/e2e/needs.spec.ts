@@ -1,5 +1,5 @@
 import path from "node:path";
-import { expect, firstLink, mailTo, test } from "./fixtures";
+import { expect, firstLink, mailTo, test, expectAccessible } from "./fixtures";
 import { storageState } from "./roles";
 import { sql } from "./exchange";
 
@@ -36,6 +36,7 @@ test.describe.serial("open needs", () => {
     await expect(form.getByLabel("How much")).toHaveValue("4");
     await form.getByLabel("How far you would go (km)").fill("5");
     await form.getByLabel("At once, for each listing").check();
+    await expectAccessible(page, "needs-ask");
     await page.screenshot({ path: shots("needs-ask"), fullPage: true });
     await form.getByRole("button", { name: "Tell me when it is listed" }).click();
     await expect(page.locator("[data-open-need='leaves']")).toContainText("You have an open need for");
@@ -44,6 +45,7 @@ test.describe.serial("open needs", () => {
     const card = page.locator("[data-need]").filter({ hasText: BED });
     await expect(card).toContainText("Fallen leaves");
     await expect(card).toContainText("within 5 km");
+    await expectAccessible(page, "needs-page");
     await page.screenshot({ path: shots("needs-page"), fullPage: true });
     await context.close();
   });
@@ -66,6 +68,7 @@ test.describe.serial("open needs", () => {
     // One gardener: no amount is given for fewer than three.
     await expect(preview).not.toContainText("in all");
     await preview.scrollIntoViewIfNeeded();
+    await expectAccessible(page, "needs-supplier-preview");
     await page.screenshot({ path: shots("needs-supplier-preview"), fullPage: true });
     await page.getByRole("button", { name: "Publish listing" }).click();
     await expect(page).toHaveURL(/\/listings\/[0-9a-f-]{36}$/);
@@ -85,6 +88,7 @@ test.describe.serial("open needs", () => {
     await page.goto(link);
     await expect(page.getByRole("heading", { name: TITLE })).toBeVisible();
     await expect(page.locator("[data-caution='roadside']")).toBeVisible();
+    await expectAccessible(page, "needs-alert");
     await page.screenshot({ path: shots("needs-alert"), fullPage: true });
     await page.getByRole("button", { name: "Reserve 4 bags" }).click();
     await expect(page).toHaveURL(/\/reservations\?new=/, { timeout: 20_000 });
@@ -117,6 +121,7 @@ test.describe("the council's demand map", () => {
       // The shipped base map drawn under the areas (Leaflet adds its shapes to their own pane).
       await expect(map.locator(".leaflet-duff-basemap-pane path").first()).toBeAttached();
       expect(await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)).toBeLessThanOrEqual(0);
+      await expectAccessible(page, `council-demand-${width}`);
       await page.screenshot({ path: shots(`council-demand-${width}`), fullPage: true });
     }
     const csv = await page.request.get("/api/council/demand.csv?material=leaves");

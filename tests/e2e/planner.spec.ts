@@ -1,7 +1,7 @@
 import fs from "node:fs";
 import path from "node:path";
 import { seedId } from "../../seeds/ids";
-import { expect, test } from "./fixtures";
+import { expect, test, expectAccessible } from "./fixtures";
 import { DEMO, inboxUrl, storageState } from "./roles";
 
 test("a visitor plans a bed and switches units", async ({ page }) => {
@@ -15,6 +15,7 @@ test("a visitor plans a bed and switches units", async ({ page }) => {
   await expect(page.getByText("3.6 m²").first()).toBeVisible();
   await expect(page.getByRole("heading", { name: "Take care" })).toBeVisible();
   await expect(page.getByText(/bean|pea/).first()).toBeVisible();
+  await expectAccessible(page, "plan-metric");
   await page.screenshot({ path: path.join(process.env.E2E_DIR ?? "test-results", "plan-metric.png"), fullPage: true });
 
   // The first soak as a range in litres, with its middle and the squeeze test beside it.
@@ -37,6 +38,7 @@ test("a visitor plans a bed and switches units", async ({ page }) => {
   // The estimate is asked for again in the new units: water in gallons, advice in inches.
   await expect(water).toHaveText(/^\d+–\d+ US gal$/);
   await expect(page.getByTestId("blend-advice")).toContainText("1.2 in");
+  await expectAccessible(page, "plan-imperial");
   await page.screenshot({ path: path.join(process.env.E2E_DIR ?? "test-results", "plan-imperial.png"), fullPage: true });
 
   // A limit comes back in the unit the gardener typed in.
@@ -82,6 +84,7 @@ test("a visitor who places the bed sees what it will cost, the worms' price amon
   await expect(costs.locator("[data-cost='Deposits held']")).toHaveText(/^(€\d+\.\d\d|none)$/);
   // The demo's worms are priced: the worm line shows its price before anything is reserved.
   await expect(page.locator("td[data-cost-of='worms']")).toHaveText(/€\d+\.\d\d/);
+  await expectAccessible(page, "plan-costs");
   await page.screenshot({ path: path.join(process.env.E2E_DIR ?? "test-results", "plan-costs.png"), fullPage: true });
 });
 
@@ -170,6 +173,7 @@ test.describe("a gardener's saved bed", () => {
     await expect(costs).toBeVisible();
     await expect(page.locator("td[data-cost-of='worms']")).toHaveText(/€\d+\.\d\d/);
     await expect(page.locator("dt:has-text('Water for the first soak') ~ dd").first()).toHaveText(/ L$/);
+    await expectAccessible(page, "bed-metric");
     await page.screenshot({ path: path.join(process.env.E2E_DIR ?? "test-results", "bed-metric.png"), fullPage: true });
     await page.getByRole("main").getByRole("radio", { name: "Imperial" }).click();
     // The choice is this device's (a cookie), so the page comes back in it after a reload too.
@@ -177,6 +181,7 @@ test.describe("a gardener's saved bed", () => {
     await expect(page.locator("dt:has-text('Water for the first soak') ~ dd").first()).toHaveText(/ US gal$/);
     await expect(page.locator("[data-step='top_up']").first()).toContainText("ft³");
     await expect(page.getByTestId("blend-advice")).toContainText(" in ");
+    await expectAccessible(page, "bed-imperial");
     await page.screenshot({ path: path.join(process.env.E2E_DIR ?? "test-results", "bed-imperial.png"), fullPage: true });
   });
 });

@@ -51,6 +51,7 @@ test("a gardener pays for straw, the farm accepts, the pickup code closes it, an
   await expect(g.page.getByText(/NIOSH/)).toBeVisible();
   await g.page.getByLabel("How many bales").fill("2");
   await expect(g.page.getByRole("heading", { name: "€9.00 in all" })).toBeVisible();
+  await expectAccessible(g.page, "reserve-straw");
   await g.page.screenshot({ path: shots("reserve-straw"), fullPage: true });
   await g.page.getByRole("button", { name: "Reserve and pay €9.00" }).click();
 
@@ -63,6 +64,7 @@ test("a gardener pays for straw, the farm accepts, the pickup code closes it, an
   await g.page.waitForURL(/\/reservations\/paid\?session_id=cs_test_/);
   await expect(g.page.getByRole("heading", { level: 1, name: "Paid" })).toBeVisible({ timeout: 20_000 });
   await expect(g.page.getByText(/sent your request to Hartwell Farm/)).toBeVisible();
+  await expectAccessible(g.page, "paid");
   await g.page.screenshot({ path: shots("paid"), fullPage: true });
   const receipt = await latestMail(request, "gardener@duffbank.test", /^Receipt: €9\.00/);
   expect(receipt.text).toContain(straw.title);
@@ -72,6 +74,7 @@ test("a gardener pays for straw, the farm accepts, the pickup code closes it, an
   const request1 = cardById(farm.page, reservationId);
   await expect(request1).toContainText("For Ines Okafor");
   await expect(request1).toContainText("€9.00 paid");
+  await expectAccessible(farm.page, "requests-waiting");
   await farm.page.screenshot({ path: shots("requests-waiting"), fullPage: true });
   await request1.getByRole("button", { name: "Accept" }).click();
   await expect(request1.getByText("Agreed", { exact: true })).toBeVisible();
@@ -86,6 +89,7 @@ test("a gardener pays for straw, the farm accepts, the pickup code closes it, an
   const mine = cardById(g.page, reservationId);
   await expect(mine.getByTestId("pickup-code")).toHaveText(code!);
   await expect(mine.getByTestId("pickup-address")).toHaveText(straw.address);
+  await expectAccessible(g.page, "my-reservations-confirmed");
   await g.page.screenshot({ path: shots("my-reservations-confirmed"), fullPage: true });
 
   // A message each way; each is e-mailed to the other side.
@@ -99,6 +103,7 @@ test("a gardener pays for straw, the farm accepts, the pickup code closes it, an
   await g.page.setViewportSize({ width: 390, height: 844 });
   await mine.getByText("Status history").click();
   await expect(mine.getByText(/Payment received/)).toBeVisible();
+  await expectAccessible(g.page, "my-reservations-phone");
   await g.page.screenshot({ path: shots("my-reservations-phone"), fullPage: true });
 
   await farm.page.reload();
@@ -125,6 +130,7 @@ test("a gardener pays for straw, the farm accepts, the pickup code closes it, an
   await theirs.getByRole("button", { name: "Send review" }).click();
   await expect(theirs.getByText(/You gave Ines Okafor 4 of 5 \(good\)/)).toBeVisible();
   await expect(theirs.getByText(/Ines Okafor gave you 5 of 5 \(excellent\)/)).toBeVisible();
+  await expectAccessible(farm.page, "requests-reviewed");
   await farm.page.screenshot({ path: shots("requests-reviewed"), fullPage: true });
 
   // The supplier's average now shows where gardeners choose.
@@ -207,6 +213,7 @@ test("a no-show keeps the deposit", async ({ browser, request }) => {
     await s.page.reload();
     return (await card(s.page, `1 bag of ${leaves.title}`).textContent()) ?? "";
   }, { timeout: 20_000 }).toContain("€2.00 deposit kept");
+  await expectAccessible(s.page, "requests-no-show");
   await s.page.screenshot({ path: shots("requests-no-show"), fullPage: true });
 
   // Stripe's own record agrees: the hold was captured.
