@@ -29,10 +29,10 @@ describe("navigation gathered into menus by task", () => {
     expect(shape(null)).toEqual(["/plan", "/mix", "/browse", "/giveaways"]);
   });
   it("gathers a gardener's into building a bed and finding material", () => {
-    expect(shape(["gardener"])).toEqual(["Build a bed: /plan /mix /beds", "Find material: /browse /giveaways /reservations"]);
+    expect(shape(["gardener"])).toEqual(["Build a bed: /plan /mix /beds", "Find material: /browse /giveaways /reservations /needs"]);
   });
   it("adds giving for suppliers and growers, and a desk of their own for councils and moderators", () => {
-    expect(shape(["gardener", "grower"])).toEqual(["Build a bed: /plan /mix /beds", "Find material: /browse /giveaways /reservations", "Give material: /listings/mine /requests /grower /reports"]);
+    expect(shape(["gardener", "grower"])).toEqual(["Build a bed: /plan /mix /beds", "Find material: /browse /giveaways /reservations /needs", "Give material: /listings/mine /requests /grower /reports"]);
     expect(shape(["council"])).toEqual(["Build a bed: /plan /mix", "Find material: /browse /giveaways", "Give material: /listings/mine /requests /reports", "/council"]);
     expect(shape(["moderator"])).toEqual(["/plan", "/mix", "/browse", "/giveaways", "/moderation"]);
   });
