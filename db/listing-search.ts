@@ -72,7 +72,7 @@ function filtered(b: Knex.QueryBuilder, f: SearchFilters, q: Db): Knex.QueryBuil
   b.where("listings.status", "active")
     .andWhereRaw("quantity_total - quantity_held - quantity_collected > ?", [1e-9])
     .andWhere((w) => w.whereNull("available_until").orWhere("available_until", ">", f.now));
-  if (f.materials?.length) b.whereIn("material_code", f.materials);
+  if (f.materials?.length) b.whereIn("listings.material_code", f.materials);
   if (f.free) b.where("price_cents", 0);
   if (f.words?.length) matchWords(b, LISTING_TEXT, f.words);
   return b.select(BROWSE_COLUMNS.map((c) => `listings.${c}`));

@@ -22,9 +22,9 @@ export function laneOf(material: MaterialCode): LaneId {
 /** How much a gardener is after, by the room it takes as handed over (litres). */
 export const AMOUNT_CHOICES = [
   { id: "", label: "Any amount", min_l: 0 },
-  { id: "bags", label: "At least a few bags (50 L)", min_l: 50 },
-  { id: "carload", label: "At least a carload (300 L)", min_l: 300 },
-  { id: "trailer", label: "A trailer-load or more (1,000 L)", min_l: 1000 },
+  { id: "bags", label: "At least a few bags", min_l: 50 },
+  { id: "carload", label: "At least a carload", min_l: 300 },
+  { id: "trailer", label: "A trailer-load or more", min_l: 1000 },
 ] as const;
 
 /** When the gardener can go and collect. */

@@ -1,8 +1,8 @@
 "use client";
 import "leaflet/dist/leaflet.css";
 import { useEffect, useState } from "react";
-import type { Map as LeafletMapInstance } from "leaflet";
-import { CircleMarker, GeoJSON, MapContainer, Pane, Polygon, Polyline, Rectangle, TileLayer, Tooltip, useMap, useMapEvents } from "react-leaflet";
+import { divIcon, type Map as LeafletMapInstance } from "leaflet";
+import { CircleMarker, GeoJSON, MapContainer, Marker, Pane, Polygon, Polyline, Rectangle, TileLayer, Tooltip, useMap, useMapEvents } from "react-leaflet";
 import type { Feature, FeatureCollection } from "geojson";
 import type { PathOptions } from "leaflet";
 import type { MapProps } from "./types";
@@ -65,16 +65,17 @@ function Labels() {
   }, []);
   return (
     <>
+      {/* Plain text markers rather than permanent tooltips: a tooltip is created empty and
+          filled a moment later, and an empty role="tooltip" has no name for a screen reader. */}
       {labels.map((l) => (
-        <CircleMarker key={l.name} center={[l.lat, l.lng]} radius={0} interactive={false} pathOptions={{ opacity: 0, fillOpacity: 0 }}>
-          <Tooltip permanent direction="center" className="duff-place-label">
-            {l.name}
-          </Tooltip>
-        </CircleMarker>
+        <Marker key={l.name} position={[l.lat, l.lng]} interactive={false} keyboard={false} icon={placeLabel(l.name)} />
       ))}
     </>
   );
 }
+
+const escapeHtml = (text: string) => text.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+const placeLabel = (name: string) => divIcon({ className: "duff-place-label", html: escapeHtml(name), iconSize: [160, 18], iconAnchor: [80, 9] });
 
 function ClickCatcher({ onClick }: { onClick?: (p: { lat: number; lng: number }) => void }) {
   useMapEvents({ click: (e) => onClick?.({ lat: e.latlng.lat, lng: e.latlng.lng }) });

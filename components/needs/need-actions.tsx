@@ -25,7 +25,7 @@ export function NeedActions({ need, label }: { need: Pick<NeedView, "id" | "stat
               className={plain}
               disabled={busy}
               onClick={() => patch({ alerts: need.alerts === "daily" ? "immediate" : "daily" })}
-              aria-label={`E-mail ${need.alerts === "daily" ? "at once" : "once a day"} for ${label}`}
+              aria-label={`${need.alerts === "daily" ? "E-mail me at once instead" : "E-mail me once a day instead"}, for ${label}`}
             >
               {need.alerts === "daily" ? "E-mail me at once instead" : "E-mail me once a day instead"}
             </button>

@@ -9,13 +9,18 @@ import { EstimateView, type ShownEstimate } from "./estimate-view";
  */
 export function BedEstimate({ result, system }: { result: ShownEstimate; system: UnitSystem }) {
   return (
-    <div className="flex flex-col gap-4">
-      <UnitSwitch className="self-start" />
+    <section aria-labelledby="bed-plan-title" className="flex flex-col gap-4">
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <h2 id="bed-plan-title" className="text-xl font-semibold">
+          The plan for this bed
+        </h2>
+        <UnitSwitch />
+      </div>
       <EstimateView
         result={result}
         system={system}
         costsHint={result.costs ? undefined : "Give the bed a place on the map (Change the bed) to see what it will cost from the nearest listings."}
       />
-    </div>
+    </section>
   );
 }

@@ -287,7 +287,11 @@ test.describe("the planner with the keyboard alone", () => {
       await page.keyboard.press("Enter");
       if (!key) break;
       await tabTo(page, map, { back: true });
+      const before = await map.evaluate((el) => el.querySelector(".leaflet-map-pane")?.getAttribute("style"));
       await page.keyboard.press(key);
+      // The pan is animated: wait until the map has moved before the next corner.
+      await expect.poll(() => map.evaluate((el) => el.querySelector(".leaflet-map-pane")?.getAttribute("style"))).not.toBe(before);
+      await page.waitForTimeout(400);
     }
     await expect(form.getByText("4 corners placed.")).toBeVisible();
 

@@ -87,6 +87,9 @@ describe("text search (SQLite FTS5)", () => {
     expect(ids(await browse("q=quillwort&material=straw"))).toEqual([straw]);
     expect(ids(await browse("q=quillwort&free=true"))).not.toContain(straw);
     expect(ids(await browse("q=quillwort&material=straw,leaves")).sort()).toEqual([straw, descriptionHit].sort());
+    // Near a point too, where the search reads the spatial index beside the listings.
+    expect(ids(await browse(`q=quillwort&material=straw&lat=${CENTRE.lat}&lng=${CENTRE.lng}&radius_km=25`))).toEqual([straw]);
+    expect(ids(await browse(`material=straw&lat=${CENTRE.lat}&lng=${CENTRE.lng}&radius_km=25&limit=100`))).toContain(straw);
   });
 });
 

@@ -70,7 +70,7 @@ export default async function GrowerPage() {
           <EmptyState title="No worm listings yet">List a culture by the kilogram under “What I&apos;m giving”; it appears here with its stock.</EmptyState>
         ) : (
           <ul className="flex flex-col gap-4">
-            {stock.map((s) => (
+            {stock.map((s, i) => (
               <li key={s.id} className="grid gap-4 border-t border-humus-100 pt-4 first:border-0 first:pt-0 md:grid-cols-[1fr_minmax(0,360px)]" data-listing={s.id}>
                 <div>
                   <h3 className="font-semibold">{s.title}</h3>
@@ -83,7 +83,11 @@ export default async function GrowerPage() {
                   </p>
                   {!s.species ? <p className="mt-2 font-medium text-ember-800">No species named yet: buyers need it. Add it here.</p> : null}
                 </div>
-                <CultureForm listingId={s.id} title={s.title} initial={{ species: s.species, ships: s.ships, pickup: s.pickup }} />
+                <CultureForm
+                  listingId={s.id}
+                  // Two listings of one title would give two forms of one name: number them apart.
+                  title={stock.filter((x) => x.title === s.title).length > 1 ? `${s.title} (${i + 1} of ${stock.length})` : s.title}
+                  initial={{ species: s.species, ships: s.ships, pickup: s.pickup }} />
               </li>
             ))}
           </ul>
