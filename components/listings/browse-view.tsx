@@ -125,7 +125,7 @@ export function BrowseView({ initial, system, beds, signedIn }: { initial: { fil
           <select id="browse-amount" value={filters.amount} onChange={(e) => update({ amount: e.target.value as BrowseFilters["amount"] })} className={inputClass}>
             {AMOUNT_CHOICES.map((c) => (
               <option key={c.id} value={c.id}>
-                {c.min_l ? `${c.label} (${formatQuantity(c.min_l, "L", system)})` : c.label}
+                {c.min_l ? `${c.label} (${formatQuantity(c.min_l, "l", system)})` : c.label}
               </option>
             ))}
           </select>
