@@ -37,7 +37,7 @@ export default async function Home() {
         <LayerPicture />
       </section>
 
-      <BedStory beds={beds} bedAreaM2={bedAreaM2} />
+      <BedStory beds={beds} bedAreaM2={bedAreaM2} system={system} />
 
       <section aria-labelledby="passed-title" className="grid gap-6 rounded-leaf bg-white p-6 ring-1 ring-humus-200 md:grid-cols-[1fr_1fr]">
         <div className="flex flex-col gap-2">

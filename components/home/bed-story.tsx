@@ -1,5 +1,7 @@
 import { BED_MONTHS, LAYER_DEPTH_CM, PLANT_INTO_MONTHS, SETTLED_SHARE, WORMS_AFTER_DAYS } from "@/lib/calc/facts";
 import { PALETTE } from "@/components/ui/palette";
+import type { UnitSystem } from "@/lib/calc/units";
+import { formatQuantity } from "@/lib/format/quantity";
 
 // A bed's first year, told as the bed itself: built up in layers on the first day, worms in a
 // week or two later, then sinking and darkening as it turns to soil. Heights follow the facts
@@ -10,7 +12,7 @@ const PX_PER_CM = 3.2;
 interface Stage {
   when: string;
   title: string;
-  body: string;
+  body: string | ((system: UnitSystem) => string);
   /** Share of the built depth still standing. */
   share: number;
   /** How far the layers have turned to soil, 0–1. */
@@ -21,7 +23,8 @@ interface Stage {
 
 const STAGES: Stage[] = [
   { when: "Day one, morning", title: "Board on the grass", body: "Flattened cardboard straight on the ground, seams overlapped, tape and staples off. No digging.", share: 0, soil: 0, board: true },
-  { when: "Day one, afternoon", title: "Leaves, straw, water", body: `About ${LAYER_DEPTH_CM.leaves.default} cm of leaves, ${LAYER_DEPTH_CM.straw.default} cm of straw on top, soaked until a squeeze gives a few drops.`, share: 1, soil: 0, board: true },
+  { when: "Day one, afternoon", title: "Leaves, straw, water", body: (system) =>
+      `About ${formatQuantity(LAYER_DEPTH_CM.leaves.default, "cm", system)} of leaves, ${formatQuantity(LAYER_DEPTH_CM.straw.default, "cm", system)} of straw on top, soaked until a squeeze gives a few drops.`, share: 1, soil: 0, board: true },
   { when: `Days ${WORMS_AFTER_DAYS.min}–${WORMS_AFTER_DAYS.max}`, title: "Worms go in", body: "Once any warmth has passed, composting worms go in under the straw. Keep it moist.", share: 0.85, soil: 0.1, board: true, worms: true },
   { when: `Month ${BED_MONTHS.settling}`, title: "It settles", body: `Down to about ${Math.round(SETTLED_SHARE[3] * 100)} % of its height as it wets through and the worms work.`, share: SETTLED_SHARE[3], soil: 0.35, board: true, worms: true },
   { when: `Months ${PLANT_INTO_MONTHS.from}–${PLANT_INTO_MONTHS.until}`, title: "Plant into it", body: "The board has mostly broken down. Plant into pockets of compost; top up with leaves in autumn.", share: SETTLED_SHARE[6], soil: 0.65, board: false, worms: true },
@@ -64,7 +67,7 @@ function StageBed({ s }: { s: Stage }) {
   );
 }
 
-export function BedStory({ beds, bedAreaM2 }: { beds: number; bedAreaM2: number }) {
+export function BedStory({ beds, bedAreaM2, system }: { beds: number; bedAreaM2: number; system: UnitSystem }) {
   return (
     <section aria-labelledby="story-title" className="flex flex-col gap-4">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
@@ -73,7 +76,7 @@ export function BedStory({ beds, bedAreaM2 }: { beds: number; bedAreaM2: number 
         </h2>
         {beds > 0 ? (
           <p className="text-humus-700" data-testid="beds-started">
-            {beds.toLocaleString("en-GB")} {beds === 1 ? "bed" : "beds"} started on Duffbank so far, covering {Math.round(bedAreaM2).toLocaleString("en-GB")} m² of ground.
+            {beds.toLocaleString("en-GB")} {beds === 1 ? "bed" : "beds"} started on Duffbank so far, covering {formatQuantity(bedAreaM2, "m2", system)} of ground.
           </p>
         ) : null}
       </div>
@@ -83,7 +86,7 @@ export function BedStory({ beds, bedAreaM2 }: { beds: number; bedAreaM2: number 
             <StageBed s={s} />
             <p className="text-sm font-semibold text-moss-800">{s.when}</p>
             <h3 className="font-semibold leading-snug">{s.title}</h3>
-            <p className="text-sm text-humus-700">{s.body}</p>
+            <p className="text-sm text-humus-700">{typeof s.body === "function" ? s.body(system) : s.body}</p>
           </li>
         ))}
       </ol>
