@@ -17,7 +17,7 @@ export function SiteHeader({ user, counts = {} }: { user: SessionUser | null; co
       <a href="#main" className="skip-link">
         Skip to content
       </a>
-      <div className="mx-auto flex max-w-6xl flex-wrap items-center justify-between gap-3 px-4 py-3">
+      <div className="mx-auto flex max-w-7xl flex-wrap items-center justify-between gap-3 px-4 py-3">
         <Link href={user ? "/home" : "/"} className="rounded" aria-label={user ? "Duffbank: what is waiting for you" : "Duffbank home"}>
           <Wordmark />
         </Link>

@@ -65,6 +65,15 @@ for (const role of Object.keys(DEMO) as DemoRole[]) {
       await expect(p.locator("main")).toBeVisible();
     });
     await page.setViewportSize({ width: 1366, height: 900 });
+    // One header row: the wordmark, the menus and the unit switch side by side.
+    const banner = page.getByRole("banner");
+    const middle = async (l: ReturnType<Page["locator"]>) => {
+      const b = (await l.boundingBox())!;
+      return b.y + b.height / 2;
+    };
+    const row = await middle(banner.getByRole("link", { name: /Duffbank/ }));
+    expect(Math.abs((await middle(banner.getByRole("group", { name: "Units" }).last())) - row)).toBeLessThan(24);
+    expect(Math.abs((await middle(banner.locator("nav[aria-label='Main']").last())) - row)).toBeLessThan(24);
     const nav = page.locator("header nav[aria-label='Main']").last();
     const menus = nav.locator("button[aria-expanded]");
     if ((await menus.count()) > 0) {
