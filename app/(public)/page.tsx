@@ -34,7 +34,7 @@ export default async function Home() {
             </Link>
           </div>
         </div>
-        <LayerPicture />
+        <LayerPicture system={system} />
       </section>
 
       <BedStory beds={beds} bedAreaM2={bedAreaM2} system={system} />

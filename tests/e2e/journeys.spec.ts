@@ -20,13 +20,14 @@ async function switchUnits(page: Page, to: "Metric" | "Imperial") {
 }
 
 test.describe("a visitor reading in imperial", () => {
-  test("sees no metric unit on browse, a listing, the planner, match and a giveaway day", async ({ page }) => {
+  test("sees no metric unit on home, browse, a listing, the planner, match and a giveaway day", async ({ page }) => {
     test.setTimeout(120_000);
     await page.setViewportSize(DESKTOP);
     await page.goto("/browse");
     await switchUnits(page, "Imperial");
     const listing = sql<{ id: string }>("select id from listings where status = 'active' and material_code = 'wood_chips' and unit = 'm3' order by title limit 1")[0];
     const pages: [string, string, (p: Page) => Promise<void>][] = [
+      ["home", "/", async (p) => void (await expect(p.getByTestId("kept-kg")).toBeVisible())],
       ["browse", "/browse", async (p) => void (await expect(p.locator("main article").first()).toBeVisible())],
       ["listing", `/listings/${listing.id}`, async (p) => void (await expect(p.getByRole("heading", { level: 1 })).toBeVisible())],
       ["planner", "/plan", async (p) => void (await expect(p.getByLabel("Length (ft)")).toBeVisible())],
