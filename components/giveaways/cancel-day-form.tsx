@@ -8,6 +8,7 @@ import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { useApiAction } from "@/components/ui/use-api-action";
 import { Form } from "@/components/ui/form";
+import { inputClass } from "@/components/ui/field";
 
 type Values = z.infer<typeof cancelGiveawaySchema>;
 
@@ -28,7 +29,7 @@ export function CancelDayForm({ dayId, booked, depositCents }: { dayId: string; 
       <label htmlFor="field-reason" className="font-medium">
         Reason, for the e-mail
       </label>
-      <textarea id="field-reason" rows={2} aria-invalid={err ? true : undefined} aria-describedby="field-reason-error" className="rounded-lg border border-humus-300 bg-white px-3 py-2" {...form.register("reason")} />
+      <textarea id="field-reason" rows={2} aria-invalid={err ? true : undefined} aria-describedby="field-reason-error" className={inputClass} {...form.register("reason")} />
       <p id="field-reason-error" aria-live="polite" className="min-h-5 text-sm text-ember-600">
         {err ?? ""}
       </p>

@@ -6,6 +6,7 @@ import { depositLabel } from "@/lib/format/giveaway-deposit";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { useApiAction } from "@/components/ui/use-api-action";
+import { inputClass } from "@/components/ui/field";
 
 export interface CheckInRow {
   id: string;
@@ -42,7 +43,7 @@ export function CheckInList({ dayId, rows, unit, timeZone, currency, now }: { da
       <label htmlFor="find" className="font-medium">
         Find a household
       </label>
-      <input id="find" type="search" value={q} onChange={(e) => setQ(e.target.value)} placeholder="Name" className="min-h-12 rounded-lg border border-humus-300 bg-white px-3 text-lg" />
+      <input id="find" type="search" value={q} onChange={(e) => setQ(e.target.value)} placeholder="Name" className={`${inputClass} min-h-12 text-lg`} />
       {action.error ? <Notice tone="error">{action.error}</Notice> : null}
       <ul className="flex flex-col gap-2">
         {shown.map((r) => {

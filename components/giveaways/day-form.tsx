@@ -8,7 +8,7 @@ import { LocationPicker } from "@/components/listings/location-picker";
 import { useUnits } from "@/components/ui/units-context";
 import { fewHundred } from "@/lib/format/quantity";
 import { Button } from "@/components/ui/button";
-import { Field } from "@/components/ui/field";
+import { Field, inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { dayResolver, makeSlots, toDayBody, type DayFormValues } from "./day-form-model";
 import { Form } from "@/components/ui/form";
@@ -135,7 +135,7 @@ export function DayForm({ mode, initial, dayId, locked = false }: DayFormProps) 
         <label htmlFor="field-notes" className="font-medium">
           Notes for households
         </label>
-        <textarea id="field-notes" rows={3} className="rounded-lg border border-humus-300 bg-white px-3 py-2" {...register("notes")} />
+        <textarea id="field-notes" rows={3} className={inputClass} {...register("notes")} />
       </div>
 
       {mode === "create" ? (
@@ -186,7 +186,7 @@ function GenField({ label, value, onChange, type = "text" }: { label: string; va
       <label htmlFor={id} className="text-sm font-medium">
         {label}
       </label>
-      <input id={id} type={type} inputMode={type === "text" ? "numeric" : undefined} value={value} onChange={(e) => onChange(e.target.value)} className="min-h-11 rounded-lg border border-humus-300 bg-white px-3 py-2" />
+      <input id={id} type={type} inputMode={type === "text" ? "numeric" : undefined} value={value} onChange={(e) => onChange(e.target.value)} className={inputClass} />
     </div>
   );
 }

@@ -6,6 +6,7 @@ import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { useApiAction } from "@/components/ui/use-api-action";
 import { Form } from "@/components/ui/form";
+import { inputClass } from "@/components/ui/field";
 
 /** Each slot's fill, with its size changed or the slot removed; new slots added below. */
 export function SlotEditor({ dayId, slots, timeZone, editable }: { dayId: string; slots: SlotView[]; timeZone: string; editable: boolean }) {
@@ -39,7 +40,7 @@ export function SlotEditor({ dayId, slots, timeZone, editable }: { dayId: string
                   <input
                     id={`size-${s.id}`}
                     inputMode="numeric"
-                    className="min-h-11 w-20 rounded-lg border border-humus-300 px-2"
+                    className={`${inputClass} w-20`}
                     value={sizes[s.id] ?? String(s.capacity)}
                     onChange={(e) => setSizes({ ...sizes, [s.id]: e.target.value })}
                   />
@@ -74,7 +75,7 @@ export function SlotEditor({ dayId, slots, timeZone, editable }: { dayId: string
                 inputMode={k === "capacity" ? "numeric" : undefined}
                 value={add[k]}
                 onChange={(e) => setAdd({ ...add, [k]: e.target.value })}
-                className="min-h-11 rounded-lg border border-humus-300 px-2 font-normal"
+                className={`${inputClass} font-normal`}
               />
             </label>
           ))}

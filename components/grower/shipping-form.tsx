@@ -7,6 +7,7 @@ import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { useApiAction } from "@/components/ui/use-api-action";
 import { Form } from "@/components/ui/form";
+import { inputClass } from "@/components/ui/field";
 
 type Values = z.input<typeof shippingSchema>;
 
@@ -66,7 +67,7 @@ export function ShippingForm({ initial }: { initial: { ship_weekdays: number[]; 
           <label htmlFor="pause-note" className="font-medium">
             A line for buyers (optional)
           </label>
-          <input id="pause-note" className="min-h-11 rounded-lg border border-humus-300 bg-white px-3" {...form.register("pause_note")} />
+          <input id="pause-note" className={inputClass} {...form.register("pause_note")} />
           <p className="text-sm text-humus-700">Buyers whose posted orders are waiting get an e-mail with this line when you pause, and another when you resume posting.</p>
         </div>
       ) : null}

@@ -7,6 +7,7 @@ import { usePointName } from "@/components/ui/use-point-name";
 import { useUnits } from "@/components/ui/units-context";
 import { fewHundred } from "@/lib/format/quantity";
 import type { UnitSystem } from "@/lib/calc/units";
+import { inputClass } from "@/components/ui/field";
 
 // Picks an exact point: a place found by name (street, postcode), the device's own position, or
 // a click on the map to put it on the very gate. Coordinates can still be typed, tucked away,
@@ -79,7 +80,7 @@ export function LocationPicker({
               <input
                 type="number"
                 step="any"
-                className="min-h-11 w-36 rounded-lg border border-humus-300 bg-white px-3"
+                className={`${inputClass} w-36`}
                 value={value[k] ?? ""}
                 onChange={(e) => {
                   const n = e.target.value === "" ? NaN : Number(e.target.value);

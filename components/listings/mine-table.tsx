@@ -22,6 +22,7 @@ import { StatusActions } from "./status-actions";
 import { StatusBadge } from "./status-badge";
 import { formatLocal } from "@/lib/reservations/pickup-times";
 import { DataTable } from "@/components/ui/data-table";
+import { inputClass } from "@/components/ui/field";
 
 export interface MineRow {
   id: string;
@@ -116,7 +117,7 @@ export function MineTable({ rows, system }: { rows: MineRow[]; system: UnitSyste
           value={String(table.state.globalFilter ?? "")}
           onChange={(e) => table.setGlobalFilter(e.target.value)}
           placeholder="Title, material or status"
-          className="min-h-11 rounded-lg border border-humus-300 bg-white px-3"
+          className={inputClass}
         />
       </label>
       <DataTable

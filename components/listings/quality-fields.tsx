@@ -1,6 +1,6 @@
 "use client";
 import { useWatch, type UseFormReturn } from "react-hook-form";
-import { GroupError } from "@/components/ui/field";
+import { GroupError, inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { listingCautions } from "@/lib/calc/cautions";
 import type { MaterialCode } from "@/lib/calc/facts";
@@ -82,7 +82,7 @@ export function QualityFields({ form, material }: { form: UseFormReturn<ListingF
             {...form.register("quality.species")}
             aria-invalid={errors?.species ? true : undefined}
             aria-describedby={`field-species-hint${errors?.species ? " field-species-error" : ""}`}
-            className="min-h-11 rounded-lg border border-humus-300 bg-white px-3 py-2"
+            className={inputClass}
           />
           <datalist id="worm-species">
             {WORM_SPECIES.map((s) => (

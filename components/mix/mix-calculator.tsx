@@ -14,6 +14,7 @@ import { BalancePicture } from "./balance-picture";
 import { MaterialTiles } from "./material-tiles";
 import { MixRow, type MixRowValues } from "./mix-row";
 import { WetnessGauge } from "./wetness-gauge";
+import { inputClass } from "@/components/ui/field";
 
 export interface MixValues {
   components: MixRowValues[];
@@ -123,7 +124,7 @@ export function MixCalculator() {
           {figures ? (
             <label className="flex flex-col text-sm font-medium">
               Target moisture %
-              <input type="number" step="any" {...form.register("target_moisture_pct", { setValueAs: (v: string) => (v === "" || v === null ? undefined : Number(v)) })} className="min-h-11 w-24 rounded-lg border border-humus-300 bg-white px-2" />
+              <input type="number" step="any" {...form.register("target_moisture_pct", { setValueAs: (v: string) => (v === "" || v === null ? undefined : Number(v)) })} className={`${inputClass} w-24`} />
             </label>
           ) : null}
           <Button type="submit" disabled={mix.isPending}>

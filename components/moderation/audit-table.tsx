@@ -18,6 +18,7 @@ import {
 } from "@tanstack/react-table";
 import { auditSentence, changeLines, subjectWords } from "@/lib/moderation/audit-words";
 import { formatLocal } from "@/lib/reservations/pickup-times";
+import { inputClass } from "@/components/ui/field";
 
 export interface AuditItem {
   id: number;
@@ -123,7 +124,7 @@ export function AuditTable({ items }: { items: AuditItem[] }) {
           <label htmlFor="audit-on" className="text-sm font-medium">
             On
           </label>
-          <select id="audit-on" className="min-h-11 rounded-lg border border-humus-300 bg-white px-3" value={(filter("subject_type").getFilterValue() as string) ?? ""} onChange={(e) => filter("subject_type").setFilterValue(e.target.value || undefined)}>
+          <select id="audit-on" className={inputClass} value={(filter("subject_type").getFilterValue() as string) ?? ""} onChange={(e) => filter("subject_type").setFilterValue(e.target.value || undefined)}>
             <option value="">anything</option>
             {subjectTypes.map((t) => (
               <option key={t} value={t}>
@@ -160,7 +161,7 @@ function TextFilter({ label, value, onChange, hint }: { label: string; value: st
       <label htmlFor={id} className="text-sm font-medium">
         {label}
       </label>
-      <input id={id} type="search" value={value} placeholder={hint} onChange={(e) => onChange(e.target.value)} className="min-h-11 rounded-lg border border-humus-300 bg-white px-3" />
+      <input id={id} type="search" value={value} placeholder={hint} onChange={(e) => onChange(e.target.value)} className={inputClass} />
     </div>
   );
 }

@@ -4,6 +4,7 @@ import { Button } from "@/components/ui/button";
 import { Dialog } from "@/components/ui/dialog";
 import { Notice } from "@/components/ui/notice";
 import { useApiAction } from "@/components/ui/use-api-action";
+import { inputClass } from "@/components/ui/field";
 
 export interface ReportActionsProps {
   /** The reports on one listing or person, oldest first: actions cite the first, closing closes them all. */
@@ -61,7 +62,7 @@ export function ReportActions(p: ReportActionsProps) {
         onChange={(e) => setNote(e.target.value)}
         aria-invalid={noteError ? true : undefined}
         aria-describedby={`${noteId}-error`}
-        className="rounded-lg border border-humus-300 bg-white px-3 py-2"
+        className={inputClass}
       />
       <p id={`${noteId}-error`} aria-live="polite" className="min-h-5 text-sm text-ember-600">
         {noteError ?? ""}

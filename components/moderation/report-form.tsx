@@ -8,6 +8,7 @@ import { REPORT_REASON_LABELS, REPORT_REASONS, reportSchema } from "@/lib/valida
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { Form } from "@/components/ui/form";
+import { inputClass } from "@/components/ui/field";
 
 type Values = z.infer<typeof reportSchema>;
 
@@ -73,7 +74,7 @@ export function ReportForm({ listingId, userId, subjectLabel, onDone }: ReportFo
         rows={5}
         aria-invalid={errors.text ? true : undefined}
         aria-describedby="report-text-hint report-text-error"
-        className="rounded-lg border border-humus-300 bg-white px-3 py-2"
+        className={inputClass}
         {...form.register("text")}
       />
       <p id="report-text-error" aria-live="polite" className="min-h-5 text-sm text-ember-600">

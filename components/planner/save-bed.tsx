@@ -5,6 +5,7 @@ import { apiFetch, isApiError } from "@/lib/api/client";
 import type { EstimateRequest } from "@/lib/validation/estimate";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
+import { inputClass } from "@/components/ui/field";
 
 /** Saves the planned bed (POST /api/beds) or the bed being edited (PATCH). */
 export function SaveBed({ request, location, bed }: { request: EstimateRequest; location: { lat: number; lng: number } | null; bed?: { id: string; name: string } }) {
@@ -39,7 +40,7 @@ export function SaveBed({ request, location, bed }: { request: EstimateRequest; 
           onChange={(e) => setName(e.target.value)}
           placeholder="e.g. Back fence bed"
           aria-describedby="bed-name-error"
-          className="min-h-11 flex-1 rounded-lg border border-humus-300 bg-white px-3"
+          className={`${inputClass} flex-1`}
         />
         <Button onClick={save} disabled={busy}>
           {busy ? "Saving…" : bed ? "Save changes" : "Save bed"}
