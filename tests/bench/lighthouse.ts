@@ -13,36 +13,12 @@ import { promisify } from "node:util";
 import * as chromeLauncher from "chrome-launcher";
 import { ROOT } from "../helpers/processes";
 import { startApp } from "./server";
+import { signIn } from "./sign-in";
 
 const CHROMIUM = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
 const RUNS = Number(process.env.LIGHTHOUSE_RUNS ?? 1);
 const FLAGS = ["--headless=new", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"];
 const TARGETS = { performance: 95, accessibility: 100, jsKb: 150, cls: 0.05 };
-
-/** The demo gardener's session cookie, through next-auth's own credentials sign-in. */
-async function signIn(base: string, email: string, password: string): Promise<string> {
-  const jar = new Map<string, string>();
-  const keep = (res: Response) => {
-    for (const c of res.headers.getSetCookie()) {
-      const [pair] = c.split(";");
-      const i = pair.indexOf("=");
-      jar.set(pair.slice(0, i), pair.slice(i + 1));
-    }
-  };
-  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
-  const csrf = await fetch(`${base}/api/auth/csrf`);
-  keep(csrf);
-  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
-  const res = await fetch(`${base}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: cookie(), origin: base },
-    body: new URLSearchParams({ email, password, csrfToken, json: "true" }),
-  });
-  keep(res);
-  if (![...jar.keys()].some((k) => k.includes("session-token"))) throw new Error(`signing in as ${email} gave no session (${res.status})`);
-  return cookie();
-}
 
 async function json<T>(url: string, cookie?: string): Promise<T> {
   const res = await fetch(url, { headers: cookie ? { cookie } : {} });

@@ -5,7 +5,8 @@
 // BENCH_HTTP_SIZES=100000 to measure HTTP at fewer sizes (default: every size from 100,000);
 // BENCH_NAIVE=0 to leave out the full scans (minutes at 100,000 listings on a busy machine).
 // Then the alert fan-out at 100,000 open needs (tests/bench/needs.ts): BENCH_OPEN_NEEDS=0 skips it, or
-// sets another count; BENCH_SIZES=0 runs only the needs.
+// sets another count; BENCH_SIZES=0 runs only the needs. Then the signed-in pages with the demo
+// twenty times over (tests/bench/pages.ts, SQLite): BENCH_PAGES=0 skips them.
 import os from "node:os";
 import { performance } from "node:perf_hooks";
 import type { Knex } from "knex";
@@ -20,6 +21,7 @@ import { at, type BenchStore, buildDataset, emptyStore, halfSideKm } from "./dat
 import { runHttpBench, type HttpResult } from "./http";
 import { naiveCandidates, naiveNearest } from "./naive";
 import { needsTable, runNeedsBench } from "./needs";
+import { pagesTable, runPagesBench } from "./pages";
 
 const SIZES = (process.env.BENCH_SIZES ?? "1000,10000,100000,1000000").split(",").map(Number).filter((n) => n > 0);
 const HTTP_SIZES = process.env.BENCH_HTTP_SIZES ? process.env.BENCH_HTTP_SIZES.split(",").map(Number) : SIZES.filter((n) => n >= 100_000);
@@ -136,6 +138,8 @@ async function main() {
   // The alert fan-out: what a new listing costs at 100,000 open needs.
   const needsCount = Number(process.env.BENCH_OPEN_NEEDS ?? 100_000);
   if (needsCount > 0) console.log(`\n${needsTable(await runNeedsBench(dir, needsCount))}\n`);
+  // The signed-in pages with the demo twenty times over (SQLite; BENCH_PAGES=0 skips them).
+  if (process.env.BENCH_PAGES !== "0" && !process.env.DATABASE_URL) console.log(`\n${pagesTable(await runPagesBench(dir))}\n`);
   if (process.env.BENCH_HTTP === "0" || stores.size === 0) return;
   const http: HttpResult[] = [];
   for (const [size, store] of stores) for (const n of HTTP_PROCESSES) http.push(await runHttpBench(store, size, BENCH_NEEDS, n));
