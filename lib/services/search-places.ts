@@ -33,3 +33,13 @@ export async function nameForPoint(lat: number, lng: number): Promise<Place | nu
   const remote = await geocodeReverse(lat, lng);
   return remote ? view(remote, "geocoder") : null;
 }
+
+/** The gazetteer's name nearest each point ("Little Sedge"), or null: no outside service, for lists of many points. */
+export async function localNamesFor(points: readonly { lat: number; lng: number }[]): Promise<(string | null)[]> {
+  return Promise.all(
+    points.map(async (p) => {
+      const near = await nearestPlace(p.lat, p.lng);
+      return near ? placeLabel(near) : null;
+    }),
+  );
+}

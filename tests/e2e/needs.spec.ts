@@ -113,6 +113,8 @@ test.describe("the council's demand map", () => {
     await expect(map.locator("path.duff-demand-cell")).toHaveCount(2);
     await expect(page.locator("[data-suggestion]")).toContainText("households");
     await expect(page.locator("[data-map-key]")).toContainText("3 or more people");
+    // Each area is named by the nearest place in the gazetteer, not only by coordinates.
+    await expect(page.getByRole("table").locator("tbody tr").first()).toContainText(/^Near \w/);
     // A desk and a phone: the map, suggestion and table fit the width at both.
     for (const width of [1366, 390]) {
       await page.setViewportSize({ width, height: width > 500 ? 900 : 844 });

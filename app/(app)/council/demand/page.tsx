@@ -6,6 +6,7 @@ import { formatQuantity } from "@/lib/format/quantity";
 import { materialNoun } from "@/lib/match/format";
 import { councilOf } from "@/lib/services/council-access";
 import { councilDemand } from "@/lib/services/needs/council-demand";
+import { localNamesFor } from "@/lib/services/search-places";
 import { longDate } from "@/lib/time/zoned";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button-class";
@@ -24,6 +25,7 @@ export default async function CouncilDemandPage({ searchParams }: { searchParams
   const material = (MATERIAL_CODES as readonly string[]).includes(String(asked)) ? (asked as MaterialCode) : "leaves";
   const d = await councilDemand(councilOf(user), { material });
   const system = user.unit_system;
+  const names = await localNamesFor(d.cells.map((c) => c.centre));
   const most = Math.max(1, ...d.cells.map((c) => c.people));
   const s = d.suggestion;
   const plan = s
@@ -110,10 +112,13 @@ export default async function CouncilDemandPage({ searchParams }: { searchParams
                 </tr>
               </thead>
               <tbody>
-                {d.cells.map((c) => (
+                {d.cells.map((c, i) => (
                   <tr key={c.id} className="border-t border-humus-100">
                     <td className="p-2">
-                      {c.centre.lat.toFixed(3)}, {c.centre.lng.toFixed(3)} <span className="text-humus-600">({c.area_km2} km²)</span>
+                      {names[i] ? <>Near {names[i]} </> : null}
+                      <span className={names[i] ? "text-humus-600" : undefined}>
+                        ({c.centre.lat.toFixed(3)}, {c.centre.lng.toFixed(3)}; {c.area_km2} km²)
+                      </span>
                     </td>
                     <td className="p-2">{c.people}</td>
                     <td className="p-2">{c.needs}</td>
