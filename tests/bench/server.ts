@@ -15,7 +15,9 @@ export interface RunningApp {
 /** `env` names the database: `{ DATABASE_FILE }` or `{ DATABASE_URL }`. */
 export async function startApp(env: Record<string, string>): Promise<RunningApp> {
   ensureBuild("bench", process.env.BENCH_BUILD === "1");
-  const [app, smtp, inbox, stripe, cloudinary] = [await freePort(), await freePort(), await freePort(), await freePort(), await freePort()];
+  // Every fake on a port of its own, so a second app process (BENCH_HTTP_PROCESSES) does not
+  // collide with the first one's fakes and take its whole process group down with it.
+  const [app, smtp, inbox, stripe, cloudinary, geocoder] = [await freePort(), await freePort(), await freePort(), await freePort(), await freePort(), await freePort()];
   const base = `http://127.0.0.1:${app}`;
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "duffbank-bench-app-"));
   const child = spawn("bash", ["tests/e2e/serve.sh"], {
@@ -29,6 +31,8 @@ export async function startApp(env: Record<string, string>): Promise<RunningApp>
       INBOX_PORT: String(inbox),
       STRIPE_FAKE_PORT: String(stripe),
       CLOUDINARY_FAKE_PORT: String(cloudinary),
+      GEOCODER_FAKE_PORT: String(geocoder),
+      GEOCODER_URL: `http://127.0.0.1:${geocoder}`,
       ...env,
       NEXTAUTH_URL: base,
       APP_URL: base,
