@@ -1,6 +1,6 @@
 "use client";
 import "leaflet/dist/leaflet.css";
-import { useEffect, useState } from "react";
+import { Fragment, useEffect, useState } from "react";
 import { divIcon, type Map as LeafletMapInstance } from "leaflet";
 import { CircleMarker, GeoJSON, MapContainer, Marker, Pane, Polygon, Polyline, Rectangle, TileLayer, Tooltip, useMap, useMapEvents } from "react-leaflet";
 import type { Feature, FeatureCollection } from "geojson";
@@ -75,6 +75,7 @@ function Labels() {
 }
 
 const escapeHtml = (text: string) => text.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+const stopNumber = (n: number) => divIcon({ className: "duff-stop-number", html: String(n), iconSize: [24, 24], iconAnchor: [12, 12] });
 const placeLabel = (name: string) => divIcon({ className: "duff-place-label", html: escapeHtml(name), iconSize: [160, 18], iconAnchor: [80, 9] });
 
 function ClickCatcher({ onClick }: { onClick?: (p: { lat: number; lng: number }) => void }) {
@@ -149,27 +150,25 @@ export function LeafletMap({ center, zoom = 13, markers = [], areas = [], polygo
         {polygon?.map((p, i) => <CircleMarker key={`v${i}`} center={[p.lat, p.lng]} radius={5} pathOptions={{ color: "#40642e", fillColor: "#fff", fillOpacity: 1 }} />)}
         {line && line.length > 1 ? <Polyline positions={line.map((p) => [p.lat, p.lng])} pathOptions={{ color: "#93600f", weight: 3, dashArray: "6 6" }} /> : null}
         {markers.map((m) => (
-          <CircleMarker
-            key={m.id}
-            center={[m.lat, m.lng]}
-            radius={m.order !== undefined ? 12 : 8}
-            pathOptions={{
-              color: m.tone === "origin" ? "#271c13" : m.tone === "selected" ? "#93600f" : "#40642e",
-              weight: m.tone === "selected" ? 4 : 2,
-              fillColor: m.tone === "origin" ? "#d9962b" : m.tone === "selected" ? "#f0c36b" : "#6f9b55",
-              fillOpacity: 0.9,
-            }}
-            // Read once, when Leaflet creates the path; pathOptions updates cannot change it.
-            className={m.className}
-            eventHandlers={m.onSelect ? { click: m.onSelect } : undefined}
-          >
-            {m.order !== undefined ? (
-              <Tooltip permanent direction="center" className="duff-stop-number">
-                {m.order}
-              </Tooltip>
-            ) : null}
-            {m.label ? <Tooltip>{m.label}</Tooltip> : null}
-          </CircleMarker>
+          <Fragment key={m.id}>
+            <CircleMarker
+              center={[m.lat, m.lng]}
+              radius={m.order !== undefined ? 12 : 8}
+              pathOptions={{
+                color: m.tone === "origin" ? "#271c13" : m.tone === "selected" ? "#93600f" : "#40642e",
+                weight: m.tone === "selected" ? 4 : 2,
+                fillColor: m.tone === "origin" ? "#d9962b" : m.tone === "selected" ? "#f0c36b" : "#6f9b55",
+                fillOpacity: 0.9,
+              }}
+              // Read once, when Leaflet creates the path; pathOptions updates cannot change it.
+              className={m.className}
+              eventHandlers={m.onSelect ? { click: m.onSelect } : undefined}
+            >
+              {m.label ? <Tooltip>{m.label}</Tooltip> : null}
+            </CircleMarker>
+            {/* The stop's number as plain text over its circle (a permanent tooltip starts out empty, without a name). */}
+            {m.order !== undefined ? <Marker position={[m.lat, m.lng]} interactive={false} keyboard={false} icon={stopNumber(m.order)} /> : null}
+          </Fragment>
         ))}
       </MapContainer>
     </div>
