@@ -21,6 +21,8 @@ export interface WormListingRow {
   quantity_held: number;
   quantity_collected: number;
   price_cents: number;
+  pack_size: number | null;
+  pack_price_cents: number | null;
   currency: string;
   quality: string;
 }
@@ -28,7 +30,7 @@ export interface WormListingRow {
 /** A grower's live-culture listings (material worms, sold by kg). */
 export async function wormListingsOf(ownerId: string, q: Db = db()): Promise<WormListingRow[]> {
   return q("listings")
-    .select("id", "title", "status", "unit", "quantity_total", "quantity_held", "quantity_collected", "price_cents", "currency", "quality")
+    .select("id", "title", "status", "unit", "quantity_total", "quantity_held", "quantity_collected", "price_cents", "pack_size", "pack_price_cents", "currency", "quality")
     .where({ owner_id: ownerId, material_code: "worms" })
     .orderBy("updated_at", "desc");
 }

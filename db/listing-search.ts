@@ -23,7 +23,7 @@ import type { ListingRow } from "./types";
 // never the exact point or the address, and not the long text a card leaves out.
 const BROWSE_COLUMNS = [
   "id", "owner_id", "organisation_id", "material_code", "title", "unit", "unit_size", "unit_mass_kg",
-  "quantity_total", "quantity_held", "quantity_collected", "price_cents", "currency", "deposit_cents",
+  "quantity_total", "quantity_held", "quantity_collected", "price_cents", "currency", "deposit_cents", "pack_size", "pack_price_cents",
   "approx_lat", "approx_lng", "available_from", "available_until", "created_at",
 ] as const satisfies readonly Exclude<(typeof LISTING_COLUMNS)[number], "lat" | "lng" | "address">[];
 

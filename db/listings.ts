@@ -24,6 +24,8 @@ export const LISTING_COLUMNS = [
   "currency",
   "deposit_cents",
   "max_per_reservation",
+  "pack_size",
+  "pack_price_cents",
   "auto_accept",
   "lat",
   "lng",
@@ -52,6 +54,8 @@ export type ListingPatch = Partial<
     | "currency"
     | "deposit_cents"
     | "max_per_reservation"
+    | "pack_size"
+    | "pack_price_cents"
     | "auto_accept"
     | "lat"
     | "lng"

@@ -17,6 +17,7 @@ import * as listingPoints from "../migrations/20261208_016_listing_points";
 import * as openNeeds from "../migrations/20261208_020_open_needs";
 import * as answerWindows from "../migrations/20261209_030_answer_windows";
 import * as places from "../migrations/20261209_031_places";
+import * as culturePacks from "../migrations/20261210_032_culture_packs";
 
 // Migrations are listed here rather than found on disk so that the same list runs under
 // the CLI script, Vitest and the bundled Next.js server alike. Add new ones at the end.
@@ -39,6 +40,7 @@ const migrations: Record<string, Knex.Migration> = {
   "20261208_020_open_needs": openNeeds,
   "20261209_030_answer_windows": answerWindows,
   "20261209_031_places": places,
+  "20261210_032_culture_packs": culturePacks,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

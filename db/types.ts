@@ -106,6 +106,9 @@ export interface ListingRow {
   currency: string;
   deposit_cents: number;
   max_per_reservation: number | null;
+  /** Sold by the pack (live cultures): the pack's size in the listing's unit and its price; both or neither. */
+  pack_size: number | null;
+  pack_price_cents: number | null;
   auto_accept: boolean | 0 | 1;
   /** Exact pickup point and address: never in a public response. */
   lat: number;

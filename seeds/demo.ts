@@ -1,6 +1,7 @@
 import type { Knex } from "knex";
 import { MATERIALS } from "../lib/calc/facts";
 import { approximatePoint, placeOwner } from "../lib/geo/approximate";
+import { unitPriceOfPack } from "../lib/listings/packs";
 import { demoListings } from "./listings";
 import { DEMO_PASSWORD, ORGANISATIONS, PEOPLE, TOWN } from "./town";
 import { seedId } from "./ids";
@@ -96,10 +97,12 @@ export async function seed(knex: Knex): Promise<Record<string, number>> {
           unit_size: l.unit_size,
           unit_mass_kg: l.unit_mass_kg,
           quantity_total: l.quantity_total,
-          price_cents: l.price_cents,
+          price_cents: l.pack ? unitPriceOfPack(l.pack) : l.price_cents,
           currency: TOWN.currency,
           deposit_cents: l.deposit_cents,
           max_per_reservation: l.max_per_reservation,
+          pack_size: l.pack?.size ?? null,
+          pack_price_cents: l.pack?.price_cents ?? null,
           auto_accept: l.auto_accept,
           lat: l.lat,
           lng: l.lng,

@@ -17,6 +17,8 @@ export interface DemoListing {
   price_cents: number;
   deposit_cents: number;
   max_per_reservation: number | null;
+  /** Sold by the pack (live cultures): a pack's size in the listing's unit and its price. */
+  pack?: { size: number; price_cents: number };
   quality: Record<string, unknown>;
   lat: number;
   lng: number;
@@ -25,7 +27,11 @@ export interface DemoListing {
   windows: { weekday: number; start: string; end: string }[];
 }
 
-type Template = Omit<DemoListing, "key" | "lat" | "lng" | "address" | "windows" | "title"> & { titles: string[] };
+type Template = Omit<DemoListing, "key" | "lat" | "lng" | "address" | "windows" | "title" | "pack"> & {
+  titles: string[];
+  /** The copies with this title are sold by the pack. */
+  packed?: { title: string; size: number; price_cents: number };
+};
 
 const SHEET_M2 = 0.8; // a flattened large box, 1.0 × 0.8 m (common practice, no source)
 
@@ -38,7 +44,7 @@ const TEMPLATES: Template[] = [
   { owner: "priya", material: "cardboard", titles: ["Moving boxes, flattened", "Cardboard after a house move"], description: "About twenty moving boxes, flattened. Some still have tape on them.", unit: "sheets", unit_size: 0.6, unit_mass_kg: null, quantity_total: 20, price_cents: 0, deposit_cents: 0, max_per_reservation: null, quality: { tape_removed: false, no_glossy_print: true }, auto_accept: false },
   { owner: "farm", material: "straw", titles: ["Wheat straw, small bales", "Spoiled straw bales (rained on)", "Barley straw, dry, small bales"], description: "Two-string small bales stored in the barn. We can tell you what the field was sprayed with.", unit: "bales", unit_size: BALE_M3, unit_mass_kg: 20, quantity_total: 40, price_cents: 450, deposit_cents: 0, max_per_reservation: 12, quality: { herbicide_history: "known_untreated" }, auto_accept: false },
   { owner: "stables", material: "straw", titles: ["Bedding straw, half bales"], description: "Clean bedding straw, never used. Sprays on the field unknown — we buy it in.", unit: "bales", unit_size: BALE_M3, unit_mass_kg: 18, quantity_total: 10, price_cents: 300, deposit_cents: 0, max_per_reservation: 5, quality: { herbicide_history: "unknown" }, auto_accept: true },
-  { owner: "grower", material: "worms", titles: ["Red wiggler starter culture, 500 g", "Composting worms by the kilo"], description: "Eisenia fetida from our own beds, sold with some bedding. Pickup or posted early in the week.", unit: "kg", unit_size: null, unit_mass_kg: null, quantity_total: 8, price_cents: 3200, deposit_cents: 0, max_per_reservation: 2, quality: { species: "Eisenia fetida" }, auto_accept: false },
+  { owner: "grower", material: "worms", titles: ["Red wiggler starter culture, 500 g", "Composting worms by the kilo"], description: "Eisenia fetida from our own beds, sold with some bedding. Pickup or posted early in the week.", unit: "kg", unit_size: null, unit_mass_kg: null, quantity_total: 8, price_cents: 3200, deposit_cents: 0, max_per_reservation: 2, packed: { title: "Red wiggler starter culture, 500 g", size: 0.5, price_cents: 1600 }, quality: { species: "Eisenia fetida" }, auto_accept: false },
   { owner: "tobias", material: "grass_clippings", titles: ["Fresh grass clippings", "Lawn clippings, no weedkiller"], description: "From a lawn that has had no weedkiller for years. Best collected the same day.", unit: "bags", unit_size: BAG_M3, unit_mass_kg: null, quantity_total: 4, price_cents: 0, deposit_cents: 0, max_per_reservation: null, quality: { herbicide_history: "known_untreated" }, auto_accept: true },
   { owner: "cafe", material: "coffee_grounds", titles: ["Used coffee grounds, daily", "Espresso grounds in tubs"], description: "Grounds from the espresso machine, collected in 10 kg tubs. Bring the tub back next time.", unit: "kg", unit_size: null, unit_mass_kg: null, quantity_total: 40, price_cents: 0, deposit_cents: 300, max_per_reservation: 20, quality: {}, auto_accept: true },
   { owner: "trees", material: "wood_chips", titles: ["Arborist wood chips, a trailer load", "Fresh chips from hedge work"], description: "Mixed hardwood chips straight from the chipper. For paths or a top layer, not for digging in.", unit: "m3", unit_size: null, unit_mass_kg: null, quantity_total: 6, price_cents: 0, deposit_cents: 500, max_per_reservation: 3, quality: {}, auto_accept: false },
@@ -65,11 +71,13 @@ export function demoListings(): DemoListing[] {
       const theta = rand() * 2 * Math.PI;
       const lat = TOWN.centre.lat + (r / 111.2) * Math.cos(theta);
       const lng = TOWN.centre.lng + (r / (111.2 * Math.cos((TOWN.centre.lat * Math.PI) / 180))) * Math.sin(theta);
-      const { titles, ...rest } = t;
+      const { titles, packed, ...rest } = t;
+      const title = titles[i % titles.length];
       out.push({
         ...rest,
+        ...(packed?.title === title ? { pack: { size: packed.size, price_cents: packed.price_cents } } : {}),
         key: `listing-${++n}`,
-        title: titles[i % titles.length],
+        title,
         quantity_total: wholeIfCounted(t.unit, t.quantity_total * (0.6 + rand() * 0.8)),
         lat: Math.round(lat * 1e6) / 1e6,
         lng: Math.round(lng * 1e6) / 1e6,

@@ -33,8 +33,12 @@ export interface ListingFormState {
   quantity: string;
   unit_size: string;
   unit_mass_kg: string;
-  priced: "free" | "priced";
+  /** "per_pack": a live culture sold in packs of a set weight at a price a pack. */
+  priced: "free" | "priced" | "per_pack";
   price_cents: string;
+  /** In the reader's mass unit (kg or lb). */
+  pack_size: string;
+  pack_price_cents: string;
   currency: "eur" | "gbp" | "usd";
   deposit_cents: string;
   max_per_reservation: string;
@@ -119,6 +123,8 @@ export function toBody(v: ListingFormState, system: UnitSystem) {
   const mass = numberOrNull(v.unit_mass_kg);
   const max = numberOrNull(v.max_per_reservation);
   const qty = numberOrNull(v.quantity);
+  const packSize = numberOrNull(v.pack_size);
+  const perPack = v.priced === "per_pack" && v.material === "worms";
   return {
     status: v.status,
     material: v.material,
@@ -128,7 +134,12 @@ export function toBody(v: ListingFormState, system: UnitSystem) {
     quantity: qty === null ? undefined : round(quantityToSi(qty, v.unit, system), 6),
     unit_size: counted && size !== null ? round(unitSizeToSi(size, v.unit, system), 6) : null,
     unit_mass_kg: v.unit === "bales" && mass !== null ? round(system === "imperial" ? lbToKg(mass) : mass, 3) : null,
-    price_cents: v.priced === "free" ? 0 : moneyToCents(v.price_cents),
+    // A pack listing's price per kg is worked out by the server from its pack.
+    price_cents: v.priced === "priced" ? moneyToCents(v.price_cents) : 0,
+    // To the gram, so a pack typed in pounds stores as the grower would weigh it.
+    // Left empty: NaN, so the schema asks for it rather than posting a culture free by mistake.
+    pack_size: perPack ? (packSize === null ? NaN : round(quantityToSi(packSize, v.unit, system), 3)) : null,
+    pack_price_cents: perPack ? (v.pack_price_cents.trim() === "" ? NaN : moneyToCents(v.pack_price_cents)) : null,
     currency: v.currency,
     deposit_cents: moneyToCents(v.deposit_cents),
     max_per_reservation: max === null ? null : round(quantityToSi(max, v.unit, system), 6),
@@ -159,6 +170,8 @@ export function emptyForm(material: MaterialCode = "leaves"): ListingFormState {
     unit_mass_kg: "",
     priced: "free",
     price_cents: "",
+    pack_size: "",
+    pack_price_cents: "",
     currency: "eur",
     deposit_cents: "",
     max_per_reservation: "",
@@ -188,6 +201,7 @@ export interface StoredListingValues {
   unit_mass_kg: number | null;
   quantity_total: number;
   price_cents: number;
+  pack?: { size: number; price_cents: number } | null;
   currency: string;
   deposit_cents: number;
   max_per_reservation: number | null;
@@ -212,8 +226,10 @@ export function fromListing(l: StoredListingValues, system: UnitSystem): Listing
     quantity: num(quantityFromSi(l.quantity_total, l.unit, system)),
     unit_size: l.unit_size === null ? "" : num(unitSizeFromSi(l.unit_size, l.unit, system)),
     unit_mass_kg: l.unit_mass_kg === null ? "" : num(system === "imperial" ? kgToLb(l.unit_mass_kg) : l.unit_mass_kg),
-    priced: l.price_cents > 0 ? "priced" : "free",
-    price_cents: centsToMoney(l.price_cents),
+    priced: l.pack ? "per_pack" : l.price_cents > 0 ? "priced" : "free",
+    price_cents: l.pack ? "" : centsToMoney(l.price_cents),
+    pack_size: l.pack ? num(quantityFromSi(l.pack.size, l.unit, system)) : "",
+    pack_price_cents: l.pack ? centsToMoney(l.pack.price_cents) : "",
     currency: (["eur", "gbp", "usd"].includes(l.currency) ? l.currency : "eur") as ListingFormState["currency"],
     deposit_cents: centsToMoney(l.deposit_cents),
     max_per_reservation: l.max_per_reservation === null ? "" : num(quantityFromSi(l.max_per_reservation, l.unit, system)),

@@ -1,10 +1,11 @@
 import Link from "next/link";
 import type { UnitSystem } from "@/lib/calc/units";
-import { formatDay, formatDistance, formatListingQuantity, formatMoney, formatPrice, materialName } from "@/lib/listings/format";
+import { formatDay, formatDistance, formatListingQuantity, formatMoney, materialName } from "@/lib/listings/format";
 import type { ListingUnit } from "@/lib/validation/listings";
 import type { MaterialCode } from "@/lib/calc/facts";
 import { TrustMarks } from "./trust-marks";
 import { UnitDrawing } from "./unit-drawing";
+import { formatListingPrice, type Pack } from "@/lib/listings/packs";
 
 export interface CardItem {
   id: string;
@@ -15,6 +16,7 @@ export interface CardItem {
   unit_size?: number | null;
   unit_mass_kg?: number | null;
   price_cents: number;
+  pack?: Pack | null;
   currency: string;
   deposit_cents: number;
   distance_km: number | null;
@@ -68,7 +70,7 @@ export function ListingCard({ item, system, selected = false, fit, onHover }: { 
       </h3>
       <p className="flex flex-wrap gap-x-2 text-sm text-humus-700">
         {item.distance_km !== null ? <span className="font-medium">{formatDistance(item.distance_km, system)} away</span> : null}
-        <span className="font-medium">{formatPrice(item.price_cents, item.currency, item.unit, system)}</span>
+        <span className="font-medium">{formatListingPrice(item, system)}</span>
         {item.deposit_cents > 0 ? <span>{formatMoney(item.deposit_cents, item.currency)} back when you collect</span> : null}
         {from ? <span className="font-medium text-moss-800">collect from {from}</span> : null}
         {until ? <span>until {until}</span> : null}

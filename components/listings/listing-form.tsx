@@ -133,13 +133,26 @@ export function ListingForm(props: Props) {
             <input type="radio" value="free" {...register("priced")} className="h-5 w-5" /> Free
           </label>
           <label className="flex items-center gap-2">
-            <input type="radio" value="priced" {...register("priced")} className="h-5 w-5" /> For a price
+            <input type="radio" value="priced" {...register("priced")} className="h-5 w-5" /> {material === "worms" ? `For a price a ${symbol}` : "For a price"}
           </label>
+          {material === "worms" ? (
+            <label className="flex items-center gap-2">
+              <input type="radio" value="per_pack" {...register("priced")} className="h-5 w-5" /> For a price a pack
+            </label>
+          ) : null}
         </fieldset>
         <div className="grid gap-3 sm:grid-cols-3">
-          {priced === "priced" ? (
+          {priced === "per_pack" && material === "worms" ? (
             <>
-              <Field label={`Price for each ${unit === "m3" || unit === "m2" || unit === "kg" ? symbol : unit.replace(/s$/, "")}`} inputMode="decimal" {...register("price_cents")} error={errors.price_cents?.message} />
+              <Field label={`Weight of one pack (${symbol})`} inputMode="decimal" {...register("pack_size")} error={errors.pack_size?.message} hint="Buyers reserve whole packs; the quantity above is the total across all packs." />
+              <Field label="Price of one pack" inputMode="decimal" {...register("pack_price_cents")} error={errors.pack_price_cents?.message} />
+            </>
+          ) : null}
+          {priced === "priced" || (priced === "per_pack" && material === "worms") ? (
+            <>
+              {priced === "priced" ? (
+                <Field label={`Price for each ${unit === "m3" || unit === "m2" || unit === "kg" ? symbol : unit.replace(/s$/, "")}`} inputMode="decimal" {...register("price_cents")} error={errors.price_cents?.message} />
+              ) : null}
               <SelectField label="Currency" {...register("currency")} error={errors.currency?.message}>
                 <option value="eur">EUR</option>
                 <option value="gbp">GBP</option>

@@ -5,6 +5,7 @@ import { type UnitSystem } from "@/lib/calc/units";
 import { formatQuantity } from "@/lib/format/quantity";
 import { formatCents, formatListingQuantity, materialNoun } from "@/lib/match/format";
 import { formatLocal } from "@/lib/reservations/pickup-times";
+import { packCount } from "@/lib/listings/packs";
 import type { PickupPlan as Plan } from "./use-match";
 
 export type PlanAllocation = Plan["allocations"][number];
@@ -15,11 +16,11 @@ export interface StopChoice {
   ship_to: string;
 }
 
-/** "Take 3 bales of straw (0.5 m³ of straw)". */
+/** "Take 3 bales of straw (0.5 m³ of straw)", or "Order 2 packs, 1 kg of worms". */
 function Take({ a, system }: { a: PlanAllocation; system: UnitSystem }) {
   return (
     <p>
-      {a.fulfilment === "post" ? "Order" : "Take"} <strong>{formatListingQuantity(a.listing_quantity, a.listing_unit, system)}</strong>
+      {a.fulfilment === "post" ? "Order" : "Take"} <strong>{a.packs ? `${packCount(a.packs)}, ${formatListingQuantity(a.listing_quantity, a.listing_unit, system)}` : formatListingQuantity(a.listing_quantity, a.listing_unit, system)}</strong>
       {a.listing_unit === a.unit ? ` of ${materialNoun(a.material)}` : ` (${formatQuantity(a.quantity, a.unit, system)} of ${materialNoun(a.material)})`}
     </p>
   );

@@ -10,6 +10,7 @@ import { formatDay } from "@/lib/listings/format";
 import { longDate } from "@/lib/time/zoned";
 import { buttonClass } from "@/components/ui/button-class";
 import { DismissAlert, NeedActions } from "./need-actions";
+import { formatListingPrice } from "@/lib/listings/packs";
 
 const STATUS_WORDS: Record<NeedView["status"], string> = { open: "Open", met: "Met", expired: "Past its date", closed: "Closed" };
 
@@ -50,7 +51,7 @@ export function NeedCard({ need, system }: { need: NeedView; system: UnitSystem 
 /** A listing found for one of the needs, with the way to reserve it. */
 export function AlertCard({ alert, system }: { alert: AlertView; system: UnitSystem }) {
   const l = alert.listing;
-  const price = l.price_cents > 0 ? `${formatCents(l.price_cents, l.currency)} each` : l.deposit_cents > 0 ? `free, ${formatCents(l.deposit_cents, l.currency)} deposit` : "free";
+  const price = l.price_cents > 0 ? formatListingPrice(l, system) : l.deposit_cents > 0 ? `free, ${formatCents(l.deposit_cents, l.currency)} deposit` : "free";
   return (
     <li className={`flex flex-col gap-2 rounded-lg p-4 ring-1 ${alert.seen ? "bg-white ring-humus-200" : "bg-moss-50 ring-moss-300"}`} data-alert={alert.id}>
       <p className="font-semibold">

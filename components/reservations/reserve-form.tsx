@@ -7,8 +7,9 @@ import type { z } from "zod";
 import { reserveOneSchema } from "@/lib/validation/reservations";
 import { isApiError, submitOnce } from "@/lib/api/client";
 import { useSubmitKeys } from "@/components/ui/use-submit-keys";
-import { formatMoney, priceFor } from "@/lib/payments/money";
-import { formatPrice } from "@/lib/listings/format";
+import { formatMoney, listingPrice } from "@/lib/payments/money";
+import { formatListingQuantity } from "@/lib/listings/format";
+import { formatListingPrice, packCount, packQuantity, wholePacks } from "@/lib/listings/packs";
 import { quantityLimitProblem, typedQuantityLabel, WHOLE_UNITS } from "@/lib/reservations/labels";
 import { equivalentOf } from "@/lib/reservations/equivalents";
 import { formatLocal } from "@/lib/reservations/pickup-times";
@@ -53,11 +54,15 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
   const [error, setError] = useState<string | null>(null);
   const keys = useSubmitKeys();
   const whole = WHOLE_UNITS.has(offer.unit);
+  // Sold by the pack: the buyer counts packs; the quantity sent is those packs' weight.
+  const pack = offer.pack;
+  const packsLeft = pack ? wholePacks(offer.max_per_reservation !== null ? Math.min(offer.max_per_reservation, offer.available) : offer.available, pack) : 0;
+  const [packs, setPacks] = useState("1");
   const form = useForm<Values>({
     resolver: zodResolver(reserveOneSchema),
     defaultValues: {
       listing_id: offer.id,
-      quantity: 1,
+      quantity: pack ? pack.size : 1,
       pickup_window_id: offer.windows[0]?.id ?? null,
       bed_id: null,
       // A live culture is collected where the grower offers it, posted otherwise.
@@ -67,13 +72,33 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
   });
   const posted = useWatch({ control: form.control, name: "fulfilment" }) === "post";
   const quantity = Number(useWatch({ control: form.control, name: "quantity" }));
-  const price = priceFor(offer.price_cents, Number.isFinite(quantity) ? quantity : 0);
+  const price = listingPrice(offer, Number.isFinite(quantity) ? quantity : 0);
   const equivalent = equivalentOf(offer, quantity, unitSystem);
   const limit = offer.max_per_reservation !== null ? Math.min(offer.max_per_reservation, offer.available) : offer.available;
   const chosenWindow = useWatch({ control: form.control, name: "pickup_window_id" }) ?? null;
 
-  const onSubmit = form.handleSubmit(async (values) => {
+  const choosePacks = (text: string) => {
+    setPacks(text);
+    const n = Number(text);
+    form.setValue("quantity", pack && text.trim() !== "" && Number.isFinite(n) ? packQuantity(n, pack) : NaN);
+  };
+  const packProblem = (): string | null => {
+    const n = Number(packs);
+    if (!pack) return null;
+    if (packs.trim() === "" || !Number.isInteger(n) || n < 1) return "Give a whole number of packs, 1 or more.";
+    if (n > packsLeft) return packsLeft > 0 ? `At most ${packCount(packsLeft)} on this listing.` : "Nothing is left.";
+    return null;
+  };
+
+  const onSubmit = form.handleSubmit(async (values, event) => {
     setError(null);
+    const problem = packProblem();
+    if (problem) {
+      form.setError("quantity", { message: problem });
+      // The packs field is not one of the form's registered fields: focus it by its name.
+      (event?.target as HTMLFormElement | undefined)?.querySelector<HTMLInputElement>('input[name="quantity"]')?.focus();
+      return;
+    }
     let answer: Answer;
     try {
       // A parcel has no pickup window; a collected culture has no postal address.
@@ -94,21 +119,43 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
     <Form onSubmit={onSubmit} noValidate className="flex flex-col gap-5">
       {error ? <Notice tone="error">{error}</Notice> : null}
       <div>
-        <Field
-          label={UNIT_QUESTION[offer.unit] ?? "How much"}
-          type="number"
-          inputMode={whole ? "numeric" : "decimal"}
-          min={whole ? 1 : 0.01}
-          step={whole ? 1 : 0.01}
-          max={limit}
-          hint={`${typedQuantityLabel(offer.available, offer.unit, unitSystem)} left${offer.max_per_reservation !== null && offer.max_per_reservation < offer.available ? ` · at most ${typedQuantityLabel(offer.max_per_reservation, offer.unit, unitSystem)} per reservation` : ""}`}
-          {...form.register("quantity", {
-            valueAsNumber: true,
-            validate: (q) => (Number.isFinite(q) ? (quantityLimitProblem(q, offer, unitSystem) ?? true) : true),
-          })}
-          error={form.formState.errors.quantity?.message}
-          className="max-w-40"
-        />
+        {pack ? (
+          <Field
+            label="How many packs"
+            name="quantity"
+            type="number"
+            inputMode="numeric"
+            min={1}
+            step={1}
+            max={packsLeft}
+            value={packs}
+            onChange={(e) => choosePacks(e.target.value)}
+            hint={`${offer.max_per_reservation !== null && offer.max_per_reservation < offer.available ? `At most ${packCount(packsLeft)} per reservation` : `${packCount(packsLeft)} left`} · each pack is ${formatListingQuantity(pack.size, offer.unit, unitSystem)}`}
+            error={form.formState.errors.quantity?.message}
+            className="max-w-40"
+          />
+        ) : (
+          <Field
+            label={UNIT_QUESTION[offer.unit] ?? "How much"}
+            type="number"
+            inputMode={whole ? "numeric" : "decimal"}
+            min={whole ? 1 : 0.01}
+            step={whole ? 1 : 0.01}
+            max={limit}
+            hint={`${typedQuantityLabel(offer.available, offer.unit, unitSystem)} left${offer.max_per_reservation !== null && offer.max_per_reservation < offer.available ? ` · at most ${typedQuantityLabel(offer.max_per_reservation, offer.unit, unitSystem)} per reservation` : ""}`}
+            {...form.register("quantity", {
+              valueAsNumber: true,
+              validate: (q) => (Number.isFinite(q) ? (quantityLimitProblem(q, offer, unitSystem) ?? true) : true),
+            })}
+            error={form.formState.errors.quantity?.message}
+            className="max-w-40"
+          />
+        )}
+        {pack && Number.isFinite(quantity) && quantity > 0 ? (
+          <p className="text-sm text-humus-700" aria-live="polite">
+            That is {formatListingQuantity(quantity, offer.unit, unitSystem)} of worms in all.
+          </p>
+        ) : null}
         {equivalent ? (
           <p className="text-sm text-humus-700" aria-live="polite">
             That is {equivalent}.
@@ -192,7 +239,7 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
         <ul className="mt-2 list-disc pl-5 text-sm leading-relaxed text-humus-800">
           {offer.price_cents > 0 ? (
             <li>
-              {formatPrice(offer.price_cents, offer.currency, offer.unit, unitSystem)}, paid by card on the next page. Refunded in full if {offer.supplier.name} declines or cancels, or if you cancel {posted ? "before it is packed" : `at least ${CANCEL_NOTICE_HOURS} hours before your pickup`}.
+              {formatListingPrice(offer, unitSystem)}, paid by card on the next page. Refunded in full if {offer.supplier.name} declines or cancels, or if you cancel {posted ? "before it is packed" : `at least ${CANCEL_NOTICE_HOURS} hours before your pickup`}.
             </li>
           ) : offer.deposit_cents > 0 ? (
             <li>

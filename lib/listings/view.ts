@@ -16,6 +16,7 @@ import type { MaterialCode } from "@/lib/calc/facts";
 import { photoUrl, type PhotoSize, type PhotoVariant } from "@/lib/media/photo-urls";
 import type { ListingUnit, QualityInput } from "@/lib/validation/listings";
 import { datesState, effectiveStatus, quantityLeft } from "./status";
+import { packOf, type Pack } from "./packs";
 
 export interface PublicListingItem {
   id: string;
@@ -26,9 +27,12 @@ export interface PublicListingItem {
   /** m² a sheet, m³ a bag or bale; null for m², m³ and kg. */
   unit_size: number | null;
   unit_mass_kg: number | null;
+  /** Per listing unit; for a pack listing, what its pack works out at. */
   price_cents: number;
   currency: string;
   deposit_cents: number;
+  /** Sold by the pack (live cultures): reservations are whole packs at price_cents a pack; null when priced per unit. */
+  pack: Pack | null;
   distance_km: number | null;
   /** The approximate public point, a stable few hundred metres from the real one. */
   location: { lat: number; lng: number };
@@ -75,7 +79,7 @@ type Row = Pick<
   ListingRow,
   | "id" | "owner_id" | "organisation_id" | "material_code" | "title" | "unit" | "unit_size" | "unit_mass_kg"
   | "quantity_total" | "quantity_held" | "quantity_collected" | "price_cents" | "currency" | "deposit_cents"
-  | "approx_lat" | "approx_lng" | "available_until" | "available_from"
+  | "pack_size" | "pack_price_cents" | "approx_lat" | "approx_lng" | "available_until" | "available_from"
 >;
 
 const photoList = (rows: ListingPhotoRow[] | undefined, size: PhotoSize) => (rows ?? []).map((p) => photoUrl(p, size));
@@ -104,6 +108,7 @@ function item(r: Row, supplier: PublicListingItem["supplier"], photos: PhotoVari
     price_cents: r.price_cents,
     currency: r.currency,
     deposit_cents: r.deposit_cents,
+    pack: packOf(r),
     // Shown to 10 m: finer would only suggest a precision the approximate point does not have.
     distance_km: distanceKm === null ? null : Math.round(distanceKm * 100) / 100,
     location: { lat: r.approx_lat, lng: r.approx_lng },

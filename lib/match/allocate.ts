@@ -9,6 +9,7 @@ import { type Option, type Purchase, purchase } from "./purchase";
 import { planTourOnMatrix, type Matrix } from "./tour";
 import type { CandidateListing, LatLng, Need } from "./types";
 import { needPerListingUnit, WHOLE_UNITS } from "./units";
+import { wholePacks } from "@/lib/listings/packs";
 
 export type { Option };
 
@@ -40,11 +41,16 @@ export function buildOptions(needs: readonly Need[], candidates: readonly Candid
     if (need === undefined) return;
     const y = needPerListingUnit(c, needs[need].unit);
     if (!y) return;
-    const whole = WHOLE_UNITS.has(c.unit);
     const limit = Math.min(c.available, c.max_per_reservation ?? Infinity);
-    const cap = whole ? Math.floor(limit + EPS) : limit;
+    // A listing sold by the pack is bought in whole packs at the pack price.
+    const pack = c.pack ?? null;
+    const whole = pack !== null || WHOLE_UNITS.has(c.unit);
+    const step = pack ? pack.size : 1;
+    const per = pack ? y * pack.size : y;
+    const price = pack ? pack.price_cents : c.price_cents;
+    const cap = pack ? wholePacks(limit, pack) : whole ? Math.floor(limit + EPS) : limit;
     if (!(cap > EPS)) return;
-    options.push({ cand, need, yield: y, whole, cap, price: c.price_cents, ppu: c.price_cents / y, supply: cap * y, distance_km: c.distance_km });
+    options.push({ cand, need, yield: per, whole, step, cap, price, ppu: price / per, supply: cap * per, distance_km: c.distance_km });
   });
   return options;
 }

@@ -4,6 +4,7 @@ import { db, type Db } from "@/db/index";
 import { isPg, nearBox } from "@/db/dialect";
 import { listingsInBox } from "@/db/listing-points";
 import type { MaterialCode } from "@/lib/calc/facts";
+import { packOf, type Pack, type PackColumns } from "@/lib/listings/packs";
 import { UNIT_PRICE_INDEX, UNIT_PRICE_SQL } from "@/migrations/20261201_004_listing_unit_price";
 import { type Box, boundingBox, distanceKm, enclosingCircle } from "./geo";
 import type { CandidateSource, CheapestRows } from "./search";
@@ -28,6 +29,8 @@ const COLUMNS = [
   "quantity_collected",
   "max_per_reservation",
   "price_cents",
+  "pack_size",
+  "pack_price_cents",
   "currency",
   "approx_lat",
   "approx_lng",
@@ -45,6 +48,8 @@ interface Row {
   quantity_collected: number;
   max_per_reservation: number | null;
   price_cents: number;
+  pack_size: number | null;
+  pack_price_cents: number | null;
   currency: string;
   approx_lat: number;
   approx_lng: number;
@@ -101,6 +106,7 @@ function toCandidate(r: Row, origin: LatLng): CandidateListing {
     available: Number(r.quantity_total) - Number(r.quantity_held) - Number(r.quantity_collected),
     max_per_reservation: r.max_per_reservation === null ? null : Number(r.max_per_reservation),
     price_cents: Number(r.price_cents),
+    pack: packOf(r),
     currency: r.currency,
     location,
     distance_km: posted ? 0 : distanceKm(origin, location),
@@ -186,6 +192,8 @@ export interface PricedListing {
   unit_size: number | null;
   unit_mass_kg: number | null;
   price_cents: number;
+  /** Sold by the pack: whole packs at the pack price. */
+  pack: Pack | null;
   deposit_cents: number;
   currency: string;
   auto_accept: boolean;
@@ -199,7 +207,7 @@ export async function pricedListings(ids: readonly string[], q: Db = db()): Prom
   if (!ids.length) return {};
   const rows = await q("listings as l")
     .join("users as u", "u.id", "l.owner_id")
-    .select("l.id", "l.title", "u.display_name as supplier", "l.material_code", "l.unit", "l.unit_size", "l.unit_mass_kg", "l.price_cents", "l.deposit_cents", "l.currency", "l.auto_accept")
+    .select("l.id", "l.title", "u.display_name as supplier", "l.material_code", "l.unit", "l.unit_size", "l.unit_mass_kg", "l.price_cents", "l.pack_size", "l.pack_price_cents", "l.deposit_cents", "l.currency", "l.auto_accept")
     .whereIn("l.id", [...ids])
     .whereNotIn("l.status", ["draft", "hidden"]);
   const num = (x: unknown) => (x === null || x === undefined ? null : Number(x));
@@ -215,6 +223,7 @@ export async function pricedListings(ids: readonly string[], q: Db = db()): Prom
         unit_size: num(r.unit_size),
         unit_mass_kg: num(r.unit_mass_kg),
         price_cents: Number(r.price_cents),
+        pack: packOf(r as PackColumns),
         deposit_cents: Number(r.deposit_cents),
         currency: String(r.currency),
         auto_accept: Boolean(r.auto_accept),

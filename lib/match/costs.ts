@@ -2,7 +2,8 @@
 // deposit holds on the card until pickup, and what is paid for. Pure, so the planner, the
 // saved bed and the match page all add it up the same way.
 import type { MaterialCode } from "@/lib/calc/facts";
-import { depositFor, priceFor } from "@/lib/payments/money";
+import { depositFor, listingPrice } from "@/lib/payments/money";
+import type { Pack } from "@/lib/listings/packs";
 import type { ListingUnit, Need } from "./types";
 import { needPerListingUnit, type ListingShape } from "./units";
 
@@ -13,6 +14,8 @@ export interface PricedPickup extends ListingShape {
   supplier?: string;
   listing_quantity: number;
   price_cents: number;
+  /** Sold by the pack: whole packs at the pack price. */
+  pack?: Pack | null;
   deposit_cents: number;
   currency: string;
 }
@@ -71,7 +74,7 @@ const UNMET_TOLERANCE = 1e-6;
  */
 export function bedCosts(pickups: readonly PricedPickup[], needs: readonly Need[] = [], unmet?: readonly Need[]): BedCosts {
   const lines: CostLine[] = pickups.map((p) => {
-    const cost_cents = priceFor(p.price_cents, p.listing_quantity);
+    const cost_cents = listingPrice(p, p.listing_quantity);
     const deposit_cents = depositFor(p.price_cents, p.deposit_cents);
     return {
       listing_id: p.listing_id,

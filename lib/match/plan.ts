@@ -71,19 +71,24 @@ export function buildPlan(
     const c = candidates[option.cand];
     const content = unitContent(c)!;
     const need = needs[option.need];
+    // In the listing's own unit: a pack listing's option counts packs of `step` kg.
+    const listingUnits = units * option.step;
+    const packed = option.step !== 1 || Boolean(c.pack);
     return {
       listing_id: c.id,
       material: c.material,
       quantity: roundTo(units * option.yield, 3),
       unit: need.unit,
-      listing_quantity: roundTo(units, 2),
+      listing_quantity: roundTo(listingUnits, packed ? 3 : 2),
       listing_unit: c.unit,
+      packs: c.pack ? units : null,
       distance_km: roundTo(c.distance_km, 3),
-      cost_cents: Math.round(units * c.price_cents),
+      cost_cents: Math.round(units * option.price),
       currency: c.currency,
-      load_l: roundTo(units * content.volume_l, 1),
-      load_kg: roundTo(units * content.kg, 1),
-      item_kg: option.whole ? roundTo(content.kg, 1) : null,
+      load_l: roundTo(listingUnits * content.volume_l, 1),
+      load_kg: roundTo(listingUnits * content.kg, 1),
+      // A pack is light; only sheets, bags and bales are single items worth weighing.
+      item_kg: option.whole && !c.pack ? roundTo(content.kg, 1) : null,
       fulfilment: c.posted ? ("post" as const) : ("pickup" as const),
     };
   });
@@ -99,7 +104,7 @@ export function buildPlan(
     routed.map(({ option, units }, i) => {
       const c = candidates[option.cand];
       const content = unitContent(c)!;
-      return { listing_id: c.id, location: stops[i].location, units, whole: option.whole, unit_l: content.volume_l, unit_kg: content.kg };
+      return { listing_id: c.id, location: stops[i].location, units: units * option.step, whole: option.whole && !c.pack, unit_l: content.volume_l, unit_kg: content.kg };
     }),
     vehicle,
   );

@@ -9,12 +9,17 @@ export interface Option {
   cand: number;
   /** Index of the need it serves. */
   need: number;
-  /** Need units one listing unit covers. */
+  /** Need units one unit of this option covers. */
   yield: number;
   whole: boolean;
-  /** Listing units it may give: what is left, capped by the per-reservation maximum. */
+  /**
+   * Listing units in one unit of this option: 1, or a pack's size for a listing sold by the
+   * pack, whose option counts whole packs.
+   */
+  step: number;
+  /** Units it may give: what is left, capped by the per-reservation maximum. */
   cap: number;
-  /** Cents per listing unit. */
+  /** Cents per unit of this option. */
   price: number;
   /** Cents per need unit. */
   ppu: number;

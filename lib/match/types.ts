@@ -1,4 +1,5 @@
 import type { MaterialCode } from "@/lib/calc/facts";
+import type { Pack } from "@/lib/listings/packs";
 
 export interface LatLng {
   lat: number;
@@ -30,6 +31,8 @@ export interface CandidateListing {
   max_per_reservation: number | null;
   /** Per listing unit. */
   price_cents: number;
+  /** Sold by the pack (a live culture): it gives whole packs of `size` listing units at `price_cents` each. */
+  pack?: Pack | null;
   currency: string;
   /** The approximate public point, never the exact one. */
   location: LatLng;
@@ -51,8 +54,10 @@ export interface Allocation {
   /** What to reserve, in the listing's unit. */
   listing_quantity: number;
   listing_unit: ListingUnit;
+  /** For a listing sold by the pack: how many whole packs listing_quantity is; null otherwise. */
+  packs: number | null;
   distance_km: number;
-  /** Price of this pickup: price_cents × listing_quantity. */
+  /** Price of this pickup: price_cents × listing_quantity, or packs × the pack price. */
   cost_cents: number;
   currency: string;
   load_l: number;

@@ -2,6 +2,7 @@
 // the need (from an alert), or when it was made for the need's bed, for the same material,
 // after the need was opened (the bed's own plan, reserved later). Quantities are turned into
 // the need's unit with the same factors matching uses (lib/match/units.ts).
+import { packQuantity, packsCovering, wholePacks } from "@/lib/listings/packs";
 import type { MaterialCode } from "@/lib/calc/facts";
 import { needPerListingUnit } from "@/lib/match/units";
 import type { CandidateListing, ListingUnit, NeedUnit } from "@/lib/match/types";
@@ -58,19 +59,24 @@ export function coverage(need: CoveredNeed, reservations: readonly CountedReserv
 export const isMet = (need: { quantity: number }, c: Coverage) => c.settled >= need.quantity * MET_SHARE;
 
 /** A listing as the amount to reserve from it is worked out: its unit, what is left (whole sheets, bags and bales), its cap. */
-export type ReservableListing = Pick<CandidateListing, "material" | "unit" | "unit_size" | "unit_mass_kg" | "available" | "max_per_reservation">;
+export type ReservableListing = Pick<CandidateListing, "material" | "unit" | "unit_size" | "unit_mass_kg" | "available" | "max_per_reservation" | "pack">;
 
 const WHOLE = new Set<ListingUnit>(["sheets", "bags", "bales"]);
 
 /**
  * What one click reserves for a need: what it still lacks, in the listing's unit, rounded up
- * to whole sheets, bags or bales (or to 0.01 of a measured unit), and no more than the
+ * to whole sheets, bags, bales or packs (or to 0.01 of a measured unit), and no more than the
  * listing has left or lets one person take. 0 when nothing is lacking or nothing can be had.
  */
 export function amountToReserve(left: number, unit: NeedUnit, l: ReservableListing): number {
   const per = needPerListingUnit(l, unit);
   if (per === null || left <= 0) return 0;
   const raw = left / per;
+  // Sold by the pack: enough whole packs, as many as are left and the cap allows.
+  if (l.pack) {
+    const cap = wholePacks(Math.min(l.available, l.max_per_reservation ?? Infinity), l.pack);
+    return packQuantity(Math.min(packsCovering(raw, l.pack), cap), l.pack);
+  }
   const whole = WHOLE.has(l.unit);
   const wanted = whole ? Math.ceil(raw - 1e-9) : Math.ceil(raw * 100 - 1e-9) / 100;
   const cap = Math.min(whole ? Math.floor(l.available + 1e-9) : l.available, l.max_per_reservation ?? Infinity);

@@ -1,5 +1,6 @@
 // Money is integer cents plus a currency everywhere; how it reads is lib/listings/format.ts.
 export { formatMoney } from "@/lib/listings/format";
+import { packsCovering, type Pack } from "@/lib/listings/packs";
 
 // Stripe's smallest card charge per currency (docs.stripe.com/currencies, "Minimum and
 // maximum charge amounts"; from memory). Checked before holding, so a too-small total is a
@@ -14,4 +15,14 @@ export function depositFor(unitPriceCents: number, depositCents: number): number
 /** The price of a reservation: a per-unit price times a quantity that may be fractional (m³, kg). */
 export function priceFor(unitPriceCents: number, quantity: number): number {
   return Math.round(unitPriceCents * quantity);
+}
+
+/**
+ * What `quantity` of a listing costs: whole packs at the pack price for a listing sold by the
+ * pack (part of a pack costs the whole pack; a reservation is refused unless it is whole
+ * packs), else its price per unit times the quantity. One rule for the reserve form, the
+ * server's charge and a plan's estimate.
+ */
+export function listingPrice(l: { price_cents: number; pack?: Pack | null }, quantity: number): number {
+  return l.pack ? packsCovering(quantity, l.pack) * l.pack.price_cents : priceFor(l.price_cents, quantity);
 }

@@ -2,9 +2,19 @@
 import { formatListingQuantity, formatMoney } from "@/lib/listings/format";
 import type { ListingUnit } from "@/lib/validation/listings";
 import type { UnitSystem } from "@/lib/calc/units";
+import { packQuantity, wholePacks, type Pack } from "@/lib/listings/packs";
 
 /** Units counted in whole pieces: nobody collects half a bale. */
 export const WHOLE_UNITS = new Set(["sheets", "bags", "bales"]);
+
+/**
+ * What of `available` can be reserved: whole sheets, bags and bales, whole packs of a listing
+ * sold by the pack (nobody can take 0.7 of a bale, whatever the listing's total says).
+ */
+export function reservableQuantity(available: number, unit: string, pack: Pack | null): number {
+  if (pack) return packQuantity(wholePacks(available, pack), pack);
+  return WHOLE_UNITS.has(unit) ? Math.floor(available + 1e-9) : available;
+}
 
 /** "3 bales", "0.5 kg" (or "1.1 lb" for an imperial reader); e-mails read in the listing's own unit. */
 export function quantityLabel(quantity: number, unit: string, system: UnitSystem = "metric"): string {

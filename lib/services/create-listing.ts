@@ -12,6 +12,7 @@ import { COUNTED_UNITS, defaultUnitSize, type CreateListingInput } from "@/lib/v
 import { listingDates } from "@/lib/listings/dates";
 import { alertIfDue } from "@/lib/services/needs/alert-needs";
 import { DUE_NOW } from "@/migrations/20261208_020_open_needs";
+import { packOf, unitPriceOfPack } from "@/lib/listings/packs";
 
 /** Posts a listing with its pickup windows and photos in one transaction: all of it or none. */
 export async function createListing(user: SessionUser, input: CreateListingInput, now: Date = new Date()): Promise<{ id: string }> {
@@ -25,6 +26,8 @@ export async function createListing(user: SessionUser, input: CreateListingInput
   const id = newId();
   const approx = approximatePoint({ owner: placeOwner({ organisation_id: user.organisation?.id, owner_id: user.id }), ...input.location });
   const counted = COUNTED_UNITS.includes(input.unit);
+  // A pack listing's price per unit is what its pack works out at, whatever the client sent.
+  const pack = packOf(input);
   await db().transaction(async (trx) => {
     await insertListing(
       {
@@ -41,10 +44,12 @@ export async function createListing(user: SessionUser, input: CreateListingInput
         quantity_total: input.quantity,
         quantity_held: 0,
         quantity_collected: 0,
-        price_cents: input.price_cents,
+        price_cents: pack ? unitPriceOfPack(pack) : input.price_cents,
         currency: input.currency,
         deposit_cents: input.deposit_cents,
         max_per_reservation: input.max_per_reservation ?? null,
+        pack_size: pack?.size ?? null,
+        pack_price_cents: pack?.price_cents ?? null,
         auto_accept: input.auto_accept,
         lat: input.location.lat,
         lng: input.location.lng,

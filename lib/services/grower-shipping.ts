@@ -9,6 +9,7 @@ import { recordAudit } from "@/db/audit";
 import { notFound } from "@/lib/api/errors";
 import { estimatedWorms } from "@/lib/reservations/culture-orders";
 import { PAUSE_REASON_LABELS, WEEKDAY_NAMES, type CultureInput, type ShippingInput } from "@/lib/validation/grower";
+import { packOf, type Pack } from "@/lib/listings/packs";
 
 /** Early in the week, so a parcel of live worms does not sit in a depot over the weekend (common practice, no source). */
 export const DEFAULT_SHIP_WEEKDAYS = [1, 2];
@@ -85,6 +86,8 @@ export interface CultureStock {
   ships: boolean;
   pickup: boolean;
   price_cents: number;
+  /** Sold by the pack: the pack's weight (kg) and price. */
+  pack: Pack | null;
   currency: string;
 }
 
@@ -105,6 +108,7 @@ export async function cultureStock(userId: string): Promise<CultureStock[]> {
       ships: quality.ships !== false,
       pickup: quality.pickup !== false,
       price_cents: l.price_cents,
+      pack: packOf(l),
       currency: l.currency,
     };
   });

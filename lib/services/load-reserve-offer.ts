@@ -5,7 +5,8 @@ import { collectionsFor, ratingsFor } from "@/db/reviews";
 import { nextOccurrence, windowLabel } from "@/lib/reservations/pickup-times";
 import { holdMinutes, holdWaitFor } from "@/lib/reservations/policy";
 import { answerByFor, pickupChoices } from "@/lib/reservations/pickup-choices";
-import { WHOLE_UNITS } from "@/lib/reservations/labels";
+import { reservableQuantity } from "@/lib/reservations/labels";
+import { packOf } from "@/lib/listings/packs";
 import { datesState, effectiveStatus } from "@/lib/listings/status";
 import { cultureOffer } from "./culture-offer";
 import { depositFor } from "@/lib/payments/money";
@@ -23,8 +24,8 @@ function qualityOf(text: string): Record<string, unknown> {
 export async function loadReserveOffer(listingId: string, now = new Date()) {
   const [l] = await listingsForReservation([listingId]);
   if (!l || l.status === "draft" || l.status === "hidden") return null;
-  // Nobody can take 0.7 of a bale, whatever the listing's total says.
-  const available = WHOLE_UNITS.has(l.unit) ? Math.floor(availableOf(l) + 1e-9) : availableOf(l);
+  const pack = packOf(l);
+  const available = reservableQuantity(availableOf(l), l.unit, pack);
   const [windows, owner, ratings, culture, collections] = await Promise.all([
     pickupWindowsOf([l.id]),
     db()("users").first("display_name", "verified_at").where({ id: l.owner_id }),
@@ -49,6 +50,8 @@ export async function loadReserveOffer(listingId: string, now = new Date()) {
     available,
     max_per_reservation: l.max_per_reservation,
     price_cents: l.price_cents,
+    /** Sold by the pack: reserve whole packs of `pack.size` at `pack.price_cents` each. */
+    pack,
     // Deposits apply to free listings only (lib/reservations/policy.ts).
     deposit_cents: deposit,
     currency: l.currency,

@@ -9,14 +9,15 @@ import type { ReservationRow } from "@/db/types";
 import { ApiError, type FieldErrors } from "@/lib/api/errors";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { openCheckouts } from "@/lib/payments/checkout";
-import { MIN_CARD_CHARGE_CENTS, depositFor, formatMoney, priceFor } from "@/lib/payments/money";
-import { WHOLE_UNITS, quantityLabel, quantityLimitProblem } from "@/lib/reservations/labels";
+import { MIN_CARD_CHARGE_CENTS, depositFor, formatMoney, listingPrice } from "@/lib/payments/money";
+import { WHOLE_UNITS, quantityLabel, quantityLimitProblem, reservableQuantity } from "@/lib/reservations/labels";
 import { earliestPickupStart, holdFor, holdWaitFor } from "@/lib/reservations/policy";
 import { datesState } from "@/lib/listings/status";
 import { formatDay } from "@/lib/listings/format";
 import { nextOccurrence } from "@/lib/reservations/pickup-times";
 import { cultureOptions, defaultFulfilment, type Fulfilment } from "@/lib/reservations/culture-orders";
 import { findShipping } from "@/db/grower-shipping";
+import { packOf, wholePackProblem } from "@/lib/listings/packs";
 import { confirmReservation, pickupTimes } from "./reservation-steps";
 import { shippingView } from "./grower-shipping";
 
@@ -59,8 +60,8 @@ type Checked = {
   fulfilment: Fulfilment | null;
 };
 
-/** What is left to reserve: whole pieces of sheets, bags and bales. */
-const leftOf = (l: ListingForReservation) => (WHOLE_UNITS.has(l.unit) ? Math.floor(availableOf(l) + 1e-9) : availableOf(l));
+/** What is left to reserve: whole pieces of sheets, bags and bales, whole packs of a pack listing. */
+const leftOf = (l: ListingForReservation) => reservableQuantity(availableOf(l), l.unit, packOf(l));
 
 function qualityOf(l: ListingForReservation): Record<string, unknown> {
   try {
@@ -147,15 +148,20 @@ async function check(input: ReserveInput, q: Knex, now: Date): Promise<Checked[]
     if (dates === "not_yet") throw new ApiError("invalid_state", `“${listing.title}” can be reserved from ${formatDay(listing.available_from)}.`);
     if (seen.has(listing.id)) fields[`${f}listing_id`] = "This listing is in the list twice; reserve it once with the total.";
     seen.add(listing.id);
+    const pack = packOf(listing);
+    const packProblem = pack ? wholePackProblem(item.quantity, pack, listing.unit) : null;
     if (WHOLE_UNITS.has(listing.unit) && !Number.isInteger(item.quantity)) {
       fields[`${f}quantity`] = `Reserve whole ${listing.unit}.`;
-    } else if (Math.abs(item.quantity * 100 - Math.round(item.quantity * 100)) > 1e-6) {
+    } else if (packProblem) {
+      fields[`${f}quantity`] = packProblem;
+    } else if (!pack && Math.abs(item.quantity * 100 - Math.round(item.quantity * 100)) > 1e-6) {
       fields[`${f}quantity`] = "Use at most two decimals.";
     } else if (listing.max_per_reservation !== null && item.quantity > listing.max_per_reservation + 1e-9 && listing.max_per_reservation < leftOf(listing)) {
       // Only when the cap is the tighter limit: past what is left, the hold below answers 409.
       fields[`${f}quantity`] = quantityLimitProblem(item.quantity, { available: leftOf(listing), max_per_reservation: listing.max_per_reservation, unit: listing.unit })!;
     }
-    const amount = priceFor(listing.price_cents, item.quantity);
+    // A pack listing costs whole packs at the pack price, not its rounded price per kg.
+    const amount = listingPrice({ price_cents: listing.price_cents, pack }, item.quantity);
     const deposit = depositFor(listing.price_cents, listing.deposit_cents);
     const charge = amount || deposit;
     const min = MIN_CARD_CHARGE_CENTS[listing.currency];

@@ -8,6 +8,7 @@ import { ApiError, fromZod, notFound } from "@/lib/api/errors";
 import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { listingDates } from "@/lib/listings/dates";
 import { alertIfDue } from "@/lib/services/needs/alert-needs";
+import { packOf, unitPriceOfPack } from "@/lib/listings/packs";
 import { checkListingRules, COUNTED_UNITS, type LISTING_CURRENCIES, defaultUnitSize, listingFieldsSchema, type UpdateListingInput } from "@/lib/validation/listings";
 
 // The same rules as a new listing, checked on the listing as it would be after the change.
@@ -38,6 +39,8 @@ export async function updateListing(userId: string, id: string, patch: UpdateLis
       currency: (patch.currency ?? row.currency) as (typeof LISTING_CURRENCIES)[number],
       deposit_cents: patch.deposit_cents ?? row.deposit_cents,
       max_per_reservation: patch.max_per_reservation !== undefined ? patch.max_per_reservation : row.max_per_reservation,
+      pack_size: patch.pack_size !== undefined ? patch.pack_size : row.pack_size,
+      pack_price_cents: patch.pack_price_cents !== undefined ? patch.pack_price_cents : row.pack_price_cents,
       auto_accept: patch.auto_accept ?? Boolean(row.auto_accept),
       location: patch.location ?? { lat: row.lat, lng: row.lng },
       address: patch.address ?? row.address,
@@ -58,7 +61,14 @@ export async function updateListing(userId: string, id: string, patch: UpdateLis
       changes.unit_size = counted ? (l.unit_size ?? defaultUnitSize(l.unit, l.material)) : null;
       changes.unit_mass_kg = l.unit === "bales" ? (l.unit_mass_kg ?? null) : null;
     }
-    if (patch.price_cents !== undefined) changes.price_cents = l.price_cents;
+    const pack = packOf(l);
+    if (patch.pack_size !== undefined || patch.pack_price_cents !== undefined) {
+      changes.pack_size = pack?.size ?? null;
+      changes.pack_price_cents = pack?.price_cents ?? null;
+    }
+    // A pack listing's price per unit is always what its pack works out at.
+    if (pack) changes.price_cents = unitPriceOfPack(pack);
+    else if (patch.price_cents !== undefined) changes.price_cents = l.price_cents;
     if (patch.currency !== undefined) changes.currency = l.currency;
     if (patch.deposit_cents !== undefined) changes.deposit_cents = l.deposit_cents;
     if (patch.max_per_reservation !== undefined) changes.max_per_reservation = l.max_per_reservation ?? null;

@@ -40,6 +40,8 @@ export function defaultUnitSize(unit: ListingUnit, material?: MaterialCode): num
 // enough that a typo (an extra three zeros) is caught.
 export const MAX_QUANTITY = 100_000;
 export const MAX_PRICE_CENTS = 100_000_00;
+/** The heaviest pack a culture is sold in, kg (a generous bound on what a grower posts). */
+export const MAX_PACK_KG = 25;
 export const MAX_DEPOSIT_CENTS = 100_00;
 export const MAX_PHOTOS = 6;
 export const MAX_PICKUP_WINDOWS = 14;
@@ -125,6 +127,9 @@ export const listingFieldsSchema = z.object({
   currency: z.enum(LISTING_CURRENCIES, { error: "Choose a currency." }).default("eur"),
   deposit_cents: money("deposit", MAX_DEPOSIT_CENTS).default(0),
   max_per_reservation: z.number().positive("The most per person must be more than 0.").nullable().optional(),
+  /** Live cultures sold by the pack: its size in the listing's unit (kg) and its price; both or neither (lib/listings/packs.ts). */
+  pack_size: z.number({ error: "Give the pack's weight." }).positive("A pack must weigh more than 0.").max(MAX_PACK_KG, `A pack can weigh at most ${MAX_PACK_KG} kg.`).nullable().optional(),
+  pack_price_cents: money("pack price", MAX_PRICE_CENTS).nullable().optional(),
   auto_accept: z.boolean().default(false),
   location: z.object(
     {
@@ -157,6 +162,18 @@ export function checkListingRules(l: Fields, ctx: z.RefinementCtx): void {
   if (l.unit !== "bales" && l.unit_mass_kg != null) issue("unit_mass_kg", "Only a bale has a weight of its own.");
   // A cap above the quantity is allowed: it simply never binds (and stays right if the supplier adds more).
   if (l.max_per_reservation != null && counted && !isWhole(l.max_per_reservation)) issue("max_per_reservation", `Give a whole number of ${l.unit}.`);
+  const packed = l.pack_size != null || l.pack_price_cents != null;
+  if (packed) {
+    if (l.material !== "worms") issue("pack_size", "Only live cultures are sold by the pack; price this per unit.");
+    else if (l.pack_size == null) issue("pack_size", "Give the pack's weight, or price the culture per kg.");
+    else if (l.pack_price_cents == null) issue("pack_price_cents", "Give the price of one pack, or price the culture per kg.");
+    else {
+      if (l.pack_price_cents === 0) issue("pack_price_cents", "A free culture has no pack price: choose free instead.");
+      if (l.pack_size > l.quantity + 1e-9) issue("pack_size", "The listing must hold at least one whole pack.");
+      if (l.max_per_reservation != null && !isWhole(l.max_per_reservation / l.pack_size)) issue("max_per_reservation", "Give the most per person as whole packs.");
+      if (!isWhole(l.pack_size * 1000)) issue("pack_size", "Give the pack's weight to the gram at most.");
+    }
+  }
   if (l.available_from && l.available_until && startOfInstant(l.available_until) <= startOfInstant(l.available_from)) {
     issue("available_until", "The end must come after the start.");
   }
@@ -297,6 +314,10 @@ export const browseResponseSchema = z.object({
       price_cents: z.number().int(),
       currency: z.string(),
       deposit_cents: z.number().int(),
+      pack: z
+        .object({ size: z.number().describe("in the listing's unit (kg)"), price_cents: z.number().int() })
+        .nullable()
+        .describe("sold by the pack (live cultures): reservations are whole packs at price_cents a pack; price_cents above is what a pack works out at per unit"),
       distance_km: z.number().nullable(),
       location: z.object({ lat: z.number(), lng: z.number() }).describe("approximate: a stable offset of a few hundred metres"),
       supplier: z.object({

@@ -5,7 +5,6 @@ import { cultureStock } from "@/lib/services/grower-shipping";
 import { growerOrders } from "@/lib/services/grower-orders";
 import { dayLabel } from "@/lib/reservations/culture-orders";
 import { OrderCard } from "@/components/grower/order-card";
-import { formatMoney } from "@/lib/payments/money";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";
 import { ShippingForm } from "@/components/grower/shipping-form";
@@ -13,6 +12,8 @@ import { ShippingNotice } from "@/components/grower/shipping-notice";
 import { CultureForm } from "@/components/grower/culture-form";
 import { Panel } from "@/components/ui/panel";
 import { viewerUnits } from "@/lib/units/viewer";
+import { formatListingPrice, packCount, wholePacks } from "@/lib/listings/packs";
+import { formatListingQuantity } from "@/lib/listings/format";
 
 export const metadata: Metadata = { title: "Worm cultures" };
 export const dynamic = "force-dynamic";
@@ -75,11 +76,13 @@ export default async function GrowerPage() {
                 <div>
                   <h3 className="font-semibold">{s.title}</h3>
                   <p className="text-sm text-humus-700">
-                    {s.status} · {formatMoney(s.price_cents, s.currency)} a kg
+                    {s.status} · {formatListingPrice({ ...s, unit: "kg" }, system)}
                   </p>
-                  <p className="mt-2 text-2xl font-bold">{s.kg_left.toLocaleString("en-GB")} kg left</p>
+                  <p className="mt-2 text-2xl font-bold">
+                    {formatListingQuantity(s.kg_left, "kg", system)} left{s.pack ? ` (${packCount(wholePacks(s.kg_left, s.pack))})` : ""}
+                  </p>
                   <p className="text-sm text-humus-700">
-                    About {s.estimated_count.toLocaleString("en-GB")} worms (roughly 1,000 a pound — common practice, not a count){s.kg_held ? ` · ${s.kg_held} kg on hold` : ""}
+                    About {s.estimated_count.toLocaleString("en-GB")} worms (roughly 1,000 a pound — common practice, not a count){s.kg_held ? ` · ${formatListingQuantity(s.kg_held, "kg", system)} on hold` : ""}
                   </p>
                   {!s.species ? <p className="mt-2 font-medium text-ember-800">No species named yet: buyers need it. Add it here.</p> : null}
                 </div>

@@ -1,4 +1,5 @@
 import "server-only";
+import { packOf, type Pack } from "@/lib/listings/packs";
 import { dismissAlert, markAlertsSeen, unseenAlerts } from "@/db/need-alerts";
 import { findOwnNeed } from "@/db/needs";
 import { notFound } from "@/lib/api/errors";
@@ -8,7 +9,6 @@ import { datesState, effectiveStatus, quantityLeft } from "@/lib/listings/status
 import type { ListingUnit } from "@/lib/match/types";
 import { amountToReserve } from "@/lib/needs/coverage";
 import type { NeedView } from "@/lib/needs/view";
-import { WHOLE_UNITS } from "@/lib/reservations/labels";
 import { loadReserveOffer, type ReserveOffer } from "@/lib/services/load-reserve-offer";
 import { resolveContext, type NeedsContext } from "./context";
 import { needViews } from "./list-needs";
@@ -29,6 +29,8 @@ export interface AlertView {
     quantity_available: number;
     unit: ListingUnit;
     price_cents: number;
+    /** Sold by the pack: whole packs at the pack price (lib/listings/packs.ts). */
+    pack: Pack | null;
     deposit_cents: number;
     currency: string;
     status: string;
@@ -55,6 +57,8 @@ interface AlertJoin {
   quantity_held: number;
   quantity_collected: number;
   price_cents: number;
+  pack_size: number | null;
+  pack_price_cents: number | null;
   deposit_cents: number;
   currency: string;
   status: string;
@@ -78,6 +82,7 @@ function toView(r: AlertJoin, now: Date): AlertView {
       quantity_available: quantityLeft(r),
       unit: r.unit,
       price_cents: Number(r.price_cents),
+      pack: packOf(r),
       deposit_cents: Number(r.price_cents) > 0 ? 0 : Number(r.deposit_cents),
       currency: r.currency,
       status,
@@ -113,6 +118,8 @@ function alertQuery(q: ReturnType<typeof resolveContext>["q"], userId: string) {
       "l.quantity_held",
       "l.quantity_collected",
       "l.price_cents",
+      "l.pack_size",
+      "l.pack_price_cents",
       "l.deposit_cents",
       "l.currency",
       "l.status",
@@ -181,8 +188,10 @@ export async function loadAlertPage(userId: string, id: string, ctx: NeedsContex
           unit: offer.unit,
           unit_size: offer.unit_size,
           unit_mass_kg: offer.unit_mass_kg,
-          available: WHOLE_UNITS.has(offer.unit) ? Math.floor(offer.available + 1e-9) : offer.available,
+          // Already whole sheets, bags, bales or packs (lib/reservations/labels.ts).
+          available: offer.available,
           max_per_reservation: offer.max_per_reservation,
+          pack: offer.pack,
         })
       : 0;
   await markAlertsSeen(userId, [id], now.toISOString(), q);

@@ -17,6 +17,8 @@ describe("the demo's listings", () => {
         price_cents: l.price_cents,
         deposit_cents: l.deposit_cents,
         max_per_reservation: l.max_per_reservation,
+        pack_size: l.pack?.size ?? null,
+        pack_price_cents: l.pack?.price_cents ?? null,
         location: { lat: l.lat, lng: l.lng },
         address: l.address,
         quality: l.quality,
@@ -24,5 +26,11 @@ describe("the demo's listings", () => {
       });
       expect(r.success ? {} : fieldErrors(r.error), `${l.key} ${l.title}`).toEqual({});
     }
+  });
+
+  it("sell some starter cultures by the pack and some by the kg, so both ways can be tried", () => {
+    const worms = demoListings().filter((l) => l.material === "worms");
+    expect(worms.some((l) => l.pack)).toBe(true);
+    expect(worms.some((l) => !l.pack)).toBe(true);
   });
 });

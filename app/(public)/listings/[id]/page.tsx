@@ -7,7 +7,7 @@ import { currentUser, hasRole } from "@/lib/auth/current-user";
 import { ApiError } from "@/lib/api/errors";
 import { getListing } from "@/lib/services/get-listing";
 import type { ManagedListingDetail } from "@/lib/listings/view";
-import { describeUnitSize, formatDay, formatListingQuantity, formatMoney, formatPrice, formatWindow, materialName } from "@/lib/listings/format";
+import { describeUnitSize, formatDay, formatListingQuantity, formatMoney, formatWindow, materialName } from "@/lib/listings/format";
 import { APPROX_MAX_M } from "@/lib/geo/approximate";
 import { buttonClass } from "@/components/ui/button-class";
 import { Notice } from "@/components/ui/notice";
@@ -24,6 +24,7 @@ import { viewerUnits } from "@/lib/units/viewer";
 import { formatQuantity } from "@/lib/format/quantity";
 import { listingCautions, type ListingCautionInput } from "@/lib/calc/cautions";
 import type { MaterialCode } from "@/lib/calc/facts";
+import { formatListingPrice } from "@/lib/listings/packs";
 
 // One read per request for both the title and the page.
 const load = cache(async (id: string) => {
@@ -118,7 +119,7 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
               {formatListingQuantity(listing.quantity_available, listing.unit, system)}
               {size ? <span className="block text-sm font-normal text-humus-600">{size}</span> : null}
             </Fact>
-            <Fact label="Price">{formatPrice(listing.price_cents, listing.currency, listing.unit, system)}</Fact>
+            <Fact label="Price">{formatListingPrice(listing, system)}</Fact>
             <Fact label="No-show deposit">{listing.deposit_cents > 0 ? `${formatMoney(listing.deposit_cents, listing.currency)}, refunded on pickup` : "None"}</Fact>
             {listing.max_per_reservation ? <Fact label="Most per person">{formatListingQuantity(listing.max_per_reservation, listing.unit, system)}</Fact> : null}
             {listing.available_from ? <Fact label="Available from">{formatDay(listing.available_from)}</Fact> : null}

@@ -14,6 +14,7 @@ import { buttonClass } from "@/components/ui/button-class";
 import { ConfirmEmailNotice } from "@/components/profile/account-security";
 import { ReserveFromAlert } from "@/components/needs/reserve-from-alert";
 import { ListingCautions } from "@/components/listings/listing-cautions";
+import { formatListingPrice } from "@/lib/listings/packs";
 
 export const metadata: Metadata = { title: "Found for your need" };
 export const dynamic = "force-dynamic";
@@ -53,7 +54,7 @@ export default async function AlertPage({ params }: { params: Promise<{ id: stri
         </div>
         <div>
           <dt className="text-sm text-humus-600">Price</dt>
-          <dd className="font-medium">{l.price_cents > 0 ? `${formatCents(l.price_cents, l.currency)} each` : "Free"}</dd>
+          <dd className="font-medium">{formatListingPrice(l, system)}</dd>
         </div>
         <div>
           <dt className="text-sm text-humus-600">Deposit</dt>
