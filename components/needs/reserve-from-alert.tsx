@@ -3,7 +3,8 @@ import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { isApiError, submitOnce } from "@/lib/api/client";
 import { quantityLabel } from "@/lib/reservations/labels";
-import { formatMoney, priceFor } from "@/lib/payments/money";
+import { formatMoney, listingPrice } from "@/lib/payments/money";
+import { packCount, packsCovering, type Pack } from "@/lib/listings/packs";
 import { formatLocal } from "@/lib/reservations/pickup-times";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
@@ -23,6 +24,8 @@ export function ReserveFromAlert(props: {
   amount: number;
   unit: string;
   priceCents: number;
+  /** Sold by the pack: `amount` is whole packs, charged at the pack price. */
+  pack?: Pack | null;
   depositCents: number;
   currency: string;
   window: { id: string; label: string; next_start: string } | null;
@@ -32,8 +35,8 @@ export function ReserveFromAlert(props: {
   const keys = useSubmitKeys();
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
-  const what = quantityLabel(props.amount, props.unit);
-  const money = props.priceCents > 0 ? ` and pay ${formatMoney(priceFor(props.priceCents, props.amount), props.currency)}` : props.depositCents > 0 ? ` with a ${formatMoney(props.depositCents, props.currency)} deposit` : "";
+  const what = props.pack ? `${packCount(packsCovering(props.amount, props.pack))} (${quantityLabel(props.amount, props.unit)})` : quantityLabel(props.amount, props.unit);
+  const money = props.priceCents > 0 ? ` and pay ${formatMoney(listingPrice({ price_cents: props.priceCents, pack: props.pack }, props.amount), props.currency)}` : props.depositCents > 0 ? ` with a ${formatMoney(props.depositCents, props.currency)} deposit` : "";
 
   async function reserve() {
     setBusy(true);

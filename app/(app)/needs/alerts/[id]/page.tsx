@@ -101,6 +101,7 @@ export default async function AlertPage({ params }: { params: Promise<{ id: stri
             amount={amount}
             unit={offer.unit}
             priceCents={offer.price_cents}
+            pack={offer.pack}
             depositCents={offer.deposit_cents}
             currency={offer.currency}
             window={offer.windows[0] ?? null}
