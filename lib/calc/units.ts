@@ -3,7 +3,7 @@
 import { FEET_PER_MILE, FOOT_M, INCH_M, LITRE_M3, POUND_KG, US_GALLON_M3, YARD_M } from "./facts";
 
 export type UnitSystem = "metric" | "imperial";
-export type DisplayUnit = "m" | "km" | "m2" | "m3" | "cm" | "l" | "kg";
+export type DisplayUnit = "m" | "km" | "km2" | "m2" | "m3" | "cm" | "l" | "kg";
 
 const FT3_M3 = FOOT_M ** 3;
 const YD3_M3 = YARD_M ** 3;
@@ -40,6 +40,9 @@ export function toDisplay(
       return { value: kmToMi(value), symbol: "mi" };
     case "m2":
       return { value: m2ToFt2(value), symbol: "ft²" };
+    case "km2":
+      // A mile squared: the square of the exact mile (NIST HB44 App. C).
+      return { value: value / miToKm(1) ** 2, symbol: "mi²" };
     case "cm":
       return { value: cmToIn(value), symbol: "in" };
     case "m3": {
@@ -57,6 +60,7 @@ export function toDisplay(
 const METRIC_SYMBOL: Record<DisplayUnit, string> = {
   m: "m",
   km: "km",
+  km2: "km²",
   m2: "m²",
   m3: "m³",
   cm: "cm",
@@ -78,6 +82,8 @@ export function inputUnit(unit: DisplayUnit, system: UnitSystem): { symbol: stri
       return { symbol: "mi", fromSI: kmToMi, toSI: (mi) => mi / kmToMi(1) };
     case "m2":
       return { symbol: "ft²", fromSI: m2ToFt2, toSI: ft2ToM2 };
+    case "km2":
+      return { symbol: "mi²", fromSI: (km2) => km2 / miToKm(1) ** 2, toSI: (mi2) => mi2 * miToKm(1) ** 2 };
     case "cm":
       return { symbol: "in", fromSI: cmToIn, toSI: inToCm };
     case "m3":

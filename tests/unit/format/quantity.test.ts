@@ -17,6 +17,14 @@ describe("formatQuantity", () => {
     expect(formatQuantity(3, "km", "imperial")).toBe("1.9 mi"); // 1.864
   });
 
+  it("shows an area of land in km² or, for imperial readers, square miles", () => {
+    expect(formatQuantity(1, "km2", "metric")).toBe("1 km²");
+    expect(formatQuantity(1.23, "km2", "metric")).toBe("1.23 km²");
+    // 1 mi² = 1.609344² km² = 2.589988110336 km² (NIST HB44 App. C): 1 km² = 0.386 mi².
+    expect(formatQuantity(1, "km2", "imperial")).toBe("0.386 mi²");
+    expect(formatQuantity(2.589988110336, "km2", "imperial")).toBe("1 mi²");
+  });
+
   it("pours water to the litre under 10, then 5 L, then 10 L; gallons to the half, whole, then 5", () => {
     expect(formatQuantity(41.83, "l", "metric")).toBe("40 L");
     expect(formatQuantity(43, "l", "metric")).toBe("45 L");

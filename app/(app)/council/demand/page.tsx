@@ -41,7 +41,7 @@ export default async function CouncilDemandPage({ searchParams }: { searchParams
       </p>
       <PageHeading
         title="Where residents need material"
-        lead={`Open needs within ${formatQuantity(d.radius_km, "km", system)} of your last giveaway site, counted by area. An area is at least ${d.cell_min_area_km2} km² and shows only once ${d.min_people} or more different people need the material there, so no household can be picked out.`}
+        lead={`Open needs within ${formatQuantity(d.radius_km, "km", system)} of your last giveaway site, counted by area. An area is at least ${formatQuantity(d.cell_min_area_km2, "km2", system)} and shows only once ${d.min_people} or more different people need the material there, so no household can be picked out.`}
       />
 
       <nav aria-label="Material" className="flex flex-wrap gap-2">
@@ -117,7 +117,7 @@ export default async function CouncilDemandPage({ searchParams }: { searchParams
                     <td className="p-2">
                       {names[i] ? <>Near {names[i]} </> : null}
                       <span className={names[i] ? "text-humus-600" : undefined}>
-                        ({c.centre.lat.toFixed(3)}, {c.centre.lng.toFixed(3)}; {c.area_km2} km²)
+                        ({c.centre.lat.toFixed(3)}, {c.centre.lng.toFixed(3)}; {formatQuantity(c.area_km2, "km2", system)})
                       </span>
                     </td>
                     <td className="p-2">{c.people}</td>
