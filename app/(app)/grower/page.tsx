@@ -68,7 +68,7 @@ export default async function GrowerPage() {
 
       <Panel id="stock" title="Stock left">
         {stock.length === 0 ? (
-          <EmptyState title="No worm listings yet">List a culture by the kilogram under “What I&apos;m giving”; it appears here with its stock.</EmptyState>
+          <EmptyState title="No worm listings yet">List a culture by the kilogram or by the pack under “What I&apos;m giving”; it appears here with its stock.</EmptyState>
         ) : (
           <ul className="flex flex-col gap-4">
             {stock.map((s, i) => (
