@@ -16,6 +16,8 @@ import { Form } from "@/components/ui/form";
 import { Notice } from "@/components/ui/notice";
 import { LocationPicker, type PickerWords } from "@/components/listings/location-picker";
 import { maxRadiusShown, radiusSymbol, toNeedBody, type NeedFormValues } from "./need-form-values";
+import { formatQuantity } from "@/lib/format/quantity";
+import { MIN_CELL_AREA_KM2 } from "@/lib/needs/grid";
 
 export interface BedChoice {
   id: string;
@@ -24,12 +26,12 @@ export interface BedChoice {
   placed: boolean;
 }
 
-const PLACE_WORDS: PickerWords = {
+const placeWords = (system: UnitSystem): PickerWords => ({
   label: "Where you would collect to",
-  hint: "Find your street or postcode, or click your home or the bed on the map. Only you see this point: suppliers and councils only ever see counts for an area of a square kilometre or more.",
+  hint: `Find your street or postcode, or click your home or the bed on the map. Only you see this point: suppliers and councils only ever see counts for an area of ${formatQuantity(MIN_CELL_AREA_KM2, "km2", system)} or more.`,
   map: "Map: click to set where the need is",
   placed: "Your need's place on the map",
-};
+});
 
 /**
  * Open a need: a material, how much in the gardener's units, how far they would go, by
@@ -132,7 +134,7 @@ export function OpenNeedForm({
               ))}
             </SelectField>
           ) : null}
-          {bedId ? null : <LocationPicker value={location} onChange={(p) => setValue("location", p, { shouldValidate: formState.isSubmitted })} error={locationError} words={PLACE_WORDS} className="h-60" />}
+          {bedId ? null : <LocationPicker value={location} onChange={(p) => setValue("location", p, { shouldValidate: formState.isSubmitted })} error={locationError} words={placeWords(system)} className="h-60" />}
         </>
       )}
       <fieldset className="flex flex-col gap-1">

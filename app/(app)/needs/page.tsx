@@ -8,6 +8,8 @@ import { Panel } from "@/components/ui/panel";
 import { AlertCard, NeedCard } from "@/components/needs/need-list";
 import { OpenNeedForm } from "@/components/needs/open-need-form";
 import { needFormValues } from "@/components/needs/need-form-values";
+import { formatQuantity } from "@/lib/format/quantity";
+import { MIN_CELL_AREA_KM2 } from "@/lib/needs/grid";
 
 export const metadata: Metadata = { title: "My needs" };
 export const dynamic = "force-dynamic";
@@ -21,7 +23,7 @@ export default async function NeedsPage() {
     <div className="flex flex-col gap-8">
       <PageHeading
         title="My needs"
-        lead="What your beds still lack, or anything you are after. When someone lists it near enough, you hear at once or in a daily e-mail. Nobody else sees your needs: suppliers and councils only see counts for areas of a square kilometre or more."
+        lead={`What your beds still lack, or anything you are after. When someone lists it near enough, you hear at once or in a daily e-mail. Nobody else sees your needs: suppliers and councils only see counts for areas of ${formatQuantity(MIN_CELL_AREA_KM2, "km2", user.unit_system)} or more.`}
       />
 
       <Panel id="found" title="Found for you">
