@@ -103,15 +103,20 @@ function shownFrom(values: Partial<Record<NumericField, number>>, system: UnitSy
   return { fields, exact };
 }
 
+// A bed someone starts in imperial is a round one in their units (10 × 4 ft, 5 in of leaves),
+// not the metric bed converted (9.84 × 3.94 ft); switching units later converts what is there.
+const feet = (m: number, system: UnitSystem) => (system === "metric" ? m : Number(ftToM(Math.round(mToFt(m))).toPrecision(12)));
+const inches = (cm: number, system: UnitSystem) => (system === "metric" ? cm : Number(inToCm(Math.max(1, Math.round(cmToIn(cm)))).toPrecision(12)));
+
 export function defaultPlanValues(system: UnitSystem, today: string): PlanValues {
   const { fields, exact } = shownFrom(
     {
-      length: 3,
-      width: 1.2,
-      overlap: CARDBOARD_OVERLAP_CM.default,
-      leaves_depth: LAYER_DEPTH_CM.leaves.default,
-      straw_depth: LAYER_DEPTH_CM.straw.default,
-      chips_depth: LAYER_DEPTH_CM.wood_chips.default,
+      length: feet(3, system),
+      width: feet(1.2, system),
+      overlap: inches(CARDBOARD_OVERLAP_CM.default, system),
+      leaves_depth: inches(LAYER_DEPTH_CM.leaves.default, system),
+      straw_depth: inches(LAYER_DEPTH_CM.straw.default, system),
+      chips_depth: inches(LAYER_DEPTH_CM.wood_chips.default, system),
     },
     system,
   );

@@ -106,6 +106,17 @@ describe("editing a saved bed", () => {
   });
 });
 
+describe("a new plan", () => {
+  it("starts an imperial gardener on a round bed in their own units, not the metric one converted", () => {
+    const v = defaultPlanValues("imperial", "2027-03-01");
+    // Not 9.84 × 3.94 ft (3 × 1.2 m); whole inches for the layers and the overlap.
+    expect(v).toMatchObject({ length: "10", width: "4", overlap: "6", leaves_depth: "5", straw_depth: "2", chips_depth: "3" });
+    // Sent as the exact metric values: 10 ft = 3.048 m and 4 ft = 1.2192 m (1 ft = 0.3048 m, NIST HB44 App. C).
+    expect(toRequest(v).bed).toMatchObject({ length_m: 3.048, width_m: 1.2192 });
+    expect(defaultPlanValues("metric", "2027-03-01")).toMatchObject({ length: "3", width: "1.2", leaves_depth: "12.5" });
+  });
+});
+
 describe("switching units", () => {
   it("returns the same defaults after metric → imperial → metric, and imperial → metric → imperial", () => {
     for (const system of ["metric", "imperial"] as const) {
