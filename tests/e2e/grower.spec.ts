@@ -15,12 +15,15 @@ const escape = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
 test("a gardener buys a worm culture by post, the grower packs and ships it, and the care sheet and tracking arrive", async ({ browser, request }) => {
   test.setTimeout(150_000);
   const grower = sql<{ id: string }>("select id from users where email = 'grower@duffbank.test'")[0];
-  const culture = sql<{ id: string; title: string }>(
-    `select id, title from listings where owner_id = ? and material_code = 'worms' and status = 'active'
-     order by quantity_total - quantity_held - quantity_collected desc limit 1`,
+  // One of the grower's cultures sold in 0.5 kg packs at €16.00 (seeds/listings.ts), so the
+  // order below is one whole pack whatever else the demo holds.
+  const culture = sql<{ id: string; title: string; pack_size: number; pack_price_cents: number }>(
+    `select id, title, pack_size, pack_price_cents from listings where owner_id = ? and material_code = 'worms' and status = 'active'
+     and pack_size is not null and pack_price_cents = 1600 order by quantity_total - quantity_held - quantity_collected desc limit 1`,
     grower.id,
   )[0];
   expect(culture).toBeTruthy();
+  expect([Number(culture.pack_size), Number(culture.pack_price_cents)]).toEqual([0.5, 1600]);
 
   const g = await browser.newContext({ storageState: storageState("grower") });
   const dash = await g.newPage();
@@ -35,6 +38,7 @@ test("a gardener buys a worm culture by post, the grower packs and ships it, and
   await expect(facts).toContainText(/[\d,]+ worms left/);
   await expect(facts).toContainText("about 1,000 a pound");
   await expect(facts).toContainText("Eisenia fetida");
+  await expect(page.locator("dt:text-is('Price') + dd")).toHaveText("€16.00 a 0.5 kg pack");
   await expect(facts).toContainText("Collect from the grower or Posted to you");
   await expect(facts.getByTestId("posting-days")).toContainText(/Parcels go out on Monday and Tuesday.*goes out on (Monday|Tuesday) \d+ \w+ at the earliest/);
   const report = page.getByRole("link", { name: "Report this supplier" });
@@ -50,7 +54,8 @@ test("a gardener buys a worm culture by post, the grower packs and ships it, and
 
   // Ordering by post: the address, no pickup window, pay 4242 on the local checkout page.
   await page.goto(`/listings/${culture.id}/reserve`);
-  await page.getByLabel("How many kilograms").fill("0.5");
+  await page.getByLabel("How many packs").fill("1");
+  await expect(page.getByText("That is 0.5 kg of worms in all.")).toBeVisible();
   await page.getByLabel("Post them to me").check();
   await expect(page.getByText("When you will collect")).toHaveCount(0);
   await page.getByRole("button", { name: "Reserve and pay €16.00" }).click();
@@ -116,7 +121,8 @@ test("a gardener buys a worm culture by post, the grower packs and ships it, and
   await expectAccessible(page, "a culture order on the buyer's reservations, by phone");
   await mine.getByRole("button", { name: "It has arrived" }).click();
   await expect(mine).toContainText(/Delivered /);
-  expect(sql("select status, order_stage from reservations where id = ?", id)[0]).toEqual({ status: "collected", order_stage: "delivered" });
+  const done = sql<{ status: string; order_stage: string; quantity: number | string }>("select status, order_stage, quantity from reservations where id = ?", id)[0];
+  expect({ ...done, quantity: Number(done.quantity) }).toEqual({ status: "collected", order_stage: "delivered", quantity: 0.5 });
   await latestMail(request, "grower@duffbank.test", new RegExp(`^Delivered: 0\\.5 kg of ${escape(culture.title)}`));
 
   await g.close();
