@@ -12,8 +12,16 @@ export async function expectNoAxeViolations(page: Page, where = page.url()) {
 /** Figures in a metric unit anywhere in the page's text ("12 km", "0.5 m³", "(kg)", "3 litres"). */
 export const METRIC_FIGURE = /(?<![\w.])\d[\d,.]*\s?(?:km|cm|mm|m|m²|m³|kg|L)(?![\w²³])|\((?:km|cm|mm|m|m²|m³|kg|L)\)|\b(?:kilo)?metres?\b|\blitres?\b|\bkilograms?\b/g;
 
-/** The metric figures a visitor reading in imperial would still meet on this page. */
+/**
+ * A pack's own weight in brackets after its weight in pounds ("a 1.1 lb pack (0.5 kg)"): the
+ * grower weighs and labels packs in kg, so the product names that weight too, never first.
+ */
+const AFTER_POUNDS_OF_A_PACK = /\d lb pack \($/;
+
+/** The metric figures a visitor reading in imperial would still meet on this page (a pack's own weight, after its pounds, aside). */
 export async function metricFiguresOn(page: Page): Promise<string[]> {
   const text = await page.locator("body").innerText();
-  return [...text.matchAll(METRIC_FIGURE)].map((m) => text.slice(Math.max(0, m.index! - 30), m.index! + m[0].length + 10).replace(/\s+/g, " "));
+  return [...text.matchAll(METRIC_FIGURE)]
+    .filter((m) => !(AFTER_POUNDS_OF_A_PACK.test(text.slice(Math.max(0, m.index! - 20), m.index!)) && text[m.index! + m[0].length] === ")"))
+    .map((m) => text.slice(Math.max(0, m.index! - 30), m.index! + m[0].length + 10).replace(/\s+/g, " "));
 }

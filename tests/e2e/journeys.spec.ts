@@ -192,6 +192,10 @@ test.describe("a gardener", () => {
       const parcel = page.locator("main [data-parcel]").first();
       await expect(parcel).toBeVisible({ timeout: 20_000 });
       await expect(parcel).toContainText("not a stop on your route");
+      // Half a kilo is one pack of a culture sold in 0.5 kg packs, or 0.5 kg of one sold by the kg.
+      const picked = (await parcel.locator("a[href^='/listings/']").first().getAttribute("href"))!.split("/").pop();
+      const packed = sql<{ pack_size: number | null }>("select pack_size from listings where id = ?", picked)[0];
+      await expect(parcel).toContainText(packed.pack_size === null ? "Order 0.5 kg of composting worms" : "Order 1 pack, 0.5 kg of composting worms");
       // The parcel is no numbered stop, and each stop links to its listing.
       await expect(page.locator("main [data-stop]")).toHaveCount(1);
       await expect(page.locator("main [data-stop] a[href^='/listings/']")).toHaveCount(1);

@@ -2,6 +2,7 @@ import path from "node:path";
 import { expect, test, type Page, expectAccessible } from "./fixtures";
 import { seedId } from "../../seeds/ids";
 import { storageState } from "./roles";
+import { sql } from "./exchange";
 
 const BED = seedId("bed:back-fence");
 const shots = process.env.E2E_DIR ? path.join(process.env.E2E_DIR, "shots") : "test-results/shots";
@@ -25,6 +26,13 @@ test.describe("a gardener's saved bed", () => {
     await expect(map.locator(".duff-stop-number")).toHaveCount(await stops(page).count());
     await expect(map.locator("path[stroke-dasharray='6 6']")).toHaveCount(1);
     await expect(page.locator("main [data-total='Stops']")).toHaveText(String(await stops(page).count()));
+    // The worms come in whole packs from a culture sold by the pack ("Order 2 packs, 1 kg").
+    const worms = page.locator("main [data-stop], main [data-parcel]").filter({ hasText: /of composting worms/ });
+    await expect(worms).toHaveCount(1);
+    const wormListing = (await worms.locator("a[href^='/listings/']").first().getAttribute("href"))!.split("/").pop();
+    const pack = sql<{ pack_size: number | null }>("select pack_size from listings where id = ?", wormListing)[0];
+    if (pack.pack_size !== null) await expect(worms).toContainText(/(Take|Order) \d+ packs?, [\d.]+ kg of composting worms/);
+    else await expect(worms).toContainText(/(Take|Order) [\d.]+ kg of composting worms/);
     // The worms are priced; the free leaves hold a refundable deposit (seeds/listings.ts).
     await expect(page.locator("main [data-total='To pay suppliers']")).toHaveText(/€\d/);
     await expect(page.getByRole("button", { name: /Reserve all \d+ pickups/ })).toBeEnabled();
