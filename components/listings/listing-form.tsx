@@ -141,7 +141,8 @@ export function ListingForm(props: Props) {
             </label>
           ) : null}
         </fieldset>
-        <div className="grid gap-3 sm:grid-cols-3">
+        {/* Boxes bottom-aligned side by side, whichever field carries a hint above its box. */}
+        <div className="grid gap-3 sm:grid-cols-3 sm:items-end">
           {priced === "per_pack" && material === "worms" ? (
             <>
               <Field label={`Weight of one pack (${symbol})`} inputMode="decimal" {...register("pack_size")} error={errors.pack_size?.message} hint="Buyers reserve whole packs; the quantity above is the total across all packs." />
