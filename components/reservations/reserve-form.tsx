@@ -1,6 +1,6 @@
 "use client";
 import { useState } from "react";
-import { useForm, useWatch } from "react-hook-form";
+import { useForm, useWatch, type Resolver } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import type { z } from "zod";
@@ -9,7 +9,7 @@ import { isApiError, submitOnce } from "@/lib/api/client";
 import { useSubmitKeys } from "@/components/ui/use-submit-keys";
 import { formatMoney, listingPrice } from "@/lib/payments/money";
 import { formatListingQuantity } from "@/lib/listings/format";
-import { formatListingPrice, packCount, packQuantity, wholePacks } from "@/lib/listings/packs";
+import { formatListingPrice, packCount, packQuantity, packsIn, wholePacks } from "@/lib/listings/packs";
 import { quantityLimitProblem, typedQuantityLabel, WHOLE_UNITS } from "@/lib/reservations/labels";
 import { equivalentOf } from "@/lib/reservations/equivalents";
 import { formatLocal } from "@/lib/reservations/pickup-times";
@@ -58,8 +58,24 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
   const pack = offer.pack;
   const packsLeft = pack ? wholePacks(offer.max_per_reservation !== null ? Math.min(offer.max_per_reservation, offer.available) : offer.available, pack) : 0;
   const [packs, setPacks] = useState("1");
+  /** Why the packs asked for (as the quantity they weigh) cannot be reserved, or null. */
+  const packProblem = (quantity: number): string | null => {
+    if (!pack) return null;
+    const n = Number.isFinite(quantity) ? packsIn(quantity, pack) : null;
+    if (n === null) return "Give a whole number of packs, 1 or more.";
+    if (n > packsLeft) return packsLeft > 0 ? `At most ${packCount(packsLeft)} on this listing.` : "Nothing is left.";
+    return null;
+  };
+  // The packs are checked with the rest of the form, so a count that is mended clears its
+  // message as the field is typed in after a submit, as the other quantity fields do.
+  const schemaResolver = zodResolver(reserveOneSchema) as unknown as Resolver<Values>;
+  const resolver: Resolver<Values> = async (values, context, options) => {
+    const result = await schemaResolver(values, context, options);
+    const problem = packProblem(Number(values.quantity));
+    return problem ? { values: {}, errors: { ...result.errors, quantity: { type: "packs", message: problem } } } : result;
+  };
   const form = useForm<Values>({
-    resolver: zodResolver(reserveOneSchema),
+    resolver,
     defaultValues: {
       listing_id: offer.id,
       quantity: pack ? pack.size : 1,
@@ -80,38 +96,31 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
   const choosePacks = (text: string) => {
     setPacks(text);
     const n = Number(text);
-    form.setValue("quantity", pack && text.trim() !== "" && Number.isFinite(n) ? packQuantity(n, pack) : NaN);
-  };
-  const packProblem = (): string | null => {
-    const n = Number(packs);
-    if (!pack) return null;
-    if (packs.trim() === "" || !Number.isInteger(n) || n < 1) return "Give a whole number of packs, 1 or more.";
-    if (n > packsLeft) return packsLeft > 0 ? `At most ${packCount(packsLeft)} on this listing.` : "Nothing is left.";
-    return null;
+    const weight = pack && text.trim() !== "" && Number.isFinite(n) ? packQuantity(n, pack) : NaN;
+    form.setValue("quantity", weight, { shouldValidate: form.formState.isSubmitted });
   };
 
-  const onSubmit = form.handleSubmit(async (values, event) => {
-    setError(null);
-    const problem = packProblem();
-    if (problem) {
-      form.setError("quantity", { message: problem });
-      // The packs field is not one of the form's registered fields: focus it by its name.
-      (event?.target as HTMLFormElement | undefined)?.querySelector<HTMLInputElement>('input[name="quantity"]')?.focus();
-      return;
-    }
-    let answer: Answer;
-    try {
-      // A parcel has no pickup window; a collected culture has no postal address.
-      const body = values.fulfilment === "post" ? { ...values, pickup_window_id: null } : { ...values, ship_to: null };
-      answer = await submitOnce<Answer>(keys, "/api/reservations", { body });
-    } catch (err) {
-      if (isApiError(err) && err.fields) for (const [name, message] of Object.entries(err.fields)) form.setError(name as keyof Values, { message });
-      setError(isApiError(err) ? err.message : "We could not reserve it. Please try again.");
-      return;
-    }
-    if (answer.checkout_url) window.location.assign(answer.checkout_url);
-    else router.push(`/reservations/${answer.reservation.id}?new=1`);
-  });
+  const onSubmit = form.handleSubmit(
+    async (values) => {
+      setError(null);
+      let answer: Answer;
+      try {
+        // A parcel has no pickup window; a collected culture has no postal address.
+        const body = values.fulfilment === "post" ? { ...values, pickup_window_id: null } : { ...values, ship_to: null };
+        answer = await submitOnce<Answer>(keys, "/api/reservations", { body });
+      } catch (err) {
+        if (isApiError(err) && err.fields) for (const [name, message] of Object.entries(err.fields)) form.setError(name as keyof Values, { message });
+        setError(isApiError(err) ? err.message : "We could not reserve it. Please try again.");
+        return;
+      }
+      if (answer.checkout_url) window.location.assign(answer.checkout_url);
+      else router.push(`/reservations/${answer.reservation.id}?new=1`);
+    },
+    // The packs field is not one of the form's registered fields: give it the focus by its name.
+    (errors, event) => {
+      if (pack && errors.quantity) (event?.target as HTMLFormElement | undefined)?.querySelector<HTMLInputElement>('input[name="quantity"]')?.focus();
+    },
+  );
 
   const submitLabel = offer.price_cents > 0 ? `Reserve and pay ${formatMoney(price, offer.currency)}` : offer.deposit_cents > 0 ? `Reserve and place the ${formatMoney(offer.deposit_cents, offer.currency)} deposit` : "Reserve";
   const busy = form.formState.isSubmitting;
@@ -151,7 +160,8 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
             className="max-w-40"
           />
         )}
-        {pack && Number.isFinite(quantity) && quantity > 0 ? (
+        {/* Only for whole packs: part of a pack is refused, so its weight would mislead. */}
+        {pack && Number.isFinite(quantity) && packsIn(quantity, pack) !== null ? (
           <p className="text-sm text-humus-700" aria-live="polite">
             That is {formatListingQuantity(quantity, offer.unit, unitSystem)} of worms in all.
           </p>
