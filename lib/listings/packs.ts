@@ -55,10 +55,16 @@ export function packsCovering(quantity: number, p: Pack): number {
   return Math.max(0, Math.ceil(quantity / p.size - 1e-6));
 }
 
+/**
+ * The pack's own weight in brackets after the reader's figure, "(0.5 kg)", held together by a
+ * no-break space so a narrow column never leaves "(0.5" on one line and "kg)" on the next.
+ */
+const bracketed = (own: string) => `(${own.replace(/ /g, "\u00a0")})`;
+
 /** "a 0.5 kg pack" or, for an imperial reader, "a 1.1 lb pack (0.5 kg)". */
 export function packWords(p: Pack, unit: ListingUnit, system: UnitSystem = "metric"): string {
   const own = formatListingQuantity(p.size, unit);
-  return system === "metric" ? `a ${own} pack` : `a ${formatListingQuantity(p.size, unit, system)} pack (${own})`;
+  return system === "metric" ? `a ${own} pack` : `a ${formatListingQuantity(p.size, unit, system)} pack ${bracketed(own)}`;
 }
 
 /** "€14.00 a 0.5 kg pack". */
@@ -75,7 +81,7 @@ export function packCount(n: number): string {
 export function wholePackProblem(quantity: number, p: Pack, unit: ListingUnit, system: UnitSystem = "metric"): string | null {
   if (packsIn(quantity, p) !== null || quantity <= EPS) return null;
   const own = formatListingQuantity(p.size, unit);
-  const shown = system === "metric" ? own : `${formatListingQuantity(p.size, unit, system)} (${own})`;
+  const shown = system === "metric" ? own : `${formatListingQuantity(p.size, unit, system)} ${bracketed(own)}`;
   return `This culture comes in whole packs of ${shown}: reserve ${[1, 2, 3].map((n) => formatListingQuantity(packQuantity(n, p), unit)).join(", ")} and so on.`;
 }
 

@@ -51,7 +51,9 @@ describe("a pack", () => {
   it("reads in the viewer's units, the listing's own after it", () => {
     expect(formatPackPrice(HALF, "eur", "kg")).toBe("€16.00 a 0.5 kg pack");
     // 0.5 kg ÷ 0.45359237 kg/lb (NIST HB44 App. C) = 1.10 lb.
-    expect(formatPackPrice(HALF, "eur", "kg", "imperial")).toBe("€16.00 a 1.1 lb pack (0.5 kg)");
+    // The listing's own weight in brackets is held together by a no-break space, so a narrow
+    // column never leaves "(0.5" on one line and "kg)" on the next.
+    expect(formatPackPrice(HALF, "eur", "kg", "imperial")).toBe("€16.00 a 1.1 lb pack (0.5\u00a0kg)");
     expect(formatListingPrice({ price_cents: 3200, currency: "eur", unit: "kg", pack: HALF })).toBe("€16.00 a 0.5 kg pack");
     expect(formatListingPrice({ price_cents: 3200, currency: "eur", unit: "kg", pack: null })).toBe("€32.00 a kg");
     expect(packCount(1)).toBe("1 pack");
@@ -61,7 +63,7 @@ describe("a pack", () => {
   it("says what a whole number of packs is when given part of one", () => {
     expect(wholePackProblem(1, HALF, "kg")).toBeNull();
     expect(wholePackProblem(0.7, HALF, "kg")).toMatch(/whole packs of 0\.5 kg: reserve 0\.5 kg, 1 kg, 1\.5 kg/);
-    expect(wholePackProblem(0.7, HALF, "kg", "imperial")).toMatch(/1\.1 lb \(0\.5 kg\)/);
+    expect(wholePackProblem(0.7, HALF, "kg", "imperial")).toMatch(/1\.1 lb \(0\.5\u00a0kg\)/);
   });
 
   it("leaves only whole packs to reserve", () => {
