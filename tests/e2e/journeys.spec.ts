@@ -272,7 +272,11 @@ test.describe("the planner with the keyboard alone", () => {
     await page.goto("/plan");
     const form = page.getByRole("form", { name: "Bed planner" });
     // The one click-free start: the focus on the first choice of the form, then only keys.
-    await form.getByRole("radio", { name: "Length × width" }).focus();
+    // The form is disabled until the page has hydrated (components/ui/form.tsx), and a
+    // disabled radio takes no focus, so wait for it first.
+    const first = form.getByRole("radio", { name: "Length × width" });
+    await expect(first).toBeEnabled();
+    await first.focus();
     await page.keyboard.press("ArrowRight");
     await expect(form.getByRole("radio", { name: "Draw it on the map" })).toBeChecked();
 
