@@ -4,6 +4,9 @@ import AxeBuilder from "@axe-core/playwright";
 import { expect, type Page } from "@playwright/test";
 
 export async function expectNoAxeViolations(page: Page, where = page.url()) {
+  // A dynamic page's metadata is streamed after its first HTML: let the title arrive before
+  // judging it. A page that never gets one still fails below, on axe's document-title rule.
+  await page.waitForFunction(() => document.title.trim() !== "", null, { timeout: 10_000 }).catch(() => undefined);
   const result = await new AxeBuilder({ page }).analyze();
   const found = result.violations.map((v) => `${v.impact} ${v.id}: ${v.help} — ${v.nodes.map((n) => n.target.join(" ")).slice(0, 4).join(" | ")}`);
   expect(found, `axe violations on ${where}`).toEqual([]);
