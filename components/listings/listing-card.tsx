@@ -5,7 +5,7 @@ import type { ListingUnit } from "@/lib/validation/listings";
 import type { MaterialCode } from "@/lib/calc/facts";
 import { TrustMarks } from "./trust-marks";
 import { UnitDrawing } from "./unit-drawing";
-import { formatListingPrice, type Pack } from "@/lib/listings/packs";
+import { formatListingPrice, packCount, wholePacks, type Pack } from "@/lib/listings/packs";
 
 export interface CardItem {
   id: string;
@@ -50,7 +50,7 @@ export function ListingCard({ item, system, selected = false, fit, onHover }: { 
           <p className="text-sm font-semibold text-moss-800" data-testid="card-material">
             {materialName(item.material)}
           </p>
-          <p className="text-2xl font-bold leading-tight text-humus-900">{formatListingQuantity(item.quantity_available, item.unit, system)} left</p>
+          <p className="text-2xl font-bold leading-tight text-humus-900">{formatListingQuantity(item.quantity_available, item.unit, system)} left{item.pack ? ` (${packCount(wholePacks(item.quantity_available, item.pack))})` : ""}</p>
           <UnitDrawing material={item.material} unit={item.unit} amount={item.quantity_available} />
         </div>
         {photo ? (

@@ -24,7 +24,7 @@ import { viewerUnits } from "@/lib/units/viewer";
 import { formatQuantity } from "@/lib/format/quantity";
 import { listingCautions, type ListingCautionInput } from "@/lib/calc/cautions";
 import type { MaterialCode } from "@/lib/calc/facts";
-import { formatListingPrice } from "@/lib/listings/packs";
+import { formatListingPrice, packCount, wholePacks } from "@/lib/listings/packs";
 
 // One read per request for both the title and the page.
 const load = cache(async (id: string) => {
@@ -117,11 +117,16 @@ export default async function ListingPage({ params }: { params: Promise<{ id: st
           <dl className="grid grid-cols-2 gap-4 rounded-lg bg-white p-4 ring-1 ring-humus-200">
             <Fact label="Left">
               {formatListingQuantity(listing.quantity_available, listing.unit, system)}
+              {listing.pack ? <span className="block text-sm font-normal text-humus-600">{packCount(wholePacks(listing.quantity_available, listing.pack))}</span> : null}
               {size ? <span className="block text-sm font-normal text-humus-600">{size}</span> : null}
             </Fact>
             <Fact label="Price">{formatListingPrice(listing, system)}</Fact>
             <Fact label="No-show deposit">{listing.deposit_cents > 0 ? `${formatMoney(listing.deposit_cents, listing.currency)}, refunded on pickup` : "None"}</Fact>
-            {listing.max_per_reservation ? <Fact label="Most per person">{formatListingQuantity(listing.max_per_reservation, listing.unit, system)}</Fact> : null}
+            {listing.max_per_reservation ? (
+              <Fact label="Most per person">
+                {listing.pack ? `${packCount(wholePacks(listing.max_per_reservation, listing.pack))} (${formatListingQuantity(listing.max_per_reservation, listing.unit, system)})` : formatListingQuantity(listing.max_per_reservation, listing.unit, system)}
+              </Fact>
+            ) : null}
             {listing.available_from ? <Fact label="Available from">{formatDay(listing.available_from)}</Fact> : null}
             {listing.available_until ? <Fact label="Available until">{formatDay(listing.available_until)}</Fact> : null}
           </dl>
