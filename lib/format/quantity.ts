@@ -68,6 +68,13 @@ function rounded(value: number, symbol: string): { value: number; decimals: numb
       return a < 100 ? { value: roundToStep(value, 0.1), decimals: 1 } : { value: Math.round(value), decimals: 0 };
     case "in":
       return a < 10 ? { value: roundToStep(value, 0.1), decimals: 1 } : { value: Math.round(value), decimals: 0 };
+    case "m³": {
+      // Cubic metres to the hundredth at most (a gardener measures out no finer); a volume
+      // smaller than that keeps one figure, so a little is never nothing.
+      const s = significant(value, 3);
+      if (s.decimals <= 2) return s;
+      return a >= 0.01 ? { value: roundToStep(value, 0.01), decimals: 2 } : significant(value, 1);
+    }
     default:
       // Lengths, areas and volumes: three figures, as precise as any density behind them.
       return significant(value, 3);

@@ -20,7 +20,10 @@ export function materialName(code: string): string {
   return MATERIALS[code as MaterialCode]?.name ?? code;
 }
 
-/** "14 bags", "2.5 m³" or, for imperial readers, "3.27 yd³". */
+/**
+ * "14 bags", "2.5 m³" or, for imperial readers, "3.27 yd³". A count is whole when it is whole
+ * and never has more than two decimals ("0.33 bags"); a measure reads as formatQuantity has it.
+ */
 export function formatListingQuantity(quantity: number, unit: ListingUnit, system: UnitSystem = "metric"): string {
   if (unit === "sheets" || unit === "bags" || unit === "bales") {
     const [one, many] = COUNT_WORDS[unit];
