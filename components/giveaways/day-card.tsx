@@ -1,8 +1,8 @@
+import { formatMoney } from "@/lib/format/money";
 import Link from "next/link";
 import type { PublicDayView } from "@/lib/services/giveaway-view";
 import { bookingWindowState } from "@/lib/services/giveaway-view";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
-import { formatMoney } from "@/lib/payments/money";
 import { longDate, readableDateTime, wallTime } from "@/lib/time/zoned";
 import { formatQuantity } from "@/lib/format/quantity";
 import type { UnitSystem } from "@/lib/calc/units";

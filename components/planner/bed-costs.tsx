@@ -1,7 +1,8 @@
+import { formatMoney } from "@/lib/format/money";
 import type { MaterialCode } from "@/lib/calc/facts";
 import type { UnitSystem } from "@/lib/calc/units";
 import { formatQuantity } from "@/lib/format/quantity";
-import { formatListingQuantity, formatMoney } from "@/lib/listings/format";
+import { formatListingQuantity } from "@/lib/listings/format";
 import type { BedCosts, MaterialCost } from "@/lib/match/costs";
 import { materialNoun } from "@/lib/match/format";
 

@@ -1,7 +1,7 @@
-// How listings read on screen: quantities in the reader's unit system, unit sizes, money and
+// How listings read on screen: quantities in the reader's unit system, unit sizes, prices and
 // pickup times. Pure and free of server code, so the browse list, the detail page and the
 // form all say the same thing.
-import { formatAmount } from "@/lib/format/number";
+import { formatMoney } from "@/lib/format/money";
 import { lToUsGal, m2ToFt2, m3ToFt3, kgToLb, ft2ToM2, lbToKg, yd3ToM3, type UnitSystem } from "@/lib/calc/units";
 import { formatQuantity } from "@/lib/format/quantity";
 import { FOOT_M, LITRE_M3, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
@@ -68,11 +68,6 @@ const MILE_KM = (5280 * FOOT_M) / 1000;
 export function formatDistance(km: number, system: UnitSystem = "metric"): string {
   if (system === "imperial") return `about ${(km / MILE_KM).toFixed(1)} mi`;
   return km < 1 ? `about ${Math.max(100, Math.round(km * 10) * 100)} m` : `about ${km.toFixed(1)} km`;
-}
-
-/** "Free", or the price with its currency, per unit. Fixed locale so server and browser agree. */
-export function formatMoney(cents: number, currency: string): string {
-  return formatAmount(cents / 100, currency);
 }
 
 /**

@@ -1,14 +1,7 @@
 import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { type UnitSystem } from "@/lib/calc/units";
-import { formatAmount } from "@/lib/format/number";
 import { formatQuantity } from "@/lib/format/quantity";
 import { MAX_RADIUS_KM } from "./defaults";
-
-/** Integer cents as money, e.g. "€4.50"; free is "free". */
-export function formatCents(cents: number, currency: string): string {
-  if (cents === 0) return "free";
-  return formatAmount(cents / 100, currency);
-}
 
 /** A material's name inside a sentence: "composting worms (Eisenia fetida)", species kept as written. */
 export function materialNoun(code: MaterialCode): string {

@@ -9,7 +9,7 @@ import type { ReservationRow } from "@/db/types";
 import { ApiError, type FieldErrors } from "@/lib/api/errors";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { openCheckouts } from "@/lib/payments/checkout";
-import { MIN_CARD_CHARGE_CENTS, depositFor, formatMoney, listingPrice } from "@/lib/payments/money";
+import { MIN_CARD_CHARGE_CENTS, depositFor, listingPrice } from "@/lib/payments/money";
 import { WHOLE_UNITS, quantityLabel, quantityLimitProblem, reservableQuantity } from "@/lib/reservations/labels";
 import { earliestPickupStart, holdFor, holdWaitFor } from "@/lib/reservations/policy";
 import { datesState } from "@/lib/listings/status";
@@ -20,6 +20,7 @@ import { findShipping } from "@/db/grower-shipping";
 import { packOf, wholePackProblem } from "@/lib/listings/packs";
 import { confirmReservation, pickupTimes } from "./reservation-steps";
 import { shippingView } from "./grower-shipping";
+import { formatMoney } from "@/lib/format/money";
 
 // POST /api/reservations: hold quantities of one or more listings for a gardener, all or
 // nothing in one transaction, then open a Stripe checkout for whatever needs paying.
