@@ -6,7 +6,8 @@ import { listingsInBox } from "@/db/listing-points";
 import type { MaterialCode } from "@/lib/calc/facts";
 import { packOf, type Pack, type PackColumns } from "@/lib/listings/packs";
 import { UNIT_PRICE_INDEX, UNIT_PRICE_SQL } from "@/migrations/20261201_004_listing_unit_price";
-import { type Box, boundingBox, distanceKm, enclosingCircle } from "./geo";
+import { type Box, boundingBox } from "@/lib/geo/box";
+import { distanceKm, enclosingCircle } from "./geo";
 import type { CandidateSource, CheapestRows } from "./search";
 import type { CandidateListing, LatLng, ListingUnit } from "./types";
 
