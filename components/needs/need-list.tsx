@@ -1,7 +1,7 @@
 import { formatMoney } from "@/lib/format/money";
 import Link from "next/link";
 import type { UnitSystem } from "@/lib/calc/units";
-import { formatQuantity } from "@/lib/format/quantity";
+import { formatDistance, formatQuantity } from "@/lib/format/quantity";
 import { MATERIALS } from "@/lib/calc/facts";
 import { materialNoun } from "@/lib/match/format";
 import { formatListingQuantity } from "@/lib/listings/format";
@@ -61,7 +61,7 @@ export function AlertCard({ alert, system }: { alert: AlertView; system: UnitSys
         {l.title}
       </p>
       <p className="text-sm text-humus-700">
-        {MATERIALS[l.material].name} from {l.supplier}, about {formatQuantity(Math.max(0.1, l.distance_km), "km", system)} from {alert.need.bed ? alert.need.bed.name : "your place"} ·{" "}
+        {MATERIALS[l.material].name} from {l.supplier}, {formatDistance(Math.max(0.1, l.distance_km), system)} from {alert.need.bed ? alert.need.bed.name : "your place"} ·{" "}
         {formatListingQuantity(l.quantity_available, l.unit, system)} left · {price}
         {l.reservable_from ? ` · from ${formatDay(l.reservable_from)}` : ""}
       </p>

@@ -88,6 +88,15 @@ export function formatQuantity(value: number, unit: DisplayUnit, system: UnitSys
   return `${EN(r.value, r.decimals)} ${shown.symbol}`;
 }
 
+/**
+ * How far away a place is: "about 400 m" under a kilometre (to the hundred metres, never
+ * less than 100 m), else "about 3.2 km" or "about 12 mi", rounded as formatQuantity rounds a trip.
+ */
+export function formatDistance(km: number, system: UnitSystem = "metric"): string {
+  if (system === "metric" && km < 1) return `about ${Math.max(100, Math.round(km * 10) * 100)} m`;
+  return `about ${formatQuantity(km, "km", system)}`;
+}
+
 /** A span in the reader's unit, "60–130 L" or "16–34 US gal"; one figure when both ends round alike. */
 export function formatRange(low: number, high: number, unit: DisplayUnit, system: UnitSystem): string {
   const lo = toDisplay(low, unit, system);

@@ -4,7 +4,7 @@
 import { formatMoney } from "@/lib/format/money";
 import { lToUsGal, m2ToFt2, m3ToFt3, kgToLb, ft2ToM2, lbToKg, yd3ToM3, type UnitSystem } from "@/lib/calc/units";
 import { formatQuantity } from "@/lib/format/quantity";
-import { FOOT_M, LITRE_M3, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
+import { LITRE_M3, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { unitAmount } from "@/lib/calc/mass";
 import type { ListingUnit } from "@/lib/validation/listings";
 
@@ -59,15 +59,6 @@ export function describeUnitSize(
     return parts.length ? `bales of ${parts.join(", ")}` : null;
   }
   return null;
-}
-
-/** NIST HB44 App. C: 1 mile = 5,280 ft. */
-const MILE_KM = (5280 * FOOT_M) / 1000;
-
-/** "about 400 m" / "about 3.2 km", or miles for imperial readers. */
-export function formatDistance(km: number, system: UnitSystem = "metric"): string {
-  if (system === "imperial") return `about ${(km / MILE_KM).toFixed(1)} mi`;
-  return km < 1 ? `about ${Math.max(100, Math.round(km * 10) * 100)} m` : `about ${km.toFixed(1)} km`;
 }
 
 /**
