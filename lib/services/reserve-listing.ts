@@ -21,6 +21,7 @@ import { packOf, wholePackProblem } from "@/lib/listings/packs";
 import { confirmReservation, pickupTimes } from "./reservation-steps";
 import { shippingView } from "./grower-shipping";
 import { formatMoney } from "@/lib/format/money";
+import { parseQuality } from "@/lib/listings/quality";
 
 // POST /api/reservations: hold quantities of one or more listings for a gardener, all or
 // nothing in one transaction, then open a Stripe checkout for whatever needs paying.
@@ -64,15 +65,6 @@ type Checked = {
 /** What is left to reserve: whole pieces of sheets, bags and bales, whole packs of a pack listing. */
 const leftOf = (l: ListingForReservation) => reservableQuantity(availableOf(l), l.unit, packOf(l));
 
-function qualityOf(l: ListingForReservation): Record<string, unknown> {
-  try {
-    const v = JSON.parse(l.quality);
-    return v && typeof v === "object" ? v : {};
-  } catch {
-    return {};
-  }
-}
-
 /**
  * How a live culture reaches this buyer: what the grower offers, and posting only while the
  * grower has not paused it for heat or frost. Null for material that is not a live culture.
@@ -82,7 +74,7 @@ async function fulfilmentFor(item: ReserveItem, listing: ListingForReservation, 
     if (item.fulfilment === "post") fields[`${f}fulfilment`] = "Only live cultures are posted; this is collected.";
     return null;
   }
-  const offer = cultureOptions(qualityOf(listing));
+  const offer = cultureOptions(parseQuality(listing.quality));
   const chosen = item.fulfilment ?? defaultFulfilment(offer);
   if (chosen === "pickup" && !offer.pickup) fields[`${f}fulfilment`] = "This culture is posted only; choose post and give an address.";
   if (chosen === "post") {
