@@ -27,7 +27,8 @@ export function materialName(code: string): string {
 export function formatListingQuantity(quantity: number, unit: ListingUnit, system: UnitSystem = "metric"): string {
   if (unit === "sheets" || unit === "bags" || unit === "bales") {
     const [one, many] = COUNT_WORDS[unit];
-    return `${trim(quantity)} ${Math.abs(quantity - 1) < 1e-9 ? one : many}`;
+    const shown = trim(quantity);
+    return `${shown} ${shown === "1" ? one : many}`;
   }
   return formatQuantity(quantity, unit, system);
 }

@@ -52,5 +52,8 @@ describe("CSV and display formats", () => {
     expect(formatGiveawayQuantity(1, "bags")).toBe("1 bag");
     expect(formatGiveawayQuantity(4, "bags")).toBe("4 bags");
     expect(formatGiveawayQuantity(0.5, "m3")).toBe("0.5 m³");
+    // Three figures, never more than two decimals of a cubic metre (common practice, no source).
+    expect(formatGiveawayQuantity(12.345, "m3")).toBe("12.3 m³");
+    expect(formatGiveawayQuantity(0.125, "m3")).toBe("0.13 m³");
   });
 });

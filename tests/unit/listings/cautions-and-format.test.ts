@@ -56,6 +56,7 @@ describe("how listings read", () => {
     // A third of a bag to the hundredth, a whole count without decimals (common practice, no source).
     expect(formatListingQuantity(1 / 3, "bags")).toBe("0.33 bags");
     expect(formatListingQuantity(3, "bales")).toBe("3 bales");
+    expect(formatListingQuantity(0.999, "bales")).toBe("1 bale");
     expect(formatListingQuantity(1 / 3, "m3")).toBe("0.33 m³");
     expect(formatListingQuantity(0.004, "m3")).toBe("0.004 m³");
   });
