@@ -1,3 +1,4 @@
+import type { Box } from "@/lib/geo/box";
 import { byteOrder, lockForUpdate } from "./dialect";
 import { db, newId, nowIso, type Db } from "./index";
 import type { BookingStatus, GiveawayBookingRow, GiveawayDayRow, GiveawaySlotRow } from "./types";
@@ -87,7 +88,7 @@ export async function listOrgDays(organisationId: string, q: Db = db()): Promise
 
 /** Scheduled days from `fromDate` on; with a box, only those whose public point is inside it (index prefilter). */
 export async function upcomingDays(
-  opts: { fromDate: string; box?: { minLat: number; maxLat: number; minLng: number; maxLng: number } },
+  opts: { fromDate: string; box?: Box },
   q: Db = db(),
 ): Promise<GiveawayDayRow[]> {
   const query = q("giveaway_days").select(DAY_COLUMNS).where("status", "scheduled").andWhere("date", ">=", opts.fromDate);

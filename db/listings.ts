@@ -2,7 +2,7 @@ import type { Knex } from "knex";
 import { db, nowIso, type Db } from "./index";
 import type { ListingRow, ListingStatus } from "./types";
 import type { MaterialCode } from "@/lib/calc/facts";
-import { boundingBox } from "@/lib/match/geo";
+import { boundingBox } from "@/lib/geo/box";
 import type { LatLng } from "@/lib/match/types";
 import { nearBox } from "./dialect";
 

@@ -1,6 +1,6 @@
 import type { Knex } from "knex";
 import type { MaterialCode } from "@/lib/calc/facts";
-import { boundingBox } from "@/lib/match/geo";
+import { boundingBox } from "@/lib/geo/box";
 import type { LatLng } from "@/lib/match/types";
 import type { CountedReservation } from "@/lib/needs/coverage";
 import { REACH_BANDS_KM } from "@/lib/needs/reach";

@@ -1,4 +1,5 @@
 "use client";
+import { formatMoney } from "@/lib/format/money";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { z } from "zod";
@@ -8,7 +9,6 @@ import type { SlotView } from "@/lib/services/giveaway-view";
 import type { VisitorBooking } from "@/lib/services/giveaway-for-visitor";
 import { formatGiveawayQuantity, formatTypedGiveawayQuantity } from "@/lib/format/giveaway";
 import { useUnits } from "@/components/ui/units-context";
-import { formatMoney } from "@/lib/payments/money";
 import { depositLabel } from "@/lib/format/giveaway-deposit";
 import { readableDateTime, wallTime } from "@/lib/time/zoned";
 import { isApiError, submitOnce } from "@/lib/api/client";

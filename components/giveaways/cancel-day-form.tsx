@@ -1,9 +1,9 @@
 "use client";
+import { formatMoney } from "@/lib/format/money";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { z } from "zod";
 import { cancelGiveawaySchema } from "@/lib/validation/giveaways";
-import { formatMoney } from "@/lib/payments/money";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { useApiAction } from "@/components/ui/use-api-action";

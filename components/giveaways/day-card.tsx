@@ -1,10 +1,10 @@
+import { formatMoney } from "@/lib/format/money";
 import Link from "next/link";
 import type { PublicDayView } from "@/lib/services/giveaway-view";
 import { bookingWindowState } from "@/lib/services/giveaway-view";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
-import { formatMoney } from "@/lib/payments/money";
 import { longDate, readableDateTime, wallTime } from "@/lib/time/zoned";
-import { formatQuantity } from "@/lib/format/quantity";
+import { formatDistance } from "@/lib/format/quantity";
 import type { UnitSystem } from "@/lib/calc/units";
 
 export function windowLabel(day: PublicDayView, now: Date): string {
@@ -55,7 +55,7 @@ export function DayCard({ day, now, system = "metric" }: { day: PublicDayView; n
         {day.distance_km !== undefined ? (
           <>
             <dt>Distance</dt>
-            <dd>about {formatQuantity(day.distance_km, "km", system)}</dd>
+            <dd>{formatDistance(day.distance_km, system)}</dd>
           </>
         ) : null}
       </dl>

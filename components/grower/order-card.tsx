@@ -1,5 +1,5 @@
+import { formatMoney } from "@/lib/format/money";
 import Link from "next/link";
-import { formatMoney } from "@/lib/payments/money";
 import { quantityLabel } from "@/lib/reservations/labels";
 import { formatLocal } from "@/lib/reservations/pickup-times";
 import type { ReservationView } from "@/lib/reservations/view";

@@ -1,8 +1,8 @@
 "use client";
+import { formatMoney } from "@/lib/format/money";
 import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { type UnitSystem } from "@/lib/calc/units";
 import { formatQuantity } from "@/lib/format/quantity";
-import { formatCents } from "@/lib/match/format";
 import type { Need } from "@/lib/match/types";
 import { Notice } from "@/components/ui/notice";
 import { useState } from "react";
@@ -18,8 +18,8 @@ function Totals({ plan, system }: { plan: Plan; system: UnitSystem }) {
     ["Stops", t.parcels ? `${t.stops} + ${t.parcels} by post` : String(t.stops)],
     ["Driving", formatQuantity(plan.driving_distance_km, "km", system)],
     ["Trips", `${t.trips} ${t.trips === 1 ? "carload" : "carloads"}`],
-    ["To pay suppliers", formatCents(t.price_cents, t.currency)],
-    ["Deposits held", held > 0 ? `${formatCents(held, t.currency)}, back at pickup` : "none"],
+    ["To pay suppliers", formatMoney(t.price_cents, t.currency, { zero: "free" })],
+    ["Deposits held", held > 0 ? `${formatMoney(held, t.currency)}, back at pickup` : "none"],
   ];
   return (
     <dl className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-5">
@@ -72,7 +72,7 @@ export function PickupPlan({
       <p className="text-sm text-humus-600">
         The loop through the stops is {formatQuantity(plan.total_distance_km, "km", system)}
         {plan.trips.length > 1 ? `; carrying it all takes ${plan.trips.length} trips from the start, ${formatQuantity(plan.driving_distance_km, "km", system)} in all` : ""}.
-        Driving counted at {formatCents(plan.totals.travel_cents, plan.totals.currency)}, stops at {formatCents(plan.totals.stop_cents, plan.totals.currency)}.
+        Driving counted at {formatMoney(plan.totals.travel_cents, plan.totals.currency)}, stops at {formatMoney(plan.totals.stop_cents, plan.totals.currency)}.
       </p>
 
       <UnmetNeeds unmet={plan.unmet} radiusKm={plan.radius_km} system={system} onWiden={onWiden} onSubstitute={onSubstitute} bedId={bedId} />

@@ -1,9 +1,11 @@
 "use client";
+import { formatMoney } from "@/lib/format/money";
 import Link from "next/link";
 import { MATERIALS } from "@/lib/calc/facts";
 import { type UnitSystem } from "@/lib/calc/units";
 import { formatQuantity } from "@/lib/format/quantity";
-import { formatCents, formatListingQuantity, materialNoun } from "@/lib/match/format";
+import { materialNoun } from "@/lib/match/format";
+import { formatListingQuantity } from "@/lib/listings/format";
 import { formatLocal } from "@/lib/reservations/pickup-times";
 import { packCount } from "@/lib/listings/packs";
 import type { PickupPlan as Plan } from "./use-match";
@@ -140,5 +142,5 @@ export function PlanParcel({ a, system, money, choice, onChoice, problems }: { a
 
 /** The money line of a stop: its price and any deposit held. */
 export function stopMoney(a: PlanAllocation, depositCents: number | undefined): string {
-  return `${formatCents(a.cost_cents, a.currency)}${depositCents ? ` · ${formatCents(depositCents, a.currency)} deposit held, back at pickup` : ""}`;
+  return `${formatMoney(a.cost_cents, a.currency, { zero: "free" })}${depositCents ? ` · ${formatMoney(depositCents, a.currency)} deposit held, back at pickup` : ""}`;
 }

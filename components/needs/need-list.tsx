@@ -1,8 +1,10 @@
+import { formatMoney } from "@/lib/format/money";
 import Link from "next/link";
 import type { UnitSystem } from "@/lib/calc/units";
-import { formatQuantity } from "@/lib/format/quantity";
+import { formatDistance, formatQuantity } from "@/lib/format/quantity";
 import { MATERIALS } from "@/lib/calc/facts";
-import { formatCents, formatListingQuantity, materialNoun } from "@/lib/match/format";
+import { materialNoun } from "@/lib/match/format";
+import { formatListingQuantity } from "@/lib/listings/format";
 import { formatNeedQuantity } from "@/lib/needs/units";
 import type { NeedView } from "@/lib/needs/view";
 import type { AlertView } from "@/lib/services/needs/list-alerts";
@@ -51,7 +53,7 @@ export function NeedCard({ need, system }: { need: NeedView; system: UnitSystem 
 /** A listing found for one of the needs, with the way to reserve it. */
 export function AlertCard({ alert, system }: { alert: AlertView; system: UnitSystem }) {
   const l = alert.listing;
-  const price = l.price_cents > 0 ? formatListingPrice(l, system) : l.deposit_cents > 0 ? `free, ${formatCents(l.deposit_cents, l.currency)} deposit` : "free";
+  const price = l.price_cents > 0 ? formatListingPrice(l, system) : l.deposit_cents > 0 ? `free, ${formatMoney(l.deposit_cents, l.currency)} deposit` : "free";
   return (
     <li className={`flex flex-col gap-2 rounded-lg p-4 ring-1 ${alert.seen ? "bg-white ring-humus-200" : "bg-moss-50 ring-moss-300"}`} data-alert={alert.id}>
       <p className="font-semibold">
@@ -59,7 +61,7 @@ export function AlertCard({ alert, system }: { alert: AlertView; system: UnitSys
         {l.title}
       </p>
       <p className="text-sm text-humus-700">
-        {MATERIALS[l.material].name} from {l.supplier}, about {formatQuantity(Math.max(0.1, l.distance_km), "km", system)} from {alert.need.bed ? alert.need.bed.name : "your place"} ·{" "}
+        {MATERIALS[l.material].name} from {l.supplier}, {formatDistance(Math.max(0.1, l.distance_km), system)} from {alert.need.bed ? alert.need.bed.name : "your place"} ·{" "}
         {formatListingQuantity(l.quantity_available, l.unit, system)} left · {price}
         {l.reservable_from ? ` · from ${formatDay(l.reservable_from)}` : ""}
       </p>

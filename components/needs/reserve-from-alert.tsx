@@ -1,9 +1,10 @@
 "use client";
+import { formatMoney } from "@/lib/format/money";
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { isApiError, submitOnce } from "@/lib/api/client";
 import { quantityLabel } from "@/lib/reservations/labels";
-import { formatMoney, listingPrice } from "@/lib/payments/money";
+import { listingPrice } from "@/lib/payments/money";
 import { packCount, packsCovering, type Pack } from "@/lib/listings/packs";
 import { formatLocal } from "@/lib/reservations/pickup-times";
 import { Button } from "@/components/ui/button";

@@ -1,9 +1,10 @@
+import { formatMoney } from "@/lib/format/money";
 import type { MaterialCode } from "@/lib/calc/facts";
 import type { UnitSystem } from "@/lib/calc/units";
 import { formatQuantity } from "@/lib/format/quantity";
-import { formatMoney } from "@/lib/listings/format";
+import { formatListingQuantity } from "@/lib/listings/format";
 import type { BedCosts, MaterialCost } from "@/lib/match/costs";
-import { formatListingQuantity, materialNoun } from "@/lib/match/format";
+import { materialNoun } from "@/lib/match/format";
 
 /** "€45.00", "€3.00 deposit, back at pickup", "free": one material's share of the plan. */
 export function materialCostText(m: MaterialCost | undefined): string | null {

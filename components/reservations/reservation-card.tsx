@@ -1,6 +1,6 @@
+import { formatMoney } from "@/lib/format/money";
 import Link from "next/link";
 import type { ReservationView } from "@/lib/reservations/view";
-import { formatMoney } from "@/lib/payments/money";
 import { quantityLabel } from "@/lib/reservations/labels";
 import { formatLocal } from "@/lib/reservations/pickup-times";
 import { CANCEL_NOTICE_HOURS, STATUS_LABELS } from "@/lib/reservations/policy";

@@ -1,4 +1,5 @@
 "use client";
+import { formatMoney } from "@/lib/format/money";
 import { useState } from "react";
 import { useForm, useWatch, type Resolver } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
@@ -7,7 +8,7 @@ import type { z } from "zod";
 import { reserveOneSchema } from "@/lib/validation/reservations";
 import { isApiError, submitOnce } from "@/lib/api/client";
 import { useSubmitKeys } from "@/components/ui/use-submit-keys";
-import { formatMoney, listingPrice } from "@/lib/payments/money";
+import { listingPrice } from "@/lib/payments/money";
 import { formatListingQuantity } from "@/lib/listings/format";
 import { formatListingPrice, packCount, packQuantity, packsIn, wholePacks } from "@/lib/listings/packs";
 import { quantityLimitProblem, typedQuantityLabel, WHOLE_UNITS } from "@/lib/reservations/labels";

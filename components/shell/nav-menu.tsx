@@ -1,9 +1,8 @@
 "use client";
-import { useEffect, useId, useRef, useState } from "react";
 import Link from "next/link";
-import { usePathname } from "next/navigation";
 import type { NavLink } from "@/lib/auth/navigation";
 import { NewCount } from "./new-count";
+import { usePopupMenu } from "./use-popup-menu";
 
 /**
  * One menu of the header's row: a button that opens its links below it. Escape closes it
@@ -11,37 +10,8 @@ import { NewCount } from "./new-count";
  */
 export function NavMenu({ label, links, counts = {} }: { label: string; links: NavLink[]; counts?: Record<string, number> }) {
   const waiting = links.reduce((n, l) => n + (counts[l.href] ?? 0), 0);
-  const [open, setOpen] = useState(false);
-  const id = useId();
-  const button = useRef<HTMLButtonElement>(null);
-  const panel = useRef<HTMLUListElement>(null);
-  const pathname = usePathname();
+  const { open, toggle, id, button, panel, pathname } = usePopupMenu<HTMLUListElement>();
   const here = links.some((l) => pathname === l.href || pathname.startsWith(`${l.href}/`));
-
-  const [seen, setSeen] = useState(pathname);
-  if (seen !== pathname) {
-    setSeen(pathname);
-    setOpen(false);
-  }
-
-  useEffect(() => {
-    if (!open) return;
-    const onKey = (e: KeyboardEvent) => {
-      if (e.key !== "Escape") return;
-      setOpen(false);
-      button.current?.focus();
-    };
-    const onPointer = (e: PointerEvent) => {
-      const t = e.target as Node;
-      if (!panel.current?.contains(t) && !button.current?.contains(t)) setOpen(false);
-    };
-    document.addEventListener("keydown", onKey);
-    document.addEventListener("pointerdown", onPointer);
-    return () => {
-      document.removeEventListener("keydown", onKey);
-      document.removeEventListener("pointerdown", onPointer);
-    };
-  }, [open]);
 
   return (
     <div className="relative">
@@ -50,7 +20,7 @@ export function NavMenu({ label, links, counts = {} }: { label: string; links: N
         type="button"
         aria-expanded={open}
         aria-controls={id}
-        onClick={() => setOpen((o) => !o)}
+        onClick={toggle}
         className={`flex min-h-11 items-center gap-1.5 whitespace-nowrap rounded-lg px-3 font-medium hover:bg-humus-100 ${here ? "text-moss-800 underline decoration-2 underline-offset-8" : "text-humus-800"}`}
       >
         {label}

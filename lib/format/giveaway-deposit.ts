@@ -1,4 +1,4 @@
-import { formatMoney } from "@/lib/listings/format";
+import { formatMoney } from "@/lib/format/money";
 
 // How a giveaway booking's no-show deposit reads, to the household and to staff. The states
 // are those of lib/services/giveaway-deposit.ts.

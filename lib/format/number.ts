@@ -1,10 +1,9 @@
-// Numbers and money in a fixed locale, so the server and the browser render the same string.
+// Numbers in a fixed locale (money is ./money.ts), so the server and the browser render the same string.
 // Building an Intl.NumberFormat costs far more than using one (toLocaleString with options
 // builds a new one every call), and an estimate or a plan formats hundreds of figures, so
 // each formatter is made once and kept.
 
 const numbers = new Map<number, Intl.NumberFormat>();
-const money = new Map<string, Intl.NumberFormat>();
 
 /** `value` in en-US digits with at most `decimals` decimals: 11,000 or 0.9. */
 export function formatNumber(value: number, decimals: number): string {
@@ -12,12 +11,4 @@ export function formatNumber(value: number, decimals: number): string {
   let f = numbers.get(d);
   if (!f) numbers.set(d, (f = new Intl.NumberFormat("en-US", { maximumFractionDigits: d })));
   return f.format(value);
-}
-
-/** An amount (not cents) in `currency`, as en-GB writes it: "€4.50". */
-export function formatAmount(amount: number, currency: string): string {
-  const code = currency.toUpperCase();
-  let f = money.get(code);
-  if (!f) money.set(code, (f = new Intl.NumberFormat("en-GB", { style: "currency", currency: code })));
-  return f.format(amount);
 }

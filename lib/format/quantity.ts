@@ -68,6 +68,13 @@ function rounded(value: number, symbol: string): { value: number; decimals: numb
       return a < 100 ? { value: roundToStep(value, 0.1), decimals: 1 } : { value: Math.round(value), decimals: 0 };
     case "in":
       return a < 10 ? { value: roundToStep(value, 0.1), decimals: 1 } : { value: Math.round(value), decimals: 0 };
+    case "m³": {
+      // Cubic metres to the hundredth at most (a gardener measures out no finer); a volume
+      // smaller than that keeps one figure, so a little is never nothing.
+      const s = significant(value, 3);
+      if (s.decimals <= 2) return s;
+      return a >= 0.01 ? { value: roundToStep(value, 0.01), decimals: 2 } : significant(value, 1);
+    }
     default:
       // Lengths, areas and volumes: three figures, as precise as any density behind them.
       return significant(value, 3);
@@ -79,6 +86,15 @@ export function formatQuantity(value: number, unit: DisplayUnit, system: UnitSys
   const shown = toDisplay(value, unit, system);
   const r = rounded(shown.value, shown.symbol);
   return `${EN(r.value, r.decimals)} ${shown.symbol}`;
+}
+
+/**
+ * How far away a place is: "about 400 m" under a kilometre (to the hundred metres, never
+ * less than 100 m), else "about 3.2 km" or "about 12 mi", rounded as formatQuantity rounds a trip.
+ */
+export function formatDistance(km: number, system: UnitSystem = "metric"): string {
+  if (system === "metric" && km < 1) return `about ${Math.max(100, Math.round(km * 10) * 100)} m`;
+  return `about ${formatQuantity(km, "km", system)}`;
 }
 
 /** A span in the reader's unit, "60–130 L" or "16–34 US gal"; one figure when both ends round alike. */

@@ -1,10 +1,10 @@
-// How listings read on screen: quantities in the reader's unit system, unit sizes, money and
+// How listings read on screen: quantities in the reader's unit system, unit sizes, prices and
 // pickup times. Pure and free of server code, so the browse list, the detail page and the
 // form all say the same thing.
-import { formatAmount } from "@/lib/format/number";
+import { formatMoney } from "@/lib/format/money";
 import { lToUsGal, m2ToFt2, m3ToFt3, kgToLb, ft2ToM2, lbToKg, yd3ToM3, type UnitSystem } from "@/lib/calc/units";
 import { formatQuantity } from "@/lib/format/quantity";
-import { FOOT_M, LITRE_M3, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
+import { LITRE_M3, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { unitAmount } from "@/lib/calc/mass";
 import type { ListingUnit } from "@/lib/validation/listings";
 
@@ -20,11 +20,15 @@ export function materialName(code: string): string {
   return MATERIALS[code as MaterialCode]?.name ?? code;
 }
 
-/** "14 bags", "2.5 m³" or, for imperial readers, "3.27 yd³". */
+/**
+ * "14 bags", "2.5 m³" or, for imperial readers, "3.27 yd³". A count is whole when it is whole
+ * and never has more than two decimals ("0.33 bags"); a measure reads as formatQuantity has it.
+ */
 export function formatListingQuantity(quantity: number, unit: ListingUnit, system: UnitSystem = "metric"): string {
   if (unit === "sheets" || unit === "bags" || unit === "bales") {
     const [one, many] = COUNT_WORDS[unit];
-    return `${trim(quantity)} ${Math.abs(quantity - 1) < 1e-9 ? one : many}`;
+    const shown = trim(quantity);
+    return `${shown} ${shown === "1" ? one : many}`;
   }
   return formatQuantity(quantity, unit, system);
 }
@@ -56,20 +60,6 @@ export function describeUnitSize(
     return parts.length ? `bales of ${parts.join(", ")}` : null;
   }
   return null;
-}
-
-/** NIST HB44 App. C: 1 mile = 5,280 ft. */
-const MILE_KM = (5280 * FOOT_M) / 1000;
-
-/** "about 400 m" / "about 3.2 km", or miles for imperial readers. */
-export function formatDistance(km: number, system: UnitSystem = "metric"): string {
-  if (system === "imperial") return `about ${(km / MILE_KM).toFixed(1)} mi`;
-  return km < 1 ? `about ${Math.max(100, Math.round(km * 10) * 100)} m` : `about ${km.toFixed(1)} km`;
-}
-
-/** "Free", or the price with its currency, per unit. Fixed locale so server and browser agree. */
-export function formatMoney(cents: number, currency: string): string {
-  return formatAmount(cents / 100, currency);
 }
 
 /**

@@ -3,7 +3,8 @@
 // own unit (kg), so holds, what is left and the match read the same columns as for any
 // listing; a pack listing only ever gives whole packs, and its price is packs × pack price.
 // Pure: the form, the reserve page, the match and the server all count packs the same way.
-import { formatListingQuantity, formatMoney, formatPrice } from "./format";
+import { formatMoney } from "@/lib/format/money";
+import { formatListingQuantity, formatPrice } from "./format";
 import type { ListingUnit } from "@/lib/validation/listings";
 import type { UnitSystem } from "@/lib/calc/units";
 

@@ -17,6 +17,7 @@ import { photoUrl, type PhotoSize, type PhotoVariant } from "@/lib/media/photo-u
 import type { ListingUnit, QualityInput } from "@/lib/validation/listings";
 import { datesState, effectiveStatus, quantityLeft } from "./status";
 import { packOf, type Pack } from "./packs";
+import { parseQuality } from "@/lib/listings/quality";
 
 export interface PublicListingItem {
   id: string;
@@ -130,15 +131,6 @@ export async function presentItems(rows: PublicListingRow[], q: Db = db(), now: 
 
 const windowView = ({ listing_id: _listing, ...w }: PickupWindowRow): PickupWindowView => w;
 
-function parseQuality(text: string): QualityInput {
-  try {
-    const v = JSON.parse(text);
-    return v && typeof v === "object" ? v : {};
-  } catch {
-    return {};
-  }
-}
-
 export async function presentDetail(r: ListingRow, opts: { manage: boolean; now?: Date }, q: Db = db()): Promise<ListingDetail | ManagedListingDetail> {
   const [supplierOf, photos, windows, ratings, collections] = await Promise.all([
     suppliersFor([r], q),
@@ -147,7 +139,7 @@ export async function presentDetail(r: ListingRow, opts: { manage: boolean; now?
     ratingsFor([r.owner_id], q),
     collectionsFor([r.owner_id], q),
   ]);
-  const quality = parseQuality(r.quality);
+  const quality = parseQuality(r.quality) as QualityInput;
   const photoRows = photos.get(r.id) ?? [];
   const detail: ListingDetail = {
     ...item(r, { ...supplierOf(r), rating: ratings.get(r.owner_id) ?? null, collections: collections.get(r.owner_id) ?? 0 }, photoList(photoRows, "large"), null, opts.now ?? new Date()),

@@ -6,6 +6,7 @@ import { nextPostingDay } from "@/lib/reservations/culture-orders";
 import { shippingView } from "@/lib/services/grower-shipping";
 import { cultureOrderEmail, type CultureMailKind } from "./templates/culture-orders";
 import type { Audience } from "./templates/reservations";
+import { parseQuality } from "@/lib/listings/quality";
 
 /**
  * Writes a live-culture order e-mail to the outbox inside the caller's transaction (like
@@ -26,10 +27,6 @@ export async function mailCultureOrder(q: Db, kind: CultureMailKind, r: Reservat
 }
 
 function speciesOf(quality: string | undefined): string | null {
-  try {
-    const v = JSON.parse(quality ?? "{}");
-    return typeof v?.species === "string" && v.species.trim() ? v.species.trim() : null;
-  } catch {
-    return null;
-  }
+  const v = parseQuality(quality);
+  return typeof v.species === "string" && v.species.trim() ? v.species.trim() : null;
 }

@@ -7,19 +7,19 @@ import {
   markSent,
   wakeWaitingForMailServer,
 } from "@/db/outbox";
+import { backoffDelayMs, nextCooldownMs, type Backoff } from "@/lib/time/backoff";
 import { mailFailure, probeMail, sendMail } from "./transport";
 
 // Backoff for a message the SMTP server would not take: 30 s, 1, 2, 4 … minutes, capped
 // at an hour, for two days from when it was written, so an outage delays mail but does not
 // lose it. (Counted in time, not tries: a mail server that answers the readiness question but
 // fails every send can make tries come faster than the backoff.)
-const BASE_DELAY_MS = 30_000;
-const MAX_DELAY_MS = 60 * 60_000;
+const MAIL_BACKOFF: Backoff = { baseMs: 30_000, maxMs: 60 * 60_000 };
 export const GIVE_UP_AFTER_MS = 48 * 3_600_000;
 // The mail server answering a question wakes everything that waited for it. If a send then
 // fails all the same, the next such wake waits 30 s, then 1 min, 2 … up to an hour, so a
 // server that answers but will not take mail is not tried every few seconds.
-const WAKE_COOLDOWN_BASE_MS = 30_000;
+const WAKE_COOLDOWN: Backoff = { baseMs: 30_000, maxMs: 60 * 60_000 };
 // How long a worker's claim on a message lasts. It only runs out if that worker died between
 // claiming and recording the outcome (a worker that stops on purpose lets go of its claims):
 // longer than one send can take with the transport's timeouts, short enough that a message
@@ -27,7 +27,7 @@ const WAKE_COOLDOWN_BASE_MS = 30_000;
 export const CLAIM_MS = 2 * 60_000;
 
 export function retryDelayMs(attempts: number): number {
-  return Math.min(MAX_DELAY_MS, BASE_DELAY_MS * 2 ** Math.max(0, attempts - 1));
+  return backoffDelayMs(attempts, MAIL_BACKOFF);
 }
 
 export interface DeliverOptions {
@@ -106,7 +106,7 @@ export async function deliverOutbox(clock: () => Date = () => new Date(), opts: 
       const expired = at.getTime() - new Date(mail.created_at).getTime() >= GIVE_UP_AFTER_MS;
       await markFailedAttempt(mail.id, { attempts, nextAt, error: (err as Error).message, giveUp: permanent || expired, waitingFor: service ? "smtp" : null });
       if (service) {
-        if (woke) wakeCooldownMs = Math.min(MAX_DELAY_MS, Math.max(WAKE_COOLDOWN_BASE_MS, 2 * wakeCooldownMs));
+        if (woke) wakeCooldownMs = nextCooldownMs(wakeCooldownMs, WAKE_COOLDOWN);
         probeMail.reset();
         await holdForMailServer(at.toISOString(), nextAt);
         break;

@@ -6,9 +6,11 @@ import { listingsInBox } from "@/db/listing-points";
 import type { MaterialCode } from "@/lib/calc/facts";
 import { packOf, type Pack, type PackColumns } from "@/lib/listings/packs";
 import { UNIT_PRICE_INDEX, UNIT_PRICE_SQL } from "@/migrations/20261201_004_listing_unit_price";
-import { type Box, boundingBox, distanceKm, enclosingCircle } from "./geo";
+import { type Box, boundingBox } from "@/lib/geo/box";
+import { distanceKm, enclosingCircle } from "./geo";
 import type { CandidateSource, CheapestRows } from "./search";
 import type { CandidateListing, LatLng, ListingUnit } from "./types";
+import { parseQuality } from "@/lib/listings/quality";
 
 // The one query module of matching. Every query names its index: a box on the public
 // point through the spatial index (db/listing-points.ts: an R*Tree on SQLite, listings_near,
@@ -84,13 +86,9 @@ function reservable(q: Db, index: string | null, materials: readonly MaterialCod
 
 /** A live culture its grower only posts (lib/reservations/culture-orders.ts: an unset key means offered). */
 function postedOnly(r: Row): boolean {
-  if (r.material_code !== "worms" || !r.quality) return false;
-  try {
-    const q = JSON.parse(r.quality) as { ships?: unknown; pickup?: unknown };
-    return q.pickup === false && q.ships !== false;
-  } catch {
-    return false;
-  }
+  if (r.material_code !== "worms") return false;
+  const q = parseQuality(r.quality);
+  return q.pickup === false && q.ships !== false;
 }
 
 function toCandidate(r: Row, origin: LatLng): CandidateListing {

@@ -1,24 +1,7 @@
 import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { type UnitSystem } from "@/lib/calc/units";
-import { formatAmount } from "@/lib/format/number";
 import { formatQuantity } from "@/lib/format/quantity";
-import type { ListingUnit, NeedUnit } from "./types";
 import { MAX_RADIUS_KM } from "./defaults";
-
-/** Integer cents as money, e.g. "€4.50"; free is "free". */
-export function formatCents(cents: number, currency: string): string {
-  if (cents === 0) return "free";
-  return formatAmount(cents / 100, currency);
-}
-
-const COUNTED: Partial<Record<ListingUnit, [string, string]>> = { sheets: ["sheet", "sheets"], bags: ["bag", "bags"], bales: ["bale", "bales"] };
-
-/** A quantity in the listing's own unit: "8 sheets", "1 bale", or a measure in the reader's units. */
-export function formatListingQuantity(quantity: number, unit: ListingUnit, system: UnitSystem): string {
-  const counted = COUNTED[unit];
-  if (counted) return `${quantity} ${quantity === 1 ? counted[0] : counted[1]}`;
-  return formatQuantity(quantity, unit as NeedUnit, system);
-}
 
 /** A material's name inside a sentence: "composting worms (Eisenia fetida)", species kept as written. */
 export function materialNoun(code: MaterialCode): string {

@@ -17,7 +17,8 @@ import { probeStripe, stripe, stripeUnreachable } from "./stripe";
 // After each call the row is brought up to Stripe's record (syncPayment), through the
 // webhook's own code, so the outcome never rests on a webhook that might not arrive.
 
-import { actionRetryDelayMs } from "./retry";
+import { nextCooldownMs } from "@/lib/time/backoff";
+import { actionRetryDelayMs, STRIPE_BACKOFF } from "./retry";
 
 // How long one process may take over a call before another may try it again: far longer
 // than a Stripe request with its retries, short enough that a crashed worker's call is soon
@@ -205,7 +206,7 @@ export async function settlePayments(clock: () => Date = () => new Date(), q: Db
       failed++;
       unreachable = outcome === "unreachable";
       // Stripe answered the question but not the call: the next such wake waits longer.
-      if (unreachable && woke) wakes.cooldownMs = Math.min(60 * 60_000, Math.max(actionRetryDelayMs(1), 2 * wakes.cooldownMs));
+      if (unreachable && woke) wakes.cooldownMs = nextCooldownMs(wakes.cooldownMs, STRIPE_BACKOFF);
     }
   }
   return { done, failed };

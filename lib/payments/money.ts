@@ -1,5 +1,4 @@
-// Money is integer cents plus a currency everywhere; how it reads is lib/listings/format.ts.
-export { formatMoney } from "@/lib/listings/format";
+// Money is integer cents plus a currency everywhere; how it reads is lib/format/money.ts.
 import { packsCovering, type Pack } from "@/lib/listings/packs";
 
 // Stripe's smallest card charge per currency (docs.stripe.com/currencies, "Minimum and

@@ -1,8 +1,9 @@
 // How a reservation's quantity and money read in pages and e-mails.
-import { formatListingQuantity, formatMoney } from "@/lib/listings/format";
+import { formatListingQuantity } from "@/lib/listings/format";
 import type { ListingUnit } from "@/lib/validation/listings";
 import type { UnitSystem } from "@/lib/calc/units";
 import { packQuantity, wholePacks, type Pack } from "@/lib/listings/packs";
+import { formatMoney } from "@/lib/format/money";
 
 /** Units counted in whole pieces: nobody collects half a bale. */
 export const WHOLE_UNITS = new Set(["sheets", "bags", "bales"]);

@@ -12,7 +12,6 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
 import { giveawayCautions } from "@/lib/calc/cautions";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
-import { formatMoney } from "@/lib/payments/money";
 import { openCheckout } from "@/lib/payments/checkout";
 import { holdMinutes } from "@/lib/reservations/policy";
 import { bookingParts, giveawayBookedEmail } from "@/lib/mail/templates/giveaway";
@@ -20,6 +19,7 @@ import { readableDateTime } from "@/lib/time/zoned";
 import { giveawayQuantityIssue } from "@/lib/validation/giveaways";
 import { bookingWindowState, cancelDeadline } from "./giveaway-view";
 import { calendarToken } from "./giveaway-calendar";
+import { formatMoney } from "@/lib/format/money";
 
 // A household is one Duffbank account: one live booking per account per day, enforced by a
 // unique index. That stops casual double-booking, not a person with two accounts. To tighten

@@ -9,10 +9,10 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
 import { bookingParts, giveawayBookingCancelledEmail } from "@/lib/mail/templates/giveaway";
 import { readableDateTime } from "@/lib/time/zoned";
-import { formatMoney } from "@/lib/payments/money";
 import { runPaymentActions } from "@/lib/payments/actions";
 import { cancelDeadline } from "./giveaway-view";
 import { depositAfterReturn, settleBookingDeposit } from "./giveaway-deposit";
+import { formatMoney } from "@/lib/format/money";
 
 /** A household cancels its own booking, up to the day's cut-off before the slot; any deposit hold is released. */
 export async function cancelGiveawayBooking(userId: string, dayId: string, bookingId: string, clock: () => Date = () => new Date()) {

@@ -7,13 +7,13 @@ import { enqueueEmail } from "@/db/outbox";
 import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
-import { formatMoney } from "@/lib/payments/money";
 import { bookingParts, giveawayDayCancelledEmail } from "@/lib/mail/templates/giveaway";
 import { staffDayView } from "./giveaway-view";
 import { runPaymentActions } from "@/lib/payments/actions";
 import type { DepositStatus } from "@/db/types";
 import { depositAfterReturn, settleBookingDeposit } from "./giveaway-deposit";
 import type { CouncilContext } from "./council-access";
+import { formatMoney } from "@/lib/format/money";
 
 /** Calls a day off: every live booking is cancelled, its deposit released, its household e-mailed — all or nothing. */
 export async function cancelGiveaway(ctx: CouncilContext, dayId: string, reason: string, clock: () => Date = () => new Date()) {

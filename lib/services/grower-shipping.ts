@@ -10,6 +10,7 @@ import { notFound } from "@/lib/api/errors";
 import { estimatedWorms } from "@/lib/reservations/culture-orders";
 import { PAUSE_REASON_LABELS, WEEKDAY_NAMES, type CultureInput, type ShippingInput } from "@/lib/validation/grower";
 import { packOf, type Pack } from "@/lib/listings/packs";
+import { parseQuality } from "@/lib/listings/quality";
 
 /** Early in the week, so a parcel of live worms does not sit in a depot over the weekend (common practice, no source). */
 export const DEFAULT_SHIP_WEEKDAYS = [1, 2];
@@ -94,7 +95,7 @@ export interface CultureStock {
 /** The grower's worm listings with what is left and roughly how many worms that is. */
 export async function cultureStock(userId: string): Promise<CultureStock[]> {
   return (await wormListingsOf(userId)).map((l) => {
-    const quality = safeJson(l.quality);
+    const quality = parseQuality(l.quality);
     const left = Math.max(0, l.quantity_total - l.quantity_held - l.quantity_collected);
     return {
       id: l.id,
@@ -119,19 +120,10 @@ export async function saveCulture(userId: string, listingId: string, input: Cult
     await lockRows(trx, "listings", { id: listingId, owner_id: userId }); // merged into its quality JSON below
     const listing = (await wormListingsOf(userId, trx)).find((l) => l.id === listingId);
     if (!listing) throw notFound("That worm listing");
-    const before = safeJson(listing.quality);
+    const before = parseQuality(listing.quality);
     const after = { ...before, species: input.species, ships: input.ships, pickup: input.pickup };
     await updateWormQuality(listingId, userId, after, trx);
     await recordAudit({ actor_id: userId, action: "grower.culture", subject_type: "listing", subject_id: listingId, before, after }, trx);
     return { id: listingId, ...input };
   });
-}
-
-function safeJson(s: string): Record<string, unknown> {
-  try {
-    const v = JSON.parse(s);
-    return v && typeof v === "object" ? v : {};
-  } catch {
-    return {};
-  }
 }

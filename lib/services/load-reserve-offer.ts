@@ -10,15 +10,7 @@ import { packOf } from "@/lib/listings/packs";
 import { datesState, effectiveStatus } from "@/lib/listings/status";
 import { cultureOffer } from "./culture-offer";
 import { depositFor } from "@/lib/payments/money";
-
-function qualityOf(text: string): Record<string, unknown> {
-  try {
-    const v = JSON.parse(text);
-    return v && typeof v === "object" ? v : {};
-  } catch {
-    return {};
-  }
-}
+import { parseQuality } from "@/lib/listings/quality";
 
 /** What the reserve page shows about a listing: public facts only, never the address. */
 export async function loadReserveOffer(listingId: string, now = new Date()) {
@@ -30,7 +22,7 @@ export async function loadReserveOffer(listingId: string, now = new Date()) {
     pickupWindowsOf([l.id]),
     db()("users").first("display_name", "verified_at").where({ id: l.owner_id }),
     ratingsFor([l.owner_id]),
-    cultureOffer({ material: l.material_code, owner_id: l.owner_id, quality: qualityOf(l.quality), available }, now),
+    cultureOffer({ material: l.material_code, owner_id: l.owner_id, quality: parseQuality(l.quality), available }, now),
     collectionsFor([l.owner_id]),
   ]);
   const deposit = depositFor(l.price_cents, l.deposit_cents);

@@ -9,7 +9,7 @@ import type { ReservationRow } from "@/db/types";
 import { ApiError, type FieldErrors } from "@/lib/api/errors";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { openCheckouts } from "@/lib/payments/checkout";
-import { MIN_CARD_CHARGE_CENTS, depositFor, formatMoney, listingPrice } from "@/lib/payments/money";
+import { MIN_CARD_CHARGE_CENTS, depositFor, listingPrice } from "@/lib/payments/money";
 import { WHOLE_UNITS, quantityLabel, quantityLimitProblem, reservableQuantity } from "@/lib/reservations/labels";
 import { earliestPickupStart, holdFor, holdWaitFor } from "@/lib/reservations/policy";
 import { datesState } from "@/lib/listings/status";
@@ -20,6 +20,8 @@ import { findShipping } from "@/db/grower-shipping";
 import { packOf, wholePackProblem } from "@/lib/listings/packs";
 import { confirmReservation, pickupTimes } from "./reservation-steps";
 import { shippingView } from "./grower-shipping";
+import { formatMoney } from "@/lib/format/money";
+import { parseQuality } from "@/lib/listings/quality";
 
 // POST /api/reservations: hold quantities of one or more listings for a gardener, all or
 // nothing in one transaction, then open a Stripe checkout for whatever needs paying.
@@ -63,15 +65,6 @@ type Checked = {
 /** What is left to reserve: whole pieces of sheets, bags and bales, whole packs of a pack listing. */
 const leftOf = (l: ListingForReservation) => reservableQuantity(availableOf(l), l.unit, packOf(l));
 
-function qualityOf(l: ListingForReservation): Record<string, unknown> {
-  try {
-    const v = JSON.parse(l.quality);
-    return v && typeof v === "object" ? v : {};
-  } catch {
-    return {};
-  }
-}
-
 /**
  * How a live culture reaches this buyer: what the grower offers, and posting only while the
  * grower has not paused it for heat or frost. Null for material that is not a live culture.
@@ -81,7 +74,7 @@ async function fulfilmentFor(item: ReserveItem, listing: ListingForReservation, 
     if (item.fulfilment === "post") fields[`${f}fulfilment`] = "Only live cultures are posted; this is collected.";
     return null;
   }
-  const offer = cultureOptions(qualityOf(listing));
+  const offer = cultureOptions(parseQuality(listing.quality));
   const chosen = item.fulfilment ?? defaultFulfilment(offer);
   if (chosen === "pickup" && !offer.pickup) fields[`${f}fulfilment`] = "This culture is posted only; choose post and give an address.";
   if (chosen === "post") {

@@ -1,12 +1,10 @@
 import "server-only";
-import { distance, point } from "@turf/turf";
+import { boundingBox } from "@/lib/geo/box";
+import { distanceKm } from "@/lib/match/geo";
 import { slotsOf, upcomingDays } from "@/db/giveaways";
 import { organisationNames } from "@/db/listings";
 import { addDays, localDate } from "@/lib/time/zoned";
 import { publicDayView, type PublicDayView } from "./giveaway-view";
-
-/** Degrees of latitude in a kilometre, near enough for a prefilter box (common practice, no source). */
-const KM_PER_DEGREE_LAT = 111.2;
 
 /** Upcoming giveaway days, nearest first within each date when a point is given. */
 export async function searchGiveaways(
@@ -15,19 +13,14 @@ export async function searchGiveaways(
 ): Promise<PublicDayView[]> {
   const now = clock();
   const hasPoint = q.lat !== undefined && q.lng !== undefined;
-  let box;
-  if (hasPoint) {
-    const dLat = q.radius_km / KM_PER_DEGREE_LAT;
-    const dLng = q.radius_km / (KM_PER_DEGREE_LAT * Math.max(0.01, Math.cos((q.lat! * Math.PI) / 180)));
-    box = { minLat: q.lat! - dLat, maxLat: q.lat! + dLat, minLng: q.lng! - dLng, maxLng: q.lng! + dLng };
-  }
+  const box = hasPoint ? boundingBox({ lat: q.lat!, lng: q.lng! }, q.radius_km) : undefined;
   // A day behind UTC still counts as today somewhere west, so the query starts a day early
   // and each day is then judged by its own zone's calendar.
   const rows = (await upcomingDays({ fromDate: addDays(now.toISOString().slice(0, 10), -1), box })).filter((d) => d.date >= localDate(now, d.time_zone));
   const [slots, names] = await Promise.all([slotsOf(rows.map((r) => r.id)), organisationNames(rows.map((r) => r.organisation_id))]);
   const items = rows.map((d) => {
     const view = publicDayView(d, slots, names.get(d.organisation_id) ?? "");
-    if (hasPoint) view.distance_km = Math.round(distance(point([q.lng!, q.lat!]), point([d.approx_lng, d.approx_lat]), { units: "kilometers" }) * 10) / 10;
+    if (hasPoint) view.distance_km = Math.round(distanceKm({ lat: q.lat!, lng: q.lng! }, { lat: d.approx_lat, lng: d.approx_lng }) * 10) / 10;
     return view;
   });
   const within = hasPoint ? items.filter((i) => i.distance_km! <= q.radius_km) : items;

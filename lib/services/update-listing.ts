@@ -10,6 +10,7 @@ import { listingDates } from "@/lib/listings/dates";
 import { alertIfDue } from "@/lib/services/needs/alert-needs";
 import { packOf, unitPriceOfPack } from "@/lib/listings/packs";
 import { checkListingRules, COUNTED_UNITS, type LISTING_CURRENCIES, defaultUnitSize, listingFieldsSchema, type UpdateListingInput } from "@/lib/validation/listings";
+import { parseQuality } from "@/lib/listings/quality";
 
 // The same rules as a new listing, checked on the listing as it would be after the change.
 const mergedSchema = listingFieldsSchema.superRefine(checkListingRules);
@@ -46,7 +47,7 @@ export async function updateListing(userId: string, id: string, patch: UpdateLis
       address: patch.address ?? row.address,
       available_from: patch.available_from !== undefined ? patch.available_from : row.available_from,
       available_until: patch.available_until !== undefined ? patch.available_until : row.available_until,
-      quality: patch.quality ?? JSON.parse(row.quality || "{}"),
+      quality: patch.quality ?? parseQuality(row.quality),
       pickup_windows: patch.pickup_windows ?? [],
     } satisfies z.input<typeof mergedSchema>);
     if (!merged.success) throw fromZod(merged.error);

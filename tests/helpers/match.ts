@@ -1,4 +1,5 @@
-import { distanceKm, inBox } from "@/lib/match/geo";
+import { inBox } from "@/lib/geo/box";
+import { distanceKm } from "@/lib/match/geo";
 import type { CandidateSource } from "@/lib/match/search";
 import type { CandidateListing, LatLng } from "@/lib/match/types";
 import { UNIT_PRICE_SQL } from "@/migrations/20261201_004_listing_unit_price";

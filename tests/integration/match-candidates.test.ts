@@ -7,7 +7,8 @@ import { prng } from "@/seeds/ids";
 import { createUser } from "../factories";
 import { insertListing } from "../helpers/match";
 import { databaseSource, findCandidates, findCheapest, nearestListings } from "@/lib/match/candidates";
-import { boundingBox, distanceKm } from "@/lib/match/geo";
+import { boundingBox } from "@/lib/geo/box";
+import { distanceKm } from "@/lib/match/geo";
 import { searchListings } from "@/db/listing-search";
 import { EARTH_POINT_FUNCTION } from "@/db/dialect";
 

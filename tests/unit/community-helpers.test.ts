@@ -1,7 +1,7 @@
+import { formatMoney } from "@/lib/format/money";
 import { describe, expect, it } from "vitest";
 import { toCsv } from "@/lib/format/csv";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
-import { formatMoney } from "@/lib/payments/money";
 import { addDays, localDate, wallTime, zonedToUtc } from "@/lib/time/zoned";
 import { bookingWindowState, cancelDeadline } from "@/lib/services/giveaway-view";
 
@@ -45,8 +45,15 @@ describe("CSV and display formats", () => {
   it("shows money and giveaway quantities", () => {
     expect(formatMoney(500, "eur")).toBe("€5.00");
     expect(formatMoney(1250, "gbp")).toBe("£12.50");
+    // Nothing to pay reads as money unless the screen words it; en-GB currency format (from memory).
+    expect(formatMoney(0, "eur")).toBe("€0.00");
+    expect(formatMoney(0, "eur", { zero: "free" })).toBe("free");
+    expect(formatMoney(5, "usd", { zero: "free" })).toBe("US$0.05");
     expect(formatGiveawayQuantity(1, "bags")).toBe("1 bag");
     expect(formatGiveawayQuantity(4, "bags")).toBe("4 bags");
     expect(formatGiveawayQuantity(0.5, "m3")).toBe("0.5 m³");
+    // Three figures, never more than two decimals of a cubic metre (common practice, no source).
+    expect(formatGiveawayQuantity(12.345, "m3")).toBe("12.3 m³");
+    expect(formatGiveawayQuantity(0.125, "m3")).toBe("0.13 m³");
   });
 });

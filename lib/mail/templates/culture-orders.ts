@@ -2,10 +2,10 @@
 // steps (confirmed, packed, shipped, delivered), and the word to a buyer waiting on a parcel
 // when the grower pauses posting for the weather or resumes it. Built from the same parts as
 // every other e-mail (renderEmail); facts come from lib/calc/facts.ts with their sources.
+import { formatMoney } from "@/lib/format/money";
 import type { ReservationContext } from "@/db/reservation-context";
 import { appUrl } from "@/lib/app-url";
 import { WORM_DAILY_FOOD_SHARE, WORM_DAILY_FOOD_SOURCE, WORM_TEMPERATURE_F, WORMS_AFTER_DAYS } from "@/lib/calc/facts";
-import { formatMoney } from "@/lib/payments/money";
 import { PAUSE_REASON_LABELS } from "@/lib/validation/grower";
 import { dayLabel, estimatedWorms } from "@/lib/reservations/culture-orders";
 import { whatLabel } from "@/lib/reservations/labels";

@@ -1,8 +1,8 @@
 // The e-mails of the reservation flow, in Duffbank's words. Each is built from the same
 // parts as HTML and plain text (renderEmail). Times are in the town's time zone.
+import { formatMoney } from "@/lib/format/money";
 import type { ReservationContext } from "@/db/reservation-context";
 import { appUrl } from "@/lib/app-url";
-import { formatMoney } from "@/lib/payments/money";
 import { moneySentence, whatLabel, type MoneyOutcome } from "@/lib/reservations/labels";
 import { formatLocal, windowLabel } from "@/lib/reservations/pickup-times";
 import { renderEmail, type EmailParts } from "../layout";

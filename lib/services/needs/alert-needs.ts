@@ -16,6 +16,7 @@ import type { ListingUnit } from "@/lib/match/types";
 import { needsReaching, type AlertingListing, type ReachedNeed } from "@/lib/needs/reaching";
 import { DUE_NOW } from "@/migrations/20261208_020_open_needs";
 import { dayOf, resolveContext, type NeedsContext } from "./context";
+import { parseQuality } from "@/lib/listings/quality";
 
 // When a listing is posted, restocked or comes into its dates, every open need it could
 // serve gets one alert: an in-app notice (the need_alerts row) and an e-mail through the
@@ -78,12 +79,8 @@ export function alertLine(
 
 /** The cautions an alert e-mail carries: the material's own, without the general lines. */
 export function alertCautions(l: Pick<ListingRow, "material_code" | "unit" | "unit_mass_kg" | "quality">): string[] {
-  let quality: Record<string, unknown> = {};
-  try {
-    quality = JSON.parse(l.quality || "{}");
-  } catch {
-    // A listing saved before a declaration existed: the general caution still applies.
-  }
+  // A listing saved before a declaration existed: the general caution still applies.
+  const quality = parseQuality(l.quality);
   return listingCautions({ material: l.material_code, unit: l.unit, unit_mass_kg: l.unit_mass_kg === null ? null : Number(l.unit_mass_kg), quality })
     .filter((c) => c.kind !== "gloves")
     .map((c) => c.text);

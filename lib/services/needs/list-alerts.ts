@@ -12,6 +12,7 @@ import type { NeedView } from "@/lib/needs/view";
 import { loadReserveOffer, type ReserveOffer } from "@/lib/services/load-reserve-offer";
 import { resolveContext, type NeedsContext } from "./context";
 import { needViews } from "./list-needs";
+import { parseQuality } from "@/lib/listings/quality";
 
 /** An in-app notice: a listing that could serve one of my open needs (public facts about it only). */
 export interface AlertView {
@@ -174,12 +175,8 @@ export async function loadAlertPage(userId: string, id: string, ctx: NeedsContex
   const [need] = await needViews([needRow], q, now);
   const offer = await loadReserveOffer(row.listing_id, now);
   const listing = await q("listings").first("quality", "unit_size", "unit_mass_kg", "max_per_reservation").where({ id: row.listing_id });
-  let quality: Record<string, unknown> = {};
-  try {
-    quality = JSON.parse(listing?.quality ?? "{}");
-  } catch {
-    // An unreadable declaration: the material's general cautions still apply.
-  }
+  // An unreadable declaration reads as none: the material's general cautions still apply.
+  const quality = parseQuality(listing?.quality);
   const cautions = listingCautions({ material: row.material_code, unit: row.unit, unit_mass_kg: listing?.unit_mass_kg ?? null, quality });
   const amount =
     offer && need.status === "open"

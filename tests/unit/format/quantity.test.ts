@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { formatCount, formatQuantity, formatRange, roundCount, roundLitres, roundUsGallons } from "@/lib/format/quantity";
+import { formatCount, formatDistance, formatQuantity, formatRange, roundCount, roundLitres, roundUsGallons } from "@/lib/format/quantity";
 
 // Conversions are NIST HB44 (exact); the rounding is ours: what a person can measure out.
 describe("formatQuantity", () => {
@@ -71,5 +71,18 @@ describe("counts and ranges", () => {
     expect(formatRange(31, 67, "l", "metric")).toBe("30–65 L");
     expect(formatRange(31, 32, "l", "metric")).toBe("30 L");
     expect(formatRange(31, 67, "l", "imperial")).toBe("8–18 US gal"); // 8.19, 17.7
+  });
+});
+
+describe("formatDistance", () => {
+  it("says how far away a place is, metres under a kilometre", () => {
+    expect(formatDistance(0.42)).toBe("about 400 m");
+    expect(formatDistance(0.02)).toBe("about 100 m");
+    expect(formatDistance(3.24)).toBe("about 3.2 km");
+    expect(formatDistance(12.6)).toBe("about 13 km");
+    // 5 km / 1.609344 km per mile (NIST HB44 App. C: 1 mi = 5,280 ft) = 3.107 mi.
+    expect(formatDistance(5, "imperial")).toBe("about 3.1 mi");
+    // 0.5 km = 0.311 mi: short trips stay in tenths of a mile.
+    expect(formatDistance(0.5, "imperial")).toBe("about 0.3 mi");
   });
 });

@@ -53,6 +53,12 @@ describe("how listings read", () => {
     // 2.5 m³ / 0.764554857984 m³ per yd³ = 3.27 yd³ (NIST HB44 App. C yard).
     expect(formatListingQuantity(2.5, "m3", "imperial")).toBe("3.27 yd³");
     expect(formatListingQuantity(8, "kg", "imperial")).toBe("18 lb"); // 17.64 lb, shown to the pound
+    // A third of a bag to the hundredth, a whole count without decimals (common practice, no source).
+    expect(formatListingQuantity(1 / 3, "bags")).toBe("0.33 bags");
+    expect(formatListingQuantity(3, "bales")).toBe("3 bales");
+    expect(formatListingQuantity(0.999, "bales")).toBe("1 bale");
+    expect(formatListingQuantity(1 / 3, "m3")).toBe("0.33 m³");
+    expect(formatListingQuantity(0.004, "m3")).toBe("0.004 m³");
   });
   it("unit sizes", () => {
     // 30 US gal bag = 113.6 L (NIST: 1 gal = 3.785411784 L).

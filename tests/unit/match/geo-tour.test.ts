@@ -2,7 +2,8 @@ import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { destination } from "@turf/turf";
 import { Geodesic } from "geographiclib-geodesic";
-import { boundingBox, distanceKm, inBox } from "@/lib/match/geo";
+import { boundingBox, inBox } from "@/lib/geo/box";
+import { distanceKm } from "@/lib/match/geo";
 import { distanceMatrix, loopLength, nearestNeighbourOrder, planTour, twoOpt } from "@/lib/match/tour";
 
 // An independent reference for distances: GeographicLib's ellipsoidal geodesics on WGS84

@@ -1,3 +1,4 @@
+import { formatMoney } from "@/lib/format/money";
 import Link from "next/link";
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
@@ -11,7 +12,6 @@ import { Notice } from "@/components/ui/notice";
 import { AutoRefresh } from "@/components/reservations/auto-refresh";
 import { ReservationCard } from "@/components/reservations/reservation-card";
 import type { ReservationView } from "@/lib/reservations/view";
-import { formatMoney } from "@/lib/payments/money";
 import { formatLocal } from "@/lib/reservations/pickup-times";
 import { viewerUnits } from "@/lib/units/viewer";
 

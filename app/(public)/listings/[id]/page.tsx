@@ -1,3 +1,4 @@
+import { formatMoney } from "@/lib/format/money";
 import type { Metadata } from "next";
 import type { ReactNode } from "react";
 import Link from "next/link";
@@ -7,7 +8,7 @@ import { currentUser, hasRole } from "@/lib/auth/current-user";
 import { ApiError } from "@/lib/api/errors";
 import { getListing } from "@/lib/services/get-listing";
 import type { ManagedListingDetail } from "@/lib/listings/view";
-import { describeUnitSize, formatDay, formatListingQuantity, formatMoney, formatWindow, materialName } from "@/lib/listings/format";
+import { describeUnitSize, formatDay, formatListingQuantity, formatWindow, materialName } from "@/lib/listings/format";
 import { APPROX_MAX_M } from "@/lib/geo/approximate";
 import { buttonClass } from "@/components/ui/button-class";
 import { Notice } from "@/components/ui/notice";

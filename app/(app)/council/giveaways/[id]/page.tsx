@@ -1,9 +1,9 @@
+import { formatMoney } from "@/lib/format/money";
 import Link from "next/link";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
 import { sheetForPage } from "@/lib/services/council-day-page";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
-import { formatMoney } from "@/lib/payments/money";
 import { longDate, readableDateTime } from "@/lib/time/zoned";
 import { PageHeading } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button-class";

@@ -1,3 +1,4 @@
+import { formatMoney } from "@/lib/format/money";
 import Link from "next/link";
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
@@ -5,7 +6,8 @@ import { pageUser } from "@/lib/auth/page-guard";
 import { loadAlertPage } from "@/lib/services/needs/list-alerts";
 import { MATERIALS } from "@/lib/calc/facts";
 import { formatQuantity } from "@/lib/format/quantity";
-import { formatCents, formatListingQuantity, materialNoun } from "@/lib/match/format";
+import { materialNoun } from "@/lib/match/format";
+import { formatListingQuantity } from "@/lib/listings/format";
 import { formatNeedQuantity } from "@/lib/needs/units";
 import { formatDay } from "@/lib/listings/format";
 import { longDate } from "@/lib/time/zoned";
@@ -58,7 +60,7 @@ export default async function AlertPage({ params }: { params: Promise<{ id: stri
         </div>
         <div>
           <dt className="text-sm text-humus-600">Deposit</dt>
-          <dd className="font-medium">{l.deposit_cents > 0 ? `${formatCents(l.deposit_cents, l.currency)}, refunded on pickup` : "None"}</dd>
+          <dd className="font-medium">{l.deposit_cents > 0 ? `${formatMoney(l.deposit_cents, l.currency)}, refunded on pickup` : "None"}</dd>
         </div>
         <div>
           <dt className="text-sm text-humus-600">Your need still lacks</dt>
