@@ -46,7 +46,7 @@ afterAll(async () => {
 
 /** `npm run db:<command> -- <args>` as an operator runs it, against the database at `url`. */
 function dbCli(command: "backup" | "restore", args: string[], url: string) {
-  return exec(process.execPath, [...TSX, "db/cli.ts", command, ...args], { cwd: ROOT, env: { ...process.env, NODE_ENV: "test", DATABASE_URL: url }, encoding: "utf8", timeout: 60_000 });
+  return exec(process.execPath, [...TSX, "scripts/db.ts", command, ...args], { cwd: ROOT, env: { ...process.env, NODE_ENV: "test", DATABASE_URL: url }, encoding: "utf8", timeout: 60_000 });
 }
 
 /** An empty database of its own on the test server. */

@@ -35,7 +35,7 @@ afterAll(async () => {
 
 /** `npm run db:<command> -- <args>` as an operator runs it, against `file`. */
 function dbCli(command: "backup" | "restore", args: string[], file: string) {
-  return exec(process.execPath, [...TSX, "db/cli.ts", command, ...args], { cwd: ROOT, env: { ...process.env, NODE_ENV: "test", DATABASE_FILE: file }, encoding: "utf8", timeout: 60_000 });
+  return exec(process.execPath, [...TSX, "scripts/db.ts", command, ...args], { cwd: ROOT, env: { ...process.env, NODE_ENV: "test", DATABASE_FILE: file }, encoding: "utf8", timeout: 60_000 });
 }
 
 function counts(file: string): Figures {

@@ -75,8 +75,8 @@ describe("the command-line entry points", () => {
   });
 
   it.each([
-    ["db:migrate", "db/cli.ts", ["migrate"]],
-    ["db:seed", "db/cli.ts", ["seed"]],
+    ["db:migrate", "scripts/db.ts", ["migrate"]],
+    ["db:seed", "scripts/db.ts", ["seed"]],
     ["the worker", "lib/worker/run.ts", ["--once", "deliver-outbox"]],
   ])("%s refuses a production start with no secrets, one line per secret, and touches nothing", (_name, script, args) => {
     const out = run(script, args, { NODE_ENV: "production", DATABASE_FILE: file });
@@ -87,16 +87,16 @@ describe("the command-line entry points", () => {
   });
 
   it("db:migrate runs in production once the secrets are set, and in the explicit demo with a warning", () => {
-    const real = run("db/cli.ts", ["migrate"], { NODE_ENV: "production", DATABASE_FILE: file, ...REAL });
+    const real = run("scripts/db.ts", ["migrate"], { NODE_ENV: "production", DATABASE_FILE: file, ...REAL });
     expect(real.code, real.stderr).toBe(0);
     expect(real.stderr).not.toMatch(/DEMO/);
-    const demo = run("db/cli.ts", ["migrate"], { NODE_ENV: "production", DATABASE_FILE: file, DUFFBANK_DEMO: "1" });
+    const demo = run("scripts/db.ts", ["migrate"], { NODE_ENV: "production", DATABASE_FILE: file, DUFFBANK_DEMO: "1" });
     expect(demo.code, demo.stderr).toBe(0);
     expect(demo.stderr).toMatch(/PUBLIC DEMO SECRETS/);
   });
 
   it("development needs nothing set", () => {
-    const dev = run("db/cli.ts", ["migrate"], { DATABASE_FILE: file });
+    const dev = run("scripts/db.ts", ["migrate"], { DATABASE_FILE: file });
     expect(dev.code, dev.stderr).toBe(0);
   });
 });

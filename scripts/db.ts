@@ -1,11 +1,13 @@
 // `npm run db:migrate | db:rollback | db:seed` — the same migration list the app uses.
 // `npm run db:backup -- <file>` and `npm run db:restore -- <file> [--force]` (db/backup.ts).
+// A script, not part of db/: it reaches for the demo seed and the environment checks, which the
+// data layer itself never imports.
 import "../lib/env-files";
 import knex from "knex";
 import { checkStartup } from "../lib/env";
 import { configFor } from "../knexfile";
 import { seed } from "../seeds/demo";
-import { backupDatabase, restoreDatabase, type BackupResult } from "./backup";
+import { backupDatabase, restoreDatabase, type BackupResult } from "../db/backup";
 
 function describe(r: BackupResult): string {
   const rows = Object.entries(r.tables).map(([t, n]) => `${t} ${n}`).join(", ");
