@@ -140,7 +140,7 @@ export function ReserveForm({ offer, unitSystem, cautions, postedCautions }: { o
             max={packsLeft}
             value={packs}
             onChange={(e) => choosePacks(e.target.value)}
-            hint={`${offer.max_per_reservation !== null && offer.max_per_reservation < offer.available ? `At most ${packCount(packsLeft)} per reservation` : `${packCount(packsLeft)} left`} · each pack is ${formatListingQuantity(pack.size, offer.unit, unitSystem)}`}
+            hint={`${packCount(wholePacks(offer.available, pack))} left${offer.max_per_reservation !== null && offer.max_per_reservation < offer.available ? ` · at most ${packCount(packsLeft)} per reservation` : ""} · each pack is ${formatListingQuantity(pack.size, offer.unit, unitSystem)}`}
             error={form.formState.errors.quantity?.message}
             className="max-w-40"
           />
