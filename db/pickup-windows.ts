@@ -1,6 +1,5 @@
 import { db, groupBy, newId, type Db } from "./index";
 import type { PickupWindowRow } from "./types";
-import type { PickupWindowInput } from "@/lib/validation/listings";
 
 const WINDOW_COLUMNS = ["id", "listing_id", "kind", "weekday", "start_time", "end_time", "starts_at", "ends_at"];
 
@@ -13,12 +12,6 @@ export async function windowsFor(listingIds: string[], q: Db = db()): Promise<Ma
   return groupBy(rows, (r) => r.listing_id);
 }
 
-function toRow(listingId: string, w: PickupWindowInput): Omit<PickupWindowRow, "id"> {
-  return w.kind === "weekly"
-    ? { listing_id: listingId, kind: "weekly", weekday: w.weekday, start_time: w.start_time, end_time: w.end_time, starts_at: null, ends_at: null }
-    : { listing_id: listingId, kind: "dated", weekday: null, start_time: null, end_time: null, starts_at: new Date(w.starts_at).toISOString(), ends_at: new Date(w.ends_at).toISOString() };
-}
-
 const sameWindow = (a: Omit<PickupWindowRow, "id">, b: Omit<PickupWindowRow, "id">) =>
   a.kind === b.kind && a.weekday === b.weekday && a.start_time === b.start_time && a.end_time === b.end_time && a.starts_at === b.starts_at && a.ends_at === b.ends_at;
 
@@ -26,8 +19,11 @@ const sameWindow = (a: Omit<PickupWindowRow, "id">, b: Omit<PickupWindowRow, "id
  * Makes the listing's windows exactly `windows`. A window that is unchanged keeps its row
  * (and so its id), so reservations that point at it keep their pickup time.
  */
-export async function replaceWindows(listingId: string, windows: PickupWindowInput[], q: Db = db()): Promise<void> {
-  const wanted = windows.map((w) => toRow(listingId, w));
+/** Window fields without id or listing (lib/listings/windows.ts makes them from the form's input). */
+export type PickupWindowFields = Omit<PickupWindowRow, "id" | "listing_id">;
+
+export async function replaceWindows(listingId: string, windows: PickupWindowFields[], q: Db = db()): Promise<void> {
+  const wanted: Omit<PickupWindowRow, "id">[] = windows.map((w) => ({ ...w, listing_id: listingId }));
   const existing = (await q("pickup_windows").select(WINDOW_COLUMNS).where({ listing_id: listingId })) as PickupWindowRow[];
   const keep = new Set<string>();
   const toInsert: Omit<PickupWindowRow, "id">[] = [];

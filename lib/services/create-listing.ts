@@ -3,6 +3,7 @@ import { db, newId } from "@/db/index";
 import { insertListing } from "@/db/listings";
 import { insertPhotos } from "@/db/listing-photos";
 import { replaceWindows } from "@/db/pickup-windows";
+import { pickupWindowFields } from "@/lib/listings/windows";
 import { recordAudit } from "@/db/audit";
 import { ApiError } from "@/lib/api/errors";
 import type { SessionUser } from "@/lib/auth/current-user";
@@ -64,7 +65,7 @@ export async function createListing(user: SessionUser, input: CreateListingInput
       },
       trx,
     );
-    await replaceWindows(id, input.pickup_windows, trx);
+    await replaceWindows(id, input.pickup_windows.map(pickupWindowFields), trx);
     await insertPhotos(id, input.photos, 0, trx);
     await recordAudit({ actor_id: user.id, action: "listing.create", subject_type: "listing", subject_id: id, after: { status: input.status, material: input.material } }, trx);
   });

@@ -1,7 +1,7 @@
 import "server-only";
 import { ApiError } from "@/lib/api/errors";
 import { estimate, type EstimateResult } from "@/lib/calc/estimate";
-import { pricedListings } from "@/lib/match/candidates";
+import { pricedListings } from "@/db/match-candidates";
 import { bedCosts, type BedCosts, type PricedPickup } from "@/lib/match/costs";
 import type { LatLng, Need } from "@/lib/match/types";
 import type { EstimateInput } from "@/lib/validation/estimate";

@@ -1,7 +1,7 @@
 import "server-only";
 import { ApiError, notFound } from "@/lib/api/errors";
 import type { SessionUser } from "@/lib/auth/current-user";
-import { databaseSource, pricedListings } from "@/lib/match/candidates";
+import { databaseSource, pricedListings } from "@/db/match-candidates";
 import { bedCosts, type PricedPickup } from "@/lib/match/costs";
 import { searchPlan } from "@/lib/match/search";
 import type { LatLng, Need } from "@/lib/match/types";

@@ -3,6 +3,7 @@ import { z } from "zod";
 import { db } from "@/db/index";
 import { findManagedListing, setQuantityTotal, updateManagedListing, type ListingPatch } from "@/db/listings";
 import { replaceWindows } from "@/db/pickup-windows";
+import { pickupWindowFields } from "@/lib/listings/windows";
 import { recordAudit } from "@/db/audit";
 import { ApiError, fromZod, notFound } from "@/lib/api/errors";
 import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
@@ -93,7 +94,7 @@ export async function updateListing(userId: string, id: string, patch: UpdateLis
         quantity: `${committed} ${row.unit} is already reserved or collected, so the total cannot go below that.`,
       });
     }
-    if (patch.pickup_windows !== undefined) await replaceWindows(id, l.pickup_windows, trx);
+    if (patch.pickup_windows !== undefined) await replaceWindows(id, l.pickup_windows.map(pickupWindowFields), trx);
     await recordAudit({ actor_id: userId, action: "listing.update", subject_type: "listing", subject_id: id, after: Object.keys(patch) }, trx);
   });
   // More of it, new dates or a new place: open needs it can now serve hear of it.

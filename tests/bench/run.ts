@@ -12,7 +12,7 @@ import { performance } from "node:perf_hooks";
 import type { Knex } from "knex";
 import { MATERIAL_CODES } from "@/lib/calc/facts";
 import { estimate } from "@/lib/calc/estimate";
-import { databaseSource, nearestListings } from "@/lib/match/candidates";
+import { databaseSource, nearestListings } from "@/db/match-candidates";
 import { matchPlan } from "@/lib/match/plan";
 import { searchPlan } from "@/lib/match/search";
 import type { Need } from "@/lib/match/types";

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { createUser } from "../factories";
 import { insertListing } from "../helpers/match";
-import { nearestListings } from "@/lib/match/candidates";
+import { nearestListings } from "@/db/match-candidates";
 import { searchListings } from "@/db/listing-search";
 import { isPg } from "@/db/dialect";
 

@@ -6,7 +6,7 @@ import { isPg, queryPlan } from "../helpers/engine";
 import { prng } from "@/seeds/ids";
 import { createUser } from "../factories";
 import { insertListing } from "../helpers/match";
-import { databaseSource, findCandidates, findCheapest, nearestListings } from "@/lib/match/candidates";
+import { databaseSource, findCandidates, findCheapest, nearestListings } from "@/db/match-candidates";
 import { boundingBox } from "@/lib/geo/box";
 import { distanceKm } from "@/lib/match/geo";
 import { searchListings } from "@/db/listing-search";

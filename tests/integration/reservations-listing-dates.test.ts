@@ -8,7 +8,7 @@ import { createUser } from "../factories";
 import { createListing, listingQuantities } from "../reservation-factories";
 import { POST as reserve } from "@/app/api/reservations/route";
 import { GET as browse } from "@/app/api/listings/route";
-import { findCandidates } from "@/lib/match/candidates";
+import { findCandidates } from "@/db/match-candidates";
 import { db } from "@/db/index";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;

@@ -1,18 +1,18 @@
 import "server-only";
 import type { Knex } from "knex";
-import { db, type Db } from "@/db/index";
+import { db, type Db } from "./index";
 import { isPg, nearBox } from "@/db/dialect";
 import { listingsInBox } from "@/db/listing-points";
 import type { MaterialCode } from "@/lib/calc/facts";
 import { packOf, type Pack, type PackColumns } from "@/lib/listings/packs";
 import { UNIT_PRICE_INDEX, UNIT_PRICE_SQL } from "@/migrations/20261201_004_listing_unit_price";
 import { type Box, boundingBox } from "@/lib/geo/box";
-import { distanceKm, enclosingCircle } from "./geo";
-import type { CandidateSource, CheapestRows } from "./search";
-import type { CandidateListing, LatLng, ListingUnit } from "./types";
+import { distanceKm, enclosingCircle } from "@/lib/match/geo";
+import type { CandidateSource, CheapestRows } from "@/lib/match/search";
+import type { CandidateListing, LatLng, ListingUnit } from "@/lib/match/types";
 import { parseQuality } from "@/lib/listings/quality";
 
-// The one query module of matching. Every query names its index: a box on the public
+// The one query module of matching (a repository: matching itself, lib/match, does no I/O). Every query names its index: a box on the public
 // point through the spatial index (db/listing-points.ts: an R*Tree on SQLite, listings_near,
 // a GiST index of points in space, on PostgreSQL), or the price order through
 // listings_unit_price (status, material_code, unit price, approx_lat, approx_lng); then Turf's
