@@ -1,6 +1,7 @@
 // Row types, one place for every table's columns as stored.
 import type { Role } from "@/lib/auth/roles";
 import type { MaterialCode } from "@/lib/calc/facts";
+import type { ListingStatus } from "@/lib/listings/status";
 
 export interface UserRow {
   id: string;
@@ -86,7 +87,7 @@ export interface AuditRow {
   created_at: string;
 }
 
-export type ListingStatus = "draft" | "active" | "paused" | "archived" | "gone" | "expired" | "hidden";
+export type { ListingStatus };
 
 export interface ListingRow {
   id: string;

@@ -14,7 +14,7 @@ import {
   useTable,
 } from "@tanstack/react-table";
 import { useMemo } from "react";
-import type { ListingStatus } from "@/db/types";
+import type { ListingStatus } from "@/lib/listings/status";
 import type { UnitSystem } from "@/lib/calc/units";
 import { formatListingQuantity, materialName, STATUS_LABELS } from "@/lib/listings/format";
 import type { ListingUnit } from "@/lib/validation/listings";

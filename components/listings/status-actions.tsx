@@ -3,7 +3,7 @@ import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { apiFetch, isApiError } from "@/lib/api/client";
 import { actionsFor } from "@/lib/listings/status";
-import type { ListingStatus } from "@/db/types";
+import type { ListingStatus } from "@/lib/listings/status";
 import type { ListingAction } from "@/lib/validation/listings";
 import { smallButtonClass } from "@/components/ui/button-class";
 

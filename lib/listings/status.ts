@@ -2,8 +2,9 @@
 // system sets on its own — gone (nothing left; a database trigger keeps it in step with the
 // quantities) and expired (past its end date; the worker and every read apply it) — and
 // hidden, which only moderators set. Pure, so the rules are tested without a database.
-import type { ListingStatus } from "@/db/types";
 import type { ListingAction } from "@/lib/validation/listings";
+
+export type ListingStatus = "draft" | "active" | "paused" | "archived" | "gone" | "expired" | "hidden";
 
 export interface StatusContext {
   /** Quantity still available (total − held − collected). */

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
-import { db } from "@/db/index";
+import { listBeds } from "@/lib/services/beds/list-beds";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button-class";
 import { formatQuantity } from "@/lib/format/quantity";
@@ -12,10 +12,7 @@ export const metadata: Metadata = { title: "My beds" };
 export default async function BedsPage() {
   const user = await pageUser("/beds", ["gardener"]);
   const system = await viewerUnits(user);
-  const beds: { id: string; name: string; area_m2: number; start_date: string | null }[] = await db()("beds")
-    .select("id", "name", "area_m2", "start_date")
-    .where({ owner_id: user.id })
-    .orderBy("created_at", "desc");
+  const beds = await listBeds(user.id);
   return (
     <div>
       <PageHeading title="My beds" lead="Each bed keeps its recipe, its material list and its year of reminders." />

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
-import { membersOf } from "@/db/organisations";
+import { listMembers } from "@/lib/services/council/list-members";
 import { councilOf } from "@/lib/services/council-access";
 import { councilDays } from "@/lib/services/council-days";
 import { listInvites } from "@/lib/services/manage-council-staff";
@@ -31,7 +31,7 @@ export default async function CouncilPage() {
   const ctx = councilOf(user);
   const system = await viewerUnits(user);
   const [members, invites, days, report, demand] = await Promise.all([
-    membersOf(ctx.organisationId),
+    listMembers(ctx.organisationId),
     listInvites(ctx),
     councilDays(ctx),
     diversionReport(diversionScopeOf(user)),

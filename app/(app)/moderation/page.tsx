@@ -1,8 +1,8 @@
 import Link from "next/link";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
-import { pendingRoleRequests } from "@/db/organisations";
-import { reportQueue, type QueueRow } from "@/db/reports";
+import { listRoleRequests } from "@/lib/services/moderation/list-role-requests";
+import { listReports, type QueueRow } from "@/lib/services/moderation/list-reports";
 import { groupReports } from "@/lib/moderation/group-reports";
 import { formatLocal } from "@/lib/reservations/pickup-times";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
@@ -18,7 +18,7 @@ export default async function ModerationPage({ searchParams }: { searchParams: P
   await pageUser("/moderation", ["moderator"]);
   const { status: raw } = await searchParams;
   const status = raw === "closed" ? "closed" : "open";
-  const [requests, reports] = await Promise.all([pendingRoleRequests(), reportQueue(status)]);
+  const [requests, reports] = await Promise.all([listRoleRequests(), listReports(status)]);
   return (
     <div className="flex flex-col gap-8">
       <div className="flex flex-wrap items-start justify-between gap-4">

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
-import { listBeds } from "@/db/beds";
+import { listBeds } from "@/lib/services/beds/list-beds";
 import { listNeeds } from "@/lib/services/needs/list-needs";
 import { listAlerts } from "@/lib/services/needs/list-alerts";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
-import { findUserById } from "@/db/users";
+import { getAccount } from "@/lib/services/accounts/get-account";
 import { ProfileForm } from "@/components/profile/profile-form";
 import { AccountSecurity, ConfirmEmailNotice } from "@/components/profile/account-security";
 import { PageHeading } from "@/components/ui/empty-state";
@@ -11,7 +11,7 @@ export const metadata: Metadata = { title: "Profile" };
 
 export default async function ProfilePage({ searchParams }: { searchParams: Promise<{ welcome?: string }> }) {
   const user = await pageUser("/profile");
-  const row = await findUserById(user.id);
+  const row = await getAccount(user.id);
   const { welcome } = await searchParams;
   return (
     <div className="mx-auto max-w-xl">

@@ -1,8 +1,8 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { pageUser } from "@/lib/auth/page-guard";
-import { findListingBrief } from "@/db/listing-status";
-import { findUserById } from "@/db/users";
+import { getListingBrief } from "@/lib/services/listings/get-listing-brief";
+import { getAccount } from "@/lib/services/accounts/get-account";
 import { PageHeading } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";
 import { ReportForm } from "@/components/moderation/report-form";
@@ -15,10 +15,10 @@ export default async function ReportPage({ searchParams }: { searchParams: Promi
   const me = await pageUser(path);
   let subject: { label: string; listingId?: string; userId?: string; hidden?: boolean; own: boolean } | null = null;
   if (typeof listing === "string" && listing) {
-    const l = await findListingBrief(listing);
+    const l = await getListingBrief(listing);
     if (l && l.status !== "draft") subject = { label: `the listing “${l.title}” by ${l.owner_name}`, listingId: l.id, hidden: l.status === "hidden", own: l.owner_id === me.id };
   } else if (typeof userParam === "string" && userParam) {
-    const u = await findUserById(userParam);
+    const u = await getAccount(userParam);
     if (u) subject = { label: u.display_name, userId: u.id, own: u.id === me.id };
   }
   if (!subject) notFound();

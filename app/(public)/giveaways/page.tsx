@@ -2,7 +2,7 @@ import Link from "next/link";
 import type { Metadata } from "next";
 import { currentUser } from "@/lib/auth/current-user";
 import { searchGiveaways } from "@/lib/services/search-giveaways";
-import { bookingsOf } from "@/db/giveaways";
+import { listMyBookings } from "@/lib/services/giveaways/list-my-bookings";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { addDays, longDate, wallTime } from "@/lib/time/zoned";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
@@ -18,7 +18,7 @@ export default async function GiveawaysPage() {
   const now = new Date();
   const [user, days] = await Promise.all([currentUser(), searchGiveaways({ radius_km: 25 })]);
   const system = await viewerUnits(user);
-  const mine = user ? (await bookingsOf(user.id, { fromDate: addDays(now.toISOString().slice(0, 10), -1) })).filter((b) => b.status !== "cancelled") : [];
+  const mine = user ? await listMyBookings(user.id, addDays(now.toISOString().slice(0, 10), -1)) : [];
   return (
     <div className="flex flex-col gap-8">
       <PageHeading

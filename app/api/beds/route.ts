@@ -3,7 +3,7 @@ import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { createBedSchema } from "@/lib/validation/beds";
 import { createBed } from "@/lib/services/save-bed";
-import { listBeds } from "@/db/beds";
+import { listBeds } from "@/lib/services/beds/list-beds";
 import { bedEstimate, toBedView } from "@/lib/services/bed-view";
 
 // GET /api/beds — my beds.

@@ -2,7 +2,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
-import { findBed } from "@/db/beds";
+import { getBed } from "@/lib/services/beds/get-bed";
 import { toBedView } from "@/lib/services/bed-view";
 import { savedBedEstimate } from "@/lib/services/estimate-bed";
 import { PageHeading } from "@/components/ui/empty-state";
@@ -18,7 +18,7 @@ export const metadata: Metadata = { title: "Bed" };
 export default async function BedPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const user = await pageUser(`/beds/${id}`, ["gardener"]);
-  const row = await findBed(id, user.id);
+  const row = await getBed(id, user.id);
   if (!row) notFound();
   const bed = toBedView(row);
   const system = await viewerUnits(user);

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { pageUser } from "@/lib/auth/page-guard";
 import { LISTING_ROLES } from "@/lib/auth/roles";
-import { listingsManagedBy } from "@/db/listings";
+import { listManagedListings } from "@/lib/services/listings/list-managed-listings";
 import { effectiveStatus, quantityLeft } from "@/lib/listings/status";
 import { buttonClass } from "@/components/ui/button-class";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
@@ -14,7 +14,7 @@ export const metadata: Metadata = { title: "What I'm giving" };
 export default async function MyListingsPage() {
   const user = await pageUser("/listings/mine", LISTING_ROLES);
   const now = new Date();
-  const rows: MineRow[] = (await listingsManagedBy(user.id)).map((l) => ({
+  const rows: MineRow[] = (await listManagedListings(user.id)).map((l) => ({
     id: l.id,
     title: l.title,
     material: l.material_code,

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
-import { searchAudit } from "@/db/audit";
+import { searchAudit } from "@/lib/services/moderation/search-audit";
 import { PageHeading } from "@/components/ui/empty-state";
 import { AuditTable } from "@/components/moderation/audit-table";
 

@@ -3,7 +3,7 @@ import Link from "next/link";
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { pageUser } from "@/lib/auth/page-guard";
-import { db } from "@/db/index";
+import { findCheckoutGroup } from "@/lib/services/reservations/find-checkout-group";
 import { getReservations } from "@/lib/services/list-reservations";
 import { whatLabel } from "@/lib/reservations/labels";
 import { PageHeading } from "@/components/ui/empty-state";
@@ -44,13 +44,9 @@ export default async function PaidPage({ searchParams }: { searchParams: Promise
   const user = await pageUser(session_id ? `/reservations/paid?session_id=${encodeURIComponent(session_id)}` : "/reservations");
   const system = await viewerUnits(user);
   if (!session_id) notFound();
-  const row = await db()("payments as p")
-    .join("reservations as r", "r.id", "p.reservation_id")
-    .first("r.id", "r.group_id")
-    .where({ "p.provider_ref": session_id, "r.gardener_id": user.id });
+  const row = await findCheckoutGroup(session_id, user.id);
   if (!row) notFound();
-  const ids: string[] = row.group_id ? await db()("reservations").where({ group_id: row.group_id }).orderBy("created_at").pluck("id") : [row.id];
-  const views = await getReservations(ids, user.id, "gardener");
+  const views = await getReservations(row.ids, user.id, "gardener");
   const mine = views.find((v) => v.id === row.id)!;
   const waiting = mine.payment.state === "awaiting";
   const next = views.find((v) => v.can_pay && v.id !== mine.id);

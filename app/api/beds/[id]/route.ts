@@ -3,14 +3,15 @@ import { readJson, withAuth } from "@/lib/api/handler";
 import { notFound, parseInput } from "@/lib/api/errors";
 import { updateBedSchema } from "@/lib/validation/beds";
 import { editBed } from "@/lib/services/save-bed";
-import { deleteBed, findBed } from "@/db/beds";
+import { getBed } from "@/lib/services/beds/get-bed";
+import { deleteBed } from "@/lib/services/beds/delete-bed";
 import { bedEstimate, toBedView } from "@/lib/services/bed-view";
 
 type P = { id: string };
 
 // GET /api/beds/:id — one of my beds with its estimate.
 export const GET = withAuth<P>(async ({ params, user }) => {
-  const row = await findBed(params.id, user.id);
+  const row = await getBed(params.id, user.id);
   if (!row) throw notFound("That bed");
   const bed = toBedView(row);
   return NextResponse.json({ bed, estimate: bedEstimate(bed, new Date(), user.unit_system) });

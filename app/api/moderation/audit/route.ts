@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { auditQuerySchema } from "@/lib/validation/moderation";
-import { searchAudit } from "@/db/audit";
+import { searchAudit } from "@/lib/services/moderation/search-audit";
 
 // GET /api/moderation/audit — the append-only log of moderator and council actions, newest first.
 // There is deliberately no PATCH, PUT or DELETE here or anywhere: the log only grows.

@@ -1,7 +1,7 @@
 import { notFound } from "next/navigation";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
-import { findBed } from "@/db/beds";
+import { getBed } from "@/lib/services/beds/get-bed";
 import { toBedView } from "@/lib/services/bed-view";
 import { PageHeading } from "@/components/ui/empty-state";
 import { PlanForm } from "@/components/planner/plan-form";
@@ -14,7 +14,7 @@ export default async function EditBedPage({ params }: { params: Promise<{ id: st
   const { id } = await params;
   const user = await pageUser(`/beds/${id}/edit`, ["gardener"]);
   const system = await viewerUnits(user);
-  const row = await findBed(id, user.id);
+  const row = await getBed(id, user.id);
   if (!row) notFound();
   const bed = toBedView(row);
   const today = new Date().toISOString().slice(0, 10);

@@ -3,7 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { pageUser } from "@/lib/auth/page-guard";
 import { formatQuantity } from "@/lib/format/quantity";
-import { findBed } from "@/db/beds";
+import { getBed } from "@/lib/services/beds/get-bed";
 import { viewerUnits } from "@/lib/units/viewer";
 import { PageHeading } from "@/components/ui/empty-state";
 import { BedMaterials } from "@/components/match/bed-materials";
@@ -13,7 +13,7 @@ export const metadata: Metadata = { title: "Find materials" };
 export default async function BedMaterialsPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const user = await pageUser(`/beds/${id}/materials`);
-  const bed = await findBed(id, user.id);
+  const bed = await getBed(id, user.id);
   if (!bed) notFound();
   const point = bed.lat === null || bed.lng === null ? null : { lat: Number(bed.lat), lng: Number(bed.lng) };
   return (

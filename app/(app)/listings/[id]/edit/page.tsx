@@ -3,7 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { pageUser } from "@/lib/auth/page-guard";
 import { LISTING_ROLES } from "@/lib/auth/roles";
-import { findManagedListing } from "@/db/listings";
+import { getManagedListing } from "@/lib/services/listings/get-managed-listing";
 import { getListing } from "@/lib/services/get-listing";
 import type { ManagedListingDetail } from "@/lib/listings/view";
 import { PageHeading } from "@/components/ui/empty-state";
@@ -19,7 +19,7 @@ export default async function EditListingPage({ params }: { params: Promise<{ id
   const user = await pageUser(`/listings/${id}/edit`, LISTING_ROLES);
   const system = await viewerUnits(user);
   // Someone else's listing is a 404 here too, exactly as in the API.
-  if (!(await findManagedListing(id, user.id))) notFound();
+  if (!(await getManagedListing(id, user.id))) notFound();
   const listing = (await getListing(id, user.id)) as ManagedListingDetail;
   const locked = listing.status === "archived" || listing.status === "hidden";
   return (

@@ -1,13 +1,13 @@
 import { withAuth } from "@/lib/api/handler";
 import { notFound } from "@/lib/api/errors";
-import { findBed } from "@/db/beds";
+import { getBed } from "@/lib/services/beds/get-bed";
 import { bedEstimate, toBedView } from "@/lib/services/bed-view";
 import { bedCalendar } from "@/lib/services/bed-calendar";
 import { appUrl } from "@/lib/app-url";
 
 // GET /api/beds/:id/calendar.ics — the bed's timeline for a calendar app.
 export const GET = withAuth<{ id: string }>(async ({ params, user }) => {
-  const row = await findBed(params.id, user.id);
+  const row = await getBed(params.id, user.id);
   if (!row) throw notFound("That bed");
   const bed = toBedView(row);
   const ics = bedCalendar(bed, bedEstimate(bed, new Date(), user.unit_system).timeline, appUrl());

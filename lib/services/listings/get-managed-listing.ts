@@ -1,0 +1,7 @@
+import { findManagedListing } from "@/db/listings";
+import type { ListingRow } from "@/db/types";
+
+/** A listing the user may change (their own, or their council's); otherwise not found. */
+export async function getManagedListing(id: string, userId: string): Promise<ListingRow | undefined> {
+  return findManagedListing(id, userId);
+}
