@@ -1,5 +1,64 @@
 import next from "eslint-config-next";
 
+// The layers (DEVELOPERS.md, "Layers"): app/ and components/ → lib/services → db/, with the
+// pure domain modules in lib/<domain> usable from anywhere above db/. These zones keep them
+// from sliding back; each message says where the import should go instead.
+const layers = {
+  files: ["**/*.{ts,tsx,mjs,js}"],
+  rules: {
+    "import/no-restricted-paths": [
+      "error",
+      {
+        zones: [
+          {
+            target: ["./app/**", "./components/**"],
+            from: "./db/**",
+            message: "Pages, route handlers and components reach the database only through lib/services.",
+          },
+          {
+            target: ["./db/**"],
+            from: ["./lib/services/**", "./lib/api/**", "./lib/worker/**", "./app/**", "./components/**"],
+            message: "Repositories sit below the services: they take row types and return rows.",
+          },
+          {
+            target: ["./lib/!(services|worker|api)/**"],
+            from: "./lib/services/**",
+            message: "Domain modules do not call use-cases; move the shared part into lib/<domain> instead.",
+          },
+          {
+            target: ["./lib/calc/**", "./lib/match/**"],
+            from: ["./db/**", "./lib/services/**", "./lib/mail/**", "./lib/media/**", "./lib/payments/stripe.ts*", "./lib/worker/**", "./migrations/**"],
+            message: "Calculation and matching are pure: no database, mail, Stripe or files; the services feed them.",
+          },
+          {
+            target: ["./app/**", "./components/**", "./db/**", "./scripts/**", "./migrations/**", "./lib/!(fakes)/**", "./*.ts"],
+            from: "./lib/fakes/**",
+            message: "The local fakes are started by their own runner (npm run fakes) and imported only by tests.",
+          },
+        ],
+      },
+    ],
+  },
+};
+
+// Calculation and matching may not reach for I/O packages either.
+const pureCore = {
+  files: ["lib/calc/**", "lib/match/**"],
+  rules: {
+    "no-restricted-imports": [
+      "error",
+      {
+        patterns: [
+          {
+            group: ["knex", "pg", "better-sqlite3", "stripe", "cloudinary", "nodemailer", "node:fs", "fs", "node:fs/*", "fs/*", "node:net", "node:http", "node:https", "server-only"],
+            message: "lib/calc and lib/match are pure: pass them data, do the I/O in lib/services or db/.",
+          },
+        ],
+      },
+    ],
+  },
+};
+
 const config = [
   ...next,
   { ignores: [".next/**", "node_modules/**", "test-results/**", "public/**"] },
@@ -9,6 +68,8 @@ const config = [
       "@typescript-eslint/no-explicit-any": "off",
     },
   },
+  layers,
+  pureCore,
 ];
 
 export default config;
