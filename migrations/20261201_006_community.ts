@@ -58,7 +58,7 @@ export async function up(knex: Knex): Promise<void> {
     t.timestamp("booking_opens_at", { useTz: true }).notNullable();
     t.timestamp("booking_closes_at", { useTz: true }).notNullable();
     t.integer("cancel_cutoff_hours").notNullable().defaultTo(12);
-    // Recorded only: taking it needs the payments work (see lib/services/book-giveaway.ts).
+    // Recorded only: taking it needs the payments work (see lib/services/giveaways/book-giveaway.ts).
     t.integer("deposit_cents").notNullable().defaultTo(0);
     t.string("currency", 3).notNullable().defaultTo("eur");
     t.string("status", 12).notNullable().defaultTo("scheduled"); // scheduled | cancelled

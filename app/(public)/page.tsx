@@ -5,7 +5,7 @@ import { currentUser } from "@/lib/auth/current-user";
 import { viewerUnits } from "@/lib/units/viewer";
 import { BedStory } from "@/components/home/bed-story";
 import { LayerPicture } from "@/components/home/layer-picture";
-import { communityFigures } from "@/lib/services/community-figures";
+import { communityFigures } from "@/lib/services/figures/count-community-figures";
 
 // The figures below are live, so the page is rendered per request.
 export const dynamic = "force-dynamic";

@@ -1,5 +1,5 @@
 import Link from "next/link";
-import type { StaffDayView } from "@/lib/services/giveaway-view";
+import type { StaffDayView } from "@/lib/giveaways/view";
 import { longDate } from "@/lib/time/zoned";
 
 /** A council's days with how full they are and the links staff need on the day. */

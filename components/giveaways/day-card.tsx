@@ -1,7 +1,7 @@
 import { formatMoney } from "@/lib/format/money";
 import Link from "next/link";
-import type { PublicDayView } from "@/lib/services/giveaway-view";
-import { bookingWindowState } from "@/lib/services/giveaway-view";
+import type { PublicDayView } from "@/lib/giveaways/view";
+import { bookingWindowState } from "@/lib/giveaways/view";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { longDate, readableDateTime, wallTime } from "@/lib/time/zoned";
 import { formatDistance } from "@/lib/format/quantity";

@@ -2,7 +2,7 @@ import type { FieldErrors, Resolver } from "react-hook-form";
 import { BAG_M3 } from "@/lib/calc/facts";
 import { createGiveawaySchema, updateGiveawaySchema, type GiveawayMaterial, type GiveawayUnit } from "@/lib/validation/giveaways";
 import { DEFAULT_TIME_ZONE, wallTime, localDate, zonedToUtc } from "@/lib/time/zoned";
-import type { StaffDayView } from "@/lib/services/giveaway-view";
+import type { StaffDayView } from "@/lib/giveaways/view";
 
 // The giveaway-day form in the words staff use (euros, litres, a local closing time), turned
 // into exactly what POST/PATCH /api/council/giveaways take, and checked with the same schema.

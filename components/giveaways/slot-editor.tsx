@@ -1,6 +1,6 @@
 "use client";
 import { useState } from "react";
-import type { SlotView } from "@/lib/services/giveaway-view";
+import type { SlotView } from "@/lib/giveaways/view";
 import { wallTime } from "@/lib/time/zoned";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";

@@ -1,5 +1,5 @@
 import { dayLabel } from "@/lib/reservations/culture-orders";
-import type { CultureOffer } from "@/lib/services/culture-offer";
+import type { CultureOffer } from "@/lib/services/growers/get-culture-offer";
 import { ShippingNotice } from "./shipping-notice";
 
 /** A live culture as a buyer weighs it up: how many worms, which species, and how they reach you. */

@@ -11,7 +11,7 @@ import { Notice } from "@/components/ui/notice";
 import { Form } from "@/components/ui/form";
 import type { UnitSystem } from "@/lib/calc/units";
 import { fewHundred, formatQuantity } from "@/lib/format/quantity";
-import type { BedStillNeeds } from "@/lib/services/beds-still-need";
+import type { BedStillNeeds } from "@/lib/services/beds/list-beds-still-needing";
 import { ListingCard } from "./listing-card";
 import { fitLine, handedLitres } from "./bed-fit";
 import { AMOUNT_CHOICES, LANES, laneOf, RADIUS_CHOICES, searchString, WHEN_CHOICES, type BrowseFilters, type LaneId } from "./browse-filters";

@@ -2,7 +2,7 @@
 import { useMutation, useQuery } from "@tanstack/react-query";
 import { apiFetch, submitOnce } from "@/lib/api/client";
 import { useSubmitKeys } from "@/components/ui/use-submit-keys";
-import type { PickupPlanResponse } from "@/lib/services/plan-pickups";
+import type { PickupPlanResponse } from "@/lib/services/match/plan-pickups";
 import type { MatchRequest } from "@/lib/validation/match";
 
 export type PickupPlan = PickupPlanResponse;

@@ -16,7 +16,7 @@ import { equivalentOf } from "@/lib/reservations/equivalents";
 import { formatLocal } from "@/lib/reservations/pickup-times";
 import { CANCEL_NOTICE_HOURS } from "@/lib/reservations/policy";
 import type { UnitSystem } from "@/lib/calc/units";
-import type { ReserveOffer } from "@/lib/services/load-reserve-offer";
+import type { ReserveOffer } from "@/lib/services/reservations/load-reserve-offer";
 import { Field, TextAreaField } from "@/components/ui/field";
 import { dayLabel } from "@/lib/reservations/culture-orders";
 import { Button } from "@/components/ui/button";

@@ -8,8 +8,8 @@ import type { Role } from "@/lib/auth/roles";
 import type { ReservationAction } from "@/lib/reservations/policy";
 import type { OrderAction } from "@/lib/reservations/culture-orders";
 import { advanceCultureOrder } from "@/lib/services/advance-culture-order";
-import { changeReservation } from "@/lib/services/change-reservation";
-import { getReservation } from "@/lib/services/list-reservations";
+import { changeReservation } from "@/lib/services/reservations/change-reservation";
+import { getReservation } from "@/lib/services/reservations/list-reservations";
 
 type StepBody = { reason?: string; pickup_code?: string; carrier?: string; tracking?: string };
 

@@ -8,8 +8,8 @@ import { findPayment, paymentByStripeRef, updatePayment } from "@/db/payments";
 import type { PaymentRow } from "@/db/types";
 import { runPaymentActions } from "@/lib/payments/actions";
 import { lockOwner, ownerOf } from "@/lib/payments/owner";
-import { bookingDepositFollows } from "./giveaway-deposit";
-import { gardenerStepDone, moneyReturnedOutside } from "./reservation-steps";
+import { bookingDepositFollows } from "@/lib/services/giveaway-deposit";
+import { gardenerStepDone, moneyReturnedOutside } from "@/lib/services/reservation-steps";
 
 // Applies one event of Stripe's record, exactly once: the event id goes into webhook_events
 // in the same transaction as its effects, so a repeat finds the id and changes nothing, and a

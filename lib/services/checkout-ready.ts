@@ -6,7 +6,7 @@ import { reservationContext } from "@/db/reservation-context";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { ownerOf } from "@/lib/payments/owner";
 import { holdMinutes } from "@/lib/reservations/policy";
-import { depositPageReady } from "./giveaway-deposit";
+import { depositPageReady } from "@/lib/services/giveaway-deposit";
 
 /**
  * A checkout Stripe could not make when it was asked for has been made by the worker: whoever

@@ -13,7 +13,7 @@ import { bookingParts, giveawayBookingLapsedEmail, giveawayDepositReadyEmail } f
 import { runPaymentActions } from "@/lib/payments/actions";
 import { settleCheckout } from "@/lib/payments/owner";
 import { holdMinutes } from "@/lib/reservations/policy";
-import { enqueueBookedEmail } from "./book-giveaway";
+import { enqueueBookedEmail } from "@/lib/services/giveaways/book-giveaway";
 
 // A giveaway day's refundable no-show deposit, held on the household's card through the same
 // payments rows, Stripe calls, webhooks and worker as a reservation's deposit:

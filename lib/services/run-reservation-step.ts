@@ -6,7 +6,7 @@ import { writeTransaction } from "@/db/write-transaction";
 import { ApiError } from "@/lib/api/errors";
 import { runPaymentActions } from "@/lib/payments/actions";
 import type { Side } from "@/lib/reservations/policy";
-import { StaleState } from "./reservation-steps";
+import { StaleState } from "@/lib/services/reservation-steps";
 
 export interface StepRun {
   db: Knex;

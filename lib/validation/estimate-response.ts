@@ -1,5 +1,5 @@
 // The answer of POST /api/estimate (and a saved bed's estimate), as the OpenAPI document
-// describes it. The route builds it in lib/calc/estimate.ts and lib/services/estimate-bed.ts;
+// describes it. The route builds it in lib/calc/estimate.ts and lib/services/beds/estimate-bed.ts;
 // tests/integration/openapi.test.ts checks a real answer against this shape.
 import { z } from "zod";
 import { MATERIAL_CODES } from "@/lib/calc/facts";

@@ -2,7 +2,7 @@
 // firing its bookings at the agreed moment. Run with
 //   node --conditions=react-server --import tsx tests/helpers/giveaway-book-worker.ts
 // and DATABASE_FILE, NODE_ENV=test, DAY_ID, START_AT (epoch ms) and JOBS (JSON) set.
-import { bookGiveaway } from "@/lib/services/book-giveaway";
+import { bookGiveaway } from "@/lib/services/giveaways/book-giveaway";
 import { db } from "@/db/index";
 
 const jobs = JSON.parse(process.env.JOBS ?? "[]") as { userId: string; slotId: string; quantity: number }[];

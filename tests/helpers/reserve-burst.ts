@@ -2,7 +2,7 @@
 // concurrency test starts several of these so the holds race on separate connections in
 // separate processes, as an app server and its worker (or several servers) would.
 // Usage: node --conditions=react-server --import tsx tests/helpers/reserve-burst.ts <listingId> <count> <startAtMs> <quantities,...> <gardenerIds,...>
-import { reserveListings } from "@/lib/services/reserve-listing";
+import { reserveListings } from "@/lib/services/reservations/reserve-listing";
 import { ApiError } from "@/lib/api/errors";
 import { db } from "@/db/index";
 

@@ -4,7 +4,7 @@
 // so a copy taken mid-way shows at once whether it holds whole transactions only.
 // Usage: node --conditions=react-server --import tsx tests/helpers/reserve-load.ts <listingId> <gardenerId> <stopFile>
 import fs from "node:fs";
-import { reserveListings } from "@/lib/services/reserve-listing";
+import { reserveListings } from "@/lib/services/reservations/reserve-listing";
 import { db } from "@/db/index";
 
 async function main() {

@@ -5,7 +5,7 @@ import { createUser } from "../factories";
 import * as beds from "@/app/api/beds/route";
 import * as bed from "@/app/api/beds/[id]/route";
 import * as calendar from "@/app/api/beds/[id]/calendar.ics/route";
-import { sendBedReminders } from "@/lib/services/send-bed-reminders";
+import { sendBedReminders } from "@/lib/services/beds/send-bed-reminders";
 import { updateUser } from "@/db/users";
 import { insertBed } from "@/db/beds";
 import { toRequest, valuesFromBed } from "@/components/planner/form-model";

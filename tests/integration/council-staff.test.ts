@@ -7,7 +7,7 @@ import * as invite from "@/app/api/council/invites/[id]/route";
 import * as accept from "@/app/api/council/invites/accept/route";
 import * as member from "@/app/api/council/members/[userId]/route";
 import * as members from "@/app/api/council/members/route";
-import { acceptInvite, describeInvite } from "@/lib/services/manage-council-staff";
+import { acceptInvite, describeInvite } from "@/lib/services/council/manage-council-staff";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 const p: Record<string, string> = {};

@@ -6,9 +6,9 @@ import { createListing, createReservation, createUser } from "../factories";
 import * as diversion from "@/app/api/reports/diversion/route";
 import * as diversionCsv from "@/app/api/reports/diversion.csv/route";
 import { BAG_M3, BALE_M3 } from "@/lib/calc/facts";
-import { platformDivertedKg, platformGiveawayKg } from "@/lib/services/diversion-report";
-import { recordAttendance } from "@/lib/services/record-attendance";
-import { councilOf } from "@/lib/services/council-access";
+import { platformDivertedKg, platformGiveawayKg } from "@/lib/services/figures/report-diversion";
+import { recordAttendance } from "@/lib/services/giveaways/record-attendance";
+import { councilOf } from "@/lib/auth/council-access";
 import { loadSessionUser } from "@/lib/auth/current-user";
 
 // Unit factors, NIST Handbook 44 App. C (exact): 1 lb = 0.45359237 kg, 1 US gal = 231 in³ =

@@ -12,7 +12,7 @@ import { createListing, listingQuantities } from "../reservation-factories";
 import { errorKind, isForeignKeyViolation, isUniqueViolation } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
 import { membersOf } from "@/db/organisations";
-import { reserveListings } from "@/lib/services/reserve-listing";
+import { reserveListings } from "@/lib/services/reservations/reserve-listing";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 beforeAll(async () => {

@@ -6,9 +6,9 @@ import { freshDb } from "../helpers/db";
 import { dayBody } from "../helpers/giveaways";
 import { createUser } from "../factories";
 import { ApiError } from "@/lib/api/errors";
-import { createGiveaway } from "@/lib/services/create-giveaway";
-import { bookGiveaway } from "@/lib/services/book-giveaway";
-import type { CouncilContext } from "@/lib/services/council-access";
+import { createGiveaway } from "@/lib/services/giveaways/create-giveaway";
+import { bookGiveaway } from "@/lib/services/giveaways/book-giveaway";
+import type { CouncilContext } from "@/lib/auth/council-access";
 import { createGiveawaySchema } from "@/lib/validation/giveaways";
 
 // A January day: Europe/London is on UTC, so local times read the same as the instants.

@@ -14,7 +14,7 @@ import * as myBooking from "@/app/api/giveaways/[id]/bookings/[bookingId]/route"
 import * as cancelDay from "@/app/api/council/giveaways/[id]/cancel/route";
 import * as attendance from "@/app/api/council/giveaways/[id]/bookings/[bookingId]/route";
 import { expireGiveawayDepositHolds } from "@/lib/services/giveaway-deposit";
-import { recordAttendance } from "@/lib/services/record-attendance";
+import { recordAttendance } from "@/lib/services/giveaways/record-attendance";
 import { reconcilePayments, recoverOpenPayments } from "@/lib/payments/reconcile";
 import { holdMinutes } from "@/lib/reservations/policy";
 import { db } from "@/db/index";

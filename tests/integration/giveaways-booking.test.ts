@@ -8,8 +8,8 @@ import * as list from "@/app/api/giveaways/route";
 import * as one from "@/app/api/giveaways/[id]/route";
 import * as booking from "@/app/api/giveaways/[id]/bookings/[bookingId]/route";
 import * as calendar from "@/app/api/giveaways/[id]/bookings/[bookingId]/calendar.ics/route";
-import { bookGiveaway } from "@/lib/services/book-giveaway";
-import { cancelGiveawayBooking } from "@/lib/services/cancel-giveaway-booking";
+import { bookGiveaway } from "@/lib/services/giveaways/book-giveaway";
+import { cancelGiveawayBooking } from "@/lib/services/giveaways/cancel-giveaway-booking";
 import { authOptions } from "@/lib/auth/options";
 import { hashPassword } from "@/lib/auth/password";
 

@@ -240,7 +240,7 @@ describe("editing and the status machine", () => {
     const browse = await call(listings.GET as never, await request("/api/listings?limit=100"));
     expect(browse.json.items.map((i: { id: string }) => i.id)).not.toContain(id);
     expect((await act(id, "resume")).status).toBe(409);
-    const { expireListings } = await import("@/lib/services/expire-listings");
+    const { expireListings } = await import("@/lib/services/listings/expire-listings");
     expect(await expireListings()).toBeGreaterThanOrEqual(1);
     expect((await ctx.db("listings").where({ id }).first()).status).toBe("expired");
     // A later end date, then resume, puts it back on offer.

@@ -16,7 +16,7 @@ import * as browse from "@/app/api/listings/route";
 import * as listingDetail from "@/app/api/listings/[id]/route";
 import { authOptions } from "@/lib/auth/options";
 import { hashPassword } from "@/lib/auth/password";
-import { REPORTS_PER_DAY } from "@/lib/services/file-report";
+import { REPORTS_PER_DAY } from "@/lib/services/moderation/file-report";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 const p: Record<string, string> = {};

@@ -7,7 +7,7 @@ import { freshDb } from "../helpers/db";
 import { seedId } from "@/seeds/ids";
 import { councilDemand } from "@/lib/services/needs/council-demand";
 import { cellOf } from "@/lib/needs/grid";
-import type { CouncilContext } from "@/lib/services/council-access";
+import type { CouncilContext } from "@/lib/auth/council-access";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 const council: CouncilContext = { userId: seedId("user:council"), organisationId: seedId("org:council"), organisationName: "Fernhollow Town Council", isOwner: true };

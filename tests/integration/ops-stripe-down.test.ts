@@ -19,7 +19,7 @@ import { POST as cancel } from "@/app/api/reservations/[id]/cancel/route";
 import { POST as decline } from "@/app/api/reservations/[id]/decline/route";
 import { runPaymentActions, settlePayments } from "@/lib/payments/actions";
 import { DEFAULT_STRIPE_TIMEOUT_MS, resetStripe } from "@/lib/payments/stripe";
-import { expireHolds } from "@/lib/services/expire-holds";
+import { expireHolds } from "@/lib/services/reservations/expire-holds";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 let pay: PaymentsHarness;

@@ -10,7 +10,7 @@ import { createUser } from "../factories";
 import { createListing } from "../reservation-factories";
 import { TEST_CARDS, submitHostedPayment, validCard } from "@/lib/fakes/stripe/testing";
 import { POST as reserve } from "@/app/api/reservations/route";
-import { expireHolds, sendReservationReminders } from "@/lib/services/expire-holds";
+import { expireHolds, sendReservationReminders } from "@/lib/services/reservations/expire-holds";
 import { PICKUP_TIME_ZONE } from "@/lib/reservations/pickup-times";
 import { DEFAULT_HOLD_MINUTES, MIN_ANSWER_MINUTES, SUPPLIER_REPLY_HOURS } from "@/lib/reservations/policy";
 import { db } from "@/db/index";

@@ -8,7 +8,7 @@ import { createUser } from "../factories";
 import { createListing, listingQuantities } from "../reservation-factories";
 import { POST as reserve } from "@/app/api/reservations/route";
 import { POST as confirm } from "@/app/api/reservations/[id]/confirm/route";
-import { expireHolds, sendReservationReminders } from "@/lib/services/expire-holds";
+import { expireHolds, sendReservationReminders } from "@/lib/services/reservations/expire-holds";
 import { DEFAULT_HOLD_MINUTES, SUPPLIER_REPLY_HOURS } from "@/lib/reservations/policy";
 import { deliverOutbox } from "@/lib/mail/deliver-outbox";
 import { startSmtpFake, type SmtpFake } from "@/lib/fakes/smtp/server";

@@ -8,7 +8,7 @@ import { createListing, createReservationIn } from "../reservation-factories";
 import { GET as getMessages, POST as postMessage } from "@/app/api/reservations/[id]/messages/route";
 import { POST as review } from "@/app/api/reservations/[id]/review/route";
 import { ratingsFor } from "@/db/reviews";
-import { postReservationMessage } from "@/lib/services/post-reservation-message";
+import { postReservationMessage } from "@/lib/services/reservations/post-reservation-message";
 import { MESSAGE_LIMIT } from "@/lib/reservations/policy";
 import { db } from "@/db/index";
 

@@ -15,7 +15,7 @@ import { POST as cancel } from "@/app/api/reservations/[id]/cancel/route";
 import { POST as collect } from "@/app/api/reservations/[id]/collect/route";
 import { POST as noShow } from "@/app/api/reservations/[id]/no-show/route";
 import { POST as checkout } from "@/app/api/reservations/[id]/checkout/route";
-import { expireHolds } from "@/lib/services/expire-holds";
+import { expireHolds } from "@/lib/services/reservations/expire-holds";
 import { reconcilePayments } from "@/lib/payments/reconcile";
 import { db } from "@/db/index";
 import { deliverEvents } from "../helpers/webhook-events";

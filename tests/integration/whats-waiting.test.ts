@@ -4,7 +4,7 @@ import { freshDb } from "../helpers/db";
 import { createUser } from "../factories";
 import { createListing, createReservationIn } from "../reservation-factories";
 import { loadSessionUser } from "@/lib/auth/current-user";
-import { whatsWaiting } from "@/lib/services/whats-waiting";
+import { whatsWaiting } from "@/lib/services/accounts/get-whats-waiting";
 import { afterSignInPath } from "@/lib/auth/callback-url";
 
 const byId = async (id: string) => {

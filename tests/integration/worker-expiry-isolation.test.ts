@@ -8,7 +8,7 @@ import { startPayments, type PaymentsHarness } from "../helpers/payments";
 import { bookAs, createDayAs } from "../helpers/giveaways";
 import { createUser } from "../factories";
 import { createListing, createReservationIn, listingQuantities } from "../reservation-factories";
-import { expireHolds } from "@/lib/services/expire-holds";
+import { expireHolds } from "@/lib/services/reservations/expire-holds";
 import { expireGiveawayDepositHolds } from "@/lib/services/giveaway-deposit";
 import { db } from "@/db/index";
 

@@ -3,7 +3,7 @@ import { describe, expect, it } from "vitest";
 import { toCsv } from "@/lib/format/csv";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { addDays, localDate, wallTime, zonedToUtc } from "@/lib/time/zoned";
-import { bookingWindowState, cancelDeadline } from "@/lib/services/giveaway-view";
+import { bookingWindowState, cancelDeadline } from "@/lib/giveaways/view";
 
 describe("wall-clock times in a zone", () => {
   // Europe/London: GMT (UTC+0) in winter, BST (UTC+1) from the last Sunday of March (UK

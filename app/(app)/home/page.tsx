@@ -1,7 +1,7 @@
 import Link from "next/link";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
-import { whatsWaiting } from "@/lib/services/whats-waiting";
+import { whatsWaiting } from "@/lib/services/accounts/get-whats-waiting";
 import { formatLocal } from "@/lib/reservations/pickup-times";
 import { PageHeading } from "@/components/ui/empty-state";
 import { Panel } from "@/components/ui/panel";

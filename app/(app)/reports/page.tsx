@@ -1,8 +1,8 @@
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
 import { LISTING_ROLES } from "@/lib/auth/roles";
-import { diversionReport } from "@/lib/services/diversion-report";
-import { diversionScopeOf } from "@/lib/services/diversion-scope";
+import { diversionReport } from "@/lib/services/figures/report-diversion";
+import { diversionScopeOf } from "@/lib/figures/diversion-scope";
 import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { longDate } from "@/lib/time/zoned";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
 import { LISTING_ROLES } from "@/lib/auth/roles";
-import { listReservations } from "@/lib/services/list-reservations";
+import { listReservations } from "@/lib/services/reservations/list-reservations";
 import type { ReservationView } from "@/lib/reservations/view";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { ReservationCard } from "@/components/reservations/reservation-card";

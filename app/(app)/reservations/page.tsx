@@ -1,7 +1,7 @@
 import Link from "next/link";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
-import { listReservations } from "@/lib/services/list-reservations";
+import { listReservations } from "@/lib/services/reservations/list-reservations";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button-class";
 import { ArrivalNotice } from "@/components/reservations/arrival-notice";

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { currentUser } from "@/lib/auth/current-user";
-import { browseListings } from "@/lib/services/browse-listings";
-import { bedsStillNeed } from "@/lib/services/beds-still-need";
+import { browseListings } from "@/lib/services/listings/browse-listings";
+import { bedsStillNeed } from "@/lib/services/beds/list-beds-still-needing";
 import { browseParams, browseQuerySchema } from "@/lib/validation/listings";
 import { PageHeading } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";

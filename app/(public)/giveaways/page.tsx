@@ -1,7 +1,7 @@
 import Link from "next/link";
 import type { Metadata } from "next";
 import { currentUser } from "@/lib/auth/current-user";
-import { searchGiveaways } from "@/lib/services/search-giveaways";
+import { searchGiveaways } from "@/lib/services/giveaways/search-giveaways";
 import { listMyBookings } from "@/lib/services/giveaways/list-my-bookings";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { addDays, longDate, wallTime } from "@/lib/time/zoned";

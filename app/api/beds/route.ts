@@ -2,9 +2,9 @@ import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { createBedSchema } from "@/lib/validation/beds";
-import { createBed } from "@/lib/services/save-bed";
+import { createBed } from "@/lib/services/beds/save-bed";
 import { listBeds } from "@/lib/services/beds/list-beds";
-import { bedEstimate, toBedView } from "@/lib/services/bed-view";
+import { bedEstimate, toBedView } from "@/lib/beds/view";
 
 // GET /api/beds — my beds.
 export const GET = withAuth(async ({ user }) => {

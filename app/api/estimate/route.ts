@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { handle, readJson } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { estimateSchema } from "@/lib/validation/estimate";
-import { estimateBed } from "@/lib/services/estimate-bed";
+import { estimateBed } from "@/lib/services/beds/estimate-bed";
 
 // POST /api/estimate — what a bed needs: layer quantities, water, blend, timeline, cautions,
 // and with a plan (or a match) what it will cost.

@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { handle } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { giveawaySearchSchema } from "@/lib/validation/giveaways";
-import { searchGiveaways } from "@/lib/services/search-giveaways";
+import { searchGiveaways } from "@/lib/services/giveaways/search-giveaways";
 
 // GET /api/giveaways?lat=&lng=&radius_km= — upcoming council giveaway days; public points only.
 export const GET = handle(async ({ req }) => {

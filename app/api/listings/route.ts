@@ -3,9 +3,9 @@ import { handle, readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { LISTING_ROLES } from "@/lib/auth/roles";
 import { browseParams, browseQuerySchema, createListingSchema } from "@/lib/validation/listings";
-import { browseListings } from "@/lib/services/browse-listings";
-import { createListing } from "@/lib/services/create-listing";
-import { getListing } from "@/lib/services/get-listing";
+import { browseListings } from "@/lib/services/listings/browse-listings";
+import { createListing } from "@/lib/services/listings/create-listing";
+import { getListing } from "@/lib/services/listings/get-listing";
 import { requireVerifiedEmail } from "@/lib/auth/current-user";
 
 // GET /api/listings?lat=&lng=&radius_km=&material=&free=&q=&limit=&cursor= — what is on offer (public).

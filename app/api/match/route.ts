@@ -3,7 +3,7 @@ import { handle, readJson } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { requireUser } from "@/lib/auth/current-user";
 import { matchSchema } from "@/lib/validation/match";
-import { planPickups } from "@/lib/services/plan-pickups";
+import { planPickups } from "@/lib/services/match/plan-pickups";
 
 // POST /api/match — a pickup plan: which nearby listings cover the needs, how much from each,
 // in what order, in how many carloads. Public for ad-hoc needs; a saved bed needs its owner.

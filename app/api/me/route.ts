@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { profileSchema } from "@/lib/validation/auth";
-import { updateProfile } from "@/lib/services/update-profile";
+import { updateProfile } from "@/lib/services/accounts/update-profile";
 import { loadSessionUser } from "@/lib/auth/current-user";
 
 // GET /api/me — the signed-in person, with roles and organisation.

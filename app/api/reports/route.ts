@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { reportSchema } from "@/lib/validation/moderation";
-import { fileReport } from "@/lib/services/file-report";
+import { fileReport } from "@/lib/services/moderation/file-report";
 
 // POST /api/reports — anyone signed in reports a listing or a person to the moderators.
 export const POST = withAuth(async ({ req, user }) => {

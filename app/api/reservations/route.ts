@@ -2,8 +2,8 @@ import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
 import { idempotent } from "@/lib/api/idempotency";
 import { parseInput } from "@/lib/api/errors";
-import { reserveListings } from "@/lib/services/reserve-listing";
-import { getReservations, listReservations } from "@/lib/services/list-reservations";
+import { reserveListings } from "@/lib/services/reservations/reserve-listing";
+import { getReservations, listReservations } from "@/lib/services/reservations/list-reservations";
 import { reserveManySchema, reserveOneSchema } from "@/lib/validation/reservations";
 import { requireVerifiedEmail } from "@/lib/auth/current-user";
 

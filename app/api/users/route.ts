@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { handle, readJson } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { signUpSchema } from "@/lib/validation/auth";
-import { signUp } from "@/lib/services/sign-up";
+import { signUp } from "@/lib/services/accounts/sign-up";
 import { LIMITS, clientAddress, consume } from "@/lib/security/rate-limit";
 
 // POST /api/users — join. Always 202 with the same answer: whether the address already had

@@ -15,7 +15,7 @@ import { needAlertEmail, type AlertLine } from "@/lib/mail/templates/need-alerts
 import type { ListingUnit } from "@/lib/match/types";
 import { needsReaching, type AlertingListing, type ReachedNeed } from "@/lib/needs/reaching";
 import { DUE_NOW } from "@/migrations/20261208_020_open_needs";
-import { dayOf, resolveContext, type NeedsContext } from "./context";
+import { dayOf, resolveContext, type NeedsContext } from "@/lib/services/needs/context";
 import { parseQuality } from "@/lib/listings/quality";
 
 // When a listing is posted, restocked or comes into its dates, every open need it could

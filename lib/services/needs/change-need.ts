@@ -7,9 +7,9 @@ import { NEED_UNIT_LABEL, NEED_UNITS } from "@/lib/match/units";
 import { reachBand } from "@/lib/needs/reach";
 import { effectiveNeedStatus, type NeedView } from "@/lib/needs/view";
 import { neededByIssue, type UpdateNeedInput } from "@/lib/validation/needs";
-import { dayOf, resolveContext, type NeedsContext } from "./context";
-import { needViews } from "./list-needs";
-import { noticeListingsQuietly } from "./notice-listings";
+import { dayOf, resolveContext, type NeedsContext } from "@/lib/services/needs/context";
+import { needViews } from "@/lib/services/needs/list-needs";
+import { noticeListingsQuietly } from "@/lib/services/needs/notice-listings";
 
 const invalid = (field: string, message: string) => new ApiError("invalid_input", "Some fields need another look.", { [field]: message });
 

@@ -4,7 +4,7 @@ import { db } from "@/db/index";
 import { expireNeeds, moveNeedStatus, needsLinkedTo, reservationsCounting } from "@/db/needs";
 import type { ReservationRow } from "@/db/types";
 import { coverage, isMet } from "@/lib/needs/coverage";
-import { dayOf } from "./context";
+import { dayOf } from "@/lib/services/needs/context";
 
 /** Worker job: open needs whose date has passed close as expired. */
 export async function expireOpenNeeds(clock: () => Date = () => new Date(), q: Db = db()): Promise<number> {

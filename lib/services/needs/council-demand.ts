@@ -6,9 +6,9 @@ import { distanceKm } from "@/lib/match/geo";
 import { demandCells, demandSummary, MIN_PEOPLE, suggestGiveaway, SUGGESTED_MATERIALS, type DemandCell, type GiveawaySuggestion } from "@/lib/needs/demand";
 import { cellOf, MIN_CELL_AREA_KM2 } from "@/lib/needs/grid";
 import { DEFAULT_CENTER } from "@/lib/geo/default-center";
-import type { CouncilContext } from "@/lib/services/council-access";
-import { dayOf, resolveContext, type NeedsContext } from "./context";
-import { toDemandRow } from "./nearby-demand";
+import type { CouncilContext } from "@/lib/auth/council-access";
+import { dayOf, resolveContext, type NeedsContext } from "@/lib/services/needs/context";
+import { toDemandRow } from "@/lib/services/needs/nearby-demand";
 
 /** How far around the council's place the desk looks by default, km. */
 export const COUNCIL_DEMAND_RADIUS_KM = 25;

@@ -9,9 +9,9 @@ import { datesState, effectiveStatus, quantityLeft } from "@/lib/listings/status
 import type { ListingUnit } from "@/lib/match/types";
 import { amountToReserve } from "@/lib/needs/coverage";
 import type { NeedView } from "@/lib/needs/view";
-import { loadReserveOffer, type ReserveOffer } from "@/lib/services/load-reserve-offer";
-import { resolveContext, type NeedsContext } from "./context";
-import { needViews } from "./list-needs";
+import { loadReserveOffer, type ReserveOffer } from "@/lib/services/reservations/load-reserve-offer";
+import { resolveContext, type NeedsContext } from "@/lib/services/needs/context";
+import { needViews } from "@/lib/services/needs/list-needs";
 import { parseQuality } from "@/lib/listings/quality";
 
 /** An in-app notice: a listing that could serve one of my open needs (public facts about it only). */

@@ -5,7 +5,7 @@ import { notFound } from "@/lib/api/errors";
 import type { NeedRow } from "@/db/types";
 import { coverage } from "@/lib/needs/coverage";
 import { presentNeed, type NeedView } from "@/lib/needs/view";
-import { dayOf, resolveContext, type NeedsContext } from "./context";
+import { dayOf, resolveContext, type NeedsContext } from "@/lib/services/needs/context";
 
 /** Needs as their owner sees them: what reservations cover, the bed's name, how many alerts. */
 export async function needViews(rows: NeedRow[], q: Knex, now: Date): Promise<NeedView[]> {

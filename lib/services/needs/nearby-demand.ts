@@ -4,7 +4,7 @@ import type { MaterialCode } from "@/lib/calc/facts";
 import { demandRings, MIN_PEOPLE, PREVIEW_READ_KM, type DemandRing, type DemandRow } from "@/lib/needs/demand";
 import { cellOf } from "@/lib/needs/grid";
 import { consume, LIMITS } from "@/lib/security/rate-limit";
-import { dayOf, resolveContext, type NeedsContext } from "./context";
+import { dayOf, resolveContext, type NeedsContext } from "@/lib/services/needs/context";
 
 /** Past a cell's half-diagonal at both ends, a need counted between cell centres may lie this much further out, km. */
 const CELL_SLACK_KM = 3;

@@ -4,8 +4,8 @@ import { activeListingsAround } from "@/db/listings";
 import { insertAlerts } from "@/db/need-alerts";
 import type { NeedAlertRow, NeedRow } from "@/db/types";
 import { servingDistance } from "@/lib/needs/reaching";
-import { alertingListing } from "./alert-needs";
-import { resolveContext, type NeedsContext } from "./context";
+import { alertingListing } from "@/lib/services/needs/alert-needs";
+import { resolveContext, type NeedsContext } from "@/lib/services/needs/context";
 
 /** The nearest listings already on offer that a new need is shown at once: a product choice, enough to choose from. */
 export const LISTINGS_ON_OPENING = 20;

@@ -10,9 +10,9 @@ import { reachBand } from "@/lib/needs/reach";
 import type { NeedView } from "@/lib/needs/view";
 import { addDays } from "@/lib/time/zoned";
 import { neededByIssue, type OpenNeedInput } from "@/lib/validation/needs";
-import { dayOf, resolveContext, type NeedsContext } from "./context";
-import { needViews } from "./list-needs";
-import { noticeListingsQuietly } from "./notice-listings";
+import { dayOf, resolveContext, type NeedsContext } from "@/lib/services/needs/context";
+import { needViews } from "@/lib/services/needs/list-needs";
+import { noticeListingsQuietly } from "@/lib/services/needs/notice-listings";
 
 /** A need with no date of its own, and no bed day to borrow, runs this long (a product choice: a season's planning). */
 export const DEFAULT_NEED_DAYS = 56;

@@ -5,8 +5,8 @@ import type { ListingRow } from "@/db/types";
 import { appUrl } from "@/lib/app-url";
 import type { UnitSystem } from "@/lib/calc/units";
 import { needDigestEmail } from "@/lib/mail/templates/need-alerts";
-import { alertLine } from "./alert-needs";
-import { resolveContext, type NeedsContext } from "./context";
+import { alertLine } from "@/lib/services/needs/alert-needs";
+import { resolveContext, type NeedsContext } from "@/lib/services/needs/context";
 
 /** A person gets at most one digest in any this many hours (the "daily" of daily alerts). */
 export const DIGEST_EVERY_HOURS = 24;

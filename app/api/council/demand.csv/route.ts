@@ -3,7 +3,7 @@ import { parseInput } from "@/lib/api/errors";
 import { csvResponse } from "@/lib/format/csv";
 import { browseParams } from "@/lib/validation/listings";
 import { councilDemandQuerySchema } from "@/lib/validation/needs";
-import { councilOf } from "@/lib/services/council-access";
+import { councilOf } from "@/lib/auth/council-access";
 import { councilDemand, councilDemandCsv } from "@/lib/services/needs/council-demand";
 
 // GET /api/council/demand.csv — the demand map's cells for a spreadsheet or a GIS.

@@ -3,7 +3,7 @@ import { withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { browseParams } from "@/lib/validation/listings";
 import { councilDemandQuerySchema } from "@/lib/validation/needs";
-import { councilOf } from "@/lib/services/council-access";
+import { councilOf } from "@/lib/auth/council-access";
 import { councilDemand } from "@/lib/services/needs/council-demand";
 
 // GET /api/council/demand?material=&lat=&lng=&radius_km= — open needs by cell (at least 1 km²,

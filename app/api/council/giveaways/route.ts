@@ -2,9 +2,9 @@ import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { createGiveawaySchema } from "@/lib/validation/giveaways";
-import { councilOf } from "@/lib/services/council-access";
-import { createGiveaway } from "@/lib/services/create-giveaway";
-import { councilDays } from "@/lib/services/council-days";
+import { councilOf } from "@/lib/auth/council-access";
+import { createGiveaway } from "@/lib/services/giveaways/create-giveaway";
+import { councilDays } from "@/lib/services/giveaways/list-council-days";
 import { requireVerifiedEmail } from "@/lib/auth/current-user";
 
 // GET /api/council/giveaways — my council's days, newest first.

@@ -2,8 +2,8 @@ import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { inviteSchema } from "@/lib/validation/council";
-import { councilOf, councilOwnerOf } from "@/lib/services/council-access";
-import { inviteStaff, listInvites } from "@/lib/services/manage-council-staff";
+import { councilOf, councilOwnerOf } from "@/lib/auth/council-access";
+import { inviteStaff, listInvites } from "@/lib/services/council/manage-council-staff";
 
 // GET /api/council/invites — invitations still waiting for an answer.
 export const GET = withAuth(async ({ user }) => {

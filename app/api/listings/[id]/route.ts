@@ -4,8 +4,8 @@ import { parseInput } from "@/lib/api/errors";
 import { LISTING_ROLES } from "@/lib/auth/roles";
 import { optionalRequestUser } from "@/lib/auth/current-user";
 import { updateListingSchema } from "@/lib/validation/listings";
-import { getListing } from "@/lib/services/get-listing";
-import { updateListing } from "@/lib/services/update-listing";
+import { getListing } from "@/lib/services/listings/get-listing";
+import { updateListing } from "@/lib/services/listings/update-listing";
 
 type P = { id: string };
 

@@ -3,8 +3,8 @@ import { withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { LISTING_ROLES } from "@/lib/auth/roles";
 import { diversionQuerySchema } from "@/lib/validation/reports";
-import { diversionReport } from "@/lib/services/diversion-report";
-import { diversionScopeOf } from "@/lib/services/diversion-scope";
+import { diversionReport } from "@/lib/services/figures/report-diversion";
+import { diversionScopeOf } from "@/lib/figures/diversion-scope";
 
 // GET /api/reports/diversion?from=YYYY-MM&to=YYYY-MM — kg and m³ that left my (or my organisation's) hands.
 export const GET = withAuth(async ({ req, user }) => {

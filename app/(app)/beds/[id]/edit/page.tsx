@@ -2,7 +2,7 @@ import { notFound } from "next/navigation";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
 import { getBed } from "@/lib/services/beds/get-bed";
-import { toBedView } from "@/lib/services/bed-view";
+import { toBedView } from "@/lib/beds/view";
 import { PageHeading } from "@/components/ui/empty-state";
 import { PlanForm } from "@/components/planner/plan-form";
 import { valuesFromBed } from "@/components/planner/form-model";

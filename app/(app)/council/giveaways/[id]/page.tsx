@@ -2,7 +2,7 @@ import { formatMoney } from "@/lib/format/money";
 import Link from "next/link";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
-import { sheetForPage } from "@/lib/services/council-day-page";
+import { sheetForPage } from "@/lib/services/giveaways/get-sheet-for-page";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { longDate, readableDateTime } from "@/lib/time/zoned";
 import { PageHeading } from "@/components/ui/empty-state";

@@ -4,7 +4,7 @@ import { notFound } from "next/navigation";
 import { pageUser } from "@/lib/auth/page-guard";
 import { LISTING_ROLES } from "@/lib/auth/roles";
 import { getManagedListing } from "@/lib/services/listings/get-managed-listing";
-import { getListing } from "@/lib/services/get-listing";
+import { getListing } from "@/lib/services/listings/get-listing";
 import type { ManagedListingDetail } from "@/lib/listings/view";
 import { PageHeading } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";

@@ -2,7 +2,7 @@ import Link from "next/link";
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { pageUser } from "@/lib/auth/page-guard";
-import { loadReserveOffer } from "@/lib/services/load-reserve-offer";
+import { loadReserveOffer } from "@/lib/services/reservations/load-reserve-offer";
 import { pickupCautions } from "@/lib/reservations/cautions";
 import { quantityLabel } from "@/lib/reservations/labels";
 import { formatDay } from "@/lib/listings/format";

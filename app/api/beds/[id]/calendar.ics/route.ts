@@ -1,8 +1,8 @@
 import { withAuth } from "@/lib/api/handler";
 import { notFound } from "@/lib/api/errors";
 import { getBed } from "@/lib/services/beds/get-bed";
-import { bedEstimate, toBedView } from "@/lib/services/bed-view";
-import { bedCalendar } from "@/lib/services/bed-calendar";
+import { bedEstimate, toBedView } from "@/lib/beds/view";
+import { bedCalendar } from "@/lib/beds/calendar";
 import { appUrl } from "@/lib/app-url";
 
 // GET /api/beds/:id/calendar.ics — the bed's timeline for a calendar app.

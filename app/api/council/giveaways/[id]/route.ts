@@ -2,9 +2,9 @@ import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { updateGiveawaySchema } from "@/lib/validation/giveaways";
-import { councilOf } from "@/lib/services/council-access";
-import { daySheet } from "@/lib/services/giveaway-sheet";
-import { updateGiveaway } from "@/lib/services/update-giveaway";
+import { councilOf } from "@/lib/auth/council-access";
+import { daySheet } from "@/lib/services/giveaways/get-day-sheet";
+import { updateGiveaway } from "@/lib/services/giveaways/update-giveaway";
 
 // GET /api/council/giveaways/:id — the day with everyone booked on it (the day's sheet).
 export const GET = withAuth<{ id: string }>(async ({ params, user }) => {

@@ -3,7 +3,7 @@ import { readJson, withAuth } from "@/lib/api/handler";
 import { idempotent } from "@/lib/api/idempotency";
 import { parseInput } from "@/lib/api/errors";
 import { bookingSchema } from "@/lib/validation/giveaways";
-import { bookGiveaway } from "@/lib/services/book-giveaway";
+import { bookGiveaway } from "@/lib/services/giveaways/book-giveaway";
 import { requireVerifiedEmail } from "@/lib/auth/current-user";
 
 // POST /api/giveaways/:id/bookings — book a slot for my household (any signed-in account).

@@ -3,10 +3,10 @@ import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { LISTING_ROLES } from "@/lib/auth/roles";
 import { addPhotosSchema, removePhotoSchema, reorderPhotosSchema } from "@/lib/validation/listings";
-import { addListingPhotos } from "@/lib/services/add-listing-photos";
-import { removeListingPhoto } from "@/lib/services/remove-listing-photo";
-import { reorderListingPhotos } from "@/lib/services/reorder-listing-photos";
-import { getListing } from "@/lib/services/get-listing";
+import { addListingPhotos } from "@/lib/services/listings/add-listing-photos";
+import { removeListingPhoto } from "@/lib/services/listings/remove-listing-photo";
+import { reorderListingPhotos } from "@/lib/services/listings/reorder-listing-photos";
+import { getListing } from "@/lib/services/listings/get-listing";
 import type { ManagedListingDetail } from "@/lib/listings/view";
 
 type P = { id: string };

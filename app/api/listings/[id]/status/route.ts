@@ -3,8 +3,8 @@ import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { LISTING_ROLES } from "@/lib/auth/roles";
 import { listingStatusSchema } from "@/lib/validation/listings";
-import { changeListingStatus } from "@/lib/services/change-listing-status";
-import { getListing } from "@/lib/services/get-listing";
+import { changeListingStatus } from "@/lib/services/listings/change-listing-status";
+import { getListing } from "@/lib/services/listings/get-listing";
 
 // POST /api/listings/<id>/status { action: publish | pause | resume | archive }
 export const POST = withAuth<{ id: string }>(async ({ req, params, user }) => {

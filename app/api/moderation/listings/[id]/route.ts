@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { listingModerationSchema } from "@/lib/validation/moderation";
-import { moderateListing } from "@/lib/services/moderate-account";
+import { moderateListing } from "@/lib/services/moderation/moderate-account";
 
 // POST /api/moderation/listings/:id — hide a listing from browse and match, or show it again.
 export const POST = withAuth<{ id: string }>(async ({ req, params, user }) => {

@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
-import { reviewReservation } from "@/lib/services/review-reservation";
+import { reviewReservation } from "@/lib/services/reservations/review-reservation";
 import { reviewSchema } from "@/lib/validation/reservations";
 
 // POST /api/reservations/:id/review — after collection, rate the other side once (1–5 and a comment).

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
-import { sheetForPage } from "@/lib/services/council-day-page";
+import { sheetForPage } from "@/lib/services/giveaways/get-sheet-for-page";
 import { localDate, longDate } from "@/lib/time/zoned";
 import { Notice } from "@/components/ui/notice";
 import { CheckInList } from "@/components/giveaways/check-in-list";

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
-import { sheetForPage } from "@/lib/services/council-day-page";
+import { sheetForPage } from "@/lib/services/giveaways/get-sheet-for-page";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { longDate, wallTime } from "@/lib/time/zoned";
 import { buttonClass } from "@/components/ui/button-class";

@@ -1,7 +1,7 @@
 import { withAuth } from "@/lib/api/handler";
 import { csvResponse } from "@/lib/format/csv";
-import { councilOf } from "@/lib/services/council-access";
-import { daySheet, daySheetCsv } from "@/lib/services/giveaway-sheet";
+import { councilOf } from "@/lib/auth/council-access";
+import { daySheet, daySheetCsv } from "@/lib/services/giveaways/get-day-sheet";
 
 // GET /api/council/giveaways/:id/sheet.csv — the day's sheet for a spreadsheet.
 export const GET = withAuth<{ id: string }>(async ({ params, user }) => {

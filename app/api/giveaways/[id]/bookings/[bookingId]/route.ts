@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { withAuth } from "@/lib/api/handler";
 import { idempotent } from "@/lib/api/idempotency";
-import { cancelGiveawayBooking } from "@/lib/services/cancel-giveaway-booking";
+import { cancelGiveawayBooking } from "@/lib/services/giveaways/cancel-giveaway-booking";
 
 // DELETE /api/giveaways/:id/bookings/:bookingId — cancel my booking, up to the day's cut-off
 // (a deposit hold is released). Honours an Idempotency-Key.

@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { closeReportSchema } from "@/lib/validation/moderation";
-import { closeReport } from "@/lib/services/close-report";
+import { closeReport } from "@/lib/services/moderation/close-report";
 
 // POST /api/moderation/reports/:id/close — close with a note; the reporter gets the outcome by e-mail.
 export const POST = withAuth<{ id: string }>(async ({ req, params, user }) => {

@@ -3,8 +3,8 @@ import { readJson, withAuth } from "@/lib/api/handler";
 import { idempotent } from "@/lib/api/idempotency";
 import { parseInput } from "@/lib/api/errors";
 import { attendanceSchema } from "@/lib/validation/giveaways";
-import { councilOf } from "@/lib/services/council-access";
-import { recordAttendance } from "@/lib/services/record-attendance";
+import { councilOf } from "@/lib/auth/council-access";
+import { recordAttendance } from "@/lib/services/giveaways/record-attendance";
 
 // PATCH /api/council/giveaways/:id/bookings/:bookingId — check a household in (or undo, or mark a no-show).
 // A deposit is released or kept by it, so it honours an Idempotency-Key.

@@ -2,8 +2,8 @@ import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { updateSlotSchema } from "@/lib/validation/giveaways";
-import { councilOf } from "@/lib/services/council-access";
-import { removeGiveawaySlot, resizeGiveawaySlot } from "@/lib/services/change-giveaway-slots";
+import { councilOf } from "@/lib/auth/council-access";
+import { removeGiveawaySlot, resizeGiveawaySlot } from "@/lib/services/giveaways/change-giveaway-slots";
 
 type P = { id: string; slotId: string };
 

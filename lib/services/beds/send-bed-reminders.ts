@@ -3,7 +3,7 @@ import { enqueueEmail } from "@/db/outbox";
 import { db } from "@/db/index";
 import { appUrl } from "@/lib/app-url";
 import type { TimelineEvent } from "@/lib/calc/timeline";
-import { bedEstimate, toBedView, type BedView } from "./bed-view";
+import { bedEstimate, toBedView, type BedView } from "@/lib/beds/view";
 import { bedReminderEmail } from "@/lib/mail/templates/bed-reminder";
 
 /**

@@ -7,8 +7,8 @@ import type { DepositStatus, GiveawayBookingRow } from "@/db/types";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { runPaymentActions } from "@/lib/payments/actions";
 import { readableDateTime } from "@/lib/time/zoned";
-import type { CouncilContext } from "./council-access";
-import { depositAfterReturn, settleBookingDeposit } from "./giveaway-deposit";
+import type { CouncilContext } from "@/lib/auth/council-access";
+import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaway-deposit";
 
 type Attendance = "checked_in" | "booked" | "no_show";
 

@@ -2,8 +2,8 @@ import "server-only";
 import { notFound } from "next/navigation";
 import type { SessionUser } from "@/lib/auth/current-user";
 import { ApiError } from "@/lib/api/errors";
-import { councilOf } from "./council-access";
-import { daySheet, type DaySheet } from "./giveaway-sheet";
+import { councilOf } from "@/lib/auth/council-access";
+import { daySheet, type DaySheet } from "@/lib/services/giveaways/get-day-sheet";
 
 /** A staff page's day: another council's day, or none, is the not-found page. */
 export async function sheetForPage(user: SessionUser, dayId: string): Promise<DaySheet> {

@@ -7,8 +7,8 @@ import type { LatLng, Need } from "@/lib/match/types";
 import type { EstimateInput } from "@/lib/validation/estimate";
 import type { UnitSystem } from "@/lib/calc/units";
 import { DEFAULT_RADIUS_KM } from "@/lib/match/defaults";
-import { bedEstimate, type BedView } from "./bed-view";
-import { planPickups } from "./plan-pickups";
+import { bedEstimate, type BedView } from "@/lib/beds/view";
+import { planPickups } from "@/lib/services/match/plan-pickups";
 
 export interface PricedEstimate extends EstimateResult {
   /** What the bed will cost with the plan given or found: free, deposits held, paid. */

@@ -3,8 +3,8 @@ import { findOrgDay, sheetFor, slotsOf, type SheetRow } from "@/db/giveaways";
 import { notFound } from "@/lib/api/errors";
 import { toCsv } from "@/lib/format/csv";
 import { wallTime } from "@/lib/time/zoned";
-import { staffDayView, type StaffDayView } from "./giveaway-view";
-import type { CouncilContext } from "./council-access";
+import { staffDayView, type StaffDayView } from "@/lib/giveaways/view";
+import type { CouncilContext } from "@/lib/auth/council-access";
 
 export interface DaySheet {
   day: StaffDayView;

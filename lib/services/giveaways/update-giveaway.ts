@@ -8,9 +8,9 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { wallTime, zonedToUtc } from "@/lib/time/zoned";
 import { giveawayQuantityIssue, type UpdateGiveawayInput } from "@/lib/validation/giveaways";
-import { staffDayView } from "./giveaway-view";
-import { assertNotPast } from "./create-giveaway";
-import type { CouncilContext } from "./council-access";
+import { staffDayView } from "@/lib/giveaways/view";
+import { assertNotPast } from "@/lib/services/giveaways/create-giveaway";
+import type { CouncilContext } from "@/lib/auth/council-access";
 
 /** Once anyone has booked, these would change what they booked, so they stay as they are. */
 const FIXED_ONCE_BOOKED = ["date", "time_zone", "material", "unit", "bag_m3"] as const;

@@ -10,8 +10,8 @@ import { appUrl } from "@/lib/app-url";
 import { bookingParts, giveawayBookingCancelledEmail } from "@/lib/mail/templates/giveaway";
 import { readableDateTime } from "@/lib/time/zoned";
 import { runPaymentActions } from "@/lib/payments/actions";
-import { cancelDeadline } from "./giveaway-view";
-import { depositAfterReturn, settleBookingDeposit } from "./giveaway-deposit";
+import { cancelDeadline } from "@/lib/giveaways/view";
+import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaway-deposit";
 import { formatMoney } from "@/lib/format/money";
 
 /** A household cancels its own booking, up to the day's cut-off before the slot; any deposit hold is released. */

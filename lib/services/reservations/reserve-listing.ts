@@ -18,8 +18,8 @@ import { nextOccurrence } from "@/lib/reservations/pickup-times";
 import { cultureOptions, defaultFulfilment, type Fulfilment } from "@/lib/reservations/culture-orders";
 import { findShipping } from "@/db/grower-shipping";
 import { packOf, wholePackProblem } from "@/lib/listings/packs";
-import { confirmReservation, pickupTimes } from "./reservation-steps";
-import { shippingView } from "./grower-shipping";
+import { confirmReservation, pickupTimes } from "@/lib/services/reservation-steps";
+import { shippingView } from "@/lib/services/grower-shipping";
 import { formatMoney } from "@/lib/format/money";
 import { parseQuality } from "@/lib/listings/quality";
 

@@ -17,8 +17,8 @@ import { holdMinutes } from "@/lib/reservations/policy";
 import { bookingParts, giveawayBookedEmail } from "@/lib/mail/templates/giveaway";
 import { readableDateTime } from "@/lib/time/zoned";
 import { giveawayQuantityIssue } from "@/lib/validation/giveaways";
-import { bookingWindowState, cancelDeadline } from "./giveaway-view";
-import { calendarToken } from "./giveaway-calendar";
+import { bookingWindowState, cancelDeadline } from "@/lib/giveaways/view";
+import { calendarToken } from "@/lib/giveaways/calendar";
 import { formatMoney } from "@/lib/format/money";
 
 // A household is one Duffbank account: one live booking per account per day, enforced by a

@@ -8,11 +8,11 @@ import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
 import { bookingParts, giveawayDayCancelledEmail } from "@/lib/mail/templates/giveaway";
-import { staffDayView } from "./giveaway-view";
+import { staffDayView } from "@/lib/giveaways/view";
 import { runPaymentActions } from "@/lib/payments/actions";
 import type { DepositStatus } from "@/db/types";
-import { depositAfterReturn, settleBookingDeposit } from "./giveaway-deposit";
-import type { CouncilContext } from "./council-access";
+import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaway-deposit";
+import type { CouncilContext } from "@/lib/auth/council-access";
 import { formatMoney } from "@/lib/format/money";
 
 /** Calls a day off: every live booking is cancelled, its deposit released, its household e-mailed — all or nothing. */

@@ -5,7 +5,7 @@ import { databaseSource, pricedListings } from "@/db/match-candidates";
 import { bedCosts, type PricedPickup } from "@/lib/match/costs";
 import { searchPlan } from "@/lib/match/search";
 import type { LatLng, Need } from "@/lib/match/types";
-import { bedEstimate, toBedView } from "@/lib/services/bed-view";
+import { bedEstimate, toBedView } from "@/lib/beds/view";
 import type { MatchInput } from "@/lib/validation/match";
 import { type BedRow, findBed } from "@/db/beds";
 import { pickupWindowsOf } from "@/db/reservations";

@@ -5,10 +5,10 @@ import { deleteEmptySlot, findSlot, insertSlots, resizeSlot, slotsOf } from "@/d
 import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import type { SlotInput } from "@/lib/validation/giveaways";
-import { slotView, type SlotView } from "./giveaway-view";
-import { slotInstants } from "./create-giveaway";
-import { scheduledOrgDay } from "./update-giveaway";
-import type { CouncilContext } from "./council-access";
+import { slotView, type SlotView } from "@/lib/giveaways/view";
+import { slotInstants } from "@/lib/services/giveaways/create-giveaway";
+import { scheduledOrgDay } from "@/lib/services/giveaways/update-giveaway";
+import type { CouncilContext } from "@/lib/auth/council-access";
 
 export async function addGiveawaySlots(ctx: CouncilContext, dayId: string, slots: SlotInput[]): Promise<SlotView[]> {
   return writeTransaction(db(), async (trx) => {

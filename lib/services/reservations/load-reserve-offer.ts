@@ -8,7 +8,7 @@ import { answerByFor, pickupChoices } from "@/lib/reservations/pickup-choices";
 import { reservableQuantity } from "@/lib/reservations/labels";
 import { packOf } from "@/lib/listings/packs";
 import { datesState, effectiveStatus } from "@/lib/listings/status";
-import { cultureOffer } from "./culture-offer";
+import { cultureOffer } from "@/lib/services/growers/get-culture-offer";
 import { depositFor } from "@/lib/payments/money";
 import { parseQuality } from "@/lib/listings/quality";
 

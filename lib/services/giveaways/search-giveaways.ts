@@ -4,7 +4,7 @@ import { distanceKm } from "@/lib/match/geo";
 import { slotsOf, upcomingDays } from "@/db/giveaways";
 import { organisationNames } from "@/db/listings";
 import { addDays, localDate } from "@/lib/time/zoned";
-import { publicDayView, type PublicDayView } from "./giveaway-view";
+import { publicDayView, type PublicDayView } from "@/lib/giveaways/view";
 
 /** Upcoming giveaway days, nearest first within each date when a point is given. */
 export async function searchGiveaways(

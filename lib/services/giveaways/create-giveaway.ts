@@ -7,8 +7,8 @@ import { ApiError } from "@/lib/api/errors";
 import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { addDays, localDate, zonedToUtc } from "@/lib/time/zoned";
 import type { CreateGiveawayInput, SlotInput } from "@/lib/validation/giveaways";
-import { staffDayView } from "./giveaway-view";
-import type { CouncilContext } from "./council-access";
+import { staffDayView } from "@/lib/giveaways/view";
+import type { CouncilContext } from "@/lib/auth/council-access";
 
 /** Booking closes at this hour the evening before, unless the day says otherwise (common practice, no source). */
 export const DEFAULT_CLOSE_TIME = "18:00";

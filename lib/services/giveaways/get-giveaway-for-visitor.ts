@@ -5,8 +5,8 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
 import { depositOfBooking } from "@/db/payments";
 import { openCheckout } from "@/lib/payments/checkout";
-import { cancelDeadline, publicDayView, type PublicDayView } from "./giveaway-view";
-import { giveawayCalendar, validCalendarToken } from "./giveaway-calendar";
+import { cancelDeadline, publicDayView, type PublicDayView } from "@/lib/giveaways/view";
+import { giveawayCalendar, validCalendarToken } from "@/lib/giveaways/calendar";
 
 export interface VisitorBooking {
   id: string;

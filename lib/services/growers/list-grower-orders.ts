@@ -2,8 +2,8 @@ import "server-only";
 import { db } from "@/db/index";
 import { nextPostingDay } from "@/lib/reservations/culture-orders";
 import type { ReservationView } from "@/lib/reservations/view";
-import { growerShipping, type ShippingView } from "./grower-shipping";
-import { getReservations } from "./list-reservations";
+import { growerShipping, type ShippingView } from "@/lib/services/grower-shipping";
+import { getReservations } from "@/lib/services/reservations/list-reservations";
 
 // The grower's open orders: live-culture reservations on their own listings that still need
 // something from them or the post. An unpaid hold is not an order yet, so it is left out.

@@ -1,7 +1,7 @@
 import "server-only";
 import { listOrgDays, slotsOf } from "@/db/giveaways";
-import { staffDayView, type StaffDayView } from "./giveaway-view";
-import type { CouncilContext } from "./council-access";
+import { staffDayView, type StaffDayView } from "@/lib/giveaways/view";
+import type { CouncilContext } from "@/lib/auth/council-access";
 
 /** Every day of the council, newest first, with its slots and how full they are. */
 export async function councilDays(ctx: CouncilContext): Promise<StaffDayView[]> {

@@ -4,7 +4,7 @@ import { findBed, insertBed, updateBed, type BedWrite } from "@/db/beds";
 import { notFound } from "@/lib/api/errors";
 import { polygonArea, polygonCentroid, rectangleArea } from "@/lib/calc/area";
 import type { CreateBedInput, UpdateBedInput } from "@/lib/validation/beds";
-import { toBedView, type BedShape, type BedView } from "./bed-view";
+import { toBedView, type BedShape, type BedView } from "@/lib/beds/view";
 
 function shapeColumns(shape: BedShape, location: { lat: number; lng: number } | null | undefined): Pick<BedWrite, "shape" | "area_m2" | "lat" | "lng"> {
   const area = "polygon" in shape ? polygonArea(shape.polygon) : rectangleArea(shape.length_m, shape.width_m);

@@ -12,7 +12,7 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
 import { councilInviteEmail } from "@/lib/mail/templates/council-invite";
 import { readableDateTime, DEFAULT_TIME_ZONE } from "@/lib/time/zoned";
-import type { CouncilContext } from "./council-access";
+import type { CouncilContext } from "@/lib/auth/council-access";
 
 /** An invitation link works for a week (common practice, no source). */
 export const INVITE_TTL_DAYS = 7;
