@@ -59,6 +59,25 @@ const pureCore = {
   },
 };
 
+// Components run in the browser too: they may name a service's response type, never call its code.
+const componentsNoServices = {
+  files: ["components/**"],
+  rules: {
+    "@typescript-eslint/no-restricted-imports": [
+      "error",
+      {
+        patterns: [
+          {
+            group: ["@/lib/services/**"],
+            allowTypeImports: true,
+            message: "Components take data from pages and call the API; views and pure helpers live in lib/<domain>.",
+          },
+        ],
+      },
+    ],
+  },
+};
+
 const config = [
   ...next,
   { ignores: [".next/**", "node_modules/**", "test-results/**", "public/**"] },
@@ -70,6 +89,7 @@ const config = [
   },
   layers,
   pureCore,
+  componentsNoServices,
 ];
 
 export default config;
