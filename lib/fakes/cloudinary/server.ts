@@ -12,6 +12,7 @@ import { DerivedCache, handleDelivery } from "./delivery";
 import type { SignatureAlgorithm } from "./signature";
 import { AssetStore, type StoredAsset } from "./store";
 import { handleDestroy, handleUpload, sendError, sendJson, type UploadContext } from "./upload";
+import { listenOn } from "../listen";
 
 export interface CloudinaryFakeOptions {
   /** 0 picks a free port. */
@@ -144,14 +145,7 @@ export async function startCloudinaryFake(opts: CloudinaryFakeOptions = {}): Pro
     sendError(res, 404, "Not found");
   }
 
-  await new Promise<void>((resolve, reject) => {
-    server.once("error", reject);
-    server.listen(opts.port ?? 0, host, () => {
-      server.off("error", reject);
-      resolve();
-    });
-  });
-  const port = (server.address() as AddressInfo).port;
+  const port = await listenOn(server, opts.port ?? 0, host);
   baseUrl = `http://${host}:${port}`;
 
   return {

@@ -8,6 +8,7 @@ import http from "node:http";
 import type { AddressInfo } from "node:net";
 import { gazetteerEntries, type GazetteerEntry } from "@/seeds/gazetteer";
 import { comparePlaces, placeMatches } from "@/lib/geo/place-terms";
+import { listenOn } from "../listen";
 
 export interface GeocoderFake {
   port: number;
@@ -65,8 +66,7 @@ export async function startGeocoderFake(opts: { port?: number; host?: string; en
     }
     send(404, { message: "not found" });
   });
-  await new Promise<void>((resolve) => server.listen(opts.port ?? 0, opts.host ?? "127.0.0.1", resolve));
-  const port = (server.address() as AddressInfo).port;
+  const port = await listenOn(server, opts.port ?? 0, opts.host ?? "127.0.0.1");
   return {
     port,
     url: `http://${opts.host ?? "127.0.0.1"}:${port}`,

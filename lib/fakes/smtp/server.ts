@@ -3,6 +3,7 @@ import type { AddressInfo } from "node:net";
 import { SMTPServer } from "smtp-server";
 import { simpleParser } from "mailparser";
 import { renderInbox, renderMessage } from "./inbox-page";
+import { listenOn } from "../listen";
 
 // A local SMTP server that keeps every message it is given, and a small HTTP inbox to read
 // them: an HTML page for people and JSON for tests. Messages live in memory for the life of
@@ -97,11 +98,7 @@ export async function startSmtpFake(opts: SmtpFakeOptions = {}): Promise<SmtpFak
     }
     res.writeHead(404, { "content-type": "text/plain" }).end("Not found");
   });
-  await new Promise<void>((resolve, reject) => {
-    web.once("error", reject);
-    web.listen(opts.httpPort ?? 0, host, () => resolve());
-  });
-  const httpPort = (web.address() as AddressInfo).port;
+  const httpPort = await listenOn(web, opts.httpPort ?? 0, host);
 
   return {
     smtpPort,

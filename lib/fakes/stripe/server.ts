@@ -11,6 +11,7 @@ import type { Ops } from "./payments";
 import { createState, loadState, saveState } from "./state";
 import type { FakeStripeState, RequestInfo } from "./types";
 import { WebhookDispatcher, type RetrySchedule } from "./webhooks";
+import { listenOn } from "../listen";
 
 export interface StripeFakeOptions {
   /** 0 picks a free port. */
@@ -161,14 +162,7 @@ export async function startStripeFake(opts: StripeFakeOptions = {}): Promise<Str
       else res.destroy();
     });
   });
-  await new Promise<void>((resolve, reject) => {
-    server.once("error", reject);
-    server.listen(opts.port ?? 0, host, () => {
-      server.off("error", reject);
-      resolve();
-    });
-  });
-  const port = (server.address() as AddressInfo).port;
+  const port = await listenOn(server, opts.port ?? 0, host);
   const url = `http://${host}:${port}`;
   publicBaseUrl = (publicBaseUrl || url).replace(/\/$/, "");
   const timer = setInterval(sweep, SWEEP_INTERVAL_MS);
