@@ -1,7 +1,7 @@
 // How one listing stands against what a bed still needs, in the listing's own units:
 // "covers 6 of the 12 bags Plot 4 still needs". Pure, so the card and the lanes agree.
 import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
-import type { UnitSystem } from "@/lib/calc/units";
+import { WHOLE_UNITS, type UnitSystem } from "@/lib/calc/units";
 import { formatListingQuantity } from "@/lib/listings/format";
 import { needPerListingUnit, unitContent } from "@/lib/match/units";
 import type { ListingUnit, NeedUnit } from "@/lib/match/types";
@@ -21,7 +21,6 @@ export interface FitNeed {
   quantity: number;
 }
 
-const WHOLE = new Set<ListingUnit>(["sheets", "bags", "bales"]);
 
 /** The need in the listing's units, and how much of that the listing has; null when they cannot be compared. */
 export function fitOf(l: FitListing, need: FitNeed): { needed: number; covered: number } | null {
@@ -29,7 +28,7 @@ export function fitOf(l: FitListing, need: FitNeed): { needed: number; covered: 
   const per = needPerListingUnit({ material: l.material, unit: l.unit, unit_size: l.unit_size ?? null, unit_mass_kg: l.unit_mass_kg ?? null }, need.unit);
   if (!per) return null;
   const raw = need.quantity / per;
-  const needed = WHOLE.has(l.unit) ? Math.ceil(raw - 1e-9) : Math.round(raw * 10) / 10;
+  const needed = WHOLE_UNITS.has(l.unit) ? Math.ceil(raw - 1e-9) : Math.round(raw * 10) / 10;
   return { needed, covered: Math.min(needed, l.quantity_available) };
 }
 

@@ -4,15 +4,9 @@
 // the converted body, so form and route check exactly the same rules.
 import type { MaterialCode } from "@/lib/calc/facts";
 import { LITRE_M3 } from "@/lib/calc/facts";
-import { ft2ToM2, kgToLb, lbToKg, lToUsGal, m2ToFt2, m3ToFt3, m3ToYd3, usGalToL, yd3ToM3, type UnitSystem } from "@/lib/calc/units";
+import { ft2ToM2, kgToLb, lbToKg, lToUsGal, m2ToFt2, m3ToFt3, m3ToYd3, usGalToL, yd3ToM3, type UnitSystem, WHOLE_UNITS, type ListingUnit } from "@/lib/calc/units";
 import { FOOT_M } from "@/lib/calc/facts";
-import {
-  COUNTED_UNITS,
-  defaultUnitSize,
-  HERBICIDE_MATERIALS,
-  type ListingUnit,
-  type UploadedPhoto,
-} from "@/lib/validation/listings";
+import { defaultUnitSize, HERBICIDE_MATERIALS, type UploadedPhoto } from "@/lib/validation/listings";
 
 export interface WindowValues {
   kind: "weekly" | "dated";
@@ -118,7 +112,7 @@ function qualityBody(material: MaterialCode, q: ListingFormState["quality"]) {
 
 /** Form state → the API body (SI units, cents). Numbers that do not parse become NaN for the schema to name. */
 export function toBody(v: ListingFormState, system: UnitSystem) {
-  const counted = COUNTED_UNITS.includes(v.unit);
+  const counted = WHOLE_UNITS.has(v.unit);
   const size = numberOrNull(v.unit_size);
   const mass = numberOrNull(v.unit_mass_kg);
   const max = numberOrNull(v.max_per_reservation);

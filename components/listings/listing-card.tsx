@@ -1,9 +1,8 @@
 import { formatMoney } from "@/lib/format/money";
 import Link from "next/link";
-import type { UnitSystem } from "@/lib/calc/units";
+import type { UnitSystem, ListingUnit } from "@/lib/calc/units";
 import { formatDay, formatListingQuantity, materialName } from "@/lib/listings/format";
 import { formatDistance } from "@/lib/format/quantity";
-import type { ListingUnit } from "@/lib/validation/listings";
 import type { MaterialCode } from "@/lib/calc/facts";
 import { TrustMarks } from "./trust-marks";
 import { UnitDrawing } from "./unit-drawing";

@@ -15,9 +15,8 @@ import {
 } from "@tanstack/react-table";
 import { useMemo } from "react";
 import type { ListingStatus } from "@/lib/listings/status";
-import type { UnitSystem } from "@/lib/calc/units";
+import type { UnitSystem, ListingUnit } from "@/lib/calc/units";
 import { formatListingQuantity, materialName, STATUS_LABELS } from "@/lib/listings/format";
-import type { ListingUnit } from "@/lib/validation/listings";
 import { StatusActions } from "./status-actions";
 import { StatusBadge } from "./status-badge";
 import { formatLocal } from "@/lib/reservations/pickup-times";

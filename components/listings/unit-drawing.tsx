@@ -1,5 +1,5 @@
+import type { ListingUnit } from "@/lib/calc/units";
 import type { MaterialCode } from "@/lib/calc/facts";
-import type { ListingUnit } from "@/lib/validation/listings";
 import { MATERIAL_COLOURS, PALETTE } from "@/components/ui/palette";
 
 // A row of the things a listing comes in (bags, bales, sheets, a tub, a heap), as many as the

@@ -1,15 +1,15 @@
 import { MATERIALS, type MaterialCode } from "./facts";
-import { handedVolumeOf, massOf, type MaterialUnit } from "./mass";
+import { handedVolumeOf, massOf } from "./mass";
+import type { ListingUnit } from "./units";
 import { assertPositiveFinite } from "./numbers";
 
-export type DiversionUnit = MaterialUnit;
 
 /**
  * Kilograms of material put to use in a bed instead of going to landfill or a burn pile,
  * through the one mass function (lib/calc/mass.ts). `unitSize` is the size of one countable
  * unit: m² per sheet, m³ per bag or bale; `unitMassKg` a bag's or bale's stated weight.
  */
-export function divertedKg(material: MaterialCode, quantity: number, unit: DiversionUnit, unitSize?: number, unitMassKg?: number): number {
+export function divertedKg(material: MaterialCode, quantity: number, unit: ListingUnit, unitSize?: number, unitMassKg?: number): number {
   if (unitSize !== undefined) assertPositiveFinite("unitSize", unitSize);
   return massOf(material, quantity, unit, { unit_size: unitSize, unit_mass_kg: unitMassKg });
 }
@@ -19,7 +19,7 @@ export function divertedKg(material: MaterialCode, quantity: number, unit: Diver
  * default size); what is counted by weight or area becomes a loose volume through the
  * material's bulk density, the way waste audits convert weight to volume.
  */
-export function divertedM3(material: MaterialCode, quantity: number, unit: DiversionUnit, unitSize?: number, unitMassKg?: number): number {
+export function divertedM3(material: MaterialCode, quantity: number, unit: ListingUnit, unitSize?: number, unitMassKg?: number): number {
   if (unitSize !== undefined) assertPositiveFinite("unitSize", unitSize);
   if (unit === "kg" || unit === "m2" || unit === "sheets") return massOf(material, quantity, unit, { unit_size: unitSize }) / MATERIALS[material].bulk_density_kg_m3;
   return handedVolumeOf(material, quantity, unit, { unit_size: unitSize, unit_mass_kg: unitMassKg });
@@ -29,7 +29,7 @@ export function divertedM3(material: MaterialCode, quantity: number, unit: Diver
 export interface DiversionRecord {
   material: MaterialCode;
   quantity: number;
-  unit: DiversionUnit;
+  unit: ListingUnit;
   unitSize?: number;
   /** A bag's or bale's stated weight, kg. */
   unitMassKg?: number;

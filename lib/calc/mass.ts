@@ -1,4 +1,5 @@
 // How much one unit of a material is: its mass, the ground or volume it covers on a bed,
+import type { ListingUnit } from "./units";
 // and the room it takes when handed over. The one answer to "how many kg is N of this unit
 // of this material": the estimate, matching, the diversion reports and the listing pages
 // all ask here, so a cubic metre of leaves weighs the same on every screen.
@@ -14,7 +15,6 @@ import {
 import { assertNonNegativeFinite } from "./numbers";
 
 /** Every unit a quantity of material is counted in, by a listing, a need or a giveaway day. */
-export type MaterialUnit = "m2" | "m3" | "kg" | "sheets" | "bags" | "bales";
 
 /** What a supplier says of one sheet, bag or bale; either may be unknown. */
 export interface UnitSize {
@@ -37,7 +37,7 @@ export interface UnitAmount {
 const DEFAULT_SHEET_M2 = DEFAULT_CARDBOARD_SHEET.length_m * DEFAULT_CARDBOARD_SHEET.width_m;
 const given = (x: number | null | undefined): x is number => typeof x === "number" && Number.isFinite(x) && x > 0;
 
-function board(unit: MaterialUnit, size: UnitSize): UnitAmount | null {
+function board(unit: ListingUnit, size: UnitSize): UnitAmount | null {
   const flat = (area: number): UnitAmount => ({ kg: area * CARDBOARD_KG_PER_M2, spread_m3: null, area_m2: area, handed_m3: area * CARDBOARD_THICKNESS_M });
   switch (unit) {
     case "sheets":
@@ -55,7 +55,7 @@ function board(unit: MaterialUnit, size: UnitSize): UnitAmount | null {
   }
 }
 
-function loose(material: MaterialCode, unit: MaterialUnit, size: UnitSize): UnitAmount | null {
+function loose(material: MaterialCode, unit: ListingUnit, size: UnitSize): UnitAmount | null {
   const facts = MATERIALS[material];
   const density = facts.bulk_density_kg_m3;
   const volume = (m3: number, kg?: number | null): UnitAmount => ({ kg: given(kg) ? kg : m3 * density, spread_m3: m3, area_m2: null, handed_m3: m3 });
@@ -82,7 +82,7 @@ function loose(material: MaterialCode, unit: MaterialUnit, size: UnitSize): Unit
 }
 
 /** One unit of `material` counted in `unit`, or null when that unit makes no sense for it. */
-export function unitAmount(material: MaterialCode, unit: MaterialUnit, size: UnitSize = {}): UnitAmount | null {
+export function unitAmount(material: MaterialCode, unit: ListingUnit, size: UnitSize = {}): UnitAmount | null {
   if (!(material in MATERIALS)) return null;
   if (material === "cardboard") return board(unit, size);
   if (material === "worms") {
@@ -92,7 +92,7 @@ export function unitAmount(material: MaterialCode, unit: MaterialUnit, size: Uni
   return loose(material, unit, size);
 }
 
-function amountOrThrow(material: MaterialCode, unit: MaterialUnit, size: UnitSize): UnitAmount {
+function amountOrThrow(material: MaterialCode, unit: ListingUnit, size: UnitSize): UnitAmount {
   const a = unitAmount(material, unit, size);
   if (!a) {
     throw new RangeError(
@@ -103,13 +103,13 @@ function amountOrThrow(material: MaterialCode, unit: MaterialUnit, size: UnitSiz
 }
 
 /** kg in `quantity` of `unit` of `material`. */
-export function massOf(material: MaterialCode, quantity: number, unit: MaterialUnit, size: UnitSize = {}): number {
+export function massOf(material: MaterialCode, quantity: number, unit: ListingUnit, size: UnitSize = {}): number {
   assertNonNegativeFinite("quantity", quantity);
   return quantity * amountOrThrow(material, unit, size).kg;
 }
 
 /** m³ as handed over in `quantity` of `unit` of `material`. */
-export function handedVolumeOf(material: MaterialCode, quantity: number, unit: MaterialUnit, size: UnitSize = {}): number {
+export function handedVolumeOf(material: MaterialCode, quantity: number, unit: ListingUnit, size: UnitSize = {}): number {
   assertNonNegativeFinite("quantity", quantity);
   return quantity * amountOrThrow(material, unit, size).handed_m3;
 }

@@ -3,6 +3,15 @@
 import { FEET_PER_MILE, FOOT_M, INCH_M, LITRE_M3, POUND_KG, US_GALLON_M3, YARD_M } from "./facts";
 
 export type UnitSystem = "metric" | "imperial";
+
+/** The one set of units a material changes hands in (listings.unit, giveaway and diversion amounts). */
+export const LISTING_UNITS = ["sheets", "m2", "bags", "m3", "bales", "kg"] as const;
+export type ListingUnit = (typeof LISTING_UNITS)[number];
+/** Sheets, bags and bales change hands whole; m², m³ and kg can be measured out. */
+export const WHOLE_UNITS: ReadonlySet<string> = new Set<ListingUnit>(["sheets", "bags", "bales"]);
+/** What a need is measured in: cardboard by area, loose layers by spread volume, worms by weight. */
+export const NEED_UNITS_SI = ["m2", "m3", "kg"] as const;
+export type NeedUnit = (typeof NEED_UNITS_SI)[number];
 export type DisplayUnit = "m" | "km" | "km2" | "m2" | "m3" | "cm" | "l" | "kg";
 
 const FT3_M3 = FOOT_M ** 3;

@@ -2,11 +2,10 @@
 // pickup times. Pure and free of server code, so the browse list, the detail page and the
 // form all say the same thing.
 import { formatMoney } from "@/lib/format/money";
-import { lToUsGal, m2ToFt2, m3ToFt3, kgToLb, ft2ToM2, lbToKg, yd3ToM3, type UnitSystem } from "@/lib/calc/units";
+import { lToUsGal, m2ToFt2, m3ToFt3, kgToLb, ft2ToM2, lbToKg, yd3ToM3, type UnitSystem, type ListingUnit } from "@/lib/calc/units";
 import { formatQuantity } from "@/lib/format/quantity";
 import { LITRE_M3, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { unitAmount } from "@/lib/calc/mass";
-import type { ListingUnit } from "@/lib/validation/listings";
 
 const COUNT_WORDS: Record<"sheets" | "bags" | "bales", [string, string]> = {
   sheets: ["sheet", "sheets"],

@@ -5,8 +5,7 @@
 // Pure: the form, the reserve page, the match and the server all count packs the same way.
 import { formatMoney } from "@/lib/format/money";
 import { formatListingQuantity, formatPrice } from "./format";
-import type { ListingUnit } from "@/lib/validation/listings";
-import type { UnitSystem } from "@/lib/calc/units";
+import type { UnitSystem, ListingUnit } from "@/lib/calc/units";
 
 export interface Pack {
   /** In the listing's unit (kg for a culture). */

@@ -1,3 +1,4 @@
+import type { ListingUnit } from "@/lib/calc/units";
 import "server-only";
 // What the world sees of a listing. Every public shape is built here and nowhere else, from
 // the approximate point only; the exact point and address are added in one place, for the
@@ -14,7 +15,7 @@ import type { PublicListingRow } from "@/db/listing-search";
 import { listingCautions, type ListingCaution } from "@/lib/calc/cautions";
 import type { MaterialCode } from "@/lib/calc/facts";
 import { photoUrl, type PhotoSize, type PhotoVariant } from "@/lib/media/photo-urls";
-import type { ListingUnit, QualityInput } from "@/lib/validation/listings";
+import type { QualityInput } from "@/lib/validation/listings";
 import { datesState, effectiveStatus, quantityLeft } from "./status";
 import { packOf, type Pack } from "./packs";
 import { parseQuality } from "@/lib/listings/quality";

@@ -3,12 +3,13 @@
 // while covering as much of every need as the listings can. A greedy start (cheapest
 // insertion, per unit of need covered) is improved by local search: drop a stop, swap one
 // listing for another of the same material, or add one that lowers the price.
+import { WHOLE_UNITS } from "@/lib/calc/units";
 import type { CostOptions } from "./defaults";
 import { distanceKm } from "./geo";
 import { type Option, type Purchase, purchase } from "./purchase";
 import { planTourOnMatrix, type Matrix } from "./tour";
 import type { CandidateListing, LatLng, Need } from "./types";
-import { needPerListingUnit, WHOLE_UNITS } from "./units";
+import { needPerListingUnit } from "./units";
 import { wholePacks } from "@/lib/listings/packs";
 
 export type { Option };

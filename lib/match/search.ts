@@ -18,6 +18,7 @@
 // The rule weighs one need at a time, as the local search in allocate does, and ignores a
 // listing halfway along a long leg, so it is a heuristic like the rest; the benchmark
 // compares its plans with a full scan's.
+import { LISTING_UNITS } from "@/lib/calc/units";
 import type { MaterialCode } from "@/lib/calc/facts";
 import { allocate, buildOptions, type AllocationResult } from "./allocate";
 import { purchase } from "./purchase";
@@ -67,7 +68,6 @@ export interface SearchStats {
   rings: Partial<Record<MaterialCode, number>>;
 }
 
-const LISTING_UNITS: ListingUnit[] = ["sheets", "m2", "bags", "m3", "bales", "kg"];
 // Search settings, tuned on the benchmark (a product choice, no source).
 const START_KM = 0.5;
 const SUPPLY_FACTOR = 3;

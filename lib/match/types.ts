@@ -1,3 +1,4 @@
+import type { ListingUnit, NeedUnit } from "@/lib/calc/units";
 import type { MaterialCode } from "@/lib/calc/facts";
 import type { Pack } from "@/lib/listings/packs";
 
@@ -6,10 +7,7 @@ export interface LatLng {
   lng: number;
 }
 
-/** The unit a need is measured in: cardboard by area, loose layers by spread volume, worms by weight. */
-export type NeedUnit = "m2" | "m3" | "kg";
-/** The unit a listing is offered in (listings.unit). */
-export type ListingUnit = "sheets" | "m2" | "bags" | "m3" | "bales" | "kg";
+export type { ListingUnit, NeedUnit };
 
 export interface Need {
   material: MaterialCode;

@@ -22,8 +22,6 @@ export const NEED_UNITS: Record<MaterialCode, readonly NeedUnit[]> = {
 
 export const NEED_UNIT_LABEL: Record<NeedUnit, string> = { m2: "m²", m3: "m³", kg: "kg" };
 
-/** Sheets, bags and bales change hands whole; m², m³ and kg can be measured out. */
-export const WHOLE_UNITS: ReadonlySet<ListingUnit> = new Set<ListingUnit>(["sheets", "bags", "bales"]);
 
 /** Loose quantities are measured out to the hundredth of a unit (10 L, 10 g, 0.01 m²). */
 export const MEASURE_STEP = 0.01;

@@ -4,6 +4,7 @@
 // the need's unit with the same factors matching uses (lib/match/units.ts).
 import { packQuantity, packsCovering, wholePacks } from "@/lib/listings/packs";
 import type { MaterialCode } from "@/lib/calc/facts";
+import { WHOLE_UNITS } from "@/lib/calc/units";
 import { needPerListingUnit } from "@/lib/match/units";
 import type { CandidateListing, ListingUnit, NeedUnit } from "@/lib/match/types";
 
@@ -61,7 +62,6 @@ export const isMet = (need: { quantity: number }, c: Coverage) => c.settled >= n
 /** A listing as the amount to reserve from it is worked out: its unit, what is left (whole sheets, bags and bales), its cap. */
 export type ReservableListing = Pick<CandidateListing, "material" | "unit" | "unit_size" | "unit_mass_kg" | "available" | "max_per_reservation" | "pack">;
 
-const WHOLE = new Set<ListingUnit>(["sheets", "bags", "bales"]);
 
 /**
  * What one click reserves for a need: what it still lacks, in the listing's unit, rounded up
@@ -77,7 +77,7 @@ export function amountToReserve(left: number, unit: NeedUnit, l: ReservableListi
     const cap = wholePacks(Math.min(l.available, l.max_per_reservation ?? Infinity), l.pack);
     return packQuantity(Math.min(packsCovering(raw, l.pack), cap), l.pack);
   }
-  const whole = WHOLE.has(l.unit);
+  const whole = WHOLE_UNITS.has(l.unit);
   const wanted = whole ? Math.ceil(raw - 1e-9) : Math.ceil(raw * 100 - 1e-9) / 100;
   const cap = Math.min(whole ? Math.floor(l.available + 1e-9) : l.available, l.max_per_reservation ?? Infinity);
   return Math.max(0, Math.min(wanted, cap));

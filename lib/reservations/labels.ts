@@ -1,12 +1,10 @@
 // How a reservation's quantity and money read in pages and e-mails.
 import { formatListingQuantity } from "@/lib/listings/format";
-import type { ListingUnit } from "@/lib/validation/listings";
-import type { UnitSystem } from "@/lib/calc/units";
+import { type UnitSystem, WHOLE_UNITS, type ListingUnit } from "@/lib/calc/units";
 import { packQuantity, wholePacks, type Pack } from "@/lib/listings/packs";
 import { formatMoney } from "@/lib/format/money";
 
 /** Units counted in whole pieces: nobody collects half a bale. */
-export const WHOLE_UNITS = new Set(["sheets", "bags", "bales"]);
 
 /**
  * What of `available` can be reserved: whole sheets, bags and bales, whole packs of a listing

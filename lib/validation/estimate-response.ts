@@ -2,8 +2,8 @@
 // describes it. The route builds it in lib/calc/estimate.ts and lib/services/beds/estimate-bed.ts;
 // tests/integration/openapi.test.ts checks a real answer against this shape.
 import { z } from "zod";
+import { LISTING_UNITS, NEED_UNITS_SI } from "@/lib/calc/units";
 import { MATERIAL_CODES } from "@/lib/calc/facts";
-import { LISTING_UNITS } from "./listings";
 
 const material = z.enum(MATERIAL_CODES);
 const pair = (what: string) => z.tuple([z.number(), z.number()]).describe(what);
@@ -13,7 +13,7 @@ const need = z
   .object({
     material,
     quantity: z.number().describe("in `unit`: m² of cardboard laid, m³ spread on the bed, kg of worms"),
-    unit: z.enum(["m2", "m3", "kg"]),
+    unit: z.enum(NEED_UNITS_SI),
     sheets: z.number().int().optional().describe("cardboard: sheets of the chosen size"),
     bags: z.number().int().optional().describe("leaves: 30 US gal bags"),
     bales: z.number().int().optional().describe("straw: small bales, each spread to three times its volume"),
@@ -50,7 +50,7 @@ const costs = z
       }),
     ),
     by_material: z.array(z.object({ material, currency: z.string(), cost_cents: z.number().int(), deposit_cents: z.number().int(), pickups: z.number().int() })),
-    unmet: z.array(z.object({ material, quantity: z.number(), unit: z.enum(["m2", "m3", "kg"]) })),
+    unmet: z.array(z.object({ material, quantity: z.number(), unit: z.enum(NEED_UNITS_SI) })),
   })
   .describe("with `plan` or `match` in the request: what the bed will cost");
 

@@ -1,12 +1,11 @@
 // Input to the listing routes and the listing form: one schema per input, shared by both.
 // Quantities are stored in the listing's own unit; unit sizes are SI (m² per sheet, m³ per
 // bag or bale, kg per bale), so lib/calc can convert them without knowing who typed them.
+import { LISTING_UNITS, WHOLE_UNITS, type ListingUnit } from "@/lib/calc/units";
 import { z } from "zod";
 import { BAG_M3, BALE_M3, DEFAULT_CARDBOARD_SHEET, MATERIAL_CODES, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { queryNumber } from "./common";
 
-export const LISTING_UNITS = ["sheets", "m2", "bags", "m3", "bales", "kg"] as const;
-export type ListingUnit = (typeof LISTING_UNITS)[number];
 
 /** Units a listing of each material may use; the first is the one the form offers first. */
 export const UNITS_BY_MATERIAL: Record<MaterialCode, readonly ListingUnit[]> = {
@@ -22,7 +21,6 @@ export const UNITS_BY_MATERIAL: Record<MaterialCode, readonly ListingUnit[]> = {
 };
 
 /** Units counted in whole items, where a fraction makes no sense. */
-export const COUNTED_UNITS: readonly ListingUnit[] = ["sheets", "bags", "bales"];
 
 /**
  * What one item of a counted unit holds when the supplier does not say. Only a material that
@@ -155,7 +153,7 @@ export function checkListingRules(l: Fields, ctx: z.RefinementCtx): void {
   const issue = (path: string, message: string) => ctx.addIssue({ code: "custom", path: [path], message });
   const units = UNITS_BY_MATERIAL[l.material];
   if (!units.includes(l.unit)) issue("unit", `List ${l.material.replace("_", " ")} by ${units.join(" or ")}.`);
-  const counted = COUNTED_UNITS.includes(l.unit);
+  const counted = WHOLE_UNITS.has(l.unit);
   if (counted && !isWhole(l.quantity)) issue("quantity", `Give a whole number of ${l.unit}.`);
   if (!counted && l.unit_size != null) issue("unit_size", "Only sheets, bags and bales have a size.");
   if (counted && l.unit_size == null && defaultUnitSize(l.unit, l.material) === null) issue("unit_size", "Give the size of one bale: only straw bales come in a usual size.");

@@ -1,12 +1,12 @@
 // Input to POST /api/match and the "Find materials" form: needs (or a saved bed), where to
 // start from, how far to look, and what the trip may cost and carry.
+import { NEED_UNITS_SI } from "@/lib/calc/units";
 import { z } from "zod";
 import { MATERIAL_CODES, MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { DEFAULT_RADIUS_KM, MAX_NEEDS, MAX_RADIUS_KM } from "@/lib/match/defaults";
 import type { Need, NeedUnit } from "@/lib/match/types";
 import { NEED_UNIT_LABEL, NEED_UNITS } from "@/lib/match/units";
 
-const NEED_UNIT_CODES = ["m2", "m3", "kg"] as const;
 /** A product limit: past this a need is a landscaping contract, not a bed. */
 export const MAX_NEED_QUANTITY = 10_000;
 
@@ -19,7 +19,7 @@ export const needSchema = z
       .number({ error: "quantity must be a number" })
       .positive("quantity must be more than 0")
       .max(MAX_NEED_QUANTITY, `quantity must be at most ${MAX_NEED_QUANTITY.toLocaleString("en-US")}`),
-    unit: z.enum(NEED_UNIT_CODES, { error: "unit must be m2, m3 or kg" }),
+    unit: z.enum(NEED_UNITS_SI, { error: "unit must be m2, m3 or kg" }),
   })
   .superRefine((n, ctx) => {
     if (!NEED_UNITS[n.material].includes(n.unit)) {

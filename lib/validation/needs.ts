@@ -1,5 +1,6 @@
 // Open needs: what a gardener still wants, where, how far they will go and by when; and the
 // two aggregate questions others may ask about them. Shared by the forms and the handlers.
+import { NEED_UNITS_SI } from "@/lib/calc/units";
 import { z } from "zod";
 import { MATERIAL_CODES, MATERIALS } from "@/lib/calc/facts";
 import { ApiError, parseInput } from "@/lib/api/errors";
@@ -9,7 +10,6 @@ import { NEED_INPUT_UNITS, siUnitOf, toSiNeed, type NeedInputUnit } from "@/lib/
 import { MAX_NEED_QUANTITY } from "./match";
 import { calendarDateSchema, idSchema, locationSchema, queryNumber } from "./common";
 
-export const NEED_UNIT_CODES = ["m2", "m3", "kg"] as const;
 export const NEED_ALERT_MODES = ["daily", "immediate"] as const;
 export type NeedAlertMode = (typeof NEED_ALERT_MODES)[number];
 /** The furthest ahead a need may be dated, days (a product limit: two growing seasons). */
@@ -49,7 +49,7 @@ export function unitIssue(m: (typeof MATERIAL_CODES)[number], u: NeedInputUnit):
 }
 
 /** A quantity given with its unit, as it is stored: SI. */
-function inSi<T extends { quantity?: number; unit?: NeedInputUnit }>(n: T): Omit<T, "unit"> & { unit?: (typeof NEED_UNIT_CODES)[number] } {
+function inSi<T extends { quantity?: number; unit?: NeedInputUnit }>(n: T): Omit<T, "unit"> & { unit?: (typeof NEED_UNITS_SI)[number] } {
   if (n.unit === undefined) return n as Omit<T, "unit">;
   if (n.quantity === undefined) return { ...n, unit: siUnitOf(n.unit) };
   return { ...n, ...toSiNeed(n.quantity, n.unit) };
@@ -179,7 +179,7 @@ export const listNeedsQuerySchema = z.object({
   bed_id: idSchema("a bed").optional(),
 });
 
-const needUnitOut = z.enum(NEED_UNIT_CODES);
+const needUnitOut = z.enum(NEED_UNITS_SI);
 
 /** One need, as its owner sees it (documentation for the OpenAPI page). */
 export const needResponseSchema = z.object({

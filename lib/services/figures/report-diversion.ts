@@ -1,7 +1,8 @@
 import "server-only";
 import { checkedInBookings, collectedReservations, type DiversionScope } from "@/db/diversion";
 import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
-import { summariseDiversion, type DiversionRecord, type DiversionSummary, type DiversionUnit } from "@/lib/calc/diversion";
+import { summariseDiversion, type DiversionRecord, type DiversionSummary } from "@/lib/calc/diversion";
+import type { ListingUnit } from "@/lib/calc/units";
 import { toCsv } from "@/lib/format/csv";
 
 export interface DiversionReport extends DiversionSummary {
@@ -28,7 +29,7 @@ function record(r: { quantity: number; household: string; at: string; material_c
   return {
     material: r.material_code as MaterialCode,
     quantity: r.quantity,
-    unit: r.unit as DiversionUnit,
+    unit: r.unit as ListingUnit,
     unitSize: r.unit_size ?? undefined,
     unitMassKg: r.unit_mass_kg ?? undefined,
     month: r.at.slice(0, 7),

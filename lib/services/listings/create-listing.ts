@@ -1,3 +1,4 @@
+import { WHOLE_UNITS } from "@/lib/calc/units";
 import "server-only";
 import { db, newId } from "@/db/index";
 import { insertListing } from "@/db/listings";
@@ -9,7 +10,7 @@ import { ApiError } from "@/lib/api/errors";
 import type { SessionUser } from "@/lib/auth/current-user";
 import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { checkUploadedPhotos } from "@/lib/media/verify-upload";
-import { COUNTED_UNITS, defaultUnitSize, type CreateListingInput } from "@/lib/validation/listings";
+import { defaultUnitSize, type CreateListingInput } from "@/lib/validation/listings";
 import { listingDates } from "@/lib/listings/dates";
 import { alertIfDue } from "@/lib/services/needs/alert-needs";
 import { DUE_NOW } from "@/migrations/20261208_020_open_needs";
@@ -26,7 +27,7 @@ export async function createListing(user: SessionUser, input: CreateListingInput
 
   const id = newId();
   const approx = approximatePoint({ owner: placeOwner({ organisation_id: user.organisation?.id, owner_id: user.id }), ...input.location });
-  const counted = COUNTED_UNITS.includes(input.unit);
+  const counted = WHOLE_UNITS.has(input.unit);
   // A pack listing's price per unit is what its pack works out at, whatever the client sent.
   const pack = packOf(input);
   await db().transaction(async (trx) => {

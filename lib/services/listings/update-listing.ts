@@ -1,3 +1,4 @@
+import { WHOLE_UNITS } from "@/lib/calc/units";
 import "server-only";
 import { z } from "zod";
 import { db } from "@/db/index";
@@ -10,7 +11,7 @@ import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { listingDates } from "@/lib/listings/dates";
 import { alertIfDue } from "@/lib/services/needs/alert-needs";
 import { packOf, unitPriceOfPack } from "@/lib/listings/packs";
-import { checkListingRules, COUNTED_UNITS, type LISTING_CURRENCIES, defaultUnitSize, listingFieldsSchema, type UpdateListingInput } from "@/lib/validation/listings";
+import { checkListingRules, type LISTING_CURRENCIES, defaultUnitSize, listingFieldsSchema, type UpdateListingInput } from "@/lib/validation/listings";
 import { parseQuality } from "@/lib/listings/quality";
 
 // The same rules as a new listing, checked on the listing as it would be after the change.
@@ -58,7 +59,7 @@ export async function updateListing(userId: string, id: string, patch: UpdateLis
     if (patch.title !== undefined) changes.title = l.title;
     if (patch.description !== undefined) changes.description = l.description;
     if (patch.unit !== undefined || patch.unit_size !== undefined || patch.unit_mass_kg !== undefined) {
-      const counted = COUNTED_UNITS.includes(l.unit);
+      const counted = WHOLE_UNITS.has(l.unit);
       changes.unit = l.unit;
       changes.unit_size = counted ? (l.unit_size ?? defaultUnitSize(l.unit, l.material)) : null;
       changes.unit_mass_kg = l.unit === "bales" ? (l.unit_mass_kg ?? null) : null;

@@ -1,3 +1,4 @@
+import { WHOLE_UNITS } from "@/lib/calc/units";
 import "server-only";
 import type { Knex } from "knex";
 import { writeTransaction } from "@/db/write-transaction";
@@ -10,7 +11,7 @@ import { ApiError, type FieldErrors } from "@/lib/api/errors";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { openCheckouts } from "@/lib/payments/checkout";
 import { MIN_CARD_CHARGE_CENTS, depositFor, listingPrice } from "@/lib/payments/money";
-import { WHOLE_UNITS, quantityLabel, quantityLimitProblem, reservableQuantity } from "@/lib/reservations/labels";
+import { quantityLabel, quantityLimitProblem, reservableQuantity } from "@/lib/reservations/labels";
 import { earliestPickupStart, holdFor, holdWaitFor } from "@/lib/reservations/policy";
 import { datesState } from "@/lib/listings/status";
 import { formatDay } from "@/lib/listings/format";
