@@ -61,10 +61,15 @@ export function packsCovering(quantity: number, p: Pack): number {
  */
 const bracketed = (own: string) => `(${own.replace(/ /g, "\u00a0")})`;
 
+/** A pack's size: "0.5 kg", or for an imperial reader "1.1 lb" with `(0.5 kg)` put after `noun`. */
+function packSize(p: Pack, unit: ListingUnit, system: UnitSystem, noun = ""): string {
+  const own = formatListingQuantity(p.size, unit);
+  return system === "metric" ? `${own}${noun}` : `${formatListingQuantity(p.size, unit, system)}${noun} ${bracketed(own)}`;
+}
+
 /** "a 0.5 kg pack" or, for an imperial reader, "a 1.1 lb pack (0.5 kg)". */
 export function packWords(p: Pack, unit: ListingUnit, system: UnitSystem = "metric"): string {
-  const own = formatListingQuantity(p.size, unit);
-  return system === "metric" ? `a ${own} pack` : `a ${formatListingQuantity(p.size, unit, system)} pack ${bracketed(own)}`;
+  return `a ${packSize(p, unit, system, " pack")}`;
 }
 
 /** "€14.00 a 0.5 kg pack". */
@@ -80,9 +85,7 @@ export function packCount(n: number): string {
 /** Why `quantity` is not whole packs (for a form or the API), or null. */
 export function wholePackProblem(quantity: number, p: Pack, unit: ListingUnit, system: UnitSystem = "metric"): string | null {
   if (packsIn(quantity, p) !== null || quantity <= EPS) return null;
-  const own = formatListingQuantity(p.size, unit);
-  const shown = system === "metric" ? own : `${formatListingQuantity(p.size, unit, system)} ${bracketed(own)}`;
-  return `This culture comes in whole packs of ${shown}: reserve ${[1, 2, 3].map((n) => formatListingQuantity(packQuantity(n, p), unit)).join(", ")} and so on.`;
+  return `This culture comes in whole packs of ${packSize(p, unit, system)}: reserve ${[1, 2, 3].map((n) => formatListingQuantity(packQuantity(n, p), unit)).join(", ")} and so on.`;
 }
 
 /** A listing's price as every screen shows it: per pack for a pack listing, else per unit ("£4.00 a bale"). */

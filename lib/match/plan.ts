@@ -73,13 +73,12 @@ export function buildPlan(
     const need = needs[option.need];
     // In the listing's own unit: a pack listing's option counts packs of `step` kg.
     const listingUnits = units * option.step;
-    const packed = option.step !== 1 || Boolean(c.pack);
     return {
       listing_id: c.id,
       material: c.material,
       quantity: roundTo(units * option.yield, 3),
       unit: need.unit,
-      listing_quantity: roundTo(listingUnits, packed ? 3 : 2),
+      listing_quantity: roundTo(listingUnits, c.pack ? 3 : 2),
       listing_unit: c.unit,
       packs: c.pack ? units : null,
       distance_km: roundTo(c.distance_km, 3),
