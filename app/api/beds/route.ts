@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { createBedSchema } from "@/lib/validation/beds";
-import { createBed } from "@/lib/services/beds/save-bed";
+import { createBed } from "@/lib/services/beds/create-bed";
 import { listBeds } from "@/lib/services/beds/list-beds";
 import { bedEstimate, toBedView } from "@/lib/beds/view";
 

@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
 import { notFound, parseInput } from "@/lib/api/errors";
 import { updateBedSchema } from "@/lib/validation/beds";
-import { editBed } from "@/lib/services/beds/save-bed";
+import { editBed } from "@/lib/services/beds/edit-bed";
 import { getBed } from "@/lib/services/beds/get-bed";
 import { deleteBed } from "@/lib/services/beds/delete-bed";
 import { bedEstimate, toBedView } from "@/lib/beds/view";
