@@ -3,7 +3,7 @@ import type { Knex } from "knex";
 import { db } from "@/db/index";
 import { lockRows } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
-import { countMessagesSince, insertMessage, messagesOf } from "@/db/reservation-messages";
+import { countMessagesSince, insertMessage } from "@/db/reservation-messages";
 import { reservationContext } from "@/db/reservation-context";
 import { sideOf } from "@/db/reservations";
 import { ApiError } from "@/lib/api/errors";
@@ -34,17 +34,3 @@ export async function postReservationMessage(input: { reservationId: string; use
   });
 }
 
-export async function listReservationMessages(input: { reservationId: string; userId: string }, deps: { db?: Knex } = {}) {
-  const q = deps.db ?? db();
-  const side = await sideOf(input.reservationId, input.userId, q);
-  if (!side) throw new ApiError("not_found", "That reservation was not found.");
-  const r = (await q("reservations").first("gardener_id").where({ id: input.reservationId })) as { gardener_id: string };
-  return (await messagesOf(input.reservationId, q)).map((m) => ({
-    id: m.id,
-    body: m.body,
-    created_at: m.created_at,
-    author: { id: m.author_id, name: m.author_name },
-    side: m.author_id === r.gardener_id ? "gardener" : "supplier",
-    mine: m.author_id === input.userId,
-  }));
-}

@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { userModerationSchema } from "@/lib/validation/moderation";
-import { moderateUser } from "@/lib/services/moderation/moderate-account";
+import { moderateUser } from "@/lib/services/moderation/moderate-user";
 
 // POST /api/moderation/users/:id — suspend or restore an account, verify a supplier or take it back.
 export const POST = withAuth<{ id: string }>(async ({ req, params, user }) => {

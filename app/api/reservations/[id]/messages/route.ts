@@ -1,7 +1,8 @@
 import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
-import { listReservationMessages, postReservationMessage } from "@/lib/services/reservations/post-reservation-message";
+import { postReservationMessage } from "@/lib/services/reservations/post-reservation-message";
+import { listReservationMessages } from "@/lib/services/reservations/list-reservation-messages";
 import { messageSchema } from "@/lib/validation/reservations";
 
 // GET /api/reservations/:id/messages — the thread between gardener and supplier.

@@ -3,7 +3,8 @@ import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { updateSlotSchema } from "@/lib/validation/giveaways";
 import { councilOf } from "@/lib/auth/council-access";
-import { removeGiveawaySlot, resizeGiveawaySlot } from "@/lib/services/giveaways/change-giveaway-slots";
+import { removeGiveawaySlot } from "@/lib/services/giveaways/remove-giveaway-slot";
+import { resizeGiveawaySlot } from "@/lib/services/giveaways/resize-giveaway-slot";
 
 type P = { id: string; slotId: string };
 
