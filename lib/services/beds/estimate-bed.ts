@@ -3,23 +3,19 @@ import { ApiError } from "@/lib/api/errors";
 import { estimate, type EstimateResult } from "@/lib/calc/estimate";
 import { pricedListings } from "@/db/match-candidates";
 import { bedCosts, type BedCosts, type PricedPickup } from "@/lib/match/costs";
-import type { LatLng, Need } from "@/lib/match/types";
+import type { LatLng } from "@/lib/match/types";
 import type { EstimateInput } from "@/lib/validation/estimate";
 import type { UnitSystem } from "@/lib/calc/units";
 import { DEFAULT_RADIUS_KM } from "@/lib/match/defaults";
 import { bedEstimate, type BedView } from "@/lib/beds/view";
 import { planPickups } from "@/lib/services/match/plan-pickups";
+import { needsOf } from "@/lib/beds/needs";
 
 export interface PricedEstimate extends EstimateResult {
   /** What the bed will cost with the plan given or found: free, deposits held, paid. */
   costs?: BedCosts;
   /** The plan found, in brief, when the estimate was asked to match. */
   match?: { origin: LatLng; radius_km: number; stops: number; total_distance_km: number; driving_distance_km: number; trips: number };
-}
-
-/** The needs an estimate's layers make, as matching takes them. */
-export function needsOf(result: EstimateResult): Need[] {
-  return result.needs.map((n) => ({ material: n.material, quantity: n.quantity, unit: n.unit })).filter((n) => n.quantity > 0);
 }
 
 /**

@@ -2,7 +2,7 @@ import "server-only";
 import type { MaterialCode } from "@/lib/calc/facts";
 import { needPerListingUnit } from "@/lib/match/units";
 import type { ListingUnit, Need } from "@/lib/match/types";
-import { bedNeeds } from "@/lib/services/match/plan-pickups";
+import { bedNeeds } from "@/lib/beds/needs";
 import { listBeds, reservedForBeds } from "@/db/beds";
 
 export interface BedStillNeeds {

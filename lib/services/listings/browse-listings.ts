@@ -4,15 +4,11 @@ import { searchListings } from "@/db/listing-search";
 import { decodeCursor, encodeCursor } from "@/lib/listings/cursor";
 import { presentItems, type PublicListingItem } from "@/lib/listings/view";
 import { DEFAULT_PAGE, DEFAULT_RADIUS_KM, type BrowseQuery } from "@/lib/validation/listings";
+import { searchWords } from "@/lib/listings/search-words";
 
 export interface BrowseResult {
   items: PublicListingItem[];
   next_cursor: string | null;
-}
-
-/** Words to search for: letters and digits only, so nothing typed can act as query syntax. */
-export function searchWords(q: string | undefined): string[] {
-  return (q ?? "").normalize("NFKC").toLowerCase().match(/[\p{L}\p{N}]+/gu)?.slice(0, 8) ?? [];
 }
 
 /** One page of what is on offer: nearest first around a point, else newest first. */

@@ -5,24 +5,12 @@ import { databaseSource, pricedListings } from "@/db/match-candidates";
 import { bedCosts, type PricedPickup } from "@/lib/match/costs";
 import { searchPlan } from "@/lib/match/search";
 import type { LatLng, Need } from "@/lib/match/types";
-import { bedEstimate, toBedView } from "@/lib/beds/view";
 import type { MatchInput } from "@/lib/validation/match";
-import { type BedRow, findBed } from "@/db/beds";
+import { findBed } from "@/db/beds";
 import { pickupWindowsOf } from "@/db/reservations";
 import { depositFor } from "@/lib/payments/money";
 import { answerByFor, pickupChoices } from "@/lib/reservations/pickup-choices";
-
-/** What a saved bed needs: its own estimate (the bed page's), as needs. */
-export function bedNeeds(row: BedRow): Need[] {
-  let needs: Need[];
-  try {
-    needs = bedEstimate(toBedView(row)).needs.map((n) => ({ material: n.material, quantity: n.quantity, unit: n.unit }));
-  } catch {
-    // A row written before a rule changed, or by hand: say so rather than fail.
-    throw new ApiError("invalid_state", "This bed's saved size or layers cannot be read. Open the bed, check it and save it again.");
-  }
-  return needs.filter((n) => n.quantity > 0);
-}
+import { bedNeeds } from "@/lib/beds/needs";
 
 /** POST /api/match: the pickup plan for ad-hoc needs, or for one of the signed-in gardener's beds. */
 export async function planPickups(input: MatchInput, user: SessionUser | null) {
