@@ -9,7 +9,7 @@ import { ApiError } from "@/lib/api/errors";
 import { mailCultureOrder } from "@/lib/mail/culture-order-mail";
 import { ORDER_TRANSITIONS, orderBlockedReason, type OrderAction } from "@/lib/reservations/culture-orders";
 import type { Side } from "@/lib/reservations/policy";
-import { shippingView } from "./grower-shipping";
+import { shippingView } from "@/lib/growers/view";
 import { StaleState, closeReservation } from "./reservation-steps";
 import { runReservationStep } from "./run-reservation-step";
 

@@ -6,59 +6,21 @@ import { writeTransaction } from "@/db/write-transaction";
 import { db } from "@/db/index";
 import { findPayment, paymentByStripeRef, updatePayment } from "@/db/payments";
 import type { PaymentRow } from "@/db/types";
-import { runPaymentActions } from "@/lib/payments/actions";
-import { lockOwner, ownerOf } from "@/lib/payments/owner";
-import { bookingDepositFollows } from "./giveaway-deposit";
-import { gardenerStepDone, moneyReturnedOutside } from "./reservation-steps";
+import { lockOwner } from "@/lib/payments/owner";
+import { movesForward, str, targetFor } from "@/lib/payments/status";
+import { ownerHooks } from "@/lib/services/payments/owners";
 
 // Applies one event of Stripe's record, exactly once: the event id goes into webhook_events
 // in the same transaction as its effects, so a repeat finds the id and changes nothing, and a
-// failure rolls both back. A payment's status only moves forward (by RANK).
-// Only events built from Stripe's own record reach here: lib/payments/reconcile.ts
-// (syncPayment) reads the checkout back through the SDK and feeds what it shows through here
-// as the events it implies, whether a webhook asked it to (receive-stripe-event.ts), a Stripe
-// call Duffbank made, or the worker looking for lost webhooks. A webhook's own body is never
-// applied, so a correctly signed but false event changes nothing.
-
-const RANK: Record<string, number> = { creating: 0, open: 0, expired: 1, authorised: 2, paid: 3, released: 4, captured: 4, refunded: 5 };
-
-type Target = { status?: keyof typeof RANK; patch?: Partial<PaymentRow> };
-
-const str = (v: unknown) => (typeof v === "string" ? v : v && typeof v === "object" && "id" in v ? String((v as { id: string }).id) : null);
-
-function targetFor(event: Stripe.Event, row: PaymentRow): Target | null {
-  const obj = event.data.object as unknown as Record<string, any>;
-  switch (event.type) {
-    case "checkout.session.completed": {
-      const intent = str(obj.payment_intent);
-      return { status: obj.payment_status === "paid" ? "paid" : "authorised", patch: intent ? { payment_intent_id: intent } : {} };
-    }
-    case "checkout.session.expired":
-      return { status: "expired" };
-    case "payment_intent.amount_capturable_updated":
-      return obj.amount_capturable > 0 ? { status: "authorised", patch: { payment_intent_id: obj.id } } : null;
-    case "payment_intent.succeeded":
-      return row.kind === "deposit"
-        ? { status: "captured", patch: { payment_intent_id: obj.id, captured_cents: obj.amount_received } }
-        : { status: "paid", patch: { payment_intent_id: obj.id, captured_cents: obj.amount_received } };
-    case "payment_intent.canceled": {
-      // A hold let go (by Duffbank, or on Stripe's side) held money once; an abandoned or
-      // declined checkout's intent never did. The record carries the charge to tell which.
-      const charge = obj.latest_charge as { status?: string } | string | null;
-      const held = !!charge && typeof charge === "object" && charge.status === "succeeded";
-      return { status: held ? "released" : "expired", patch: { payment_intent_id: obj.id } };
-    }
-    case "payment_intent.payment_failed":
-      return { patch: { payment_intent_id: obj.id, last_error: String(obj.last_payment_error?.message ?? "The card was declined.").slice(0, 500) } };
-    case "charge.refunded": {
-      if (!obj.captured || !(obj.amount_refunded > 0)) return null; // a released hold, handled by payment_intent.canceled
-      const refunded = Math.max(row.refunded_cents, obj.amount_refunded);
-      return { status: refunded >= obj.amount_captured ? "refunded" : undefined, patch: { refunded_cents: refunded } };
-    }
-    default:
-      return null;
-  }
-}
+// failure rolls both back. A payment's status only moves forward (lib/payments/status.ts), and
+// what it pays for follows it through the owners map (lib/services/payments/owners.ts).
+// Only events built from Stripe's own record reach here: syncPayment
+// (lib/services/payments/settle-payment.ts) reads the checkout back through the SDK and feeds
+// what it shows through here as the events it implies, whether a webhook asked it to
+// (receive-stripe-event.ts), a Stripe call Duffbank made, or the worker looking for lost
+// webhooks. A webhook's own body is never applied, so a correctly signed but false event
+// changes nothing. The Stripe calls the change leaves owing are returned, for the caller
+// (syncPayment) to make after the commit.
 
 class DuplicateEvent extends Error {
   constructor() {
@@ -66,7 +28,7 @@ class DuplicateEvent extends Error {
   }
 }
 
-export async function applyStripeEvent(event: Stripe.Event, deps: { db?: Knex; clock?: () => Date } = {}): Promise<"applied" | "duplicate"> {
+export async function applyStripeEvent(event: Stripe.Event, deps: { db?: Knex; clock?: () => Date } = {}): Promise<{ outcome: "applied" | "duplicate"; owed: string[] }> {
   const q = deps.db ?? db();
   const now = (deps.clock ?? (() => new Date()))();
   const at = now.toISOString();
@@ -101,36 +63,14 @@ export async function applyStripeEvent(event: Stripe.Event, deps: { db?: Knex; c
       const row = (await findPayment(found.id, trx, { lock: true }))!;
       const target = targetFor(event, row);
       if (!target) return [];
-      const forward = target.status !== undefined && RANK[target.status] > RANK[row.status];
+      const forward = movesForward(row.status, target.status);
       await updatePayment(row.id, { ...target.patch, ...(forward ? { status: target.status } : {}), updated_at: at }, trx);
       if (!forward) return [];
-      return ownerFollows(trx, row, target.status!, now);
+      return ownerHooks(row).follows(trx, row, target.status!, now);
     });
   } catch (err) {
-    if (err instanceof DuplicateEvent) return "duplicate";
+    if (err instanceof DuplicateEvent) return { outcome: "duplicate", owed: [] };
     throw err;
   }
-  await runPaymentActions(owed, deps.clock, q);
-  return "applied";
-}
-
-/** What the payment pays for follows it: a reservation, or a giveaway booking's deposit. */
-async function ownerFollows(trx: Knex.Transaction, row: PaymentRow, status: string, now: Date): Promise<string[]> {
-  const owner = ownerOf(row);
-  if (owner.type === "giveaway_booking") return bookingDepositFollows(trx, row, status, now);
-  return reservationFollows(trx, row, owner.id, status, now);
-}
-
-/** The reservation side of a payment moving forward. */
-async function reservationFollows(trx: Knex.Transaction, row: PaymentRow, reservationId: string, status: string, now: Date): Promise<string[]> {
-  const was = RANK[row.status];
-  const owed: string[] = [];
-  if (was < RANK.authorised && (status === "authorised" || status === "paid")) {
-    owed.push(...(await gardenerStepDone(trx, reservationId, row.kind === "deposit" ? "authorised" : "paid", now)));
-  }
-  if (["released", "captured", "refunded"].includes(status)) {
-    await trx("reservations").where({ id: reservationId }).update({ payment_state: status, updated_at: now.toISOString() });
-    if (status !== "captured") owed.push(...(await moneyReturnedOutside(trx, reservationId, status as "released" | "refunded", now)));
-  }
-  return owed;
+  return { outcome: "applied", owed };
 }

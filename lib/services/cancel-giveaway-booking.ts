@@ -9,7 +9,7 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
 import { bookingParts, giveawayBookingCancelledEmail } from "@/lib/mail/templates/giveaway";
 import { readableDateTime } from "@/lib/time/zoned";
-import { runPaymentActions } from "@/lib/payments/actions";
+import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import { cancelDeadline } from "./giveaway-view";
 import { depositAfterReturn, settleBookingDeposit } from "./giveaway-deposit";
 import { formatMoney } from "@/lib/format/money";

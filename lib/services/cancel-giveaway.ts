@@ -9,7 +9,7 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
 import { bookingParts, giveawayDayCancelledEmail } from "@/lib/mail/templates/giveaway";
 import { staffDayView } from "./giveaway-view";
-import { runPaymentActions } from "@/lib/payments/actions";
+import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import type { DepositStatus } from "@/db/types";
 import { depositAfterReturn, settleBookingDeposit } from "./giveaway-deposit";
 import type { CouncilContext } from "./council-access";

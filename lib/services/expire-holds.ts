@@ -7,7 +7,7 @@ import { reservationContext } from "@/db/reservation-context";
 import { dueForNotice, heldDueToExpire } from "@/db/reservations";
 import type { ReservationRow } from "@/db/types";
 import { mailReservation } from "@/lib/mail/reservation-mail";
-import { runPaymentActions } from "@/lib/payments/actions";
+import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import { EXPIRY_WARNING_MINUTES, PICKUP_REMINDER_HOURS } from "@/lib/reservations/policy";
 import { StaleState, closeReservation } from "./reservation-steps";
 

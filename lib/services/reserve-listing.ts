@@ -19,7 +19,7 @@ import { cultureOptions, defaultFulfilment, type Fulfilment } from "@/lib/reserv
 import { findShipping } from "@/db/grower-shipping";
 import { packOf, wholePackProblem } from "@/lib/listings/packs";
 import { confirmReservation, pickupTimes } from "./reservation-steps";
-import { shippingView } from "./grower-shipping";
+import { shippingView } from "@/lib/growers/view";
 import { formatMoney } from "@/lib/format/money";
 import { parseQuality } from "@/lib/listings/quality";
 
