@@ -5,7 +5,6 @@ import { isUniqueViolation } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
 import { db } from "@/db/index";
 import { findPayment, paymentByStripeRef, updatePayment } from "@/db/payments";
-import type { PaymentRow } from "@/db/types";
 import { lockOwner } from "@/lib/payments/owner";
 import { movesForward, str, targetFor } from "@/lib/payments/status";
 import { ownerHooks } from "@/lib/services/payments/owners";
