@@ -2,12 +2,14 @@ import "server-only";
 import Stripe from "stripe";
 import { stripe } from "./stripe";
 
-// The Stripe calls Duffbank makes about a payment once it exists, through the official SDK
-// (lib/payments/stripe.ts): close a checkout, let go of or capture a deposit hold, refund a
-// payment, and read back Stripe's record. Each write carries the caller's idempotency key, so
-// making it twice (a request and the worker at once) changes nothing. Nothing here writes to
-// the database or knows what a payment pays for: lib/services/payments/settle-payment.ts
-// decides when to call and applies what Stripe's record says.
+// The Stripe calls Duffbank makes about a payment, through the official SDK
+// (lib/payments/stripe.ts): make or close a checkout, let go of or capture a deposit hold,
+// refund a payment, and read back Stripe's record. Each write that may be repeated carries
+// the caller's idempotency key, so making it twice (a request and the worker at once)
+// changes nothing. Nothing here writes to the database or knows what a payment pays for:
+// lib/payments/checkout.ts says what a checkout is for, and
+// lib/services/payments/settle-payment.ts decides when to call and applies what Stripe's
+// record says.
 
 /** Stripe's current record of a checkout: the session, its payment intent and that intent's charge. */
 export interface CheckoutRecord {
@@ -23,6 +25,18 @@ export async function checkoutRecord(sessionId: string): Promise<CheckoutRecord>
   const chargeId = intent?.latest_charge;
   const charge = typeof chargeId === "string" ? await stripe().charges.retrieve(chargeId) : ((chargeId as Stripe.Charge | null | undefined) ?? null);
   return { session, intent, charge };
+}
+
+/** Makes a checkout session (lib/payments/checkout.ts says for what), with the attempt's idempotency key. */
+export function createCheckoutSession(params: Stripe.Checkout.SessionCreateParams, idempotencyKey: string): Promise<Stripe.Checkout.Session> {
+  return stripe().checkout.sessions.create(params, { idempotencyKey });
+}
+
+/** Closes a checkout nobody should pay any more, on a best-effort basis: whatever Stripe answers is ignored. */
+export async function expireCheckoutSessionQuietly(sessionId: string): Promise<void> {
+  await stripe()
+    .checkout.sessions.expire(sessionId)
+    .catch(() => undefined);
 }
 
 /** The payment intent a checkout session made, if it has made one yet. */
