@@ -26,9 +26,7 @@ import { ownerHooks } from "./owners";
 // How long one process may take over a call before another may try it again: far longer
 // than a Stripe request with its retries, short enough that a crashed worker's call is soon
 // picked up (the idempotency key then makes the second attempt a replay, not a new call).
-export const ACTION_CLAIM_MS = 5 * 60_000;
-
-export { actionRetryDelayMs };
+const ACTION_CLAIM_MS = 5 * 60_000;
 
 type Outcome = Partial<PaymentRow>;
 
@@ -120,12 +118,6 @@ export async function attemptPaymentAction(id: string, clock: () => Date, q: Db)
     );
     return unreachable ? "unreachable" : "failed";
   }
-}
-
-/** Runs one payment's owed Stripe call; true when it is done (or nothing was owed, or another process is making it). */
-export async function runPaymentAction(id: string, clock: () => Date = () => new Date(), q: Db = db()): Promise<boolean> {
-  const outcome = await attemptPaymentAction(id, clock, q);
-  return outcome === "done" || outcome === "elsewhere";
 }
 
 /**
