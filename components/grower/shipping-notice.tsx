@@ -1,4 +1,4 @@
-import type { ShippingView } from "@/lib/services/grower-shipping";
+import type { ShippingView } from "@/lib/growers/view";
 
 /** What a buyer reads on a grower's worm listing: posting days, or that posting is paused for the weather. */
 export function ShippingNotice({ shipping }: { shipping: ShippingView }) {

@@ -7,7 +7,7 @@ import { parseInput } from "./errors";
 import type { Role } from "@/lib/auth/roles";
 import type { ReservationAction } from "@/lib/reservations/policy";
 import type { OrderAction } from "@/lib/reservations/culture-orders";
-import { advanceCultureOrder } from "@/lib/services/advance-culture-order";
+import { advanceCultureOrder } from "@/lib/services/growers/advance-culture-order";
 import { changeReservation } from "@/lib/services/reservations/change-reservation";
 import { getReservation } from "@/lib/services/reservations/list-reservations";
 

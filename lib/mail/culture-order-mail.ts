@@ -3,7 +3,7 @@ import { findShipping } from "@/db/grower-shipping";
 import { enqueueEmail } from "@/db/outbox";
 import type { ReservationContext } from "@/db/reservation-context";
 import { nextPostingDay } from "@/lib/reservations/culture-orders";
-import { shippingView } from "@/lib/services/grower-shipping";
+import { shippingView } from "@/lib/growers/view";
 import { cultureOrderEmail, type CultureMailKind } from "./templates/culture-orders";
 import type { Audience } from "./templates/reservations";
 import { parseQuality } from "@/lib/listings/quality";

@@ -6,7 +6,8 @@ import { appUrl } from "@/lib/app-url";
 import { whatLabel } from "@/lib/reservations/labels";
 import type { PaymentRow } from "@/db/types";
 import { ownerMetadata, ownerOf } from "./owner";
-import { stripe, stripeUnreachable } from "./stripe";
+import { createCheckoutSession, expireCheckoutSessionQuietly } from "./gateway";
+import { stripeUnreachable } from "./stripe";
 import { actionRetryDelayMs } from "./retry";
 
 // A Checkout Session (mode payment) for one reservation or giveaway booking: automatic
@@ -82,7 +83,7 @@ export async function startCheckout(paymentId: string, clock: () => Date = () =>
   const expiresAt = Math.min(nowS + SESSION_MAX_S, Math.max(nowS + SESSION_MIN_S, holdS + 60));
   const deposit = payment.kind === "deposit";
   const metadata = { ...ownerMetadata(payment), payment_id: payment.id, kind: payment.kind };
-  const session = await stripe().checkout.sessions.create(
+  const session = await createCheckoutSession(
     {
       mode: "payment",
       line_items: [
@@ -107,7 +108,7 @@ export async function startCheckout(paymentId: string, clock: () => Date = () =>
       },
       expires_at: expiresAt,
     },
-    { idempotencyKey: checkoutAttemptKey(payment) },
+    checkoutAttemptKey(payment),
   );
   const at = nowIso(clock);
   const n = await q("payments")
@@ -115,7 +116,7 @@ export async function startCheckout(paymentId: string, clock: () => Date = () =>
     .update({ provider_ref: session.id, checkout_url: session.url, status: "open", last_error: null, waiting_for: null, updated_at: at });
   if (n === 0) {
     // The hold ended while the session was being made: close it again so nobody pays for nothing.
-    await stripe().checkout.sessions.expire(session.id).catch(() => undefined);
+    await expireCheckoutSessionQuietly(session.id);
     return null;
   }
   // Made at last: the worker no longer needs to try (an "expire" written meanwhile stays).

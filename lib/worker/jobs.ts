@@ -1,10 +1,10 @@
 import { pruneIdempotencyKeys } from "@/db/idempotency-keys";
 import { deliverOutbox } from "@/lib/mail/deliver-outbox";
-import { settlePayments } from "@/lib/payments/actions";
-import { recoverOpenPayments } from "@/lib/payments/reconcile";
+import { settlePayments } from "@/lib/services/payments/settle-due-payments";
+import { recoverOpenPayments } from "@/lib/services/payments/recover-open-payments";
 import { expireHolds, sendReservationReminders } from "@/lib/services/reservations/expire-holds";
 import { expireListings } from "@/lib/services/listings/expire-listings";
-import { expireGiveawayDepositHolds } from "@/lib/services/giveaway-deposit";
+import { expireGiveawayDepositHolds } from "@/lib/services/giveaways/expire-deposit-holds";
 import { sendBedReminders } from "@/lib/services/beds/send-bed-reminders";
 import { pruneSecurityRecords } from "@/lib/services/accounts/prune-security-records";
 import { alertDueListings } from "@/lib/services/needs/alert-needs";

@@ -13,9 +13,10 @@ import * as oneDay from "@/app/api/giveaways/[id]/route";
 import * as myBooking from "@/app/api/giveaways/[id]/bookings/[bookingId]/route";
 import * as cancelDay from "@/app/api/council/giveaways/[id]/cancel/route";
 import * as attendance from "@/app/api/council/giveaways/[id]/bookings/[bookingId]/route";
-import { expireGiveawayDepositHolds } from "@/lib/services/giveaway-deposit";
+import { expireGiveawayDepositHolds } from "@/lib/services/giveaways/expire-deposit-holds";
 import { recordAttendance } from "@/lib/services/giveaways/record-attendance";
-import { reconcilePayments, recoverOpenPayments } from "@/lib/payments/reconcile";
+import { reconcilePayments } from "@/lib/payments/reconcile";
+import { recoverOpenPayments } from "@/lib/services/payments/recover-open-payments";
 import { holdMinutes } from "@/lib/reservations/policy";
 import { db } from "@/db/index";
 

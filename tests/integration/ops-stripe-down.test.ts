@@ -17,7 +17,8 @@ import { GET as getOne } from "@/app/api/reservations/[id]/route";
 import { POST as checkout } from "@/app/api/reservations/[id]/checkout/route";
 import { POST as cancel } from "@/app/api/reservations/[id]/cancel/route";
 import { POST as decline } from "@/app/api/reservations/[id]/decline/route";
-import { runPaymentActions, settlePayments } from "@/lib/payments/actions";
+import { runPaymentActions } from "@/lib/services/payments/settle-payment";
+import { settlePayments } from "@/lib/services/payments/settle-due-payments";
 import { DEFAULT_STRIPE_TIMEOUT_MS, resetStripe } from "@/lib/payments/stripe";
 import { expireHolds } from "@/lib/services/reservations/expire-holds";
 

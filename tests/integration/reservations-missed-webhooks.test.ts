@@ -13,7 +13,7 @@ import { createListing, listingQuantities } from "../reservation-factories";
 import { submitHostedPayment } from "@/lib/fakes/stripe/testing";
 import { POST as reserve } from "@/app/api/reservations/route";
 import { expireHolds } from "@/lib/services/reservations/expire-holds";
-import { applyStripeEvent } from "@/lib/services/apply-stripe-event";
+import { applyStripeEvent } from "@/lib/services/payments/apply-stripe-event";
 import { isUniqueViolation } from "@/db/dialect";
 import { RECHECK_MINUTES, RECOVER_AFTER_MINUTES, reconcilePayments } from "@/lib/payments/reconcile";
 import { SUPPLIER_REPLY_HOURS } from "@/lib/reservations/policy";

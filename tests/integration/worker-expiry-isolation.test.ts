@@ -9,7 +9,7 @@ import { bookAs, createDayAs } from "../helpers/giveaways";
 import { createUser } from "../factories";
 import { createListing, createReservationIn, listingQuantities } from "../reservation-factories";
 import { expireHolds } from "@/lib/services/reservations/expire-holds";
-import { expireGiveawayDepositHolds } from "@/lib/services/giveaway-deposit";
+import { expireGiveawayDepositHolds } from "@/lib/services/giveaways/expire-deposit-holds";
 import { db } from "@/db/index";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;

@@ -26,7 +26,7 @@ import { formatMoney } from "@/lib/format/money";
 // it, verify a postal address once per account (a letter with a code, or the council's own
 // register of households) and key this rule on the verified address instead of the account.
 
-// A day's no-show deposit is held on the household's card (lib/services/giveaway-deposit.ts):
+// A day's no-show deposit is held on the household's card (lib/services/giveaways/giveaway-deposit.ts):
 // the booking takes its place at once and waits, deposit "awaiting", for the Stripe checkout;
 // only the webhook confirms it, and the confirmation e-mail goes when the hold is on the card.
 export const DEPOSIT_HOLD_NOTE =

@@ -9,9 +9,9 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
 import { bookingParts, giveawayBookingCancelledEmail } from "@/lib/mail/templates/giveaway";
 import { readableDateTime } from "@/lib/time/zoned";
-import { runPaymentActions } from "@/lib/payments/actions";
+import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import { cancelDeadline } from "@/lib/giveaways/view";
-import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaway-deposit";
+import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaways/giveaway-deposit";
 import { formatMoney } from "@/lib/format/money";
 
 /** A household cancels its own booking, up to the day's cut-off before the slot; any deposit hold is released. */

@@ -9,9 +9,9 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
 import { bookingParts, giveawayDayCancelledEmail } from "@/lib/mail/templates/giveaway";
 import { staffDayView } from "@/lib/giveaways/view";
-import { runPaymentActions } from "@/lib/payments/actions";
+import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import type { DepositStatus } from "@/db/types";
-import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaway-deposit";
+import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaways/giveaway-deposit";
 import type { CouncilContext } from "@/lib/auth/council-access";
 import { formatMoney } from "@/lib/format/money";
 

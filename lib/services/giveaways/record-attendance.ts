@@ -5,10 +5,10 @@ import { findBooking, findOrgDay, findSlot, setBookingStatus } from "@/db/giveaw
 import { recordAudit } from "@/db/audit";
 import type { DepositStatus, GiveawayBookingRow } from "@/db/types";
 import { ApiError, notFound } from "@/lib/api/errors";
-import { runPaymentActions } from "@/lib/payments/actions";
+import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import { readableDateTime } from "@/lib/time/zoned";
 import type { CouncilContext } from "@/lib/auth/council-access";
-import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaway-deposit";
+import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaways/giveaway-deposit";
 
 type Attendance = "checked_in" | "booked" | "no_show";
 

@@ -1,7 +1,7 @@
 import "server-only";
 import { findShipping } from "@/db/grower-shipping";
 import { cultureOptions, estimatedWorms, nextPostingDay } from "@/lib/reservations/culture-orders";
-import { shippingView, type ShippingView } from "@/lib/services/grower-shipping";
+import { shippingView, type ShippingView } from "@/lib/growers/view";
 
 /** What a buyer reads about a live culture before ordering: species, rough count, and how it arrives. */
 export interface CultureOffer {

@@ -2,7 +2,8 @@ import "server-only";
 import { db } from "@/db/index";
 import { nextPostingDay } from "@/lib/reservations/culture-orders";
 import type { ReservationView } from "@/lib/reservations/view";
-import { growerShipping, type ShippingView } from "@/lib/services/grower-shipping";
+import type { ShippingView } from "@/lib/growers/view";
+import { growerShipping } from "@/lib/services/growers/grower-shipping";
 import { getReservations } from "@/lib/services/reservations/list-reservations";
 
 // The grower's open orders: live-culture reservations on their own listings that still need

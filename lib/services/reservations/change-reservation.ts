@@ -7,8 +7,8 @@ import { ApiError } from "@/lib/api/errors";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { pickupCodeMatches } from "@/lib/reservations/pickup-code";
 import { blockedReason, cancellationIsTimely, type ReservationAction, type Side } from "@/lib/reservations/policy";
-import { closeReservation, confirmReservation } from "@/lib/services/reservation-steps";
-import { runReservationStep } from "@/lib/services/run-reservation-step";
+import { closeReservation, confirmReservation } from "@/lib/services/reservations/reservation-steps";
+import { runReservationStep } from "@/lib/services/reservations/run-reservation-step";
 
 // One use-case for the five transitions a person can make (confirm, decline, cancel,
 // collect, no-show): who may, from which state, and what each does. The rules themselves

@@ -7,9 +7,9 @@ import { reservationContext } from "@/db/reservation-context";
 import { dueForNotice, heldDueToExpire } from "@/db/reservations";
 import type { ReservationRow } from "@/db/types";
 import { mailReservation } from "@/lib/mail/reservation-mail";
-import { runPaymentActions } from "@/lib/payments/actions";
+import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import { EXPIRY_WARNING_MINUTES, PICKUP_REMINDER_HOURS } from "@/lib/reservations/policy";
-import { StaleState, closeReservation } from "@/lib/services/reservation-steps";
+import { StaleState, closeReservation } from "@/lib/services/reservations/reservation-steps";
 
 // The worker's reservation jobs. Everything they need is in the database (hold_expires_at,
 // pickup_at and the *_at markers), so a restarted worker picks up exactly where it was,

@@ -7,7 +7,7 @@ import { historyOf, reservationIdsFor, sideOf } from "@/db/reservations";
 import { ApiError } from "@/lib/api/errors";
 import type { Side } from "@/lib/reservations/policy";
 import { reservationView, type ReservationView } from "@/lib/reservations/view";
-import { shippingView, type ShippingView } from "@/lib/services/grower-shipping";
+import { shippingView, type ShippingView } from "@/lib/growers/view";
 
 // Reading reservations for one side: a gardener's own, or the requests on a supplier's
 // (or their organisation's) listings. Other people's reservations are simply not found.

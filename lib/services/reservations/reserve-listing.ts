@@ -19,8 +19,8 @@ import { nextOccurrence } from "@/lib/reservations/pickup-times";
 import { cultureOptions, defaultFulfilment, type Fulfilment } from "@/lib/reservations/culture-orders";
 import { findShipping } from "@/db/grower-shipping";
 import { packOf, wholePackProblem } from "@/lib/listings/packs";
-import { confirmReservation, pickupTimes } from "@/lib/services/reservation-steps";
-import { shippingView } from "@/lib/services/grower-shipping";
+import { confirmReservation, pickupTimes } from "@/lib/services/reservations/reservation-steps";
+import { shippingView } from "@/lib/growers/view";
 import { formatMoney } from "@/lib/format/money";
 import { parseQuality } from "@/lib/listings/quality";
 

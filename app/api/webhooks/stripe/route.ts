@@ -3,13 +3,13 @@ import Stripe from "stripe";
 import { toErrorResponse } from "@/lib/api/handler";
 import { ApiError } from "@/lib/api/errors";
 import { WEBHOOK_TOLERANCE_SECONDS, stripe, webhookSecret } from "@/lib/payments/stripe";
-import { receiveStripeEvent } from "@/lib/services/receive-stripe-event";
+import { receiveStripeEvent } from "@/lib/services/payments/receive-stripe-event";
 
 // POST /api/webhooks/stripe — Stripe's signed events. The signature is checked on the raw
 // body (req.text(), never re-serialised JSON); a bad signature, or a timestamp more than the
 // tolerance in the past or in the future, is a 400. A verified event is only a pointer: the
 // object it names is read back from Stripe and Stripe's record is applied
-// (lib/services/receive-stripe-event.ts). Each event id is handled once; a repeat answers 200.
+// (lib/services/payments/receive-stripe-event.ts). Each event id is handled once; a repeat answers 200.
 
 /** The SDK refuses old timestamps; a timestamp from the future is refused here too. */
 function signedAt(header: string): number | null {

@@ -9,9 +9,9 @@ import { ApiError } from "@/lib/api/errors";
 import { mailCultureOrder } from "@/lib/mail/culture-order-mail";
 import { ORDER_TRANSITIONS, orderBlockedReason, type OrderAction } from "@/lib/reservations/culture-orders";
 import type { Side } from "@/lib/reservations/policy";
-import { shippingView } from "@/lib/services/grower-shipping";
-import { StaleState, closeReservation } from "@/lib/services/reservation-steps";
-import { runReservationStep } from "@/lib/services/run-reservation-step";
+import { shippingView } from "@/lib/growers/view";
+import { StaleState, closeReservation } from "@/lib/services/reservations/reservation-steps";
+import { runReservationStep } from "@/lib/services/reservations/run-reservation-step";
 
 // The parcel steps of a posted live-culture order: packed, shipped (carrier and tracking),
 // delivered. Each is one transaction: the guarded update (status and stage in the WHERE, so

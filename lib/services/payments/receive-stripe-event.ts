@@ -5,8 +5,8 @@ import { db } from "@/db/index";
 import { findPayment, paymentByStripeRef, updatePayment } from "@/db/payments";
 import type { PaymentRow } from "@/db/types";
 import { isUniqueViolation } from "@/db/dialect";
-import { syncPayment } from "@/lib/payments/reconcile";
-import { stripe } from "@/lib/payments/stripe";
+import { syncPayment } from "@/lib/services/payments/settle-payment";
+import { retrieveRefund } from "@/lib/payments/gateway";
 
 // What a verified webhook does: it names a Stripe object, and Duffbank reads that object's
 // record back from Stripe through the SDK and applies what the record says (syncPayment).
@@ -40,7 +40,7 @@ async function checkoutRowOf(event: Stripe.Event, q: Knex): Promise<PaymentRow |
 async function syncRefunds(event: Stripe.Event, parent: PaymentRow, q: Knex, now: Date): Promise<void> {
   const obj = event.data.object as unknown as Record<string, any>;
   if (!event.type.startsWith("refund.") || typeof obj.id !== "string") return;
-  const refund = await stripe().refunds.retrieve(obj.id);
+  const refund = await retrieveRefund(obj.id);
   const rowId = refund.metadata?.refund_id;
   if (!rowId || str(refund.payment_intent) !== parent.payment_intent_id) return;
   const row = await q<PaymentRow>("payments").first("*").where({ id: rowId, kind: "refund", parent_id: parent.id });

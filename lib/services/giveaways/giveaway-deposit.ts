@@ -1,16 +1,13 @@
 import "server-only";
 import type { Knex } from "knex";
-import { db } from "@/db/index";
-import { writeTransaction } from "@/db/write-transaction";
-import { findBooking, findDay, findSlot, releaseSlotPlace } from "@/db/giveaways";
+import { findBooking, findDay, findSlot } from "@/db/giveaways";
 import { findOrganisation } from "@/db/organisations";
 import { findUserById } from "@/db/users";
 import { enqueueEmail } from "@/db/outbox";
 import { depositOfBooking } from "@/db/payments";
 import type { DepositStatus, GiveawayBookingRow, PaymentRow } from "@/db/types";
 import { appUrl } from "@/lib/app-url";
-import { bookingParts, giveawayBookingLapsedEmail, giveawayDepositReadyEmail } from "@/lib/mail/templates/giveaway";
-import { runPaymentActions } from "@/lib/payments/actions";
+import { bookingParts, giveawayDepositReadyEmail } from "@/lib/mail/templates/giveaway";
 import { settleCheckout } from "@/lib/payments/owner";
 import { holdMinutes } from "@/lib/reservations/policy";
 import { enqueueBookedEmail } from "@/lib/services/giveaways/book-giveaway";
@@ -38,8 +35,8 @@ export async function settleBookingDeposit(trx: Knex | Trx, bookingId: string, r
 }
 
 /**
- * The booking side of its deposit moving forward (from apply-stripe-event, webhook or
- * recovered). Authorised: the booking is confirmed and its e-mail with the .ics goes out;
+ * The booking side of its deposit moving forward (registered for the owner kind
+ * "giveaway_booking" in lib/services/payments/owners.ts; webhook or recovered). Authorised: the booking is confirmed and its e-mail with the .ics goes out;
  * if the booking ended meanwhile, the hold is let go at once.
  */
 export async function bookingDepositFollows(trx: Trx, row: PaymentRow, status: string, now: Date): Promise<string[]> {
@@ -67,65 +64,8 @@ export async function bookingDepositFollows(trx: Trx, row: PaymentRow, status: s
   return [];
 }
 
-/**
- * The worker's job: bookings whose deposit was not put down in time lapse; the place returns
- * and the card page closes. Each booking is its own transaction: one that cannot be lapsed is
- * logged and left for the next run, and the rest of the batch still lapses.
- */
-export async function expireGiveawayDepositHolds(clock: () => Date = () => new Date(), q: Knex = db()): Promise<{ expired: number }> {
-  const now = clock();
-  const at = now.toISOString();
-  const due = await q<GiveawayBookingRow>("giveaway_bookings")
-    .select("id")
-    .where({ status: "booked", deposit_status: "awaiting" })
-    .andWhere("hold_expires_at", "<=", at)
-    .orderBy("hold_expires_at")
-    .limit(100);
-  let expired = 0;
-  for (const { id } of due) {
-    let owed: string[] | null;
-    try {
-      owed = await lapseBooking(q, id, now);
-    } catch (err) {
-      console.error(`[expire-giveaway-deposits] skipped booking ${id}:`, err instanceof Error ? err.message : err);
-      continue;
-    }
-    if (owed === null) continue; // the deposit went through a moment ago: nothing to lapse
-    expired++;
-    try {
-      await runPaymentActions(owed, clock, q);
-    } catch (err) {
-      // Written down with the lapse, so the settle-payments job makes these calls later.
-      console.error(`[expire-giveaway-deposits] payments for booking ${id} left to settle-payments:`, err instanceof Error ? err.message : err);
-    }
-  }
-  return { expired };
-}
-
-/** Lapses one booking in its own transaction; null when it had moved on meanwhile. */
-async function lapseBooking(q: Knex, id: string, now: Date): Promise<string[] | null> {
-  const at = now.toISOString();
-  return writeTransaction(q, async (trx) => {
-    // Guarded: a deposit authorised a moment ago has moved the booking on, and it stays.
-    const n = await trx("giveaway_bookings")
-      .where({ id, status: "booked", deposit_status: "awaiting" })
-      .andWhere("hold_expires_at", "<=", at)
-      .update({ status: "cancelled", deposit_status: "unpaid", cancelled_at: at, hold_expires_at: null, updated_at: at });
-    if (n === 0) return null;
-    const b = (await findBooking(id, trx))!;
-    await releaseSlotPlace(b.slot_id, trx);
-    const ids = await settleBookingDeposit(trx, id, "return", now);
-    const to = await householdOf(b, trx);
-    if (to) {
-      const mail = giveawayBookingLapsedEmail({ ...to.parts, holdMinutes: holdMinutes() });
-      await enqueueEmail({ to: to.email, ...mail, template: "giveaway_booking_lapsed", dedupe_key: `giveaway-booking-lapsed:${id}` }, trx);
-    }
-    return ids;
-  });
-}
-
 /** Who a booking's e-mails go to, and the parts they are written from. */
-async function householdOf(b: GiveawayBookingRow, trx: Knex | Trx) {
+export async function householdOf(b: GiveawayBookingRow, trx: Knex | Trx) {
   const day = (await findDay(b.day_id, trx))!;
   const slot = (await findSlot(b.slot_id, b.day_id, trx))!;
   const [user, org] = await Promise.all([findUserById(b.user_id, trx), findOrganisation(day.organisation_id, trx)]);
@@ -134,7 +74,7 @@ async function householdOf(b: GiveawayBookingRow, trx: Knex | Trx) {
 }
 
 /**
- * The deposit's card page could not be opened at booking and the worker has opened it now:
+ * (Registered in lib/services/payments/owners.ts.) The deposit's card page could not be opened at booking and the worker has opened it now:
  * the household gets a fresh hold to put the deposit down, and an e-mail saying so.
  */
 export async function depositPageReady(trx: Trx, bookingId: string, now: Date): Promise<void> {

@@ -4,9 +4,9 @@ import { findReservation, sideOf } from "@/db/reservations";
 import type { ReservationRow } from "@/db/types";
 import { writeTransaction } from "@/db/write-transaction";
 import { ApiError } from "@/lib/api/errors";
-import { runPaymentActions } from "@/lib/payments/actions";
+import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import type { Side } from "@/lib/reservations/policy";
-import { StaleState } from "@/lib/services/reservation-steps";
+import { StaleState } from "@/lib/services/reservations/reservation-steps";
 
 export interface StepRun {
   db: Knex;
