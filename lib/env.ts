@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { optional, sharedSchema } from "./env-shared";
+import { number, optional, sharedSchema } from "./env-shared";
 
 // The one place the environment is read and checked, with zod: every variable the app, the
 // worker and the scripts use is declared once below (the ones a browser may see as well, in
@@ -44,13 +44,6 @@ export const SECRETS: { name: SecretName; protects: string; make: string }[] = [
 
 const flag = z.preprocess((v) => (typeof v === "string" ? v.trim() : v), z.enum(["", "0", "1", "true", "false"]).optional()).transform((v) => v === "1" || v === "true");
 
-// A number these modules always read leniently: one that is not fit for its use counts as unset
-// (the default applies), so it never stops a start.
-const number = (fits: (n: number) => boolean) =>
-  optional.transform((v) => {
-    const n = Number(v);
-    return v !== undefined && fits(n) ? n : undefined;
-  });
 const port = number((n) => Number.isInteger(n) && n >= 1 && n <= 65535);
 
 const schema = sharedSchema.extend({
@@ -86,8 +79,6 @@ const schema = sharedSchema.extend({
   SMTP_HOST: optional,
   SMTP_PORT: port,
   MAIL_FROM: optional,
-  // Minutes a new reservation holds its quantity (lib/reservations/policy.ts; default 30).
-  HOLD_MINUTES: number((n) => Number.isFinite(n) && n > 0),
   // log2 of scrypt's N for new password hashes, 10 to 20 (lib/auth/password.ts; default 15).
   PASSWORD_HASH_COST: number((n) => Number.isInteger(n) && n >= 10 && n <= 20),
   // The database: PostgreSQL when DATABASE_URL is set, else the SQLite file (knexfile.ts), and
@@ -220,7 +211,7 @@ export const LOCAL_CLOUDINARY_URL = "cloudinary://duffbank_key:duffbank_secret@d
  * loaded; without a value it would aim at the real service. This fills in the local fake's
  * (lib/media/cloudinary-env.ts calls it before the SDK is imported).
  */
-export function fillCloudinaryUrl(env: NodeJS.ProcessEnv = process.env): void {
+export function fillCloudinaryUrl(env: Env = process.env): void {
   if (!readEnv(env).CLOUDINARY_URL) env.CLOUDINARY_URL = LOCAL_CLOUDINARY_URL;
 }
 

@@ -1,7 +1,7 @@
 // The one environment module (lib/env.ts, lib/env-shared.ts): each variable read once, through
 // zod, when asked; values that were always read leniently still fall back to their defaults.
 import { afterEach, describe, expect, it, vi } from "vitest";
-import { LOCAL_CLOUDINARY_URL, authUrl, dbEnvironment, fillCloudinaryUrl, readEnv, startupProblems } from "@/lib/env";
+import { LOCAL_CLOUDINARY_URL, authUrl, type Env, dbEnvironment, fillCloudinaryUrl, readEnv, startupProblems } from "@/lib/env";
 import { sharedEnv } from "@/lib/env-shared";
 
 afterEach(() => {
@@ -51,10 +51,10 @@ describe("accessors", () => {
   });
 
   it("fillCloudinaryUrl fills in the local fake only when nothing is set", () => {
-    const unset: NodeJS.ProcessEnv = { CLOUDINARY_URL: "" };
+    const unset: Env = { CLOUDINARY_URL: "" };
     fillCloudinaryUrl(unset);
     expect(unset.CLOUDINARY_URL).toBe(LOCAL_CLOUDINARY_URL);
-    const set: NodeJS.ProcessEnv = { CLOUDINARY_URL: "cloudinary://k:s@real" };
+    const set: Env = { CLOUDINARY_URL: "cloudinary://k:s@real" };
     fillCloudinaryUrl(set);
     expect(set.CLOUDINARY_URL).toBe("cloudinary://k:s@real");
   });
