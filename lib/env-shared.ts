@@ -2,11 +2,11 @@ import { z } from "zod";
 
 // The part of the environment module (lib/env.ts) that code in any bundle may import, the
 // browser's included, so lib/env.ts itself (the signing keys, the startup checks) never ends
-// up in one. Next.js writes a `process.env.NEXT_PUBLIC_…` (and NEXT_RUNTIME) into the code at
-// build time only where it is spelled out literally, so each variable is named here one by
-// one, never looked up by a computed key. In the browser every other variable is unset, so the
-// two read by modules that run on both sides (the reservation policy, the pickup times) are
-// their defaults there; the server reads them from its environment.
+// up in one. Next.js writes a `process.env.NEXT_PUBLIC_…` into the code at build time only
+// where it is spelled out literally, so each variable is named here one by one, never looked
+// up by a computed key. In the browser every other variable is unset, so the two read by
+// modules that run on both sides (the reservation policy, the pickup times) are their
+// defaults there; the server reads them from its environment.
 
 // An empty value (an untouched `NAME=` line from .env.example) counts as unset.
 export const optional = z.preprocess((v) => (typeof v === "string" && v.trim() === "" ? undefined : typeof v === "string" ? v.trim() : v), z.string().optional());
@@ -26,8 +26,6 @@ export const sharedSchema = z.object({
   NEXT_PUBLIC_TILE_ATTRIBUTION: optional,
   // The base map's GeoJSON; unset: the one shipped in public/. Fixed at build time.
   NEXT_PUBLIC_BASEMAP_URL: optional,
-  // "nodejs" or "edge": which server runtime runs this code (set by Next.js).
-  NEXT_RUNTIME: optional,
   // The zone pickup windows ("Saturdays 09:00–12:00") are written in.
   PICKUP_TIME_ZONE: optional,
   // Minutes a new reservation holds its quantity (lib/reservations/policy.ts; default 30).
@@ -46,7 +44,6 @@ export function sharedEnv(env?: Record<string, string | undefined>): SharedEnv {
     NEXT_PUBLIC_TILE_URL: process.env.NEXT_PUBLIC_TILE_URL,
     NEXT_PUBLIC_TILE_ATTRIBUTION: process.env.NEXT_PUBLIC_TILE_ATTRIBUTION,
     NEXT_PUBLIC_BASEMAP_URL: process.env.NEXT_PUBLIC_BASEMAP_URL,
-    NEXT_RUNTIME: process.env.NEXT_RUNTIME,
     PICKUP_TIME_ZONE: process.env.PICKUP_TIME_ZONE,
     HOLD_MINUTES: process.env.HOLD_MINUTES,
   });
