@@ -4,6 +4,7 @@ import type { Knex } from "knex";
 import { migrationSource } from "./db/migration-source";
 import { ResilientSqliteClient } from "./db/sqlite-client";
 import { pgTypes } from "./db/dialect";
+import { readEnv } from "./lib/env";
 
 // npm scripts, tests and the server all run from the project root; __dirname would point
 // into the build output once Next.js bundles this file.
@@ -45,13 +46,14 @@ export function pgConfig(url: string): Knex.Config {
   return {
     client: "pg",
     connection: { connectionString: url, types: pgTypes, options: "-c TimeZone=UTC", application_name: "duffbank" } as Knex.PgConnectionConfig,
-    pool: { min: 0, max: Number(process.env.DATABASE_POOL_MAX) || 10 },
+    pool: { min: 0, max: readEnv().DATABASE_POOL_MAX ?? 10 },
     migrations,
   };
 }
 
 function sqliteFile(env: string): string {
-  if (process.env.DATABASE_FILE) return process.env.DATABASE_FILE;
+  const file = readEnv().DATABASE_FILE;
+  if (file) return file;
   // A fresh file for every test run, so no run sees another's rows.
   if (env === "test") return path.join(os.tmpdir(), `duffbank-test-${process.pid}-${Date.now()}.sqlite`);
   return path.join(root, "db", "duffbank.sqlite");
@@ -61,7 +63,7 @@ function sqliteFile(env: string): string {
  * The one switch: DATABASE_URL set means PostgreSQL for every command (dev, start, worker,
  * db:*, tests, bench) whatever NODE_ENV says; otherwise the SQLite file.
  */
-export function configFor(env: string = process.env.NODE_ENV ?? "development"): Knex.Config {
-  const url = process.env.DATABASE_URL;
+export function configFor(env: string = readEnv().NODE_ENV ?? "development"): Knex.Config {
+  const url = readEnv().DATABASE_URL;
   return url ? pgConfig(url) : sqliteConfig(sqliteFile(env));
 }

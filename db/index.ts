@@ -1,23 +1,18 @@
 import knex, { type Knex } from "knex";
 import { configFor } from "../knexfile";
+import { dbEnvironment } from "../lib/env";
 
 const g = globalThis as unknown as { __duffbankDb?: Knex };
 
 /** The one Knex instance, cached on globalThis so dev reloads do not open new pools. */
 export function db(): Knex {
-  if (!g.__duffbankDb) g.__duffbankDb = knex(configFor(appEnv()));
+  if (!g.__duffbankDb) g.__duffbankDb = knex(configFor(dbEnvironment(undefined, { forTests: true })));
   return g.__duffbankDb;
 }
 
 /** Tests point services at their own fresh database. */
 export function setDb(instance: Knex | undefined) {
   g.__duffbankDb = instance;
-}
-
-function appEnv() {
-  if (process.env.DUFFBANK_DB_ENV) return process.env.DUFFBANK_DB_ENV;
-  if (process.env.NODE_ENV === "test") return "test";
-  return process.env.NODE_ENV === "production" ? "production" : "development";
 }
 
 export type Db = Knex | Knex.Transaction;

@@ -4,7 +4,7 @@
 // data layer itself never imports.
 import "../lib/env-files";
 import knex from "knex";
-import { checkStartup } from "../lib/env";
+import { checkStartup, dbEnvironment } from "../lib/env";
 import { configFor } from "../knexfile";
 import { seed } from "../seeds/demo";
 import { backupDatabase, restoreDatabase, type BackupResult } from "../db/backup";
@@ -16,7 +16,7 @@ function describe(r: BackupResult): string {
 
 async function main() {
   const command = process.argv[2];
-  const env = process.env.DUFFBANK_DB_ENV ?? (process.env.NODE_ENV === "production" ? "production" : "development");
+  const env = dbEnvironment();
   // Copying the database in or out uses no secret: a backup job needs only the database's address.
   if (command === "backup" || command === "restore") {
     const file = process.argv.slice(3).find((a) => !a.startsWith("--"));

@@ -5,12 +5,14 @@ import { divIcon, type Map as LeafletMapInstance } from "leaflet";
 import { CircleMarker, GeoJSON, MapContainer, Marker, Pane, Polygon, Polyline, Rectangle, TileLayer, Tooltip, useMap, useMapEvents } from "react-leaflet";
 import type { Feature, FeatureCollection } from "geojson";
 import type { PathOptions } from "leaflet";
+import { DEFAULT_BASEMAP_URL, sharedEnv } from "@/lib/env-shared";
 import type { MapProps } from "./types";
 
 // The base map is Duffbank's own GeoJSON drawing shipped in public/, so the map works with
 // no tile server. A production deployment can add real tiles with NEXT_PUBLIC_TILE_URL.
-const TILE_URL = process.env.NEXT_PUBLIC_TILE_URL;
-const BASEMAP_URL = process.env.NEXT_PUBLIC_BASEMAP_URL ?? "/basemap/fernhollow.geojson";
+// Both are fixed at build time (lib/env-shared.ts).
+const { NEXT_PUBLIC_TILE_URL: TILE_URL, NEXT_PUBLIC_TILE_ATTRIBUTION: TILE_ATTRIBUTION, NEXT_PUBLIC_BASEMAP_URL } = sharedEnv();
+const BASEMAP_URL = NEXT_PUBLIC_BASEMAP_URL ?? DEFAULT_BASEMAP_URL;
 
 const STYLE: Record<string, PathOptions> = {
   land: { color: "#ece3d6", weight: 0, fillColor: "#f3ede4", fillOpacity: 1 },
@@ -115,7 +117,7 @@ export function LeafletMap({ center, zoom = 13, markers = [], areas = [], polygo
       ) : null}
       <MapContainer ref={setMap} center={[center.lat, center.lng]} zoom={zoom} minZoom={10} maxZoom={18} className="h-full w-full" style={{ background: "#f3ede4" }} attributionControl={!!TILE_URL}>
         {TILE_URL ? (
-          <TileLayer url={TILE_URL} attribution={process.env.NEXT_PUBLIC_TILE_ATTRIBUTION ?? ""} />
+          <TileLayer url={TILE_URL} attribution={TILE_ATTRIBUTION ?? ""} />
         ) : (
           // Its own pane under the markers: the drawing arrives after the markers are placed and
           // would otherwise be painted over them.

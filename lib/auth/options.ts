@@ -6,7 +6,7 @@ import { signInSchema } from "@/lib/validation/auth";
 import { sendMail } from "@/lib/mail/transport";
 import { magicLinkEmail } from "@/lib/mail/templates/magic-link";
 import { noAccountEmail } from "@/lib/mail/templates/accounts";
-import { appUrl } from "@/lib/env";
+import { appUrl, authUrl } from "@/lib/env";
 import { LIMITS, clientAddress, ensureUnder, forgive, recordFailure } from "@/lib/security/rate-limit";
 import { AUTH_SECRET, SESSION_MAX_AGE_S } from "./config";
 import { safeCallbackPath } from "./callback-url";
@@ -16,7 +16,7 @@ import { activeUserId, endOneSession, startSession } from "./sessions";
 
 /** What next-auth answers when it has sent a sign-in link; an unknown address gets the same. */
 function linkSentUrl(): string {
-  const base = new URL(process.env.NEXTAUTH_URL || appUrl());
+  const base = new URL(authUrl());
   return `${base.origin}/api/auth/verify-request?provider=email&type=email`;
 }
 

@@ -1,5 +1,6 @@
 import { randomBytes, scrypt as scryptCb, timingSafeEqual, type ScryptOptions } from "node:crypto";
 import bcrypt from "bcryptjs";
+import { readEnv } from "@/lib/env";
 
 // Passwords are hashed with scrypt (Node's own crypto), which reads the whole password —
 // bcrypt reads only its first 72 bytes — and is memory-hard. Hashes carry their parameters
@@ -13,8 +14,7 @@ const P = 3;
 const KEY_BYTES = 32;
 
 function costLog2(): number {
-  const set = Number(process.env.PASSWORD_HASH_COST);
-  return Number.isInteger(set) && set >= 10 && set <= 20 ? set : 15;
+  return readEnv().PASSWORD_HASH_COST ?? 15;
 }
 
 function scrypt(password: string, salt: Buffer, ln: number, r: number, p: number): Promise<Buffer> {

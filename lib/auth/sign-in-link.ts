@@ -1,7 +1,7 @@
 import "server-only";
 import { createHash, randomBytes } from "node:crypto";
 import { db, type Db } from "@/db/index";
-import { appUrl } from "@/lib/env";
+import { appUrl, authUrl } from "@/lib/env";
 import { AUTH_SECRET } from "./config";
 import { safeCallbackPath } from "./callback-url";
 
@@ -19,7 +19,7 @@ export async function signInLink(email: string, callbackPath: string, now: Date 
     token: createHash("sha256").update(`${token}${AUTH_SECRET}`).digest("hex"),
     expires: new Date(now.getTime() + CONFIRM_LINK_HOURS * 3_600_000).toISOString(),
   });
-  const base = new URL(process.env.NEXTAUTH_URL || appUrl()).origin;
+  const base = new URL(authUrl()).origin;
   const params = new URLSearchParams({ callbackUrl: `${appUrl()}${safeCallbackPath(callbackPath)}`, token, email });
   return `${base}/api/auth/callback/email?${params}`;
 }

@@ -1,6 +1,6 @@
 import { createHmac } from "node:crypto";
 import { destination, point } from "@turf/turf";
-import { DEMO_SECRETS, secret } from "@/lib/env";
+import { DEMO_SECRETS, secret, type Env } from "@/lib/env";
 
 // The public point of a pickup place: the exact point moved a fixed, secret-keyed distance and
 // bearing. The offset is keyed by the place — who lists there and which ~100 m cell it is in —
@@ -23,7 +23,7 @@ export const DEMO_LOCATION_SECRET = DEMO_SECRETS.LOCATION_SECRET;
  * production start without a real LOCATION_SECRET is refused before anything is served
  * (lib/env.ts); the demo, development and tests use the demo key.
  */
-export function locationKey(env: NodeJS.ProcessEnv = process.env): string {
+export function locationKey(env?: Env): string {
   return secret("LOCATION_SECRET", env);
 }
 

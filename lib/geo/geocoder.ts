@@ -1,5 +1,5 @@
 import "server-only";
-import { readEnv } from "@/lib/env";
+import { readEnv, type Env } from "@/lib/env";
 import type { PlaceHit } from "@/db/places";
 
 // A geocoding service for the places the local gazetteer does not hold: anything that speaks
@@ -38,7 +38,7 @@ export function placeFromFeature(f: PhotonFeature, index: number): PlaceHit | nu
   return { id, kind: kindOf(p), name, context: context === name ? null : context, lat: lat!, lng: lng! };
 }
 
-export const geocoderConfigured = (env: Record<string, string | undefined> = process.env) => !!readEnv(env).GEOCODER_URL;
+export const geocoderConfigured = (env?: Env) => !!readEnv(env).GEOCODER_URL;
 
 async function ask(path: string, params: Record<string, string>): Promise<PhotonFeature[] | null> {
   const base = readEnv().GEOCODER_URL;

@@ -4,6 +4,6 @@
 // the local fake's address (the README's default) is filled in first.
 
 export { LOCAL_CLOUDINARY_URL } from "@/lib/env";
-import { LOCAL_CLOUDINARY_URL } from "@/lib/env";
+import { fillCloudinaryUrl } from "@/lib/env";
 
-if (!process.env.CLOUDINARY_URL) process.env.CLOUDINARY_URL = LOCAL_CLOUDINARY_URL;
+fillCloudinaryUrl();

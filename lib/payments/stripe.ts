@@ -1,6 +1,6 @@
 import "server-only";
 import Stripe from "stripe";
-import { DEMO_SECRETS, readEnv, secret } from "@/lib/env";
+import { DEMO_SECRETS, readEnv, secret, type Env } from "@/lib/env";
 import { cachedProbe } from "@/lib/health/cached-probe";
 
 // The official Stripe SDK. With the local test key (the default) it talks to the
@@ -26,7 +26,8 @@ export interface StripeEndpoint {
   protocol: "http" | "https" | null;
 }
 
-export function stripeConfig(env: Record<string, string | undefined> = process.env): StripeEndpoint {
+export function stripeConfig(envIn?: Env): StripeEndpoint {
+  const env = readEnv(envIn);
   const key = env.STRIPE_SECRET_KEY || LOCAL_STRIPE_KEY;
   const host = env.STRIPE_API_HOST || (key === LOCAL_STRIPE_KEY ? LOCAL_HOST : null);
   if (!host) return { key, host: null, port: null, protocol: null };
@@ -44,12 +45,12 @@ export function stripeConfig(env: Record<string, string | undefined> = process.e
 // with the same idempotency key, on its own schedule.
 export const DEFAULT_STRIPE_TIMEOUT_MS = 5_000;
 
-export function stripeTimeoutMs(env: Record<string, string | undefined> = process.env): number {
+export function stripeTimeoutMs(env?: Env): number {
   return readEnv(env).STRIPE_TIMEOUT_MS ?? DEFAULT_STRIPE_TIMEOUT_MS;
 }
 
 /** The options the SDK is built with: the endpoint only when it is overridden. */
-export function stripeOptions(endpoint: StripeEndpoint, env: Record<string, string | undefined> = process.env): Stripe.StripeConfig {
+export function stripeOptions(endpoint: StripeEndpoint, env?: Env): Stripe.StripeConfig {
   const common = { maxNetworkRetries: 0, timeout: stripeTimeoutMs(env) };
   if (!endpoint.host) return common;
   return { ...common, host: endpoint.host, port: endpoint.port!, protocol: endpoint.protocol! };

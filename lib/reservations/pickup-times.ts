@@ -3,8 +3,11 @@
 // convention, lib/listings/format.ts). Reservations store instants; this turns one into
 // the other for the town's time zone.
 import { formatWindow } from "@/lib/listings/format";
+import { DEFAULT_PICKUP_TIME_ZONE, sharedEnv } from "@/lib/env-shared";
 
-export const PICKUP_TIME_ZONE = process.env.PICKUP_TIME_ZONE ?? "Europe/London";
+// Read where the code runs: PICKUP_TIME_ZONE on the server; in the browser, where only
+// NEXT_PUBLIC_* values exist, the default.
+export const PICKUP_TIME_ZONE = sharedEnv().PICKUP_TIME_ZONE ?? DEFAULT_PICKUP_TIME_ZONE;
 
 export interface PickupWindow {
   id: string;

@@ -17,11 +17,12 @@
 //      any money taken is returned in full.
 // A priced listing takes its price only; deposits apply to free listings.
 
+import { sharedEnv } from "@/lib/env-shared";
+
 export const DEFAULT_HOLD_MINUTES = 30;
 /** An operator (or a demo) may shorten or lengthen the hold; tests use a moved clock instead. */
-export function holdMinutes(env: Record<string, string | undefined> = process.env): number {
-  const n = Number(env.HOLD_MINUTES);
-  return Number.isFinite(n) && n > 0 ? n : DEFAULT_HOLD_MINUTES;
+export function holdMinutes(env?: Record<string, string | undefined>): number {
+  return sharedEnv(env).HOLD_MINUTES ?? DEFAULT_HOLD_MINUTES;
 }
 // How long a supplier has to answer a request, at most (common practice, no source): two days
 // covers a weekend away from e-mail without leaving a gardener waiting for a week.

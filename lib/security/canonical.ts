@@ -1,6 +1,4 @@
-import { appUrl, readEnv } from "@/lib/env";
-
-type Env = Record<string, string | undefined>;
+import { appUrl, readEnv, type Env } from "@/lib/env";
 
 // One public address. A session cookie belongs to the host name the browser used, so a
 // person who signed in on one name of the server (127.0.0.1) and comes back on another
@@ -34,7 +32,7 @@ export function requestHost(headers: Headers): string | null {
  * Where to send a page request that arrived on another host name, or null to serve it.
  * `pathAndQuery` is the request's path with its query string.
  */
-export function canonicalRedirect(method: string, pathAndQuery: string, headers: Headers, env: Env = process.env): string | null {
+export function canonicalRedirect(method: string, pathAndQuery: string, headers: Headers, env?: Env): string | null {
   if (!READS.has(method.toUpperCase())) return null;
   if (pathAndQuery === "/api" || pathAndQuery.startsWith("/api/") || pathAndQuery.startsWith("/api?")) return null;
   if (readEnv(env).CANONICAL_HOST_REDIRECT === false) return null;

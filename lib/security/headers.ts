@@ -1,6 +1,4 @@
-import { appUrl, browserHosts } from "@/lib/env";
-
-type Env = Record<string, string | undefined>;
+import { appUrl, browserHosts, readEnv, type Env } from "@/lib/env";
 
 // The response headers every page and API answer carries (set in proxy.ts). Scripts run only
 // with this request's nonce (Next.js puts it on its own inline and bundle scripts) or when a
@@ -15,8 +13,8 @@ export function newNonce(): string {
   return btoa(String.fromCharCode(...bytes));
 }
 
-export function contentSecurityPolicy(nonce: string, env: Env = process.env): string {
-  const dev = env.NODE_ENV === "development";
+export function contentSecurityPolicy(nonce: string, env?: Env): string {
+  const dev = readEnv(env).NODE_ENV === "development";
   const hosts = browserHosts(env);
   const https = appUrl(env).startsWith("https:");
   const directives: [string, ...string[]][] = [
@@ -43,7 +41,7 @@ export function contentSecurityPolicy(nonce: string, env: Env = process.env): st
 const HSTS = "max-age=63072000; includeSubDomains";
 
 /** Everything but the policy: the same for every response. */
-export function securityHeaders(env: Env = process.env): Record<string, string> {
+export function securityHeaders(env?: Env): Record<string, string> {
   const headers: Record<string, string> = {
     "X-Content-Type-Options": "nosniff",
     "Referrer-Policy": "strict-origin-when-cross-origin",

@@ -1,6 +1,4 @@
-import { appOrigins } from "@/lib/env";
-
-type Env = Record<string, string | undefined>;
+import { appOrigins, type Env } from "@/lib/env";
 
 // Cross-site request checks for state-changing requests. A browser names the page that sent
 // a request in `Origin` (and, failing that, `Referer`); a request from another site is
@@ -15,7 +13,7 @@ export const STATE_CHANGING = new Set(["POST", "PUT", "PATCH", "DELETE"]);
  * front reports). A cross-site request names its own site in Origin, which differs from the
  * Host it was sent to, so the second is only ever the app's own page on another of its names.
  */
-export function ownOrigins(headers: Headers, env: Env = process.env): Set<string> {
+export function ownOrigins(headers: Headers, env?: Env): Set<string> {
   const origins = new Set(appOrigins(env));
   const host = headers.get("host");
   const proto = headers.get("x-forwarded-proto")?.split(",")[0]?.trim() || "http";
@@ -32,7 +30,7 @@ function originOfUrl(value: string): string | null {
 }
 
 /** True when a browser says this request came from a page of another site. */
-export function isCrossSite(headers: Headers, env: Env = process.env): boolean {
+export function isCrossSite(headers: Headers, env?: Env): boolean {
   const origin = headers.get("origin");
   const own = ownOrigins(headers, env);
   if (origin !== null) return !own.has(origin.trim().toLowerCase());

@@ -8,7 +8,7 @@
 import "../env-files";
 import fs from "node:fs";
 import { db } from "@/db/index";
-import { checkStartup } from "@/lib/env";
+import { checkStartup, readEnv } from "@/lib/env";
 import { jobs, type Clock } from "./jobs";
 import { STOP_GRACE_MS, startWorker } from "./runner";
 
@@ -18,15 +18,15 @@ checkStartup("worker");
 // end-to-end run) is read on every tick so a test can move time forward. Neither is set in
 // production, where this is the system clock.
 const clock: Clock = () => {
-  const file = process.env.DUFFBANK_CLOCK_FILE;
+  const { DUFFBANK_CLOCK, DUFFBANK_CLOCK_FILE: file } = readEnv();
   if (file && fs.existsSync(file)) {
     const t = new Date(fs.readFileSync(file, "utf8").trim());
     if (!Number.isNaN(t.getTime())) return t;
   }
-  return process.env.DUFFBANK_CLOCK ? new Date(process.env.DUFFBANK_CLOCK) : new Date();
+  return DUFFBANK_CLOCK ? new Date(DUFFBANK_CLOCK) : new Date();
 };
 // The end-to-end run ticks every job quickly; normal runs use each job's own interval.
-const INTERVAL_OVERRIDE_MS = Number(process.env.WORKER_INTERVAL_MS ?? 0);
+const INTERVAL_OVERRIDE_MS = readEnv().WORKER_INTERVAL_MS ?? 0;
 
 async function once(names: string[]) {
   for (const name of names) {
