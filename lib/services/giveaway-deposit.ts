@@ -9,7 +9,7 @@ import { enqueueEmail } from "@/db/outbox";
 import { depositOfBooking } from "@/db/payments";
 import type { DepositStatus, GiveawayBookingRow, PaymentRow } from "@/db/types";
 import { appUrl } from "@/lib/app-url";
-import { bookingParts, giveawayBookingLapsedEmail, giveawayDepositReadyEmail } from "@/lib/mail/templates/giveaway";
+import { bookingParts } from "@/lib/mail/templates/giveaway";
 import { runPaymentActions } from "@/lib/payments/actions";
 import { settleCheckout } from "@/lib/payments/owner";
 import { holdMinutes } from "@/lib/reservations/policy";
@@ -117,8 +117,8 @@ async function lapseBooking(q: Knex, id: string, now: Date): Promise<string[] | 
     const ids = await settleBookingDeposit(trx, id, "return", now);
     const to = await householdOf(b, trx);
     if (to) {
-      const mail = giveawayBookingLapsedEmail({ ...to.parts, holdMinutes: holdMinutes() });
-      await enqueueEmail({ to: to.email, ...mail, template: "giveaway_booking_lapsed", dedupe_key: `giveaway-booking-lapsed:${id}` }, trx);
+      const data = { ...to.parts, holdMinutes: holdMinutes() };
+      await enqueueEmail({ to: to.email, template: "giveaway_booking_lapsed", data, dedupe_key: `giveaway-booking-lapsed:${id}` }, trx);
     }
     return ids;
   });
@@ -145,6 +145,6 @@ export async function depositPageReady(trx: Trx, bookingId: string, now: Date): 
   if (n === 0) return;
   const to = await householdOf((await findBooking(bookingId, trx))!, trx);
   if (!to) return;
-  const mail = giveawayDepositReadyEmail({ ...to.parts, holdMinutes: holdMinutes() });
-  await enqueueEmail({ to: to.email, ...mail, template: "giveaway_deposit_ready", dedupe_key: `giveaway-deposit-ready:${bookingId}` }, trx);
+  const data = { ...to.parts, holdMinutes: holdMinutes() };
+  await enqueueEmail({ to: to.email, template: "giveaway_deposit_ready", data, dedupe_key: `giveaway-deposit-ready:${bookingId}` }, trx);
 }

@@ -3,7 +3,7 @@
 // when the grower pauses posting for the weather or resumes it. Built from the same parts as
 // every other e-mail (renderEmail); facts come from lib/calc/facts.ts with their sources.
 import { formatMoney } from "@/lib/format/money";
-import type { ReservationContext } from "@/db/reservation-context";
+import type { MailReservation } from "./reservations";
 import { appUrl } from "@/lib/app-url";
 import { WORM_DAILY_FOOD_SHARE, WORM_DAILY_FOOD_SOURCE, WORM_TEMPERATURE_F, WORMS_AFTER_DAYS } from "@/lib/calc/facts";
 import { PAUSE_REASON_LABELS } from "@/lib/validation/grower";
@@ -15,7 +15,7 @@ import type { Audience } from "./reservations";
 export type CultureMailKind = "care_sheet" | "order_confirmed" | "packed" | "shipped" | "delivered" | "posting_paused" | "posting_resumed";
 
 export interface CultureMailInput {
-  r: ReservationContext;
+  r: MailReservation;
   to: Audience;
   /** As the grower names it on the listing. */
   species: string | null;
@@ -30,7 +30,7 @@ const kg = (x: number) => `${Math.round(x * 100) / 100} kg`;
 const T = WORM_TEMPERATURE_F;
 
 /** The care sheet's paragraphs, in the order a new keeper needs them. */
-export function careSheetParagraphs(r: ReservationContext, species: string | null): string[] {
+export function careSheetParagraphs(r: MailReservation, species: string | null): string[] {
   const qty = r.quantity; // worm listings are sold by the kilogram
   const posted = r.fulfilment === "post";
   return [
@@ -47,7 +47,7 @@ export function careSheetParagraphs(r: ReservationContext, species: string | nul
   ];
 }
 
-function paidLine(r: ReservationContext): string | null {
+function paidLine(r: MailReservation): string | null {
   return r.amount_cents > 0 ? `Paid: ${formatMoney(r.amount_cents, r.currency)}.` : null;
 }
 
@@ -66,7 +66,7 @@ function goesOutLine(i: CultureMailInput): string {
  * (lib/reservations/policy.ts): the buyer may cancel until the grower packs it, and a posted
  * culture cancelled then is returned in full.
  */
-function whileYouWaitLine(r: ReservationContext): string {
+function whileYouWaitLine(r: MailReservation): string {
   const grower = r.supplier.name;
   if (r.order_stage === "packed") return `${grower} has packed it already, so it can no longer be cancelled on the site; if you would rather not wait, ask ${grower} in the messages.`;
   const money =
