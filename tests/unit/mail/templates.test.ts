@@ -82,7 +82,10 @@ const RESERVATION_KINDS: ReservationMailKind[] = [
 ];
 const CULTURE_KINDS: CultureMailKind[] = ["care_sheet", "order_confirmed", "packed", "shipped", "delivered", "posting_paused", "posting_resumed"];
 const AUDIENCES: Audience[] = ["gardener", "supplier"];
-const extra: MailExtra = { reason: "Rain all week", money: "refunded", cancelledBy: "supplier", message: { author: "Ossie Brant", body: "Gate code 4411" } };
+const EXTRAS: MailExtra[] = [
+  { reason: "Rain all week", money: "returned", cancelledBy: "supplier", message: { author: "Ossie Brant", body: "Gate code 4411" } },
+  { reason: null, money: "kept", cancelledBy: "gardener", message: { author: "Wren Tallis", body: "<b>Running late</b>" } },
+];
 
 // What a row holds: the data as JSON, read back as the deliverer reads it.
 const queued = (data: unknown) => JSON.parse(JSON.stringify(data));
@@ -91,10 +94,11 @@ describe("e-mail templates rendered from queued data", () => {
   it("renders every reservation e-mail from its data exactly as from the full reservation", () => {
     for (const r of [base, posted, deposit])
       for (const kind of RESERVATION_KINDS)
-        for (const to of AUDIENCES) {
-          const direct = reservationEmail(kind, r, to, extra);
-          expect(renderTemplate(`reservation.${kind}`, queued({ r: reservationMailData(r), to, extra })), `${r.id} ${kind} ${to}`).toEqual(direct);
-        }
+        for (const to of AUDIENCES)
+          for (const extra of EXTRAS) {
+            const direct = reservationEmail(kind, r, to, extra);
+            expect(renderTemplate(`reservation.${kind}`, queued({ r: reservationMailData(r), to, extra })), `${r.id} ${kind} ${to}`).toEqual(direct);
+          }
   });
 
   it("renders every culture-order e-mail from its data exactly as from the full reservation", () => {
