@@ -17,8 +17,12 @@ export async function up(knex: Knex): Promise<void> {
 }
 
 export async function down(knex: Knex): Promise<void> {
-  // Messages still waiting with only their data cannot be kept without text: render them
-  // first (let the worker empty the outbox) before going back.
+  // Text is required again. A message still waiting with only its data cannot be rendered
+  // by the older code: it is given up on, saying why, rather than sent blank.
+  await knex("email_outbox")
+    .whereNull("text_body")
+    .whereIn("status", ["pending"])
+    .update({ status: "failed", last_error: "queued as template data; the outbox went back to rendered text before it was sent" });
   await knex("email_outbox").whereNull("subject").update({ subject: "" });
   await knex("email_outbox").whereNull("text_body").update({ text_body: "" });
   await knex.schema.alterTable("email_outbox", (t) => {
