@@ -1,6 +1,7 @@
 import type { Db } from "@/db/index";
 import { findShipping } from "@/db/grower-shipping";
 import { enqueueEmail } from "@/db/outbox";
+import { appUrl } from "@/lib/app-url";
 import type { ReservationContext } from "@/db/reservation-context";
 import { nextPostingDay } from "@/lib/reservations/culture-orders";
 import { shippingView } from "@/lib/services/grower-shipping";
@@ -22,7 +23,7 @@ export async function mailCultureOrder(q: Db, kind: CultureMailKind, r: Reservat
   for (const to of audiences) {
     const person = to === "gardener" ? r.gardener : r.supplier;
     // The posting day is worked out from `now` here, so the mail says what it said when queued.
-    const data = { r: reservationMailData(r), to, species, shipping, postingDay };
+    const data = { r: reservationMailData(r), to, species, shipping, postingDay, appUrl: appUrl() };
     await enqueueEmail({ to: person.email, template: `culture.${kind}`, data, dedupe_key: `order:${r.id}:${kind}:${to}${key ? `:${key}` : ""}` }, q);
   }
 }

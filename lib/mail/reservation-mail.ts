@@ -1,5 +1,6 @@
 import type { Db } from "@/db/index";
 import { enqueueEmail } from "@/db/outbox";
+import { appUrl } from "@/lib/app-url";
 import type { ReservationContext } from "@/db/reservation-context";
 import { reservationMailData, type Audience, type MailExtra, type ReservationMailKind } from "./templates/reservations";
 
@@ -19,7 +20,7 @@ export async function mailReservation(
   for (const to of audiences) {
     const person = to === "gardener" ? r.gardener : r.supplier;
     await enqueueEmail(
-      { to: person.email, template: `reservation.${kind}`, data: { r: reservationMailData(r), to, extra }, dedupe_key: `res:${r.id}:${kind}:${to}${key ? `:${key}` : ""}` },
+      { to: person.email, template: `reservation.${kind}`, data: { r: reservationMailData(r), to, extra, appUrl: appUrl() }, dedupe_key: `res:${r.id}:${kind}:${to}${key ? `:${key}` : ""}` },
       q,
     );
   }

@@ -4,7 +4,6 @@
 // every other e-mail (renderEmail); facts come from lib/calc/facts.ts with their sources.
 import { formatMoney } from "@/lib/format/money";
 import type { MailReservation } from "./reservations";
-import { appUrl } from "@/lib/app-url";
 import { WORM_DAILY_FOOD_SHARE, WORM_DAILY_FOOD_SOURCE, WORM_TEMPERATURE_F, WORMS_AFTER_DAYS } from "@/lib/calc/facts";
 import { PAUSE_REASON_LABELS } from "@/lib/validation/grower";
 import { dayLabel, estimatedWorms } from "@/lib/reservations/culture-orders";
@@ -23,6 +22,8 @@ export interface CultureMailInput {
   shipping: { ship_days: string[]; paused: boolean; notice: string; pause_reason?: "heat" | "frost" | "other" | null; pause_note?: string | null };
   /** The next posting day (YYYY-MM-DD), or null. */
   postingDay: string | null;
+  /** The app's address the links start with, as it was where the mail was queued. */
+  appUrl: string;
 }
 
 const fToC = (f: number) => Math.round(((f - 32) * 5) / 9);
@@ -82,7 +83,7 @@ function parts(kind: CultureMailKind, i: CultureMailInput): { subject: string; b
   const { r, to } = i;
   const what = whatLabel(r);
   // The grower works through orders on the dashboard; reviews live on Requests.
-  const link = to === "gardener" || kind === "delivered" ? `${appUrl()}/reservations/${r.id}` : `${appUrl()}/grower#o-${r.id}`;
+  const link = to === "gardener" || kind === "delivered" ? `${i.appUrl}/reservations/${r.id}` : `${i.appUrl}/grower#o-${r.id}`;
   const action = (label: string) => ({ label, url: link });
   const lines = (...xs: (string | null | undefined)[]) => xs.filter((x): x is string => !!x);
   switch (kind) {

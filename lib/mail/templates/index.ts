@@ -29,6 +29,8 @@ export interface ReservationMailData {
   r: MailReservation;
   to: Audience;
   extra?: MailExtra;
+  /** The app's address the links start with, where the mail was queued (the worker may not know it). */
+  appUrl: string;
 }
 
 const RESERVATION_KINDS = [
@@ -62,7 +64,7 @@ type ReservationTemplates = { [K in ReservationMailKind as `reservation.${K}`]: 
 type CultureTemplates = { [K in CultureMailKind as `culture.${K}`]: (d: CultureMailInput) => RenderedEmail };
 
 const reservationTemplates = Object.fromEntries(
-  RESERVATION_KINDS.map((kind) => [`reservation.${kind}`, (d: ReservationMailData) => reservationEmail(kind, d.r, d.to, d.extra ?? {})]),
+  RESERVATION_KINDS.map((kind) => [`reservation.${kind}`, (d: ReservationMailData) => reservationEmail(kind, d.r, d.to, d.extra ?? {}, d.appUrl)]),
 ) as ReservationTemplates;
 
 const cultureTemplates = Object.fromEntries(CULTURE_KINDS.map((kind) => [`culture.${kind}`, (d: CultureMailInput) => cultureOrderEmail(kind, d)])) as CultureTemplates;

@@ -85,7 +85,7 @@ export interface MailExtra {
 }
 
 // One page per reservation serves both sides, however long their lists grow.
-const link = (r: MailReservation, _to: Audience) => `${appUrl()}/reservations/${r.id}`;
+const link = (base: string, r: MailReservation) => `${base}/reservations/${r.id}`;
 
 function whenLine(r: MailReservation): string {
   // A posted live culture has no pickup: say where it goes (lib/mail/templates/culture-orders.ts has its other e-mails).
@@ -106,11 +106,11 @@ const carry = (r: MailReservation) =>
     ? "Bales are heavy: lift with your legs, keep the bale close, and share the lift with a second person."
     : "Bring gloves and bags or a tarp; wash your hands after handling soil, manure or compost.";
 
-function parts(kind: ReservationMailKind, r: MailReservation, to: Audience, extra: MailExtra): { subject: string; body: EmailParts } {
+function parts(kind: ReservationMailKind, r: MailReservation, to: Audience, extra: MailExtra, base: string): { subject: string; body: EmailParts } {
   const what = whatLabel(r);
   const money = extra.money ? moneySentence(r, extra.money) : null;
   const reason = extra.reason ? `Their note: “${extra.reason}”` : null;
-  const action = (label: string) => ({ label, url: link(r, to) });
+  const action = (label: string) => ({ label, url: link(base, r) });
   const lines = (...xs: (string | null | undefined)[]) => xs.filter((x): x is string => !!x);
   switch (kind) {
     case "requested":
@@ -171,7 +171,7 @@ function parts(kind: ReservationMailKind, r: MailReservation, to: Audience, extr
     case "declined":
       return {
         subject: `Declined: ${what}`,
-        body: { heading: `${r.supplier.name} cannot give you this one`, paragraphs: lines(reason, money, "Other listings nearby may still have what your bed needs."), action: { label: "Find other material", url: `${appUrl()}/beds` } },
+        body: { heading: `${r.supplier.name} cannot give you this one`, paragraphs: lines(reason, money, "Other listings nearby may still have what your bed needs."), action: { label: "Find other material", url: `${base}/beds` } },
       };
     case "cancelled": {
       const byYou = extra.cancelledBy === to;
@@ -271,7 +271,8 @@ function parts(kind: ReservationMailKind, r: MailReservation, to: Audience, extr
   }
 }
 
-export function reservationEmail(kind: ReservationMailKind, r: MailReservation, to: Audience, extra: MailExtra = {}) {
-  const { subject, body } = parts(kind, r, to, extra);
+/** `base`: the app's address the links start with, as it was where the mail was queued. */
+export function reservationEmail(kind: ReservationMailKind, r: MailReservation, to: Audience, extra: MailExtra = {}, base = appUrl()) {
+  const { subject, body } = parts(kind, r, to, extra, base);
   return renderEmail(subject, body);
 }

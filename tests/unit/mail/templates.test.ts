@@ -3,6 +3,7 @@
 // byte for byte as it would have rendered from the full reservation at the time it was queued.
 import { describe, expect, it } from "vitest";
 import type { ReservationContext } from "@/db/reservation-context";
+import { appUrl } from "@/lib/app-url";
 import { cultureOrderEmail, type CultureMailKind } from "@/lib/mail/templates/culture-orders";
 import { renderTemplate, templates } from "@/lib/mail/templates";
 import { reservationEmail, reservationMailData, type Audience, type MailExtra, type ReservationMailKind } from "@/lib/mail/templates/reservations";
@@ -97,7 +98,7 @@ describe("e-mail templates rendered from queued data", () => {
         for (const to of AUDIENCES)
           for (const extra of EXTRAS) {
             const direct = reservationEmail(kind, r, to, extra);
-            expect(renderTemplate(`reservation.${kind}`, queued({ r: reservationMailData(r), to, extra })), `${r.id} ${kind} ${to}`).toEqual(direct);
+            expect(renderTemplate(`reservation.${kind}`, queued({ r: reservationMailData(r), to, extra, appUrl: appUrl() })), `${r.id} ${kind} ${to}`).toEqual(direct);
           }
   });
 
@@ -107,10 +108,20 @@ describe("e-mail templates rendered from queued data", () => {
     for (const s of [shipping, pausedShipping])
       for (const kind of CULTURE_KINDS)
         for (const to of AUDIENCES) {
-          const input = { r: posted, to, species: "Eisenia fetida", shipping: s, postingDay: s.paused ? null : "2027-01-11" };
+          const input = { r: posted, to, species: "Eisenia fetida", shipping: s, postingDay: s.paused ? null : "2027-01-11", appUrl: appUrl() };
           const direct = cultureOrderEmail(kind, input);
           expect(renderTemplate(`culture.${kind}`, queued({ ...input, r: reservationMailData(posted) })), `${kind} ${to}`).toEqual(direct);
         }
+  });
+
+  it("starts its links with the app's address queued in the data, not the delivering process's", () => {
+    const at = "https://beds.marrowby.test";
+    const mail = renderTemplate("reservation.confirmed", queued({ r: reservationMailData(base), to: "gardener", appUrl: at }));
+    expect(mail.text).toContain(`${at}/reservations/res-1`);
+    const shipping = { ship_days: ["Monday"], paused: false, notice: "", pause_reason: null, pause_note: null };
+    const culture = renderTemplate("culture.order_confirmed", queued({ r: reservationMailData(posted), to: "supplier", species: null, shipping, postingDay: null, appUrl: at }));
+    expect(culture.text).toContain(`${at}/grower#o-res-2`);
+    expect(appUrl()).not.toBe(at);
   });
 
   it("keeps only what the e-mails read of a reservation in its data", () => {
