@@ -5,9 +5,10 @@ import type { ReservationContext } from "@/db/reservation-context";
 import { reservationMailData, type Audience, type MailExtra, type ReservationMailKind } from "./templates/reservations";
 
 /**
- * Queues a reservation e-mail in the outbox (its template and data, rendered when sent), inside the caller's transaction, so the mail
- * exists exactly when the change does. The dedupe key makes a replayed change (a webhook
- * delivered twice, a job run twice) keep one message.
+ * Queues a reservation e-mail in the outbox, inside the caller's transaction, so the mail
+ * exists exactly when the change does: its template and data, rendered when it is sent. The
+ * dedupe key makes a replayed change (a webhook delivered twice, a job run twice) keep one
+ * message.
  */
 export async function mailReservation(
   q: Db,
