@@ -91,6 +91,29 @@ export type TemplateName = keyof typeof templates;
 /** The data a template renders from, as it is queued. */
 export type TemplateData<N extends TemplateName> = Parameters<(typeof templates)[N]>[0];
 
+const BOOKING = ["name", "title", "organisation", "dateLabel", "slotLabel", "quantityLabel", "pageUrl"] as const;
+const RESERVATION_DATA = ["r", "to", "appUrl"] as const;
+const CULTURE_DATA = ["r", "to", "species", "shipping", "postingDay", "appUrl"] as const;
+
+/** What each template's data must hold (null is a value; a missing key is not), checked before rendering. */
+const REQUIRED: { [N in TemplateName]: readonly (keyof TemplateData<N>)[] } = {
+  "account.confirm": ["name", "url"],
+  "account.already_joined": ["signInUrl"],
+  "account.password_changed": ["signInUrl"],
+  bed_reminder: ["name", "bedName", "title", "date", "url"],
+  council_invite: ["organisation", "inviter", "url", "expires"],
+  report_outcome: ["name", "subject", "reason", "outcome", "actions"],
+  giveaway_booked: [...BOOKING, "address", "cancelBy", "depositNote", "calendarUrl", "cautions"],
+  giveaway_booking_cancelled: BOOKING,
+  giveaway_booking_lapsed: [...BOOKING, "holdMinutes"],
+  giveaway_deposit_ready: [...BOOKING, "holdMinutes"],
+  giveaway_day_cancelled: [...BOOKING, "reason", "depositNote"],
+  "need.alert": ["name", "line", "cautions", "needsUrl"],
+  "need.digest": ["name", "lines", "needsUrl"],
+  ...(Object.fromEntries(RESERVATION_KINDS.map((kind) => [`reservation.${kind}`, RESERVATION_DATA])) as { [K in keyof ReservationTemplates]: typeof RESERVATION_DATA }),
+  ...(Object.fromEntries(CULTURE_KINDS.map((kind) => [`culture.${kind}`, CULTURE_DATA])) as { [K in keyof CultureTemplates]: typeof CULTURE_DATA }),
+};
+
 export function isTemplateName(name: string): name is TemplateName {
   return Object.prototype.hasOwnProperty.call(templates, name);
 }
@@ -103,5 +126,7 @@ export function isTemplateName(name: string): name is TemplateName {
 export function renderTemplate(name: string, data: unknown): RenderedEmail {
   if (!isTemplateName(name)) throw new Error(`unknown e-mail template "${name}"`);
   if (typeof data !== "object" || data === null || Array.isArray(data)) throw new Error(`e-mail template "${name}" needs an object of data`);
+  const missing = (REQUIRED[name] as readonly string[]).filter((key) => (data as Record<string, unknown>)[key] === undefined);
+  if (missing.length) throw new Error(`e-mail template "${name}" needs ${missing.join(", ")} in its data`);
   return (templates[name] as (d: unknown) => RenderedEmail)(data);
 }

@@ -146,6 +146,10 @@ describe("e-mail templates rendered from queued data", () => {
   it("refuses an unknown template and data that is not an object", () => {
     expect(() => renderTemplate("reservation.unheard_of", {})).toThrow(/unknown e-mail template/);
     expect(() => renderTemplate("account.confirm", null)).toThrow(/object of data/);
-    expect(() => renderTemplate("reservation.confirmed", { to: "gardener" })).toThrow();
+    expect(() => renderTemplate("reservation.confirmed", { to: "gardener" })).toThrow('e-mail template "reservation.confirmed" needs r, appUrl in its data');
+    expect(() => renderTemplate("council_invite", { organisation: "Marrowby Council", inviter: "Ada Fenn", url: "http://x.test" })).toThrow(/needs expires/);
+    // null is a value some data holds on purpose (no posting day while posting is paused).
+    const shipping = { ship_days: ["Monday"], paused: true, notice: "Posting is paused.", pause_reason: "heat", pause_note: null };
+    expect(renderTemplate("culture.posting_paused", queued({ r: reservationMailData(posted), to: "gardener", species: null, shipping, postingDay: null, appUrl: appUrl() })).subject).toBe("Posting paused: 3 kg of Red wigglers");
   });
 });
