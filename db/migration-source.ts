@@ -18,6 +18,7 @@ import * as openNeeds from "../migrations/20261208_020_open_needs";
 import * as answerWindows from "../migrations/20261209_030_answer_windows";
 import * as places from "../migrations/20261209_031_places";
 import * as culturePacks from "../migrations/20261210_032_culture_packs";
+import * as outboxTemplateData from "../migrations/20261211_033_outbox_template_data";
 
 // Migrations are listed here rather than found on disk so that the same list runs under
 // the CLI script, Vitest and the bundled Next.js server alike. Add new ones at the end.
@@ -41,6 +42,7 @@ const migrations: Record<string, Knex.Migration> = {
   "20261209_030_answer_windows": answerWindows,
   "20261209_031_places": places,
   "20261210_032_culture_packs": culturePacks,
+  "20261211_033_outbox_template_data": outboxTemplateData,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -1,24 +1,28 @@
 import { db, newId, nowIso, type Db } from "./index";
 import type { OutboxRow } from "./types";
+import type { TemplateData, TemplateName } from "@/lib/mail/templates";
 
-export interface NewEmail {
-  to: string;
-  subject: string;
-  text: string;
-  html?: string | null;
-  template: string;
-  /** Writing the same key twice keeps one message: reminders and retries cannot double up. */
-  dedupe_key?: string | null;
-  send_after?: string;
-}
+/**
+ * A message to queue: the name of its template and the data that template renders from
+ * (lib/mail/templates/index.ts). Nothing is rendered here: the deliverer renders the message
+ * when it sends it, so a transaction that queues mail only writes a row.
+ */
+export type NewEmail = {
+  [N in TemplateName]: {
+    to: string;
+    template: N;
+    data: TemplateData<N>;
+    /** Writing the same key twice keeps one message: reminders and retries cannot double up. */
+    dedupe_key?: string | null;
+    send_after?: string;
+  };
+}[TemplateName];
 
 const outboxRow = (mail: NewEmail, now: string) => ({
   id: newId(),
   to_address: mail.to,
-  subject: mail.subject,
-  text_body: mail.text,
-  html_body: mail.html ?? null,
   template: mail.template,
+  data: JSON.stringify(mail.data),
   dedupe_key: mail.dedupe_key ?? null,
   status: "pending",
   attempts: 0,
@@ -66,11 +70,30 @@ export async function claimEmail(id: string, now: string, until: string, workerI
   return changed === 1;
 }
 
-/** Records that the SMTP server accepted the message, under the id it gave; the claim ends. */
-export async function markSent(id: string, now: string, smtpMessageId: string, q: Db = db()): Promise<void> {
+/** What was rendered from a row's template and data, kept on the row once it is sent. */
+export interface SentText {
+  subject: string;
+  text: string;
+  html: string | null;
+}
+
+/**
+ * Records that the SMTP server accepted the message, under the id it gave; the claim ends.
+ * A message queued as template data keeps the text it was sent with (`sent`).
+ */
+export async function markSent(id: string, now: string, smtpMessageId: string, sent?: SentText, q: Db = db()): Promise<void> {
   await q("email_outbox")
     .where({ id, status: "pending" })
-    .update({ status: "sent", sent_at: now, smtp_message_id: smtpMessageId.slice(0, 300), last_error: null, claimed_until: null, claimed_by: null, waiting_for: null });
+    .update({
+      status: "sent",
+      sent_at: now,
+      smtp_message_id: smtpMessageId.slice(0, 300),
+      last_error: null,
+      claimed_until: null,
+      claimed_by: null,
+      waiting_for: null,
+      ...(sent ? { subject: sent.subject.slice(0, 200), text_body: sent.text, html_body: sent.html } : {}),
+    });
 }
 
 export async function markFailedAttempt(

@@ -55,10 +55,13 @@ export interface MembershipRow {
 export interface OutboxRow {
   id: string;
   to_address: string;
-  subject: string;
-  text_body: string;
+  /** Null until sent for a message queued as template data; set for one queued rendered (before migration 033). */
+  subject: string | null;
+  text_body: string | null;
   html_body: string | null;
   template: string;
+  /** The template's data as JSON (lib/mail/templates/index.ts), rendered when sent; null on a row queued rendered. */
+  data: string | null;
   dedupe_key: string | null;
   status: "pending" | "sent" | "failed";
   attempts: number;

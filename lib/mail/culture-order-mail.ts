@@ -1,11 +1,12 @@
 import type { Db } from "@/db/index";
 import { findShipping } from "@/db/grower-shipping";
 import { enqueueEmail } from "@/db/outbox";
+import { appUrl } from "@/lib/app-url";
 import type { ReservationContext } from "@/db/reservation-context";
 import { nextPostingDay } from "@/lib/reservations/culture-orders";
 import { shippingView } from "@/lib/growers/view";
-import { cultureOrderEmail, type CultureMailKind } from "./templates/culture-orders";
-import type { Audience } from "./templates/reservations";
+import type { CultureMailKind } from "./templates/culture-orders";
+import { reservationMailData, type Audience } from "./templates/reservations";
 import { parseQuality } from "@/lib/listings/quality";
 
 /**
@@ -16,13 +17,14 @@ import { parseQuality } from "@/lib/listings/quality";
  */
 export async function mailCultureOrder(q: Db, kind: CultureMailKind, r: ReservationContext, audiences: Audience[], now: Date, key?: string): Promise<void> {
   const [shippingRow, listing] = await Promise.all([findShipping(r.listing.owner_id, q), q("listings").first("quality").where({ id: r.listing_id })]);
-  const shipping = shippingView(shippingRow);
+  const { ship_weekdays, ...shipping } = shippingView(shippingRow); // the mails name the days; the numbers stay here
   const species = speciesOf(listing?.quality);
-  const postingDay = shipping.paused ? null : nextPostingDay(shipping.ship_weekdays, now);
+  const postingDay = shipping.paused ? null : nextPostingDay(ship_weekdays, now);
   for (const to of audiences) {
     const person = to === "gardener" ? r.gardener : r.supplier;
-    const mail = cultureOrderEmail(kind, { r, to, species, shipping, postingDay });
-    await enqueueEmail({ to: person.email, ...mail, template: `culture.${kind}`, dedupe_key: `order:${r.id}:${kind}:${to}${key ? `:${key}` : ""}` }, q);
+    // The posting day is worked out from `now` here, so the mail says what it said when queued.
+    const data = { r: reservationMailData(r), to, species, shipping, postingDay, appUrl: appUrl() };
+    await enqueueEmail({ to: person.email, template: `culture.${kind}`, data, dedupe_key: `order:${r.id}:${kind}:${to}${key ? `:${key}` : ""}` }, q);
   }
 }
 

@@ -6,8 +6,11 @@ import {
   markFailedAttempt,
   markSent,
   wakeWaitingForMailServer,
+  type SentText,
 } from "@/db/outbox";
+import type { OutboxRow } from "@/db/types";
 import { backoffDelayMs, nextCooldownMs, type Backoff } from "@/lib/time/backoff";
+import { renderTemplate } from "./templates";
 import { mailFailure, probeMail, sendMail } from "./transport";
 
 // Backoff for a message the SMTP server would not take: 30 s, 1, 2, 4 … minutes, capped
@@ -40,7 +43,7 @@ export interface DeliverOptions {
 // Messages the SMTP server accepted whose "sent" mark could not be written (the database
 // was busy or read-only for a moment). They are marked at the start of the next run, and
 // never handed to SMTP again: the mark is retried, not the send.
-const unmarked = new Map<string, { messageId: string; acceptedAt: string }>();
+const unmarked = new Map<string, { messageId: string; acceptedAt: string; sent?: SentText }>();
 let lastWake = 0;
 let wakeCooldownMs = 0;
 // The message being handed to the SMTP server right now, if any.
@@ -57,9 +60,9 @@ export function messagesInFlight(): string[] {
 
 /** Writes the marks still owed; returns how many are still owed afterwards. */
 export async function markAccepted(): Promise<number> {
-  for (const [id, { messageId, acceptedAt }] of unmarked) {
+  for (const [id, { messageId, acceptedAt, sent }] of unmarked) {
     try {
-      await markSent(id, acceptedAt, messageId);
+      await markSent(id, acceptedAt, messageId, sent);
       unmarked.delete(id);
     } catch (err) {
       console.error(`[outbox] message ${id} was accepted by the mail server; marking it sent failed again:`, (err as Error).message);
@@ -67,6 +70,25 @@ export async function markAccepted(): Promise<number> {
     }
   }
   return unmarked.size;
+}
+
+/**
+ * The message a row holds: rendered now from its template and data, or, for a row queued
+ * before messages were queued as data, the text it was queued with. Throws when the row
+ * cannot be rendered (an unknown template, data that does not fit it).
+ */
+export function renderOutboxRow(row: Pick<OutboxRow, "template" | "data" | "subject" | "text_body" | "html_body">): SentText {
+  if (row.data == null) {
+    if (row.subject == null || row.text_body == null) throw new Error("the message has neither data nor text");
+    return { subject: row.subject, text: row.text_body, html: row.html_body };
+  }
+  let data: unknown;
+  try {
+    data = JSON.parse(row.data);
+  } catch {
+    throw new Error("the message's data is not JSON");
+  }
+  return renderTemplate(row.template, data);
 }
 
 /**
@@ -93,10 +115,20 @@ export async function deliverOutbox(clock: () => Date = () => new Date(), opts: 
     if (opts.signal?.aborted) break;
     const at = clock();
     if (!(await claimEmail(mail.id, at.toISOString(), new Date(at.getTime() + CLAIM_MS).toISOString(), workerId))) continue; // another worker has it
+    let rendered: SentText;
+    try {
+      rendered = renderOutboxRow(mail);
+    } catch (err) {
+      // Sending again would render the same way: the message fails for good, and says why.
+      failed++;
+      await markFailedAttempt(mail.id, { attempts: mail.attempts + 1, nextAt: at.toISOString(), error: `rendering failed: ${(err as Error).message}`, giveUp: true, waitingFor: null });
+      console.error(`[outbox] message ${mail.id} (${mail.template}) could not be rendered:`, (err as Error).message);
+      continue;
+    }
     let messageId: string;
     sending = mail.id;
     try {
-      messageId = await sendMail({ to: mail.to_address, subject: mail.subject, text: mail.text_body, html: mail.html_body });
+      messageId = await sendMail({ to: mail.to_address, subject: rendered.subject, text: rendered.text, html: rendered.html });
     } catch (err) {
       sending = null;
       failed++;
@@ -115,7 +147,7 @@ export async function deliverOutbox(clock: () => Date = () => new Date(), opts: 
     }
     sent++;
     wakeCooldownMs = 0;
-    unmarked.set(mail.id, { messageId, acceptedAt: clock().toISOString() });
+    unmarked.set(mail.id, { messageId, acceptedAt: clock().toISOString(), sent: mail.data == null ? undefined : rendered });
     sending = null;
     // A message went through: anything still waiting for the server is due now.
     if (sent === 1 && (await anyWaitingForMailServer())) await wakeWaitingForMailServer(clock().toISOString());

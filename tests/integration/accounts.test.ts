@@ -17,6 +17,7 @@ import { authOptions } from "@/lib/auth/options";
 import { AUTH_SECRET } from "@/lib/auth/config";
 import { knexAdapter } from "@/lib/auth/knex-adapter";
 import { hashPassword, needsRehash, verifyPassword } from "@/lib/auth/password";
+import { renderedRows } from "../helpers/outbox";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 beforeAll(async () => {
@@ -28,7 +29,7 @@ const STRONG = "quarry thimble lavender";
 let n = 0;
 const ip = () => ({ "x-forwarded-for": `203.0.113.${++n}` });
 const join = async (body: Record<string, unknown>) => call(signUp as never, await request("/api/users", { body: { display_name: "Wren Ashdown", password: STRONG, ...body }, headers: ip() }));
-const mailTo = (email: string) => ctx.db("email_outbox").where({ to_address: email }).orderBy("created_at").select("template", "subject", "text_body");
+const mailTo = (email: string) => renderedRows(ctx.db("email_outbox").where({ to_address: email }).orderBy("created_at").select("template", "data"));
 const authorize = (authOptions.providers.find((p) => p.id === "credentials") as unknown as { options: { authorize: (c: object, req?: object) => Promise<{ id: string } | null> } }).options.authorize;
 
 describe("joining says the same for a known and an unknown address", () => {

@@ -9,6 +9,7 @@ import { sendBedReminders } from "@/lib/services/beds/send-bed-reminders";
 import { updateUser } from "@/db/users";
 import { insertBed } from "@/db/beds";
 import { toRequest, valuesFromBed } from "@/components/planner/form-model";
+import { renderedRows } from "../helpers/outbox";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 let ada: string;
@@ -147,7 +148,7 @@ describe("beds: editing in the planner form", () => {
 describe("timeline reminders", () => {
   it("queue each step once on its day, skip old ones, and respect the opt-out", async () => {
     await call(beds.POST as never, await request("/api/beds", { body: { ...good, name: "Reminder bed", start_date: "2027-03-01" }, as: bo }));
-    const outbox = () => ctx.db("email_outbox").where({ template: "bed_reminder" }).select("subject", "dedupe_key");
+    const outbox = () => renderedRows(ctx.db("email_outbox").where({ template: "bed_reminder" }).select("template", "data", "dedupe_key"));
 
     // The day before building: nothing is due.
     await sendBedReminders(() => new Date("2027-02-28T08:00:00Z"));
@@ -200,7 +201,7 @@ describe("timeline reminders with a bed that cannot be estimated", () => {
     } finally {
       spy.mockRestore();
     }
-    const mails = await ctx.db("email_outbox").where({ template: "bed_reminder", to_address: cy.email }).select("subject");
+    const mails = await renderedRows(ctx.db("email_outbox").where({ template: "bed_reminder", to_address: cy.email }).select("template", "data"));
     expect(mails.map((m) => m.subject)).toEqual(["Sound bed: Build day"]);
     expect(logged).toHaveLength(2);
     expect(String(logged[0][0])).toContain("bed-reminders");
@@ -213,7 +214,7 @@ describe("timeline reminders after the bed is ready", () => {
     await call(beds.POST as never, await request("/api/beds", { body: { ...good, name: "Old bed", start_date: "2027-10-01" }, as: di.id }));
     // Built 1 Oct 2027 at 52.2° N: ready 1 Oct 2028, then leaves on 15 Oct 2028.
     await sendBedReminders(() => new Date("2028-10-15T08:00:00Z"));
-    const mails = await ctx.db("email_outbox").where({ template: "bed_reminder", to_address: di.email }).select("subject");
+    const mails = await renderedRows(ctx.db("email_outbox").where({ template: "bed_reminder", to_address: di.email }).select("template", "data"));
     expect(mails.map((m) => m.subject)).toEqual(["Old bed: Top up with fallen leaves"]);
   });
 });

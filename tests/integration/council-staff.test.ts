@@ -8,6 +8,7 @@ import * as accept from "@/app/api/council/invites/accept/route";
 import * as member from "@/app/api/council/members/[userId]/route";
 import * as members from "@/app/api/council/members/route";
 import { acceptInvite, describeInvite } from "@/lib/services/council/manage-council-staff";
+import { rendered } from "../helpers/outbox";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 const p: Record<string, string> = {};
@@ -27,7 +28,7 @@ afterAll(() => ctx.close());
 
 const post = async (as: string | null, body: unknown) => call(invites.POST as never, await request("/api/council/invites", { body, as }));
 const tokenFromOutbox = async (to: string) => {
-  const mail = await ctx.db("email_outbox").where({ to_address: to, template: "council_invite" }).orderBy("created_at", "desc").first();
+  const mail = rendered(await ctx.db("email_outbox").where({ to_address: to, template: "council_invite" }).orderBy("created_at", "desc").first());
   return new URL(mail.text_body.match(/https?:\/\/\S+\/council\/join\?token=\S+/)![0]).searchParams.get("token")!;
 };
 
@@ -36,7 +37,7 @@ describe("inviting staff", () => {
     const res = await post(p.owner, { email: "New.Colleague@example.test" });
     expect(res.status).toBe(201);
     expect(res.json.invite).toMatchObject({ email: "new.colleague@example.test", status: "pending" });
-    const mail = await ctx.db("email_outbox").where({ template: "council_invite" }).first();
+    const mail = rendered(await ctx.db("email_outbox").where({ template: "council_invite" }).first());
     expect(mail.to_address).toBe("new.colleague@example.test");
     expect(mail.text_body).toContain("/council/join?token=");
     const audit = await ctx.db("audit_log").where({ action: "council.invite" }).first();

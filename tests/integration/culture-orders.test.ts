@@ -19,6 +19,7 @@ import { POST as ship } from "@/app/api/reservations/[id]/ship/route";
 import { POST as deliver } from "@/app/api/reservations/[id]/deliver/route";
 import { GET as growerOrders } from "@/app/api/grower/orders/route";
 import { db } from "@/db/index";
+import { renderedRows } from "../helpers/outbox";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 let pay: PaymentsHarness;
@@ -57,7 +58,7 @@ async function setShipping(paused: boolean) {
 const reserveAs = async (as: string, body: Record<string, unknown>) => call(reserve, await request("/api/reservations", { as, body }));
 const act = async (handler: any, id: string, as: string | null, body: unknown = {}) => call(handler, await request(`/api/reservations/${id}/x`, { as, body }), { id });
 const row = (id: string) => db()("reservations").first("*").where({ id });
-const mails = (id: string) => db()("email_outbox").select("to_address", "subject", "text_body", "template").where("dedupe_key", "like", `order:${id}:%`);
+const mails = (id: string) => renderedRows(db()("email_outbox").select("to_address", "template", "data").where("dedupe_key", "like", `order:${id}:%`));
 
 describe("choosing how a culture arrives", () => {
   it("posts to the buyer's address, which only the buyer and the grower see", async () => {

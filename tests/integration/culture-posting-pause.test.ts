@@ -9,6 +9,7 @@ import { createListing, createReservationIn } from "../reservation-factories";
 import * as shipping from "@/app/api/grower/shipping/route";
 import { POST as cancel } from "@/app/api/reservations/[id]/cancel/route";
 import { db } from "@/db/index";
+import { renderedRows } from "../helpers/outbox";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 const p = {} as Record<"grower" | "otherGrower", string>;
@@ -40,7 +41,7 @@ afterAll(() => ctx.close());
 
 const put = async (body: unknown) => call(shipping.PUT as never, await request("/x", { method: "PUT", body, as: p.grower }));
 const mailsOf = (id: string, kind: string) =>
-  db()("email_outbox").select("to_address", "subject", "text_body", "html_body", "template").where("dedupe_key", "like", `order:${id}:${kind}:%`);
+  renderedRows(db()("email_outbox").select("to_address", "template", "data").where("dedupe_key", "like", `order:${id}:${kind}:%`));
 const emailOf = async (reservationId: string) => (await db()("reservations as r").join("users as u", "u.id", "r.gardener_id").first("u.email").where("r.id", reservationId)).email;
 
 describe("pausing posting with parcels waiting", () => {

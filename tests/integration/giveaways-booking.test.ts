@@ -12,6 +12,7 @@ import { bookGiveaway } from "@/lib/services/giveaways/book-giveaway";
 import { cancelGiveawayBooking } from "@/lib/services/giveaways/cancel-giveaway-booking";
 import { authOptions } from "@/lib/auth/options";
 import { hashPassword } from "@/lib/auth/password";
+import { rendered } from "../helpers/outbox";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 let council: string;
@@ -77,7 +78,7 @@ describe("POST /api/giveaways/:id/bookings", () => {
     expect(res.status).toBe(201);
     expect(res.json.booking).toMatchObject({ slot_id: day.slots[0].id, quantity: 4, status: "booked" });
     adaBooking = res.json.booking.id;
-    const mail = await ctx.db("email_outbox").where({ template: "giveaway_booked" }).first();
+    const mail = rendered(await ctx.db("email_outbox").where({ template: "giveaway_booked" }).first());
     expect(mail.text_body).toContain(DEPOT_ADDRESS);
     expect(mail.text_body).toContain("4 bags");
     expect(mail.text_body).toMatch(new RegExp(`/api/giveaways/${day.id}/bookings/${adaBooking}/calendar\\.ics\\?t=`));
@@ -96,7 +97,7 @@ describe("POST /api/giveaways/:id/bookings", () => {
     expect(visitor.json.giveaway.slots[0].remaining).toBe(1);
   });
   it("gives the .ics to the e-mailed link without a session, and to no one else", async () => {
-    const mail = await ctx.db("email_outbox").where({ template: "giveaway_booked" }).first();
+    const mail = rendered(await ctx.db("email_outbox").where({ template: "giveaway_booked" }).first());
     const url = new URL(mail.text_body.match(/https?:\/\/\S+calendar\.ics\?t=\S+/)![0]);
     const params = { id: day.id, bookingId: adaBooking };
     const res = await calendar.GET(await request(url.pathname + url.search), { params: Promise.resolve(params) });

@@ -10,6 +10,7 @@ import * as slots from "@/app/api/council/giveaways/[id]/slots/route";
 import * as slot from "@/app/api/council/giveaways/[id]/slots/[slotId]/route";
 import * as csv from "@/app/api/council/giveaways/[id]/sheet.csv/route";
 import * as attendance from "@/app/api/council/giveaways/[id]/bookings/[bookingId]/route";
+import { renderedRows } from "../helpers/outbox";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 const p: Record<string, string> = {};
@@ -174,7 +175,7 @@ describe("calling a day off", () => {
     expect(res.status).toBe(200);
     expect(res.json.bookings_cancelled).toBe(2);
     expect(res.json.day.status).toBe("cancelled");
-    const mails = await ctx.db("email_outbox").where({ template: "giveaway_day_cancelled" }).select("to_address", "text_body");
+    const mails = await renderedRows(ctx.db("email_outbox").where({ template: "giveaway_day_cancelled" }).select("to_address", "template", "data"));
     expect(mails).toHaveLength(2);
     for (const m of mails) {
       expect(m.text_body).toContain("The depot gate is broken.");

@@ -17,6 +17,7 @@ import * as listingDetail from "@/app/api/listings/[id]/route";
 import { authOptions } from "@/lib/auth/options";
 import { hashPassword } from "@/lib/auth/password";
 import { REPORTS_PER_DAY } from "@/lib/services/moderation/file-report";
+import { rendered } from "../helpers/outbox";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 const p: Record<string, string> = {};
@@ -167,7 +168,7 @@ describe("closing a report", () => {
     const res = await call(close.POST as never, await request("/x", { body: { note: "We hid the listing and spoke to the supplier." }, as: p.mod }), { id: open.id });
     expect(res.status).toBe(200);
     expect(res.json.report.status).toBe("closed");
-    const mail = await ctx.db("email_outbox").where({ template: "report_outcome" }).first();
+    const mail = rendered(await ctx.db("email_outbox").where({ template: "report_outcome" }).first());
     const reporterEmail = (await ctx.db("users").where({ id: p.reporter }).first()).email;
     expect(mail.to_address).toBe(reporterEmail);
     expect(mail.text_body).toContain("We hid the listing and spoke to the supplier.");

@@ -15,6 +15,7 @@ import { sendNeedDigests } from "@/lib/services/needs/send-need-digests";
 import { expireOpenNeeds } from "@/lib/services/needs/close-needs";
 import { needsReaching } from "@/lib/needs/reaching";
 import { isPg, queryPlan } from "../helpers/engine";
+import { renderedRows } from "../helpers/outbox";
 
 process.env.CLOUDINARY_URL = "cloudinary://k:s@duffbank-local?upload_prefix=http://127.0.0.1:9";
 const listings = await import("@/app/api/listings/route");
@@ -46,7 +47,7 @@ async function openNeed(as: string, body: Record<string, unknown>) {
   return res.json.need.id as string;
 }
 const alertsFor = async (listing: string) => (await ctx.db("need_alerts").where({ listing_id: listing }).pluck("need_id")).sort();
-const mails = (to: string, template?: string) => ctx.db("email_outbox").where({ to_address: to, ...(template ? { template } : {}) }).orderBy("created_at");
+const mails = (to: string, template?: string) => renderedRows(ctx.db("email_outbox").where({ to_address: to, ...(template ? { template } : {}) }).orderBy("created_at"));
 const emailOf = async (id: string) => (await ctx.db("users").first("email").where({ id })).email as string;
 
 const n: Record<string, string> = {};

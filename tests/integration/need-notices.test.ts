@@ -8,6 +8,7 @@ import { call, request } from "../helpers/http";
 import { createUser, listingBody } from "../factories";
 import { addDays } from "@/lib/time/zoned";
 import { sendNeedDigests } from "@/lib/services/needs/send-need-digests";
+import { renderedRows } from "../helpers/outbox";
 
 process.env.CLOUDINARY_URL = "cloudinary://k:s@duffbank-local?upload_prefix=http://127.0.0.1:9";
 const listings = await import("@/app/api/listings/route");
@@ -88,7 +89,7 @@ describe("opening a need where listings are already on offer", () => {
     const later = await post(who.supplier, { title: "Hazel leaves", location: from(0.8, 0) });
     expect(await noticesOf(res.json.need.id)).toContain(later.id);
     expect(await sendNeedDigests(() => new Date(), { db: ctx.db })).toBe(1);
-    const [digest] = await ctx.db("email_outbox").where({ to_address: bo.email, template: "need.digest" });
+    const [digest] = await renderedRows(ctx.db("email_outbox").where({ to_address: bo.email, template: "need.digest" }));
     expect(digest.text_body).toContain("Hazel leaves");
     expect(digest.text_body).not.toContain("Lime leaves");
   });

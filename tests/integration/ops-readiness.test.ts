@@ -12,7 +12,7 @@ import { startSmtpFake, type SmtpFake } from "@/lib/fakes/smtp/server";
 import { startCloudinaryFake, type CloudinaryFake } from "@/lib/fakes/cloudinary/server";
 import { resetMailTransport } from "@/lib/mail/transport";
 import { resetStripe } from "@/lib/payments/stripe";
-import { enqueueEmail } from "@/db/outbox";
+import { queueRendered } from "../helpers/outbox";
 
 // Cloudinary's SDK reads CLOUDINARY_URL when it is first loaded: the fake comes first.
 let media: CloudinaryFake = await startCloudinaryFake({ port: 0 });
@@ -135,7 +135,7 @@ describe("GET /api/health/ready", () => {
   });
 
   it("fails the outbox check when mail has waited too long, with the count and the oldest's age", async () => {
-    await enqueueEmail({ to: "late@example.test", subject: "Stuck", text: "x", template: "test", dedupe_key: "stuck" });
+    await queueRendered({ to: "late@example.test", subject: "Stuck", text: "x", dedupe_key: "stuck" });
     await ctx.db("email_outbox").where({ dedupe_key: "stuck" }).update({ created_at: new Date(Date.now() - 20 * 60_000).toISOString(), next_attempt_at: new Date(Date.now() + 3_600_000).toISOString(), attempts: 3 });
     const res = await check();
     expect(res.status).toBe(503);

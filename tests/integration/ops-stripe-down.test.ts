@@ -21,6 +21,7 @@ import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import { settlePayments } from "@/lib/services/payments/settle-due-payments";
 import { DEFAULT_STRIPE_TIMEOUT_MS, resetStripe } from "@/lib/payments/stripe";
 import { expireHolds } from "@/lib/services/reservations/expire-holds";
+import { rendered } from "../helpers/outbox";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 let pay: PaymentsHarness;
@@ -118,7 +119,7 @@ describe("reserving a priced listing while Stripe takes the connection and never
     expect(v.payment).toMatchObject({ checkout: "open", notice: null });
     expect(new Date(v.hold_expires_at).getTime()).toBeGreaterThanOrEqual(now.getTime() + 30 * 60_000); // a full hold from the opening
     expect(await mailFor(id)).toEqual([`res:${id}:payment_ready:gardener`]);
-    const ready = await ctx.db("email_outbox").first().where({ dedupe_key: `res:${id}:payment_ready:gardener` });
+    const ready = rendered(await ctx.db("email_outbox").first().where({ dedupe_key: `res:${id}:payment_ready:gardener` }));
     expect(ready.subject).toMatch(/payment page is ready/);
 
     // Paying it goes on as usual: only now does the supplier hear of the request.
@@ -207,7 +208,7 @@ describe("a giveaway deposit while Stripe is away", () => {
     await settlePayments(() => new Date());
     const deposit = await ctx.db("payments").first("*").where({ giveaway_booking_id: booked.json.booking.id });
     expect(deposit).toMatchObject({ status: "open", pending_action: null });
-    const mail = await ctx.db("email_outbox").first().where({ dedupe_key: `giveaway-deposit-ready:${booked.json.booking.id}` });
+    const mail = rendered(await ctx.db("email_outbox").first().where({ dedupe_key: `giveaway-deposit-ready:${booked.json.booking.id}` }));
     expect(mail.subject).toMatch(/Put your deposit down/);
   }, 30_000);
 });

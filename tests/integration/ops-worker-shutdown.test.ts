@@ -7,7 +7,7 @@ import { SMTPServer } from "smtp-server";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { startWorkerProcess, waitFor } from "../helpers/worker-process";
-import { enqueueEmail } from "@/db/outbox";
+import { queueRendered } from "../helpers/outbox";
 import { STOP_GRACE_MS } from "@/lib/worker/runner";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
@@ -42,7 +42,7 @@ afterAll(async () => {
 describe("SIGTERM to a worker mid-batch", () => {
   it("delivers every message exactly once within a minute, across the stop and the next worker", async () => {
     const subjects = Array.from({ length: 40 }, (_, i) => `Deploy ${String(i).padStart(2, "0")}`);
-    for (const subject of subjects) await enqueueEmail({ to: "deploy@example.test", subject, text: "x", template: "test", dedupe_key: subject });
+    for (const subject of subjects) await queueRendered({ to: "deploy@example.test", subject, text: "x", dedupe_key: subject });
     const env = { ...ctx.env, SMTP_PORT: String((smtp.server.address() as AddressInfo).port) };
     const started = Date.now();
 

@@ -15,7 +15,8 @@ import { refuseWrites } from "../helpers/engine";
 import { startSilentServer } from "../helpers/ports";
 import { startSmtpFake, type SmtpFake } from "@/lib/fakes/smtp/server";
 import { resetMailTransport, SMTP_TIMEOUTS } from "@/lib/mail/transport";
-import { enqueueEmail, releaseClaims } from "@/db/outbox";
+import { releaseClaims } from "@/db/outbox";
+import { queueRendered } from "../helpers/outbox";
 import { CLAIM_MS, deliverOutbox, messagesInFlight, retryDelayMs } from "@/lib/mail/deliver-outbox";
 
 const run = promisify(execFile);
@@ -45,7 +46,7 @@ beforeEach(async () => {
 });
 
 const queue = async (n: number, prefix: string, to = "someone@example.test") => {
-  for (let i = 0; i < n; i++) await enqueueEmail({ to, subject: `${prefix} ${i}`, text: "x", template: "test", dedupe_key: `${prefix}-${i}` });
+  for (let i = 0; i < n; i++) await queueRendered({ to, subject: `${prefix} ${i}`, text: "x", dedupe_key: `${prefix}-${i}` });
 };
 
 type Outcome = { sent: number; failed: number; rounds: number };
@@ -70,7 +71,7 @@ async function deliverFromTwoWorkers(): Promise<Outcome[]> {
 describe("two deliver-outbox workers at once", () => {
   it("sends every message exactly once between them", async () => {
     const subjects = Array.from({ length: 45 }, (_, i) => `Message ${String(i).padStart(2, "0")}`);
-    for (const subject of subjects) await enqueueEmail({ to: "pair@example.test", subject, text: "x", template: "test", dedupe_key: subject });
+    for (const subject of subjects) await queueRendered({ to: "pair@example.test", subject, text: "x", dedupe_key: subject });
 
     const outcomes = await deliverFromTwoWorkers();
 
@@ -86,7 +87,7 @@ describe("two deliver-outbox workers at once", () => {
 
 describe("the claim on one message", () => {
   it("leaves a message another worker holds a live claim on, and takes it over once the claim has run out", async () => {
-    await enqueueEmail({ to: "held@example.test", subject: "Held elsewhere", text: "x", template: "test" });
+    await queueRendered({ to: "held@example.test", subject: "Held elsewhere", text: "x" });
     const t0 = new Date();
     // Another worker claimed it and has not finished (or died mid-send).
     await ctx.db("email_outbox").update({ claimed_until: new Date(t0.getTime() + CLAIM_MS).toISOString() });
@@ -103,7 +104,7 @@ describe("the claim on one message", () => {
     const port = smtp.smtpPort;
     await smtp.close();
     try {
-      await enqueueEmail({ to: "down@example.test", subject: "During an outage", text: "x", template: "test" });
+      await queueRendered({ to: "down@example.test", subject: "During an outage", text: "x" });
       const t0 = new Date();
       expect(await deliverOutbox(() => t0)).toEqual({ sent: 0, failed: 1 });
       const row = await ctx.db("email_outbox").first();

@@ -14,6 +14,7 @@ import { expireHolds, sendReservationReminders } from "@/lib/services/reservatio
 import { PICKUP_TIME_ZONE } from "@/lib/reservations/pickup-times";
 import { DEFAULT_HOLD_MINUTES, MIN_ANSWER_MINUTES, SUPPLIER_REPLY_HOURS } from "@/lib/reservations/policy";
 import { db } from "@/db/index";
+import { rendered } from "../helpers/outbox";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 let pay: PaymentsHarness;
@@ -73,7 +74,7 @@ describe("a free request waiting for the supplier", () => {
     expect(new Date(r.answer_remind_at).getTime() - t0).toBe((SUPPLIER_REPLY_HOURS / 2) * HOUR);
     // The answer deadline is shown on both sides: the gardener's answer and the supplier's e-mail.
     expect(res.json.reservation.hold_expires_at).toBe(r.hold_expires_at);
-    const mail = await db()("email_outbox").first("text_body").where({ dedupe_key: `res:${r.id}:requested:supplier` });
+    const mail = rendered(await db()("email_outbox").first("template", "data").where({ dedupe_key: `res:${r.id}:requested:supplier` }));
     expect(mail.text_body).toMatch(/Accept or decline by /);
   });
 

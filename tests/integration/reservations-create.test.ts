@@ -7,6 +7,7 @@ import { createUser } from "../factories";
 import { createListing, listingQuantities } from "../reservation-factories";
 import { POST, GET } from "@/app/api/reservations/route";
 import { GET as getOne } from "@/app/api/reservations/[id]/route";
+import { rendered, renderedRows } from "../helpers/outbox";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 let gardener: { id: string };
@@ -51,7 +52,7 @@ describe("POST /api/reservations (one listing)", () => {
     expect(res.json.reservation.status).toBe("confirmed");
     expect(res.json.reservation.pickup_code).toMatch(/^[A-Z2-9]{6}$/);
     expect(res.json.reservation.pickup.address).toContain("Secret Lane");
-    const mail = await ctx.db("email_outbox").where("dedupe_key", "like", `res:${res.json.reservation.id}:%`);
+    const mail = await renderedRows(ctx.db("email_outbox").where("dedupe_key", "like", `res:${res.json.reservation.id}:%`));
     expect(mail.map((m: any) => m.template).sort()).toEqual(["reservation.confirmed", "reservation.confirmed"]);
     const toGardener = mail.find((m: any) => m.dedupe_key.endsWith(":gardener"));
     expect(toGardener.text_body).toContain("Secret Lane");
@@ -62,7 +63,7 @@ describe("POST /api/reservations (one listing)", () => {
   it("writes the request e-mail for the supplier in the same transaction", async () => {
     const l = await createListing({ quantity_total: 4 });
     const res = await post({ listing_id: l.id, quantity: 1 });
-    const mail = await ctx.db("email_outbox").where({ dedupe_key: `res:${res.json.reservation.id}:requested:supplier` }).first();
+    const mail = rendered(await ctx.db("email_outbox").where({ dedupe_key: `res:${res.json.reservation.id}:requested:supplier` }).first());
     expect(mail.subject).toContain("New request");
   });
 

@@ -15,6 +15,7 @@ import { startSmtpFake, type SmtpFake } from "@/lib/fakes/smtp/server";
 import { resetMailTransport } from "@/lib/mail/transport";
 import { jobs } from "@/lib/worker/jobs";
 import { db } from "@/db/index";
+import { renderedRows } from "../helpers/outbox";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 let gardener: { id: string };
@@ -86,7 +87,7 @@ describe("reminders", () => {
     // Once: not again later, nor ten minutes before the end as a checkout's hold would be.
     expect((await sendReservationReminders(() => new Date(t0 + hours(30)))).warned).toBe(0);
     expect((await sendReservationReminders(() => new Date(end - minutes(9)))).warned).toBe(0);
-    const mail = await db()("email_outbox").where("dedupe_key", "like", `res:${r.id}:expiring:%`);
+    const mail = await renderedRows(db()("email_outbox").where("dedupe_key", "like", `res:${r.id}:expiring:%`));
     expect(mail.map((m: any) => m.dedupe_key)).toEqual([`res:${r.id}:expiring:supplier:${r.hold_expires_at}`]);
     expect(mail[0].subject).toContain("Waiting for your answer");
   });
@@ -100,7 +101,7 @@ describe("reminders", () => {
     expect((await sendReservationReminders(() => new Date(start - 30 * 3_600_000))).reminded).toBe(0);
     expect((await sendReservationReminders(() => new Date(start - 20 * 3_600_000))).reminded).toBe(1);
     expect((await sendReservationReminders(() => new Date(start - 19 * 3_600_000))).reminded).toBe(0);
-    const mail = await db()("email_outbox").where("dedupe_key", "like", `res:${r.id}:reminder:%`).orderBy("dedupe_key");
+    const mail = await renderedRows(db()("email_outbox").where("dedupe_key", "like", `res:${r.id}:reminder:%`).orderBy("dedupe_key"));
     expect(mail.map((m: any) => m.dedupe_key)).toEqual([`res:${r.id}:reminder:gardener`, `res:${r.id}:reminder:supplier`]);
     expect(mail[0].text_body).toContain("Secret Lane");
   });
@@ -126,7 +127,7 @@ describe("reminders with no fixed pickup time", () => {
     expect(await mine()).toHaveLength(0);
     expect((await sendReservationReminders(() => new Date(deadline - 20 * 3_600_000))).reminded).toBeGreaterThanOrEqual(1);
     await sendReservationReminders(() => new Date(deadline - 19 * 3_600_000));
-    const mail = await mine();
+    const mail = await renderedRows(mine());
     expect(mail.map((m: any) => m.dedupe_key)).toEqual([`res:${r.id}:reminder:gardener`, `res:${r.id}:reminder:supplier`]);
     expect(mail[0].subject).toMatch(/^Collect by tomorrow/);
     expect(mail[0].text_body).toContain("by arrangement");

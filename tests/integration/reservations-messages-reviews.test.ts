@@ -11,6 +11,7 @@ import { ratingsFor } from "@/db/reviews";
 import { postReservationMessage } from "@/lib/services/reservations/post-reservation-message";
 import { MESSAGE_LIMIT } from "@/lib/reservations/policy";
 import { db } from "@/db/index";
+import { renderedRows } from "../helpers/outbox";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 let supplier: { id: string };
@@ -43,7 +44,7 @@ describe("messages", () => {
       ["gardener", false, "Can I come at 5? <b>not bold</b>"],
       ["supplier", true, "Yes, side gate."],
     ]);
-    const mails = await db()("email_outbox").where({ template: "reservation.message" }).andWhere("dedupe_key", "like", `res:${r.id}:%`).orderBy("created_at");
+    const mails = await renderedRows(db()("email_outbox").where({ template: "reservation.message" }).andWhere("dedupe_key", "like", `res:${r.id}:%`).orderBy("created_at"));
     expect(mails).toHaveLength(2);
     const toSupplier = mails.find((m: any) => m.dedupe_key.includes(":supplier:"));
     expect(toSupplier.text_body).toContain("Can I come at 5?");

@@ -19,6 +19,7 @@ import { RECHECK_MINUTES, RECOVER_AFTER_MINUTES, reconcilePayments } from "@/lib
 import { SUPPLIER_REPLY_HOURS } from "@/lib/reservations/policy";
 import { jobs } from "@/lib/worker/jobs";
 import { db } from "@/db/index";
+import { rendered } from "../helpers/outbox";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 let pay: PaymentsHarness;
@@ -79,7 +80,7 @@ describe("a checkout paid but never heard of, when its hold runs out", () => {
     expect(stripeRefunds.map((x) => x.amount)).toEqual([900]);
     expect(pay.fake.state.checkoutSessions.get(sessionId)!.status).toBe("complete");
 
-    const returned = await db()("email_outbox").first("*").where({ dedupe_key: `res:${r.id}:returned:gardener` });
+    const returned = rendered(await db()("email_outbox").first("*").where({ dedupe_key: `res:${r.id}:returned:gardener` }));
     expect(returned.text_body).toContain("refunded in full");
     expect(await reconcilePayments()).toEqual([]);
 
@@ -103,7 +104,7 @@ describe("a checkout paid but never heard of, when its hold runs out", () => {
     expect(pay.fake.state.paymentIntents.get(intentId)!).toMatchObject({ status: "canceled", amount_received: 0 });
     expect(await reservation(r.id)).toMatchObject({ status: "expired", payment_state: "released" });
     expect(await charge(r.id)).toMatchObject({ status: "released", payment_intent_id: intentId, pending_action: null });
-    const returned = await db()("email_outbox").first("*").where({ dedupe_key: `res:${r.id}:returned:gardener` });
+    const returned = rendered(await db()("email_outbox").first("*").where({ dedupe_key: `res:${r.id}:returned:gardener` }));
     expect(returned.text_body).toContain("deposit hold on your card is released");
     expect(await reconcilePayments()).toEqual([]);
   });

@@ -19,6 +19,7 @@ import { expireHolds } from "@/lib/services/reservations/expire-holds";
 import { reconcilePayments } from "@/lib/payments/reconcile";
 import { db } from "@/db/index";
 import { deliverEvents } from "../helpers/webhook-events";
+import { rendered } from "../helpers/outbox";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 let pay: PaymentsHarness;
@@ -133,7 +134,7 @@ describe("a priced listing", () => {
     expect(pay.fake.state.refunds.get(refund.provider_ref)!.amount).toBe(1600);
     expect(await reservation(r.id)).toMatchObject({ status: "declined", payment_state: "refunded" });
     expect((await charge(r.id)).status).toBe("refunded");
-    const mail = await db()("email_outbox").first("*").where({ dedupe_key: `res:${r.id}:declined:gardener` });
+    const mail = rendered(await db()("email_outbox").first("*").where({ dedupe_key: `res:${r.id}:declined:gardener` }));
     expect(mail.text_body).toContain("refunded in full");
     expect(mail.text_body).toContain("Sold out at the market");
     expect(await reconcilePayments()).toEqual([]);
@@ -202,7 +203,7 @@ describe("a deposit on a free listing", () => {
     expect(await reservation(r.id)).toMatchObject({ status: "no_show", payment_state: "captured" });
     expect((await charge(r.id)).captured_cents).toBe(300);
     expect((await listingQuantities(l.id)).quantity_held).toBe(0);
-    const mail = await db()("email_outbox").first("*").where({ dedupe_key: `res:${r.id}:no_show:gardener` });
+    const mail = rendered(await db()("email_outbox").first("*").where({ dedupe_key: `res:${r.id}:no_show:gardener` }));
     expect(mail.text_body).toContain("deposit is kept");
     expect(await reconcilePayments()).toEqual([]);
   });

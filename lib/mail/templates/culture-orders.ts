@@ -3,8 +3,7 @@
 // when the grower pauses posting for the weather or resumes it. Built from the same parts as
 // every other e-mail (renderEmail); facts come from lib/calc/facts.ts with their sources.
 import { formatMoney } from "@/lib/format/money";
-import type { ReservationContext } from "@/db/reservation-context";
-import { appUrl } from "@/lib/app-url";
+import type { MailReservation } from "./reservations";
 import { WORM_DAILY_FOOD_SHARE, WORM_DAILY_FOOD_SOURCE, WORM_TEMPERATURE_F, WORMS_AFTER_DAYS } from "@/lib/calc/facts";
 import { PAUSE_REASON_LABELS } from "@/lib/validation/grower";
 import { dayLabel, estimatedWorms } from "@/lib/reservations/culture-orders";
@@ -15,7 +14,7 @@ import type { Audience } from "./reservations";
 export type CultureMailKind = "care_sheet" | "order_confirmed" | "packed" | "shipped" | "delivered" | "posting_paused" | "posting_resumed";
 
 export interface CultureMailInput {
-  r: ReservationContext;
+  r: MailReservation;
   to: Audience;
   /** As the grower names it on the listing. */
   species: string | null;
@@ -23,6 +22,8 @@ export interface CultureMailInput {
   shipping: { ship_days: string[]; paused: boolean; notice: string; pause_reason?: "heat" | "frost" | "other" | null; pause_note?: string | null };
   /** The next posting day (YYYY-MM-DD), or null. */
   postingDay: string | null;
+  /** The app's address the links start with, as it was where the mail was queued. */
+  appUrl: string;
 }
 
 const fToC = (f: number) => Math.round(((f - 32) * 5) / 9);
@@ -30,7 +31,7 @@ const kg = (x: number) => `${Math.round(x * 100) / 100} kg`;
 const T = WORM_TEMPERATURE_F;
 
 /** The care sheet's paragraphs, in the order a new keeper needs them. */
-export function careSheetParagraphs(r: ReservationContext, species: string | null): string[] {
+export function careSheetParagraphs(r: MailReservation, species: string | null): string[] {
   const qty = r.quantity; // worm listings are sold by the kilogram
   const posted = r.fulfilment === "post";
   return [
@@ -47,7 +48,7 @@ export function careSheetParagraphs(r: ReservationContext, species: string | nul
   ];
 }
 
-function paidLine(r: ReservationContext): string | null {
+function paidLine(r: MailReservation): string | null {
   return r.amount_cents > 0 ? `Paid: ${formatMoney(r.amount_cents, r.currency)}.` : null;
 }
 
@@ -66,7 +67,7 @@ function goesOutLine(i: CultureMailInput): string {
  * (lib/reservations/policy.ts): the buyer may cancel until the grower packs it, and a posted
  * culture cancelled then is returned in full.
  */
-function whileYouWaitLine(r: ReservationContext): string {
+function whileYouWaitLine(r: MailReservation): string {
   const grower = r.supplier.name;
   if (r.order_stage === "packed") return `${grower} has packed it already, so it can no longer be cancelled on the site; if you would rather not wait, ask ${grower} in the messages.`;
   const money =
@@ -82,7 +83,7 @@ function parts(kind: CultureMailKind, i: CultureMailInput): { subject: string; b
   const { r, to } = i;
   const what = whatLabel(r);
   // The grower works through orders on the dashboard; reviews live on Requests.
-  const link = to === "gardener" || kind === "delivered" ? `${appUrl()}/reservations/${r.id}` : `${appUrl()}/grower#o-${r.id}`;
+  const link = to === "gardener" || kind === "delivered" ? `${i.appUrl}/reservations/${r.id}` : `${i.appUrl}/grower#o-${r.id}`;
   const action = (label: string) => ({ label, url: link });
   const lines = (...xs: (string | null | undefined)[]) => xs.filter((x): x is string => !!x);
   switch (kind) {

@@ -24,6 +24,59 @@ export type ReservationMailKind =
   | "payment_ready";
 export type Audience = "gardener" | "supplier";
 
+/**
+ * What the reservation e-mails read of a reservation: queued with the message as its data
+ * (JSON), so the deliverer can render it later without reading the reservation again.
+ */
+export type MailReservation = Pick<
+  ReservationContext,
+  | "id"
+  | "quantity"
+  | "fulfilment"
+  | "ship_to"
+  | "pickup_at"
+  | "pickup_by"
+  | "hold_expires_at"
+  | "pickup_code"
+  | "amount_cents"
+  | "deposit_cents"
+  | "currency"
+  | "payment_state"
+  | "order_stage"
+  | "carrier"
+  | "tracking"
+  | "window"
+> & {
+  listing: Pick<ReservationContext["listing"], "title" | "unit" | "address" | "auto_accept">;
+  gardener: Pick<ReservationContext["gardener"], "name">;
+  supplier: Pick<ReservationContext["supplier"], "name" | "email">;
+};
+
+/** The part of a reservation its e-mails need, to queue as data. */
+export function reservationMailData(r: MailReservation): MailReservation {
+  return {
+    id: r.id,
+    quantity: r.quantity,
+    fulfilment: r.fulfilment,
+    ship_to: r.ship_to,
+    pickup_at: r.pickup_at,
+    pickup_by: r.pickup_by,
+    hold_expires_at: r.hold_expires_at,
+    pickup_code: r.pickup_code,
+    amount_cents: r.amount_cents,
+    deposit_cents: r.deposit_cents,
+    currency: r.currency,
+    payment_state: r.payment_state,
+    order_stage: r.order_stage,
+    carrier: r.carrier,
+    tracking: r.tracking,
+    window: r.window,
+    listing: { title: r.listing.title, unit: r.listing.unit, address: r.listing.address, auto_accept: r.listing.auto_accept },
+    gardener: { name: r.gardener.name },
+    supplier: { name: r.supplier.name, email: r.supplier.email },
+  };
+}
+
 export interface MailExtra {
   reason?: string | null;
   money?: MoneyOutcome;
@@ -32,9 +85,9 @@ export interface MailExtra {
 }
 
 // One page per reservation serves both sides, however long their lists grow.
-const link = (r: ReservationContext, _to: Audience) => `${appUrl()}/reservations/${r.id}`;
+const link = (base: string, r: MailReservation) => `${base}/reservations/${r.id}`;
 
-function whenLine(r: ReservationContext): string {
+function whenLine(r: MailReservation): string {
   // A posted live culture has no pickup: say where it goes (lib/mail/templates/culture-orders.ts has its other e-mails).
   if (r.fulfilment === "post") return `Posted to: ${r.ship_to}`;
   if (r.window && r.pickup_at) return `When: ${windowLabel(r.window)} — yours is ${formatLocal(r.pickup_at)} to ${formatLocal(r.pickup_by!, undefined, { timeOnly: true })}.`;
@@ -42,22 +95,22 @@ function whenLine(r: ReservationContext): string {
   return "When: by arrangement through the messages on the reservation.";
 }
 
-function paidLine(r: ReservationContext): string | null {
+function paidLine(r: MailReservation): string | null {
   if (r.amount_cents > 0) return `Paid: ${formatMoney(r.amount_cents, r.currency)}.`;
   if (r.deposit_cents > 0) return `No-show deposit: ${formatMoney(r.deposit_cents, r.currency)} on hold on the gardener's card, released at pickup.`;
   return null;
 }
 
-const carry = (r: ReservationContext) =>
+const carry = (r: MailReservation) =>
   r.listing.unit === "bales"
     ? "Bales are heavy: lift with your legs, keep the bale close, and share the lift with a second person."
     : "Bring gloves and bags or a tarp; wash your hands after handling soil, manure or compost.";
 
-function parts(kind: ReservationMailKind, r: ReservationContext, to: Audience, extra: MailExtra): { subject: string; body: EmailParts } {
+function parts(kind: ReservationMailKind, r: MailReservation, to: Audience, extra: MailExtra, base: string): { subject: string; body: EmailParts } {
   const what = whatLabel(r);
   const money = extra.money ? moneySentence(r, extra.money) : null;
   const reason = extra.reason ? `Their note: “${extra.reason}”` : null;
-  const action = (label: string) => ({ label, url: link(r, to) });
+  const action = (label: string) => ({ label, url: link(base, r) });
   const lines = (...xs: (string | null | undefined)[]) => xs.filter((x): x is string => !!x);
   switch (kind) {
     case "requested":
@@ -118,7 +171,7 @@ function parts(kind: ReservationMailKind, r: ReservationContext, to: Audience, e
     case "declined":
       return {
         subject: `Declined: ${what}`,
-        body: { heading: `${r.supplier.name} cannot give you this one`, paragraphs: lines(reason, money, "Other listings nearby may still have what your bed needs."), action: { label: "Find other material", url: `${appUrl()}/beds` } },
+        body: { heading: `${r.supplier.name} cannot give you this one`, paragraphs: lines(reason, money, "Other listings nearby may still have what your bed needs."), action: { label: "Find other material", url: `${base}/beds` } },
       };
     case "cancelled": {
       const byYou = extra.cancelledBy === to;
@@ -218,7 +271,8 @@ function parts(kind: ReservationMailKind, r: ReservationContext, to: Audience, e
   }
 }
 
-export function reservationEmail(kind: ReservationMailKind, r: ReservationContext, to: Audience, extra: MailExtra = {}) {
-  const { subject, body } = parts(kind, r, to, extra);
+/** `base`: the app's address the links start with, as it was where the mail was queued. */
+export function reservationEmail(kind: ReservationMailKind, r: MailReservation, to: Audience, extra: MailExtra = {}, base = appUrl()) {
+  const { subject, body } = parts(kind, r, to, extra, base);
   return renderEmail(subject, body);
 }

@@ -8,7 +8,6 @@ import { hashPassword, verifyPassword } from "@/lib/auth/password";
 import { passwordProblem } from "@/lib/auth/password-strength";
 import { endEverySession } from "@/lib/auth/sessions";
 import { signInLink } from "@/lib/auth/sign-in-link";
-import { confirmAddressEmail, passwordChangedEmail } from "@/lib/mail/templates/accounts";
 import { LIMITS, consume, ensureUnder, forgive, recordFailure } from "@/lib/security/rate-limit";
 import type { ChangePasswordInput } from "@/lib/validation/auth";
 
@@ -39,7 +38,7 @@ export async function changePassword(userId: string, input: ChangePasswordInput,
   const hash = await hashPassword(input.new_password);
   const ended = await db().transaction(async (trx) => {
     await setPasswordHash(userId, hash, trx);
-    await enqueueEmail({ to: user.email, ...passwordChangedEmail(`${appUrl()}/sign-in`), template: "account.password_changed" }, trx);
+    await enqueueEmail({ to: user.email, template: "account.password_changed", data: { signInUrl: `${appUrl()}/sign-in` } }, trx);
     return endEverySession(userId, "password_changed", clock, trx);
   });
   return { sessions_ended: ended };
@@ -58,7 +57,7 @@ export async function resendConfirmation(userId: string, clock: Clock = () => ne
   await consume([[LIMITS.linkEmail, user.email]], clock);
   await db().transaction(async (trx) => {
     const link = await signInLink(user.email, "/profile", clock(), trx);
-    await enqueueEmail({ to: user.email, ...confirmAddressEmail(user.display_name, link), template: "account.confirm" }, trx);
+    await enqueueEmail({ to: user.email, template: "account.confirm", data: { name: user.display_name, url: link } }, trx);
   });
   return { status: "sent" };
 }

@@ -8,7 +8,6 @@ import { safeCallbackPath } from "@/lib/auth/callback-url";
 import { hashPassword } from "@/lib/auth/password";
 import { passwordProblem } from "@/lib/auth/password-strength";
 import { signInLink } from "@/lib/auth/sign-in-link";
-import { alreadyJoinedEmail, confirmAddressEmail } from "@/lib/mail/templates/accounts";
 import type { SignUpInput } from "@/lib/validation/auth";
 
 /** What joining answers, whoever the address belongs to. */
@@ -34,14 +33,14 @@ export async function signUp(input: SignUpInput, now: Date = new Date()) {
   const email = normaliseEmail(input.email);
   await db().transaction(async (trx) => {
     if (await findUserByEmail(email, trx)) {
-      await enqueueEmail({ to: email, ...alreadyJoinedEmail(`${appUrl()}/sign-in`), template: "account.already_joined" }, trx);
+      await enqueueEmail({ to: email, template: "account.already_joined", data: { signInUrl: `${appUrl()}/sign-in` } }, trx);
       return;
     }
     const user = await insertUser({ email, display_name: input.display_name, password_hash, unit_system: input.unit_system }, trx);
     await setRole(user.id, "gardener", "active", trx);
     // After confirming: where they were going (a path on this site only), else a welcome.
     const link = await signInLink(email, input.callbackUrl ? safeCallbackPath(input.callbackUrl) : "/profile?welcome=1", now, trx);
-    await enqueueEmail({ to: email, ...confirmAddressEmail(input.display_name, link), template: "account.confirm", dedupe_key: `account-confirm:${user.id}` }, trx);
+    await enqueueEmail({ to: email, template: "account.confirm", data: { name: input.display_name, url: link }, dedupe_key: `account-confirm:${user.id}` }, trx);
   });
   return checkInboxAnswer(email);
 }

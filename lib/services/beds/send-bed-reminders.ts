@@ -4,7 +4,6 @@ import { db } from "@/db/index";
 import { appUrl } from "@/lib/app-url";
 import type { TimelineEvent } from "@/lib/calc/timeline";
 import { bedEstimate, toBedView, type BedView } from "@/lib/beds/view";
-import { bedReminderEmail } from "@/lib/mail/templates/bed-reminder";
 
 /**
  * A step is mailed on its day, or within this many days after if the worker was down.
@@ -35,8 +34,8 @@ export async function sendBedReminders(clock: () => Date = () => new Date()): Pr
     }
     for (const step of timeline) {
       if (step.date > today || step.date < earliest) continue;
-      const mail = bedReminderEmail({ name: row.display_name, bedName: bed.name, title: step.title, detail: step.detail, date: step.date, url: `${appUrl()}/beds/${bed.id}` });
-      await enqueueEmail({ to: row.email, ...mail, template: "bed_reminder", dedupe_key: `bed-reminder:${bed.id}:${step.key}:${step.date}` }, db());
+      const data = { name: row.display_name, bedName: bed.name, title: step.title, detail: step.detail, date: step.date, url: `${appUrl()}/beds/${bed.id}` };
+      await enqueueEmail({ to: row.email, template: "bed_reminder", data, dedupe_key: `bed-reminder:${bed.id}:${step.key}:${step.date}` }, db());
       queued++;
     }
   }

@@ -10,7 +10,6 @@ import { recordAudit } from "@/db/audit";
 import type { InviteRow } from "@/db/types";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
-import { councilInviteEmail } from "@/lib/mail/templates/council-invite";
 import { readableDateTime, DEFAULT_TIME_ZONE } from "@/lib/time/zoned";
 import type { CouncilContext } from "@/lib/auth/council-access";
 
@@ -46,13 +45,13 @@ export async function inviteStaff(ctx: CouncilContext, inviterName: string, rawE
     // A new invitation replaces any still waiting for the same address.
     await closeInvites({ organisation_id: ctx.organisationId, email }, "revoked", {}, trx);
     const invite = await insertInvite({ organisation_id: ctx.organisationId, email, token_hash: hashToken(token), invited_by: ctx.userId, expires_at }, trx);
-    const mail = councilInviteEmail({
+    const data = {
       organisation: ctx.organisationName,
       inviter: inviterName,
       url: `${appUrl()}/council/join?token=${encodeURIComponent(token)}`,
       expires: readableDateTime(expires_at, DEFAULT_TIME_ZONE),
-    });
-    await enqueueEmail({ to: email, ...mail, template: "council_invite", dedupe_key: `council-invite:${invite.id}` }, trx);
+    };
+    await enqueueEmail({ to: email, template: "council_invite", data, dedupe_key: `council-invite:${invite.id}` }, trx);
     await recordAudit({ actor_id: ctx.userId, action: "council.invite", subject_type: "organisation", subject_id: ctx.organisationId, after: inviteView(invite) }, trx);
     return inviteView(invite);
   });

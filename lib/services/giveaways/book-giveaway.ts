@@ -14,7 +14,7 @@ import { giveawayCautions } from "@/lib/calc/cautions";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { openCheckout } from "@/lib/payments/checkout";
 import { holdMinutes } from "@/lib/reservations/policy";
-import { bookingParts, giveawayBookedEmail } from "@/lib/mail/templates/giveaway";
+import { bookingParts } from "@/lib/mail/templates/giveaway";
 import { readableDateTime } from "@/lib/time/zoned";
 import { giveawayQuantityIssue } from "@/lib/validation/giveaways";
 import { bookingWindowState, cancelDeadline } from "@/lib/giveaways/view";
@@ -124,13 +124,13 @@ export async function enqueueBookedEmail(day: GiveawayDayRow, slot: GiveawaySlot
   const [user, org] = await Promise.all([findUserById(booking.user_id, trx), findOrganisation(day.organisation_id, trx)]);
   if (!user) return;
   const base = appUrl();
-  const mail = giveawayBookedEmail({
+  const data = {
     ...bookingParts({ name: user.display_name, organisation: org?.name ?? "The council", pageUrl: `${base}/giveaways/${day.id}`, day, slot, quantity: booking.quantity }),
     address: day.address,
     cancelBy: readableDateTime(cancelDeadline(slot.starts_at, day.cancel_cutoff_hours).toISOString(), day.time_zone),
     depositNote: booking.deposit_cents > 0 ? `A refundable no-show deposit of ${formatMoney(booking.deposit_cents, booking.currency)} is on hold on your card. ${DEPOSIT_HOLD_NOTE}` : null,
     calendarUrl: `${base}/api/giveaways/${day.id}/bookings/${booking.id}/calendar.ics?t=${calendarToken(booking.id)}`,
     cautions: giveawayCautions(day.material_code),
-  });
-  await enqueueEmail({ to: user.email, ...mail, template: "giveaway_booked", dedupe_key: `giveaway-booked:${booking.id}` }, trx);
+  };
+  await enqueueEmail({ to: user.email, template: "giveaway_booked", data, dedupe_key: `giveaway-booked:${booking.id}` }, trx);
 }

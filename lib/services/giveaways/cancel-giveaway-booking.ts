@@ -7,7 +7,7 @@ import { findUserById } from "@/db/users";
 import { enqueueEmail } from "@/db/outbox";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
-import { bookingParts, giveawayBookingCancelledEmail } from "@/lib/mail/templates/giveaway";
+import { bookingParts } from "@/lib/mail/templates/giveaway";
 import { readableDateTime } from "@/lib/time/zoned";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import { cancelDeadline } from "@/lib/giveaways/view";
@@ -49,11 +49,11 @@ export async function cancelGiveawayBooking(userId: string, dayId: string, booki
           : current.deposit_status === "awaiting"
             ? "The deposit was not put down, so nothing was taken from your card."
             : null;
-      const mail = giveawayBookingCancelledEmail({
+      const data = {
         ...bookingParts({ name: user.display_name, organisation: org?.name ?? "the council", pageUrl: `${appUrl()}/giveaways`, day, slot, quantity: booking.quantity }),
         depositNote,
-      });
-      await enqueueEmail({ to: user.email, ...mail, template: "giveaway_booking_cancelled", dedupe_key: `giveaway-booking-cancelled:${bookingId}` }, trx);
+      };
+      await enqueueEmail({ to: user.email, template: "giveaway_booking_cancelled", data, dedupe_key: `giveaway-booking-cancelled:${bookingId}` }, trx);
     }
     return ids;
   });

@@ -7,7 +7,7 @@ import { enqueueEmail } from "@/db/outbox";
 import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/app-url";
-import { bookingParts, giveawayDayCancelledEmail } from "@/lib/mail/templates/giveaway";
+import { bookingParts } from "@/lib/mail/templates/giveaway";
 import { staffDayView } from "@/lib/giveaways/view";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import type { DepositStatus } from "@/db/types";
@@ -41,12 +41,12 @@ export async function cancelGiveaway(ctx: CouncilContext, dayId: string, reason:
           : status === "awaiting"
             ? "The deposit was not put down, so nothing was taken from your card, and its payment page is closed."
             : "There was no deposit on this booking, so there is nothing to release or refund.";
-      const mail = giveawayDayCancelledEmail({
+      const data = {
         ...bookingParts({ name: b.name, organisation: ctx.organisationName, pageUrl: `${appUrl()}/giveaways`, day, slot: b, quantity: b.quantity }),
         reason,
         depositNote,
-      });
-      await enqueueEmail({ to: b.email, ...mail, template: "giveaway_day_cancelled", dedupe_key: `giveaway-day-cancelled:${b.id}` }, trx);
+      };
+      await enqueueEmail({ to: b.email, template: "giveaway_day_cancelled", data, dedupe_key: `giveaway-day-cancelled:${b.id}` }, trx);
     }
     await recountSlots(dayId, trx);
     await recordAudit(

@@ -5,7 +5,6 @@ import { writeTransaction } from "@/db/write-transaction";
 import { findBooking, releaseSlotPlace } from "@/db/giveaways";
 import { enqueueEmail } from "@/db/outbox";
 import type { GiveawayBookingRow } from "@/db/types";
-import { giveawayBookingLapsedEmail } from "@/lib/mail/templates/giveaway";
 import { holdMinutes } from "@/lib/reservations/policy";
 import { householdOf, settleBookingDeposit } from "@/lib/services/giveaways/giveaway-deposit";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
@@ -60,8 +59,8 @@ async function lapseBooking(q: Knex, id: string, now: Date): Promise<string[] | 
     const ids = await settleBookingDeposit(trx, id, "return", now);
     const to = await householdOf(b, trx);
     if (to) {
-      const mail = giveawayBookingLapsedEmail({ ...to.parts, holdMinutes: holdMinutes() });
-      await enqueueEmail({ to: to.email, ...mail, template: "giveaway_booking_lapsed", dedupe_key: `giveaway-booking-lapsed:${id}` }, trx);
+      const data = { ...to.parts, holdMinutes: holdMinutes() };
+      await enqueueEmail({ to: to.email, template: "giveaway_booking_lapsed", data, dedupe_key: `giveaway-booking-lapsed:${id}` }, trx);
     }
     return ids;
   });

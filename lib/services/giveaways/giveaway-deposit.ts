@@ -7,7 +7,7 @@ import { enqueueEmail } from "@/db/outbox";
 import { depositOfBooking } from "@/db/payments";
 import type { DepositStatus, GiveawayBookingRow, PaymentRow } from "@/db/types";
 import { appUrl } from "@/lib/app-url";
-import { bookingParts, giveawayDepositReadyEmail } from "@/lib/mail/templates/giveaway";
+import { bookingParts } from "@/lib/mail/templates/giveaway";
 import { settleCheckout } from "@/lib/payments/owner";
 import { holdMinutes } from "@/lib/reservations/policy";
 import { enqueueBookedEmail } from "@/lib/services/giveaways/book-giveaway";
@@ -85,6 +85,6 @@ export async function depositPageReady(trx: Trx, bookingId: string, now: Date): 
   if (n === 0) return;
   const to = await householdOf((await findBooking(bookingId, trx))!, trx);
   if (!to) return;
-  const mail = giveawayDepositReadyEmail({ ...to.parts, holdMinutes: holdMinutes() });
-  await enqueueEmail({ to: to.email, ...mail, template: "giveaway_deposit_ready", dedupe_key: `giveaway-deposit-ready:${bookingId}` }, trx);
+  const data = { ...to.parts, holdMinutes: holdMinutes() };
+  await enqueueEmail({ to: to.email, template: "giveaway_deposit_ready", data, dedupe_key: `giveaway-deposit-ready:${bookingId}` }, trx);
 }

@@ -7,7 +7,6 @@ import { findUserById } from "@/db/users";
 import { enqueueEmail } from "@/db/outbox";
 import { auditActionsSince, recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
-import { reportOutcomeEmail } from "@/lib/mail/templates/report-outcome";
 import { REPORT_REASON_LABELS } from "@/lib/validation/moderation";
 
 const ACTION_WORDS: Record<string, string> = {
@@ -34,14 +33,14 @@ export async function closeReport(moderatorId: string, reportId: string, note: s
       ? `the listing "${(await findListingBrief(report.listing_id, trx))?.title ?? "a listing"}"`
       : `the account ${(await findUserById(report.subject_user_id!, trx))?.display_name ?? "a person"}`;
     if (reporter) {
-      const mail = reportOutcomeEmail({
+      const data = {
         name: reporter.display_name,
         subject,
         reason: REPORT_REASON_LABELS[report.reason].toLowerCase(),
         outcome: note,
         actions: [...new Set(actions.map((a) => ACTION_WORDS[a]))],
-      });
-      await enqueueEmail({ to: reporter.email, ...mail, template: "report_outcome", dedupe_key: `report-outcome:${reportId}` }, trx);
+      };
+      await enqueueEmail({ to: reporter.email, template: "report_outcome", data, dedupe_key: `report-outcome:${reportId}` }, trx);
     }
     await recordAudit({ actor_id: moderatorId, action: "report.close", subject_type: "report", subject_id: reportId, before: { status: "open" }, after: { status: "closed", note } }, trx);
     return { id: reportId, status: "closed" as const, outcome_note: note };

@@ -11,7 +11,7 @@ import { formatQuantity } from "@/lib/format/quantity";
 import { listingCautions } from "@/lib/calc/cautions";
 import { datesState, quantityLeft } from "@/lib/listings/status";
 import { formatDay, formatListingQuantity, materialName } from "@/lib/listings/format";
-import { needAlertEmail, type AlertLine } from "@/lib/mail/templates/need-alerts";
+import type { AlertLine } from "@/lib/mail/templates/need-alerts";
 import type { ListingUnit } from "@/lib/match/types";
 import { needsReaching, type AlertingListing, type ReachedNeed } from "@/lib/needs/reaching";
 import { DUE_NOW } from "@/migrations/20261208_020_open_needs";
@@ -122,8 +122,8 @@ async function writeAlerts(trx: Knex.Transaction, l: ListingRow, fresh: ReachedN
     if (!person || person.suspended_at || !person.email_verified_at) continue;
     const bed = bedOf.get(r.need_id);
     const line = alertLine(l, supplier, r, bed ? (beds.get(bed) ?? null) : null, person.unit_system, now);
-    const mail = needAlertEmail({ name: person.display_name, line, cautions, needsUrl: `${appUrl()}/needs` });
-    mails.push({ to: person.email, ...mail, template: "need.alert", dedupe_key: `need-alert:${r.need_id}:${l.id}` });
+    const data = { name: person.display_name, line, cautions, needsUrl: `${appUrl()}/needs` };
+    mails.push({ to: person.email, template: "need.alert", data, dedupe_key: `need-alert:${r.need_id}:${l.id}` });
   }
   await enqueueEmails(mails, trx);
 }

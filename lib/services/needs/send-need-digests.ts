@@ -4,7 +4,6 @@ import { enqueueEmail } from "@/db/outbox";
 import type { ListingRow } from "@/db/types";
 import { appUrl } from "@/lib/app-url";
 import type { UnitSystem } from "@/lib/calc/units";
-import { needDigestEmail } from "@/lib/mail/templates/need-alerts";
 import { alertLine } from "@/lib/services/needs/alert-needs";
 import { resolveContext, type NeedsContext } from "@/lib/services/needs/context";
 
@@ -51,8 +50,8 @@ export async function sendNeedDigests(clock: () => Date = () => new Date(), ctx:
       // Claimed first: another worker running the same job finds them taken and sends nothing.
       if ((await claimAlertsForMail(pending.map((p) => p.id), now.toISOString(), trx)) !== pending.length) throw new Error("taken by another worker");
       const lines = pending.map((p) => alertLine(p, p.supplier, p, p.bed_name, person.unit_system as UnitSystem, now));
-      const mail = needDigestEmail({ name: person.display_name, lines, needsUrl: `${appUrl()}/needs` });
-      await enqueueEmail({ to: person.email, ...mail, template: "need.digest", dedupe_key: `need-digest:${userId}:${pending[0].id}` }, trx);
+      const data = { name: person.display_name, lines, needsUrl: `${appUrl()}/needs` };
+      await enqueueEmail({ to: person.email, template: "need.digest", data, dedupe_key: `need-digest:${userId}:${pending[0].id}` }, trx);
       return true;
     }).catch((err: Error) => {
       if (err.message !== "taken by another worker") throw err;
