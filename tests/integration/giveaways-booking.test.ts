@@ -2,8 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { distance, point } from "@turf/turf";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
-import { bookAs, createDayAs, DEPOT, DEPOT_ADDRESS } from "../helpers/giveaways";
-import { createUser } from "../factories";
+import { bookAs, createGiveaway, createUser, DEPOT, DEPOT_ADDRESS } from "../factories";
 import * as list from "@/app/api/giveaways/route";
 import * as one from "@/app/api/giveaways/[id]/route";
 import * as booking from "@/app/api/giveaways/[id]/bookings/[bookingId]/route";
@@ -18,7 +17,7 @@ let council: string;
 let ada: string;
 let bo: string;
 let cy: string;
-let day: Awaited<ReturnType<typeof createDayAs>>;
+let day: Awaited<ReturnType<typeof createGiveaway>>;
 
 beforeAll(async () => {
   process.env.BCRYPT_COST = "4";
@@ -27,7 +26,7 @@ beforeAll(async () => {
   ada = (await createUser({ roles: ["gardener"] })).id;
   bo = (await createUser({ roles: ["gardener"] })).id;
   cy = (await createUser({ roles: ["supplier"] })).id; // any signed-in account is a household
-  day = await createDayAs(council);
+  day = await createGiveaway(council);
 });
 afterAll(() => ctx.close());
 
@@ -148,7 +147,7 @@ describe("POST /api/giveaways/:id/bookings", () => {
     expect((await bookAs(cy, "no-such-day", { slot_id: day.slots[0].id, quantity: 1 })).status).toBe(404);
   });
   it("409 before booking opens and after it closes", async () => {
-    const later = await createDayAs(council, { booking_opens_at: new Date(Date.now() + 86_400_000).toISOString() });
+    const later = await createGiveaway(council, { booking_opens_at: new Date(Date.now() + 86_400_000).toISOString() });
     const early = await bookAs(cy, later.id, { slot_id: later.slots[0].id, quantity: 1 });
     expect(early.status).toBe(409);
     expect(early.json.error.message).toMatch(/Booking opens/);

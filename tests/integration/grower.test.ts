@@ -18,9 +18,9 @@ beforeAll(async () => {
   p.grower = (await createUser({ roles: ["gardener", "grower"] })).id;
   p.other = (await createUser({ roles: ["grower"] })).id;
   p.gardener = (await createUser({ roles: ["gardener"] })).id;
-  worms = (await createListing({ owner_id: p.grower, material: "worms", unit: "kg", quantity_total: 3, quality: { bedding: "shredded card" } })).id;
-  leaves = (await createListing({ owner_id: p.grower, material: "leaves", unit: "bags" })).id;
-  theirWorms = (await createListing({ owner_id: p.other, material: "worms", unit: "kg", quantity_total: 2 })).id;
+  worms = (await createListing({ owner_id: p.grower, material_code: "worms", unit: "kg", quantity_total: 3, quality: { bedding: "shredded card" } })).id;
+  leaves = (await createListing({ owner_id: p.grower, material_code: "leaves", unit: "bags" })).id;
+  theirWorms = (await createListing({ owner_id: p.other, material_code: "worms", unit: "kg", quantity_total: 2 })).id;
 });
 afterAll(() => ctx.close());
 

@@ -25,7 +25,7 @@ beforeAll(async () => {
   who.grower = (await createUser({ roles: ["grower"] })).id;
   const council = await createUser({ roles: ["council"] });
   who.council = council.id;
-  who.colleague = (await createUser({ roles: ["council"], orgId: council.orgId })).id;
+  who.colleague = (await createUser({ roles: ["council"], organisation_id: council.organisation_id })).id;
   const res = await call(listings.POST as never, await request("/api/listings", { as: who.owner, body: listingBody() }));
   expect(res.status).toBe(201);
   listingId = res.json.listing.id;

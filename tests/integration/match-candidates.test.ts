@@ -4,8 +4,7 @@ import { destination } from "@turf/turf";
 import { freshDb } from "../helpers/db";
 import { isPg, queryPlan } from "../helpers/engine";
 import { prng } from "@/seeds/ids";
-import { createUser } from "../factories";
-import { insertListing } from "../helpers/match";
+import { createListing, createUser } from "../factories";
 import { databaseSource, findCandidates, findCheapest, nearestListings } from "@/lib/match/candidates";
 import { boundingBox } from "@/lib/geo/box";
 import { distanceKm } from "@/lib/match/geo";
@@ -131,7 +130,7 @@ describe("candidate queries", () => {
           const ids: string[] = [];
           for (const p of points) {
             const [lng, lat] = destination([centre.lng, centre.lat], km * p.edge, p.bearing, { units: "kilometers" }).geometry.coordinates;
-            ids.push(await insertListing(ctx.db, { owner_id: owner, material_code: "compost", unit: "m3", approx: { lat, lng } }));
+            ids.push((await createListing({ owner_id: owner, material_code: "compost", unit: "m3", location: { lat, lng } })).id);
           }
           try {
             const found = new Set((await findCandidates({ origin: centre, radius_km: km, materials: ["compost"] }, ctx.db)).map((c) => c.id));

@@ -3,8 +3,7 @@ import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
-import { bookAs, createDayAs } from "../helpers/giveaways";
-import { createListing, createUser } from "../factories";
+import { bookAs, createGiveaway, createListing, createUser } from "../factories";
 import * as reports from "@/app/api/reports/route";
 import * as queue from "@/app/api/moderation/reports/route";
 import * as close from "@/app/api/moderation/reports/[id]/close/route";
@@ -141,7 +140,7 @@ describe("suspending, restoring and verifying accounts", () => {
     expect(res.status).toBe(200);
     expect(res.json.user).toMatchObject({ suspended: true });
     await expect(provider().options.authorize({ email, password: "supplier password" })).rejects.toThrow("suspended");
-    const day = await createDayAs(p.council);
+    const day = await createGiveaway(p.council);
     const booking = await bookAs(p.supplier, day.id, { slot_id: day.slots[0].id, quantity: 1 });
     expect(booking.status).toBe(403);
     expect(booking.json.error.code).toBe("suspended");

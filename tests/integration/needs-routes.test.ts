@@ -5,8 +5,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
-import { createUser } from "../factories";
-import { insertBed } from "@/db/beds";
+import { createBed, createUser } from "../factories";
 import { addDays } from "@/lib/time/zoned";
 
 const needs = await import("@/app/api/needs/route");
@@ -31,8 +30,8 @@ beforeAll(async () => {
   who.ines = (await createUser({ roles: ["gardener"] })).id;
   who.bo = (await createUser({ roles: ["gardener"] })).id;
   who.supplier = (await createUser({ roles: ["supplier"] })).id;
-  bedId = await insertBed(who.ines, { name: "Back fence", shape: JSON.stringify({ length_m: 3, width_m: 1.2 }), area_m2: 3.6, lat: 52.2, lng: 0.84, recipe: "{}", start_date: addDays(today, 90) });
-  placelessBed = await insertBed(who.ines, { name: "Somewhere", shape: JSON.stringify({ length_m: 2, width_m: 1 }), area_m2: 2, lat: null, lng: null, recipe: "{}", start_date: null });
+  bedId = (await createBed({ owner_id: who.ines, name: "Back fence", shape: { length_m: 3, width_m: 1.2 }, area_m2: 3.6, lat: 52.2, lng: 0.84, start_date: addDays(today, 90) })).id;
+  placelessBed = (await createBed({ owner_id: who.ines, name: "Somewhere" })).id;
 });
 afterAll(() => ctx.close());
 

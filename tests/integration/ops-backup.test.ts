@@ -12,8 +12,7 @@ import Database from "better-sqlite3";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { expectWholeTransactions, FIGURE_SQL, type Figures, startWriters } from "../helpers/backup-load";
-import { createUser } from "../factories";
-import { createListing } from "../reservation-factories";
+import { createListing, createUser } from "../factories";
 
 const exec = promisify(execFile);
 const ROOT = path.resolve(__dirname, "../..");

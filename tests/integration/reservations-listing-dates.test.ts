@@ -4,8 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
-import { createUser } from "../factories";
-import { createListing, listingQuantities } from "../reservation-factories";
+import { createListing, createUser, listingQuantities } from "../factories";
 import { POST as reserve } from "@/app/api/reservations/route";
 import { GET as browse } from "@/app/api/listings/route";
 import { findCandidates } from "@/lib/match/candidates";
