@@ -1,5 +1,6 @@
 import { db, newId, nowIso } from "@/db/index";
 import type { BedRow } from "@/db/beds";
+import { defined } from "./defined";
 import { createUser } from "./users";
 
 export type BedOpts = Partial<Omit<BedRow, "shape" | "recipe">> & {
@@ -22,7 +23,7 @@ export async function createBed(opts: BedOpts = {}) {
     start_date: null,
     created_at: at,
     updated_at: at,
-    ...columns,
+    ...defined(columns),
     shape: JSON.stringify(shape ?? { length_m: 2, width_m: 1 }),
     recipe: JSON.stringify(recipe ?? {}),
     id,

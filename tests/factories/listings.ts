@@ -4,6 +4,7 @@ import type { ListingRow, PickupWindowRow } from "@/db/types";
 import { MATERIALS } from "@/lib/calc/facts";
 import { distanceKm } from "@/lib/match/geo";
 import type { CandidateListing, LatLng } from "@/lib/match/types";
+import { defined } from "./defined";
 import { createUser } from "./users";
 
 const seeded = new WeakSet<Knex>();
@@ -66,7 +67,7 @@ export async function createListing(opts: ListingOpts = {}, q: Knex = db()) {
     quality: JSON.stringify(quality ?? {}),
     created_at: now,
     updated_at: now,
-    ...columns,
+    ...defined(columns),
     id,
     owner_id,
     material_code,

@@ -1,5 +1,6 @@
 import { db, newId, nowIso } from "@/db/index";
 import type { ReservationRow } from "@/db/types";
+import { defined } from "./defined";
 import { createUser } from "./users";
 
 export type ReservationOpts = Partial<Omit<ReservationRow, "listing_id">> & { listing_id: string };
@@ -30,7 +31,7 @@ export async function createReservation(opts: ReservationOpts) {
     confirmed_at: status === "held" ? null : at,
     closed_at: open ? null : at,
     created_at: at,
-    ...opts,
+    ...defined(opts),
     id,
     gardener_id,
     quantity,

@@ -57,7 +57,7 @@ describe("joining says the same for a known and an unknown address", () => {
     const token = link.searchParams.get("token")!;
     const hashed = createHash("sha256").update(`${token}${AUTH_SECRET}`).digest("hex"); // next-auth 4 hashToken
     const used = await knexAdapter().useVerificationToken!({ identifier: "linkfollower@example.test", token: hashed });
-    expect(used).toBeTruthy();
+    expect(used).toMatchObject({ identifier: "linkfollower@example.test" });
     expect(used!.expires.getTime() - Date.now()).toBeGreaterThan(23 * 3_600_000);
     expect(await knexAdapter().useVerificationToken!({ identifier: "linkfollower@example.test", token: hashed })).toBeNull();
 

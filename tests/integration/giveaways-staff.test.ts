@@ -61,7 +61,7 @@ describe("council staff create and list days", () => {
     it(`422 on ${field}: ${label}`, async () => {
       const res = await call(days.POST as never, await request("/api/council/giveaways", { body: giveawayBody(over), as: p.ownerA }));
       expect(res.status).toBe(422);
-      expect(res.json.error.fields[field]).toBeTruthy();
+      expect(res.json.error.fields[field]).toMatch(/\S/);
     });
   }
 });

@@ -114,7 +114,8 @@ describe("candidate queries", () => {
     const got = await findCheapest({ origin, radius_km: 15, materials: ["straw"], limit: 3 }, ctx.db);
     const perSize = got.rows.map((c) => c.price_cents / (c.unit_size ?? 1));
     expect(perSize).toEqual([...perSize].sort((a, b) => a - b));
-    expect(got.last_unit_price).not.toBeNull();
+    // Stopped at the limit: the price it stopped at is no cheaper than any it returned.
+    expect(got.last_unit_price).toBeGreaterThanOrEqual(Math.max(...perSize));
     const everything = await findCheapest({ origin, radius_km: 15, materials: ["straw"], limit: 1000 }, ctx.db);
     expect(everything.last_unit_price).toBeNull();
     expect(Math.min(...everything.rows.map((c) => c.price_cents / (c.unit_size ?? 1)))).toBeGreaterThanOrEqual(perSize[0] - 1e-9);

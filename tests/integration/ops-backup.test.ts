@@ -108,7 +108,8 @@ describe.skipIf(onPg)("restoring", () => {
     const forced = await dbCli("restore", [backup, "--force"], target);
     expect(counts(target)).toEqual(want);
     const kept = forced.stdout.match(/kept as (\S+)/)?.[1];
-    expect(kept && fs.existsSync(kept)).toBeTruthy();
+    expect(kept).toMatch(/\S/);
+    expect(fs.existsSync(kept!)).toBe(true);
     expect(counts(kept!).mail).toBe(0); // the replaced database, as it was
   }, 60_000);
 
