@@ -44,7 +44,7 @@ beforeAll(async () => {
   // Collected in November (closed_at), touched again in December: the month is November.
   await createReservation({ listing_id: grounds.id, gardener_id: g3, quantity: 12.5, status: "collected", updated_at: "2026-12-02T10:00:00.000Z", closed_at: "2026-11-12T10:00:00.000Z" });
   // Another supplier's collection counts for them and the platform, not for this supplier.
-  const theirs = await createListing({ owner_id: p.other, material_code: "leaves", unit: "bags", quantity_total: 10 });
+  const theirs = await createListing({ owner_id: p.other, material_code: "leaves", unit: "bags", unit_size: null, quantity_total: 10 });
   await createReservation({ listing_id: theirs.id, gardener_id: g1, quantity: 5, status: "collected", updated_at: "2026-11-05T10:00:00.000Z" });
 
   // The council: an organisation listing of compost, and a leaf giveaway day.
