@@ -76,8 +76,7 @@ describe(`text order on ${engineName()}`, () => {
     const owner = await createUser({ roles: ["council"] });
     const names = ["alice", "Bob", "_zed", "Émile", "a-b", "ab", "Zoë", "1st"];
     for (const name of names) {
-      const u = await createUser({ roles: ["council"], organisation_id: owner.organisation_id });
-      await ctx.db("users").where({ id: u.id }).update({ display_name: name });
+      await createUser({ roles: ["council"], organisation_id: owner.organisation_id, display_name: name });
     }
     await ctx.db("memberships").where({ user_id: owner.id }).delete();
     const got = (await membersOf(owner.organisation_id!)).map((m) => m.name);

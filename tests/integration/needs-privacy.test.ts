@@ -33,8 +33,7 @@ let gardener = "";
 const secrets: string[] = [];
 
 async function person(name: string, place: { lat: number; lng: number }, quantity: number, bedName?: string) {
-  const u = await createUser({ roles: ["gardener"] });
-  await ctx.db("users").where({ id: u.id }).update({ display_name: name });
+  const u = await createUser({ roles: ["gardener"], display_name: name });
   const bed = bedName ? (await createBed({ owner_id: u.id, name: bedName, ...place })).id : null;
   const res = await call(needs.POST as never, await request("/api/needs", { as: u.id, body: { material: "leaves", quantity, unit: "m3", radius_km: 10, needed_by: addDays(today, 70), ...(bed ? { bed_id: bed } : { location: place }) } }));
   expect(res.status, JSON.stringify(res.json)).toBe(201);

@@ -179,10 +179,8 @@ describe("POST /api/reservations with items (Reserve all)", () => {
 
   it("names each stop's own problem at once, keeps the status of a refusal, and holds nothing", async () => {
     const fine = await createListing({ quantity_total: 5 });
-    const ended = await createListing({ quantity_total: 5 });
-    await ctx.db("listings").where({ id: ended.id }).update({ available_until: "2020-01-01T00:00:00.000Z" });
-    const culture = await createListing({ material_code: "worms", unit: "kg", price_cents: 3000, quantity_total: 3 });
-    await ctx.db("listings").where({ id: culture.id }).update({ quality: JSON.stringify({ species: "Eisenia fetida", pickup: false }) });
+    const ended = await createListing({ quantity_total: 5, available_until: "2020-01-01T00:00:00.000Z" });
+    const culture = await createListing({ material_code: "worms", unit: "kg", price_cents: 3000, quantity_total: 3, quality: { species: "Eisenia fetida", pickup: false } });
     const items = [
       { listing_id: fine.id, quantity: 1 },
       { listing_id: ended.id, quantity: 1 },
