@@ -6,7 +6,7 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
 import { startPayments, type PaymentsHarness } from "../helpers/payments";
-import { createListing, createReservation, createUser, listingQuantities } from "../factories";
+import { createListing, createReservation, createUser, listingQuantities, type ReservationOpts } from "../factories";
 import { TEST_CARDS, submitHostedPayment, validCard } from "@/lib/fakes/stripe/testing";
 import { POST as reserve } from "@/app/api/reservations/route";
 import { GET as getOne } from "@/app/api/reservations/[id]/route";
@@ -223,10 +223,9 @@ function expected(route: Route, party: Party, state: State): number {
 async function orderIn(state: State, gardenerId: string) {
   const l = await wormListing();
   const status = state === "held" ? "held" : state === "delivered" ? "collected" : state === "cancelled" ? "cancelled" : "confirmed";
-  const r = await createReservation({ status, listing_id: l.id, gardener_id: gardenerId, quantity: 1 });
-  const stage = { held: null, paid: "paid", packed: "packed", packed_paused: "packed", shipped: "shipped", delivered: "delivered", cancelled: "paid", pickup_paid: "paid", not_culture: null }[state];
+  const order_stage = ({ held: null, paid: "paid", packed: "packed", packed_paused: "packed", shipped: "shipped", delivered: "delivered", cancelled: "paid", pickup_paid: "paid", not_culture: null } as const)[state];
   const fulfilment = state === "pickup_paid" ? "pickup" : state === "not_culture" ? null : "post";
-  await db()("reservations").where({ id: r.id }).update({ fulfilment, order_stage: stage, ship_to: fulfilment === "post" ? ADDRESS : null });
+  const r = await createReservation({ status, listing_id: l.id, gardener_id: gardenerId, quantity: 1, fulfilment, order_stage, ship_to: fulfilment === "post" ? ADDRESS : null });
   return { id: r.id, listingId: l.id };
 }
 
@@ -322,11 +321,9 @@ describe("how a parcel changes cancelling and collecting", () => {
 describe("GET /api/grower/orders", () => {
   it("lists open orders, work first, and leaves out unpaid holds and other growers' orders", async () => {
     const grower = (await createUser({ roles: ["grower"] })).id;
-    const make = async (status: "held" | "confirmed", stage: string | null, payment: "awaiting" | "paid") => {
+    const make = async (status: "held" | "confirmed", order_stage: ReservationOpts["order_stage"], payment_state: "awaiting" | "paid") => {
       const l = await createListing({ owner_id: grower, material_code: "worms", unit: "kg", quantity_total: 5 });
-      const r = await createReservation({ status, listing_id: l.id, gardener_id: p.buyer, payment_state: payment });
-      await db()("reservations").where({ id: r.id }).update({ fulfilment: "post", order_stage: stage, ship_to: ADDRESS });
-      return r.id;
+      return (await createReservation({ status, listing_id: l.id, gardener_id: p.buyer, payment_state, fulfilment: "post", order_stage, ship_to: ADDRESS })).id;
     };
     const shipped = await make("confirmed", "shipped", "paid");
     const toPack = await make("confirmed", "paid", "paid");

@@ -4,7 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
-import { createListing, createReservation, createUser } from "../factories";
+import { createListing, createReservation, createUser, type ReservationOpts } from "../factories";
 import * as shipping from "@/app/api/grower/shipping/route";
 import { POST as cancel } from "@/app/api/reservations/[id]/cancel/route";
 import { db } from "@/db/index";
@@ -15,10 +15,8 @@ const o = {} as Record<"paid" | "packed" | "shipped" | "heldPaid" | "heldAwaitin
 const ADDRESS = "Flat 2, 14 Quarry Row, Fernhollow FH2 7QT";
 const PAUSE = { ship_weekdays: [1, 2], paused: true, pause_reason: "heat", pause_note: "Back once nights stay under 20 °C." };
 
-async function order(ownerListing: string, status: "held" | "confirmed", set: Record<string, unknown>) {
-  const { id } = await createReservation({ status, listing_id: ownerListing, payment_state: (set.payment_state as never) ?? "none" });
-  await db()("reservations").where({ id }).update({ fulfilment: "post", ship_to: ADDRESS, pickup_by: null, ...set });
-  return id;
+async function order(listing_id: string, status: "held" | "confirmed", set: Omit<ReservationOpts, "listing_id" | "status">) {
+  return (await createReservation({ status, listing_id, fulfilment: "post", ship_to: ADDRESS, pickup_by: null, ...set })).id;
 }
 
 beforeAll(async () => {

@@ -46,6 +46,7 @@ function expected(route: Route, party: Party, state: State): number {
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 const people = {} as Record<Exclude<Party, "anonymous">, string>;
+let organisationId: string | undefined;
 
 beforeAll(async () => {
   ctx = await freshDb();
@@ -56,15 +57,16 @@ beforeAll(async () => {
   people.dual = (await createUser({ roles: ["gardener", "supplier"] })).id;
   people.otherSupplier = (await createUser({ roles: ["supplier"] })).id;
   people.otherGardener = (await createUser({ roles: ["gardener"] })).id;
-  (people as any).organisation_id = owner.organisation_id;
+  organisationId = owner.organisation_id;
 });
 afterAll(() => ctx.close());
 
 async function reservationIn(state: State, gardenerId: string) {
-  const l = await createListing({ owner_id: people.owner, organisation_id: (people as any).organisation_id, quantity_total: 5 });
+  const l = await createListing({ owner_id: people.owner, organisation_id: organisationId, quantity_total: 5 });
   const past = new Date(Date.now() - 3_600_000).toISOString();
   const status = state === "held_unpaid" ? "held" : state === "confirmed_past" ? "confirmed" : state;
-  const r = await createReservation({ status,
+  const r = await createReservation({
+    status,
     listing_id: l.id,
     gardener_id: gardenerId,
     quantity: 2,
