@@ -39,7 +39,8 @@ const COUNTED = ["bags", "sheets", "bales"];
  * tests): leaf bags in the demo town, 10 of them, free, owned by a new supplier unless
  * `owner_id` is given. Counted units get a unit size unless one is given.
  */
-export async function createListing(opts: ListingOpts = {}, q: Knex = db()) {
+export async function createListing(opts: ListingOpts = {}) {
+  const q = db();
   await ensureMaterials(q);
   const { windows = [], quality, location, ...columns } = opts;
   const owner_id = opts.owner_id ?? (await createUser({ roles: ["supplier"] })).id;
