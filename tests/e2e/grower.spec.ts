@@ -22,7 +22,7 @@ test("a gardener buys a worm culture by post, the grower packs and ships it, and
      and pack_size is not null and pack_price_cents = 1600 order by quantity_total - quantity_held - quantity_collected desc limit 1`,
     grower.id,
   )[0];
-  expect(culture).toBeTruthy();
+  expect(culture).toMatchObject({ id: expect.any(String), title: expect.any(String) });
   expect([Number(culture.pack_size), Number(culture.pack_price_cents)]).toEqual([0.5, 1600]);
 
   const g = await browser.newContext({ storageState: storageState("grower") });

@@ -42,7 +42,7 @@ const newestReservation = (listingId: string) =>
 test("a gardener pays for straw, the farm accepts, the pickup code closes it, and both review", async ({ browser, request }) => {
   test.setTimeout(120_000);
   const straw = listingOf("hartwell@duffbank.test", "l.material_code = 'straw' and l.price_cents > 0 and l.auto_accept = false");
-  expect(straw).toBeTruthy();
+  expect(straw).toMatchObject({ id: expect.any(String), title: expect.any(String) });
 
   const g = await signedIn(browser, "gardener");
   await g.page.goto(`/listings/${straw.id}/reserve`);

@@ -4,13 +4,9 @@ import type { CandidateSource } from "@/lib/match/search";
 import type { CandidateListing, LatLng } from "@/lib/match/types";
 import { UNIT_PRICE_SQL } from "@/migrations/20261201_004_listing_unit_price";
 import { prng } from "@/seeds/ids";
+import { candidateListing } from "../factories/listings";
 
 export const FERNHOLLOW: LatLng = { lat: 52.205, lng: 0.847 };
-
-/** A listing as matching sees it, with its distance from `origin` filled in. */
-export function listing(origin: LatLng, l: Omit<CandidateListing, "distance_km" | "currency"> & { currency?: string }): CandidateListing {
-  return { currency: "eur", ...l, distance_km: distanceKm(origin, l.location) };
-}
 
 /** The price per unit size the unit-price index orders by (the same rule as UNIT_PRICE_SQL). */
 export function unitPrice(l: CandidateListing): number {
@@ -41,43 +37,9 @@ export function randomCounty(seed: number, count: number, km: number, centre: La
     const kind = pick(["leaves", "leaves", "cardboard", "cardboard", "straw", "worms"] as const);
     const max = pick([null, null, 2, 5]);
     const base = { id: `c${i}`, location, max_per_reservation: max, unit_mass_kg: null };
-    if (kind === "leaves") return listing(centre, { ...base, material: "leaves", unit: "bags", unit_size: 0.1136, available: 1 + Math.floor(r() * 10), price_cents: pick([0, 0, 0, 100]) });
-    if (kind === "cardboard") return listing(centre, { ...base, material: "cardboard", unit: "sheets", unit_size: pick([0.6, 0.8]), available: 5 + Math.floor(r() * 20), price_cents: 0 });
-    if (kind === "straw") return listing(centre, { ...base, material: "straw", unit: "bales", unit_size: 0.1487, unit_mass_kg: 20, available: 2 + Math.floor(r() * 10), price_cents: pick([300, 400, 500]) });
-    return listing(centre, { ...base, material: "worms", unit: "kg", unit_size: null, available: 1 + Math.floor(r() * 4), price_cents: pick([1800, 2400, 3000]) });
+    if (kind === "leaves") return candidateListing(centre, { ...base, material: "leaves", unit: "bags", unit_size: 0.1136, available: 1 + Math.floor(r() * 10), price_cents: pick([0, 0, 0, 100]) });
+    if (kind === "cardboard") return candidateListing(centre, { ...base, material: "cardboard", unit: "sheets", unit_size: pick([0.6, 0.8]), available: 5 + Math.floor(r() * 20), price_cents: 0 });
+    if (kind === "straw") return candidateListing(centre, { ...base, material: "straw", unit: "bales", unit_size: 0.1487, unit_mass_kg: 20, available: 2 + Math.floor(r() * 10), price_cents: pick([300, 400, 500]) });
+    return candidateListing(centre, { ...base, material: "worms", unit: "kg", unit_size: null, available: 1 + Math.floor(r() * 4), price_cents: pick([1800, 2400, 3000]) });
   });
-}
-
-/** A listing row written straight to the database, public point as given. */
-export async function insertListing(
-  q: import("knex").Knex,
-  row: { owner_id: string; material_code: string; unit: string; approx: LatLng } & Record<string, unknown>,
-): Promise<string> {
-  const { approx, ...rest } = row;
-  const id = (rest.id as string | undefined) ?? crypto.randomUUID();
-  const now = new Date().toISOString();
-  await q("listings").insert({
-    title: `Test ${row.material_code}`,
-    description: "",
-    status: "active",
-    unit_size: null,
-    unit_mass_kg: null,
-    quantity_total: 10,
-    price_cents: 0,
-    currency: "eur",
-    deposit_cents: 0,
-    max_per_reservation: null,
-    auto_accept: false,
-    lat: approx.lat,
-    lng: approx.lng,
-    address: "1 Test Lane",
-    approx_lat: approx.lat,
-    approx_lng: approx.lng,
-    quality: "{}",
-    created_at: now,
-    updated_at: now,
-    ...rest,
-    id,
-  });
-  return id;
 }

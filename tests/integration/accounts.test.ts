@@ -7,8 +7,7 @@ import bcrypt from "bcryptjs";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
-import { createUser, listingBody } from "../factories";
-import { createListing } from "../reservation-factories";
+import { createListing, createUser, listingBody } from "../factories";
 import { POST as signUp } from "@/app/api/users/route";
 import { POST as reserve } from "@/app/api/reservations/route";
 import { POST as postListing } from "@/app/api/listings/route";
@@ -59,7 +58,7 @@ describe("joining says the same for a known and an unknown address", () => {
     const token = link.searchParams.get("token")!;
     const hashed = createHash("sha256").update(`${token}${AUTH_SECRET}`).digest("hex"); // next-auth 4 hashToken
     const used = await knexAdapter().useVerificationToken!({ identifier: "linkfollower@example.test", token: hashed });
-    expect(used).toBeTruthy();
+    expect(used).toMatchObject({ identifier: "linkfollower@example.test" });
     expect(used!.expires.getTime() - Date.now()).toBeGreaterThan(23 * 3_600_000);
     expect(await knexAdapter().useVerificationToken!({ identifier: "linkfollower@example.test", token: hashed })).toBeNull();
 

@@ -1,13 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
-import { createUser } from "../factories";
+import { createBed, createUser } from "../factories";
 import * as beds from "@/app/api/beds/route";
 import * as bed from "@/app/api/beds/[id]/route";
 import * as calendar from "@/app/api/beds/[id]/calendar.ics/route";
 import { sendBedReminders } from "@/lib/services/beds/send-bed-reminders";
 import { updateUser } from "@/db/users";
-import { insertBed } from "@/db/beds";
 import { toRequest, valuesFromBed } from "@/components/planner/form-model";
 import { renderedRows } from "../helpers/outbox";
 
@@ -182,17 +181,16 @@ describe("timeline reminders with a bed that cannot be estimated", () => {
     // outline, so its area is negative and no estimate can be made for it.
     const broken = {
       name: "Broken outline",
-      shape: JSON.stringify({ polygon: { type: "Polygon", coordinates: [square(0, 10), square(-5, 20)] } }),
+      shape: { polygon: { type: "Polygon", coordinates: [square(0, 10), square(-5, 20)] } },
       area_m2: -300,
       lat: 52.2,
       lng: 0.85,
-      recipe: "{}",
       start_date: "2027-03-01",
     };
-    await insertBed(cy.id, broken);
+    await createBed({ owner_id: cy.id, ...broken });
     const res = await call(beds.POST as never, await request("/api/beds", { body: { ...good, name: "Sound bed", start_date: "2027-03-01" }, as: cy.id }));
     expect(res.status).toBe(201);
-    await insertBed(cy.id, { ...broken, name: "Broken too" });
+    await createBed({ owner_id: cy.id, ...broken, name: "Broken too" });
 
     const logged: unknown[][] = [];
     const spy = vi.spyOn(console, "error").mockImplementation((...args: unknown[]) => void logged.push(args));

@@ -6,8 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
 import { startPayments, type PaymentsHarness } from "../helpers/payments";
-import { createUser, listingBody } from "../factories";
-import { listingQuantities } from "../reservation-factories";
+import { createUser, listingBody, listingQuantities } from "../factories";
 import { db } from "@/db/index";
 
 process.env.CLOUDINARY_URL = "cloudinary://k:s@duffbank-local?upload_prefix=http://127.0.0.1:9";

@@ -4,8 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
-import { createUser } from "../factories";
-import { createListing, createReservationIn } from "../reservation-factories";
+import { createListing, createReservation, createUser, type ReservationOpts } from "../factories";
 import * as shipping from "@/app/api/grower/shipping/route";
 import { POST as cancel } from "@/app/api/reservations/[id]/cancel/route";
 import { db } from "@/db/index";
@@ -17,18 +16,16 @@ const o = {} as Record<"paid" | "packed" | "shipped" | "heldPaid" | "heldAwaitin
 const ADDRESS = "Flat 2, 14 Quarry Row, Fernhollow FH2 7QT";
 const PAUSE = { ship_weekdays: [1, 2], paused: true, pause_reason: "heat", pause_note: "Back once nights stay under 20 °C." };
 
-async function order(ownerListing: string, status: "held" | "confirmed", set: Record<string, unknown>) {
-  const { id } = await createReservationIn(status, { listingId: ownerListing, payment_state: (set.payment_state as never) ?? "none" });
-  await db()("reservations").where({ id }).update({ fulfilment: "post", ship_to: ADDRESS, pickup_by: null, ...set });
-  return id;
+async function order(listing_id: string, status: "held" | "confirmed", set: Omit<ReservationOpts, "listing_id" | "status">) {
+  return (await createReservation({ status, listing_id, fulfilment: "post", ship_to: ADDRESS, pickup_by: null, ...set })).id;
 }
 
 beforeAll(async () => {
   ctx = await freshDb();
   p.grower = (await createUser({ roles: ["gardener", "grower"] })).id;
   p.otherGrower = (await createUser({ roles: ["grower"] })).id;
-  const worms = (await createListing({ ownerId: p.grower, material: "worms", unit: "kg", quantity_total: 20, price_cents: 1600 })).id;
-  const theirWorms = (await createListing({ ownerId: p.otherGrower, material: "worms", unit: "kg", quantity_total: 20 })).id;
+  const worms = (await createListing({ owner_id: p.grower, material_code: "worms", unit: "kg", quantity_total: 20, price_cents: 1600 })).id;
+  const theirWorms = (await createListing({ owner_id: p.otherGrower, material_code: "worms", unit: "kg", quantity_total: 20 })).id;
   o.paid = await order(worms, "confirmed", { order_stage: "paid", payment_state: "paid", amount_cents: 3200 });
   o.packed = await order(worms, "confirmed", { order_stage: "packed", payment_state: "paid", amount_cents: 1600 });
   o.shipped = await order(worms, "confirmed", { order_stage: "shipped", payment_state: "paid", amount_cents: 1600, carrier: "Fernhollow Parcel Post", tracking: "FPP 1" });

@@ -7,8 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Knex } from "knex";
 import { freshDb } from "../helpers/db";
 import { engineName, isPg } from "../helpers/engine";
-import { createUser } from "../factories";
-import { createListing, listingQuantities } from "../reservation-factories";
+import { createBed, createListing, createUser, listingQuantities } from "../factories";
 import { errorKind, isForeignKeyViolation, isUniqueViolation } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
 import { membersOf } from "@/db/organisations";
@@ -26,7 +25,7 @@ describe(`rows on ${engineName()} have the types db/types.ts declares`, () => {
   it("a calendar date is YYYY-MM-DD text, timestamps ISO text with milliseconds", async () => {
     const u = await createUser();
     const created = "2026-03-01T09:15:30.123Z";
-    await ctx.db("beds").insert({ id: crypto.randomUUID(), owner_id: u.id, name: "Types", shape: "{}", area_m2: 2, recipe: "{}", start_date: "2026-03-01", created_at: created, updated_at: created });
+    await createBed({ owner_id: u.id, name: "Types", start_date: "2026-03-01", created_at: created });
     const bed = await ctx.db("beds").first("start_date", "created_at").where({ owner_id: u.id });
     expect(bed).toEqual({ start_date: "2026-03-01", created_at: created });
     // Computed in SQL too: COALESCE over two timestamps is a timestamp.
@@ -77,11 +76,10 @@ describe(`text order on ${engineName()}`, () => {
     const owner = await createUser({ roles: ["council"] });
     const names = ["alice", "Bob", "_zed", "Émile", "a-b", "ab", "Zoë", "1st"];
     for (const name of names) {
-      const u = await createUser({ roles: ["council"], orgId: owner.orgId });
-      await ctx.db("users").where({ id: u.id }).update({ display_name: name });
+      await createUser({ roles: ["council"], organisation_id: owner.organisation_id, display_name: name });
     }
     await ctx.db("memberships").where({ user_id: owner.id }).delete();
-    const got = (await membersOf(owner.orgId!)).map((m) => m.name);
+    const got = (await membersOf(owner.organisation_id!)).map((m) => m.name);
     const bytes = [...names].sort((a, b) => Buffer.compare(Buffer.from(a), Buffer.from(b)));
     expect(got).toEqual(bytes);
   });

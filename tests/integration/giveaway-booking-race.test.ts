@@ -6,8 +6,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { otherConnection, type OtherConnection } from "../helpers/engine";
-import { bookAs, createDayAs } from "../helpers/giveaways";
-import { createUser } from "../factories";
+import { bookAs, createGiveaway, createUser } from "../factories";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 let other: OtherConnection;
@@ -40,7 +39,7 @@ function beforeSlotRead(change: () => void) {
 }
 
 async function bookWith(change: (dayId: string, slotId: string) => void) {
-  const day = await createDayAs(council);
+  const day = await createGiveaway(council);
   const household = (await createUser({ roles: ["gardener"] })).id;
   const slot = day.slots[0];
   const hook = beforeSlotRead(() => change(day.id, slot.id));

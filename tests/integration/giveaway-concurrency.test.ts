@@ -3,8 +3,7 @@ import path from "node:path";
 import { promisify } from "node:util";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
-import { createDayAs } from "../helpers/giveaways";
-import { createUser } from "../factories";
+import { createGiveaway, createUser } from "../factories";
 
 const run = promisify(execFile);
 const ROOT = path.resolve(__dirname, "../..");
@@ -41,7 +40,7 @@ async function bookInParallel(dayId: string, perProcess: { userId: string; slotI
 
 describe("booking a slot from many connections at once", () => {
   it("never puts more households in a slot than it holds", async () => {
-    const day = await createDayAs(council, { slots: [{ start: "09:00", end: "10:00", capacity: 15 }], household_cap: 3 });
+    const day = await createGiveaway(council, { slots: [{ start: "09:00", end: "10:00", capacity: 15 }], household_cap: 3 });
     const slotId = day.slots[0].id;
     const households = await Promise.all(Array.from({ length: 48 }, () => createUser({ roles: ["gardener"] })));
     // 8 processes × 6 households = 48 requests for 15 places.
@@ -62,7 +61,7 @@ describe("booking a slot from many connections at once", () => {
   }, 120_000);
 
   it("gives one household one booking a day, however many slots it tries at once", async () => {
-    const day = await createDayAs(council, {
+    const day = await createGiveaway(council, {
       title: "Chip morning",
       material: "wood_chips",
       unit: "m3",

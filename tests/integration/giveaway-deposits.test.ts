@@ -6,8 +6,7 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
 import { startPayments, type PaymentsHarness } from "../helpers/payments";
-import { bookAs, createDayAs } from "../helpers/giveaways";
-import { createUser } from "../factories";
+import { bookAs, createGiveaway, createUser } from "../factories";
 import { TEST_CARDS, submitHostedPayment, validCard } from "@/lib/fakes/stripe/testing";
 import * as oneDay from "@/app/api/giveaways/[id]/route";
 import * as myBooking from "@/app/api/giveaways/[id]/bookings/[bookingId]/route";
@@ -30,9 +29,9 @@ beforeAll(async () => {
   ctx = await freshDb({ materials: true });
   pay = await startPayments();
   const owner = await createUser({ roles: ["council"] });
-  orgA = owner.orgId!;
+  orgA = owner.organisation_id!;
   p.owner = owner.id;
-  p.staff = (await createUser({ roles: ["council"], orgId: orgA })).id;
+  p.staff = (await createUser({ roles: ["council"], organisation_id: orgA })).id;
   p.otherCouncil = (await createUser({ roles: ["council"] })).id;
   for (const k of ["ada", "bo", "cy"]) p[k] = (await createUser({ roles: ["gardener"] })).id;
 });
@@ -44,7 +43,7 @@ beforeEach(() => {
   pay.fake.setWebhookUrl(pay.webhookUrl);
 });
 
-const depositDay = (over: Record<string, unknown> = {}) => createDayAs(p.owner, { deposit_cents: 500, ...over });
+const depositDay = (over: Record<string, unknown> = {}) => createGiveaway(p.owner, { deposit_cents: 500, ...over });
 const booking = (id: string) => db()("giveaway_bookings").first("*").where({ id });
 const deposit = (bookingId: string) => db()("payments").first("*").where({ giveaway_booking_id: bookingId, kind: "deposit" });
 const slotRow = (id: string) => db()("giveaway_slots").first("*").where({ id });

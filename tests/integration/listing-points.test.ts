@@ -1,7 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
-import { createUser } from "../factories";
-import { insertListing } from "../helpers/match";
+import { createListing, createUser } from "../factories";
 import { nearestListings } from "@/db/match-candidates";
 import { searchListings } from "@/db/listing-search";
 import { isPg } from "@/db/dialect";
@@ -29,7 +28,7 @@ const indexed = async () => (isPg(ctx.db) ? 0 : Number((await ctx.db.raw("SELECT
 describe("the listings' spatial index", () => {
   it("holds each listing inserted, follows its point when it moves, and lets go when it is deleted", async () => {
     const before = await indexed();
-    const id = await insertListing(ctx.db, { owner_id: owner, material_code: "leaves", unit: "m3", approx: here });
+    const id = (await createListing({ owner_id: owner, material_code: "leaves", unit: "m3", location: here })).id;
     if (!isPg(ctx.db)) expect(await indexed()).toBe(before + 1);
     expect(await near()).toContain(id);
     expect(await browse()).toContain(id);
@@ -49,8 +48,8 @@ describe("the listings' spatial index", () => {
   it("finds a listing a hair inside the edge of the box, although the index rounds its floats", async () => {
     // 5 km due north is the box's edge; a point 1 m inside it must be found, one 1 m outside not.
     const edge = here.lat + 5 / 111.195;
-    const inside = await insertListing(ctx.db, { owner_id: owner, material_code: "leaves", unit: "m3", approx: { lat: edge - 1e-5, lng: here.lng } });
-    const outside = await insertListing(ctx.db, { owner_id: owner, material_code: "leaves", unit: "m3", approx: { lat: edge + 1e-5, lng: here.lng } });
+    const inside = (await createListing({ owner_id: owner, material_code: "leaves", unit: "m3", location: { lat: edge - 1e-5, lng: here.lng } })).id;
+    const outside = (await createListing({ owner_id: owner, material_code: "leaves", unit: "m3", location: { lat: edge + 1e-5, lng: here.lng } })).id;
     const found = await nearestListings({ origin: here, radius_km: 5, materials: ["leaves"], limit: 100 }, ctx.db);
     expect(found.map((c) => c.id)).toContain(inside);
     expect(found.map((c) => c.id)).not.toContain(outside);

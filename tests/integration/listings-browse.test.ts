@@ -71,11 +71,13 @@ describe("text search (SQLite FTS5)", () => {
     expect(ids(await browse("q=quillwort%20nonexistentword"))).toEqual([]);
   });
   it("treats search syntax as plain words", async () => {
+    const before = await ctx.db("listings").count({ n: "*" });
+    expect(Number(before[0].n)).toBeGreaterThan(0);
     for (const q of ['"', "quillwort*", "NEAR(quillwort hessian)", "quillwort OR", "'); DROP TABLE listings; --", "^hessian", "-x"]) {
       const res = await call(listings.GET as never, await request(`/api/listings?q=${encodeURIComponent(q)}`));
       expect(res.status, q).toBe(200);
     }
-    expect(await ctx.db("listings").count({ n: "*" })).toBeTruthy();
+    expect(await ctx.db("listings").count({ n: "*" })).toEqual(before);
   });
   it("follows edits to the title and description", async () => {
     await call(one.PATCH as never, await request(`/api/listings/${titleHit}`, { method: "PATCH", as: owner, body: { title: "Bog leaves", description: "Twelve bundles of juniperberry" } }), { id: titleHit });
@@ -220,10 +222,10 @@ describe("keyset pagination", () => {
 
   it("refuses a cursor from the other kind of search", async () => {
     const near = await browse(`lat=${CENTRE.lat}&lng=${CENTRE.lng}&limit=2`);
-    expect(near.next_cursor).toBeTruthy();
+    expect(near.next_cursor).toMatch(/^\S+$/);
     const res = await call(listings.GET as never, await request(`/api/listings?limit=2&cursor=${near.next_cursor}`));
     expect(res.status).toBe(422);
-    expect(res.json.error.fields.cursor).toBeTruthy();
+    expect(res.json.error.fields.cursor).toMatch(/\S/);
   });
 });
 

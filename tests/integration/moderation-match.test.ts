@@ -3,8 +3,8 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
-import { createUser } from "../factories";
-import { FERNHOLLOW, insertListing } from "../helpers/match";
+import { createListing, createUser } from "../factories";
+import { FERNHOLLOW } from "../helpers/match";
 import * as match from "@/app/api/match/route";
 import * as listingMod from "@/app/api/moderation/listings/[id]/route";
 
@@ -19,8 +19,8 @@ beforeAll(async () => {
   const supplier = (await createUser({ roles: ["supplier"] })).id;
   const near = { lat: FERNHOLLOW.lat + 0.004, lng: FERNHOLLOW.lng + 0.004 };
   const further = { lat: FERNHOLLOW.lat + 0.03, lng: FERNHOLLOW.lng - 0.03 };
-  reported = await insertListing(ctx.db, { owner_id: supplier, material_code: "leaves", unit: "m3", approx: near, quantity_total: 2, title: "Leaves with litter in" });
-  neighbour = await insertListing(ctx.db, { owner_id: supplier, material_code: "leaves", unit: "m3", approx: further, quantity_total: 2, title: "Clean leaves further out" });
+  reported = (await createListing({ owner_id: supplier, material_code: "leaves", unit: "m3", location: near, quantity_total: 2, title: "Leaves with litter in" })).id;
+  neighbour = (await createListing({ owner_id: supplier, material_code: "leaves", unit: "m3", location: further, quantity_total: 2, title: "Clean leaves further out" })).id;
 });
 afterAll(() => ctx.close());
 

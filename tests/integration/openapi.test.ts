@@ -25,7 +25,7 @@ describe("GET /api/openapi.json", () => {
       const apiPath = `/api/${rel}`.replace(/\[(\w+)\]/g, "{$1}");
       const src = fs.readFileSync(file, "utf8");
       const methods = [...src.matchAll(/export (?:const|async function|function) (GET|POST|PATCH|PUT|DELETE)\b/g)].map((m) => m[1].toLowerCase());
-      for (const m of methods) expect(doc.paths[apiPath]?.[m], `${m.toUpperCase()} ${apiPath}`).toBeTruthy();
+      for (const m of methods) expect(doc.paths[apiPath]?.[m], `${m.toUpperCase()} ${apiPath}`).toHaveProperty("responses");
     }
   });
 
@@ -53,7 +53,7 @@ describe("POST /api/estimate in the document", () => {
   it("describes the new answer fields beside the old ones", () => {
     const props = op.responses["200"].content["application/json"].schema.properties;
     for (const key of ["area_m2", "needs", "water_l", "water_us_gal", "blend", "timeline", "cautions", "water_range_l", "water_depth_mm", "planting", "settling", "top_ups", "costs"]) {
-      expect(props[key], key).toBeTruthy();
+      expect(props[key], key).toHaveProperty("type", expect.stringMatching(/^(number|string|array|object)$/));
     }
     expect(props.water_range_l.prefixItems).toHaveLength(2);
     expect(props.planting.properties).toHaveProperty("plant_into_from");
@@ -79,7 +79,7 @@ describe("the OpenAPI document", () => {
   it("validates as OpenAPI 3.1 with a standard parser", async () => {
     const { default: SwaggerParser } = await import("@apidevtools/swagger-parser");
     const doc = structuredClone(openApiDocument());
-    await expect(SwaggerParser.validate(doc as never)).resolves.toBeTruthy();
+    await expect(SwaggerParser.validate(doc as never)).resolves.toMatchObject({ openapi: expect.stringMatching(/^3\.1\./) });
   });
 });
 
@@ -87,7 +87,7 @@ describe("the open needs in the document", () => {
   const doc = documentNow();
   it("has every route of the contract, with bad input as a documented 422", () => {
     for (const [path, method] of [["/api/needs", "get"], ["/api/needs", "post"], ["/api/needs/{id}", "patch"], ["/api/needs/{id}", "delete"], ["/api/needs/nearby-demand", "get"]]) {
-      expect(doc.paths[path]?.[method], `${method.toUpperCase()} ${path}`).toBeTruthy();
+      expect(doc.paths[path]?.[method], `${method.toUpperCase()} ${path}`).toHaveProperty("responses");
     }
     expect(doc.paths["/api/needs"].post.responses).toHaveProperty("422");
     expect(doc.paths["/api/needs/{id}"].patch.responses).toHaveProperty("422");

@@ -14,8 +14,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { expectWholeTransactions, FIGURE_SQL, type Figures, startWriters } from "../helpers/backup-load";
 import { adminConnection, createDatabase, databaseUrl, dropDatabase, uniqueName } from "../helpers/pg-databases";
-import { createUser } from "../factories";
-import { createListing } from "../reservation-factories";
+import { createListing, createUser } from "../factories";
 import { pgConfig } from "@/knexfile";
 
 const exec = promisify(execFile);

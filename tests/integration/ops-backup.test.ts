@@ -12,8 +12,7 @@ import Database from "better-sqlite3";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { expectWholeTransactions, FIGURE_SQL, type Figures, startWriters } from "../helpers/backup-load";
-import { createUser } from "../factories";
-import { createListing } from "../reservation-factories";
+import { createListing, createUser } from "../factories";
 
 const exec = promisify(execFile);
 const ROOT = path.resolve(__dirname, "../..");
@@ -109,7 +108,8 @@ describe.skipIf(onPg)("restoring", () => {
     const forced = await dbCli("restore", [backup, "--force"], target);
     expect(counts(target)).toEqual(want);
     const kept = forced.stdout.match(/kept as (\S+)/)?.[1];
-    expect(kept && fs.existsSync(kept)).toBeTruthy();
+    expect(kept).toMatch(/\S/);
+    expect(fs.existsSync(kept!)).toBe(true);
     expect(counts(kept!).mail).toBe(0); // the replaced database, as it was
   }, 60_000);
 

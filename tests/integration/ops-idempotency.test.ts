@@ -4,9 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
-import { bookAs, createDayAs } from "../helpers/giveaways";
-import { createUser } from "../factories";
-import { createListing, listingQuantities } from "../reservation-factories";
+import { bookAs, createGiveaway, createListing, createUser, listingQuantities } from "../factories";
 import { POST as reserve } from "@/app/api/reservations/route";
 import { POST as cancel } from "@/app/api/reservations/[id]/cancel/route";
 import * as bookings from "@/app/api/giveaways/[id]/bookings/route";
@@ -152,7 +150,7 @@ describe("the other money-moving writes", () => {
 
   it("books a giveaway slot once for a repeated booking request", async () => {
     const council = (await createUser({ roles: ["council"] })).id;
-    const day = await createDayAs(council);
+    const day = await createGiveaway(council);
     const body = { slot_id: day.slots[0].id, quantity: 2 };
     const send = async () => call(bookings.POST as never, await request(`/api/giveaways/${day.id}/bookings`, { body, as: gardener, headers: { "Idempotency-Key": "key-book" } }), { id: day.id });
     const first = await send();

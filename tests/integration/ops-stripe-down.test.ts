@@ -8,9 +8,7 @@ import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
 import { startPayments, type PaymentsHarness } from "../helpers/payments";
 import { closedPort, startSilentServer } from "../helpers/ports";
-import { bookAs, createDayAs } from "../helpers/giveaways";
-import { createUser } from "../factories";
-import { createListing, listingQuantities } from "../reservation-factories";
+import { bookAs, createGiveaway, createListing, createUser, listingQuantities } from "../factories";
 import { submitHostedPayment } from "@/lib/fakes/stripe/testing";
 import { POST as reserve } from "@/app/api/reservations/route";
 import { GET as getOne } from "@/app/api/reservations/[id]/route";
@@ -49,7 +47,7 @@ const stripeHangs = () => stripeAt(silent.port);
 const stripeBack = () => stripeAt(pay.fake.port);
 
 const reserveStraw = async (quantity = 2) => {
-  const l = await createListing({ material: "straw", unit: "bales", price_cents: 450, quantity_total: 10 });
+  const l = await createListing({ material_code: "straw", unit: "bales", price_cents: 450, quantity_total: 10 });
   const res = await call(reserve, await request("/api/reservations", { body: { listing_id: l.id, quantity }, as: gardener }));
   return { l, res };
 };
@@ -73,12 +71,12 @@ describe("reserving a priced listing while Stripe takes the connection and never
     expect(await mailFor(r.id)).toEqual([]); // neither "requested" to the supplier nor anything else yet
     expect(await charge(r.id)).toMatchObject({ status: "creating", pending_action: "open", waiting_for: "stripe", action_attempts: 1 });
     // The supplier's side says what is going on too, and offers nothing to accept.
-    expect((await view(r.id, l.ownerId)).actions).not.toContain("confirm");
+    expect((await view(r.id, l.owner_id)).actions).not.toContain("confirm");
   }, 30_000);
 
   it("waits out one timeout for a whole \"Reserve all\", not one per listing", async () => {
     stripeHangs();
-    const listings = await Promise.all([0, 1, 2].map(() => createListing({ material: "straw", unit: "bales", price_cents: 450, quantity_total: 10 })));
+    const listings = await Promise.all([0, 1, 2].map(() => createListing({ material_code: "straw", unit: "bales", price_cents: 450, quantity_total: 10 })));
     const started = Date.now();
     const res = await call(reserve, await request("/api/reservations", { body: { items: listings.map((l) => ({ listing_id: l.id, quantity: 1 })) }, as: gardener }));
     expect(Date.now() - started).toBeLessThan(DEFAULT_STRIPE_TIMEOUT_MS + 3000);
@@ -127,7 +125,7 @@ describe("reserving a priced listing while Stripe takes the connection and never
     await submitHostedPayment(url);
     await pay.fake.webhooksIdle();
     expect((await mailFor(id)).sort()).toEqual([`res:${id}:payment_ready:gardener`, `res:${id}:receipt:gardener`, `res:${id}:requested:gardener`, `res:${id}:requested:supplier`]);
-    expect((await view(id, l.ownerId)).actions).toContain("confirm");
+    expect((await view(id, l.owner_id)).actions).toContain("confirm");
   }, 30_000);
 });
 
@@ -139,7 +137,7 @@ describe("calls owed to Stripe", () => {
     await submitHostedPayment((await charge(id)).checkout_url);
     await pay.fake.webhooksIdle();
     stripeAt(await closedPort());
-    expect((await call(decline, await request(`/api/reservations/${id}/decline`, { as: l.ownerId, body: {} }), { id })).status).toBe(200);
+    expect((await call(decline, await request(`/api/reservations/${id}/decline`, { as: l.owner_id, body: {} }), { id })).status).toBe(200);
     const refund = await ctx.db("payments").first("*").where({ reservation_id: id, kind: "refund" });
     expect(refund).toMatchObject({ pending_action: "refund", waiting_for: "stripe", action_attempts: 1 });
     stripeBack();
@@ -198,7 +196,7 @@ describe("a reservation that ends with its checkout unpaid", () => {
 describe("a giveaway deposit while Stripe is away", () => {
   it("keeps the place, and the worker opens the card page and e-mails the household", async () => {
     const council = (await createUser({ roles: ["council"] })).id;
-    const day = await createDayAs(council, { deposit_cents: 500 });
+    const day = await createGiveaway(council, { deposit_cents: 500 });
     stripeAt(await closedPort());
     const booked = await bookAs(gardener, day.id, { slot_id: day.slots[0].id, quantity: 2 });
     expect(booked.status).toBe(201);

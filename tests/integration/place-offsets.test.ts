@@ -5,8 +5,7 @@ import { distance, point } from "@turf/turf";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
-import { createDayAs } from "../helpers/giveaways";
-import { createUser, listingBody } from "../factories";
+import { createGiveaway, createUser, listingBody } from "../factories";
 import { APPROX_MAX_M, APPROX_MIN_M } from "@/lib/geo/approximate";
 import * as placeKeyed from "@/migrations/20261202_008_place_keyed_offsets";
 
@@ -96,8 +95,8 @@ describe("giveaway days at one depot", () => {
   it("show one public point for every day a council holds there", async () => {
     const council = (await createUser({ roles: ["council"] })).id;
     const DEPOT = { lat: 52.20877, lng: 0.85566 };
-    const days: Awaited<ReturnType<typeof createDayAs>>[] = [];
-    for (let i = 0; i < 6; i++) days.push(await createDayAs(council, { location: DEPOT, title: `Leaf day ${i + 1}` }));
+    const days: Awaited<ReturnType<typeof createGiveaway>>[] = [];
+    for (let i = 0; i < 6; i++) days.push(await createGiveaway(council, { location: DEPOT, title: `Leaf day ${i + 1}` }));
     const res = await call(giveaways.GET as never, await request(`/api/giveaways?lat=${DEPOT.lat}&lng=${DEPOT.lng}&radius_km=3`));
     const shown = (res.json.items as { id: string; location: { lat: number; lng: number } }[]).filter((i) => days.some((d) => d.id === i.id));
     expect(shown).toHaveLength(days.length);

@@ -4,8 +4,8 @@ import { createElement } from "react";
 import { renderToStaticMarkup } from "react-dom/server";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { freshDb } from "../helpers/db";
-import { createListing, createReservationIn } from "../reservation-factories";
-import { listReservations } from "@/lib/services/reservations/list-reservations";
+import { createListing, createReservation } from "../factories";
+import { listReservations } from "@/lib/services/list-reservations";
 
 // The card's buttons are client components that ask for the app router, which only exists
 // inside Next.js: a stand-in router lets the whole card render here.
@@ -23,8 +23,8 @@ let gardenerId = "";
 beforeAll(async () => {
   ctx = await freshDb({ materials: true });
   const listing = await createListing();
-  supplierId = listing.ownerId;
-  gardenerId = (await createReservationIn("confirmed", { listingId: listing.id })).gardenerId;
+  supplierId = listing.owner_id;
+  gardenerId = (await createReservation({ status: "confirmed", listing_id: listing.id })).gardener_id;
 });
 afterAll(() => ctx.close());
 

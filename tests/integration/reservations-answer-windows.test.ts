@@ -6,8 +6,7 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
 import { startPayments, type PaymentsHarness } from "../helpers/payments";
-import { createUser } from "../factories";
-import { createListing } from "../reservation-factories";
+import { createListing, createUser } from "../factories";
 import { TEST_CARDS, submitHostedPayment, validCard } from "@/lib/fakes/stripe/testing";
 import { POST as reserve } from "@/app/api/reservations/route";
 import { expireHolds, sendReservationReminders } from "@/lib/services/reservations/expire-holds";
@@ -81,7 +80,7 @@ describe("a free request waiting for the supplier", () => {
   it("ends the answer window when the chosen pickup starts, well inside 48 hours", async () => {
     const w = datedIn(10 * HOUR);
     const l = await createListing({ windows: [w] });
-    const res = await reserveWith(l.id, l.windowIds[0]);
+    const res = await reserveWith(l.id, l.window_ids[0]);
     expect(res.status).toBe(201);
     const r = await row(res.json.reservation.id);
     expect(r.pickup_at).toBe(w.start.toISOString());
@@ -97,7 +96,7 @@ describe("a free request waiting for the supplier", () => {
 
   it("refuses a dated pickup that starts before the supplier could answer", async () => {
     const l = await createListing({ windows: [datedIn(MIN_ANSWER_MINUTES * MIN - 20 * MIN)] });
-    const res = await reserveWith(l.id, l.windowIds[0]);
+    const res = await reserveWith(l.id, l.window_ids[0]);
     expect(res.status).toBe(422);
     expect(res.json.error.fields.pickup_window_id).toMatch(/too soon for the supplier to answer/);
     expect(await db()("reservations").where({ listing_id: l.id }).count({ n: "*" })).toEqual([{ n: 0 }]);
@@ -106,7 +105,7 @@ describe("a free request waiting for the supplier", () => {
   it("takes a weekly window's next opening that leaves time to answer: next week's when today's is too close", async () => {
     const w = weeklyIn(20 * MIN);
     const l = await createListing({ windows: [w.window] });
-    const res = await reserveWith(l.id, l.windowIds[0]);
+    const res = await reserveWith(l.id, l.window_ids[0]);
     expect(res.status).toBe(201);
     const r = await row(res.json.reservation.id);
     const moved = new Date(r.pickup_at).getTime() - w.start.getTime();
@@ -118,7 +117,7 @@ describe("a free request waiting for the supplier", () => {
   it("lets an auto-accept listing be collected in an opening that starts soon: nobody has to answer", async () => {
     const w = datedIn(20 * MIN);
     const l = await createListing({ auto_accept: true, windows: [w] });
-    const res = await reserveWith(l.id, l.windowIds[0]);
+    const res = await reserveWith(l.id, l.window_ids[0]);
     expect(res.status).toBe(201);
     expect(res.json.reservation.status).toBe("confirmed");
     expect((await row(res.json.reservation.id)).pickup_at).toBe(w.start.toISOString());
@@ -128,8 +127,8 @@ describe("a free request waiting for the supplier", () => {
 describe("a checkout", () => {
   it("keeps the short hold while the gardener pays; then the supplier answers before the pickup starts", async () => {
     const w = datedIn(6 * HOUR);
-    const l = await createListing({ material: "straw", unit: "bales", price_cents: 450, windows: [w] });
-    const res = await reserveWith(l.id, l.windowIds[0]);
+    const l = await createListing({ material_code: "straw", unit: "bales", price_cents: 450, windows: [w] });
+    const res = await reserveWith(l.id, l.window_ids[0]);
     expect(res.status).toBe(201);
     const id = res.json.reservation.id;
     let r = await row(id);
@@ -150,8 +149,8 @@ describe("a checkout", () => {
   });
 
   it("refuses a pickup that starts before the checkout's hold and an answer could both fit", async () => {
-    const l = await createListing({ material: "straw", unit: "bales", price_cents: 450, windows: [datedIn((DEFAULT_HOLD_MINUTES + MIN_ANSWER_MINUTES - 10) * MIN)] });
-    const res = await reserveWith(l.id, l.windowIds[0]);
+    const l = await createListing({ material_code: "straw", unit: "bales", price_cents: 450, windows: [datedIn((DEFAULT_HOLD_MINUTES + MIN_ANSWER_MINUTES - 10) * MIN)] });
+    const res = await reserveWith(l.id, l.window_ids[0]);
     expect(res.status).toBe(422);
     expect(res.json.error.fields.pickup_window_id).toMatch(/too soon/);
   });

@@ -9,8 +9,7 @@ import { promisify } from "node:util";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
-import { createUser } from "../factories";
-import { createListing, listingQuantities } from "../reservation-factories";
+import { createListing, createUser, listingQuantities } from "../factories";
 import { POST } from "@/app/api/reservations/route";
 
 const run = promisify(execFile);

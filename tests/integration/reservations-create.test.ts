@@ -3,8 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
-import { createUser } from "../factories";
-import { createListing, listingQuantities } from "../reservation-factories";
+import { createListing, createUser, listingQuantities } from "../factories";
 import { POST, GET } from "@/app/api/reservations/route";
 import { GET as getOne } from "@/app/api/reservations/[id]/route";
 import { rendered, renderedRows } from "../helpers/outbox";
@@ -85,10 +84,10 @@ describe("POST /api/reservations (one listing)", () => {
 
   it("keeps a pickup window and its next opening", async () => {
     const l = await createListing({ windows: [{ kind: "weekly", weekday: 6, start_time: "09:00", end_time: "12:00" }] });
-    const res = await post({ listing_id: l.id, quantity: 1, pickup_window_id: l.windowIds[0] });
+    const res = await post({ listing_id: l.id, quantity: 1, pickup_window_id: l.window_ids[0] });
     expect(res.status).toBe(201);
     const r = res.json.reservation;
-    expect(r.pickup_window_id).toBe(l.windowIds[0]);
+    expect(r.pickup_window_id).toBe(l.window_ids[0]);
     expect(r.pickup.window).toBe("Saturdays 09:00–12:00");
     expect(new Date(r.pickup.starts_at).getUTCDay()).toBe(6);
     expect(new Date(r.pickup.ends_by).getTime() - new Date(r.pickup.starts_at).getTime()).toBe(3 * 3_600_000);
@@ -107,10 +106,10 @@ describe("POST /api/reservations (one listing)", () => {
     { name: "an unknown listing", body: { listing_id: "00000000-0000-0000-0000-000000000000", quantity: 1 }, status: 404, code: "not_found" },
     { name: "a draft listing", body: async () => ({ listing_id: (await createListing({ status: "draft" })).id, quantity: 1 }), status: 404, code: "not_found" },
     { name: "a paused listing", body: async () => ({ listing_id: (await createListing({ status: "paused" })).id, quantity: 1 }), status: 409, code: "invalid_state" },
-    { name: "my own listing", body: async () => ({ listing_id: (await createListing({ ownerId: gardener.id })).id, quantity: 1 }), status: 409, code: "conflict" },
-    { name: "my organisation's listing", body: async () => { const boss = await createUser({ roles: ["council"] }); await ctx.db("memberships").insert({ organisation_id: boss.orgId, user_id: gardener.id, org_role: "staff", created_at: new Date().toISOString() }); return { listing_id: (await createListing({ ownerId: boss.id, organisationId: boss.orgId })).id, quantity: 1 }; }, status: 409, code: "conflict" },
-    { name: "another listing's window", body: async () => ({ listing_id: (await createListing()).id, quantity: 1, pickup_window_id: (await createListing({ windows: [{ kind: "weekly", weekday: 1, start_time: "09:00", end_time: "10:00" }] })).windowIds[0] }), status: 422, code: "invalid_input", field: "pickup_window_id" },
-    { name: "a dated window in the past", body: async () => { const l = await createListing({ windows: [{ kind: "dated", starts_at: "2020-01-01T09:00:00Z", ends_at: "2020-01-01T10:00:00Z" }] }); return { listing_id: l.id, quantity: 1, pickup_window_id: l.windowIds[0] }; }, status: 422, code: "invalid_input", field: "pickup_window_id" },
+    { name: "my own listing", body: async () => ({ listing_id: (await createListing({ owner_id: gardener.id })).id, quantity: 1 }), status: 409, code: "conflict" },
+    { name: "my organisation's listing", body: async () => { const boss = await createUser({ roles: ["council"] }); await ctx.db("memberships").insert({ organisation_id: boss.organisation_id, user_id: gardener.id, org_role: "staff", created_at: new Date().toISOString() }); return { listing_id: (await createListing({ owner_id: boss.id, organisation_id: boss.organisation_id })).id, quantity: 1 }; }, status: 409, code: "conflict" },
+    { name: "another listing's window", body: async () => ({ listing_id: (await createListing()).id, quantity: 1, pickup_window_id: (await createListing({ windows: [{ kind: "weekly", weekday: 1, start_time: "09:00", end_time: "10:00" }] })).window_ids[0] }), status: 422, code: "invalid_input", field: "pickup_window_id" },
+    { name: "a dated window in the past", body: async () => { const l = await createListing({ windows: [{ kind: "dated", starts_at: "2020-01-01T09:00:00Z", ends_at: "2020-01-01T10:00:00Z" }] }); return { listing_id: l.id, quantity: 1, pickup_window_id: l.window_ids[0] }; }, status: 422, code: "invalid_input", field: "pickup_window_id" },
     { name: "someone else's bed", body: async () => ({ listing_id: (await createListing()).id, quantity: 1, bed_id: "not-my-bed" }), status: 422, code: "invalid_input", field: "bed_id" },
   ];
   for (const c of cases) {
@@ -169,22 +168,20 @@ describe("POST /api/reservations with items (Reserve all)", () => {
     const end = new Date(Date.now() + 3 * 86_400_000 + 7_200_000).toISOString();
     const a = await createListing({ quantity_total: 5, windows: [{ kind: "dated", starts_at: start, ends_at: end }] });
     const b = await createListing({ quantity_total: 5, windows: [{ kind: "dated", starts_at: start, ends_at: end }] });
-    const wrong = await post({ items: [{ listing_id: a.id, quantity: 1, pickup_window_id: b.windowIds[0] }, { listing_id: b.id, quantity: 1 }] });
+    const wrong = await post({ items: [{ listing_id: a.id, quantity: 1, pickup_window_id: b.window_ids[0] }, { listing_id: b.id, quantity: 1 }] });
     expect(wrong.status).toBe(422);
     expect(wrong.json.error.fields).toHaveProperty(["items.0.pickup_window_id"]);
-    const res = await post({ items: [{ listing_id: a.id, quantity: 1, pickup_window_id: a.windowIds[0] }, { listing_id: b.id, quantity: 1 }] });
+    const res = await post({ items: [{ listing_id: a.id, quantity: 1, pickup_window_id: a.window_ids[0] }, { listing_id: b.id, quantity: 1 }] });
     expect(res.status).toBe(201);
     const rows = await ctx.db("reservations").whereIn("id", res.json.reservations.map((r: { id: string }) => r.id)).select("listing_id", "pickup_window_id");
-    expect(rows.find((r: { listing_id: string }) => r.listing_id === a.id).pickup_window_id).toBe(a.windowIds[0]);
+    expect(rows.find((r: { listing_id: string }) => r.listing_id === a.id).pickup_window_id).toBe(a.window_ids[0]);
     expect(rows.find((r: { listing_id: string }) => r.listing_id === b.id).pickup_window_id).toBeNull();
   });
 
   it("names each stop's own problem at once, keeps the status of a refusal, and holds nothing", async () => {
     const fine = await createListing({ quantity_total: 5 });
-    const ended = await createListing({ quantity_total: 5 });
-    await ctx.db("listings").where({ id: ended.id }).update({ available_until: "2020-01-01T00:00:00.000Z" });
-    const culture = await createListing({ material: "worms", unit: "kg", price_cents: 3000, quantity_total: 3 });
-    await ctx.db("listings").where({ id: culture.id }).update({ quality: JSON.stringify({ species: "Eisenia fetida", pickup: false }) });
+    const ended = await createListing({ quantity_total: 5, available_until: "2020-01-01T00:00:00.000Z" });
+    const culture = await createListing({ material_code: "worms", unit: "kg", price_cents: 3000, quantity_total: 3, quality: { species: "Eisenia fetida", pickup: false } });
     const items = [
       { listing_id: fine.id, quantity: 1 },
       { listing_id: ended.id, quantity: 1 },
@@ -232,7 +229,7 @@ describe("reading reservations", () => {
     const theirs = await call(GET, await request("/api/reservations", { as: other.id }));
     expect(theirs.json.reservations.map((r: any) => r.id)).not.toContain(mine.id);
     expect((await call(getOne, await request(`/api/reservations/${mine.id}`, { as: other.id }), { id: mine.id })).status).toBe(404);
-    const asOwner = await call(getOne, await request(`/api/reservations/${mine.id}`, { as: l.ownerId }), { id: mine.id });
+    const asOwner = await call(getOne, await request(`/api/reservations/${mine.id}`, { as: l.owner_id }), { id: mine.id });
     expect(asOwner.status).toBe(200);
     expect(asOwner.json.reservation.side).toBe("supplier");
     expect(asOwner.json.reservation.actions).toEqual(["confirm", "decline", "cancel"]);

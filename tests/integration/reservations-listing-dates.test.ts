@@ -4,8 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
-import { createUser } from "../factories";
-import { createListing, listingQuantities } from "../reservation-factories";
+import { createListing, createUser, listingQuantities } from "../factories";
 import { POST as reserve } from "@/app/api/reservations/route";
 import { GET as browse } from "@/app/api/listings/route";
 import { findCandidates } from "@/db/match-candidates";
@@ -23,9 +22,7 @@ afterAll(() => ctx.close());
 const days = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString();
 const post = async (body: unknown) => call(reserve, await request("/api/reservations", { body, as: gardener.id }));
 async function listing(dates: { available_from?: string | null; available_until?: string | null }) {
-  const l = await createListing({ quantity_total: 6 });
-  if (Object.keys(dates).length) await db()("listings").where({ id: l.id }).update(dates);
-  return l;
+  return createListing({ quantity_total: 6, ...dates });
 }
 const heldOn = async (id: string) => (await listingQuantities(id)).quantity_held;
 const reservationsOn = (id: string) => db()("reservations").where({ listing_id: id });

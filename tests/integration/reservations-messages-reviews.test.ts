@@ -3,8 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
-import { createUser } from "../factories";
-import { createListing, createReservationIn } from "../reservation-factories";
+import { createListing, createReservation, createUser } from "../factories";
 import { GET as getMessages, POST as postMessage } from "@/app/api/reservations/[id]/messages/route";
 import { POST as review } from "@/app/api/reservations/[id]/review/route";
 import { ratingsFor } from "@/db/reviews";
@@ -27,8 +26,8 @@ beforeAll(async () => {
 afterAll(() => ctx.close());
 
 async function reservation(status: "held" | "confirmed" | "collected" | "expired" = "confirmed") {
-  const l = await createListing({ ownerId: supplier.id });
-  return createReservationIn(status, { listingId: l.id, gardenerId: gardener.id });
+  const l = await createListing({ owner_id: supplier.id });
+  return createReservation({ status, listing_id: l.id, gardener_id: gardener.id });
 }
 const send = async (id: string, as: string | null, body: unknown) => call(postMessage, await request(`/api/reservations/${id}/messages`, { as, body }), { id });
 
@@ -103,8 +102,8 @@ describe("reviews", () => {
     await rate(r2.id, gardener.id, { rating: 2 });
     // The supplier collects from someone else too, and that grower rates them 1 as a gardener:
     // listings show only what gardeners said of them as a supplier.
-    const otherListing = await createListing({ ownerId: stranger.id });
-    const asGardener = await createReservationIn("collected", { listingId: otherListing.id, gardenerId: supplier.id });
+    const otherListing = await createListing({ owner_id: stranger.id });
+    const asGardener = await createReservation({ status: "collected", listing_id: otherListing.id, gardener_id: supplier.id });
     expect((await rate(asGardener.id, stranger.id, { rating: 1 })).status).toBe(201);
     const ratings = await ratingsFor([supplier.id, gardener.id]);
     expect(ratings.get(supplier.id)).toEqual({ average: 3.5, count: 2 });

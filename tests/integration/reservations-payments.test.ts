@@ -5,8 +5,7 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
 import { call, request } from "../helpers/http";
 import { startPayments, type PaymentsHarness } from "../helpers/payments";
-import { createUser } from "../factories";
-import { createListing, listingQuantities } from "../reservation-factories";
+import { createListing, createUser, listingQuantities } from "../factories";
 import { TEST_CARDS, submitHostedPayment, validCard } from "@/lib/fakes/stripe/testing";
 import { POST as reserve } from "@/app/api/reservations/route";
 import { POST as confirm } from "@/app/api/reservations/[id]/confirm/route";
@@ -51,7 +50,7 @@ const settle = () => pay.fake.webhooksIdle();
 
 describe("a priced listing", () => {
   it("takes payment on the hosted page; the webhook (not the redirect) moves the reservation", async () => {
-    const l = await createListing({ material: "straw", unit: "bales", price_cents: 450, quantity_total: 10 });
+    const l = await createListing({ material_code: "straw", unit: "bales", price_cents: 450, quantity_total: 10 });
     const { reservation: r, checkout_url } = await reserveOne(l.id, 3);
     expect(checkout_url).toMatch(new RegExp(`^${pay.fake.url}/pay/cs_test_`));
     expect((await charge(r.id)).status).toBe("open");
@@ -80,11 +79,11 @@ describe("a priced listing", () => {
     const mail = await db()("email_outbox").where("dedupe_key", "like", `res:${r.id}:%`).pluck("template");
     expect(mail.sort()).toEqual(["reservation.receipt", "reservation.requested", "reservation.requested"]);
 
-    const ok = await act(confirm, r.id, l.ownerId);
+    const ok = await act(confirm, r.id, l.owner_id);
     expect(ok.status).toBe(200);
     expect(ok.json.reservation.status).toBe("confirmed");
     const code = (await reservation(r.id)).pickup_code;
-    const done = await act(collect, r.id, l.ownerId, { pickup_code: code.toLowerCase() });
+    const done = await act(collect, r.id, l.owner_id, { pickup_code: code.toLowerCase() });
     expect(done.status).toBe(200);
     expect(done.json.reservation.status).toBe("collected");
     expect(await listingQuantities(l.id)).toMatchObject({ quantity_held: 0, quantity_collected: 3 });
@@ -93,7 +92,7 @@ describe("a priced listing", () => {
   });
 
   it("a declined card leaves the reservation awaiting payment, and the hold's expiry returns everything", async () => {
-    const l = await createListing({ material: "straw", unit: "bales", price_cents: 450, quantity_total: 10 });
+    const l = await createListing({ material_code: "straw", unit: "bales", price_cents: 450, quantity_total: 10 });
     const { reservation: r, checkout_url } = await reserveOne(l.id, 2);
     const declined = await submitHostedPayment(checkout_url!, { card_number: TEST_CARDS.declined });
     expect(declined.status).toBe(402);
@@ -105,7 +104,7 @@ describe("a priced listing", () => {
     expect(await reservation(r.id)).toMatchObject({ status: "held", payment_state: "awaiting" });
     expect((await charge(r.id)).last_error).toMatch(/declined|insufficient/i);
     // The supplier cannot accept an unpaid reservation.
-    expect((await act(confirm, r.id, l.ownerId)).status).toBe(409);
+    expect((await act(confirm, r.id, l.owner_id)).status).toBe(409);
 
     const later = new Date(new Date(r.hold_expires_at).getTime() + 1000);
     expect(await expireHolds(() => later)).toEqual({ expired: 1 });
@@ -121,12 +120,12 @@ describe("a priced listing", () => {
   });
 
   it("a supplier's decline refunds the payment in full", async () => {
-    const l = await createListing({ material: "worms", unit: "kg", price_cents: 3200, quantity_total: 5 });
+    const l = await createListing({ material_code: "worms", unit: "kg", price_cents: 3200, quantity_total: 5 });
     const { reservation: r, checkout_url } = await reserveOne(l.id, 0.5);
     await submitHostedPayment(checkout_url!);
     await settle();
     expect((await reservation(r.id)).payment_state).toBe("paid");
-    const res = await act(decline, r.id, l.ownerId, { reason: "Sold out at the market" });
+    const res = await act(decline, r.id, l.owner_id, { reason: "Sold out at the market" });
     expect(res.status).toBe(200);
     await settle();
     const refund = await db()("payments").first("*").where({ reservation_id: r.id, kind: "refund" });
@@ -141,7 +140,7 @@ describe("a priced listing", () => {
   });
 
   it("a late gardener cancellation keeps the payment; a timely one refunds it", async () => {
-    const l = await createListing({ material: "straw", unit: "bales", price_cents: 450, quantity_total: 10, auto_accept: true });
+    const l = await createListing({ material_code: "straw", unit: "bales", price_cents: 450, quantity_total: 10, auto_accept: true });
     const early = await reserveOne(l.id, 1);
     await submitHostedPayment(early.checkout_url!);
     await settle();
@@ -175,8 +174,8 @@ describe("a deposit on a free listing", () => {
     const intent = pay.fake.state.paymentIntents.get((await charge(r.id)).payment_intent_id)!;
     expect(intent).toMatchObject({ status: "requires_capture", amount_capturable: 200 });
 
-    await act(confirm, r.id, l.ownerId);
-    expect((await act(collect, r.id, l.ownerId, {})).status).toBe(200);
+    await act(confirm, r.id, l.owner_id);
+    expect((await act(collect, r.id, l.owner_id, {})).status).toBe(200);
     await settle();
     expect(pay.fake.state.paymentIntents.get(intent.id)!.status).toBe("canceled");
     expect(await reservation(r.id)).toMatchObject({ status: "collected", payment_state: "released" });
@@ -189,13 +188,13 @@ describe("a deposit on a free listing", () => {
     const { reservation: r, checkout_url } = await reserveOne(l.id, 1);
     await submitHostedPayment(checkout_url!);
     await settle();
-    await act(confirm, r.id, l.ownerId);
+    await act(confirm, r.id, l.owner_id);
     // Too early: the pickup week has not ended.
-    const early = await act(noShow, r.id, l.ownerId);
+    const early = await act(noShow, r.id, l.owner_id);
     expect(early.status).toBe(409);
     expect(early.json.error.code).toBe("invalid_state");
     await db()("reservations").where({ id: r.id }).update({ pickup_by: new Date(Date.now() - 60_000).toISOString() });
-    const res = await act(noShow, r.id, l.ownerId);
+    const res = await act(noShow, r.id, l.owner_id);
     expect(res.status).toBe(200);
     await settle();
     const intent = pay.fake.state.paymentIntents.get((await charge(r.id)).payment_intent_id)!;

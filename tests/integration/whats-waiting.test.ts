@@ -1,8 +1,7 @@
 // The signed-in home: each role sees what waits for it, counted from the real rows.
 import { beforeAll, describe, expect, it } from "vitest";
 import { freshDb } from "../helpers/db";
-import { createUser } from "../factories";
-import { createListing, createReservationIn } from "../reservation-factories";
+import { createListing, createReservation, createUser } from "../factories";
 import { loadSessionUser } from "@/lib/auth/current-user";
 import { whatsWaiting } from "@/lib/services/accounts/get-whats-waiting";
 import { afterSignInPath } from "@/lib/auth/callback-url";
@@ -22,12 +21,12 @@ beforeAll(async () => {
   supplierId = (await createUser({ roles: ["supplier"] })).id;
   gardenerId = (await createUser({ roles: ["gardener"] })).id;
   payerId = (await createUser({ roles: ["gardener"] })).id;
-  const free = await createListing({ ownerId: supplierId });
-  const priced = await createListing({ ownerId: supplierId, price_cents: 400 });
+  const free = await createListing({ owner_id: supplierId });
+  const priced = await createListing({ owner_id: supplierId, price_cents: 400 });
   // One request to answer, one confirmed pickup, one checkout still owed (not the supplier's to answer yet).
-  await createReservationIn("held", { listingId: free.id, gardenerId });
-  await createReservationIn("confirmed", { listingId: free.id, gardenerId, pickup_at: new Date().toISOString() });
-  await createReservationIn("held", { listingId: priced.id, gardenerId: payerId, payment_state: "awaiting" });
+  await createReservation({ status: "held", listing_id: free.id, gardener_id: gardenerId });
+  await createReservation({ status: "confirmed", listing_id: free.id, gardener_id: gardenerId, pickup_at: new Date().toISOString() });
+  await createReservation({ status: "held", listing_id: priced.id, gardener_id: payerId, payment_state: "awaiting" });
 });
 
 describe("what is waiting", () => {

@@ -5,10 +5,8 @@ import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from "vitest
 import { freshDb } from "../helpers/db";
 import { refuseWrites } from "../helpers/engine";
 import { startPayments, type PaymentsHarness } from "../helpers/payments";
-import { bookAs, createDayAs } from "../helpers/giveaways";
-import { createUser } from "../factories";
-import { createListing, createReservationIn, listingQuantities } from "../reservation-factories";
-import { expireHolds } from "@/lib/services/reservations/expire-holds";
+import { bookAs, createGiveaway, createListing, createReservation, createUser, listingQuantities } from "../factories";
+import { expireHolds } from "@/lib/services/expire-holds";
 import { expireGiveawayDepositHolds } from "@/lib/services/giveaways/expire-deposit-holds";
 import { db } from "@/db/index";
 
@@ -37,7 +35,7 @@ describe("expire-holds", () => {
     for (let i = 0; i < 3; i++) {
       const l = await createListing({ quantity_total: 4 });
       // The broken one is due first, so the others come after it in the batch.
-      const r = await createReservationIn("held", { listingId: l.id, quantity: 1, hold_expires_at: new Date(now.getTime() - minutes(3 - i)).toISOString() });
+      const r = await createReservation({ status: "held", listing_id: l.id, quantity: 1, hold_expires_at: new Date(now.getTime() - minutes(3 - i)).toISOString() });
       holds.push({ id: r.id, listingId: l.id });
     }
     // The first hold's listing no longer shows its quantity as held, so giving it back fails.
@@ -66,7 +64,7 @@ describe("expire-holds", () => {
 describe("expire-giveaway-deposits", () => {
   it("lapses the other bookings when one of them cannot be lapsed, and that one on a later run", async () => {
     const council = await createUser({ roles: ["council"] });
-    const day = await createDayAs(council.id, { deposit_cents: 500, slots: [{ start: "09:00", end: "10:00", capacity: 5 }] });
+    const day = await createGiveaway(council.id, { deposit_cents: 500, slots: [{ start: "09:00", end: "10:00", capacity: 5 }] });
     const slotId = day.slots[0].id;
     const ids: string[] = [];
     for (let i = 0; i < 3; i++) {

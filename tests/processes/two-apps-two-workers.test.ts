@@ -11,8 +11,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { encode } from "next-auth/jwt";
 import { freshDb, type TestDb } from "../helpers/db";
 import { ensureBuild, freePort, ROOT, stop, waitFor } from "../helpers/processes";
-import { createUser } from "../factories";
-import { createListing, listingQuantities } from "../reservation-factories";
+import { createListing, createUser, listingQuantities } from "../factories";
 import { startSmtpFake, type SmtpFake } from "@/lib/fakes/smtp/server";
 import { startSession } from "@/lib/auth/sessions";
 

@@ -10,7 +10,8 @@ import { emptyForm, fromListing, toBody } from "@/components/listings/form-value
 import { createListingSchema } from "@/lib/validation/listings";
 import { POUND_KG } from "@/lib/calc/facts";
 import { matchPlan } from "@/lib/match/plan";
-import { FERNHOLLOW, listing } from "../../helpers/match";
+import { candidateListing } from "../../factories/listings";
+import { FERNHOLLOW } from "../../helpers/match";
 
 const HALF = { size: 0.5, price_cents: 1600 };
 
@@ -153,7 +154,7 @@ describe("the listing form", () => {
 
 describe("a plan with a culture sold by the pack", () => {
   const at = (dLat: number) => ({ lat: FERNHOLLOW.lat + dLat, lng: FERNHOLLOW.lng });
-  const packed = listing(FERNHOLLOW, { id: "packs", material: "worms", unit: "kg", unit_size: null, unit_mass_kg: null, available: 3, max_per_reservation: null, price_cents: 2400, pack: { size: 0.5, price_cents: 1200 }, location: at(0.01) });
+  const packed = candidateListing(FERNHOLLOW, { id: "packs", material: "worms", unit: "kg", unit_size: null, unit_mass_kg: null, available: 3, max_per_reservation: null, price_cents: 2400, pack: { size: 0.5, price_cents: 1200 }, location: at(0.01) });
 
   it("takes whole packs and prices them by the pack", () => {
     const plan = matchPlan([{ material: "worms", quantity: 0.7, unit: "kg" }], [packed], FERNHOLLOW);
@@ -164,7 +165,7 @@ describe("a plan with a culture sold by the pack", () => {
   it("tops up with loose worms rather than pay for a pack it barely needs", () => {
     // 0.7 kg: two packs cost €24.00; one pack and 0.2 kg at €30.00 a kg at the same place cost
     // €12.00 + €6.00 = €18.00.
-    const loose = listing(FERNHOLLOW, { id: "loose", material: "worms", unit: "kg", unit_size: null, unit_mass_kg: null, available: 3, max_per_reservation: null, price_cents: 3000, location: at(0.01) });
+    const loose = candidateListing(FERNHOLLOW, { id: "loose", material: "worms", unit: "kg", unit_size: null, unit_mass_kg: null, available: 3, max_per_reservation: null, price_cents: 3000, location: at(0.01) });
     const plan = matchPlan([{ material: "worms", quantity: 0.7, unit: "kg" }], [packed, loose], FERNHOLLOW);
     const by = Object.fromEntries(plan.allocations.map((a) => [a.listing_id, a]));
     expect(by.packs).toMatchObject({ packs: 1, listing_quantity: 0.5, cost_cents: 1200 });

@@ -4,6 +4,7 @@ import { DEFAULT_COSTS } from "@/lib/match/defaults";
 import { distanceKm } from "@/lib/match/geo";
 import type { CandidateListing, LatLng, Need } from "@/lib/match/types";
 import { prng } from "@/seeds/ids";
+import { candidateListing } from "../../factories/listings";
 
 // The allocation heuristic against an exhaustive optimum on small random instances. The
 // reference below is written separately from lib/match: every subset of listings, every
@@ -150,7 +151,7 @@ describe("allocation against the exhaustive optimum (≤ 8 listings)", () => {
 
   it("reports what cannot be covered instead of failing", () => {
     const listings: CandidateListing[] = [
-      { id: "w", material: "worms", unit: "kg", unit_size: null, unit_mass_kg: null, available: 0.7, max_per_reservation: null, price_cents: 2000, currency: "eur", location: ORIGIN, distance_km: 0 },
+      candidateListing(ORIGIN, { id: "w", material: "worms", unit: "kg", unit_size: null, unit_mass_kg: null, available: 0.7, max_per_reservation: null, price_cents: 2000, location: ORIGIN }),
     ];
     const got = allocate([{ material: "worms", quantity: 2, unit: "kg" }], listings, ORIGIN, DEFAULT_COSTS);
     expect(got.covered[0]).toBeCloseTo(0.7, 9);
@@ -160,9 +161,8 @@ describe("allocation against the exhaustive optimum (≤ 8 listings)", () => {
   it("never takes more than max_per_reservation, even when the listing has plenty", () => {
     const near = { lat: ORIGIN.lat + 0.01, lng: ORIGIN.lng };
     const far = { lat: ORIGIN.lat + 0.05, lng: ORIGIN.lng };
-    const mk = (id: string, location: LatLng, max: number | null): CandidateListing => ({
-      id, material: "leaves", unit: "bags", unit_size: 0.1136, unit_mass_kg: null, available: 50, max_per_reservation: max, price_cents: 0, currency: "eur", location, distance_km: distanceKm(ORIGIN, location),
-    });
+    const mk = (id: string, location: LatLng, max: number | null) =>
+      candidateListing(ORIGIN, { id, material: "leaves", unit: "bags", unit_size: 0.1136, unit_mass_kg: null, available: 50, max_per_reservation: max, price_cents: 0, location });
     const got = allocate([{ material: "leaves", quantity: 0.9, unit: "m3" }], [mk("near", near, 3), mk("far", far, null)], ORIGIN, DEFAULT_COSTS);
     const near3 = got.picks.find((p) => p.option.cand === 0);
     if (near3) expect(near3.units).toBeLessThanOrEqual(3);

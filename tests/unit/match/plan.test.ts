@@ -4,16 +4,17 @@ import { distanceKm } from "@/lib/match/geo";
 import { matchPlan, mergeNeeds } from "@/lib/match/plan";
 import { splitTrips } from "@/lib/match/trips";
 import type { CandidateListing } from "@/lib/match/types";
-import { FERNHOLLOW, listing } from "../../helpers/match";
+import { candidateListing } from "../../factories/listings";
+import { FERNHOLLOW } from "../../helpers/match";
 
 const at = (dLat: number, dLng: number) => ({ lat: FERNHOLLOW.lat + dLat, lng: FERNHOLLOW.lng + dLng });
 
 const LISTINGS: CandidateListing[] = [
-  listing(FERNHOLLOW, { id: "board", material: "cardboard", unit: "sheets", unit_size: 0.8, unit_mass_kg: null, available: 25, max_per_reservation: 20, price_cents: 0, location: at(0.01, 0.01) }),
-  listing(FERNHOLLOW, { id: "leafbags", material: "leaves", unit: "bags", unit_size: 0.1136, unit_mass_kg: null, available: 12, max_per_reservation: null, price_cents: 0, location: at(-0.01, 0.02) }),
-  listing(FERNHOLLOW, { id: "bales", material: "straw", unit: "bales", unit_size: 0.1487, unit_mass_kg: 20, available: 30, max_per_reservation: 12, price_cents: 450, location: at(0.02, -0.02) }),
-  listing(FERNHOLLOW, { id: "worms", material: "worms", unit: "kg", unit_size: null, unit_mass_kg: null, available: 6, max_per_reservation: 2, price_cents: 3200, location: at(0.015, 0.03) }),
-  listing(FERNHOLLOW, { id: "manure", material: "manure", unit: "bags", unit_size: 0.04, unit_mass_kg: null, available: 30, max_per_reservation: 10, price_cents: 150, location: at(-0.02, -0.01) }),
+  candidateListing(FERNHOLLOW, { id: "board", material: "cardboard", unit: "sheets", unit_size: 0.8, unit_mass_kg: null, available: 25, max_per_reservation: 20, price_cents: 0, location: at(0.01, 0.01) }),
+  candidateListing(FERNHOLLOW, { id: "leafbags", material: "leaves", unit: "bags", unit_size: 0.1136, unit_mass_kg: null, available: 12, max_per_reservation: null, price_cents: 0, location: at(-0.01, 0.02) }),
+  candidateListing(FERNHOLLOW, { id: "bales", material: "straw", unit: "bales", unit_size: 0.1487, unit_mass_kg: 20, available: 30, max_per_reservation: 12, price_cents: 450, location: at(0.02, -0.02) }),
+  candidateListing(FERNHOLLOW, { id: "worms", material: "worms", unit: "kg", unit_size: null, unit_mass_kg: null, available: 6, max_per_reservation: 2, price_cents: 3200, location: at(0.015, 0.03) }),
+  candidateListing(FERNHOLLOW, { id: "manure", material: "manure", unit: "bags", unit_size: 0.04, unit_mass_kg: null, available: 30, max_per_reservation: 10, price_cents: 150, location: at(-0.02, -0.01) }),
 ];
 
 describe("a pickup plan", () => {
@@ -93,7 +94,7 @@ describe("a pickup plan", () => {
   });
 
   it("lets the caller change what driving and stops cost", () => {
-    const far = listing(FERNHOLLOW, { id: "far-free", material: "straw", unit: "bales", unit_size: 0.1487, unit_mass_kg: 20, available: 5, max_per_reservation: null, price_cents: 0, location: at(0.15, 0) });
+    const far = candidateListing(FERNHOLLOW, { id: "far-free", material: "straw", unit: "bales", unit_size: 0.1487, unit_mass_kg: 20, available: 5, max_per_reservation: null, price_cents: 0, location: at(0.15, 0) });
     const needs = [{ material: "straw" as const, quantity: 0.18, unit: "m3" as const }];
     // 16.7 km out and back costs 10 € at 30 c/km, more than the 4.50 € bale 2.7 km away…
     expect(matchPlan(needs, [...LISTINGS, far], FERNHOLLOW).allocations[0].listing_id).toBe("bales");

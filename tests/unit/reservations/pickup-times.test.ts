@@ -32,7 +32,7 @@ describe("local pickup times", () => {
 
   it("takes a dated window while it has not ended", () => {
     const d = { id: "d", kind: "dated" as const, weekday: null, start_time: null, end_time: null, starts_at: "2026-12-12T09:00:00Z", ends_at: "2026-12-12T13:00:00Z" };
-    expect(nextOccurrence(d, new Date("2026-12-12T12:00:00Z"), "Europe/London")).not.toBeNull();
+    expect(nextOccurrence(d, new Date("2026-12-12T12:00:00Z"), "Europe/London")).toEqual({ start: new Date("2026-12-12T09:00:00Z"), end: new Date("2026-12-12T13:00:00Z") });
     expect(nextOccurrence(d, new Date("2026-12-12T13:00:01Z"), "Europe/London")).toBeNull();
   });
 
@@ -73,6 +73,6 @@ describe("openings late enough to answer first", () => {
   it("has no later opening for a dated window that starts too soon", () => {
     const d = { id: "d", kind: "dated" as const, weekday: null, start_time: null, end_time: null, starts_at: "2026-12-12T10:00:00.000Z", ends_at: "2026-12-12T12:00:00.000Z" };
     expect(nextOccurrence(d, new Date("2026-12-12T09:30:00Z"), "Europe/London", new Date("2026-12-12T10:30:00Z"))).toBeNull();
-    expect(nextOccurrence(d, new Date("2026-12-12T08:00:00Z"), "Europe/London", new Date("2026-12-12T09:00:00Z"))).not.toBeNull();
+    expect(nextOccurrence(d, new Date("2026-12-12T08:00:00Z"), "Europe/London", new Date("2026-12-12T09:00:00Z"))).toEqual({ start: new Date("2026-12-12T10:00:00.000Z"), end: new Date("2026-12-12T12:00:00.000Z") });
   });
 });
