@@ -5,7 +5,7 @@ import { renderToStaticMarkup } from "react-dom/server";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { freshDb } from "../helpers/db";
 import { createListing, createReservation } from "../factories";
-import { listReservations } from "@/lib/services/list-reservations";
+import { listReservations } from "@/lib/services/reservations/list-reservations";
 
 // The card's buttons are client components that ask for the app router, which only exists
 // inside Next.js: a stand-in router lets the whole card render here.

@@ -6,7 +6,7 @@ import { freshDb } from "../helpers/db";
 import { refuseWrites } from "../helpers/engine";
 import { startPayments, type PaymentsHarness } from "../helpers/payments";
 import { bookAs, createGiveaway, createListing, createReservation, createUser, listingQuantities } from "../factories";
-import { expireHolds } from "@/lib/services/expire-holds";
+import { expireHolds } from "@/lib/services/reservations/expire-holds";
 import { expireGiveawayDepositHolds } from "@/lib/services/giveaways/expire-deposit-holds";
 import { db } from "@/db/index";
 
