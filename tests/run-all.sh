@@ -1,5 +1,6 @@
 #!/usr/bin/env bash
-# The whole suite: unit and integration tests on SQLite, the integration tests again on
+# The whole suite: lint (layers, import circles, the environment module), unit and
+# integration tests on SQLite, the integration tests again on
 # PostgreSQL (each test file on a fresh database, either engine), end-to-end in Chromium on
 # SQLite and on PostgreSQL, and several app processes with several workers sharing one
 # PostgreSQL database.
@@ -14,6 +15,9 @@ source tests/postgres.sh
 export NEXT_TELEMETRY_DISABLED=1
 PG_SERVER_URL="${DATABASE_URL:-}"
 unset DATABASE_URL
+
+echo "[test] lint: the layers, import circles and the one environment module (eslint.config.mjs)"
+npm run lint
 
 echo "[test] unit and integration tests on SQLite"
 NODE_ENV=test npx vitest run
