@@ -6,7 +6,7 @@ import { Providers } from "./providers";
 import { SiteHeader } from "@/components/shell/site-header";
 import { currentUser } from "@/lib/auth/current-user";
 import { viewerUnits } from "@/lib/units/viewer";
-import { countNewAlerts } from "@/lib/services/needs/list-alerts";
+import { countNewAlerts } from "@/lib/services/needs/count-new-alerts";
 
 export const metadata: Metadata = {
   title: { default: "Duffbank", template: "%s · Duffbank" },

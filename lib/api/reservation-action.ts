@@ -9,7 +9,7 @@ import type { ReservationAction } from "@/lib/reservations/policy";
 import type { OrderAction } from "@/lib/reservations/culture-orders";
 import { advanceCultureOrder } from "@/lib/services/growers/advance-culture-order";
 import { changeReservation } from "@/lib/services/reservations/change-reservation";
-import { getReservation } from "@/lib/services/reservations/list-reservations";
+import { getReservation } from "@/lib/services/reservations/get-reservation";
 
 type StepBody = { reason?: string; pickup_code?: string; carrier?: string; tracking?: string };
 

@@ -3,12 +3,12 @@ import { randomBytes } from "node:crypto";
 import { db, type Db } from "@/db/index";
 import { endSession, endSessionsOf, insertSession, sessionIsActive, type EndReason } from "@/db/sessions";
 import { SESSION_MAX_AGE_S } from "./config";
+import type { Clock } from "@/lib/time/clock";
 
 // A signed-in session is two halves: the signed, encrypted cookie next-auth issues (it
 // carries the user id and this session's id), and the sessions row the id names. Both must
 // hold for a request to count as signed in, so ending the row ends the cookie and every copy.
 
-type Clock = () => Date;
 
 export async function startSession(userId: string, clock: Clock = () => new Date(), q: Db = db()): Promise<string> {
   const now = clock();

@@ -4,6 +4,7 @@ import { db, type Db } from "@/db/index";
 import { clearCounter, hitCounter, readCounter } from "@/db/rate-limits";
 import { ApiError } from "@/lib/api/errors";
 import { AUTH_SECRET } from "@/lib/auth/config";
+import type { Clock } from "@/lib/time/clock";
 
 // The limits on signing in and joining, counted in the database (db/rate-limits.ts) so every
 // app process shares them. Per account (or e-mail) they are tight; per client address they
@@ -30,7 +31,6 @@ export const LIMITS = {
   demandPreview: { name: "demand:account", max: 120, windowMs: 60 * MINUTE, what: "demand look-ups from your account" },
 } satisfies Record<string, Limit>;
 
-type Clock = () => Date;
 
 /** A keyed hash of what is counted, so the table holds no e-mail address or IP address. */
 function keyOf(limit: Limit, subject: string): string {

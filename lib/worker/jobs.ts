@@ -2,7 +2,8 @@ import { pruneIdempotencyKeys } from "@/db/idempotency-keys";
 import { deliverOutbox } from "@/lib/mail/deliver-outbox";
 import { settlePayments } from "@/lib/services/payments/settle-due-payments";
 import { recoverOpenPayments } from "@/lib/services/payments/recover-open-payments";
-import { expireHolds, sendReservationReminders } from "@/lib/services/reservations/expire-holds";
+import { expireHolds } from "@/lib/services/reservations/expire-holds";
+import { sendReservationReminders } from "@/lib/services/reservations/send-reservation-reminders";
 import { expireListings } from "@/lib/services/listings/expire-listings";
 import { expireGiveawayDepositHolds } from "@/lib/services/giveaways/expire-deposit-holds";
 import { sendBedReminders } from "@/lib/services/beds/send-bed-reminders";
@@ -11,7 +12,8 @@ import { alertDueListings } from "@/lib/services/needs/alert-needs";
 import { sendNeedDigests } from "@/lib/services/needs/send-need-digests";
 import { expireOpenNeeds } from "@/lib/services/needs/close-needs";
 
-export type Clock = () => Date;
+import type { Clock } from "@/lib/time/clock";
+export type { Clock };
 
 /** What a running worker gives each job: a signal that says "stop taking new work", and its name for claims. */
 export interface JobContext {

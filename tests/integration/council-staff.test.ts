@@ -7,7 +7,8 @@ import * as invite from "@/app/api/council/invites/[id]/route";
 import * as accept from "@/app/api/council/invites/accept/route";
 import * as member from "@/app/api/council/members/[userId]/route";
 import * as members from "@/app/api/council/members/route";
-import { acceptInvite, describeInvite } from "@/lib/services/council/manage-council-staff";
+import { acceptInvite } from "@/lib/services/council/accept-invite";
+import { describeInvite } from "@/lib/services/council/describe-invite";
 import { rendered } from "../helpers/outbox";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;

@@ -5,7 +5,7 @@ import { createListing, createUser } from "../factories";
 import * as shipping from "@/app/api/grower/shipping/route";
 import * as culture from "@/app/api/grower/listings/[id]/culture/route";
 import * as publicShipping from "@/app/api/growers/[id]/shipping/route";
-import { cultureStock } from "@/lib/services/growers/grower-shipping";
+import { cultureStock } from "@/lib/services/growers/list-culture-stock";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 const p: Record<string, string> = {};

@@ -4,7 +4,7 @@ import { pageUser } from "@/lib/auth/page-guard";
 import { listMembers } from "@/lib/services/council/list-members";
 import { councilOf } from "@/lib/auth/council-access";
 import { councilDays } from "@/lib/services/giveaways/list-council-days";
-import { listInvites } from "@/lib/services/council/manage-council-staff";
+import { listInvites } from "@/lib/services/council/list-invites";
 import { diversionReport } from "@/lib/services/figures/report-diversion";
 import { diversionScopeOf } from "@/lib/figures/diversion-scope";
 import { localDate, longDate } from "@/lib/time/zoned";

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
-import { cultureStock } from "@/lib/services/growers/grower-shipping";
+import { cultureStock } from "@/lib/services/growers/list-culture-stock";
 import { growerOrders } from "@/lib/services/growers/list-grower-orders";
 import { dayLabel } from "@/lib/reservations/culture-orders";
 import { OrderCard } from "@/components/grower/order-card";

@@ -3,7 +3,8 @@ import { readJson, withAuth } from "@/lib/api/handler";
 import { idempotent } from "@/lib/api/idempotency";
 import { parseInput } from "@/lib/api/errors";
 import { reserveListings } from "@/lib/services/reservations/reserve-listing";
-import { getReservations, listReservations } from "@/lib/services/reservations/list-reservations";
+import { listReservations } from "@/lib/services/reservations/list-reservations";
+import { getReservations } from "@/lib/services/reservations/get-reservations";
 import { reserveManySchema, reserveOneSchema } from "@/lib/validation/reservations";
 import { requireVerifiedEmail } from "@/lib/auth/current-user";
 

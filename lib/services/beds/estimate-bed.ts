@@ -5,9 +5,6 @@ import { pricedListings } from "@/db/match-candidates";
 import { bedCosts, type BedCosts, type PricedPickup } from "@/lib/match/costs";
 import type { LatLng } from "@/lib/match/types";
 import type { EstimateInput } from "@/lib/validation/estimate";
-import type { UnitSystem } from "@/lib/calc/units";
-import { DEFAULT_RADIUS_KM } from "@/lib/match/defaults";
-import { bedEstimate, type BedView } from "@/lib/beds/view";
 import { planPickups } from "@/lib/services/match/plan-pickups";
 import { needsOf } from "@/lib/beds/needs";
 
@@ -59,18 +56,3 @@ export async function estimateBed(input: EstimateInput, now: Date = new Date()):
   return result;
 }
 
-/**
- * A saved bed's estimate in the gardener's units, priced from the listings nearest its place
- * when it has one. A failed search leaves the costs out rather than the page.
- */
-export async function savedBedEstimate(bed: BedView, units: UnitSystem, now: Date = new Date()): Promise<PricedEstimate> {
-  const base = bedEstimate(bed, now, units);
-  if (!bed.location) return base;
-  try {
-    const plan = await planPickups({ needs: needsOf(base), origin: bed.location, radius_km: DEFAULT_RADIUS_KM }, null);
-    return { ...base, costs: plan.costs };
-  } catch (err) {
-    console.error(`[bed ${bed.id}] pricing failed:`, err instanceof Error ? err.message : err);
-    return base;
-  }
-}

@@ -1,14 +1,9 @@
 import "server-only";
 import { checkedInBookings, collectedReservations, type DiversionScope } from "@/db/diversion";
 import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
-import { summariseDiversion, type DiversionRecord, type DiversionSummary } from "@/lib/calc/diversion";
+import { summariseDiversion, type DiversionRecord } from "@/lib/calc/diversion";
 import type { ListingUnit } from "@/lib/calc/units";
-import { toCsv } from "@/lib/format/csv";
-
-export interface DiversionReport extends DiversionSummary {
-  /** The densities the masses come from, each with its source. */
-  densities: { material: MaterialCode; bulk_density_kg_m3: number; source: string }[];
-}
+import { DiversionReport } from "@/lib/figures/diversion-csv";
 
 /** What left a supplier's, grower's or council's hands; `null` scope is the whole platform. */
 export async function diversionReport(scope: DiversionScope | null, opts: { from?: string; to?: string } = {}): Promise<DiversionReport> {
@@ -47,15 +42,3 @@ export async function platformGiveawayKg(): Promise<number> {
   return summariseDiversion((await checkedInBookings(null)).map((r) => record(r))).total_kg;
 }
 
-export function diversionCsv(report: DiversionReport, by: "month" | "day" = "month"): string {
-  if (by === "day") {
-    return toCsv(
-      ["date", "giveaway_day", "material", "kg", "m3", "households"],
-      report.by_day.map((d) => [d.date, d.title, d.material, d.kg, d.m3, d.households]),
-    );
-  }
-  return toCsv(
-    ["month", "material", "kg", "m3", "households", "collections"],
-    report.by_month.map((m) => [m.month, m.material, m.kg, m.m3, m.households, m.collections]),
-  );
-}

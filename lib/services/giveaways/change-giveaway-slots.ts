@@ -5,7 +5,7 @@ import { insertSlots, slotsOf } from "@/db/giveaways";
 import { recordAudit } from "@/db/audit";
 import type { SlotInput } from "@/lib/validation/giveaways";
 import { slotView, type SlotView } from "@/lib/giveaways/view";
-import { slotInstants } from "@/lib/services/giveaways/create-giveaway";
+import { slotInstants } from "@/lib/giveaways/slots";
 import { scheduledOrgDay } from "@/lib/services/giveaways/update-giveaway";
 import type { CouncilContext } from "@/lib/auth/council-access";
 

@@ -1,16 +1,9 @@
 import "server-only";
-import { findOrgDay, sheetFor, slotsOf, type SheetRow } from "@/db/giveaways";
+import { findOrgDay, sheetFor, slotsOf } from "@/db/giveaways";
 import { notFound } from "@/lib/api/errors";
-import { toCsv } from "@/lib/format/csv";
-import { wallTime } from "@/lib/time/zoned";
-import { staffDayView, type StaffDayView } from "@/lib/giveaways/view";
+import { staffDayView } from "@/lib/giveaways/view";
 import type { CouncilContext } from "@/lib/auth/council-access";
-
-export interface DaySheet {
-  day: StaffDayView;
-  bookings: SheetRow[];
-  totals: { households: number; checked_in: number; quantity: number; quantity_checked_in: number };
-}
+import { DaySheet } from "@/lib/giveaways/sheet-csv";
 
 /** The day with everyone booked on it, for the printed sheet, the CSV and the check-in page. */
 export async function daySheet(ctx: CouncilContext, dayId: string): Promise<DaySheet> {
@@ -30,22 +23,3 @@ export async function daySheet(ctx: CouncilContext, dayId: string): Promise<DayS
   };
 }
 
-export function daySheetCsv(sheet: DaySheet): string {
-  const tz = sheet.day.time_zone;
-  return toCsv(
-    ["slot_start", "slot_end", "household", "email", "quantity", "unit", "status", "checked_in_at", "deposit_cents", "deposit_status", "booking_id"],
-    sheet.bookings.map((b) => [
-      `${sheet.day.date} ${wallTime(b.starts_at, tz)}`,
-      wallTime(b.ends_at, tz),
-      b.name,
-      b.email,
-      b.quantity,
-      sheet.day.unit,
-      b.status,
-      b.checked_in_at,
-      b.deposit_cents,
-      b.deposit_status,
-      b.id,
-    ]),
-  );
-}

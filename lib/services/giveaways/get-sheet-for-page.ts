@@ -3,7 +3,8 @@ import { notFound } from "next/navigation";
 import type { SessionUser } from "@/lib/auth/current-user";
 import { ApiError } from "@/lib/api/errors";
 import { councilOf } from "@/lib/auth/council-access";
-import { daySheet, type DaySheet } from "@/lib/services/giveaways/get-day-sheet";
+import { daySheet } from "@/lib/services/giveaways/get-day-sheet";
+import type { DaySheet } from "@/lib/giveaways/sheet-csv";
 
 /** A staff page's day: another council's day, or none, is the not-found page. */
 export async function sheetForPage(user: SessionUser, dayId: string): Promise<DaySheet> {

@@ -9,7 +9,7 @@ import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { wallTime, zonedToUtc } from "@/lib/time/zoned";
 import { giveawayQuantityIssue, type UpdateGiveawayInput } from "@/lib/validation/giveaways";
 import { staffDayView } from "@/lib/giveaways/view";
-import { assertNotPast } from "@/lib/services/giveaways/create-giveaway";
+import { assertNotPast } from "@/lib/giveaways/slots";
 import type { CouncilContext } from "@/lib/auth/council-access";
 
 /** Once anyone has booked, these would change what they booked, so they stay as they are. */

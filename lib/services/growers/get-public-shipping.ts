@@ -1,5 +1,5 @@
 import { rolesOf } from "@/db/users";
-import { growerShipping } from "@/lib/services/growers/grower-shipping";
+import { growerShipping } from "@/lib/services/growers/get-grower-shipping";
 
 /** A grower's posting days and pause, for buyers; null when the account is not an active grower. */
 export async function getPublicShipping(growerId: string) {

@@ -3,8 +3,8 @@ import { db } from "@/db/index";
 import { nextPostingDay } from "@/lib/reservations/culture-orders";
 import type { ReservationView } from "@/lib/reservations/view";
 import type { ShippingView } from "@/lib/growers/view";
-import { growerShipping } from "@/lib/services/growers/grower-shipping";
-import { getReservations } from "@/lib/services/reservations/list-reservations";
+import { growerShipping } from "@/lib/services/growers/get-grower-shipping";
+import { getReservations } from "@/lib/services/reservations/get-reservations";
 
 // The grower's open orders: live-culture reservations on their own listings that still need
 // something from them or the post. An unpaid hold is not an order yet, so it is left out.

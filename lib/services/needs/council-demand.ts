@@ -1,29 +1,17 @@
 import "server-only";
 import { openNeedsInBox } from "@/db/needs";
 import { MATERIAL_CODES, type MaterialCode } from "@/lib/calc/facts";
-import { toCsv } from "@/lib/format/csv";
 import { distanceKm } from "@/lib/match/geo";
-import { demandCells, demandSummary, MIN_PEOPLE, suggestGiveaway, SUGGESTED_MATERIALS, type DemandCell, type GiveawaySuggestion } from "@/lib/needs/demand";
+import { demandCells, demandSummary, MIN_PEOPLE, suggestGiveaway, SUGGESTED_MATERIALS } from "@/lib/needs/demand";
 import { cellOf, MIN_CELL_AREA_KM2 } from "@/lib/needs/grid";
 import { DEFAULT_CENTER } from "@/lib/geo/default-center";
 import type { CouncilContext } from "@/lib/auth/council-access";
 import { dayOf, resolveContext, type NeedsContext } from "@/lib/services/needs/context";
 import { toDemandRow } from "@/lib/services/needs/nearby-demand";
+import { CouncilDemand } from "@/lib/needs/demand-csv";
 
 /** How far around the council's place the desk looks by default, km. */
 export const COUNCIL_DEMAND_RADIUS_KM = 25;
-
-export interface CouncilDemand {
-  centre: { lat: number; lng: number };
-  radius_km: number;
-  material: MaterialCode;
-  min_people: number;
-  cell_min_area_km2: number;
-  cells: (Omit<DemandCell, "cell"> & { id: string; south: number; west: number; north: number; east: number; centre: { lat: number; lng: number }; area_km2: number })[];
-  /** Per material, what its visible cells add up to (for choosing what to look at). */
-  materials: { material: MaterialCode; cells: number; people: number }[];
-  suggestion: GiveawaySuggestion | null;
-}
 
 /** Where the council's last giveaway day was, or the map's default, when the desk gives no point. */
 async function councilCentre(ctx: CouncilContext, q: ReturnType<typeof resolveContext>["q"]) {
@@ -71,12 +59,3 @@ export async function councilDemand(
   };
 }
 
-/** The same cells as CSV, for a spreadsheet or a GIS. */
-export function councilDemandCsv(d: CouncilDemand): string {
-  const header = ["cell_id", "material", "centre_lat", "centre_lng", "south", "west", "north", "east", "area_km2", "people", "open_needs", "total_quantity", "unit"];
-  const round6 = (x: number) => Math.round(x * 1e6) / 1e6;
-  return toCsv(
-    header,
-    d.cells.map((c) => [c.id, c.material, round6(c.centre.lat), round6(c.centre.lng), round6(c.south), round6(c.west), round6(c.north), round6(c.east), c.area_km2, c.people, c.needs, c.quantity, c.unit]),
-  );
-}

@@ -1,18 +1,12 @@
 import "server-only";
 import { packOf, type Pack } from "@/lib/listings/packs";
-import { dismissAlert, markAlertsSeen, unseenAlerts } from "@/db/need-alerts";
-import { findOwnNeed } from "@/db/needs";
-import { notFound } from "@/lib/api/errors";
 import type { MaterialCode } from "@/lib/calc/facts";
-import { listingCautions, type ListingCaution } from "@/lib/calc/cautions";
+import type { ListingCaution } from "@/lib/calc/cautions";
 import { datesState, effectiveStatus, quantityLeft } from "@/lib/listings/status";
 import type { ListingUnit } from "@/lib/match/types";
-import { amountToReserve } from "@/lib/needs/coverage";
 import type { NeedView } from "@/lib/needs/view";
-import { loadReserveOffer, type ReserveOffer } from "@/lib/services/reservations/load-reserve-offer";
+import type { ReserveOffer } from "@/lib/services/reservations/load-reserve-offer";
 import { resolveContext, type NeedsContext } from "@/lib/services/needs/context";
-import { needViews } from "@/lib/services/needs/list-needs";
-import { parseQuality } from "@/lib/listings/quality";
 
 /** An in-app notice: a listing that could serve one of my open needs (public facts about it only). */
 export interface AlertView {
@@ -39,7 +33,7 @@ export interface AlertView {
   };
 }
 
-interface AlertJoin {
+export interface AlertJoin {
   id: string;
   created_at: string;
   seen_at: string | null;
@@ -67,7 +61,7 @@ interface AlertJoin {
   available_until: string | null;
 }
 
-function toView(r: AlertJoin, now: Date): AlertView {
+export function toView(r: AlertJoin, now: Date): AlertView {
   const status = effectiveStatus(r.status as never, r.available_until, now);
   return {
     id: r.id,
@@ -92,7 +86,7 @@ function toView(r: AlertJoin, now: Date): AlertView {
   };
 }
 
-function alertQuery(q: ReturnType<typeof resolveContext>["q"], userId: string) {
+export function alertQuery(q: ReturnType<typeof resolveContext>["q"], userId: string) {
   return q("need_alerts as a")
     .join("needs as n", "n.id", "a.need_id")
     .join("listings as l", "l.id", "a.listing_id")
@@ -140,21 +134,6 @@ export async function listAlerts(userId: string, opts: { openOnly?: boolean } = 
   return ((await b) as AlertJoin[]).map((r) => toView(r, now));
 }
 
-/** How many notices on open needs I have not looked at (the count beside "My needs"). */
-export async function countNewAlerts(userId: string, ctx: NeedsContext = {}): Promise<number> {
-  return unseenAlerts(userId, resolveContext(ctx).q);
-}
-
-/** PATCH /api/needs/alerts/:id: mark seen, or dismiss. Anyone else's notice is a 404. */
-export async function updateAlert(userId: string, id: string, change: { seen?: boolean; dismissed?: boolean }, ctx: NeedsContext = {}): Promise<void> {
-  const { q, clock } = resolveContext(ctx);
-  const at = clock().toISOString();
-  const mine = await q("need_alerts").first("id").where({ id, user_id: userId });
-  if (!mine) throw notFound("That alert");
-  if (change.dismissed) await dismissAlert(userId, id, at, q);
-  else if (change.seen) await markAlertsSeen(userId, [id], at, q);
-}
-
 export interface AlertPage {
   alert: AlertView;
   need: NeedView;
@@ -162,36 +141,5 @@ export interface AlertPage {
   cautions: ListingCaution[];
   /** What one click reserves, in the listing's unit (0: nothing to reserve). */
   amount: number;
-}
-
-/** The alert page: the notice, my need as it stands, the listing's reservable facts, and what one click takes. Marks it seen. */
-export async function loadAlertPage(userId: string, id: string, ctx: NeedsContext = {}): Promise<AlertPage | null> {
-  const { q, clock } = resolveContext(ctx);
-  const now = clock();
-  const row = (await alertQuery(q, userId).andWhere("a.id", id).first()) as AlertJoin | undefined;
-  if (!row) return null;
-  const needRow = await findOwnNeed(row.need_id, userId, q);
-  if (!needRow) return null;
-  const [need] = await needViews([needRow], q, now);
-  const offer = await loadReserveOffer(row.listing_id, now);
-  const listing = await q("listings").first("quality", "unit_size", "unit_mass_kg", "max_per_reservation").where({ id: row.listing_id });
-  // An unreadable declaration reads as none: the material's general cautions still apply.
-  const quality = parseQuality(listing?.quality);
-  const cautions = listingCautions({ material: row.material_code, unit: row.unit, unit_mass_kg: listing?.unit_mass_kg ?? null, quality });
-  const amount =
-    offer && need.status === "open"
-      ? amountToReserve(need.quantity_left, need.unit, {
-          material: offer.material,
-          unit: offer.unit,
-          unit_size: offer.unit_size,
-          unit_mass_kg: offer.unit_mass_kg,
-          // Already whole sheets, bags, bales or packs (lib/reservations/labels.ts).
-          available: offer.available,
-          max_per_reservation: offer.max_per_reservation,
-          pack: offer.pack,
-        })
-      : 0;
-  await markAlertsSeen(userId, [id], now.toISOString(), q);
-  return { alert: toView(row, now), need, offer, cautions, amount };
 }
 

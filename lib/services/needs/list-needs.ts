@@ -1,7 +1,6 @@
 import "server-only";
 import type { Knex } from "knex";
-import { findOwnNeed, listOwnNeeds, reservationsCounting } from "@/db/needs";
-import { notFound } from "@/lib/api/errors";
+import { listOwnNeeds, reservationsCounting } from "@/db/needs";
 import type { NeedRow } from "@/db/types";
 import { coverage } from "@/lib/needs/coverage";
 import { presentNeed, type NeedView } from "@/lib/needs/view";
@@ -31,10 +30,3 @@ export async function listNeeds(userId: string, opts: { openOnly?: boolean; bedI
   return needViews(await listOwnNeeds(userId, opts, q), q, clock());
 }
 
-/** GET /api/needs/:id: one of my needs; anyone else's is a 404. */
-export async function getNeed(userId: string, id: string, ctx: NeedsContext = {}): Promise<NeedView> {
-  const { q, clock } = resolveContext(ctx);
-  const row = await findOwnNeed(id, userId, q);
-  if (!row) throw notFound("That need");
-  return (await needViews([row], q, clock()))[0];
-}

@@ -1,6 +1,6 @@
 import "server-only";
 import { nearestPlace, placesByPrefix, type PlaceHit } from "@/db/places";
-import { geocodeReverse, geocodeSearch } from "@/lib/geo/geocoder";
+import { geocodeSearch } from "@/lib/geo/geocoder";
 import { comparePlaces, placeLabel } from "@/lib/geo/place-terms";
 import type { Place } from "@/lib/validation/places";
 
@@ -8,30 +8,22 @@ import type { Place } from "@/lib/validation/places";
 // with their points), then the geocoding service when one is configured, without the
 // places the gazetteer already gave.
 
-const view = (p: PlaceHit, source: Place["source"]): Place => ({ ...p, label: placeLabel(p), source });
+export const placeView = (p: PlaceHit, source: Place["source"]): Place => ({ ...p, label: placeLabel(p), source });
 
 const sameSpot = (a: PlaceHit, b: PlaceHit) => placeLabel(a).toLowerCase() === placeLabel(b).toLowerCase() && Math.abs(a.lat - b.lat) < 0.002 && Math.abs(a.lng - b.lng) < 0.003;
 
 export async function searchPlaces(input: { q: string; limit: number; lat?: number; lng?: number }): Promise<Place[]> {
   const local = (await placesByPrefix(input.q, input.limit)).sort(comparePlaces(input.q)).slice(0, input.limit);
-  const out = local.map((p) => view(p, "gazetteer"));
+  const out = local.map((p) => placeView(p, "gazetteer"));
   if (out.length < input.limit) {
     const near = input.lat !== undefined && input.lng !== undefined ? { lat: input.lat, lng: input.lng } : undefined;
     const remote = (await geocodeSearch(input.q, input.limit, near)) ?? [];
     for (const p of remote) {
       if (out.length >= input.limit) break;
-      if (!local.some((l) => sameSpot(l, p)) && !out.some((o) => sameSpot(o, p))) out.push(view(p, "geocoder"));
+      if (!local.some((l) => sameSpot(l, p)) && !out.some((o) => sameSpot(o, p))) out.push(placeView(p, "geocoder"));
     }
   }
   return out;
-}
-
-/** A name for a point ("near Mill Leat Lane, Fernhollow"): the gazetteer's nearest place, else the service's. */
-export async function nameForPoint(lat: number, lng: number): Promise<Place | null> {
-  const local = await nearestPlace(lat, lng);
-  if (local) return view(local, "gazetteer");
-  const remote = await geocodeReverse(lat, lng);
-  return remote ? view(remote, "geocoder") : null;
 }
 
 /** The gazetteer's name nearest each point ("Little Sedge"), or null: no outside service, for lists of many points. */

@@ -8,14 +8,13 @@ import { dueForNotice, heldDueToExpire } from "@/db/reservations";
 import type { ReservationRow } from "@/db/types";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
-import { EXPIRY_WARNING_MINUTES, PICKUP_REMINDER_HOURS } from "@/lib/reservations/policy";
 import { StaleState, closeReservation } from "@/lib/services/reservations/reservation-steps";
+import type { Clock } from "@/lib/time/clock";
 
 // The worker's reservation jobs. Everything they need is in the database (hold_expires_at,
 // pickup_at and the *_at markers), so a restarted worker picks up exactly where it was,
 // and the clock is a parameter so tests can move time.
 
-type Clock = () => Date;
 
 /**
  * Ends every hold whose time is up: the quantity returns, and any money goes back. Each hold
@@ -63,10 +62,10 @@ async function runOwedPayments(job: string, id: string, owed: string[], clock: C
   }
 }
 
-type Notice = { status: "held" | "confirmed"; time: "hold_expires_at" | "answer_remind_at" | "pickup_at" | "pickup_by"; marker: "expiry_warned_at" | "pickup_reminded_at"; aheadMs: number; since?: "now" | "any" };
+export type Notice = { status: "held" | "confirmed"; time: "hold_expires_at" | "answer_remind_at" | "pickup_at" | "pickup_by"; marker: "expiry_warned_at" | "pickup_reminded_at"; aheadMs: number; since?: "now" | "any" };
 
 /** Sends one kind of notice to every reservation due for it, each once: the marker column is claimed first. */
-async function sendNotices(q: Knex, n: Notice, now: Date, send: (trx: Knex.Transaction, r: ReservationRow) => Promise<void>): Promise<number> {
+export async function sendNotices(q: Knex, n: Notice, now: Date, send: (trx: Knex.Transaction, r: ReservationRow) => Promise<void>): Promise<number> {
   const at = now.toISOString();
   let sent = 0;
   const after = n.since === "any" ? new Date(0).toISOString() : at;
@@ -86,29 +85,3 @@ async function sendNotices(q: Knex, n: Notice, now: Date, send: (trx: Knex.Trans
   return sent;
 }
 
-/**
- * "Your hold ends soon" (the gardener, before a checkout's hold ends), "waiting for your
- * answer" (the supplier, half-way through a request's answer window) and "pickup tomorrow",
- * each sent once (marker column + dedupe key).
- */
-export async function sendReservationReminders(clock: Clock = () => new Date(), q: Knex = db()): Promise<{ warned: number; reminded: number }> {
-  const now = clock();
-  const expiring = (to: "gardener" | "supplier") => async (trx: Knex.Transaction, r: ReservationRow) => {
-    await mailReservation(trx, "expiring", (await reservationContext(r.id, trx))!, [to], {}, r.hold_expires_at ?? "");
-  };
-  const warned =
-    (await sendNotices(q, { status: "held", time: "hold_expires_at", marker: "expiry_warned_at", aheadMs: EXPIRY_WARNING_MINUTES * 60_000 }, now, expiring("gardener"))) +
-    // Reminders whose half-way point has passed are still sent (a worker that was down catches up).
-    (await sendNotices(q, { status: "held", time: "answer_remind_at", marker: "expiry_warned_at", aheadMs: 0, since: "any" }, now, expiring("supplier")));
-  const remind = async (trx: Knex.Transaction, r: ReservationRow) => {
-    const ctx = (await reservationContext(r.id, trx))!;
-    await mailReservation(trx, "reminder", ctx, ctx.gardener.reminders_opt_out ? ["supplier"] : ["gardener", "supplier"]);
-  };
-  // A chosen window is reminded the day before it starts; "no fixed time" the day before the
-  // last day to collect (dueForNotice only looks at pickup_by where no window start is set,
-  // and never at a posted culture, which is not collected).
-  const reminded =
-    (await sendNotices(q, { status: "confirmed", time: "pickup_at", marker: "pickup_reminded_at", aheadMs: PICKUP_REMINDER_HOURS * 3_600_000 }, now, remind)) +
-    (await sendNotices(q, { status: "confirmed", time: "pickup_by", marker: "pickup_reminded_at", aheadMs: PICKUP_REMINDER_HOURS * 3_600_000 }, now, remind));
-  return { warned, reminded };
-}

@@ -3,8 +3,7 @@ import type { Knex } from "knex";
 import { db } from "@/db/index";
 import { paymentsOf } from "@/db/payments";
 import { reservationContexts } from "@/db/reservation-context";
-import { historyOf, reservationIdsFor, sideOf } from "@/db/reservations";
-import { ApiError } from "@/lib/api/errors";
+import { historyOf, reservationIdsFor } from "@/db/reservations";
 import type { Side } from "@/lib/reservations/policy";
 import { reservationView, type ReservationView } from "@/lib/reservations/view";
 import { shippingView, type ShippingView } from "@/lib/growers/view";
@@ -12,7 +11,7 @@ import { shippingView, type ShippingView } from "@/lib/growers/view";
 // Reading reservations for one side: a gardener's own, or the requests on a supplier's
 // (or their organisation's) listings. Other people's reservations are simply not found.
 
-async function views(ids: string[], viewerId: string, side: Side, q: Knex, now: Date): Promise<ReservationView[]> {
+export async function views(ids: string[], viewerId: string, side: Side, q: Knex, now: Date): Promise<ReservationView[]> {
   const [contexts, payments, history, reviews] = await Promise.all([
     reservationContexts(ids, q),
     paymentsOf(ids, q),
@@ -50,13 +49,3 @@ export async function listReservations(userId: string, side: Side, opts: { statu
   return views(ids, userId, side, q, opts.now ?? new Date());
 }
 
-export async function getReservation(id: string, userId: string, opts: { db?: Knex; now?: Date } = {}): Promise<ReservationView> {
-  const q = opts.db ?? db();
-  const side = await sideOf(id, userId, q);
-  if (!side) throw new ApiError("not_found", "That reservation was not found.");
-  return (await views([id], userId, side, q, opts.now ?? new Date()))[0];
-}
-
-export async function getReservations(ids: string[], userId: string, side: Side, opts: { db?: Knex; now?: Date } = {}): Promise<ReservationView[]> {
-  return views(ids, userId, side, opts.db ?? db(), opts.now ?? new Date());
-}

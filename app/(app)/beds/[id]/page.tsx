@@ -4,7 +4,7 @@ import type { Metadata } from "next";
 import { pageUser } from "@/lib/auth/page-guard";
 import { getBed } from "@/lib/services/beds/get-bed";
 import { toBedView } from "@/lib/beds/view";
-import { savedBedEstimate } from "@/lib/services/beds/estimate-bed";
+import { savedBedEstimate } from "@/lib/services/beds/estimate-saved-bed";
 import { PageHeading } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button-class";
 import { BedEstimate } from "@/components/planner/bed-estimate";

@@ -3,7 +3,7 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { pageUser } from "@/lib/auth/page-guard";
 import { ApiError } from "@/lib/api/errors";
-import { getReservation } from "@/lib/services/reservations/list-reservations";
+import { getReservation } from "@/lib/services/reservations/get-reservation";
 import { whatLabel } from "@/lib/reservations/labels";
 import { PageHeading } from "@/components/ui/empty-state";
 import { ReservationCard } from "@/components/reservations/reservation-card";

@@ -4,7 +4,7 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { pageUser } from "@/lib/auth/page-guard";
 import { findCheckoutGroup } from "@/lib/services/reservations/find-checkout-group";
-import { getReservations } from "@/lib/services/reservations/list-reservations";
+import { getReservations } from "@/lib/services/reservations/get-reservations";
 import { whatLabel } from "@/lib/reservations/labels";
 import { PageHeading } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button-class";

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import type { Metadata } from "next";
 import { currentUser } from "@/lib/auth/current-user";
-import { describeInvite } from "@/lib/services/council/manage-council-staff";
+import { describeInvite } from "@/lib/services/council/describe-invite";
 import { PageHeading } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";
 import { buttonClass } from "@/components/ui/button-class";

@@ -3,7 +3,8 @@ import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { inviteSchema } from "@/lib/validation/council";
 import { councilOf, councilOwnerOf } from "@/lib/auth/council-access";
-import { inviteStaff, listInvites } from "@/lib/services/council/manage-council-staff";
+import { listInvites } from "@/lib/services/council/list-invites";
+import { inviteStaff } from "@/lib/services/council/invite-staff";
 
 // GET /api/council/invites — invitations still waiting for an answer.
 export const GET = withAuth(async ({ user }) => {

@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { changePasswordSchema } from "@/lib/validation/auth";
-import { changePassword } from "@/lib/services/accounts/account-security";
+import { changePassword } from "@/lib/services/accounts/change-password";
 
 // POST /api/me/password — a new password; every session of the account ends, this one too.
 export const POST = withAuth(async ({ req, user }) => {

@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
 import { parseNeedBody, updateNeedSchema } from "@/lib/validation/needs";
-import { getNeed } from "@/lib/services/needs/list-needs";
+import { getNeed } from "@/lib/services/needs/get-need";
 import { changeNeed } from "@/lib/services/needs/change-need";
 import { deleteNeed } from "@/lib/services/needs/delete-need";
 

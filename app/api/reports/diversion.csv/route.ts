@@ -3,7 +3,8 @@ import { parseInput } from "@/lib/api/errors";
 import { LISTING_ROLES } from "@/lib/auth/roles";
 import { csvResponse } from "@/lib/format/csv";
 import { diversionQuerySchema } from "@/lib/validation/reports";
-import { diversionCsv, diversionReport } from "@/lib/services/figures/report-diversion";
+import { diversionReport } from "@/lib/services/figures/report-diversion";
+import { diversionCsv } from "@/lib/figures/diversion-csv";
 import { diversionScopeOf } from "@/lib/figures/diversion-scope";
 
 // GET /api/reports/diversion.csv?by=month|day — the same figures by month and material, or by giveaway day.

@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { readJson, withAuth } from "@/lib/api/handler";
 import { parseInput } from "@/lib/api/errors";
 import { updateAlertSchema } from "@/lib/validation/needs";
-import { updateAlert } from "@/lib/services/needs/list-alerts";
+import { updateAlert } from "@/lib/services/needs/update-alert";
 
 // PATCH /api/needs/alerts/:id { seen: true } or { dismissed: true } — one of my notices.
 export const PATCH = withAuth<{ id: string }>(async ({ req, params, user }) => {

@@ -1,7 +1,8 @@
 import { withAuth } from "@/lib/api/handler";
 import { csvResponse } from "@/lib/format/csv";
 import { councilOf } from "@/lib/auth/council-access";
-import { daySheet, daySheetCsv } from "@/lib/services/giveaways/get-day-sheet";
+import { daySheet } from "@/lib/services/giveaways/get-day-sheet";
+import { daySheetCsv } from "@/lib/giveaways/sheet-csv";
 
 // GET /api/council/giveaways/:id/sheet.csv — the day's sheet for a spreadsheet.
 export const GET = withAuth<{ id: string }>(async ({ params, user }) => {

@@ -1,6 +1,6 @@
 import { handle } from "@/lib/api/handler";
 import { optionalRequestUser } from "@/lib/auth/current-user";
-import { bookingCalendar } from "@/lib/services/giveaways/get-giveaway-for-visitor";
+import { bookingCalendar } from "@/lib/services/giveaways/get-booking-calendar";
 
 // GET /api/giveaways/:id/bookings/:bookingId/calendar.ics?t= — the booked slot for a calendar
 // app: the token from the confirmation e-mail, or the booking household's own session.

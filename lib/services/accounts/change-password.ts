@@ -7,14 +7,13 @@ import { appUrl } from "@/lib/env";
 import { hashPassword, verifyPassword } from "@/lib/auth/password";
 import { passwordProblem } from "@/lib/auth/password-strength";
 import { endEverySession } from "@/lib/auth/sessions";
-import { signInLink } from "@/lib/auth/sign-in-link";
-import { LIMITS, consume, ensureUnder, forgive, recordFailure } from "@/lib/security/rate-limit";
+import { LIMITS, ensureUnder, forgive, recordFailure } from "@/lib/security/rate-limit";
 import type { ChangePasswordInput } from "@/lib/validation/auth";
+import type { Clock } from "@/lib/time/clock";
 
 // A person's own account safety: a new password (which ends every session), "sign out
 // everywhere", and the confirmation link sent again.
 
-type Clock = () => Date;
 
 /**
  * Changes the password after checking the current one (wrong guesses count against the
@@ -44,20 +43,3 @@ export async function changePassword(userId: string, input: ChangePasswordInput,
   return { sessions_ended: ended };
 }
 
-/** Ends every session of the account, everywhere, this one included. */
-export async function signOutEverywhere(userId: string, clock: Clock = () => new Date()): Promise<{ sessions_ended: number }> {
-  return { sessions_ended: await endEverySession(userId, "signed_out_everywhere", clock) };
-}
-
-/** Sends the confirmation link again (limited like sign-in links). */
-export async function resendConfirmation(userId: string, clock: Clock = () => new Date()): Promise<{ status: "sent" }> {
-  const user = await findUserById(userId);
-  if (!user) throw notFound("That account");
-  if (user.email_verified_at) throw new ApiError("invalid_state", "Your e-mail address is already confirmed.");
-  await consume([[LIMITS.linkEmail, user.email]], clock);
-  await db().transaction(async (trx) => {
-    const link = await signInLink(user.email, "/profile", clock(), trx);
-    await enqueueEmail({ to: user.email, template: "account.confirm", data: { name: user.display_name, url: link } }, trx);
-  });
-  return { status: "sent" };
-}

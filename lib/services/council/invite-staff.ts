@@ -1,0 +1,43 @@
+import "server-only";
+import { randomBytes } from "node:crypto";
+import { db } from "@/db/index";
+import { writeTransaction } from "@/db/write-transaction";
+import { closeInvites, insertInvite } from "@/db/invites";
+import { findUserByEmail, membershipsOf, normaliseEmail } from "@/db/users";
+import { enqueueEmail } from "@/db/outbox";
+import { recordAudit } from "@/db/audit";
+import { ApiError } from "@/lib/api/errors";
+import { appUrl } from "@/lib/app-url";
+import { readableDateTime, DEFAULT_TIME_ZONE } from "@/lib/time/zoned";
+import type { CouncilContext } from "@/lib/auth/council-access";
+import { INVITE_TTL_DAYS, hashToken, InviteView, inviteView } from "@/lib/council/invites";
+
+/** The owner invites a colleague: a single-use link by e-mail, through the outbox in the same transaction. */
+export async function inviteStaff(ctx: CouncilContext, inviterName: string, rawEmail: string, clock: () => Date = () => new Date()): Promise<InviteView> {
+  const email = normaliseEmail(rawEmail);
+  const existing = await findUserByEmail(email);
+  if (existing) {
+    const orgs = await membershipsOf(existing.id);
+    if (orgs.some((m) => m.organisation_id === ctx.organisationId)) {
+      throw new ApiError("conflict", "That person is already on your staff.", { email: "Already on your staff." });
+    }
+    if (orgs.length) throw new ApiError("conflict", "That account already belongs to another organisation.", { email: "This account is staff of another organisation." });
+  }
+  const token = randomBytes(32).toString("base64url");
+  const now = clock();
+  const expires_at = new Date(now.getTime() + INVITE_TTL_DAYS * 86_400_000).toISOString();
+  return writeTransaction(db(), async (trx) => {
+    // A new invitation replaces any still waiting for the same address.
+    await closeInvites({ organisation_id: ctx.organisationId, email }, "revoked", {}, trx);
+    const invite = await insertInvite({ organisation_id: ctx.organisationId, email, token_hash: hashToken(token), invited_by: ctx.userId, expires_at }, trx);
+    const data = {
+      organisation: ctx.organisationName,
+      inviter: inviterName,
+      url: `${appUrl()}/council/join?token=${encodeURIComponent(token)}`,
+      expires: readableDateTime(expires_at, DEFAULT_TIME_ZONE),
+    };
+    await enqueueEmail({ to: email, template: "council_invite", data, dedupe_key: `council-invite:${invite.id}` }, trx);
+    await recordAudit({ actor_id: ctx.userId, action: "council.invite", subject_type: "organisation", subject_id: ctx.organisationId, after: inviteView(invite) }, trx);
+    return inviteView(invite);
+  });
+}

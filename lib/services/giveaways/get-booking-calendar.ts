@@ -1,0 +1,27 @@
+import "server-only";
+import { findBooking, findDay, findSlot } from "@/db/giveaways";
+import { findOrganisation } from "@/db/organisations";
+import { ApiError, notFound } from "@/lib/api/errors";
+import { appUrl } from "@/lib/app-url";
+import { giveawayCalendar, validCalendarToken } from "@/lib/giveaways/calendar";
+
+/** The .ics of one booking, for its household only (by session or by the e-mailed token). */
+export async function bookingCalendar(dayId: string, bookingId: string, who: { token: string | null; userId: string | null }): Promise<string> {
+  const booking = await findBooking(bookingId);
+  const allowed = booking && booking.day_id === dayId && (booking.user_id === who.userId || validCalendarToken(bookingId, who.token));
+  if (!booking || !allowed) throw notFound("That booking");
+  if (booking.status === "cancelled") throw new ApiError("invalid_state", "This booking was cancelled.");
+  const day = (await findDay(dayId))!;
+  const [slot, org] = await Promise.all([findSlot(booking.slot_id, dayId), findOrganisation(day.organisation_id)]);
+  return giveawayCalendar({
+    id: booking.id,
+    quantity: booking.quantity,
+    unit: day.unit,
+    title: day.title,
+    address: day.address,
+    starts_at: slot!.starts_at,
+    ends_at: slot!.ends_at,
+    organisation: org?.name ?? "the council",
+    url: `${appUrl()}/giveaways/${day.id}`,
+  });
+}

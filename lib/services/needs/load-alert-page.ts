@@ -1,0 +1,42 @@
+import "server-only";
+import { markAlertsSeen } from "@/db/need-alerts";
+import { findOwnNeed } from "@/db/needs";
+import { listingCautions } from "@/lib/calc/cautions";
+import { amountToReserve } from "@/lib/needs/coverage";
+import { loadReserveOffer } from "@/lib/services/reservations/load-reserve-offer";
+import { resolveContext, type NeedsContext } from "@/lib/services/needs/context";
+import { needViews } from "@/lib/services/needs/list-needs";
+import { parseQuality } from "@/lib/listings/quality";
+import { toView, alertQuery, AlertPage } from "@/lib/services/needs/list-alerts";
+import type { AlertJoin } from "@/lib/services/needs/list-alerts";
+
+/** The alert page: the notice, my need as it stands, the listing's reservable facts, and what one click takes. Marks it seen. */
+export async function loadAlertPage(userId: string, id: string, ctx: NeedsContext = {}): Promise<AlertPage | null> {
+  const { q, clock } = resolveContext(ctx);
+  const now = clock();
+  const row = (await alertQuery(q, userId).andWhere("a.id", id).first()) as AlertJoin | undefined;
+  if (!row) return null;
+  const needRow = await findOwnNeed(row.need_id, userId, q);
+  if (!needRow) return null;
+  const [need] = await needViews([needRow], q, now);
+  const offer = await loadReserveOffer(row.listing_id, now);
+  const listing = await q("listings").first("quality", "unit_size", "unit_mass_kg", "max_per_reservation").where({ id: row.listing_id });
+  // An unreadable declaration reads as none: the material's general cautions still apply.
+  const quality = parseQuality(listing?.quality);
+  const cautions = listingCautions({ material: row.material_code, unit: row.unit, unit_mass_kg: listing?.unit_mass_kg ?? null, quality });
+  const amount =
+    offer && need.status === "open"
+      ? amountToReserve(need.quantity_left, need.unit, {
+          material: offer.material,
+          unit: offer.unit,
+          unit_size: offer.unit_size,
+          unit_mass_kg: offer.unit_mass_kg,
+          // Already whole sheets, bags, bales or packs (lib/reservations/labels.ts).
+          available: offer.available,
+          max_per_reservation: offer.max_per_reservation,
+          pack: offer.pack,
+        })
+      : 0;
+  await markAlertsSeen(userId, [id], now.toISOString(), q);
+  return { alert: toView(row, now), need, offer, cautions, amount };
+}
