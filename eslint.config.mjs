@@ -31,6 +31,11 @@ const layers = {
             message: "Calculation and matching are pure: no database, mail, Stripe or files; the services feed them.",
           },
           {
+            target: ["./app/**", "./components/**", "./lib/**"],
+            from: "./lib/listings/quality.ts",
+            message: "A listing's quality JSON is parsed once, by the row mapper in db/listings.ts (toListingRow): read row.quality.",
+          },
+          {
             target: ["./app/**", "./components/**", "./db/**", "./scripts/**", "./migrations/**", "./lib/!(fakes)/**", "./*.ts"],
             from: "./lib/fakes/**",
             message: "The local fakes are started by their own runner (npm run fakes) and imported only by tests.",

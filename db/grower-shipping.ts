@@ -1,5 +1,6 @@
 import { db, nowIso, type Db } from "./index";
-import type { GrowerShippingRow } from "./types";
+import type { GrowerShippingRow, ListingQuality } from "./types";
+import { toListingRow } from "./listings";
 
 export async function findShipping(userId: string, q: Db = db()): Promise<GrowerShippingRow | undefined> {
   return (await q("grower_shipping").first("user_id", "ship_weekdays", "paused", "pause_reason", "pause_note", "updated_at").where({ user_id: userId })) as
@@ -24,15 +25,16 @@ export interface WormListingRow {
   pack_size: number | null;
   pack_price_cents: number | null;
   currency: string;
-  quality: string;
+  quality: ListingQuality;
 }
 
 /** A grower's live-culture listings (material worms, sold by kg). */
 export async function wormListingsOf(ownerId: string, q: Db = db()): Promise<WormListingRow[]> {
-  return q("listings")
+  const rows = (await q("listings")
     .select("id", "title", "status", "unit", "quantity_total", "quantity_held", "quantity_collected", "price_cents", "pack_size", "pack_price_cents", "currency", "quality")
     .where({ owner_id: ownerId, material_code: "worms" })
-    .orderBy("updated_at", "desc");
+    .orderBy("updated_at", "desc")) as Record<string, unknown>[];
+  return rows.map((r) => toListingRow<WormListingRow>(r));
 }
 
 /** Writes the listing's quality declarations (JSON), for its owner only; 0 when not theirs. */

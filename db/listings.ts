@@ -1,6 +1,7 @@
 import type { Knex } from "knex";
 import { db, nowIso, type Db } from "./index";
-import type { ListingRow, ListingStatus } from "./types";
+import type { ListingQuality, ListingRow, ListingStatus } from "./types";
+import { parseQuality } from "@/lib/listings/quality";
 import type { MaterialCode } from "@/lib/calc/facts";
 import { boundingBox } from "@/lib/geo/box";
 import type { LatLng } from "@/lib/match/types";
@@ -74,14 +75,35 @@ function managedBy(userId: string, q: Db) {
     b.where("listings.owner_id", userId).orWhereIn("listings.organisation_id", q("memberships").select("organisation_id").where("user_id", userId));
 }
 
+/**
+ * A listings row as the code sees it: the quality declarations, stored as JSON text, parsed
+ * here and nowhere else. Every repository that reads listing rows maps them through this.
+ */
+export function toListingRow<T extends { quality: ListingQuality }>(raw: unknown): T {
+  const r = (raw ?? {}) as Record<string, unknown>;
+  return { ...r, quality: parseQuality(typeof r.quality === "string" ? r.quality : null) } as unknown as T;
+}
+
 export async function insertListing(row: Omit<ListingRow, "created_at" | "updated_at">, q: Db = db()): Promise<void> {
   const now = nowIso();
-  await q("listings").insert({ ...row, created_at: now, updated_at: now });
+  await q("listings").insert({ ...row, quality: JSON.stringify(row.quality), created_at: now, updated_at: now });
 }
 
 /** Any listing by id, whatever its status: callers decide what the asker may see. */
 export async function findListing(id: string, q: Db = db()): Promise<ListingRow | undefined> {
-  return (await q("listings").first(cols()).where("listings.id", id)) as ListingRow | undefined;
+  const row = await q("listings").first(cols()).where("listings.id", id);
+  return row ? toListingRow<ListingRow>(row) : undefined;
+}
+
+/** The facts a need alert's page shows beside the offer, or undefined. */
+export async function findListingFacts(id: string, q: Db = db()): Promise<Pick<ListingRow, "quality" | "unit_size" | "unit_mass_kg" | "max_per_reservation"> | undefined> {
+  const row = await q("listings").first("quality", "unit_size", "unit_mass_kg", "max_per_reservation").where({ id });
+  return row ? toListingRow<Pick<ListingRow, "quality" | "unit_size" | "unit_mass_kg" | "max_per_reservation">>(row) : undefined;
+}
+
+/** A listing's quality declarations alone ({} for none, or for no such listing). */
+export async function listingQuality(id: string, q: Db = db()): Promise<ListingQuality> {
+  return toListingRow<{ quality: ListingQuality }>(await q("listings").first("quality").where({ id })).quality;
 }
 
 /**
@@ -98,23 +120,24 @@ export async function activeListingsAround(material: MaterialCode, centre: LatLn
     .whereBetween("listings.approx_lng", [box.minLng, box.maxLng])
     .andWhereNot("listings.owner_id", excludeOwner)
     .limit(limit);
-  return (await nearBox(b, centre, km * 1000, "listings.approx_lat", "listings.approx_lng")) as ListingRow[];
+  return ((await nearBox(b, centre, km * 1000, "listings.approx_lat", "listings.approx_lng")) as Record<string, unknown>[]).map((r) => toListingRow<ListingRow>(r));
 }
 
 /** A listing the person may manage, or undefined (which the caller answers as 404). */
 export async function findManagedListing(id: string, userId: string, q: Db = db()): Promise<ListingRow | undefined> {
-  return (await q("listings").first(cols()).where("listings.id", id).andWhere(managedBy(userId, q))) as ListingRow | undefined;
+  const row = await q("listings").first(cols()).where("listings.id", id).andWhere(managedBy(userId, q));
+  return row ? toListingRow<ListingRow>(row) : undefined;
 }
 
 export async function listingsManagedBy(userId: string, q: Db = db()): Promise<ListingRow[]> {
-  return (await q("listings").select(cols()).where(managedBy(userId, q)).orderBy("listings.updated_at", "desc")) as ListingRow[];
+  return ((await q("listings").select(cols()).where(managedBy(userId, q)).orderBy("listings.updated_at", "desc")) as Record<string, unknown>[]).map((r) => toListingRow<ListingRow>(r));
 }
 
 export async function updateManagedListing(id: string, userId: string, patch: ListingPatch, q: Db = db()): Promise<number> {
   return q("listings")
     .where("listings.id", id)
     .andWhere(managedBy(userId, q))
-    .update({ ...patch, updated_at: nowIso() });
+    .update({ ...patch, ...(patch.quality !== undefined ? { quality: JSON.stringify(patch.quality) } : {}), updated_at: nowIso() });
 }
 
 /**

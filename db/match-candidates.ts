@@ -10,7 +10,8 @@ import { type Box, boundingBox } from "@/lib/geo/box";
 import { distanceKm, enclosingCircle } from "@/lib/match/geo";
 import type { CandidateSource, CheapestRows } from "@/lib/match/search";
 import type { CandidateListing, LatLng, ListingUnit } from "@/lib/match/types";
-import { parseQuality } from "@/lib/listings/quality";
+import { toListingRow } from "./listings";
+import type { ListingQuality } from "./types";
 
 // The one query module of matching (a repository: matching itself, lib/match, does no I/O). Every query names its index: a box on the public
 // point through the spatial index (db/listing-points.ts: an R*Tree on SQLite, listings_near,
@@ -87,7 +88,7 @@ function reservable(q: Db, index: string | null, materials: readonly MaterialCod
 /** A live culture its grower only posts (lib/reservations/culture-orders.ts: an unset key means offered). */
 function postedOnly(r: Row): boolean {
   if (r.material_code !== "worms") return false;
-  const q = parseQuality(r.quality);
+  const q = toListingRow<{ quality: ListingQuality }>(r).quality;
   return q.pickup === false && q.ships !== false;
 }
 

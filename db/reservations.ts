@@ -1,7 +1,7 @@
 import type { Knex } from "knex";
 import { lockForUpdate } from "./dialect";
 import { db, type Db } from "./index";
-import { LISTING_COLUMNS } from "./listings";
+import { LISTING_COLUMNS, toListingRow } from "./listings";
 import { windowsFor } from "./pickup-windows";
 import type { ListingRow, PickupWindowRow, ReservationEventRow, ReservationRow } from "./types";
 
@@ -17,7 +17,7 @@ const EPSILON = 1e-9;
 export type ListingForReservation = ListingRow;
 
 export async function listingsForReservation(ids: string[], q: Db = db()): Promise<ListingForReservation[]> {
-  return q("listings").select(LISTING_COLUMNS).whereIn("id", ids);
+  return ((await q("listings").select(LISTING_COLUMNS).whereIn("id", ids)) as Record<string, unknown>[]).map((r) => toListingRow<ListingForReservation>(r));
 }
 
 export const availableOf = (l: Pick<ListingForReservation, "quantity_total" | "quantity_held" | "quantity_collected">) =>

@@ -92,6 +92,9 @@ export interface AuditRow {
 
 export type { ListingStatus };
 
+/** A listing's quality declarations (herbicide history, leaf source, a culture's species …). */
+export type ListingQuality = Record<string, unknown>;
+
 export interface ListingRow {
   id: string;
   owner_id: string;
@@ -122,8 +125,8 @@ export interface ListingRow {
   approx_lng: number;
   available_from: string | null;
   available_until: string | null;
-  /** JSON text of the material's quality declarations. */
-  quality: string;
+  /** The material's quality declarations: stored as JSON text, parsed once as the row is read (db/listings.ts). */
+  quality: ListingQuality;
   /** When the listing is next due to be checked against open needs; null: nothing to do (migrations/20261208_020_open_needs.ts). */
   needs_due_at?: string | null;
   created_at: string;

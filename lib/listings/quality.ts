@@ -1,5 +1,6 @@
 // A listing's quality declaration (herbicide history, roadside source, a culture's species and
-// how it travels) is stored as JSON text on the row. This is the one place that reads it back.
+// how it travels) is stored as JSON text on the row. This is the one place that reads it back,
+// called only by the listing row mapper (db/listings.ts toListingRow); lint keeps it so.
 
 /**
  * The declaration as an object; empty when there is none or when the stored text is not a

@@ -18,7 +18,6 @@ import { photoUrl, type PhotoSize, type PhotoVariant } from "@/lib/media/photo-u
 import type { QualityInput } from "@/lib/validation/listings";
 import { datesState, effectiveStatus, quantityLeft } from "./status";
 import { packOf, type Pack } from "./packs";
-import { parseQuality } from "@/lib/listings/quality";
 
 export interface PublicListingItem {
   id: string;
@@ -140,7 +139,7 @@ export async function presentDetail(r: ListingRow, opts: { manage: boolean; now?
     ratingsFor([r.owner_id], q),
     collectionsFor([r.owner_id], q),
   ]);
-  const quality = parseQuality(r.quality) as QualityInput;
+  const quality = r.quality as QualityInput;
   const photoRows = photos.get(r.id) ?? [];
   const detail: ListingDetail = {
     ...item(r, { ...supplierOf(r), rating: ratings.get(r.owner_id) ?? null, collections: collections.get(r.owner_id) ?? 0 }, photoList(photoRows, "large"), null, opts.now ?? new Date()),

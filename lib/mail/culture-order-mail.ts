@@ -7,7 +7,8 @@ import { nextPostingDay } from "@/lib/reservations/culture-orders";
 import { shippingView } from "@/lib/growers/view";
 import type { CultureMailKind } from "./templates/culture-orders";
 import { reservationMailData, type Audience } from "./templates/reservations";
-import { parseQuality } from "@/lib/listings/quality";
+import { listingQuality } from "@/db/listings";
+import type { ListingQuality } from "@/db/types";
 
 /**
  * Writes a live-culture order e-mail to the outbox inside the caller's transaction (like
@@ -16,9 +17,9 @@ import { parseQuality } from "@/lib/listings/quality";
  * rightly come again (one pause of posting and the next).
  */
 export async function mailCultureOrder(q: Db, kind: CultureMailKind, r: ReservationContext, audiences: Audience[], now: Date, key?: string): Promise<void> {
-  const [shippingRow, listing] = await Promise.all([findShipping(r.listing.owner_id, q), q("listings").first("quality").where({ id: r.listing_id })]);
+  const [shippingRow, quality] = await Promise.all([findShipping(r.listing.owner_id, q), listingQuality(r.listing_id, q)]);
   const { ship_weekdays, ...shipping } = shippingView(shippingRow); // the mails name the days; the numbers stay here
-  const species = speciesOf(listing?.quality);
+  const species = speciesOf(quality);
   const postingDay = shipping.paused ? null : nextPostingDay(ship_weekdays, now);
   for (const to of audiences) {
     const person = to === "gardener" ? r.gardener : r.supplier;
@@ -28,7 +29,6 @@ export async function mailCultureOrder(q: Db, kind: CultureMailKind, r: Reservat
   }
 }
 
-function speciesOf(quality: string | undefined): string | null {
-  const v = parseQuality(quality);
+function speciesOf(v: ListingQuality): string | null {
   return typeof v.species === "string" && v.species.trim() ? v.species.trim() : null;
 }

@@ -2,13 +2,12 @@ import "server-only";
 import { wormListingsOf } from "@/db/grower-shipping";
 import { estimatedWorms } from "@/lib/reservations/culture-orders";
 import { packOf } from "@/lib/listings/packs";
-import { parseQuality } from "@/lib/listings/quality";
 import { CultureStock } from "@/lib/services/growers/get-grower-shipping";
 
 /** The grower's worm listings with what is left and roughly how many worms that is. */
 export async function cultureStock(userId: string): Promise<CultureStock[]> {
   return (await wormListingsOf(userId)).map((l) => {
-    const quality = parseQuality(l.quality);
+    const quality = l.quality;
     const left = Math.max(0, l.quantity_total - l.quantity_held - l.quantity_collected);
     return {
       id: l.id,

@@ -60,7 +60,7 @@ export async function createListing(user: SessionUser, input: CreateListingInput
         approx_lng: approx.lng,
         available_from: dates.from,
         available_until: dates.until,
-        quality: JSON.stringify(input.quality),
+        quality: input.quality,
         // Posted on offer: due to be checked against open needs straight away.
         needs_due_at: input.status === "active" ? DUE_NOW : null,
       },

@@ -12,7 +12,6 @@ import { listingDates } from "@/lib/listings/dates";
 import { alertIfDue } from "@/lib/services/needs/alert-needs";
 import { packOf, unitPriceOfPack } from "@/lib/listings/packs";
 import { checkListingRules, type LISTING_CURRENCIES, defaultUnitSize, listingFieldsSchema, type UpdateListingInput } from "@/lib/validation/listings";
-import { parseQuality } from "@/lib/listings/quality";
 
 // The same rules as a new listing, checked on the listing as it would be after the change.
 const mergedSchema = listingFieldsSchema.superRefine(checkListingRules);
@@ -49,7 +48,7 @@ export async function updateListing(userId: string, id: string, patch: UpdateLis
       address: patch.address ?? row.address,
       available_from: patch.available_from !== undefined ? patch.available_from : row.available_from,
       available_until: patch.available_until !== undefined ? patch.available_until : row.available_until,
-      quality: patch.quality ?? parseQuality(row.quality),
+      quality: patch.quality ?? row.quality,
       pickup_windows: patch.pickup_windows ?? [],
     } satisfies z.input<typeof mergedSchema>);
     if (!merged.success) throw fromZod(merged.error);
@@ -86,7 +85,7 @@ export async function updateListing(userId: string, id: string, patch: UpdateLis
       changes.available_from = dates.from;
       changes.available_until = dates.until;
     }
-    if (patch.quality !== undefined) changes.quality = JSON.stringify(l.quality);
+    if (patch.quality !== undefined) changes.quality = l.quality;
 
     await updateManagedListing(id, userId, changes, trx);
     if (patch.quantity !== undefined && patch.quantity !== row.quantity_total && !(await setQuantityTotal(id, l.quantity, trx))) {

@@ -16,7 +16,6 @@ import type { ListingUnit } from "@/lib/match/types";
 import { needsReaching, type AlertingListing, type ReachedNeed } from "@/lib/needs/reaching";
 import { DUE_NOW } from "@/migrations/20261208_020_open_needs";
 import { dayOf, resolveContext, type NeedsContext } from "@/lib/services/needs/context";
-import { parseQuality } from "@/lib/listings/quality";
 
 // When a listing is posted, restocked or comes into its dates, every open need it could
 // serve gets one alert: an in-app notice (the need_alerts row) and an e-mail through the
@@ -79,9 +78,8 @@ export function alertLine(
 
 /** The cautions an alert e-mail carries: the material's own, without the general lines. */
 export function alertCautions(l: Pick<ListingRow, "material_code" | "unit" | "unit_mass_kg" | "quality">): string[] {
-  // A listing saved before a declaration existed: the general caution still applies.
-  const quality = parseQuality(l.quality);
-  return listingCautions({ material: l.material_code, unit: l.unit, unit_mass_kg: l.unit_mass_kg === null ? null : Number(l.unit_mass_kg), quality })
+  // A listing saved before a declaration existed reads as none: the general caution still applies.
+  return listingCautions({ material: l.material_code, unit: l.unit, unit_mass_kg: l.unit_mass_kg === null ? null : Number(l.unit_mass_kg), quality: l.quality })
     .filter((c) => c.kind !== "gloves")
     .map((c) => c.text);
 }

@@ -6,7 +6,7 @@ import { amountToReserve } from "@/lib/needs/coverage";
 import { loadReserveOffer } from "@/lib/services/reservations/load-reserve-offer";
 import { resolveContext, type NeedsContext } from "@/lib/services/needs/context";
 import { needViews } from "@/lib/services/needs/list-needs";
-import { parseQuality } from "@/lib/listings/quality";
+import { findListingFacts } from "@/db/listings";
 import { toView, alertQuery, AlertPage } from "@/lib/services/needs/list-alerts";
 import type { AlertJoin } from "@/lib/services/needs/list-alerts";
 
@@ -20,10 +20,9 @@ export async function loadAlertPage(userId: string, id: string, ctx: NeedsContex
   if (!needRow) return null;
   const [need] = await needViews([needRow], q, now);
   const offer = await loadReserveOffer(row.listing_id, now);
-  const listing = await q("listings").first("quality", "unit_size", "unit_mass_kg", "max_per_reservation").where({ id: row.listing_id });
+  const listing = await findListingFacts(row.listing_id, q);
   // An unreadable declaration reads as none: the material's general cautions still apply.
-  const quality = parseQuality(listing?.quality);
-  const cautions = listingCautions({ material: row.material_code, unit: row.unit, unit_mass_kg: listing?.unit_mass_kg ?? null, quality });
+  const cautions = listingCautions({ material: row.material_code, unit: row.unit, unit_mass_kg: listing?.unit_mass_kg ?? null, quality: listing?.quality ?? {} });
   const amount =
     offer && need.status === "open"
       ? amountToReserve(need.quantity_left, need.unit, {

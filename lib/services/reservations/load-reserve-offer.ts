@@ -10,7 +10,6 @@ import { packOf } from "@/lib/listings/packs";
 import { datesState, effectiveStatus } from "@/lib/listings/status";
 import { cultureOffer } from "@/lib/services/growers/get-culture-offer";
 import { depositFor } from "@/lib/payments/money";
-import { parseQuality } from "@/lib/listings/quality";
 
 /** What the reserve page shows about a listing: public facts only, never the address. */
 export async function loadReserveOffer(listingId: string, now = new Date()) {
@@ -22,7 +21,7 @@ export async function loadReserveOffer(listingId: string, now = new Date()) {
     pickupWindowsOf([l.id]),
     db()("users").first("display_name", "verified_at").where({ id: l.owner_id }),
     ratingsFor([l.owner_id]),
-    cultureOffer({ material: l.material_code, owner_id: l.owner_id, quality: parseQuality(l.quality), available }, now),
+    cultureOffer({ material: l.material_code, owner_id: l.owner_id, quality: l.quality, available }, now),
     collectionsFor([l.owner_id]),
   ]);
   const deposit = depositFor(l.price_cents, l.deposit_cents);

@@ -22,7 +22,6 @@ import { packOf, wholePackProblem } from "@/lib/listings/packs";
 import { confirmReservation, pickupTimes } from "@/lib/services/reservations/reservation-steps";
 import { shippingView } from "@/lib/growers/view";
 import { formatMoney } from "@/lib/format/money";
-import { parseQuality } from "@/lib/listings/quality";
 
 // POST /api/reservations: hold quantities of one or more listings for a gardener, all or
 // nothing in one transaction, then open a Stripe checkout for whatever needs paying.
@@ -75,7 +74,7 @@ async function fulfilmentFor(item: ReserveItem, listing: ListingForReservation, 
     if (item.fulfilment === "post") fields[`${f}fulfilment`] = "Only live cultures are posted; this is collected.";
     return null;
   }
-  const offer = cultureOptions(parseQuality(listing.quality));
+  const offer = cultureOptions(listing.quality);
   const chosen = item.fulfilment ?? defaultFulfilment(offer);
   if (chosen === "pickup" && !offer.pickup) fields[`${f}fulfilment`] = "This culture is posted only; choose post and give an address.";
   if (chosen === "post") {
