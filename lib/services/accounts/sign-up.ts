@@ -1,5 +1,6 @@
 import "server-only";
 import { db } from "@/db/index";
+import { writeTransaction } from "@/db/write-transaction";
 import { enqueueEmail } from "@/db/outbox";
 import { findUserByEmail, insertUser, normaliseEmail, setRole } from "@/db/users";
 import { ApiError } from "@/lib/api/errors";
@@ -31,7 +32,9 @@ export async function signUp(input: SignUpInput, now: Date = new Date()) {
   if (problem) throw new ApiError("invalid_input", "Choose a stronger password.", { password: problem });
   const password_hash = await hashPassword(input.password);
   const email = normaliseEmail(input.email);
-  await db().transaction(async (trx) => {
+  // Reads, then writes: on SQLite the worker may commit in between, and the whole
+  // transaction runs again (writeTransaction) rather than answering 500.
+  await writeTransaction(db(), async (trx) => {
     if (await findUserByEmail(email, trx)) {
       await enqueueEmail({ to: email, template: "account.already_joined", data: { signInUrl: `${appUrl()}/sign-in` } }, trx);
       return;
