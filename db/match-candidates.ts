@@ -10,7 +10,7 @@ import { type Box, boundingBox } from "@/lib/geo/box";
 import { distanceKm, enclosingCircle } from "@/lib/match/geo";
 import type { CandidateSource, CheapestRows } from "@/lib/match/search";
 import type { CandidateListing, LatLng, ListingUnit } from "@/lib/match/types";
-import { toListingRow } from "./listings";
+import { LISTING_COLUMNS, toListingRow } from "./listings";
 import type { ListingQuality } from "./types";
 
 // The one query module of matching (a repository: matching itself, lib/match, does no I/O). Every query names its index: a box on the public
@@ -38,7 +38,7 @@ const COLUMNS = [
   "approx_lat",
   "approx_lng",
   "quality",
-] as const;
+] as const satisfies readonly (typeof LISTING_COLUMNS)[number][];
 
 interface Row {
   id: string;

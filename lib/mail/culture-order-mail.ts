@@ -1,7 +1,7 @@
 import type { Db } from "@/db/index";
 import { findShipping } from "@/db/grower-shipping";
 import { enqueueEmail } from "@/db/outbox";
-import { appUrl } from "@/lib/app-url";
+import { appUrl } from "@/lib/env";
 import type { ReservationContext } from "@/db/reservation-context";
 import { nextPostingDay } from "@/lib/reservations/culture-orders";
 import { shippingView } from "@/lib/growers/view";

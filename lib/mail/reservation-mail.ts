@@ -1,6 +1,6 @@
 import type { Db } from "@/db/index";
 import { enqueueEmail } from "@/db/outbox";
-import { appUrl } from "@/lib/app-url";
+import { appUrl } from "@/lib/env";
 import type { ReservationContext } from "@/db/reservation-context";
 import { reservationMailData, type Audience, type MailExtra, type ReservationMailKind } from "./templates/reservations";
 

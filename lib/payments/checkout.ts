@@ -2,7 +2,7 @@ import "server-only";
 import { db, nowIso, type Db } from "@/db/index";
 import { findPayment, noteCheckoutNotOpened } from "@/db/payments";
 import { reservationContext } from "@/db/reservation-context";
-import { appUrl } from "@/lib/app-url";
+import { appUrl } from "@/lib/env";
 import { whatLabel } from "@/lib/reservations/labels";
 import type { PaymentRow } from "@/db/types";
 import { ownerMetadata, ownerOf } from "./owner";

@@ -2,7 +2,7 @@
 // parts as HTML and plain text (renderEmail). Times are in the town's time zone.
 import { formatMoney } from "@/lib/format/money";
 import type { ReservationContext } from "@/db/reservation-context";
-import { appUrl } from "@/lib/app-url";
+import { appUrl } from "@/lib/env";
 import { moneySentence, whatLabel, type MoneyOutcome } from "@/lib/reservations/labels";
 import { formatLocal, windowLabel } from "@/lib/reservations/pickup-times";
 import { renderEmail, type EmailParts } from "../layout";

@@ -1,7 +1,7 @@
 import { bedsForReminders, type BedRow } from "@/db/beds";
 import { enqueueEmail } from "@/db/outbox";
 import { db } from "@/db/index";
-import { appUrl } from "@/lib/app-url";
+import { appUrl } from "@/lib/env";
 import type { TimelineEvent } from "@/lib/calc/timeline";
 import { bedEstimate, toBedView, type BedView } from "@/lib/beds/view";
 

@@ -7,7 +7,7 @@ import { findUserByEmail, membershipsOf, normaliseEmail } from "@/db/users";
 import { enqueueEmail } from "@/db/outbox";
 import { recordAudit } from "@/db/audit";
 import { ApiError } from "@/lib/api/errors";
-import { appUrl } from "@/lib/app-url";
+import { appUrl } from "@/lib/env";
 import { readableDateTime, DEFAULT_TIME_ZONE } from "@/lib/time/zoned";
 import type { CouncilContext } from "@/lib/auth/council-access";
 import { INVITE_TTL_DAYS, hashToken, InviteView, inviteView } from "@/lib/council/invites";

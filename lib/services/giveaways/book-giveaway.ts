@@ -9,7 +9,7 @@ import { insertPayment } from "@/db/payments";
 import { enqueueEmail } from "@/db/outbox";
 import type { GiveawayBookingRow, GiveawayDayRow, GiveawaySlotRow } from "@/db/types";
 import { ApiError, notFound } from "@/lib/api/errors";
-import { appUrl } from "@/lib/app-url";
+import { appUrl } from "@/lib/env";
 import { giveawayCautions } from "@/lib/calc/cautions";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { openCheckout } from "@/lib/payments/checkout";

@@ -6,7 +6,7 @@ import { findOrganisation } from "@/db/organisations";
 import { findUserById } from "@/db/users";
 import { enqueueEmail } from "@/db/outbox";
 import { ApiError, notFound } from "@/lib/api/errors";
-import { appUrl } from "@/lib/app-url";
+import { appUrl } from "@/lib/env";
 import { bookingParts } from "@/lib/mail/templates/giveaway";
 import { readableDateTime } from "@/lib/time/zoned";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";

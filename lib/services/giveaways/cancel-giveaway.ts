@@ -6,7 +6,7 @@ import { cancelOrgDay, findOrgDay, recountSlots, setBookingStatus, sheetFor, slo
 import { enqueueEmail } from "@/db/outbox";
 import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
-import { appUrl } from "@/lib/app-url";
+import { appUrl } from "@/lib/env";
 import { bookingParts } from "@/lib/mail/templates/giveaway";
 import { staffDayView } from "@/lib/giveaways/view";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";

@@ -2,7 +2,7 @@ import "server-only";
 import { findBooking, findDay, findSlot } from "@/db/giveaways";
 import { findOrganisation } from "@/db/organisations";
 import { ApiError, notFound } from "@/lib/api/errors";
-import { appUrl } from "@/lib/app-url";
+import { appUrl } from "@/lib/env";
 import { giveawayCalendar, validCalendarToken } from "@/lib/giveaways/calendar";
 
 /** The .ics of one booking, for its household only (by session or by the e-mailed token). */

@@ -6,7 +6,7 @@ import { findUserById } from "@/db/users";
 import { enqueueEmail } from "@/db/outbox";
 import { depositOfBooking } from "@/db/payments";
 import type { DepositStatus, GiveawayBookingRow, PaymentRow } from "@/db/types";
-import { appUrl } from "@/lib/app-url";
+import { appUrl } from "@/lib/env";
 import { bookingParts } from "@/lib/mail/templates/giveaway";
 import { settleCheckout } from "@/lib/payments/owner";
 import { holdMinutes } from "@/lib/reservations/policy";

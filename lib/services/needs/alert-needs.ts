@@ -5,7 +5,7 @@ import { findListing } from "@/db/listings";
 import { alertedNeeds, insertAlerts, matchedGardeners } from "@/db/need-alerts";
 import { enqueueEmails, type NewEmail } from "@/db/outbox";
 import type { ListingRow, NeedAlertRow } from "@/db/types";
-import { appUrl } from "@/lib/app-url";
+import { appUrl } from "@/lib/env";
 import type { UnitSystem } from "@/lib/calc/units";
 import { formatQuantity } from "@/lib/format/quantity";
 import { listingCautions } from "@/lib/calc/cautions";

@@ -2,7 +2,7 @@ import "server-only";
 import { claimAlertsForMail, digestRecipients, lastDigestAt } from "@/db/need-alerts";
 import { enqueueEmail } from "@/db/outbox";
 import type { ListingRow } from "@/db/types";
-import { appUrl } from "@/lib/app-url";
+import { appUrl } from "@/lib/env";
 import type { UnitSystem } from "@/lib/calc/units";
 import { alertLine } from "@/lib/services/needs/alert-needs";
 import { resolveContext, type NeedsContext } from "@/lib/services/needs/context";

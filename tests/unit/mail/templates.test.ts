@@ -3,7 +3,7 @@
 // byte for byte as it would have rendered from the full reservation at the time it was queued.
 import { describe, expect, it } from "vitest";
 import type { ReservationContext } from "@/db/reservation-context";
-import { appUrl } from "@/lib/app-url";
+import { appUrl } from "@/lib/env";
 import { cultureOrderEmail, type CultureMailKind } from "@/lib/mail/templates/culture-orders";
 import { renderTemplate, templates } from "@/lib/mail/templates";
 import { reservationEmail, reservationMailData, type Audience, type MailExtra, type ReservationMailKind } from "@/lib/mail/templates/reservations";

@@ -3,7 +3,7 @@ import { notFound } from "@/lib/api/errors";
 import { getBed } from "@/lib/services/beds/get-bed";
 import { bedEstimate, toBedView } from "@/lib/beds/view";
 import { bedCalendar } from "@/lib/beds/calendar";
-import { appUrl } from "@/lib/app-url";
+import { appUrl } from "@/lib/env";
 
 // GET /api/beds/:id/calendar.ics — the bed's timeline for a calendar app.
 export const GET = withAuth<{ id: string }>(async ({ params, user }) => {
