@@ -87,6 +87,7 @@ const config = [
   ...next,
   { ignores: [".next/**", "node_modules/**", "test-results/**", "public/**"] },
   {
+    files: ["**/*.{ts,tsx,mts,cts,mjs,js,jsx}"],
     rules: {
       // Tests and fakes parse loosely typed JSON on purpose.
       "@typescript-eslint/no-explicit-any": "off",

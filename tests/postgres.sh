@@ -61,7 +61,7 @@ start_postgres() {
     PG_RUN_AS=()
   fi
   local port
-  port="$(node -e 'const s=require("net").createServer();s.listen(0,"127.0.0.1",()=>{console.log(s.address().port);s.close();})')"
+  port="$(node "$(dirname "${BASH_SOURCE[0]}")/helpers/free-ports.cjs" 1)"
   "${PG_RUN_AS[@]}" "$PG_BIN/initdb" -D "$PG_DIR/data" -U duffbank --auth=trust --encoding=UTF8 \
     --locale-provider=icu --icu-locale=en-US --locale=C.UTF-8 >"$PG_DIR/initdb.log" 2>&1 </dev/null || {
     cat "$PG_DIR/initdb.log" >&2

@@ -5,7 +5,7 @@ import { spawn } from "node:child_process";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import { ensureBuild, freePort, ROOT, stop as stopGroup, waitFor } from "../helpers/processes";
+import { ensureBuild, freePorts, ROOT, stop as stopGroup, waitFor } from "../helpers/processes";
 
 export interface RunningApp {
   base: string;
@@ -17,7 +17,7 @@ export async function startApp(env: Record<string, string>): Promise<RunningApp>
   ensureBuild("bench", process.env.BENCH_BUILD === "1");
   // Every fake on a port of its own, so a second app process (BENCH_HTTP_PROCESSES) does not
   // collide with the first one's fakes and take its whole process group down with it.
-  const [app, smtp, inbox, stripe, cloudinary, geocoder] = [await freePort(), await freePort(), await freePort(), await freePort(), await freePort(), await freePort()];
+  const [app, smtp, inbox, stripe, cloudinary, geocoder] = await freePorts(6);
   const base = `http://127.0.0.1:${app}`;
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "duffbank-bench-app-"));
   const child = spawn("bash", ["tests/e2e/serve.sh"], {

@@ -15,12 +15,9 @@ if [ ! -x "$CHROMIUM" ]; then
 fi
 export CHROMIUM_PATH="$CHROMIUM"
 
-# Free ports for this run, so a dev server on the usual ones does not get in the way.
-read -r E2E_PORT SMTP_PORT INBOX_PORT STRIPE_FAKE_PORT CLOUDINARY_FAKE_PORT GEOCODER_FAKE_PORT < <(node -e '
-  const net = require("net");
-  const one = () => new Promise((r) => { const s = net.createServer(); s.listen(0, "127.0.0.1", () => { const p = s.address().port; s.close(() => r(p)); }); });
-  (async () => { const ps = []; for (let i = 0; i < 6; i++) ps.push(await one()); console.log(ps.join(" ")); })();
-')
+# Free ports for this run, so a dev server on the usual ones does not get in the way; from
+# below the ephemeral range, so no client connection takes one before its server binds it.
+read -r E2E_PORT SMTP_PORT INBOX_PORT STRIPE_FAKE_PORT CLOUDINARY_FAKE_PORT GEOCODER_FAKE_PORT < <(node tests/helpers/free-ports.cjs 6)
 export E2E_PORT SMTP_PORT INBOX_PORT STRIPE_FAKE_PORT CLOUDINARY_FAKE_PORT GEOCODER_FAKE_PORT
 # Place search asks the local Photon-compatible fake after the gazetteer, as production asks a real service.
 export GEOCODER_URL="http://127.0.0.1:$GEOCODER_FAKE_PORT"
@@ -46,4 +43,13 @@ export DUFFBANK_CLOCK_FILE="$E2E_DIR/clock" WORKER_INTERVAL_MS=1000
 if [ "${E2E_SKIP_BUILD:-}" != "1" ]; then
   npx next build
 fi
+set +e
 npx playwright test "$@"
+rc=$?
+set -e
+# CI keeps only the end of a long log: end with what the server said, where it said why it stopped.
+if [ "$rc" != "0" ] && [ -f "$E2E_DIR/server.log" ]; then
+  echo "[e2e] failed; the last lines the server printed ($E2E_DIR/server.log):"
+  tail -n 60 "$E2E_DIR/server.log" | cut -c1-400
+fi
+exit "$rc"

@@ -3,7 +3,7 @@
 // makes, the headers, the sign-in limits through next-auth's own routes, answers that do
 // not reveal who has an account, and a production start that refuses to run without secrets.
 import { spawn } from "node:child_process";
-import net from "node:net";
+import { freePort } from "../helpers/free-ports.cjs";
 import { expect, test, type Browser } from "./fixtures";
 import { DEMO, DEMO_PASSWORD } from "./roles";
 import { SECRETS } from "../../lib/env";
@@ -159,12 +159,7 @@ test("failed sign-ins to one account are limited: 429 from next-auth's route, an
 });
 
 test("a production start without secrets refuses to start and names each one to set", async () => {
-  const port = await new Promise<number>((resolve) => {
-    const s = net.createServer().listen(0, "127.0.0.1", () => {
-      const p = (s.address() as net.AddressInfo).port;
-      s.close(() => resolve(p));
-    });
-  });
+  const port = await freePort();
   const child = spawn(process.execPath, ["node_modules/next/dist/bin/next", "start", "-p", String(port)], {
     env: { PATH: process.env.PATH ?? "", HOME: process.env.HOME ?? "/tmp", NODE_ENV: "production", NEXT_TELEMETRY_DISABLED: "1" },
   });

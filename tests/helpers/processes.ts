@@ -3,20 +3,12 @@
 // everything it started.
 import { spawnSync, type ChildProcess } from "node:child_process";
 import fs from "node:fs";
-import net from "node:net";
 import path from "node:path";
 
 export const ROOT = path.resolve(__dirname, "../..");
 
-export function freePort(): Promise<number> {
-  return new Promise((resolve) => {
-    const s = net.createServer();
-    s.listen(0, "127.0.0.1", () => {
-      const port = (s.address() as net.AddressInfo).port;
-      s.close(() => resolve(port));
-    });
-  });
-}
+/** A port for a server to bind, from below the ephemeral range (see free-ports.cjs). */
+export { freePort, freePorts } from "./free-ports.cjs";
 
 /** A production build to serve: the one there is, or a new one (`force`, or none yet). */
 export function ensureBuild(label: string, force = false): void {

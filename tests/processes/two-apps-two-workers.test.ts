@@ -10,7 +10,7 @@ import { spawn, type ChildProcess } from "node:child_process";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { encode } from "next-auth/jwt";
 import { freshDb, type TestDb } from "../helpers/db";
-import { ensureBuild, freePort, ROOT, stop, waitFor } from "../helpers/processes";
+import { ensureBuild, freePorts, ROOT, stop, waitFor } from "../helpers/processes";
 import { createListing, createUser, listingQuantities } from "../factories";
 import { startSmtpFake, type SmtpFake } from "@/lib/fakes/smtp/server";
 import { startSession } from "@/lib/auth/sessions";
@@ -40,6 +40,7 @@ describe.skipIf(!process.env.DATABASE_URL)("two app processes and two workers on
     ensureBuild("processes");
     ctx = await freshDb({ materials: true });
     smtp = await startSmtpFake({ smtpPort: 0, httpPort: 0 });
+    const [stripePort, ...appPorts] = await freePorts(3);
     const shared = {
       ...ctx.env,
       NODE_ENV: "production",
@@ -47,11 +48,11 @@ describe.skipIf(!process.env.DATABASE_URL)("two app processes and two workers on
       LOCATION_SECRET: "two-apps-two-workers-location-secret",
       STRIPE_WEBHOOK_SECRET: "whsec_two_apps_two_workers_not_the_demo_one",
       SMTP_PORT: String(smtp.smtpPort),
-      STRIPE_FAKE_PORT: String(await freePort()),
+      STRIPE_FAKE_PORT: String(stripePort),
       WORKER_INTERVAL_MS: "300",
     };
     for (let i = 0; i < 2; i++) {
-      const port = await freePort();
+      const port = appPorts[i];
       const base = `http://127.0.0.1:${port}`;
       apps.push(base);
       start("start:app", { ...shared, PORT: String(port), NEXTAUTH_URL: base, APP_URL: base });

@@ -1,0 +1,2 @@
+export declare function freePorts(count: number): Promise<number[]>;
+export declare function freePort(): Promise<number>;
