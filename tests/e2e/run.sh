@@ -50,6 +50,6 @@ set -e
 # CI keeps only the end of a long log: end with what the server said, where it said why it stopped.
 if [ "$rc" != "0" ] && [ -f "$E2E_DIR/server.log" ]; then
   echo "[e2e] failed; the last lines the server printed ($E2E_DIR/server.log):"
-  tail -n 60 "$E2E_DIR/server.log" | cut -c1-400
+  tail -n 60 "$E2E_DIR/server.log" | sed "s/\x1b\[[0-9;]*m//g" | cut -c1-400
 fi
 exit "$rc"
