@@ -11,43 +11,45 @@ import { pruneSecurityRecords } from "@/lib/services/accounts/prune-security-rec
 import { alertDueListings } from "@/lib/services/needs/alert-needs";
 import { sendNeedDigests } from "@/lib/services/needs/send-need-digests";
 import { expireOpenNeeds } from "@/lib/services/needs/close-needs";
+import { systemClock } from "@/lib/time/clock";
 
-import type { Clock } from "@/lib/time/clock";
-export type { Clock };
+import type { Context } from "@/lib/services/context";
 
-/** What a running worker gives each job: a signal that says "stop taking new work", and its name for claims. */
-export interface JobContext {
-  signal?: AbortSignal;
-  workerId?: string;
-}
+/** What the worker gives each job: the services' context (its database, its clock, the signal
+ * that says "stop taking new work") and its own name, for the rows it claims. */
+export type JobContext = Context & { workerId?: string };
 
 export interface Job {
   name: string;
   everyMs: number;
-  run: (clock: Clock, ctx?: JobContext) => Promise<unknown>;
+  run: (ctx: JobContext) => Promise<unknown>;
 }
 
 // Background work; each job keeps its state in the database, so a restart loses nothing.
 export const jobs: Job[] = [
-  { name: "deliver-outbox", everyMs: 2_000, run: (clock, ctx) => deliverOutbox(clock, ctx) },
+  { name: "deliver-outbox", everyMs: 2_000, run: (ctx) => deliverOutbox(ctx.clock, ctx) },
   // Reads already treat a listing past its end date as expired; this makes the row say so.
-  { name: "expire-listings", everyMs: 60_000, run: (clock) => expireListings(clock) },
-  { name: "bed-reminders", everyMs: 60_000, run: (clock) => sendBedReminders(clock) },
-  { name: "expire-holds", everyMs: 15_000, run: (clock) => expireHolds(clock) },
+  { name: "expire-listings", everyMs: 60_000, run: (ctx) => expireListings(ctx.clock) },
+  { name: "bed-reminders", everyMs: 60_000, run: (ctx) => sendBedReminders(ctx.clock) },
+  { name: "expire-holds", everyMs: 15_000, run: (ctx) => expireHolds(ctx.clock, ctx.db) },
   // Giveaway bookings whose no-show deposit was not put down within the hold.
-  { name: "expire-giveaway-deposits", everyMs: 15_000, run: (clock) => expireGiveawayDepositHolds(clock) },
-  { name: "reservation-reminders", everyMs: 60_000, run: (clock) => sendReservationReminders(clock) },
+  { name: "expire-giveaway-deposits", everyMs: 15_000, run: (ctx) => expireGiveawayDepositHolds(ctx.clock, ctx.db) },
+  { name: "reservation-reminders", everyMs: 60_000, run: (ctx) => sendReservationReminders(ctx.clock, ctx.db) },
   // Listings posted, restocked, changed or come into their dates, against the open needs
   // (the services alert at once; this is the net, and the only path for a start date arriving).
-  { name: "alert-needs", everyMs: 30_000, run: (clock, ctx) => alertDueListings(clock, {}, ctx?.signal) },
+  { name: "alert-needs", everyMs: 30_000, run: (ctx) => alertDueListings(ctx.clock, { db: ctx.db }, ctx.signal) },
   // Daily alerts: one e-mail a person, at most once in 24 hours.
-  { name: "need-digests", everyMs: 5 * 60_000, run: (clock, ctx) => sendNeedDigests(clock, {}, ctx?.signal) },
-  { name: "expire-needs", everyMs: 10 * 60_000, run: (clock) => expireOpenNeeds(clock) },
+  { name: "need-digests", everyMs: 5 * 60_000, run: (ctx) => sendNeedDigests(ctx.clock, { db: ctx.db }, ctx.signal) },
+  { name: "expire-needs", everyMs: 10 * 60_000, run: (ctx) => expireOpenNeeds(ctx.clock, ctx.db) },
   // Ended sessions and spent rate-limit windows are kept a while for support, then dropped.
-  { name: "prune-security-records", everyMs: 60 * 60_000, run: () => pruneSecurityRecords() },
+  { name: "prune-security-records", everyMs: 60 * 60_000, run: (ctx) => pruneSecurityRecords(ctx.db) },
   // Owed Stripe calls, then the lost-webhook net: checkouts still open after a few minutes
   // are checked against Stripe's record and brought up to it.
-  { name: "settle-payments", everyMs: 5_000, run: async (clock, ctx) => ({ ...(await settlePayments(clock, undefined, ctx)), ...(await recoverOpenPayments(clock)) }) },
+  {
+    name: "settle-payments",
+    everyMs: 5_000,
+    run: async (ctx) => ({ ...(await settlePayments(ctx.clock, ctx.db, ctx)), ...(await recoverOpenPayments(ctx.clock, ctx.db)) }),
+  },
   // First answers kept for Idempotency-Key retries live a day.
-  { name: "prune-idempotency-keys", everyMs: 60 * 60_000, run: async (clock) => ({ pruned: await pruneIdempotencyKeys(clock().toISOString()) }) },
+  { name: "prune-idempotency-keys", everyMs: 60 * 60_000, run: async (ctx) => ({ pruned: await pruneIdempotencyKeys((ctx.clock ?? systemClock)().toISOString(), ctx.db) }) },
 ];

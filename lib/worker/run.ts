@@ -9,7 +9,8 @@ import "../env-files";
 import fs from "node:fs";
 import { db } from "@/db/index";
 import { checkStartup, readEnv } from "@/lib/env";
-import { jobs, type Clock } from "./jobs";
+import { jobs } from "./jobs";
+import type { Clock } from "@/lib/time/clock";
 import { STOP_GRACE_MS, startWorker } from "./runner";
 
 checkStartup("worker");
@@ -32,7 +33,7 @@ async function once(names: string[]) {
   for (const name of names) {
     const job = jobs.find((j) => j.name === name);
     if (!job) throw new Error(`no job called ${name}; jobs: ${jobs.map((j) => j.name).join(", ")}`);
-    console.log(`[worker] ${name}: ${JSON.stringify(await job.run(clock, {}))}`);
+    console.log(`[worker] ${name}: ${JSON.stringify(await job.run({ clock }))}`);
   }
 }
 

@@ -10,7 +10,8 @@ import { setTimeout as sleep } from "node:timers/promises";
 import { beat, pruneBeats, removeBeat } from "@/db/heartbeats";
 import { releaseClaims } from "@/db/outbox";
 import { markAccepted, messagesInFlight } from "@/lib/mail/deliver-outbox";
-import type { Clock, Job } from "./jobs";
+import type { Job } from "./jobs";
+import type { Clock } from "@/lib/time/clock";
 
 export const STOP_GRACE_MS = 20_000;
 export const HEARTBEAT_EVERY_MS = 10_000;
@@ -48,7 +49,7 @@ export function startWorker(opts: WorkerOptions): RunningWorker {
   async function loop(job: Job) {
     while (!stopping.signal.aborted) {
       try {
-        await job.run(opts.clock, { signal: stopping.signal, workerId: id });
+        await job.run({ clock: opts.clock, signal: stopping.signal, workerId: id });
       } catch (err) {
         console.error(`[worker] ${job.name} failed:`, (err as Error).message);
       }

@@ -13,7 +13,7 @@ async function main() {
   await db().raw("select 1"); // connect before the start line, so every process is ready at once
   await new Promise((r) => setTimeout(r, Math.max(0, Number(process.env.START_AT) - Date.now())));
   const results: Record<string, unknown> = {};
-  for (const name of names) results[name] = await jobs.find((j) => j.name === name)!.run(clock);
+  for (const name of names) results[name] = await jobs.find((j) => j.name === name)!.run({ clock });
   process.stdout.write(JSON.stringify(results));
   await db().destroy();
 }

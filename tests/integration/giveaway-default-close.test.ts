@@ -7,7 +7,7 @@ import { createUser, giveawayBody } from "../factories";
 import { ApiError } from "@/lib/api/errors";
 import { createGiveaway } from "@/lib/services/giveaways/create-giveaway";
 import { bookGiveaway } from "@/lib/services/giveaways/book-giveaway";
-import type { CouncilContext } from "@/lib/auth/council-access";
+import type { CouncilStaff } from "@/lib/auth/council-access";
 import { createGiveawaySchema } from "@/lib/validation/giveaways";
 
 // A January day: Europe/London is on UTC, so local times read the same as the instants.
@@ -15,7 +15,7 @@ const DAY = "2027-01-16";
 const at = (iso: string) => () => new Date(iso);
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
-let council: CouncilContext;
+let council: CouncilStaff;
 
 beforeAll(async () => {
   ctx = await freshDb({ materials: true });

@@ -7,10 +7,10 @@ import { freshDb } from "../helpers/db";
 import { seedId } from "@/seeds/ids";
 import { councilDemand } from "@/lib/services/needs/council-demand";
 import { cellOf } from "@/lib/needs/grid";
-import type { CouncilContext } from "@/lib/auth/council-access";
+import type { CouncilStaff } from "@/lib/auth/council-access";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
-const council: CouncilContext = { userId: seedId("user:council"), organisationId: seedId("org:council"), organisationName: "Fernhollow Town Council", isOwner: true };
+const council: CouncilStaff = { userId: seedId("user:council"), organisationId: seedId("org:council"), organisationName: "Fernhollow Town Council", isOwner: true };
 const clock = () => new Date("2026-12-03T09:00:00Z");
 
 beforeAll(async () => {

@@ -70,7 +70,7 @@ describe("hold expiry", () => {
     const l = await createListing({ quantity_total: 5 });
     const r = await holdOne(l.id, 1);
     const job = jobs.find((j) => j.name === "expire-holds")!;
-    await job.run(() => new Date(new Date(r.hold_expires_at).getTime() + 1));
+    await job.run({ clock: () => new Date(new Date(r.hold_expires_at).getTime() + 1) });
     expect((await db()("reservations").first("status").where({ id: r.id })).status).toBe("expired");
   });
 });

@@ -117,11 +117,11 @@ describe("the worker's settle-payments job", () => {
     const t0 = new Date(r.created_at).getTime();
 
     // Too soon to ask: Stripe is normally heard from within seconds.
-    await settle.run(() => new Date(t0 + minutes(RECOVER_AFTER_MINUTES) - 30_000));
+    await settle.run({ clock: () => new Date(t0 + minutes(RECOVER_AFTER_MINUTES) - 30_000) });
     expect((await charge(r.id)).status).toBe("open");
 
     const at = new Date(t0 + minutes(RECOVER_AFTER_MINUTES) + 1000);
-    expect(await settle.run(() => at)).toMatchObject({ checked: 1, changed: 1 });
+    expect(await settle.run({ clock: () => at })).toMatchObject({ checked: 1, changed: 1 });
     const after = await reservation(r.id);
     // Exactly what the webhook would have done: paid, and the supplier now has 48 hours.
     expect(after).toMatchObject({ status: "held", payment_state: "paid" });
@@ -133,7 +133,7 @@ describe("the worker's settle-payments job", () => {
 
     // The real events arriving late, and the job running again, are both no-ops.
     await deliverEvents(eventsAbout(r.id, sessionId));
-    expect(await settle.run(() => new Date(at.getTime() + minutes(10)))).toMatchObject({ checked: 0, changed: 0 });
+    expect(await settle.run({ clock: () => new Date(at.getTime() + minutes(10)) })).toMatchObject({ checked: 0, changed: 0 });
     expect(await mailKeys(r.id)).toEqual(["res:ID:receipt:gardener", "res:ID:requested:gardener", "res:ID:requested:supplier"]);
     expect(await db()("payments").where({ reservation_id: r.id })).toHaveLength(1);
     expect(await reconcilePayments()).toEqual([]);
@@ -146,9 +146,9 @@ describe("the worker's settle-payments job", () => {
     const res = await call(reserve, await request("/api/reservations", { body: { listing_id: l.id, quantity: 1 }, as: gardener.id }));
     const id = res.json.reservation.id as string;
     const t0 = new Date(res.json.reservation.created_at).getTime() + minutes(RECOVER_AFTER_MINUTES) + 1000;
-    expect(await settle.run(() => new Date(t0))).toMatchObject({ checked: 1, changed: 0 });
-    expect(await settle.run(() => new Date(t0 + minutes(RECHECK_MINUTES) - 1000))).toMatchObject({ checked: 0 });
-    expect(await settle.run(() => new Date(t0 + minutes(RECHECK_MINUTES) + 1000))).toMatchObject({ checked: 1, changed: 0 });
+    expect(await settle.run({ clock: () => new Date(t0) })).toMatchObject({ checked: 1, changed: 0 });
+    expect(await settle.run({ clock: () => new Date(t0 + minutes(RECHECK_MINUTES) - 1000) })).toMatchObject({ checked: 0 });
+    expect(await settle.run({ clock: () => new Date(t0 + minutes(RECHECK_MINUTES) + 1000) })).toMatchObject({ checked: 1, changed: 0 });
     expect(await charge(id)).toMatchObject({ status: "open" });
     expect(await reservation(id)).toMatchObject({ status: "held", payment_state: "awaiting" });
   });

@@ -131,7 +131,7 @@ describe("tidying up", () => {
     await db()("sessions").where({ id: ended.token.sid as string }).update({ ended_at: old, ended_reason: "sign_out" });
     // A worker clock moved far ahead (as the end-to-end run does) must not reach the sessions.
     const farAhead = () => new Date(Date.now() + 400 * 86_400_000);
-    await prune.run(farAhead);
+    await prune.run({ clock: farAhead });
     expect(await db()("sessions").where({ id: ended.token.sid as string })).toHaveLength(0);
     expect(await getMe(going.cookie)).toBe(200);
   });

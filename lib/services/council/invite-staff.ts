@@ -9,11 +9,11 @@ import { recordAudit } from "@/db/audit";
 import { ApiError } from "@/lib/api/errors";
 import { appUrl } from "@/lib/env";
 import { readableDateTime, DEFAULT_TIME_ZONE } from "@/lib/time/zoned";
-import type { CouncilContext } from "@/lib/auth/council-access";
+import type { CouncilStaff } from "@/lib/auth/council-access";
 import { INVITE_TTL_DAYS, hashToken, InviteView, inviteView } from "@/lib/council/invites";
 
 /** The owner invites a colleague: a single-use link by e-mail, through the outbox in the same transaction. */
-export async function inviteStaff(ctx: CouncilContext, inviterName: string, rawEmail: string, clock: () => Date = () => new Date()): Promise<InviteView> {
+export async function inviteStaff(ctx: CouncilStaff, inviterName: string, rawEmail: string, clock: () => Date = () => new Date()): Promise<InviteView> {
   const email = normaliseEmail(rawEmail);
   const existing = await findUserByEmail(email);
   if (existing) {

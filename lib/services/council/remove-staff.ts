@@ -5,10 +5,10 @@ import { removeMembership } from "@/db/invites";
 import { membershipsOf, removeRole } from "@/db/users";
 import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
-import type { CouncilContext } from "@/lib/auth/council-access";
+import type { CouncilStaff } from "@/lib/auth/council-access";
 
 /** The owner removes a staff member: the membership goes, and the council role with it. */
-export async function removeStaff(ctx: CouncilContext, userId: string) {
+export async function removeStaff(ctx: CouncilStaff, userId: string) {
   if (userId === ctx.userId) throw new ApiError("invalid_state", "You cannot remove yourself; the account owner stays.");
   return writeTransaction(db(), async (trx) => {
     const member = (await membershipsOf(userId, trx)).find((m) => m.organisation_id === ctx.organisationId);

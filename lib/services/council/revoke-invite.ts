@@ -4,10 +4,10 @@ import { writeTransaction } from "@/db/write-transaction";
 import { closeInvites, findOrgInvite } from "@/db/invites";
 import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
-import type { CouncilContext } from "@/lib/auth/council-access";
+import type { CouncilStaff } from "@/lib/auth/council-access";
 import { InviteView, inviteView } from "@/lib/council/invites";
 
-export async function revokeInvite(ctx: CouncilContext, inviteId: string): Promise<InviteView> {
+export async function revokeInvite(ctx: CouncilStaff, inviteId: string): Promise<InviteView> {
   return writeTransaction(db(), async (trx) => {
     const before = await findOrgInvite(inviteId, ctx.organisationId, trx);
     if (!before) throw notFound("That invitation");

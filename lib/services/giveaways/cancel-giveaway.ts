@@ -12,11 +12,11 @@ import { staffDayView } from "@/lib/giveaways/view";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import type { DepositStatus } from "@/db/types";
 import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaways/giveaway-deposit";
-import type { CouncilContext } from "@/lib/auth/council-access";
+import type { CouncilStaff } from "@/lib/auth/council-access";
 import { formatMoney } from "@/lib/format/money";
 
 /** Calls a day off: every live booking is cancelled, its deposit released, its household e-mailed — all or nothing. */
-export async function cancelGiveaway(ctx: CouncilContext, dayId: string, reason: string, clock: () => Date = () => new Date()) {
+export async function cancelGiveaway(ctx: CouncilStaff, dayId: string, reason: string, clock: () => Date = () => new Date()) {
   const result = await writeTransaction(db(), async (trx) => {
     if (!(await cancelOrgDay(dayId, ctx.organisationId, reason, trx))) {
       if (!(await findOrgDay(dayId, ctx.organisationId, trx))) throw notFound("That giveaway day");

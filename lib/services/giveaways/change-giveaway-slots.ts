@@ -7,9 +7,9 @@ import type { SlotInput } from "@/lib/validation/giveaways";
 import { slotView, type SlotView } from "@/lib/giveaways/view";
 import { slotInstants } from "@/lib/giveaways/slots";
 import { scheduledOrgDay } from "@/lib/services/giveaways/update-giveaway";
-import type { CouncilContext } from "@/lib/auth/council-access";
+import type { CouncilStaff } from "@/lib/auth/council-access";
 
-export async function addGiveawaySlots(ctx: CouncilContext, dayId: string, slots: SlotInput[]): Promise<SlotView[]> {
+export async function addGiveawaySlots(ctx: CouncilStaff, dayId: string, slots: SlotInput[]): Promise<SlotView[]> {
   return writeTransaction(db(), async (trx) => {
     const day = await scheduledOrgDay(ctx, dayId, trx);
     const ids = await insertSlots(dayId, slotInstants(day.date, day.time_zone, slots), trx);

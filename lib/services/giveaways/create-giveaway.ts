@@ -7,11 +7,11 @@ import { ApiError } from "@/lib/api/errors";
 import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import type { CreateGiveawayInput } from "@/lib/validation/giveaways";
 import { staffDayView } from "@/lib/giveaways/view";
-import type { CouncilContext } from "@/lib/auth/council-access";
+import type { CouncilStaff } from "@/lib/auth/council-access";
 import { defaultBookingClose , slotInstants , assertNotPast } from "@/lib/giveaways/slots";
 
 
-export async function createGiveaway(ctx: CouncilContext, input: CreateGiveawayInput, clock: () => Date = () => new Date()) {
+export async function createGiveaway(ctx: CouncilStaff, input: CreateGiveawayInput, clock: () => Date = () => new Date()) {
   const now = clock();
   assertNotPast(input.date, input.time_zone, now);
   const opens = input.booking_opens_at ?? now.toISOString();

@@ -2,11 +2,11 @@ import "server-only";
 import { findOrgDay, sheetFor, slotsOf } from "@/db/giveaways";
 import { notFound } from "@/lib/api/errors";
 import { staffDayView } from "@/lib/giveaways/view";
-import type { CouncilContext } from "@/lib/auth/council-access";
+import type { CouncilStaff } from "@/lib/auth/council-access";
 import { DaySheet } from "@/lib/giveaways/sheet-csv";
 
 /** The day with everyone booked on it, for the printed sheet, the CSV and the check-in page. */
-export async function daySheet(ctx: CouncilContext, dayId: string): Promise<DaySheet> {
+export async function daySheet(ctx: CouncilStaff, dayId: string): Promise<DaySheet> {
   const day = await findOrgDay(dayId, ctx.organisationId);
   if (!day) throw notFound("That giveaway day");
   const [slots, bookings] = await Promise.all([slotsOf([dayId]), sheetFor(dayId)]);

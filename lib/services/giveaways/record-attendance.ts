@@ -7,7 +7,7 @@ import type { DepositStatus, GiveawayBookingRow } from "@/db/types";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import { readableDateTime } from "@/lib/time/zoned";
-import type { CouncilContext } from "@/lib/auth/council-access";
+import type { CouncilStaff } from "@/lib/auth/council-access";
 import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaways/giveaway-deposit";
 
 type Attendance = "checked_in" | "booked" | "no_show";
@@ -18,7 +18,7 @@ type Attendance = "checked_in" | "booked" | "no_show";
  * is released on arrival; after the slot has ended, a no-show's hold is captured (kept).
  * Kept money is not handed back by undoing the mark.
  */
-export async function recordAttendance(ctx: CouncilContext, dayId: string, bookingId: string, status: Attendance, clock: () => Date = () => new Date()) {
+export async function recordAttendance(ctx: CouncilStaff, dayId: string, bookingId: string, status: Attendance, clock: () => Date = () => new Date()) {
   const at = clock();
   const result = await writeTransaction(db(), async (trx) => {
     const day = await findOrgDay(dayId, ctx.organisationId, trx);

@@ -5,9 +5,9 @@ import { deleteEmptySlot, findSlot } from "@/db/giveaways";
 import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { scheduledOrgDay } from "@/lib/services/giveaways/update-giveaway";
-import type { CouncilContext } from "@/lib/auth/council-access";
+import type { CouncilStaff } from "@/lib/auth/council-access";
 
-export async function removeGiveawaySlot(ctx: CouncilContext, dayId: string, slotId: string): Promise<void> {
+export async function removeGiveawaySlot(ctx: CouncilStaff, dayId: string, slotId: string): Promise<void> {
   await writeTransaction(db(), async (trx) => {
     await scheduledOrgDay(ctx, dayId, trx);
     const before = await findSlot(slotId, dayId, trx);

@@ -6,9 +6,9 @@ import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { slotView, type SlotView } from "@/lib/giveaways/view";
 import { scheduledOrgDay } from "@/lib/services/giveaways/update-giveaway";
-import type { CouncilContext } from "@/lib/auth/council-access";
+import type { CouncilStaff } from "@/lib/auth/council-access";
 
-export async function resizeGiveawaySlot(ctx: CouncilContext, dayId: string, slotId: string, capacity: number): Promise<SlotView> {
+export async function resizeGiveawaySlot(ctx: CouncilStaff, dayId: string, slotId: string, capacity: number): Promise<SlotView> {
   return writeTransaction(db(), async (trx) => {
     await scheduledOrgDay(ctx, dayId, trx);
     const before = await findSlot(slotId, dayId, trx);

@@ -10,7 +10,7 @@ import { wallTime, zonedToUtc } from "@/lib/time/zoned";
 import { giveawayQuantityIssue, type UpdateGiveawayInput } from "@/lib/validation/giveaways";
 import { staffDayView } from "@/lib/giveaways/view";
 import { assertNotPast } from "@/lib/giveaways/slots";
-import type { CouncilContext } from "@/lib/auth/council-access";
+import type { CouncilStaff } from "@/lib/auth/council-access";
 
 /** Once anyone has booked, these would change what they booked, so they stay as they are. */
 const FIXED_ONCE_BOOKED = ["date", "time_zone", "material", "unit", "bag_m3"] as const;
@@ -19,14 +19,14 @@ const FIXED_ONCE_BOOKED = ["date", "time_zone", "material", "unit", "bag_m3"] as
  * A day of the council's own, found and held inside `trx` (a booking waits for the change, and
  * the change sees every booking made before it): another council's day is a 404, a cancelled one a 409.
  */
-export async function scheduledOrgDay(ctx: CouncilContext, dayId: string, trx: Parameters<typeof findOrgDay>[2]) {
+export async function scheduledOrgDay(ctx: CouncilStaff, dayId: string, trx: Parameters<typeof findOrgDay>[2]) {
   const day = await findOrgDay(dayId, ctx.organisationId, trx, { lock: true });
   if (!day) throw notFound("That giveaway day");
   if (day.status !== "scheduled") throw new ApiError("invalid_state", "That day has been cancelled and can no longer change.");
   return day;
 }
 
-export async function updateGiveaway(ctx: CouncilContext, dayId: string, input: UpdateGiveawayInput, clock: () => Date = () => new Date()) {
+export async function updateGiveaway(ctx: CouncilStaff, dayId: string, input: UpdateGiveawayInput, clock: () => Date = () => new Date()) {
   return writeTransaction(db(), async (trx) => {
     const before = await scheduledOrgDay(ctx, dayId, trx);
     const slots = await slotsOf([dayId], trx);

@@ -5,7 +5,7 @@ import { distanceKm } from "@/lib/match/geo";
 import { demandCells, demandSummary, MIN_PEOPLE, suggestGiveaway, SUGGESTED_MATERIALS } from "@/lib/needs/demand";
 import { cellOf, MIN_CELL_AREA_KM2 } from "@/lib/needs/grid";
 import { DEFAULT_CENTER } from "@/lib/geo/default-center";
-import type { CouncilContext } from "@/lib/auth/council-access";
+import type { CouncilStaff } from "@/lib/auth/council-access";
 import { dayOf, resolveContext, type NeedsContext } from "@/lib/services/needs/context";
 import { toDemandRow } from "@/lib/services/needs/nearby-demand";
 import { CouncilDemand } from "@/lib/needs/demand-csv";
@@ -14,7 +14,7 @@ import { CouncilDemand } from "@/lib/needs/demand-csv";
 export const COUNCIL_DEMAND_RADIUS_KM = 25;
 
 /** Where the council's last giveaway day was, or the map's default, when the desk gives no point. */
-async function councilCentre(ctx: CouncilContext, q: ReturnType<typeof resolveContext>["q"]) {
+async function councilCentre(ctx: CouncilStaff, q: ReturnType<typeof resolveContext>["q"]) {
   const day = await q("giveaway_days").first("lat", "lng").where({ organisation_id: ctx.organisationId }).orderBy("date", "desc");
   return day ? { lat: Number(day.lat), lng: Number(day.lng) } : DEFAULT_CENTER;
 }
@@ -25,7 +25,7 @@ async function councilCentre(ctx: CouncilContext, q: ReturnType<typeof resolveCo
  * a giveaway day of leaves, chips or compost would serve the most of them.
  */
 export async function councilDemand(
-  council: CouncilContext,
+  council: CouncilStaff,
   query: { material: MaterialCode; lat?: number; lng?: number; radius_km?: number },
   ctx: NeedsContext = {},
 ): Promise<CouncilDemand> {
