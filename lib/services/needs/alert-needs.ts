@@ -15,7 +15,8 @@ import type { AlertLine } from "@/lib/mail/templates/need-alerts";
 import type { ListingUnit } from "@/lib/match/types";
 import { needsReaching, type AlertingListing, type ReachedNeed } from "@/lib/needs/reaching";
 import { DUE_NOW } from "@/migrations/20261208_020_open_needs";
-import { dayOf, resolveContext, type NeedsContext } from "@/lib/services/needs/context";
+import { resolveContext, type Context } from "@/lib/services/context";
+import { dayOf } from "@/lib/services/needs/context";
 
 // When a listing is posted, restocked or comes into its dates, every open need it could
 // serve gets one alert: an in-app notice (the need_alerts row) and an e-mail through the
@@ -138,8 +139,8 @@ export interface FanOut {
  * not alerted before. The listing's due mark is taken first, so a change that lands while
  * this runs marks it due again and is looked at on the next run.
  */
-export async function alertNeedsFor(listingId: string, ctx: NeedsContext = {}): Promise<FanOut> {
-  const { q, clock } = resolveContext(ctx);
+export async function alertNeedsFor(listingId: string, ctx: Context = {}): Promise<FanOut> {
+  const { db: q, clock } = resolveContext(ctx);
   const now = clock();
   const l = await findListing(listingId, q);
   if (!l) return { alerted: 0, matched_gardeners: 0 };
@@ -167,20 +168,20 @@ export async function alertNeedsFor(listingId: string, ctx: NeedsContext = {}): 
 }
 
 /** After a service changed a listing: alert at once if the change made it due (the worker is the safety net). */
-export async function alertIfDue(listingId: string, ctx: NeedsContext = {}): Promise<void> {
-  const { q, clock } = resolveContext(ctx);
+export async function alertIfDue(listingId: string, ctx: Context = {}): Promise<void> {
+  const { db: q, clock } = resolveContext(ctx);
   const row = await q("listings").first("needs_due_at").where({ id: listingId });
   if (!row?.needs_due_at || new Date(row.needs_due_at).getTime() > clock().getTime()) return;
   try {
-    await alertNeedsFor(listingId, ctx);
+    await alertNeedsFor(listingId, { db: q, clock });
   } catch (err) {
     console.error(`[needs] alerts for listing ${listingId} left to the worker:`, (err as Error).message);
   }
 }
 
 /** Worker job: every listing whose check is due (posted, restocked, changed, or come into its dates). */
-export async function alertDueListings(clock: () => Date = () => new Date(), ctx: NeedsContext = {}, signal?: AbortSignal): Promise<{ listings: number; alerted: number }> {
-  const { q } = resolveContext(ctx);
+export async function alertDueListings(ctx: Context = {}): Promise<{ listings: number; alerted: number }> {
+  const { db: q, clock, signal } = resolveContext(ctx);
   const now = clock();
   const ids: string[] = await q("listings").whereNotNull("needs_due_at").andWhere("needs_due_at", "<=", now.toISOString()).orderBy("needs_due_at").limit(50).pluck("id");
   let alerted = 0;

@@ -1,13 +1,14 @@
 import "server-only";
 import type { Db } from "@/db/index";
-import { db } from "@/db/index";
 import { expireNeeds, moveNeedStatus, needsLinkedTo, reservationsCounting } from "@/db/needs";
 import type { ReservationRow } from "@/db/types";
 import { coverage, isMet } from "@/lib/needs/coverage";
+import { resolveContext, type Context } from "@/lib/services/context";
 import { dayOf } from "@/lib/services/needs/context";
 
 /** Worker job: open needs whose date has passed close as expired. */
-export async function expireOpenNeeds(clock: () => Date = () => new Date(), q: Db = db()): Promise<number> {
+export async function expireOpenNeeds(ctx: Context = {}): Promise<number> {
+  const { db: q, clock } = resolveContext(ctx);
   const now = clock();
   return expireNeeds(dayOf(now), now.toISOString(), q);
 }

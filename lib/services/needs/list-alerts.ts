@@ -1,4 +1,5 @@
 import "server-only";
+import type { Knex } from "knex";
 import { packOf, type Pack } from "@/lib/listings/packs";
 import type { MaterialCode } from "@/lib/calc/facts";
 import type { ListingCaution } from "@/lib/calc/cautions";
@@ -6,7 +7,7 @@ import { datesState, effectiveStatus, quantityLeft } from "@/lib/listings/status
 import type { ListingUnit } from "@/lib/match/types";
 import type { NeedView } from "@/lib/needs/view";
 import type { ReserveOffer } from "@/lib/services/reservations/load-reserve-offer";
-import { resolveContext, type NeedsContext } from "@/lib/services/needs/context";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** An in-app notice: a listing that could serve one of my open needs (public facts about it only). */
 export interface AlertView {
@@ -86,7 +87,7 @@ export function toView(r: AlertJoin, now: Date): AlertView {
   };
 }
 
-export function alertQuery(q: ReturnType<typeof resolveContext>["q"], userId: string) {
+export function alertQuery(q: Knex, userId: string) {
   return q("need_alerts as a")
     .join("needs as n", "n.id", "a.need_id")
     .join("listings as l", "l.id", "a.listing_id")
@@ -126,8 +127,8 @@ export function alertQuery(q: ReturnType<typeof resolveContext>["q"], userId: st
 }
 
 /** GET /api/needs/alerts: my notices, newest first, for needs still open (or all of them). */
-export async function listAlerts(userId: string, opts: { openOnly?: boolean } = {}, ctx: NeedsContext = {}): Promise<AlertView[]> {
-  const { q, clock } = resolveContext(ctx);
+export async function listAlerts(userId: string, opts: { openOnly?: boolean } = {}, ctx: Context = {}): Promise<AlertView[]> {
+  const { db: q, clock } = resolveContext(ctx);
   const b = alertQuery(q, userId).orderBy([{ column: "a.created_at", order: "desc" }, { column: "a.id", order: "desc" }]).limit(200);
   if (opts.openOnly) b.andWhere("n.status", "open");
   const now = clock();

@@ -4,7 +4,8 @@ import { listOwnNeeds, reservationsCounting } from "@/db/needs";
 import type { NeedRow } from "@/db/types";
 import { coverage } from "@/lib/needs/coverage";
 import { presentNeed, type NeedView } from "@/lib/needs/view";
-import { dayOf, resolveContext, type NeedsContext } from "@/lib/services/needs/context";
+import { resolveContext, type Context } from "@/lib/services/context";
+import { dayOf } from "@/lib/services/needs/context";
 
 /** Needs as their owner sees them: what reservations cover, the bed's name, how many alerts. */
 export async function needViews(rows: NeedRow[], q: Knex, now: Date): Promise<NeedView[]> {
@@ -25,8 +26,8 @@ export async function needViews(rows: NeedRow[], q: Knex, now: Date): Promise<Ne
 }
 
 /** GET /api/needs: my needs, newest first (open ones only, or one bed's, when asked). */
-export async function listNeeds(userId: string, opts: { openOnly?: boolean; bedId?: string } = {}, ctx: NeedsContext = {}): Promise<NeedView[]> {
-  const { q, clock } = resolveContext(ctx);
+export async function listNeeds(userId: string, opts: { openOnly?: boolean; bedId?: string } = {}, ctx: Context = {}): Promise<NeedView[]> {
+  const { db: q, clock } = resolveContext(ctx);
   return needViews(await listOwnNeeds(userId, opts, q), q, clock());
 }
 

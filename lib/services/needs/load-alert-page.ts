@@ -4,15 +4,15 @@ import { findOwnNeed } from "@/db/needs";
 import { listingCautions } from "@/lib/calc/cautions";
 import { amountToReserve } from "@/lib/needs/coverage";
 import { loadReserveOffer } from "@/lib/services/reservations/load-reserve-offer";
-import { resolveContext, type NeedsContext } from "@/lib/services/needs/context";
+import { resolveContext, type Context } from "@/lib/services/context";
 import { needViews } from "@/lib/services/needs/list-needs";
 import { findListingFacts } from "@/db/listings";
 import { toView, alertQuery, AlertPage } from "@/lib/services/needs/list-alerts";
 import type { AlertJoin } from "@/lib/services/needs/list-alerts";
 
 /** The alert page: the notice, my need as it stands, the listing's reservable facts, and what one click takes. Marks it seen. */
-export async function loadAlertPage(userId: string, id: string, ctx: NeedsContext = {}): Promise<AlertPage | null> {
-  const { q, clock } = resolveContext(ctx);
+export async function loadAlertPage(userId: string, id: string, ctx: Context = {}): Promise<AlertPage | null> {
+  const { db: q, clock } = resolveContext(ctx);
   const now = clock();
   const row = (await alertQuery(q, userId).andWhere("a.id", id).first()) as AlertJoin | undefined;
   if (!row) return null;

@@ -3,6 +3,7 @@ import { nearestPlace, placesByPrefix, type PlaceHit } from "@/db/places";
 import { geocodeSearch } from "@/lib/geo/geocoder";
 import { comparePlaces, placeLabel } from "@/lib/geo/place-terms";
 import type { Place } from "@/lib/validation/places";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 // Finding a place by name: the local gazetteer first (towns, villages, streets, postcodes
 // with their points), then the geocoding service when one is configured, without the
@@ -12,8 +13,9 @@ export const placeView = (p: PlaceHit, source: Place["source"]): Place => ({ ...
 
 const sameSpot = (a: PlaceHit, b: PlaceHit) => placeLabel(a).toLowerCase() === placeLabel(b).toLowerCase() && Math.abs(a.lat - b.lat) < 0.002 && Math.abs(a.lng - b.lng) < 0.003;
 
-export async function searchPlaces(input: { q: string; limit: number; lat?: number; lng?: number }): Promise<Place[]> {
-  const local = (await placesByPrefix(input.q, input.limit)).sort(comparePlaces(input.q)).slice(0, input.limit);
+export async function searchPlaces(input: { q: string; limit: number; lat?: number; lng?: number }, ctx: Context = {}): Promise<Place[]> {
+  const { db: q } = resolveContext(ctx);
+  const local = (await placesByPrefix(input.q, input.limit, q)).sort(comparePlaces(input.q)).slice(0, input.limit);
   const out = local.map((p) => placeView(p, "gazetteer"));
   if (out.length < input.limit) {
     const near = input.lat !== undefined && input.lng !== undefined ? { lat: input.lat, lng: input.lng } : undefined;
@@ -27,10 +29,11 @@ export async function searchPlaces(input: { q: string; limit: number; lat?: numb
 }
 
 /** The gazetteer's name nearest each point ("Little Sedge"), or null: no outside service, for lists of many points. */
-export async function localNamesFor(points: readonly { lat: number; lng: number }[]): Promise<(string | null)[]> {
+export async function localNamesFor(points: readonly { lat: number; lng: number }[], ctx: Context = {}): Promise<(string | null)[]> {
+  const { db: q } = resolveContext(ctx);
   return Promise.all(
     points.map(async (p) => {
-      const near = await nearestPlace(p.lat, p.lng);
+      const near = await nearestPlace(p.lat, p.lng, undefined, q);
       return near ? placeLabel(near) : null;
     }),
   );
