@@ -2,7 +2,7 @@ import "server-only";
 import { nearestPlace } from "@/db/places";
 import { geocodeReverse } from "@/lib/geo/geocoder";
 import type { Place } from "@/lib/validation/places";
-import { placeView } from "@/lib/services/places/search-places";
+import { placeView } from "@/lib/services/places/steps/place-view";
 import { resolveContext, type Context } from "@/lib/services/context";
 
 /** A name for a point ("near Mill Leat Lane, Fernhollow"): the gazetteer's nearest place, else the service's. */

@@ -1,15 +1,14 @@
 import "server-only";
-import { nearestPlace, placesByPrefix, type PlaceHit } from "@/db/places";
+import { placesByPrefix, type PlaceHit } from "@/db/places";
 import { geocodeSearch } from "@/lib/geo/geocoder";
 import { comparePlaces, placeLabel } from "@/lib/geo/place-terms";
 import type { Place } from "@/lib/validation/places";
 import { resolveContext, type Context } from "@/lib/services/context";
+import { placeView } from "@/lib/services/places/steps/place-view";
 
 // Finding a place by name: the local gazetteer first (towns, villages, streets, postcodes
 // with their points), then the geocoding service when one is configured, without the
 // places the gazetteer already gave.
-
-export const placeView = (p: PlaceHit, source: Place["source"]): Place => ({ ...p, label: placeLabel(p), source });
 
 const sameSpot = (a: PlaceHit, b: PlaceHit) => placeLabel(a).toLowerCase() === placeLabel(b).toLowerCase() && Math.abs(a.lat - b.lat) < 0.002 && Math.abs(a.lng - b.lng) < 0.003;
 
@@ -26,15 +25,4 @@ export async function searchPlaces(input: { q: string; limit: number; lat?: numb
     }
   }
   return out;
-}
-
-/** The gazetteer's name nearest each point ("Little Sedge"), or null: no outside service, for lists of many points. */
-export async function localNamesFor(points: readonly { lat: number; lng: number }[], ctx: Context = {}): Promise<(string | null)[]> {
-  const { db: q } = resolveContext(ctx);
-  return Promise.all(
-    points.map(async (p) => {
-      const near = await nearestPlace(p.lat, p.lng, undefined, q);
-      return near ? placeLabel(near) : null;
-    }),
-  );
 }
