@@ -8,7 +8,7 @@ import { expireListings } from "@/lib/services/listings/expire-listings";
 import { expireGiveawayDepositHolds } from "@/lib/services/giveaways/expire-deposit-holds";
 import { sendBedReminders } from "@/lib/services/beds/send-bed-reminders";
 import { pruneSecurityRecords } from "@/lib/services/accounts/prune-security-records";
-import { alertDueListings } from "@/lib/services/needs/alert-needs";
+import { alertDueListings } from "@/lib/services/needs/alert-due-listings";
 import { sendNeedDigests } from "@/lib/services/needs/send-need-digests";
 import { expireOpenNeeds } from "@/lib/services/needs/close-needs";
 import { systemClock } from "@/lib/time/clock";

@@ -10,7 +10,7 @@ import { call, request } from "../helpers/http";
 import { createUser, listingBody } from "../factories";
 import { insertBed } from "@/db/beds";
 import { addDays } from "@/lib/time/zoned";
-import { alertDueListings } from "@/lib/services/needs/alert-needs";
+import { alertDueListings } from "@/lib/services/needs/alert-due-listings";
 import { sendNeedDigests } from "@/lib/services/needs/send-need-digests";
 import { expireOpenNeeds } from "@/lib/services/needs/close-needs";
 import { needsReaching } from "@/lib/needs/reaching";

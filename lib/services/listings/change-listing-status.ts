@@ -5,7 +5,7 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import { planStatusChange, quantityLeft } from "@/lib/listings/status";
 import type { ListingAction } from "@/lib/validation/listings";
 import type { ListingStatus } from "@/db/types";
-import { alertIfDue } from "@/lib/services/needs/alert-needs";
+import { alertIfDue } from "@/lib/services/needs/alert-if-due";
 import { resolveContext, type Context } from "@/lib/services/context";
 
 /** Publish, pause, resume or archive. Asking for the state a listing is already in is a no-op. */

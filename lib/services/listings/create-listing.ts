@@ -12,7 +12,7 @@ import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { checkUploadedPhotos } from "@/lib/media/verify-upload";
 import { defaultUnitSize, type CreateListingInput } from "@/lib/validation/listings";
 import { listingDates } from "@/lib/listings/dates";
-import { alertIfDue } from "@/lib/services/needs/alert-needs";
+import { alertIfDue } from "@/lib/services/needs/alert-if-due";
 import { DUE_NOW } from "@/migrations/20261208_020_open_needs";
 import { packOf, unitPriceOfPack } from "@/lib/listings/packs";
 import { resolveContext, type Context } from "@/lib/services/context";

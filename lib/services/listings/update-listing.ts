@@ -8,7 +8,7 @@ import { recordAudit } from "@/db/audit";
 import { ApiError, fromZod, notFound } from "@/lib/api/errors";
 import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { listingDates } from "@/lib/listings/dates";
-import { alertIfDue } from "@/lib/services/needs/alert-needs";
+import { alertIfDue } from "@/lib/services/needs/alert-if-due";
 import { packOf, unitPriceOfPack } from "@/lib/listings/packs";
 import { resolveContext, type Context } from "@/lib/services/context";
 import { checkListingRules, type LISTING_CURRENCIES, defaultUnitSize, listingFieldsSchema, type UpdateListingInput } from "@/lib/validation/listings";

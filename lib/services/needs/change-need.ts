@@ -8,9 +8,9 @@ import { reachBand } from "@/lib/needs/reach";
 import { effectiveNeedStatus, type NeedView } from "@/lib/needs/view";
 import { neededByIssue, type UpdateNeedInput } from "@/lib/validation/needs";
 import { resolveContext, type Context } from "@/lib/services/context";
-import { dayOf } from "@/lib/services/needs/context";
-import { needViews } from "@/lib/services/needs/list-needs";
-import { noticeListingsQuietly } from "@/lib/services/needs/notice-listings";
+import { dayOf } from "@/lib/services/needs/steps/day-of";
+import { needViews } from "@/lib/services/needs/steps/need-views";
+import { noticeListingsQuietly } from "@/lib/services/needs/notice-listings-quietly";
 
 const invalid = (field: string, message: string) => new ApiError("invalid_input", "Some fields need another look.", { [field]: message });
 

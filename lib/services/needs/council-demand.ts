@@ -8,8 +8,8 @@ import { cellOf, MIN_CELL_AREA_KM2 } from "@/lib/needs/grid";
 import { DEFAULT_CENTER } from "@/lib/geo/default-center";
 import type { CouncilStaff } from "@/lib/auth/council-access";
 import { resolveContext, type Context } from "@/lib/services/context";
-import { dayOf } from "@/lib/services/needs/context";
-import { toDemandRow } from "@/lib/services/needs/nearby-demand";
+import { dayOf } from "@/lib/services/needs/steps/day-of";
+import { toDemandRow } from "@/lib/services/needs/steps/to-demand-row";
 import { CouncilDemand } from "@/lib/needs/demand-csv";
 
 /** How far around the council's place the desk looks by default, km. */
@@ -60,4 +60,3 @@ export async function councilDemand(
     suggestion: suggestable ? suggestGiveaway(rows, query.material, dayOf(now)) : null,
   };
 }
-

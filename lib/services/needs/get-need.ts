@@ -3,7 +3,7 @@ import { findOwnNeed } from "@/db/needs";
 import { notFound } from "@/lib/api/errors";
 import type { NeedView } from "@/lib/needs/view";
 import { resolveContext, type Context } from "@/lib/services/context";
-import { needViews } from "@/lib/services/needs/list-needs";
+import { needViews } from "@/lib/services/needs/steps/need-views";
 
 /** GET /api/needs/:id: one of my needs; anyone else's is a 404. */
 export async function getNeed(userId: string, id: string, ctx: Context = {}): Promise<NeedView> {

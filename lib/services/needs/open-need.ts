@@ -11,9 +11,9 @@ import type { NeedView } from "@/lib/needs/view";
 import { addDays } from "@/lib/time/zoned";
 import { neededByIssue, type OpenNeedInput } from "@/lib/validation/needs";
 import { resolveContext, type Context } from "@/lib/services/context";
-import { dayOf } from "@/lib/services/needs/context";
-import { needViews } from "@/lib/services/needs/list-needs";
-import { noticeListingsQuietly } from "@/lib/services/needs/notice-listings";
+import { dayOf } from "@/lib/services/needs/steps/day-of";
+import { needViews } from "@/lib/services/needs/steps/need-views";
+import { noticeListingsQuietly } from "@/lib/services/needs/notice-listings-quietly";
 
 /** A need with no date of its own, and no bed day to borrow, runs this long (a product choice: a season's planning). */
 export const DEFAULT_NEED_DAYS = 56;

@@ -4,7 +4,7 @@ import { enqueueEmail } from "@/db/outbox";
 import type { ListingRow } from "@/db/types";
 import { appUrl } from "@/lib/env";
 import type { UnitSystem } from "@/lib/calc/units";
-import { alertLine } from "@/lib/services/needs/alert-needs";
+import { alertLine } from "@/lib/services/needs/steps/alert-line";
 import { resolveContext, type Context } from "@/lib/services/context";
 
 /** A person gets at most one digest in any this many hours (the "daily" of daily alerts). */
