@@ -8,7 +8,7 @@ import { expireListings } from "@/lib/services/listings/expire-listings";
 import { expireGiveawayDepositHolds } from "@/lib/services/giveaways/expire-deposit-holds";
 import { sendBedReminders } from "@/lib/services/beds/send-bed-reminders";
 import { pruneSecurityRecords } from "@/lib/services/accounts/prune-security-records";
-import { alertDueListings } from "@/lib/services/needs/alert-needs";
+import { alertDueListings } from "@/lib/services/needs/alert-due-listings";
 import { sendNeedDigests } from "@/lib/services/needs/send-need-digests";
 import { expireOpenNeeds } from "@/lib/services/needs/close-needs";
 import { systemClock } from "@/lib/time/clock";
@@ -29,18 +29,18 @@ export interface Job {
 export const jobs: Job[] = [
   { name: "deliver-outbox", everyMs: 2_000, run: (ctx) => deliverOutbox(ctx.clock, ctx) },
   // Reads already treat a listing past its end date as expired; this makes the row say so.
-  { name: "expire-listings", everyMs: 60_000, run: (ctx) => expireListings(ctx.clock) },
-  { name: "bed-reminders", everyMs: 60_000, run: (ctx) => sendBedReminders(ctx.clock) },
+  { name: "expire-listings", everyMs: 60_000, run: (ctx) => expireListings(ctx) },
+  { name: "bed-reminders", everyMs: 60_000, run: (ctx) => sendBedReminders(ctx) },
   { name: "expire-holds", everyMs: 15_000, run: (ctx) => expireHolds(ctx.clock, ctx.db) },
   // Giveaway bookings whose no-show deposit was not put down within the hold.
   { name: "expire-giveaway-deposits", everyMs: 15_000, run: (ctx) => expireGiveawayDepositHolds(ctx.clock, ctx.db) },
   { name: "reservation-reminders", everyMs: 60_000, run: (ctx) => sendReservationReminders(ctx.clock, ctx.db) },
   // Listings posted, restocked, changed or come into their dates, against the open needs
   // (the services alert at once; this is the net, and the only path for a start date arriving).
-  { name: "alert-needs", everyMs: 30_000, run: (ctx) => alertDueListings(ctx.clock, { db: ctx.db }, ctx.signal) },
+  { name: "alert-needs", everyMs: 30_000, run: (ctx) => alertDueListings(ctx) },
   // Daily alerts: one e-mail a person, at most once in 24 hours.
-  { name: "need-digests", everyMs: 5 * 60_000, run: (ctx) => sendNeedDigests(ctx.clock, { db: ctx.db }, ctx.signal) },
-  { name: "expire-needs", everyMs: 10 * 60_000, run: (ctx) => expireOpenNeeds(ctx.clock, ctx.db) },
+  { name: "need-digests", everyMs: 5 * 60_000, run: (ctx) => sendNeedDigests(ctx) },
+  { name: "expire-needs", everyMs: 10 * 60_000, run: (ctx) => expireOpenNeeds(ctx) },
   // Ended sessions and spent rate-limit windows are kept a while for support, then dropped.
   { name: "prune-security-records", everyMs: 60 * 60_000, run: (ctx) => pruneSecurityRecords(ctx.db) },
   // Owed Stripe calls, then the lost-webhook net: checkouts still open after a few minutes

@@ -150,26 +150,26 @@ describe("timeline reminders", () => {
     const outbox = () => renderedRows(ctx.db("email_outbox").where({ template: "bed_reminder" }).select("template", "data", "dedupe_key"));
 
     // The day before building: nothing is due.
-    await sendBedReminders(() => new Date("2027-02-28T08:00:00Z"));
+    await sendBedReminders({ clock: () => new Date("2027-02-28T08:00:00Z") });
     expect(await outbox()).toHaveLength(0);
 
     // Build day: one reminder; running again the same day adds nothing.
-    await sendBedReminders(() => new Date("2027-03-01T08:00:00Z"));
-    await sendBedReminders(() => new Date("2027-03-01T18:00:00Z"));
+    await sendBedReminders({ clock: () => new Date("2027-03-01T08:00:00Z") });
+    await sendBedReminders({ clock: () => new Date("2027-03-01T18:00:00Z") });
     expect((await outbox()).map((m) => m.subject)).toEqual(["Reminder bed: Build day"]);
 
     // Day 3 brings the first squeeze test.
-    await sendBedReminders(() => new Date("2027-03-04T08:00:00Z"));
+    await sendBedReminders({ clock: () => new Date("2027-03-04T08:00:00Z") });
     expect((await outbox()).length).toBe(2);
 
     // Weeks later, the stale steps between are not sent in a heap.
-    await sendBedReminders(() => new Date("2027-06-01T08:00:00Z"));
+    await sendBedReminders({ clock: () => new Date("2027-06-01T08:00:00Z") });
     const subjects = (await outbox()).map((m) => m.subject);
     expect(subjects).toHaveLength(3);
     expect(subjects[2]).toContain("sunk");
 
     await updateUser(bo, { reminders_opt_out: true });
-    await sendBedReminders(() => new Date("2027-09-01T08:00:00Z"));
+    await sendBedReminders({ clock: () => new Date("2027-09-01T08:00:00Z") });
     expect(await outbox()).toHaveLength(3);
   });
 });
@@ -195,7 +195,7 @@ describe("timeline reminders with a bed that cannot be estimated", () => {
     const logged: unknown[][] = [];
     const spy = vi.spyOn(console, "error").mockImplementation((...args: unknown[]) => void logged.push(args));
     try {
-      await sendBedReminders(() => new Date("2027-03-01T08:00:00Z"));
+      await sendBedReminders({ clock: () => new Date("2027-03-01T08:00:00Z") });
     } finally {
       spy.mockRestore();
     }
@@ -211,7 +211,7 @@ describe("timeline reminders after the bed is ready", () => {
     const di = await createUser({ roles: ["gardener"] });
     await call(beds.POST as never, await request("/api/beds", { body: { ...good, name: "Old bed", start_date: "2027-10-01" }, as: di.id }));
     // Built 1 Oct 2027 at 52.2° N: ready 1 Oct 2028, then leaves on 15 Oct 2028.
-    await sendBedReminders(() => new Date("2028-10-15T08:00:00Z"));
+    await sendBedReminders({ clock: () => new Date("2028-10-15T08:00:00Z") });
     const mails = await renderedRows(ctx.db("email_outbox").where({ template: "bed_reminder", to_address: di.email }).select("template", "data"));
     expect(mails.map((m) => m.subject)).toEqual(["Old bed: Top up with fallen leaves"]);
   });

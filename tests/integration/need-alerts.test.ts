@@ -10,7 +10,7 @@ import { call, request } from "../helpers/http";
 import { createUser, listingBody } from "../factories";
 import { insertBed } from "@/db/beds";
 import { addDays } from "@/lib/time/zoned";
-import { alertDueListings } from "@/lib/services/needs/alert-needs";
+import { alertDueListings } from "@/lib/services/needs/alert-due-listings";
 import { sendNeedDigests } from "@/lib/services/needs/send-need-digests";
 import { expireOpenNeeds } from "@/lib/services/needs/close-needs";
 import { needsReaching } from "@/lib/needs/reaching";
@@ -142,7 +142,7 @@ describe("a listing published", () => {
   it("alerts nobody twice when it is checked again", async () => {
     const before = await ctx.db("need_alerts").count({ n: "*" });
     await ctx.db("listings").where({ id: listingId }).update({ needs_due_at: "1970-01-01T00:00:00.000Z" });
-    await alertDueListings(() => new Date(), { db: ctx.db });
+    await alertDueListings({ clock: () => new Date(), db: ctx.db });
     expect(await ctx.db("need_alerts").count({ n: "*" })).toEqual(before);
     expect(await mails(await emailOf(who.ines), "need.alert")).toHaveLength(1);
   });
@@ -171,9 +171,9 @@ describe("restocked, come into its dates, a hold returned", () => {
     // As a need written straight into the database (a seed, an import) would be: not noticed on opening.
     await ctx.db("need_alerts").where({ need_id: n.waiting }).delete();
     // Nothing changed on the listing, and its start date is still to come.
-    await alertDueListings(() => new Date(), { db: ctx.db });
+    await alertDueListings({ clock: () => new Date(), db: ctx.db });
     expect(await alertsFor(listingId)).not.toContain(n.waiting);
-    await alertDueListings(() => new Date(`${START}T00:01:00Z`), { db: ctx.db });
+    await alertDueListings({ clock: () => new Date(`${START}T00:01:00Z`), db: ctx.db });
     expect(await alertsFor(listingId)).toContain(n.waiting);
   });
 
@@ -184,11 +184,11 @@ describe("restocked, come into its dates, a hold returned", () => {
     expect(held.status, JSON.stringify(held.json)).toBe(201);
     expect((await ctx.db("listings").first("status").where({ id })).status).toBe("gone");
     n.whileGone = await openNeed(who.bo, { location: from(0.5, 0, small.json.listing.location), radius_km: 3 });
-    await alertDueListings(() => new Date(), { db: ctx.db });
+    await alertDueListings({ clock: () => new Date(), db: ctx.db });
     expect(await alertsFor(id)).not.toContain(n.whileGone);
     const rid = held.json.reservation.id;
     expect((await call(cancel.POST as never, await request(`/api/reservations/${rid}/cancel`, { as: who.cy, body: {} }), { id: rid })).status).toBe(200);
-    await alertDueListings(() => new Date(), { db: ctx.db });
+    await alertDueListings({ clock: () => new Date(), db: ctx.db });
     expect(await alertsFor(id)).toContain(n.whileGone);
   });
 
@@ -196,7 +196,7 @@ describe("restocked, come into its dates, a hold returned", () => {
     const res = await call(listings.POST as never, await request("/api/listings", { as: who.supplier, body: listingBody({ status: "draft" }) }));
     const id = res.json.listing.id as string;
     await ctx.db("listings").where({ id }).update({ status: "paused", needs_due_at: "1970-01-01T00:00:00.000Z" });
-    await alertDueListings(() => new Date(), { db: ctx.db });
+    await alertDueListings({ clock: () => new Date(), db: ctx.db });
     expect(await alertsFor(id)).toEqual([]);
     expect((await ctx.db("listings").first("needs_due_at").where({ id })).needs_due_at).toBeNull();
   });
@@ -206,18 +206,18 @@ describe("the daily digest", () => {
   it("sends one e-mail with every daily alert, then waits a day before the next", async () => {
     const cy = await emailOf(who.cy);
     const t0 = new Date();
-    expect(await sendNeedDigests(() => t0, { db: ctx.db })).toBeGreaterThan(0);
+    expect(await sendNeedDigests({ clock: () => t0, db: ctx.db })).toBeGreaterThan(0);
     const first = await mails(cy, "need.digest");
     expect(first).toHaveLength(1);
     expect(first[0].text_body).toMatch(/\/needs\/alerts\/[0-9a-f-]{36}/);
-    expect(await sendNeedDigests(() => t0, { db: ctx.db })).toBe(0);
+    expect(await sendNeedDigests({ clock: () => t0, db: ctx.db })).toBe(0);
 
     // A new daily alert for cy: not before a day has passed since the last digest.
     const other = await call(listings.POST as never, await request("/api/listings", { as: who.supplier, body: listingBody({ title: "Hornbeam leaves", location: from(9, 180) }) }));
     expect(await alertsFor(other.json.listing.id)).toContain(n.cyFar);
-    await sendNeedDigests(() => new Date(t0.getTime() + 3_600_000), { db: ctx.db });
+    await sendNeedDigests({ clock: () => new Date(t0.getTime() + 3_600_000), db: ctx.db });
     expect(await mails(cy, "need.digest")).toHaveLength(1);
-    await sendNeedDigests(() => new Date(t0.getTime() + 25 * 3_600_000), { db: ctx.db });
+    await sendNeedDigests({ clock: () => new Date(t0.getTime() + 25 * 3_600_000), db: ctx.db });
     const second = (await mails(cy, "need.digest"))[1];
     expect(second.text_body).toContain("Hornbeam leaves");
     expect(second.text_body).not.toContain(first[0].text_body.match(/needs\/alerts\/([0-9a-f-]{36})/)![1]);
@@ -265,7 +265,7 @@ describe("closing needs", () => {
   });
 
   it("expires open needs once their day has passed", async () => {
-    const expired = await expireOpenNeeds(() => new Date(`${addDays(START, 1)}T00:00:00Z`), ctx.db);
+    const expired = await expireOpenNeeds({ clock: () => new Date(`${addDays(START, 1)}T00:00:00Z`), db: ctx.db });
     expect(expired).toBeGreaterThanOrEqual(1);
     expect((await ctx.db("needs").first("status", "closed_at").where({ id: n.onTheDay })).status).toBe("expired");
     expect((await ctx.db("needs").first("status").where({ id: n.cyFar })).status).toBe("open");
@@ -281,7 +281,7 @@ describe("an address nobody has confirmed", () => {
     const posted = await call(listings.POST as never, await request("/api/listings", { as: who.supplier, body: listingBody({ title: "Alder leaves", location: elsewhere }) }));
     expect(await alertsFor(posted.json.listing.id)).toContain(need);
     expect(await mails(unconfirmed.email)).toHaveLength(0);
-    await sendNeedDigests(() => new Date(Date.now() + 48 * 3_600_000), { db: ctx.db });
+    await sendNeedDigests({ clock: () => new Date(Date.now() + 48 * 3_600_000), db: ctx.db });
     expect(await mails(unconfirmed.email)).toHaveLength(0);
   });
 });

@@ -64,7 +64,7 @@ describe("opening a need where listings are already on offer", () => {
   it("sends no e-mail for them, at once or in the digest", async () => {
     const email = (await ctx.db("users").first("email").where({ id: who.ines })).email;
     expect(await ctx.db("email_outbox").where({ to_address: email })).toHaveLength(0);
-    await sendNeedDigests(() => new Date(Date.now() + 48 * 3_600_000), { db: ctx.db });
+    await sendNeedDigests({ clock: () => new Date(Date.now() + 48 * 3_600_000), db: ctx.db });
     expect(await ctx.db("email_outbox").where({ to_address: email })).toHaveLength(0);
   });
 
@@ -88,7 +88,7 @@ describe("opening a need where listings are already on offer", () => {
     expect(res.json.need.alert_count).toBe(3); // lime, plane and Ines's own leaves
     const later = await post(who.supplier, { title: "Hazel leaves", location: from(0.8, 0) });
     expect(await noticesOf(res.json.need.id)).toContain(later.id);
-    expect(await sendNeedDigests(() => new Date(), { db: ctx.db })).toBe(1);
+    expect(await sendNeedDigests({ clock: () => new Date(), db: ctx.db })).toBe(1);
     const [digest] = await renderedRows(ctx.db("email_outbox").where({ to_address: bo.email, template: "need.digest" }));
     expect(digest.text_body).toContain("Hazel leaves");
     expect(digest.text_body).not.toContain("Lime leaves");

@@ -1,13 +1,14 @@
 import "server-only";
-import { db } from "@/db/index";
 import { findBed, updateBed, type BedWrite } from "@/db/beds";
 import { notFound } from "@/lib/api/errors";
 import type { UpdateBedInput } from "@/lib/validation/beds";
 import { toBedView, type BedView } from "@/lib/beds/view";
 import { shapeColumns } from "@/lib/beds/shape";
+import { resolveContext, type Context } from "@/lib/services/context";
 
-export async function editBed(ownerId: string, id: string, input: UpdateBedInput): Promise<BedView> {
-  return db().transaction(async (trx) => {
+export async function editBed(ownerId: string, id: string, input: UpdateBedInput, ctx: Context = {}): Promise<BedView> {
+  const { db: q } = resolveContext(ctx);
+  return q.transaction(async (trx) => {
     const current = await findBed(id, ownerId, trx);
     if (!current) throw notFound("That bed");
     const view = toBedView(current);

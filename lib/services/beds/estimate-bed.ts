@@ -7,6 +7,7 @@ import type { LatLng } from "@/lib/match/types";
 import type { EstimateInput } from "@/lib/validation/estimate";
 import { planPickups } from "@/lib/services/match/plan-pickups";
 import { needsOf } from "@/lib/beds/needs";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 export interface PricedEstimate extends EstimateResult {
   /** What the bed will cost with the plan given or found: free, deposits held, paid. */
@@ -20,11 +21,13 @@ export interface PricedEstimate extends EstimateResult {
  * plan the gardener already has (their listings' own prices, read here, never the client's),
  * or with a plan matched here from the bed's needs.
  */
-export async function estimateBed(input: EstimateInput, now: Date = new Date()): Promise<PricedEstimate> {
+export async function estimateBed(input: EstimateInput, ctx: Context = {}): Promise<PricedEstimate> {
+  const { db: q, clock } = resolveContext(ctx);
+  const now = clock();
   const result = estimate(input, now);
   const needs = needsOf(result);
   if (input.plan) {
-    const listings = await pricedListings(input.plan.items.map((i) => i.listing_id));
+    const listings = await pricedListings(input.plan.items.map((i) => i.listing_id), q);
     const fields: Record<string, string> = {};
     const pickups: PricedPickup[] = input.plan.items.flatMap((item, i) => {
       const l = listings[item.listing_id];
@@ -39,7 +42,7 @@ export async function estimateBed(input: EstimateInput, now: Date = new Date()):
   }
   if (input.match) {
     const origin = input.match.origin ?? result.centroid!;
-    const plan = await planPickups({ needs, origin, radius_km: input.match.radius_km }, null);
+    const plan = await planPickups({ needs, origin, radius_km: input.match.radius_km }, null, { db: q, clock });
     return {
       ...result,
       costs: plan.costs,

@@ -1,6 +1,7 @@
 import { findBed, type BedRow } from "@/db/beds";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** One of the gardener's own beds; someone else's bed is simply not found. */
-export async function getBed(id: string, ownerId: string): Promise<BedRow | undefined> {
-  return findBed(id, ownerId);
+export async function getBed(id: string, ownerId: string, ctx: Context = {}): Promise<BedRow | undefined> {
+  return findBed(id, ownerId, resolveContext(ctx).db);
 }

@@ -4,6 +4,7 @@ import { needPerListingUnit } from "@/lib/match/units";
 import type { ListingUnit, Need } from "@/lib/match/types";
 import { bedNeeds } from "@/lib/beds/needs";
 import { listBeds, reservedForBeds } from "@/db/beds";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 export interface BedStillNeeds {
   id: string;
@@ -17,9 +18,10 @@ export interface BedStillNeeds {
  * What each of a gardener's beds still needs: its own estimate less what reservations made
  * for it (held, confirmed or collected) already bring. Browse's "for my bed" view reads this.
  */
-export async function bedsStillNeed(ownerId: string): Promise<BedStillNeeds[]> {
-  const beds = await listBeds(ownerId);
-  const reserved = await reservedForBeds(beds.map((b) => b.id));
+export async function bedsStillNeed(ownerId: string, ctx: Context = {}): Promise<BedStillNeeds[]> {
+  const { db: q } = resolveContext(ctx);
+  const beds = await listBeds(ownerId, q);
+  const reserved = await reservedForBeds(beds.map((b) => b.id), q);
   const out: BedStillNeeds[] = [];
   for (const bed of beds) {
     let needs: Need[];

@@ -1,14 +1,15 @@
 import "server-only";
-import { db } from "@/db/index";
 import { findManagedListing } from "@/db/listings";
 import { countPhotos, insertPhotos } from "@/db/listing-photos";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { checkUploadedPhotos } from "@/lib/media/verify-upload";
 import { MAX_PHOTOS, type UploadedPhoto } from "@/lib/validation/listings";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** Attaches verified uploads after the listing's existing photos, up to MAX_PHOTOS in all. */
-export async function addListingPhotos(userId: string, listingId: string, photos: UploadedPhoto[]) {
-  return db().transaction(async (trx) => {
+export async function addListingPhotos(userId: string, listingId: string, photos: UploadedPhoto[], ctx: Context = {}) {
+  const { db: q } = resolveContext(ctx);
+  return q.transaction(async (trx) => {
     if (!(await findManagedListing(listingId, userId, trx))) throw notFound("That listing");
     checkUploadedPhotos(userId, photos);
     const have = await countPhotos(listingId, trx);

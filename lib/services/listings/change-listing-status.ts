@@ -1,16 +1,18 @@
 import "server-only";
-import { db } from "@/db/index";
 import { findManagedListing, moveStatus } from "@/db/listings";
 import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { planStatusChange, quantityLeft } from "@/lib/listings/status";
 import type { ListingAction } from "@/lib/validation/listings";
 import type { ListingStatus } from "@/db/types";
-import { alertIfDue } from "@/lib/services/needs/alert-needs";
+import { alertIfDue } from "@/lib/services/needs/alert-if-due";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** Publish, pause, resume or archive. Asking for the state a listing is already in is a no-op. */
-export async function changeListingStatus(userId: string, id: string, action: ListingAction, now: Date = new Date()): Promise<{ status: ListingStatus }> {
-  const result = await db().transaction(async (trx) => {
+export async function changeListingStatus(userId: string, id: string, action: ListingAction, ctx: Context = {}): Promise<{ status: ListingStatus }> {
+  const { db: q, clock } = resolveContext(ctx);
+  const now = clock();
+  const result = await q.transaction(async (trx) => {
     const row = await findManagedListing(id, userId, trx);
     if (!row) throw notFound("That listing");
     const ended = Boolean(row.available_until && Date.parse(row.available_until) <= now.getTime());
@@ -25,6 +27,6 @@ export async function changeListingStatus(userId: string, id: string, action: Li
     return { status: plan.to };
   });
   // Published or resumed: the open needs it could serve hear of it now.
-  await alertIfDue(id);
+  await alertIfDue(id, { db: q, clock });
   return result;
 }

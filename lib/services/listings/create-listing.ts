@@ -1,6 +1,6 @@
 import { WHOLE_UNITS } from "@/lib/calc/units";
 import "server-only";
-import { db, newId } from "@/db/index";
+import { newId } from "@/db/index";
 import { insertListing } from "@/db/listings";
 import { insertPhotos } from "@/db/listing-photos";
 import { replaceWindows } from "@/db/pickup-windows";
@@ -12,12 +12,15 @@ import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { checkUploadedPhotos } from "@/lib/media/verify-upload";
 import { defaultUnitSize, type CreateListingInput } from "@/lib/validation/listings";
 import { listingDates } from "@/lib/listings/dates";
-import { alertIfDue } from "@/lib/services/needs/alert-needs";
+import { alertIfDue } from "@/lib/services/needs/alert-if-due";
 import { DUE_NOW } from "@/migrations/20261208_020_open_needs";
 import { packOf, unitPriceOfPack } from "@/lib/listings/packs";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** Posts a listing with its pickup windows and photos in one transaction: all of it or none. */
-export async function createListing(user: SessionUser, input: CreateListingInput, now: Date = new Date()): Promise<{ id: string }> {
+export async function createListing(user: SessionUser, input: CreateListingInput, ctx: Context = {}): Promise<{ id: string }> {
+  const { db: q, clock } = resolveContext(ctx);
+  const now = clock();
   // Selling live animals needs the grower role, which a moderator grants after a check.
   if (input.material === "worms" && !user.roles.includes("grower")) {
     throw new ApiError("forbidden", "Only worm growers can list live worms. Ask for the role on your profile.");
@@ -30,7 +33,7 @@ export async function createListing(user: SessionUser, input: CreateListingInput
   const counted = WHOLE_UNITS.has(input.unit);
   // A pack listing's price per unit is what its pack works out at, whatever the client sent.
   const pack = packOf(input);
-  await db().transaction(async (trx) => {
+  await q.transaction(async (trx) => {
     await insertListing(
       {
         id,
@@ -72,6 +75,6 @@ export async function createListing(user: SessionUser, input: CreateListingInput
   });
   // Open needs it could serve are alerted now, so the supplier sees whom it reached; the
   // worker picks it up instead if this fails.
-  await alertIfDue(id);
+  await alertIfDue(id, { db: q, clock });
   return { id };
 }

@@ -1,7 +1,8 @@
-import { db } from "@/db/index";
 import { expireListings as markExpired } from "@/db/listings";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** Worker job: listings whose end date has passed stop being on offer. */
-export async function expireListings(clock: () => Date = () => new Date()): Promise<number> {
-  return markExpired(clock().toISOString(), db());
+export async function expireListings(ctx: Context = {}): Promise<number> {
+  const { db: q, clock } = resolveContext(ctx);
+  return markExpired(clock().toISOString(), q);
 }

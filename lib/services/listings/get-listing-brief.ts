@@ -1,6 +1,7 @@
 import { findListingBrief } from "@/db/listing-status";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** A listing's title and owner, enough to name it (e.g. on the report form). */
-export async function getListingBrief(id: string) {
-  return findListingBrief(id);
+export async function getListingBrief(id: string, ctx: Context = {}) {
+  return findListingBrief(id, resolveContext(ctx).db);
 }

@@ -1,7 +1,8 @@
 import { listingsManagedBy } from "@/db/listings";
 import type { ListingRow } from "@/db/types";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** Every listing the user may change: their own and their council's. */
-export async function listManagedListings(userId: string): Promise<ListingRow[]> {
-  return listingsManagedBy(userId);
+export async function listManagedListings(userId: string, ctx: Context = {}): Promise<ListingRow[]> {
+  return listingsManagedBy(userId, resolveContext(ctx).db);
 }

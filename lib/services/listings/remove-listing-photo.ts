@@ -1,13 +1,14 @@
 import "server-only";
-import { db } from "@/db/index";
 import { findManagedListing } from "@/db/listings";
 import { deletePhoto, photosFor, publicIdInUse, setPhotoPositions } from "@/db/listing-photos";
 import { notFound } from "@/lib/api/errors";
 import { destroyUpload } from "@/lib/media/cloudinary";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** Takes a photo off a listing, closes the gap in the order, then deletes the image itself. */
-export async function removeListingPhoto(userId: string, listingId: string, photoId: string): Promise<void> {
-  const removed = await db().transaction(async (trx) => {
+export async function removeListingPhoto(userId: string, listingId: string, photoId: string, ctx: Context = {}): Promise<void> {
+  const { db: q } = resolveContext(ctx);
+  const removed = await q.transaction(async (trx) => {
     if (!(await findManagedListing(listingId, userId, trx))) throw notFound("That listing");
     const row = await deletePhoto(listingId, photoId, trx);
     if (!row) throw notFound("That photo");

@@ -1,7 +1,6 @@
 import { WHOLE_UNITS } from "@/lib/calc/units";
 import "server-only";
 import { z } from "zod";
-import { db } from "@/db/index";
 import { findManagedListing, setQuantityTotal, updateManagedListing, type ListingPatch } from "@/db/listings";
 import { replaceWindows } from "@/db/pickup-windows";
 import { pickupWindowFields } from "@/lib/listings/windows";
@@ -9,16 +8,19 @@ import { recordAudit } from "@/db/audit";
 import { ApiError, fromZod, notFound } from "@/lib/api/errors";
 import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { listingDates } from "@/lib/listings/dates";
-import { alertIfDue } from "@/lib/services/needs/alert-needs";
+import { alertIfDue } from "@/lib/services/needs/alert-if-due";
 import { packOf, unitPriceOfPack } from "@/lib/listings/packs";
+import { resolveContext, type Context } from "@/lib/services/context";
 import { checkListingRules, type LISTING_CURRENCIES, defaultUnitSize, listingFieldsSchema, type UpdateListingInput } from "@/lib/validation/listings";
 
 // The same rules as a new listing, checked on the listing as it would be after the change.
 const mergedSchema = listingFieldsSchema.superRefine(checkListingRules);
 
 /** Edits a listing its owner (or their organisation) manages; anyone else gets 404. */
-export async function updateListing(userId: string, id: string, patch: UpdateListingInput, now: Date = new Date()): Promise<void> {
-  await db().transaction(async (trx) => {
+export async function updateListing(userId: string, id: string, patch: UpdateListingInput, ctx: Context = {}): Promise<void> {
+  const { db: q, clock } = resolveContext(ctx);
+  const now = clock();
+  await q.transaction(async (trx) => {
     const row = await findManagedListing(id, userId, trx);
     if (!row) throw notFound("That listing");
     if (row.status === "hidden") throw new ApiError("invalid_state", "A moderator has hidden this listing; it cannot be edited until they restore it.");
@@ -98,5 +100,5 @@ export async function updateListing(userId: string, id: string, patch: UpdateLis
     await recordAudit({ actor_id: userId, action: "listing.update", subject_type: "listing", subject_id: id, after: Object.keys(patch) }, trx);
   });
   // More of it, new dates or a new place: open needs it can now serve hear of it.
-  await alertIfDue(id);
+  await alertIfDue(id, { db: q, clock });
 }

@@ -11,15 +11,18 @@ import { pickupWindowsOf } from "@/db/reservations";
 import { depositFor } from "@/lib/payments/money";
 import { answerByFor, pickupChoices } from "@/lib/reservations/pickup-choices";
 import { bedNeeds } from "@/lib/beds/needs";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** POST /api/match: the pickup plan for ad-hoc needs, or for one of the signed-in gardener's beds. */
-export async function planPickups(input: MatchInput, user: SessionUser | null) {
+export async function planPickups(input: MatchInput, user: SessionUser | null, ctx: Context = {}) {
+  const { db: q, clock } = resolveContext(ctx);
+  const now = clock();
   let needs = input.needs as Need[] | undefined;
   let origin: LatLng | undefined = input.origin;
   let bed: { id: string; name: string } | null = null;
   if (input.bed_id) {
     if (!user) throw new ApiError("unauthenticated", "Sign in to find materials for a saved bed.");
-    const row = await findBed(input.bed_id, user.id);
+    const row = await findBed(input.bed_id, user.id, q);
     if (!row) throw notFound("That bed");
     bed = { id: row.id, name: row.name };
     needs ??= bedNeeds(row);
@@ -32,13 +35,12 @@ export async function planPickups(input: MatchInput, user: SessionUser | null) {
   }
   if (!needs || !origin) throw new ApiError("invalid_input", "Some fields need another look.", { needs: "Give the needs and the origin" });
 
-  const { plan, stats } = await searchPlan(needs, origin, input.radius_km, databaseSource(), {
+  const { plan, stats } = await searchPlan(needs, origin, input.radius_km, databaseSource(q, now), {
     costs: { cost_per_km_cents: input.cost_per_km_cents, cost_per_stop_cents: input.cost_per_stop_cents },
     vehicle: input.vehicle,
   });
   const ids = plan.allocations.map((a) => a.listing_id);
-  const [listings, windows] = await Promise.all([pricedListings(ids), pickupWindowsOf(ids)]);
-  const now = new Date();
+  const [listings, windows] = await Promise.all([pricedListings(ids, q), pickupWindowsOf(ids, q)]);
   const pickups: PricedPickup[] = plan.allocations.flatMap((a) => {
     const l = listings[a.listing_id];
     return l ? [{ ...l, listing_id: l.id, listing_quantity: a.listing_quantity }] : [];

@@ -7,9 +7,10 @@ import { NEED_UNIT_LABEL, NEED_UNITS } from "@/lib/match/units";
 import { reachBand } from "@/lib/needs/reach";
 import { effectiveNeedStatus, type NeedView } from "@/lib/needs/view";
 import { neededByIssue, type UpdateNeedInput } from "@/lib/validation/needs";
-import { dayOf, resolveContext, type NeedsContext } from "@/lib/services/needs/context";
-import { needViews } from "@/lib/services/needs/list-needs";
-import { noticeListingsQuietly } from "@/lib/services/needs/notice-listings";
+import { resolveContext, type Context } from "@/lib/services/context";
+import { dayOf } from "@/lib/services/needs/steps/day-of";
+import { needViews } from "@/lib/services/needs/steps/need-views";
+import { noticeListingsQuietly } from "@/lib/services/needs/notice-listings-quietly";
 
 const invalid = (field: string, message: string) => new ApiError("invalid_input", "Some fields need another look.", { [field]: message });
 
@@ -17,8 +18,8 @@ const invalid = (field: string, message: string) => new ApiError("invalid_input"
  * PATCH /api/needs/:id: change an open need, close it by hand, or open a closed, met or
  * expired one again (with a date still to come). Anyone else's need is a 404.
  */
-export async function changeNeed(userId: string, id: string, patch: UpdateNeedInput, ctx: NeedsContext = {}): Promise<NeedView> {
-  const { q, clock } = resolveContext(ctx);
+export async function changeNeed(userId: string, id: string, patch: UpdateNeedInput, ctx: Context = {}): Promise<NeedView> {
+  const { db: q, clock } = resolveContext(ctx);
   const now = clock();
   const today = dayOf(now);
   const row = await findOwnNeed(id, userId, q);

@@ -1,4 +1,5 @@
 import "server-only";
+import type { Knex } from "knex";
 import { openNeedsInBox } from "@/db/needs";
 import { MATERIAL_CODES, type MaterialCode } from "@/lib/calc/facts";
 import { distanceKm } from "@/lib/match/geo";
@@ -6,15 +7,16 @@ import { demandCells, demandSummary, MIN_PEOPLE, suggestGiveaway, SUGGESTED_MATE
 import { cellOf, MIN_CELL_AREA_KM2 } from "@/lib/needs/grid";
 import { DEFAULT_CENTER } from "@/lib/geo/default-center";
 import type { CouncilStaff } from "@/lib/auth/council-access";
-import { dayOf, resolveContext, type NeedsContext } from "@/lib/services/needs/context";
-import { toDemandRow } from "@/lib/services/needs/nearby-demand";
+import { resolveContext, type Context } from "@/lib/services/context";
+import { dayOf } from "@/lib/services/needs/steps/day-of";
+import { toDemandRow } from "@/lib/services/needs/steps/to-demand-row";
 import { CouncilDemand } from "@/lib/needs/demand-csv";
 
 /** How far around the council's place the desk looks by default, km. */
 export const COUNCIL_DEMAND_RADIUS_KM = 25;
 
 /** Where the council's last giveaway day was, or the map's default, when the desk gives no point. */
-async function councilCentre(ctx: CouncilStaff, q: ReturnType<typeof resolveContext>["q"]) {
+async function councilCentre(ctx: CouncilStaff, q: Knex) {
   const day = await q("giveaway_days").first("lat", "lng").where({ organisation_id: ctx.organisationId }).orderBy("date", "desc");
   return day ? { lat: Number(day.lat), lng: Number(day.lng) } : DEFAULT_CENTER;
 }
@@ -27,9 +29,9 @@ async function councilCentre(ctx: CouncilStaff, q: ReturnType<typeof resolveCont
 export async function councilDemand(
   council: CouncilStaff,
   query: { material: MaterialCode; lat?: number; lng?: number; radius_km?: number },
-  ctx: NeedsContext = {},
+  ctx: Context = {},
 ): Promise<CouncilDemand> {
-  const { q, clock } = resolveContext(ctx);
+  const { db: q, clock } = resolveContext(ctx);
   const now = clock();
   const centre = query.lat !== undefined && query.lng !== undefined ? { lat: query.lat, lng: query.lng } : await councilCentre(council, q);
   const radius_km = query.radius_km ?? COUNCIL_DEMAND_RADIUS_KM;
@@ -58,4 +60,3 @@ export async function councilDemand(
     suggestion: suggestable ? suggestGiveaway(rows, query.material, dayOf(now)) : null,
   };
 }
-

@@ -1,8 +1,8 @@
 import "server-only";
 import { unseenAlerts } from "@/db/need-alerts";
-import { resolveContext, type NeedsContext } from "@/lib/services/needs/context";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** How many notices on open needs I have not looked at (the count beside "My needs"). */
-export async function countNewAlerts(userId: string, ctx: NeedsContext = {}): Promise<number> {
-  return unseenAlerts(userId, resolveContext(ctx).q);
+export async function countNewAlerts(userId: string, ctx: Context = {}): Promise<number> {
+  return unseenAlerts(userId, resolveContext(ctx).db);
 }

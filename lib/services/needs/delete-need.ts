@@ -1,11 +1,11 @@
 import "server-only";
 import { deleteOwnNeed } from "@/db/needs";
 import { notFound } from "@/lib/api/errors";
-import { resolveContext, type NeedsContext } from "@/lib/services/needs/context";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** DELETE /api/needs/:id: the need and its alerts go; reservations made for it stay. Anyone else's is a 404. */
-export async function deleteNeed(userId: string, id: string, ctx: NeedsContext = {}): Promise<void> {
-  const { q } = resolveContext(ctx);
+export async function deleteNeed(userId: string, id: string, ctx: Context = {}): Promise<void> {
+  const { db: q } = resolveContext(ctx);
   const gone = await q.transaction((trx) => deleteOwnNeed(id, userId, trx));
   if (!gone) throw notFound("That need");
 }

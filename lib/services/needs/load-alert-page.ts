@@ -3,16 +3,28 @@ import { markAlertsSeen } from "@/db/need-alerts";
 import { findOwnNeed } from "@/db/needs";
 import { listingCautions } from "@/lib/calc/cautions";
 import { amountToReserve } from "@/lib/needs/coverage";
-import { loadReserveOffer } from "@/lib/services/reservations/load-reserve-offer";
-import { resolveContext, type NeedsContext } from "@/lib/services/needs/context";
-import { needViews } from "@/lib/services/needs/list-needs";
+import type { ListingCaution } from "@/lib/calc/cautions";
+import type { NeedView } from "@/lib/needs/view";
+import { loadReserveOffer, type ReserveOffer } from "@/lib/services/reservations/load-reserve-offer";
+import { resolveContext, type Context } from "@/lib/services/context";
+import { needViews } from "@/lib/services/needs/steps/need-views";
 import { findListingFacts } from "@/db/listings";
-import { toView, alertQuery, AlertPage } from "@/lib/services/needs/list-alerts";
-import type { AlertJoin } from "@/lib/services/needs/list-alerts";
+import type { AlertView } from "@/lib/services/needs/list-alerts";
+import { alertQuery, type AlertJoin } from "@/lib/services/needs/steps/alert-query";
+import { toView } from "@/lib/services/needs/steps/alert-view";
+
+export interface AlertPage {
+  alert: AlertView;
+  need: NeedView;
+  offer: ReserveOffer | null;
+  cautions: ListingCaution[];
+  /** What one click reserves, in the listing's unit (0: nothing to reserve). */
+  amount: number;
+}
 
 /** The alert page: the notice, my need as it stands, the listing's reservable facts, and what one click takes. Marks it seen. */
-export async function loadAlertPage(userId: string, id: string, ctx: NeedsContext = {}): Promise<AlertPage | null> {
-  const { q, clock } = resolveContext(ctx);
+export async function loadAlertPage(userId: string, id: string, ctx: Context = {}): Promise<AlertPage | null> {
+  const { db: q, clock } = resolveContext(ctx);
   const now = clock();
   const row = (await alertQuery(q, userId).andWhere("a.id", id).first()) as AlertJoin | undefined;
   if (!row) return null;

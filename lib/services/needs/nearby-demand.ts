@@ -1,24 +1,15 @@
 import "server-only";
-import { openNeedsInBox, type DemandSourceRow } from "@/db/needs";
+import { openNeedsInBox } from "@/db/needs";
 import type { MaterialCode } from "@/lib/calc/facts";
-import { demandRings, MIN_PEOPLE, PREVIEW_READ_KM, type DemandRing, type DemandRow } from "@/lib/needs/demand";
+import { demandRings, MIN_PEOPLE, PREVIEW_READ_KM, type DemandRing } from "@/lib/needs/demand";
 import { cellOf } from "@/lib/needs/grid";
 import { consume, LIMITS } from "@/lib/security/rate-limit";
-import { dayOf, resolveContext, type NeedsContext } from "@/lib/services/needs/context";
+import { resolveContext, type Context } from "@/lib/services/context";
+import { dayOf } from "@/lib/services/needs/steps/day-of";
+import { toDemandRow } from "@/lib/services/needs/steps/to-demand-row";
 
 /** Past a cell's half-diagonal at both ends, a need counted between cell centres may lie this much further out, km. */
 const CELL_SLACK_KM = 3;
-
-export const toDemandRow = (r: DemandSourceRow): DemandRow => ({
-  owner_id: r.owner_id,
-  material: r.material_code,
-  quantity: Number(r.quantity),
-  unit: r.unit,
-  radius_km: Number(r.radius_km),
-  needed_by: r.needed_by,
-  lat: Number(r.lat),
-  lng: Number(r.lng),
-});
 
 export interface NearbyDemand {
   material: MaterialCode;
@@ -31,8 +22,8 @@ export interface NearbyDemand {
  * serve within 5, 10 and 25 km, and what they add up to, in rounded, anonymous figures
  * (lib/needs/demand.ts). Counted per account, so nobody can sweep a town with it.
  */
-export async function nearbyDemand(askerId: string, point: { lat: number; lng: number }, material: MaterialCode, ctx: NeedsContext = {}): Promise<NearbyDemand> {
-  const { q, clock } = resolveContext(ctx);
+export async function nearbyDemand(askerId: string, point: { lat: number; lng: number }, material: MaterialCode, ctx: Context = {}): Promise<NearbyDemand> {
+  const { db: q, clock } = resolveContext(ctx);
   const now = clock();
   await consume([[LIMITS.demandPreview, askerId]], clock, q);
   const centre = cellOf(point.lat, point.lng).centre;

@@ -4,8 +4,8 @@ import { activeListingsAround } from "@/db/listings";
 import { insertAlerts } from "@/db/need-alerts";
 import type { NeedAlertRow, NeedRow } from "@/db/types";
 import { servingDistance } from "@/lib/needs/reaching";
-import { alertingListing } from "@/lib/services/needs/alert-needs";
-import { resolveContext, type NeedsContext } from "@/lib/services/needs/context";
+import { alertingListing } from "@/lib/services/needs/steps/alerting-listing";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** The nearest listings already on offer that a new need is shown at once: a product choice, enough to choose from. */
 export const LISTINGS_ON_OPENING = 20;
@@ -13,7 +13,7 @@ export const LISTINGS_ON_OPENING = 20;
 const READ_AT_MOST = 2_000;
 
 /** A need as stored (its needed_by a calendar day, as db/needs.ts hands it back). */
-type NoticedNeed = Pick<NeedRow, "id" | "owner_id" | "material_code" | "unit" | "radius_km" | "lat" | "lng" | "needed_by" | "status">;
+export type NoticedNeed = Pick<NeedRow, "id" | "owner_id" | "material_code" | "unit" | "radius_km" | "lat" | "lng" | "needed_by" | "status">;
 
 /**
  * A need opened (or moved, widened, redated or opened again) where listings that could serve
@@ -21,8 +21,8 @@ type NoticedNeed = Pick<NeedRow, "id" | "owner_id" | "material_code" | "unit" | 
  * rule as alerts (servingDistance). No e-mail, now or in a digest: the gardener is in the app
  * as it happens; mail is for what is listed later. A notice already there is kept as it was.
  */
-export async function noticeListingsFor(need: NoticedNeed, ctx: NeedsContext = {}): Promise<number> {
-  const { q, clock } = resolveContext(ctx);
+export async function noticeListingsFor(need: NoticedNeed, ctx: Context = {}): Promise<number> {
+  const { db: q, clock } = resolveContext(ctx);
   const now = clock();
   if (need.status !== "open") return 0;
   const found: { listing_id: string; km: number }[] = [];
@@ -50,13 +50,4 @@ export async function noticeListingsFor(need: NoticedNeed, ctx: NeedsContext = {
     }));
   await insertAlerts(rows, q);
   return rows.length;
-}
-
-/** After a need was opened or changed: the notices, without failing the change that was already made. */
-export async function noticeListingsQuietly(need: NoticedNeed, ctx: NeedsContext = {}): Promise<void> {
-  try {
-    await noticeListingsFor(need, ctx);
-  } catch (err) {
-    console.error(`[needs] listings on offer for need ${need.id} not shown:`, (err as Error).message);
-  }
 }

@@ -10,9 +10,10 @@ import { reachBand } from "@/lib/needs/reach";
 import type { NeedView } from "@/lib/needs/view";
 import { addDays } from "@/lib/time/zoned";
 import { neededByIssue, type OpenNeedInput } from "@/lib/validation/needs";
-import { dayOf, resolveContext, type NeedsContext } from "@/lib/services/needs/context";
-import { needViews } from "@/lib/services/needs/list-needs";
-import { noticeListingsQuietly } from "@/lib/services/needs/notice-listings";
+import { resolveContext, type Context } from "@/lib/services/context";
+import { dayOf } from "@/lib/services/needs/steps/day-of";
+import { needViews } from "@/lib/services/needs/steps/need-views";
+import { noticeListingsQuietly } from "@/lib/services/needs/notice-listings-quietly";
 
 /** A need with no date of its own, and no bed day to borrow, runs this long (a product choice: a season's planning). */
 export const DEFAULT_NEED_DAYS = 56;
@@ -21,8 +22,8 @@ export const DEFAULT_NEED_DAYS = 56;
  * POST /api/needs: a saved bed's unmet need (its place and build day come with it) or a typed
  * one. A bed has at most one open need per material: asking twice is a 409, not a second alert.
  */
-export async function openNeed(userId: string, input: OpenNeedInput, ctx: NeedsContext = {}): Promise<NeedView> {
-  const { q, clock } = resolveContext(ctx);
+export async function openNeed(userId: string, input: OpenNeedInput, ctx: Context = {}): Promise<NeedView> {
+  const { db: q, clock } = resolveContext(ctx);
   const now = clock();
   const today = dayOf(now);
   let location = input.location ?? null;

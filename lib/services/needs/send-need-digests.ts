@@ -4,8 +4,8 @@ import { enqueueEmail } from "@/db/outbox";
 import type { ListingRow } from "@/db/types";
 import { appUrl } from "@/lib/env";
 import type { UnitSystem } from "@/lib/calc/units";
-import { alertLine } from "@/lib/services/needs/alert-needs";
-import { resolveContext, type NeedsContext } from "@/lib/services/needs/context";
+import { alertLine } from "@/lib/services/needs/steps/alert-line";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** A person gets at most one digest in any this many hours (the "daily" of daily alerts). */
 export const DIGEST_EVERY_HOURS = 24;
@@ -22,8 +22,8 @@ type PendingRow = Pick<ListingRow, "material_code" | "title" | "unit" | "quantit
  * unless they had one in the last DIGEST_EVERY_HOURS, in which case they wait. The first
  * digest goes on the next run, so a new alert is never more than a day from its reader.
  */
-export async function sendNeedDigests(clock: () => Date = () => new Date(), ctx: NeedsContext = {}, signal?: AbortSignal): Promise<number> {
-  const { q } = resolveContext(ctx);
+export async function sendNeedDigests(ctx: Context = {}): Promise<number> {
+  const { db: q, clock, signal } = resolveContext(ctx);
   const now = clock();
   const since = new Date(now.getTime() - DIGEST_EVERY_HOURS * 3_600_000).toISOString();
   let sent = 0;

@@ -1,11 +1,11 @@
 import "server-only";
 import { dismissAlert, markAlertsSeen } from "@/db/need-alerts";
 import { notFound } from "@/lib/api/errors";
-import { resolveContext, type NeedsContext } from "@/lib/services/needs/context";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** PATCH /api/needs/alerts/:id: mark seen, or dismiss. Anyone else's notice is a 404. */
-export async function updateAlert(userId: string, id: string, change: { seen?: boolean; dismissed?: boolean }, ctx: NeedsContext = {}): Promise<void> {
-  const { q, clock } = resolveContext(ctx);
+export async function updateAlert(userId: string, id: string, change: { seen?: boolean; dismissed?: boolean }, ctx: Context = {}): Promise<void> {
+  const { db: q, clock } = resolveContext(ctx);
   const at = clock().toISOString();
   const mine = await q("need_alerts").first("id").where({ id, user_id: userId });
   if (!mine) throw notFound("That alert");

@@ -1,19 +1,20 @@
 import "server-only";
-import { nearestPlace, placesByPrefix, type PlaceHit } from "@/db/places";
+import { placesByPrefix, type PlaceHit } from "@/db/places";
 import { geocodeSearch } from "@/lib/geo/geocoder";
 import { comparePlaces, placeLabel } from "@/lib/geo/place-terms";
 import type { Place } from "@/lib/validation/places";
+import { resolveContext, type Context } from "@/lib/services/context";
+import { placeView } from "@/lib/services/places/steps/place-view";
 
 // Finding a place by name: the local gazetteer first (towns, villages, streets, postcodes
 // with their points), then the geocoding service when one is configured, without the
 // places the gazetteer already gave.
 
-export const placeView = (p: PlaceHit, source: Place["source"]): Place => ({ ...p, label: placeLabel(p), source });
-
 const sameSpot = (a: PlaceHit, b: PlaceHit) => placeLabel(a).toLowerCase() === placeLabel(b).toLowerCase() && Math.abs(a.lat - b.lat) < 0.002 && Math.abs(a.lng - b.lng) < 0.003;
 
-export async function searchPlaces(input: { q: string; limit: number; lat?: number; lng?: number }): Promise<Place[]> {
-  const local = (await placesByPrefix(input.q, input.limit)).sort(comparePlaces(input.q)).slice(0, input.limit);
+export async function searchPlaces(input: { q: string; limit: number; lat?: number; lng?: number }, ctx: Context = {}): Promise<Place[]> {
+  const { db: q } = resolveContext(ctx);
+  const local = (await placesByPrefix(input.q, input.limit, q)).sort(comparePlaces(input.q)).slice(0, input.limit);
   const out = local.map((p) => placeView(p, "gazetteer"));
   if (out.length < input.limit) {
     const near = input.lat !== undefined && input.lng !== undefined ? { lat: input.lat, lng: input.lng } : undefined;
@@ -24,14 +25,4 @@ export async function searchPlaces(input: { q: string; limit: number; lat?: numb
     }
   }
   return out;
-}
-
-/** The gazetteer's name nearest each point ("Little Sedge"), or null: no outside service, for lists of many points. */
-export async function localNamesFor(points: readonly { lat: number; lng: number }[]): Promise<(string | null)[]> {
-  return Promise.all(
-    points.map(async (p) => {
-      const near = await nearestPlace(p.lat, p.lng);
-      return near ? placeLabel(near) : null;
-    }),
-  );
 }

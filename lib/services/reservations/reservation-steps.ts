@@ -7,7 +7,7 @@ import { reservationContext, type ReservationContext } from "@/db/reservation-co
 import { collectQuantity, findReservation, recordReservationEvent, releaseQuantity, updateReservationIf, type PickupWindowRow } from "@/db/reservations";
 import type { ReservationRow } from "@/db/types";
 import { mailReservation } from "@/lib/mail/reservation-mail";
-import { settleNeedsAfter } from "@/lib/services/needs/close-needs";
+import { settleNeedsAfter } from "@/lib/services/needs/steps/settle-needs-after";
 import { mailCultureOrder } from "@/lib/mail/culture-order-mail";
 import { newPickupCode } from "@/lib/reservations/pickup-code";
 import { nextOccurrence } from "@/lib/reservations/pickup-times";

@@ -6,7 +6,7 @@ import { formatQuantity } from "@/lib/format/quantity";
 import { materialNoun } from "@/lib/match/format";
 import { councilOf } from "@/lib/auth/council-access";
 import { councilDemand } from "@/lib/services/needs/council-demand";
-import { localNamesFor } from "@/lib/services/places/search-places";
+import { localNamesFor } from "@/lib/services/places/name-points-locally";
 import { longDate } from "@/lib/time/zoned";
 import { EmptyState, PageHeading } from "@/components/ui/empty-state";
 import { buttonClass } from "@/components/ui/button-class";
