@@ -4,10 +4,12 @@ import { MATERIALS, type MaterialCode } from "@/lib/calc/facts";
 import { summariseDiversion, type DiversionRecord } from "@/lib/calc/diversion";
 import type { ListingUnit } from "@/lib/calc/units";
 import { DiversionReport } from "@/lib/figures/diversion-csv";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** What left a supplier's, grower's or council's hands; `null` scope is the whole platform. */
-export async function diversionReport(scope: DiversionScope | null, opts: { from?: string; to?: string } = {}): Promise<DiversionReport> {
-  const [collected, checkedIn] = await Promise.all([collectedReservations(scope), checkedInBookings(scope)]);
+export async function diversionReport(scope: DiversionScope | null, opts: { from?: string; to?: string } = {}, ctx: Context = {}): Promise<DiversionReport> {
+  const { db: q } = resolveContext(ctx);
+  const [collected, checkedIn] = await Promise.all([collectedReservations(scope, q), checkedInBookings(scope, q)]);
   const records: DiversionRecord[] = [
     ...collected.map((r) => record(r)),
     ...checkedIn.map((r) => ({ ...record(r), day: { id: r.day_id, date: r.date, title: r.title } })),
@@ -33,12 +35,14 @@ function record(r: { quantity: number; household: string; at: string; material_c
 }
 
 /** Kilograms kept from disposal across Duffbank, the home page's figure: collected reservations only. */
-export async function platformDivertedKg(): Promise<number> {
-  return summariseDiversion((await collectedReservations(null)).map((r) => record(r))).total_kg;
+export async function platformDivertedKg(ctx: Context = {}): Promise<number> {
+  const { db: q } = resolveContext(ctx);
+  return summariseDiversion((await collectedReservations(null, q)).map((r) => record(r))).total_kg;
 }
 
 /** Kilograms households took home from council giveaway days (checked in), shown apart from the figure above. */
-export async function platformGiveawayKg(): Promise<number> {
-  return summariseDiversion((await checkedInBookings(null)).map((r) => record(r))).total_kg;
+export async function platformGiveawayKg(ctx: Context = {}): Promise<number> {
+  const { db: q } = resolveContext(ctx);
+  return summariseDiversion((await checkedInBookings(null, q)).map((r) => record(r))).total_kg;
 }
 

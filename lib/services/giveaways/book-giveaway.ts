@@ -1,5 +1,4 @@
 import "server-only";
-import { db } from "@/db/index";
 import { isUniqueViolation, lockRows } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
 import { findDay, findSlot, insertBooking, liveBookingFor, takeSlotPlace } from "@/db/giveaways";
@@ -20,6 +19,7 @@ import { giveawayQuantityIssue } from "@/lib/validation/giveaways";
 import { bookingWindowState, cancelDeadline } from "@/lib/giveaways/view";
 import { calendarToken } from "@/lib/giveaways/calendar";
 import { formatMoney } from "@/lib/format/money";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 // A household is one Duffbank account: one live booking per account per day, enforced by a
 // unique index. That stops casual double-booking, not a person with two accounts. To tighten
@@ -39,14 +39,15 @@ export interface BookInput {
 
 export type BookedGiveaway = GiveawayBookingRow & { checkout_url: string | null };
 
-export async function bookGiveaway(userId: string, dayId: string, input: BookInput, clock: () => Date = () => new Date()): Promise<BookedGiveaway> {
+export async function bookGiveaway(userId: string, dayId: string, input: BookInput, ctx: Context = {}): Promise<BookedGiveaway> {
+  const { db: q, clock } = resolveContext(ctx);
   const now = clock();
   // Checks that need reading come first, outside the write: they give the clear message.
   // The write itself re-checks everything that a racing request could change.
-  const day = await findDay(dayId);
+  const day = await findDay(dayId, q);
   if (!day) throw notFound("That giveaway day");
   assertOpen(day, now);
-  const slot = await findSlot(input.slot_id, dayId);
+  const slot = await findSlot(input.slot_id, dayId, q);
   if (!slot) throw new ApiError("invalid_input", "Choose one of this day's time slots.", { slot_id: "That slot is not part of this day." });
   const wholeIssue = giveawayQuantityIssue(input.quantity, day.unit);
   if (wholeIssue) throw new ApiError("invalid_input", wholeIssue, { quantity: wholeIssue });
@@ -54,10 +55,10 @@ export async function bookGiveaway(userId: string, dayId: string, input: BookInp
     const cap = formatGiveawayQuantity(day.household_cap, day.unit);
     throw new ApiError("invalid_input", `Each household may take at most ${cap}.`, { quantity: `At most ${cap} a household.` });
   }
-  if (await liveBookingFor(dayId, userId)) throw householdLimit();
+  if (await liveBookingFor(dayId, userId, q)) throw householdLimit();
   if (slot.booked >= slot.capacity) throw slotFull();
 
-  const booking = await writeTransaction(db(), async (trx) => {
+  const booking = await writeTransaction(q, async (trx) => {
     // The conditional UPDATE is the transaction's first statement on SQLite, so it takes the
     // write lock before anything is read. On PostgreSQL the day is held first (shared with
     // other bookings): staff calling the day off or changing it wait for this booking, and a
@@ -104,7 +105,7 @@ export async function bookGiveaway(userId: string, dayId: string, input: BookInp
   });
   // Stripe is called only after the place is committed, as for reservations; a checkout that
   // cannot start now is made by the worker (which e-mails the household) or from the booking page.
-  const checkoutUrl = booking.paymentId ? await openCheckout(booking.paymentId, clock) : null;
+  const checkoutUrl = booking.paymentId ? await openCheckout(booking.paymentId, clock, q) : null;
   return { ...booking.row, checkout_url: checkoutUrl };
 }
 
