@@ -12,7 +12,7 @@ import type { SignUpInput } from "@/lib/validation/auth";
 import { resolveContext, type Context } from "@/lib/services/context";
 
 /** What joining answers, whoever the address belongs to. */
-export function checkInboxAnswer(email: string) {
+function checkInboxAnswer(email: string) {
   return {
     status: "check_email" as const,
     email: normaliseEmail(email),

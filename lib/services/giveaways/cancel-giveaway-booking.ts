@@ -10,7 +10,7 @@ import { bookingParts } from "@/lib/mail/templates/giveaway";
 import { readableDateTime } from "@/lib/time/zoned";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import { cancelDeadline } from "@/lib/giveaways/view";
-import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaways/giveaway-deposit";
+import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaways/steps/giveaway-deposit";
 import { formatMoney } from "@/lib/format/money";
 import { resolveContext, type Context } from "@/lib/services/context";
 

@@ -10,7 +10,7 @@ import { bookingParts } from "@/lib/mail/templates/giveaway";
 import { staffDayView } from "@/lib/giveaways/view";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import type { DepositStatus } from "@/db/types";
-import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaways/giveaway-deposit";
+import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaways/steps/giveaway-deposit";
 import type { CouncilStaff } from "@/lib/auth/council-access";
 import { resolveContext, type Context } from "@/lib/services/context";
 import { formatMoney } from "@/lib/format/money";

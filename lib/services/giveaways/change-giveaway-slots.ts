@@ -5,7 +5,7 @@ import { recordAudit } from "@/db/audit";
 import type { SlotInput } from "@/lib/validation/giveaways";
 import { slotView, type SlotView } from "@/lib/giveaways/view";
 import { slotInstants } from "@/lib/giveaways/slots";
-import { scheduledOrgDay } from "@/lib/services/giveaways/update-giveaway";
+import { scheduledOrgDay } from "@/lib/services/giveaways/steps/scheduled-org-day";
 import type { CouncilStaff } from "@/lib/auth/council-access";
 import { resolveContext, type Context } from "@/lib/services/context";
 

@@ -5,7 +5,7 @@ import { findBooking, releaseSlotPlace } from "@/db/giveaways";
 import { enqueueEmail } from "@/db/outbox";
 import type { GiveawayBookingRow } from "@/db/types";
 import { holdMinutes } from "@/lib/reservations/policy";
-import { householdOf, settleBookingDeposit } from "@/lib/services/giveaways/giveaway-deposit";
+import { householdOf, settleBookingDeposit } from "@/lib/services/giveaways/steps/giveaway-deposit";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import { resolveContext, type Context } from "@/lib/services/context";
 

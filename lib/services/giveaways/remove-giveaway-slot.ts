@@ -3,7 +3,7 @@ import { writeTransaction } from "@/db/write-transaction";
 import { deleteEmptySlot, findSlot } from "@/db/giveaways";
 import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
-import { scheduledOrgDay } from "@/lib/services/giveaways/update-giveaway";
+import { scheduledOrgDay } from "@/lib/services/giveaways/steps/scheduled-org-day";
 import type { CouncilStaff } from "@/lib/auth/council-access";
 import { resolveContext, type Context } from "@/lib/services/context";
 

@@ -4,7 +4,7 @@ import { findSlot, resizeSlot } from "@/db/giveaways";
 import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { slotView, type SlotView } from "@/lib/giveaways/view";
-import { scheduledOrgDay } from "@/lib/services/giveaways/update-giveaway";
+import { scheduledOrgDay } from "@/lib/services/giveaways/steps/scheduled-org-day";
 import type { CouncilStaff } from "@/lib/auth/council-access";
 import { resolveContext, type Context } from "@/lib/services/context";
 

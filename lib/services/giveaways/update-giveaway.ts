@@ -3,28 +3,18 @@ import { writeTransaction } from "@/db/write-transaction";
 import { findOrgDay, shiftSlots, slotsOf, updateOrgDay } from "@/db/giveaways";
 import { recordAudit } from "@/db/audit";
 import type { GiveawayDayRow } from "@/db/types";
-import { ApiError, notFound } from "@/lib/api/errors";
+import { ApiError } from "@/lib/api/errors";
 import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { wallTime, zonedToUtc } from "@/lib/time/zoned";
 import { giveawayQuantityIssue, type UpdateGiveawayInput } from "@/lib/validation/giveaways";
 import { staffDayView } from "@/lib/giveaways/view";
 import { assertNotPast } from "@/lib/giveaways/slots";
+import { scheduledOrgDay } from "@/lib/services/giveaways/steps/scheduled-org-day";
 import type { CouncilStaff } from "@/lib/auth/council-access";
 import { resolveContext, type Context } from "@/lib/services/context";
 
 /** Once anyone has booked, these would change what they booked, so they stay as they are. */
 const FIXED_ONCE_BOOKED = ["date", "time_zone", "material", "unit", "bag_m3"] as const;
-
-/**
- * A day of the council's own, found and held inside `trx` (a booking waits for the change, and
- * the change sees every booking made before it): another council's day is a 404, a cancelled one a 409.
- */
-export async function scheduledOrgDay(staff: CouncilStaff, dayId: string, trx: Parameters<typeof findOrgDay>[2]) {
-  const day = await findOrgDay(dayId, staff.organisationId, trx, { lock: true });
-  if (!day) throw notFound("That giveaway day");
-  if (day.status !== "scheduled") throw new ApiError("invalid_state", "That day has been cancelled and can no longer change.");
-  return day;
-}
 
 export async function updateGiveaway(staff: CouncilStaff, dayId: string, input: UpdateGiveawayInput, ctx: Context = {}) {
   const { db: q, clock } = resolveContext(ctx);
