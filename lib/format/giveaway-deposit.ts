@@ -1,7 +1,7 @@
 import { formatMoney } from "@/lib/format/money";
 
 // How a giveaway booking's no-show deposit reads, to the household and to staff. The states
-// are those of lib/services/giveaways/giveaway-deposit.ts.
+// are those of lib/services/giveaways/steps/giveaway-deposit.ts.
 const STATE: Record<string, string> = {
   none: "",
   awaiting: "not put down yet",

@@ -33,7 +33,7 @@ export const jobs: Job[] = [
   { name: "bed-reminders", everyMs: 60_000, run: (ctx) => sendBedReminders(ctx) },
   { name: "expire-holds", everyMs: 15_000, run: (ctx) => expireHolds(ctx.clock, ctx.db) },
   // Giveaway bookings whose no-show deposit was not put down within the hold.
-  { name: "expire-giveaway-deposits", everyMs: 15_000, run: (ctx) => expireGiveawayDepositHolds(ctx.clock, ctx.db) },
+  { name: "expire-giveaway-deposits", everyMs: 15_000, run: (ctx) => expireGiveawayDepositHolds(ctx) },
   { name: "reservation-reminders", everyMs: 60_000, run: (ctx) => sendReservationReminders(ctx.clock, ctx.db) },
   // Listings posted, restocked, changed or come into their dates, against the open needs
   // (the services alert at once; this is the net, and the only path for a start date arriving).
@@ -42,7 +42,7 @@ export const jobs: Job[] = [
   { name: "need-digests", everyMs: 5 * 60_000, run: (ctx) => sendNeedDigests(ctx) },
   { name: "expire-needs", everyMs: 10 * 60_000, run: (ctx) => expireOpenNeeds(ctx) },
   // Ended sessions and spent rate-limit windows are kept a while for support, then dropped.
-  { name: "prune-security-records", everyMs: 60 * 60_000, run: (ctx) => pruneSecurityRecords(ctx.db) },
+  { name: "prune-security-records", everyMs: 60 * 60_000, run: (ctx) => pruneSecurityRecords(ctx) },
   // Owed Stripe calls, then the lost-webhook net: checkouts still open after a few minutes
   // are checked against Stripe's record and brought up to it.
   {

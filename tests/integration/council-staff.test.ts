@@ -109,7 +109,7 @@ describe("accepting an invitation", () => {
     const created = await post(p.owner, { email: "late@example.test" });
     const token = await tokenFromOutbox("late@example.test");
     // A week and a day later the link no longer works.
-    await expect(acceptInvite({ id: late, email: "late@example.test" }, token, () => new Date(Date.now() + 8 * 86_400_000))).rejects.toMatchObject({ code: "invalid_state" });
+    await expect(acceptInvite({ id: late, email: "late@example.test" }, token, { clock: () => new Date(Date.now() + 8 * 86_400_000) })).rejects.toMatchObject({ code: "invalid_state" });
     const revoke = await call(invite.DELETE as never, await request("/x", { method: "DELETE", as: p.owner }), { id: created.json.invite.id });
     expect(revoke.status).toBe(200);
     expect((await call(accept.POST as never, await request("/x", { body: { token }, as: late }))).status).toBe(409);

@@ -5,7 +5,7 @@ import { bookAs, createGiveaway, createListing, createReservation, createUser } 
 import * as diversion from "@/app/api/reports/diversion/route";
 import * as diversionCsv from "@/app/api/reports/diversion.csv/route";
 import { BAG_M3, BALE_M3 } from "@/lib/calc/facts";
-import { platformDivertedKg, platformGiveawayKg } from "@/lib/services/figures/report-diversion";
+import { platformDivertedKg, platformGiveawayKg } from "@/lib/services/figures/steps/platform-kilograms";
 import { recordAttendance } from "@/lib/services/giveaways/record-attendance";
 import { councilOf } from "@/lib/auth/council-access";
 import { loadSessionUser } from "@/lib/auth/current-user";

@@ -37,38 +37,38 @@ async function refusal(p: Promise<unknown>) {
 
 describe("the default booking close", () => {
   it("is 18:00 the evening before when the day is made earlier than that", async () => {
-    const day = await createGiveaway(council, input(), at("2027-01-15T17:00:00.000Z"));
+    const day = await createGiveaway(council, input(), { clock: at("2027-01-15T17:00:00.000Z") });
     expect(day.booking_closes_at).toBe("2027-01-15T18:00:00.000Z");
   });
 
   it("is the last slot's start for a day made for tomorrow after 18:00, and a household can still book", async () => {
     const now = at("2027-01-15T19:30:00.000Z");
-    const day = await createGiveaway(council, input(), now);
+    const day = await createGiveaway(council, input(), { clock: now });
     // giveawayBody's slots start at 09:00 and 09:30.
     expect(day.booking_closes_at).toBe(`${DAY}T09:30:00.000Z`);
     const household = (await createUser({ roles: ["gardener"] })).id;
-    const booking = await bookGiveaway(household, day.id, { slot_id: day.slots[1].id, quantity: 2 }, now);
+    const booking = await bookGiveaway(household, day.id, { slot_id: day.slots[1].id, quantity: 2 }, { clock: now });
     expect(booking.status).toBe("booked");
   });
 
   it("is the last slot's start for a day made for today before its slots", async () => {
-    const day = await createGiveaway(council, input({ slots: [{ start: "13:00", end: "14:00", capacity: 5 }, { start: "10:00", end: "11:00", capacity: 5 }] }), at(`${DAY}T08:00:00.000Z`));
+    const day = await createGiveaway(council, input({ slots: [{ start: "13:00", end: "14:00", capacity: 5 }, { start: "10:00", end: "11:00", capacity: 5 }] }), { clock: at(`${DAY}T08:00:00.000Z`) });
     expect(day.booking_closes_at).toBe(`${DAY}T13:00:00.000Z`);
   });
 
   it("is the end of the day for a day made today with no slots yet", async () => {
-    const day = await createGiveaway(council, input({ slots: [] }), at(`${DAY}T12:00:00.000Z`));
+    const day = await createGiveaway(council, input({ slots: [] }), { clock: at(`${DAY}T12:00:00.000Z`) });
     expect(day.booking_closes_at).toBe("2027-01-17T00:00:00.000Z");
   });
 
   it("refuses a day whose slots have all started, on the slots field", async () => {
-    const err = await refusal(createGiveaway(council, input(), at(`${DAY}T09:45:00.000Z`)));
+    const err = await refusal(createGiveaway(council, input(), { clock: at(`${DAY}T09:45:00.000Z`) }));
     expect(err.code).toBe("invalid_input");
     expect(err.fields?.slots).toMatch(/\S/);
   });
 
   it("still refuses a closing time the council gives that is already past", async () => {
-    const err = await refusal(createGiveaway(council, input({ booking_closes_at: "2027-01-15T18:00:00.000Z" }), at("2027-01-15T19:30:00.000Z")));
+    const err = await refusal(createGiveaway(council, input({ booking_closes_at: "2027-01-15T18:00:00.000Z" }), { clock: at("2027-01-15T19:30:00.000Z") }));
     expect(err.fields?.booking_closes_at).toMatch(/\S/);
   });
 });

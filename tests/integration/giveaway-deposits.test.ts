@@ -125,9 +125,9 @@ describe("booking a day that asks a deposit", () => {
     const id = res.json.booking.id;
     expect((await slotRow(day.slots[1].id)).booked).toBe(1);
     // Not yet due: nothing happens.
-    expect(await expireGiveawayDepositHolds(() => new Date(Date.parse(res.json.booking.hold_expires_at) - 1000))).toEqual({ expired: 0 });
+    expect(await expireGiveawayDepositHolds({ clock: () => new Date(Date.parse(res.json.booking.hold_expires_at) - 1000) })).toEqual({ expired: 0 });
     const later = () => new Date(Date.parse(res.json.booking.hold_expires_at) + 1000);
-    expect(await expireGiveawayDepositHolds(later)).toEqual({ expired: 1 });
+    expect(await expireGiveawayDepositHolds({ clock: later })).toEqual({ expired: 1 });
     await settle();
     expect(await booking(id)).toMatchObject({ status: "cancelled", deposit_status: "unpaid" });
     expect((await slotRow(day.slots[1].id)).booked).toBe(0);
@@ -136,7 +136,7 @@ describe("booking a day that asks a deposit", () => {
     expect((await submitHostedPayment(res.json.checkout_url)).status).toBe(409);
     expect(await mails("giveaway_booking_lapsed", await emailOf(p.cy))).toHaveLength(1);
     // Run again: nothing more to do. And the household may book again.
-    expect(await expireGiveawayDepositHolds(later)).toEqual({ expired: 0 });
+    expect(await expireGiveawayDepositHolds({ clock: later })).toEqual({ expired: 0 });
     expect((await bookAs(p.cy, day.id, { slot_id: day.slots[1].id, quantity: 1 })).status).toBe(201);
   });
 });
@@ -204,12 +204,12 @@ describe("a no-show keeps the deposit", () => {
 
     const staff = { userId: p.staff, organisationId: orgA, organisationName: "Council", isOwner: false };
     const afterSlot = () => new Date(Date.parse(day.slots[0].starts_at) + 60 * 60_000);
-    const b = await recordAttendance(staff, day.id, id, "no_show", afterSlot);
+    const b = await recordAttendance(staff, day.id, id, "no_show", { clock: afterSlot });
     expect(b).toMatchObject({ status: "no_show", deposit_status: "kept" });
     await settle();
     expect(await deposit(id)).toMatchObject({ status: "captured", captured_cents: 500 });
     expect((await intentOf(id)).status).toBe("succeeded");
-    await expect(recordAttendance(staff, day.id, id, "checked_in", afterSlot)).rejects.toMatchObject({ code: "invalid_state" });
+    await expect(recordAttendance(staff, day.id, id, "checked_in", { clock: afterSlot })).rejects.toMatchObject({ code: "invalid_state" });
     const audit = await db()("audit_log").where({ action: "giveaway.attendance_no_show", subject_id: id }).first();
     expect(audit.actor_id).toBe(p.staff);
     expect(await reconcilePayments()).toEqual([]);

@@ -153,7 +153,7 @@ describe("POST /api/giveaways/:id/bookings", () => {
     expect(early.status).toBe(409);
     expect(early.json.error.message).toMatch(/Booking opens/);
     const closesAt = Date.parse((await ctx.db("giveaway_days").where({ id: day.id }).first()).booking_closes_at);
-    await expect(bookGiveaway(cy, day.id, { slot_id: day.slots[0].id, quantity: 1 }, () => new Date(closesAt + 1000))).rejects.toMatchObject({ code: "invalid_state" });
+    await expect(bookGiveaway(cy, day.id, { slot_id: day.slots[0].id, quantity: 1 }, { clock: () => new Date(closesAt + 1000) })).rejects.toMatchObject({ code: "invalid_state" });
   });
 
   describe("cancelling a booking", () => {
@@ -174,8 +174,8 @@ describe("POST /api/giveaways/:id/bookings", () => {
       expect((await call(booking.DELETE as never, await request("/x", { method: "DELETE", as: ada }), { id: day.id, bookingId: adaBooking })).status).toBe(409);
       // Cut-off 12 h before the 09:30 slot; a clock an hour before the slot is too late.
       const slotStart = Date.parse(day.slots[1].starts_at);
-      await expect(cancelGiveawayBooking(bo, day.id, b.id, () => new Date(slotStart - 3_600_000))).rejects.toMatchObject({ code: "invalid_state" });
-      await expect(cancelGiveawayBooking(bo, day.id, b.id, () => new Date(slotStart - 13 * 3_600_000))).resolves.toMatchObject({ status: "cancelled" });
+      await expect(cancelGiveawayBooking(bo, day.id, b.id, { clock: () => new Date(slotStart - 3_600_000) })).rejects.toMatchObject({ code: "invalid_state" });
+      await expect(cancelGiveawayBooking(bo, day.id, b.id, { clock: () => new Date(slotStart - 13 * 3_600_000) })).resolves.toMatchObject({ status: "cancelled" });
     });
   });
 });

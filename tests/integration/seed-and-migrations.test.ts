@@ -5,7 +5,7 @@ import { isForeignKeyViolation } from "@/db/dialect";
 import { seed } from "@/seeds/demo";
 import { MATERIAL_CODES } from "@/lib/calc/facts";
 import { PEOPLE } from "@/seeds/town";
-import { platformDivertedKg } from "@/lib/services/figures/report-diversion";
+import { platformDivertedKg } from "@/lib/services/figures/steps/platform-kilograms";
 
 let ctx: Awaited<ReturnType<typeof freshDb>>;
 beforeAll(async () => {

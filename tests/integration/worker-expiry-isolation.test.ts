@@ -85,7 +85,7 @@ describe("expire-giveaway-deposits", () => {
     const later = new Date(Date.parse(first) + minutes(1));
 
     try {
-      expect(await expireGiveawayDepositHolds(() => later)).toEqual({ expired: 2 });
+      expect(await expireGiveawayDepositHolds({ clock: () => later })).toEqual({ expired: 2 });
     } finally {
       await mend();
     }
@@ -96,7 +96,7 @@ describe("expire-giveaway-deposits", () => {
     expect(await booked()).toBe(1);
     expect(errorsAbout(logged, ids[0])).toHaveLength(1);
 
-    expect(await expireGiveawayDepositHolds(() => later)).toEqual({ expired: 1 });
+    expect(await expireGiveawayDepositHolds({ clock: () => later })).toEqual({ expired: 1 });
     expect(await booking(ids[0])).toMatchObject({ status: "cancelled", deposit_status: "unpaid" });
     expect(await booked()).toBe(0);
     await pay.fake.webhooksIdle();

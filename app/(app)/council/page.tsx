@@ -28,14 +28,14 @@ export default async function CouncilPage() {
   if (!user.organisation || user.organisation.kind !== "council") {
     return <EmptyState title="Your account is not linked to a council yet">Ask a colleague who owns your council&apos;s account to invite you.</EmptyState>;
   }
-  const ctx = councilOf(user);
+  const staff = councilOf(user);
   const system = await viewerUnits(user);
   const [members, invites, days, report, demand] = await Promise.all([
-    listMembers(ctx.organisationId),
-    listInvites(ctx),
-    councilDays(ctx),
+    listMembers(staff.organisationId),
+    listInvites(staff),
+    councilDays(staff),
     diversionReport(diversionScopeOf(user)),
-    councilDemand(ctx, { material: "leaves" }),
+    councilDemand(staff, { material: "leaves" }),
   ]);
   const waiting = demand.materials.filter((m) => (SUGGESTED_MATERIALS as readonly string[]).includes(m.material));
   const today = localDate(new Date(), "Europe/London");
@@ -44,7 +44,7 @@ export default async function CouncilPage() {
   return (
     <div className="flex flex-col gap-8">
       <div className="flex flex-wrap items-start justify-between gap-4">
-        <PageHeading title={ctx.organisationName} lead="Giveaway days, the day's list and what your residents kept out of the bin." />
+        <PageHeading title={staff.organisationName} lead="Giveaway days, the day's list and what your residents kept out of the bin." />
         <Link href="/council/giveaways/new" className={buttonClass("primary")}>
           New giveaway day
         </Link>
@@ -120,7 +120,7 @@ export default async function CouncilPage() {
       </Panel>
 
       <Panel id="staff" title="Staff">
-        <StaffPanel members={members} invites={invites} isOwner={ctx.isOwner} me={user.id} />
+        <StaffPanel members={members} invites={invites} isOwner={staff.isOwner} me={user.id} />
       </Panel>
     </div>
   );

@@ -11,6 +11,7 @@ import { pendingRoleRequests } from "@/db/organisations";
 import type { ReservationView } from "@/lib/reservations/view";
 import { PICKUP_TIME_ZONE } from "@/lib/reservations/pickup-times";
 import { localDate } from "@/lib/time/zoned";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** One thing that waits for the person: what it is, where to act on it, and when. */
 export interface WaitingItem {
@@ -50,13 +51,15 @@ const onDay = (iso: string | null, day: string) => !!iso && localDate(new Date(i
  * owed and pickups due, the supplier's requests to answer and today's pickups, the grower's
  * orders to pack, the council's bookings on its next days, the moderator's open reports.
  */
-export async function whatsWaiting(user: SessionUser, now = new Date()): Promise<WaitingSection[]> {
+export async function whatsWaiting(user: SessionUser, ctx: Context = {}): Promise<WaitingSection[]> {
+  const { db: q, clock } = resolveContext(ctx);
+  const now = clock();
   const today = localDate(now, PICKUP_TIME_ZONE);
   const roles = user.roles;
   const out: WaitingSection[] = [];
 
   if (roles.includes("gardener")) {
-    const mine = await listReservations(user.id, "gardener", { now });
+    const mine = await listReservations(user.id, "gardener", { now, db: q });
     out.push(
       section({
         id: "to-pay",
@@ -86,7 +89,7 @@ export async function whatsWaiting(user: SessionUser, now = new Date()): Promise
   }
 
   if (roles.some((r) => (LISTING_ROLES as readonly Role[]).includes(r))) {
-    const theirs = await listReservations(user.id, "supplier", { now });
+    const theirs = await listReservations(user.id, "supplier", { now, db: q });
     out.push(
       section({
         id: "to-answer",
@@ -124,8 +127,7 @@ export async function whatsWaiting(user: SessionUser, now = new Date()): Promise
 
   if (roles.includes("council")) {
     if (user.organisation?.kind === "council") {
-      const ctx = councilOf(user);
-      const days = (await councilDays(ctx)).filter((d) => d.status !== "cancelled" && d.date >= today).sort((a, b) => a.date.localeCompare(b.date));
+      const days = (await councilDays(councilOf(user), { db: q, clock })).filter((d) => d.status !== "cancelled" && d.date >= today).sort((a, b) => a.date.localeCompare(b.date));
       out.push(
         section({
           id: "giveaway-days",
@@ -142,7 +144,7 @@ export async function whatsWaiting(user: SessionUser, now = new Date()): Promise
   }
 
   if (roles.includes("moderator")) {
-    const [reports, requests] = await Promise.all([reportQueue("open"), pendingRoleRequests()]);
+    const [reports, requests] = await Promise.all([reportQueue("open", q), pendingRoleRequests(q)]);
     out.push(
       section({
         id: "reports",

@@ -1,7 +1,7 @@
 import "server-only";
-import { db, type Db } from "@/db/index";
 import { pruneCounters } from "@/db/rate-limits";
 import { pruneSessions } from "@/db/sessions";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 // Sessions that ended or ran out, and rate-limit counters whose window has long passed, are
 // kept a week (enough to answer "was I signed in from somewhere else?"), then dropped.
@@ -10,7 +10,8 @@ import { pruneSessions } from "@/db/sessions";
 // not delete a session the app still honours.
 const KEEP_DAYS = 7;
 
-export async function pruneSecurityRecords(q: Db = db()): Promise<{ sessions: number; counters: number }> {
+export async function pruneSecurityRecords(ctx: Context = {}): Promise<{ sessions: number; counters: number }> {
+  const { db: q } = resolveContext(ctx);
   const before = new Date(Date.now() - KEEP_DAYS * 86_400_000).toISOString();
   return { sessions: await pruneSessions(before, q), counters: await pruneCounters(before, q) };
 }

@@ -1,8 +1,9 @@
 import "server-only";
 import { endEverySession } from "@/lib/auth/sessions";
-import type { Clock } from "@/lib/time/clock";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** Ends every session of the account, everywhere, this one included. */
-export async function signOutEverywhere(userId: string, clock: Clock = () => new Date()): Promise<{ sessions_ended: number }> {
-  return { sessions_ended: await endEverySession(userId, "signed_out_everywhere", clock) };
+export async function signOutEverywhere(userId: string, ctx: Context = {}): Promise<{ sessions_ended: number }> {
+  const { db: q, clock } = resolveContext(ctx);
+  return { sessions_ended: await endEverySession(userId, "signed_out_everywhere", clock, q) };
 }

@@ -1,5 +1,4 @@
 import "server-only";
-import { db } from "@/db/index";
 import { writeTransaction } from "@/db/write-transaction";
 import { enqueueEmail } from "@/db/outbox";
 import { findUserByEmail, insertUser, normaliseEmail, setRole } from "@/db/users";
@@ -10,9 +9,10 @@ import { hashPassword } from "@/lib/auth/password";
 import { passwordProblem } from "@/lib/auth/password-strength";
 import { signInLink } from "@/lib/auth/sign-in-link";
 import type { SignUpInput } from "@/lib/validation/auth";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** What joining answers, whoever the address belongs to. */
-export function checkInboxAnswer(email: string) {
+function checkInboxAnswer(email: string) {
   return {
     status: "check_email" as const,
     email: normaliseEmail(email),
@@ -27,14 +27,16 @@ export function checkInboxAnswer(email: string) {
  * already have an account" and nothing changes. A new account is a gardener; giving roles
  * are asked for on the profile.
  */
-export async function signUp(input: SignUpInput, now: Date = new Date()) {
+export async function signUp(input: SignUpInput, ctx: Context = {}) {
+  const { db: q, clock } = resolveContext(ctx);
+  const now = clock();
   const problem = passwordProblem(input.password, { email: input.email, name: input.display_name });
   if (problem) throw new ApiError("invalid_input", "Choose a stronger password.", { password: problem });
   const password_hash = await hashPassword(input.password);
   const email = normaliseEmail(input.email);
   // Reads, then writes: on SQLite the worker may commit in between, and the whole
   // transaction runs again (writeTransaction) rather than answering 500.
-  await writeTransaction(db(), async (trx) => {
+  await writeTransaction(q, async (trx) => {
     if (await findUserByEmail(email, trx)) {
       await enqueueEmail({ to: email, template: "account.already_joined", data: { signInUrl: `${appUrl()}/sign-in` } }, trx);
       return;

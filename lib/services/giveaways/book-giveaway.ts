@@ -1,36 +1,27 @@
 import "server-only";
-import { db } from "@/db/index";
 import { isUniqueViolation, lockRows } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
 import { findDay, findSlot, insertBooking, liveBookingFor, takeSlotPlace } from "@/db/giveaways";
-import { findOrganisation } from "@/db/organisations";
-import { findUserById } from "@/db/users";
 import { insertPayment } from "@/db/payments";
-import { enqueueEmail } from "@/db/outbox";
-import type { GiveawayBookingRow, GiveawayDayRow, GiveawaySlotRow } from "@/db/types";
+import type { GiveawayBookingRow, GiveawayDayRow } from "@/db/types";
 import { ApiError, notFound } from "@/lib/api/errors";
-import { appUrl } from "@/lib/env";
-import { giveawayCautions } from "@/lib/calc/cautions";
 import { formatGiveawayQuantity } from "@/lib/format/giveaway";
 import { openCheckout } from "@/lib/payments/checkout";
 import { holdMinutes } from "@/lib/reservations/policy";
-import { bookingParts } from "@/lib/mail/templates/giveaway";
 import { readableDateTime } from "@/lib/time/zoned";
 import { giveawayQuantityIssue } from "@/lib/validation/giveaways";
-import { bookingWindowState, cancelDeadline } from "@/lib/giveaways/view";
-import { calendarToken } from "@/lib/giveaways/calendar";
-import { formatMoney } from "@/lib/format/money";
+import { bookingWindowState } from "@/lib/giveaways/view";
+import { enqueueBookedEmail } from "@/lib/services/giveaways/steps/enqueue-booked-email";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 // A household is one Duffbank account: one live booking per account per day, enforced by a
 // unique index. That stops casual double-booking, not a person with two accounts. To tighten
 // it, verify a postal address once per account (a letter with a code, or the council's own
 // register of households) and key this rule on the verified address instead of the account.
 
-// A day's no-show deposit is held on the household's card (lib/services/giveaways/giveaway-deposit.ts):
+// A day's no-show deposit is held on the household's card (lib/services/giveaways/steps/giveaway-deposit.ts):
 // the booking takes its place at once and waits, deposit "awaiting", for the Stripe checkout;
 // only the webhook confirms it, and the confirmation e-mail goes when the hold is on the card.
-export const DEPOSIT_HOLD_NOTE =
-  "It is a hold on your card, not a charge: it is released when you are checked in, when you cancel before the cut-off, or if the day is called off, and it is taken only if you do not come.";
 
 export interface BookInput {
   slot_id: string;
@@ -39,14 +30,15 @@ export interface BookInput {
 
 export type BookedGiveaway = GiveawayBookingRow & { checkout_url: string | null };
 
-export async function bookGiveaway(userId: string, dayId: string, input: BookInput, clock: () => Date = () => new Date()): Promise<BookedGiveaway> {
+export async function bookGiveaway(userId: string, dayId: string, input: BookInput, ctx: Context = {}): Promise<BookedGiveaway> {
+  const { db: q, clock } = resolveContext(ctx);
   const now = clock();
   // Checks that need reading come first, outside the write: they give the clear message.
   // The write itself re-checks everything that a racing request could change.
-  const day = await findDay(dayId);
+  const day = await findDay(dayId, q);
   if (!day) throw notFound("That giveaway day");
   assertOpen(day, now);
-  const slot = await findSlot(input.slot_id, dayId);
+  const slot = await findSlot(input.slot_id, dayId, q);
   if (!slot) throw new ApiError("invalid_input", "Choose one of this day's time slots.", { slot_id: "That slot is not part of this day." });
   const wholeIssue = giveawayQuantityIssue(input.quantity, day.unit);
   if (wholeIssue) throw new ApiError("invalid_input", wholeIssue, { quantity: wholeIssue });
@@ -54,10 +46,10 @@ export async function bookGiveaway(userId: string, dayId: string, input: BookInp
     const cap = formatGiveawayQuantity(day.household_cap, day.unit);
     throw new ApiError("invalid_input", `Each household may take at most ${cap}.`, { quantity: `At most ${cap} a household.` });
   }
-  if (await liveBookingFor(dayId, userId)) throw householdLimit();
+  if (await liveBookingFor(dayId, userId, q)) throw householdLimit();
   if (slot.booked >= slot.capacity) throw slotFull();
 
-  const booking = await writeTransaction(db(), async (trx) => {
+  const booking = await writeTransaction(q, async (trx) => {
     // The conditional UPDATE is the transaction's first statement on SQLite, so it takes the
     // write lock before anything is read. On PostgreSQL the day is held first (shared with
     // other bookings): staff calling the day off or changing it wait for this booking, and a
@@ -104,7 +96,7 @@ export async function bookGiveaway(userId: string, dayId: string, input: BookInp
   });
   // Stripe is called only after the place is committed, as for reservations; a checkout that
   // cannot start now is made by the worker (which e-mails the household) or from the booking page.
-  const checkoutUrl = booking.paymentId ? await openCheckout(booking.paymentId, clock) : null;
+  const checkoutUrl = booking.paymentId ? await openCheckout(booking.paymentId, clock, q) : null;
   return { ...booking.row, checkout_url: checkoutUrl };
 }
 
@@ -118,19 +110,3 @@ function assertOpen(day: GiveawayDayRow, now: Date) {
 
 const slotFull = () => new ApiError("slot_full", "That slot is full. Choose another time.");
 const householdLimit = () => new ApiError("household_limit", "Your household already has a booking for this day. Cancel it first to choose another slot.");
-
-/** The confirmation with the exact place and the .ics: at booking, or once a deposit is on the card. */
-export async function enqueueBookedEmail(day: GiveawayDayRow, slot: GiveawaySlotRow, booking: GiveawayBookingRow, trx: Parameters<typeof findDay>[1]) {
-  const [user, org] = await Promise.all([findUserById(booking.user_id, trx), findOrganisation(day.organisation_id, trx)]);
-  if (!user) return;
-  const base = appUrl();
-  const data = {
-    ...bookingParts({ name: user.display_name, organisation: org?.name ?? "The council", pageUrl: `${base}/giveaways/${day.id}`, day, slot, quantity: booking.quantity }),
-    address: day.address,
-    cancelBy: readableDateTime(cancelDeadline(slot.starts_at, day.cancel_cutoff_hours).toISOString(), day.time_zone),
-    depositNote: booking.deposit_cents > 0 ? `A refundable no-show deposit of ${formatMoney(booking.deposit_cents, booking.currency)} is on hold on your card. ${DEPOSIT_HOLD_NOTE}` : null,
-    calendarUrl: `${base}/api/giveaways/${day.id}/bookings/${booking.id}/calendar.ics?t=${calendarToken(booking.id)}`,
-    cautions: giveawayCautions(day.material_code),
-  };
-  await enqueueEmail({ to: user.email, template: "giveaway_booked", data, dedupe_key: `giveaway-booked:${booking.id}` }, trx);
-}

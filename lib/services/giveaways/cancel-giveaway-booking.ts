@@ -1,5 +1,4 @@
 import "server-only";
-import { db } from "@/db/index";
 import { writeTransaction } from "@/db/write-transaction";
 import { findBooking, findDay, findSlot, releaseSlotPlace, setBookingStatus } from "@/db/giveaways";
 import { findOrganisation } from "@/db/organisations";
@@ -11,23 +10,25 @@ import { bookingParts } from "@/lib/mail/templates/giveaway";
 import { readableDateTime } from "@/lib/time/zoned";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import { cancelDeadline } from "@/lib/giveaways/view";
-import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaways/giveaway-deposit";
+import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaways/steps/giveaway-deposit";
 import { formatMoney } from "@/lib/format/money";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** A household cancels its own booking, up to the day's cut-off before the slot; any deposit hold is released. */
-export async function cancelGiveawayBooking(userId: string, dayId: string, bookingId: string, clock: () => Date = () => new Date()) {
-  const booking = await findBooking(bookingId);
+export async function cancelGiveawayBooking(userId: string, dayId: string, bookingId: string, ctx: Context = {}) {
+  const { db: q, clock } = resolveContext(ctx);
+  const now = clock();
+  const booking = await findBooking(bookingId, q);
   // Someone else's booking is not found, whatever its id.
   if (!booking || booking.user_id !== userId || booking.day_id !== dayId) throw notFound("That booking");
-  const day = (await findDay(dayId))!;
-  const slot = (await findSlot(booking.slot_id, dayId))!;
+  const day = (await findDay(dayId, q))!;
+  const slot = (await findSlot(booking.slot_id, dayId, q))!;
   if (booking.status !== "booked") throw new ApiError("invalid_state", `This booking is ${booking.status.replace("_", " ")} and cannot be cancelled.`);
   const deadline = cancelDeadline(slot.starts_at, day.cancel_cutoff_hours);
-  if (clock().getTime() > deadline.getTime()) {
+  if (now.getTime() > deadline.getTime()) {
     throw new ApiError("invalid_state", `Bookings for this day can be cancelled until ${day.cancel_cutoff_hours} hours before the slot (${readableDateTime(deadline.toISOString(), day.time_zone)}). Please tell the council if you cannot come.`);
   }
-  const now = clock();
-  const owed = await writeTransaction(db(), async (trx) => {
+  const owed = await writeTransaction(q, async (trx) => {
     // Guarded on the deposit too: a hold landing meanwhile is released below, not left behind.
     const current = (await findBooking(bookingId, trx, { lock: true }))!;
     const changed = await setBookingStatus(
@@ -58,6 +59,6 @@ export async function cancelGiveawayBooking(userId: string, dayId: string, booki
     return ids;
   });
   // The Stripe call after the commit; the worker retries it if Stripe is away.
-  await runPaymentActions(owed, clock);
-  return (await findBooking(bookingId))!;
+  await runPaymentActions(owed, clock, q);
+  return (await findBooking(bookingId, q))!;
 }

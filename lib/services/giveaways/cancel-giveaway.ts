@@ -1,5 +1,4 @@
 import "server-only";
-import { db } from "@/db/index";
 import { lockRows } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
 import { cancelOrgDay, findOrgDay, recountSlots, setBookingStatus, sheetFor, slotsOf } from "@/db/giveaways";
@@ -11,23 +10,25 @@ import { bookingParts } from "@/lib/mail/templates/giveaway";
 import { staffDayView } from "@/lib/giveaways/view";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import type { DepositStatus } from "@/db/types";
-import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaways/giveaway-deposit";
+import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaways/steps/giveaway-deposit";
 import type { CouncilStaff } from "@/lib/auth/council-access";
+import { resolveContext, type Context } from "@/lib/services/context";
 import { formatMoney } from "@/lib/format/money";
 
 /** Calls a day off: every live booking is cancelled, its deposit released, its household e-mailed — all or nothing. */
-export async function cancelGiveaway(ctx: CouncilStaff, dayId: string, reason: string, clock: () => Date = () => new Date()) {
-  const result = await writeTransaction(db(), async (trx) => {
-    if (!(await cancelOrgDay(dayId, ctx.organisationId, reason, trx))) {
-      if (!(await findOrgDay(dayId, ctx.organisationId, trx))) throw notFound("That giveaway day");
+export async function cancelGiveaway(staff: CouncilStaff, dayId: string, reason: string, ctx: Context = {}) {
+  const { db: q, clock } = resolveContext(ctx);
+  const at = clock();
+  const result = await writeTransaction(q, async (trx) => {
+    if (!(await cancelOrgDay(dayId, staff.organisationId, reason, trx))) {
+      if (!(await findOrgDay(dayId, staff.organisationId, trx))) throw notFound("That giveaway day");
       throw new ApiError("invalid_state", "That day is already cancelled.");
     }
-    const day = (await findOrgDay(dayId, ctx.organisationId, trx))!;
+    const day = (await findOrgDay(dayId, staff.organisationId, trx))!;
     // Hold the live bookings before reading them: a deposit landing or a household cancelling
     // at this moment finishes first, and the sheet below shows what it left.
     await lockRows(trx, "giveaway_bookings", { day_id: dayId, status: "booked" });
     const booked = (await sheetFor(dayId, {}, trx)).filter((b) => b.status === "booked");
-    const at = clock();
     const now = at.toISOString();
     const owed: string[] = [];
     for (const b of booked) {
@@ -42,7 +43,7 @@ export async function cancelGiveaway(ctx: CouncilStaff, dayId: string, reason: s
             ? "The deposit was not put down, so nothing was taken from your card, and its payment page is closed."
             : "There was no deposit on this booking, so there is nothing to release or refund.";
       const data = {
-        ...bookingParts({ name: b.name, organisation: ctx.organisationName, pageUrl: `${appUrl()}/giveaways`, day, slot: b, quantity: b.quantity }),
+        ...bookingParts({ name: b.name, organisation: staff.organisationName, pageUrl: `${appUrl()}/giveaways`, day, slot: b, quantity: b.quantity }),
         reason,
         depositNote,
       };
@@ -50,11 +51,11 @@ export async function cancelGiveaway(ctx: CouncilStaff, dayId: string, reason: s
     }
     await recountSlots(dayId, trx);
     await recordAudit(
-      { actor_id: ctx.userId, action: "giveaway.cancel", subject_type: "giveaway_day", subject_id: dayId, before: { status: "scheduled" }, after: { status: "cancelled", reason, bookings_cancelled: booked.length } },
+      { actor_id: staff.userId, action: "giveaway.cancel", subject_type: "giveaway_day", subject_id: dayId, before: { status: "scheduled" }, after: { status: "cancelled", reason, bookings_cancelled: booked.length } },
       trx,
     );
-    return { view: { day: staffDayView(day, await slotsOf([dayId], trx), ctx.organisationName), bookings_cancelled: booked.length }, owed };
+    return { view: { day: staffDayView(day, await slotsOf([dayId], trx), staff.organisationName), bookings_cancelled: booked.length }, owed };
   });
-  await runPaymentActions(result.owed, clock);
+  await runPaymentActions(result.owed, clock, q);
   return result.view;
 }

@@ -1,5 +1,5 @@
 import "server-only";
-import { db, newId } from "@/db/index";
+import { newId } from "@/db/index";
 import { writeTransaction } from "@/db/write-transaction";
 import { insertDay, insertSlots, slotsOf, findDay } from "@/db/giveaways";
 import { recordAudit } from "@/db/audit";
@@ -8,10 +8,12 @@ import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import type { CreateGiveawayInput } from "@/lib/validation/giveaways";
 import { staffDayView } from "@/lib/giveaways/view";
 import type { CouncilStaff } from "@/lib/auth/council-access";
+import { resolveContext, type Context } from "@/lib/services/context";
 import { defaultBookingClose , slotInstants , assertNotPast } from "@/lib/giveaways/slots";
 
 
-export async function createGiveaway(ctx: CouncilStaff, input: CreateGiveawayInput, clock: () => Date = () => new Date()) {
+export async function createGiveaway(staff: CouncilStaff, input: CreateGiveawayInput, ctx: Context = {}) {
+  const { db: q, clock } = resolveContext(ctx);
   const now = clock();
   assertNotPast(input.date, input.time_zone, now);
   const opens = input.booking_opens_at ?? now.toISOString();
@@ -23,13 +25,13 @@ export async function createGiveaway(ctx: CouncilStaff, input: CreateGiveawayInp
     throw new ApiError("invalid_input", "Booking must close after it opens.", { booking_closes_at: "Booking must close after it opens; choose a later closing time." });
   }
   const id = newId();
-  const approx = approximatePoint({ owner: placeOwner({ organisation_id: ctx.organisationId }), lat: input.location.lat, lng: input.location.lng });
-  return writeTransaction(db(), async (trx) => {
+  const approx = approximatePoint({ owner: placeOwner({ organisation_id: staff.organisationId }), lat: input.location.lat, lng: input.location.lng });
+  return writeTransaction(q, async (trx) => {
     await insertDay(
       {
         id,
-        organisation_id: ctx.organisationId,
-        created_by: ctx.userId,
+        organisation_id: staff.organisationId,
+        created_by: staff.userId,
         material_code: input.material,
         title: input.title,
         notes: input.notes,
@@ -54,7 +56,7 @@ export async function createGiveaway(ctx: CouncilStaff, input: CreateGiveawayInp
     await insertSlots(id, slotInstants(input.date, input.time_zone, input.slots), trx);
     const day = (await findDay(id, trx))!;
     const slots = await slotsOf([id], trx);
-    await recordAudit({ actor_id: ctx.userId, action: "giveaway.create", subject_type: "giveaway_day", subject_id: id, after: { ...day, slots } }, trx);
-    return staffDayView(day, slots, ctx.organisationName);
+    await recordAudit({ actor_id: staff.userId, action: "giveaway.create", subject_type: "giveaway_day", subject_id: id, after: { ...day, slots } }, trx);
+    return staffDayView(day, slots, staff.organisationName);
   });
 }

@@ -1,20 +1,21 @@
 import "server-only";
 import type { Knex } from "knex";
-import { db } from "@/db/index";
 import { writeTransaction } from "@/db/write-transaction";
 import { findBooking, releaseSlotPlace } from "@/db/giveaways";
 import { enqueueEmail } from "@/db/outbox";
 import type { GiveawayBookingRow } from "@/db/types";
 import { holdMinutes } from "@/lib/reservations/policy";
-import { householdOf, settleBookingDeposit } from "@/lib/services/giveaways/giveaway-deposit";
+import { householdOf, settleBookingDeposit } from "@/lib/services/giveaways/steps/giveaway-deposit";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /**
  * The worker's job: bookings whose deposit was not put down in time lapse; the place returns
  * and the card page closes. Each booking is its own transaction: one that cannot be lapsed is
  * logged and left for the next run, and the rest of the batch still lapses.
  */
-export async function expireGiveawayDepositHolds(clock: () => Date = () => new Date(), q: Knex = db()): Promise<{ expired: number }> {
+export async function expireGiveawayDepositHolds(ctx: Context = {}): Promise<{ expired: number }> {
+  const { db: q, clock } = resolveContext(ctx);
   const now = clock();
   const at = now.toISOString();
   const due = await q<GiveawayBookingRow>("giveaway_bookings")

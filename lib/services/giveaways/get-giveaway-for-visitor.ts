@@ -5,6 +5,7 @@ import { notFound } from "@/lib/api/errors";
 import { depositOfBooking } from "@/db/payments";
 import { openCheckout } from "@/lib/payments/checkout";
 import { cancelDeadline, publicDayView, type PublicDayView } from "@/lib/giveaways/view";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 export interface VisitorBooking {
   id: string;
@@ -25,20 +26,21 @@ export interface VisitorBooking {
 }
 
 /** A day as a visitor sees it, plus — for a household that has booked — its booking and the exact place. */
-export async function giveawayForVisitor(dayId: string, userId: string | null): Promise<{ giveaway: PublicDayView; my_booking: VisitorBooking | null }> {
-  const day = await findDay(dayId);
+export async function giveawayForVisitor(dayId: string, userId: string | null, ctx: Context = {}): Promise<{ giveaway: PublicDayView; my_booking: VisitorBooking | null }> {
+  const { db: q, clock } = resolveContext(ctx);
+  const day = await findDay(dayId, q);
   if (!day) throw notFound("That giveaway day");
-  const [slots, org] = await Promise.all([slotsOf([dayId]), findOrganisation(day.organisation_id)]);
+  const [slots, org] = await Promise.all([slotsOf([dayId], q), findOrganisation(day.organisation_id, q)]);
   const giveaway = publicDayView(day, slots, org?.name ?? "");
-  const booking = userId ? await liveBookingFor(dayId, userId) : undefined;
+  const booking = userId ? await liveBookingFor(dayId, userId, q) : undefined;
   if (!booking) return { giveaway, my_booking: null };
   const slot = slots.find((s) => s.id === booking.slot_id)!;
   let checkoutUrl: string | null = null;
   if (booking.deposit_status === "awaiting") {
-    const charge = await depositOfBooking(booking.id);
+    const charge = await depositOfBooking(booking.id, q);
     // Open already, or started again when the first try at booking could not reach Stripe
     // (unless Stripe is known to be away: then the worker opens it and e-mails the household).
-    checkoutUrl = charge && charge.waiting_for !== "stripe" ? await openCheckout(charge.id) : null;
+    checkoutUrl = charge && charge.waiting_for !== "stripe" ? await openCheckout(charge.id, clock, q) : null;
   }
   return {
     giveaway,

@@ -1,5 +1,4 @@
 import "server-only";
-import { db } from "@/db/index";
 import { writeTransaction } from "@/db/write-transaction";
 import { findBooking, findOrgDay, findSlot, setBookingStatus } from "@/db/giveaways";
 import { recordAudit } from "@/db/audit";
@@ -8,7 +7,8 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import { readableDateTime } from "@/lib/time/zoned";
 import type { CouncilStaff } from "@/lib/auth/council-access";
-import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaways/giveaway-deposit";
+import { resolveContext, type Context } from "@/lib/services/context";
+import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaways/steps/giveaway-deposit";
 
 type Attendance = "checked_in" | "booked" | "no_show";
 
@@ -18,10 +18,11 @@ type Attendance = "checked_in" | "booked" | "no_show";
  * is released on arrival; after the slot has ended, a no-show's hold is captured (kept).
  * Kept money is not handed back by undoing the mark.
  */
-export async function recordAttendance(ctx: CouncilStaff, dayId: string, bookingId: string, status: Attendance, clock: () => Date = () => new Date()) {
+export async function recordAttendance(staff: CouncilStaff, dayId: string, bookingId: string, status: Attendance, ctx: Context = {}) {
+  const { db: q, clock } = resolveContext(ctx);
   const at = clock();
-  const result = await writeTransaction(db(), async (trx) => {
-    const day = await findOrgDay(dayId, ctx.organisationId, trx);
+  const result = await writeTransaction(q, async (trx) => {
+    const day = await findOrgDay(dayId, staff.organisationId, trx);
     if (!day) throw notFound("That giveaway day");
     const before = await findBooking(bookingId, trx, { lock: true });
     if (!before || before.day_id !== dayId) throw notFound("That booking");
@@ -48,18 +49,18 @@ export async function recordAttendance(ctx: CouncilStaff, dayId: string, booking
     const now = at.toISOString();
     const patch: Partial<GiveawayBookingRow> = {
       checked_in_at: status === "checked_in" ? now : null,
-      checked_in_by: status === "checked_in" ? ctx.userId : null,
+      checked_in_by: status === "checked_in" ? staff.userId : null,
       deposit_status: deposit,
       ...(deposit !== "awaiting" ? { hold_expires_at: null } : {}),
     };
     const changed = await setBookingStatus({ id: bookingId, day_id: dayId }, [before.status], status, patch, trx);
     if (!changed) throw new ApiError("invalid_state", "This booking has just changed; reload the sheet.");
     const after = (await findBooking(bookingId, trx))!;
-    await recordAudit({ actor_id: ctx.userId, action: `giveaway.attendance_${status}`, subject_type: "giveaway_booking", subject_id: bookingId, before, after }, trx);
+    await recordAudit({ actor_id: staff.userId, action: `giveaway.attendance_${status}`, subject_type: "giveaway_booking", subject_id: bookingId, before, after }, trx);
     return { after, owed };
   });
   if (!result.owed.length) return result.after;
   // The release or capture is owed to Stripe after the commit; the worker retries a failure.
-  await runPaymentActions(result.owed, clock);
-  return (await findBooking(bookingId))!;
+  await runPaymentActions(result.owed, clock, q);
+  return (await findBooking(bookingId, q))!;
 }

@@ -1,34 +1,26 @@
 import "server-only";
-import { db } from "@/db/index";
 import { writeTransaction } from "@/db/write-transaction";
 import { findOrgDay, shiftSlots, slotsOf, updateOrgDay } from "@/db/giveaways";
 import { recordAudit } from "@/db/audit";
 import type { GiveawayDayRow } from "@/db/types";
-import { ApiError, notFound } from "@/lib/api/errors";
+import { ApiError } from "@/lib/api/errors";
 import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { wallTime, zonedToUtc } from "@/lib/time/zoned";
 import { giveawayQuantityIssue, type UpdateGiveawayInput } from "@/lib/validation/giveaways";
 import { staffDayView } from "@/lib/giveaways/view";
 import { assertNotPast } from "@/lib/giveaways/slots";
+import { scheduledOrgDay } from "@/lib/services/giveaways/steps/scheduled-org-day";
 import type { CouncilStaff } from "@/lib/auth/council-access";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** Once anyone has booked, these would change what they booked, so they stay as they are. */
 const FIXED_ONCE_BOOKED = ["date", "time_zone", "material", "unit", "bag_m3"] as const;
 
-/**
- * A day of the council's own, found and held inside `trx` (a booking waits for the change, and
- * the change sees every booking made before it): another council's day is a 404, a cancelled one a 409.
- */
-export async function scheduledOrgDay(ctx: CouncilStaff, dayId: string, trx: Parameters<typeof findOrgDay>[2]) {
-  const day = await findOrgDay(dayId, ctx.organisationId, trx, { lock: true });
-  if (!day) throw notFound("That giveaway day");
-  if (day.status !== "scheduled") throw new ApiError("invalid_state", "That day has been cancelled and can no longer change.");
-  return day;
-}
-
-export async function updateGiveaway(ctx: CouncilStaff, dayId: string, input: UpdateGiveawayInput, clock: () => Date = () => new Date()) {
-  return writeTransaction(db(), async (trx) => {
-    const before = await scheduledOrgDay(ctx, dayId, trx);
+export async function updateGiveaway(staff: CouncilStaff, dayId: string, input: UpdateGiveawayInput, ctx: Context = {}) {
+  const { db: q, clock } = resolveContext(ctx);
+  const now = clock();
+  return writeTransaction(q, async (trx) => {
+    const before = await scheduledOrgDay(staff, dayId, trx);
     const slots = await slotsOf([dayId], trx);
     const booked = slots.reduce((n, s) => n + s.booked, 0);
     if (booked > 0) {
@@ -57,7 +49,7 @@ export async function updateGiveaway(ctx: CouncilStaff, dayId: string, input: Up
     const date = input.date ?? before.date;
     const tz = input.time_zone ?? before.time_zone;
     if (date !== before.date || tz !== before.time_zone) {
-      assertNotPast(date, tz, clock());
+      assertNotPast(date, tz, now);
       Object.assign(patch, { date, time_zone: tz });
       // Nobody has booked (checked above), so the slots keep their wall-clock times on the new day.
       for (const s of slots) {
@@ -71,11 +63,11 @@ export async function updateGiveaway(ctx: CouncilStaff, dayId: string, input: Up
       throw new ApiError("invalid_input", "Booking must close after it opens.", { booking_closes_at: "Booking must close after it opens." });
     }
     Object.assign(patch, { booking_opens_at: opens, booking_closes_at: closes });
-    await updateOrgDay(dayId, ctx.organisationId, patch, trx);
-    const after = (await findOrgDay(dayId, ctx.organisationId, trx))!;
+    await updateOrgDay(dayId, staff.organisationId, patch, trx);
+    const after = (await findOrgDay(dayId, staff.organisationId, trx))!;
     const afterSlots = await slotsOf([dayId], trx);
-    await recordAudit({ actor_id: ctx.userId, action: "giveaway.update", subject_type: "giveaway_day", subject_id: dayId, before, after }, trx);
-    return staffDayView(after, afterSlots, ctx.organisationName);
+    await recordAudit({ actor_id: staff.userId, action: "giveaway.update", subject_type: "giveaway_day", subject_id: dayId, before, after }, trx);
+    return staffDayView(after, afterSlots, staff.organisationName);
   });
 }
 

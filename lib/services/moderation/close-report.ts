@@ -1,5 +1,4 @@
 import "server-only";
-import { db } from "@/db/index";
 import { writeTransaction } from "@/db/write-transaction";
 import { closeReportRow, findReport } from "@/db/reports";
 import { findListingBrief } from "@/db/listing-status";
@@ -8,6 +7,7 @@ import { enqueueEmail } from "@/db/outbox";
 import { auditActionsSince, recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { REPORT_REASON_LABELS } from "@/lib/validation/moderation";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 const ACTION_WORDS: Record<string, string> = {
   "listing.hide": "hid the listing",
@@ -19,8 +19,9 @@ const ACTION_WORDS: Record<string, string> = {
 };
 
 /** Closes a report with a note and tells the reporter the outcome, through the outbox, in one transaction. */
-export async function closeReport(moderatorId: string, reportId: string, note: string) {
-  return writeTransaction(db(), async (trx) => {
+export async function closeReport(moderatorId: string, reportId: string, note: string, ctx: Context = {}) {
+  const { db: q } = resolveContext(ctx);
+  return writeTransaction(q, async (trx) => {
     const report = await findReport(reportId, trx);
     if (!report) throw notFound("That report");
     if (!(await closeReportRow(reportId, moderatorId, note, trx))) throw new ApiError("invalid_state", "That report is already closed.");

@@ -1,12 +1,13 @@
 import "server-only";
-import { db } from "@/db/index";
 import { rolesOf, setRole } from "@/db/users";
 import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import type { Role } from "@/lib/auth/roles";
+import { resolveContext, type Context } from "@/lib/services/context";
 
-export async function decideRoleRequest(moderatorId: string, userId: string, role: Role, decision: "approve" | "refuse") {
-  return db().transaction(async (trx) => {
+export async function decideRoleRequest(moderatorId: string, userId: string, role: Role, decision: "approve" | "refuse", ctx: Context = {}) {
+  const { db: q } = resolveContext(ctx);
+  return q.transaction(async (trx) => {
     const current = (await rolesOf(userId, trx)).find((r) => r.role === role);
     if (!current) throw notFound("That request");
     if (current.status !== "requested") throw new ApiError("invalid_state", "That request has already been decided.");

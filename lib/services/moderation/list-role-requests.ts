@@ -1,6 +1,8 @@
 import { pendingRoleRequests } from "@/db/organisations";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** Requests for a role that wait for a moderator's decision. */
-export async function listRoleRequests() {
-  return pendingRoleRequests();
+export async function listRoleRequests(ctx: Context = {}) {
+  const { db: q } = resolveContext(ctx);
+  return pendingRoleRequests(q);
 }

@@ -1,11 +1,11 @@
 import "server-only";
-import { db } from "@/db/index";
 import { writeTransaction } from "@/db/write-transaction";
 import { findListingBrief } from "@/db/listing-status";
 import { moveStatus } from "@/db/listings";
 import type { ListingStatus } from "@/db/types";
 import { lastAudit, recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 // A moderator's actions on a listing or an account. Each one is a conditional change and an
 // audit row in one transaction, so the log can never disagree with what happened.
@@ -13,8 +13,9 @@ import { ApiError, notFound } from "@/lib/api/errors";
 export type ListingAction = "hide" | "restore";
 export type UserAction = "suspend" | "restore" | "verify" | "unverify";
 
-export async function moderateListing(moderatorId: string, listingId: string, action: ListingAction, note: string, reportId?: string) {
-  return writeTransaction(db(), async (trx) => {
+export async function moderateListing(moderatorId: string, listingId: string, action: ListingAction, note: string, reportId?: string, ctx: Context = {}) {
+  const { db: q } = resolveContext(ctx);
+  return writeTransaction(q, async (trx) => {
     const before = await findListingBrief(listingId, trx);
     if (!before) throw notFound("That listing");
     let to: ListingStatus;

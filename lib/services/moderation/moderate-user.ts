@@ -1,5 +1,4 @@
 import "server-only";
-import { db } from "@/db/index";
 import { writeTransaction } from "@/db/write-transaction";
 import { findUserById, rolesOf, updateUser } from "@/db/users";
 import { recordAudit } from "@/db/audit";
@@ -7,12 +6,14 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import { LISTING_ROLES } from "@/lib/auth/roles";
 import { endEverySession } from "@/lib/auth/sessions";
 import { UserAction } from "@/lib/services/moderation/moderate-account";
+import { resolveContext, type Context } from "@/lib/services/context";
 
-export async function moderateUser(moderatorId: string, userId: string, action: UserAction, note: string, reportId?: string, clock: () => Date = () => new Date()) {
+export async function moderateUser(moderatorId: string, userId: string, action: UserAction, note: string, reportId?: string, ctx: Context = {}) {
+  const { db: q, clock } = resolveContext(ctx);
   if (userId === moderatorId && (action === "suspend" || action === "verify")) {
     throw new ApiError("invalid_state", "Another moderator has to do that for your own account.");
   }
-  return writeTransaction(db(), async (trx) => {
+  return writeTransaction(q, async (trx) => {
     const user = await findUserById(userId, trx);
     if (!user) throw notFound("That person");
     const now = clock().toISOString();

@@ -2,7 +2,7 @@ import "server-only";
 import type { Knex } from "knex";
 import type { PaymentRow } from "@/db/types";
 import { ownerOf, type PaymentOwner } from "@/lib/payments/owner";
-import { bookingDepositFollows, depositPageReady } from "@/lib/services/giveaways/giveaway-deposit";
+import { bookingDepositFollows, depositPageReady } from "@/lib/services/giveaways/steps/giveaway-deposit";
 import { reservationCheckoutReady, reservationFollowsPayment } from "@/lib/services/reservations/follow-payment";
 
 // The one map of what follows a payment change, by the kind of owner it pays for (a

@@ -15,7 +15,7 @@ export const GET = withAuth(async ({ user }) => {
 // POST /api/council/giveaways — a new giveaway day with its slots.
 export const POST = withAuth(async ({ req, user }) => {
   requireVerifiedEmail(user);
-  const ctx = councilOf(user);
+  const staff = councilOf(user);
   const input = parseInput(createGiveawaySchema, await readJson(req));
-  return NextResponse.json({ giveaway: await createGiveaway(ctx, input) }, { status: 201 });
+  return NextResponse.json({ giveaway: await createGiveaway(staff, input) }, { status: 201 });
 }, ["council"]);

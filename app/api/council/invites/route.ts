@@ -13,7 +13,7 @@ export const GET = withAuth(async ({ user }) => {
 
 // POST /api/council/invites — the owner invites a colleague by e-mail.
 export const POST = withAuth(async ({ req, user }) => {
-  const ctx = councilOwnerOf(user);
+  const staff = councilOwnerOf(user);
   const input = parseInput(inviteSchema, await readJson(req));
-  return NextResponse.json({ invite: await inviteStaff(ctx, user.name, input.email) }, { status: 201 });
+  return NextResponse.json({ invite: await inviteStaff(staff, user.name, input.email) }, { status: 201 });
 }, ["council"]);

@@ -13,7 +13,7 @@ export const GET = withAuth<{ id: string }>(async ({ params, user }) => {
 
 // PATCH /api/council/giveaways/:id — change a day (date, unit and material only before anyone books).
 export const PATCH = withAuth<{ id: string }>(async ({ req, params, user }) => {
-  const ctx = councilOf(user);
+  const staff = councilOf(user);
   const input = parseInput(updateGiveawaySchema, await readJson(req));
-  return NextResponse.json({ giveaway: await updateGiveaway(ctx, params.id, input) });
+  return NextResponse.json({ giveaway: await updateGiveaway(staff, params.id, input) });
 }, ["council"]);

@@ -10,9 +10,9 @@ import { cancelGiveaway } from "@/lib/services/giveaways/cancel-giveaway";
 // every deposit hold released. Honours an Idempotency-Key.
 export const POST = withAuth<{ id: string }>(
   idempotent(async ({ req, params, user }) => {
-    const ctx = councilOf(user);
+    const staff = councilOf(user);
     const input = parseInput(cancelGiveawaySchema, await readJson(req));
-    return NextResponse.json(await cancelGiveaway(ctx, params.id, input.reason));
+    return NextResponse.json(await cancelGiveaway(staff, params.id, input.reason));
   }),
   ["council"],
 );

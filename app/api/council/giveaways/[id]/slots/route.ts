@@ -7,7 +7,7 @@ import { addGiveawaySlots } from "@/lib/services/giveaways/change-giveaway-slots
 
 // POST /api/council/giveaways/:id/slots — add time slots (local wall-clock times of the day).
 export const POST = withAuth<{ id: string }>(async ({ req, params, user }) => {
-  const ctx = councilOf(user);
+  const staff = councilOf(user);
   const input = parseInput(addSlotsSchema, await readJson(req));
-  return NextResponse.json({ slots: await addGiveawaySlots(ctx, params.id, input.slots) }, { status: 201 });
+  return NextResponse.json({ slots: await addGiveawaySlots(staff, params.id, input.slots) }, { status: 201 });
 }, ["council"]);

@@ -10,9 +10,9 @@ type P = { id: string; slotId: string };
 
 // PATCH /api/council/giveaways/:id/slots/:slotId — change how many households a slot takes.
 export const PATCH = withAuth<P>(async ({ req, params, user }) => {
-  const ctx = councilOf(user);
+  const staff = councilOf(user);
   const input = parseInput(updateSlotSchema, await readJson(req));
-  return NextResponse.json({ slot: await resizeGiveawaySlot(ctx, params.id, params.slotId, input.capacity) });
+  return NextResponse.json({ slot: await resizeGiveawaySlot(staff, params.id, params.slotId, input.capacity) });
 }, ["council"]);
 
 // DELETE /api/council/giveaways/:id/slots/:slotId — remove a slot nobody has booked.

@@ -10,7 +10,7 @@ import { appUrl } from "@/lib/env";
 import { bookingParts } from "@/lib/mail/templates/giveaway";
 import { settleCheckout } from "@/lib/payments/owner";
 import { holdMinutes } from "@/lib/reservations/policy";
-import { enqueueBookedEmail } from "@/lib/services/giveaways/book-giveaway";
+import { enqueueBookedEmail } from "@/lib/services/giveaways/steps/enqueue-booked-email";
 
 // A giveaway day's refundable no-show deposit, held on the household's card through the same
 // payments rows, Stripe calls, webhooks and worker as a reservation's deposit:
