@@ -56,7 +56,7 @@ export async function whatsWaiting(user: SessionUser, now = new Date()): Promise
   const out: WaitingSection[] = [];
 
   if (roles.includes("gardener")) {
-    const mine = await listReservations(user.id, "gardener", { now });
+    const mine = await listReservations(user.id, "gardener", {}, { clock: () => now });
     out.push(
       section({
         id: "to-pay",
@@ -86,7 +86,7 @@ export async function whatsWaiting(user: SessionUser, now = new Date()): Promise
   }
 
   if (roles.some((r) => (LISTING_ROLES as readonly Role[]).includes(r))) {
-    const theirs = await listReservations(user.id, "supplier", { now });
+    const theirs = await listReservations(user.id, "supplier", {}, { clock: () => now });
     out.push(
       section({
         id: "to-answer",
@@ -108,7 +108,7 @@ export async function whatsWaiting(user: SessionUser, now = new Date()): Promise
   }
 
   if (roles.includes("grower")) {
-    const { orders } = await growerOrders(user.id, now);
+    const { orders } = await growerOrders(user.id, { clock: () => now });
     out.push(
       section({
         id: "to-pack",

@@ -55,6 +55,6 @@ export async function cancelGiveaway(ctx: CouncilStaff, dayId: string, reason: s
     );
     return { view: { day: staffDayView(day, await slotsOf([dayId], trx), ctx.organisationName), bookings_cancelled: booked.length }, owed };
   });
-  await runPaymentActions(result.owed, clock);
+  await runPaymentActions(result.owed, { clock });
   return result.view;
 }

@@ -60,6 +60,6 @@ export async function recordAttendance(ctx: CouncilStaff, dayId: string, booking
   });
   if (!result.owed.length) return result.after;
   // The release or capture is owed to Stripe after the commit; the worker retries a failure.
-  await runPaymentActions(result.owed, clock);
+  await runPaymentActions(result.owed, { clock });
   return (await findBooking(bookingId))!;
 }

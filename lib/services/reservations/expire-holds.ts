@@ -2,14 +2,13 @@ import "server-only";
 import type { Knex } from "knex";
 import { claimBatch } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
-import { db } from "@/db/index";
 import { reservationContext } from "@/db/reservation-context";
 import { dueForNotice, heldDueToExpire } from "@/db/reservations";
 import type { ReservationRow } from "@/db/types";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import { StaleState, closeReservation } from "@/lib/services/reservations/reservation-steps";
-import type { Clock } from "@/lib/time/clock";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 // The worker's reservation jobs. Everything they need is in the database (hold_expires_at,
 // pickup_at and the *_at markers), so a restarted worker picks up exactly where it was,
@@ -21,7 +20,8 @@ import type { Clock } from "@/lib/time/clock";
  * is its own transaction: one that cannot be expired is logged and left for the next run,
  * and the rest of the batch still expires.
  */
-export async function expireHolds(clock: Clock = () => new Date(), q: Knex = db()): Promise<{ expired: number }> {
+export async function expireHolds(ctx: Context = {}): Promise<{ expired: number }> {
+  const { db: q, clock } = resolveContext(ctx);
   const now = clock();
   let expired = 0;
   for (const due of await heldDueToExpire(now.toISOString(), 100, q)) {
@@ -44,7 +44,7 @@ export async function expireHolds(clock: Clock = () => new Date(), q: Knex = db(
       continue;
     }
     expired++;
-    await runOwedPayments("expire-holds", due.id, owed, clock, q);
+    await runOwedPayments("expire-holds", due.id, owed, { db: q, clock });
   }
   return { expired };
 }
@@ -54,9 +54,9 @@ export async function expireHolds(clock: Clock = () => new Date(), q: Knex = db(
  * transaction as the expiry, so if this fails the settle-payments job makes them later;
  * the error is logged and the batch goes on.
  */
-async function runOwedPayments(job: string, id: string, owed: string[], clock: Clock, q: Knex): Promise<void> {
+async function runOwedPayments(job: string, id: string, owed: string[], ctx: Context): Promise<void> {
   try {
-    await runPaymentActions(owed, clock, q);
+    await runPaymentActions(owed, ctx);
   } catch (err) {
     console.error(`[${job}] payments for ${id} left to settle-payments:`, err instanceof Error ? err.message : err);
   }

@@ -1,12 +1,12 @@
 import "server-only";
 import type { Knex } from "knex";
-import { db } from "@/db/index";
 import { paymentsOf } from "@/db/payments";
 import { reservationContexts } from "@/db/reservation-context";
 import { historyOf, reservationIdsFor } from "@/db/reservations";
 import type { Side } from "@/lib/reservations/policy";
 import { reservationView, type ReservationView } from "@/lib/reservations/view";
 import { shippingView, type ShippingView } from "@/lib/growers/view";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 // Reading reservations for one side: a gardener's own, or the requests on a supplier's
 // (or their organisation's) listings. Other people's reservations are simply not found.
@@ -43,9 +43,10 @@ export async function views(ids: string[], viewerId: string, side: Side, q: Knex
   );
 }
 
-export async function listReservations(userId: string, side: Side, opts: { statuses?: string[]; db?: Knex; now?: Date } = {}): Promise<ReservationView[]> {
-  const q = opts.db ?? db();
+export async function listReservations(userId: string, side: Side, opts: { statuses?: string[] } = {}, ctx: Context = {}): Promise<ReservationView[]> {
+  const { db: q, clock } = resolveContext(ctx);
+  const now = clock();
   const ids = await reservationIdsFor(userId, side, q, opts.statuses);
-  return views(ids, userId, side, q, opts.now ?? new Date());
+  return views(ids, userId, side, q, now);
 }
 
