@@ -9,7 +9,7 @@ import { mailCultureOrder } from "@/lib/mail/culture-order-mail";
 import { ORDER_TRANSITIONS, orderBlockedReason, type OrderAction } from "@/lib/reservations/culture-orders";
 import type { Side } from "@/lib/reservations/policy";
 import { shippingView } from "@/lib/growers/view";
-import { StaleState, closeReservation } from "@/lib/services/reservations/reservation-steps";
+import { StaleState, closeReservation } from "@/lib/services/reservations/steps/reservation-steps";
 import { runReservationStep } from "@/lib/services/reservations/run-reservation-step";
 import { resolveContext, type Context } from "@/lib/services/context";
 

@@ -3,7 +3,8 @@ import { anyWaitingForStripe, dueActions, wakeWaitingForStripe } from "@/db/paym
 import { STRIPE_BACKOFF } from "@/lib/payments/retry";
 import { probeStripe } from "@/lib/payments/stripe";
 import { nextCooldownMs } from "@/lib/time/backoff";
-import { attemptPaymentAction, waitForStripe } from "@/lib/services/payments/settle-payment";
+import { attemptPaymentAction } from "@/lib/services/payments/settle-payment";
+import { waitForStripe } from "@/lib/services/payments/steps/wait-for-stripe";
 import { resolveContext, type Context } from "@/lib/services/context";
 
 // When Stripe answering a question last woke the calls waiting for it, and how long the next

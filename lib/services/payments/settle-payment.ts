@@ -11,6 +11,7 @@ import { impliedEvents, recordMismatches } from "@/lib/payments/status";
 import { stripeUnreachable } from "@/lib/payments/stripe";
 import { applyStripeEvent } from "@/lib/services/payments/apply-stripe-event";
 import { ownerHooks } from "@/lib/services/payments/owners";
+import { waitForStripe } from "@/lib/services/payments/steps/wait-for-stripe";
 import { resolveContext, type Context } from "@/lib/services/context";
 
 // The one place that settles a payment with Stripe: make the Stripe call the payment owes,
@@ -133,15 +134,6 @@ export async function runPaymentActions(ids: Iterable<string>, ctx: Context = {}
     if (unreachable) await waitForStripe(id, { db: q, clock });
     else unreachable = (await attemptPaymentAction(id, { db: q, clock })) === "unreachable";
   }
-}
-
-/** Leaves a payment's owed call to the worker, due as soon as Stripe answers again. */
-export async function waitForStripe(id: string, ctx: Context = {}) {
-  const { db: q, clock } = resolveContext(ctx);
-  await q("payments")
-    .where({ id })
-    .whereNotNull("pending_action")
-    .update({ waiting_for: "stripe", next_action_at: new Date(clock().getTime() + actionRetryDelayMs(1)).toISOString() });
 }
 
 /**

@@ -6,7 +6,7 @@ import { ApiError } from "@/lib/api/errors";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { pickupCodeMatches } from "@/lib/reservations/pickup-code";
 import { blockedReason, cancellationIsTimely, type ReservationAction, type Side } from "@/lib/reservations/policy";
-import { closeReservation, confirmReservation } from "@/lib/services/reservations/reservation-steps";
+import { closeReservation, confirmReservation } from "@/lib/services/reservations/steps/reservation-steps";
 import { runReservationStep } from "@/lib/services/reservations/run-reservation-step";
 import { resolveContext, type Context } from "@/lib/services/context";
 

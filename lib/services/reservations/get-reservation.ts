@@ -3,7 +3,7 @@ import { sideOf } from "@/db/reservations";
 import { ApiError } from "@/lib/api/errors";
 import type { ReservationView } from "@/lib/reservations/view";
 import { resolveContext, type Context } from "@/lib/services/context";
-import { views } from "@/lib/services/reservations/list-reservations";
+import { views } from "@/lib/services/reservations/steps/view-reservations";
 
 export async function getReservation(id: string, userId: string, ctx: Context = {}): Promise<ReservationView> {
   const { db: q, clock } = resolveContext(ctx);

@@ -19,7 +19,7 @@ import { nextOccurrence } from "@/lib/reservations/pickup-times";
 import { cultureOptions, defaultFulfilment, type Fulfilment } from "@/lib/reservations/culture-orders";
 import { findShipping } from "@/db/grower-shipping";
 import { packOf, wholePackProblem } from "@/lib/listings/packs";
-import { confirmReservation, pickupTimes } from "@/lib/services/reservations/reservation-steps";
+import { confirmReservation, pickupTimes } from "@/lib/services/reservations/steps/reservation-steps";
 import { shippingView } from "@/lib/growers/view";
 import { formatMoney } from "@/lib/format/money";
 import { resolveContext, type Context } from "@/lib/services/context";

@@ -7,7 +7,7 @@ import { writeTransaction } from "@/db/write-transaction";
 import { ApiError } from "@/lib/api/errors";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import type { Side } from "@/lib/reservations/policy";
-import { StaleState } from "@/lib/services/reservations/reservation-steps";
+import { StaleState } from "@/lib/services/reservations/steps/reservation-steps";
 
 export interface StepRun {
   reservationId: string;

@@ -5,7 +5,7 @@ import type { ReservationRow } from "@/db/types";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { EXPIRY_WARNING_MINUTES, PICKUP_REMINDER_HOURS } from "@/lib/reservations/policy";
 import { resolveContext, type Context } from "@/lib/services/context";
-import { sendNotices } from "@/lib/services/reservations/expire-holds";
+import { sendNotices } from "@/lib/services/reservations/steps/send-notices";
 
 /**
  * "Your hold ends soon" (the gardener, before a checkout's hold ends), "waiting for your
