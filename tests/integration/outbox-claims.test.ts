@@ -157,6 +157,23 @@ describe("recording a send", () => {
   });
 });
 
+describe("the job's context", () => {
+  it("claims nothing once the worker is stopping, and names the worker on the claims it makes", async () => {
+    await queue(1, "Named");
+    expect(await deliverOutbox({ signal: AbortSignal.abort() })).toEqual({ sent: 0, failed: 0 });
+    expect(smtp.messages).toHaveLength(0);
+    expect(await ctx.db("email_outbox").first("status", "claimed_by")).toEqual({ status: "pending", claimed_by: null });
+    // The "sent" mark is refused, so the claim the run made stays on the row to be read.
+    const allowMark = await refuseWrites(ctx.db, { name: "refuse_named_mark", table: "email_outbox", event: "UPDATE", when: "NEW.status = 'sent'", message: "disk I/O error" });
+    expect(await deliverOutbox({ workerId: "worker:named" })).toEqual({ sent: 1, failed: 0 });
+    expect(await ctx.db("email_outbox").first("status", "claimed_by")).toEqual({ status: "pending", claimed_by: "worker:named" });
+    await allowMark();
+    expect(await deliverOutbox({ workerId: "worker:named" })).toEqual({ sent: 0, failed: 0 });
+    expect(messagesInFlight()).toHaveLength(0);
+    expect(await ctx.db("email_outbox").first("status", "claimed_by")).toEqual({ status: "sent", claimed_by: null });
+  });
+});
+
 describe("a mail server that is not answering", () => {
   it("hangs: one short timeout, then the batch moves on and the rest wait for the server", async () => {
     const silent = await startSilentServer(); // takes the connection, never greets
