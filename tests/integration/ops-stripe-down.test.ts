@@ -163,6 +163,18 @@ describe("calls owed to Stripe", () => {
     expect(await settlePayments({ clock: () => new Date() })).toMatchObject({ done: 3, failed: 0 });
     for (const c of charges) expect((await ctx.db("payments").first("status", "pending_action").where({ id: c.id }))).toEqual({ status: "expired", pending_action: null });
   }, 30_000);
+
+  it("are left alone by a worker that is stopping, and made by the next run", async () => {
+    stripeAt(await closedPort());
+    const { res } = await reserveStraw(1);
+    const id = res.json.reservation.id;
+    expect(await charge(id)).toMatchObject({ pending_action: "open", waiting_for: "stripe" });
+    stripeBack();
+    expect(await settlePayments({ signal: AbortSignal.abort() })).toEqual({ done: 0, failed: 0 });
+    expect(await charge(id)).toMatchObject({ status: "creating", pending_action: "open" });
+    expect(await settlePayments()).toMatchObject({ done: 1, failed: 0 });
+    expect(await charge(id)).toMatchObject({ status: "open", pending_action: null });
+  }, 30_000);
 });
 
 describe("a reservation that ends with its checkout unpaid", () => {

@@ -9,10 +9,9 @@ import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import { StaleState, closeReservation } from "@/lib/services/reservations/steps/reservation-steps";
 import { resolveContext, type Context } from "@/lib/services/context";
 
-// The worker's reservation jobs. Everything they need is in the database (hold_expires_at,
-// pickup_at and the *_at markers), so a restarted worker picks up exactly where it was,
-// and the clock is a parameter so tests can move time.
-
+// The worker's hold-expiry job (the reminders are send-reservation-reminders.ts). Everything
+// it needs is in the database (hold_expires_at), so a restarted worker picks up exactly where
+// it was, and the clock comes in the context so tests can move time.
 
 /**
  * Ends every hold whose time is up: the quantity returns, and any money goes back. Each hold
