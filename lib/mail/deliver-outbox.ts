@@ -9,6 +9,9 @@ import {
   type SentText,
 } from "@/db/outbox";
 import type { OutboxRow } from "@/db/types";
+import type { Knex } from "knex";
+import { db as appDb } from "@/db/index";
+import { systemClock, type Clock } from "@/lib/time/clock";
 import { backoffDelayMs, nextCooldownMs, type Backoff } from "@/lib/time/backoff";
 import { renderTemplate } from "./templates";
 import { mailFailure, probeMail, sendMail } from "./transport";
@@ -33,10 +36,16 @@ export function retryDelayMs(attempts: number): number {
   return backoffDelayMs(attempts, MAIL_BACKOFF);
 }
 
-export interface DeliverOptions {
-  /** Set when the worker is stopping: no new message is claimed. */
+/**
+ * The job's context, the worker's job context spelled out (lib/mail sits below the services,
+ * so it does not import their Context type): the database and the clock (the app's own when
+ * left out), the signal set when the worker is stopping (no new message is claimed then), and
+ * the worker's name, put on its claims so it can release them at shutdown.
+ */
+export interface DeliverContext {
+  db?: Knex;
+  clock?: Clock;
   signal?: AbortSignal;
-  /** Names this worker on its claims, so it can release them at shutdown. */
   workerId?: string;
 }
 
@@ -59,10 +68,11 @@ export function messagesInFlight(): string[] {
 }
 
 /** Writes the marks still owed; returns how many are still owed afterwards. */
-export async function markAccepted(): Promise<number> {
+export async function markAccepted(ctx: Pick<DeliverContext, "db"> = {}): Promise<number> {
+  const q = ctx.db ?? appDb();
   for (const [id, { messageId, acceptedAt, sent }] of unmarked) {
     try {
-      await markSent(id, acceptedAt, messageId, sent);
+      await markSent(id, acceptedAt, messageId, sent, q);
       unmarked.delete(id);
     } catch (err) {
       console.error(`[outbox] message ${id} was accepted by the mail server; marking it sent failed again:`, (err as Error).message);
@@ -98,30 +108,31 @@ export function renderOutboxRow(row: Pick<OutboxRow, "template" | "data" | "subj
  * tried one slow timeout after another: everything due waits for the server, and the first
  * run that finds it answering again sends it all, whatever each message's backoff said.
  */
-export async function deliverOutbox(clock: () => Date = () => new Date(), opts: DeliverOptions = {}): Promise<{ sent: number; failed: number }> {
-  const workerId = opts.workerId ?? `process:${process.pid}`;
+export async function deliverOutbox(ctx: DeliverContext = {}): Promise<{ sent: number; failed: number }> {
+  const { db: q = appDb(), clock = systemClock, signal } = ctx;
+  const workerId = ctx.workerId ?? `process:${process.pid}`;
   let sent = 0;
   let failed = 0;
-  if ((await markAccepted()) > 0) return { sent, failed };
+  if ((await markAccepted({ db: q })) > 0) return { sent, failed };
   const start = clock();
   let woke = false;
-  if (await anyWaitingForMailServer()) {
+  if (await anyWaitingForMailServer(q)) {
     if (Date.now() - lastWake < wakeCooldownMs || !(await probeMail()).ok) return { sent, failed };
     lastWake = Date.now();
     woke = true;
-    await wakeWaitingForMailServer(start.toISOString());
+    await wakeWaitingForMailServer(start.toISOString(), q);
   }
-  for (const mail of await dueEmails(start.toISOString())) {
-    if (opts.signal?.aborted) break;
+  for (const mail of await dueEmails(start.toISOString(), undefined, q)) {
+    if (signal?.aborted) break;
     const at = clock();
-    if (!(await claimEmail(mail.id, at.toISOString(), new Date(at.getTime() + CLAIM_MS).toISOString(), workerId))) continue; // another worker has it
+    if (!(await claimEmail(mail.id, at.toISOString(), new Date(at.getTime() + CLAIM_MS).toISOString(), workerId, q))) continue; // another worker has it
     let rendered: SentText;
     try {
       rendered = renderOutboxRow(mail);
     } catch (err) {
       // Sending again would render the same way: the message fails for good, and says why.
       failed++;
-      await markFailedAttempt(mail.id, { attempts: mail.attempts + 1, nextAt: at.toISOString(), error: `rendering failed: ${(err as Error).message}`, giveUp: true, waitingFor: null });
+      await markFailedAttempt(mail.id, { attempts: mail.attempts + 1, nextAt: at.toISOString(), error: `rendering failed: ${(err as Error).message}`, giveUp: true, waitingFor: null }, q);
       console.error(`[outbox] message ${mail.id} (${mail.template}) could not be rendered:`, (err as Error).message);
       continue;
     }
@@ -136,11 +147,11 @@ export async function deliverOutbox(clock: () => Date = () => new Date(), opts: 
       const { service, permanent } = mailFailure(err);
       const nextAt = new Date(at.getTime() + retryDelayMs(attempts)).toISOString();
       const expired = at.getTime() - new Date(mail.created_at).getTime() >= GIVE_UP_AFTER_MS;
-      await markFailedAttempt(mail.id, { attempts, nextAt, error: (err as Error).message, giveUp: permanent || expired, waitingFor: service ? "smtp" : null });
+      await markFailedAttempt(mail.id, { attempts, nextAt, error: (err as Error).message, giveUp: permanent || expired, waitingFor: service ? "smtp" : null }, q);
       if (service) {
         if (woke) wakeCooldownMs = nextCooldownMs(wakeCooldownMs, WAKE_COOLDOWN);
         probeMail.reset();
-        await holdForMailServer(at.toISOString(), nextAt);
+        await holdForMailServer(at.toISOString(), nextAt, q);
         break;
       }
       continue;
@@ -150,8 +161,8 @@ export async function deliverOutbox(clock: () => Date = () => new Date(), opts: 
     unmarked.set(mail.id, { messageId, acceptedAt: clock().toISOString(), sent: mail.data == null ? undefined : rendered });
     sending = null;
     // A message went through: anything still waiting for the server is due now.
-    if (sent === 1 && (await anyWaitingForMailServer())) await wakeWaitingForMailServer(clock().toISOString());
-    if ((await markAccepted()) > 0) break; // sent, but the database will not record it: stop here
+    if (sent === 1 && (await anyWaitingForMailServer(q))) await wakeWaitingForMailServer(clock().toISOString(), q);
+    if ((await markAccepted({ db: q })) > 0) break; // sent, but the database will not record it: stop here
   }
   return { sent, failed };
 }

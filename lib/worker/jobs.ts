@@ -27,14 +27,14 @@ export interface Job {
 
 // Background work; each job keeps its state in the database, so a restart loses nothing.
 export const jobs: Job[] = [
-  { name: "deliver-outbox", everyMs: 2_000, run: (ctx) => deliverOutbox(ctx.clock, ctx) },
+  { name: "deliver-outbox", everyMs: 2_000, run: (ctx) => deliverOutbox(ctx) },
   // Reads already treat a listing past its end date as expired; this makes the row say so.
   { name: "expire-listings", everyMs: 60_000, run: (ctx) => expireListings(ctx) },
   { name: "bed-reminders", everyMs: 60_000, run: (ctx) => sendBedReminders(ctx) },
-  { name: "expire-holds", everyMs: 15_000, run: (ctx) => expireHolds(ctx.clock, ctx.db) },
+  { name: "expire-holds", everyMs: 15_000, run: (ctx) => expireHolds(ctx) },
   // Giveaway bookings whose no-show deposit was not put down within the hold.
   { name: "expire-giveaway-deposits", everyMs: 15_000, run: (ctx) => expireGiveawayDepositHolds(ctx) },
-  { name: "reservation-reminders", everyMs: 60_000, run: (ctx) => sendReservationReminders(ctx.clock, ctx.db) },
+  { name: "reservation-reminders", everyMs: 60_000, run: (ctx) => sendReservationReminders(ctx) },
   // Listings posted, restocked, changed or come into their dates, against the open needs
   // (the services alert at once; this is the net, and the only path for a start date arriving).
   { name: "alert-needs", everyMs: 30_000, run: (ctx) => alertDueListings(ctx) },
@@ -48,7 +48,7 @@ export const jobs: Job[] = [
   {
     name: "settle-payments",
     everyMs: 5_000,
-    run: async (ctx) => ({ ...(await settlePayments(ctx.clock, ctx.db, ctx)), ...(await recoverOpenPayments(ctx.clock, ctx.db)) }),
+    run: async (ctx) => ({ ...(await settlePayments(ctx)), ...(await recoverOpenPayments({}, ctx)) }),
   },
   // First answers kept for Idempotency-Key retries live a day.
   { name: "prune-idempotency-keys", everyMs: 60 * 60_000, run: async (ctx) => ({ pruned: await pruneIdempotencyKeys((ctx.clock ?? systemClock)().toISOString(), ctx.db) }) },

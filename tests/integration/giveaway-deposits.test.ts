@@ -100,7 +100,7 @@ describe("booking a day that asks a deposit", () => {
     expect(paid.status).toBe(303);
     expect((await booking(id)).deposit_status).toBe("awaiting");
     // The worker's lost-webhook net brings it up to Stripe's record (intent authorised).
-    await recoverOpenPayments(() => new Date(Date.now() + 10 * 60_000));
+    await recoverOpenPayments({}, { clock: () => new Date(Date.now() + 10 * 60_000) });
     expect(await booking(id)).toMatchObject({ status: "booked", deposit_status: "held", hold_expires_at: null });
     expect(await deposit(id)).toMatchObject({ status: "authorised", kind: "deposit" });
     expect((await intentOf(id)).status).toBe("requires_capture");

@@ -40,7 +40,7 @@ describe("the local SMTP fake and its inbox", () => {
     await queueRendered({ to: "b@example.test", subject: "Queued 0", text: "x", dedupe_key: "q0" }); // same key: kept once
     const t0 = new Date();
     // The first refusal is enough: the others wait for the server instead of each failing in turn.
-    expect(await deliverOutbox(() => t0)).toEqual({ sent: 0, failed: 1 });
+    expect(await deliverOutbox({ clock: () => t0 })).toEqual({ sent: 0, failed: 1 });
     const pending = await ctx.db("email_outbox").where({ status: "pending" }).orderBy("attempts", "desc");
     expect(pending).toHaveLength(3);
     expect(pending.every((p: any) => p.waiting_for === "smtp" && p.next_attempt_at === new Date(t0.getTime() + retryDelayMs(1)).toISOString())).toBe(true);
@@ -49,8 +49,8 @@ describe("the local SMTP fake and its inbox", () => {
 
     smtp = await startSmtpFake({ smtpPort: port });
     // Back before the backoff is over: the next run finds the server answering and sends it all.
-    expect(await deliverOutbox(() => new Date(t0.getTime() + 1000))).toEqual({ sent: 3, failed: 0 });
-    expect(await deliverOutbox(() => new Date(t0.getTime() + 2000))).toEqual({ sent: 0, failed: 0 });
+    expect(await deliverOutbox({ clock: () => new Date(t0.getTime() + 1000) })).toEqual({ sent: 3, failed: 0 });
+    expect(await deliverOutbox({ clock: () => new Date(t0.getTime() + 2000) })).toEqual({ sent: 0, failed: 0 });
     const got = smtp.messages.filter((m) => m.to.includes("b@example.test")).map((m) => m.subject).sort();
     expect(got).toEqual(["Queued 0", "Queued 1", "Queued 2"]);
   });

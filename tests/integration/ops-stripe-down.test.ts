@@ -110,7 +110,7 @@ describe("reserving a priced listing while Stripe takes the connection and never
     // Before its backoff is over: Stripe answering again is what makes it due.
     const now = new Date();
     expect(new Date(pending.next_action_at).getTime()).toBeGreaterThan(now.getTime());
-    const done = await settlePayments(() => now);
+    const done = await settlePayments({ clock: () => now });
     expect(done.done).toBeGreaterThanOrEqual(1);
     expect(await charge(id)).toMatchObject({ status: "open", pending_action: null, waiting_for: null, last_error: null });
     const v = await view(id);
@@ -141,7 +141,7 @@ describe("calls owed to Stripe", () => {
     const refund = await ctx.db("payments").first("*").where({ reservation_id: id, kind: "refund" });
     expect(refund).toMatchObject({ pending_action: "refund", waiting_for: "stripe", action_attempts: 1 });
     stripeBack();
-    expect(await settlePayments(() => new Date())).toMatchObject({ done: 1, failed: 0 });
+    expect(await settlePayments({ clock: () => new Date() })).toMatchObject({ done: 1, failed: 0 });
     expect(await ctx.db("payments").first("*").where({ id: refund.id })).toMatchObject({ pending_action: null, status: "succeeded" });
   }, 30_000);
 
@@ -160,8 +160,20 @@ describe("calls owed to Stripe", () => {
     expect(after.map((p: { action_attempts: number }) => p.action_attempts)).toEqual([1, 0, 0]);
     expect(after.every((p: { pending_action: string; waiting_for: string }) => p.pending_action === "expire" && p.waiting_for === "stripe")).toBe(true);
     stripeBack();
-    expect(await settlePayments(() => new Date())).toMatchObject({ done: 3, failed: 0 });
+    expect(await settlePayments({ clock: () => new Date() })).toMatchObject({ done: 3, failed: 0 });
     for (const c of charges) expect((await ctx.db("payments").first("status", "pending_action").where({ id: c.id }))).toEqual({ status: "expired", pending_action: null });
+  }, 30_000);
+
+  it("are left alone by a worker that is stopping, and made by the next run", async () => {
+    stripeAt(await closedPort());
+    const { res } = await reserveStraw(1);
+    const id = res.json.reservation.id;
+    expect(await charge(id)).toMatchObject({ pending_action: "open", waiting_for: "stripe" });
+    stripeBack();
+    expect(await settlePayments({ signal: AbortSignal.abort() })).toEqual({ done: 0, failed: 0 });
+    expect(await charge(id)).toMatchObject({ status: "creating", pending_action: "open" });
+    expect(await settlePayments()).toMatchObject({ done: 1, failed: 0 });
+    expect(await charge(id)).toMatchObject({ status: "open", pending_action: null });
   }, 30_000);
 });
 
@@ -183,7 +195,7 @@ describe("a reservation that ends with its checkout unpaid", () => {
     stripeAt(await closedPort());
     const neverOpened = (await reserveStraw(1)).res.json.reservation.id;
     stripeBack();
-    await expireHolds(() => new Date(Date.now() + 31 * 60_000));
+    await expireHolds({ clock: () => new Date(Date.now() + 31 * 60_000) });
     for (const id of [opened, neverOpened]) {
       expect(await ctx.db("reservations").first("status", "payment_state").where({ id })).toEqual({ status: "expired", payment_state: "unpaid" });
       expect((await charge(id)).status).toBe("expired");
@@ -203,7 +215,7 @@ describe("a giveaway deposit while Stripe is away", () => {
     expect(booked.json.checkout_url).toBeUndefined();
     expect(booked.json.booking).toMatchObject({ status: "booked", deposit_status: "awaiting" });
     stripeBack();
-    await settlePayments(() => new Date());
+    await settlePayments({ clock: () => new Date() });
     const deposit = await ctx.db("payments").first("*").where({ giveaway_booking_id: booked.json.booking.id });
     expect(deposit).toMatchObject({ status: "open", pending_action: null });
     const mail = rendered(await ctx.db("email_outbox").first().where({ dedupe_key: `giveaway-deposit-ready:${booked.json.booking.id}` }));

@@ -91,10 +91,10 @@ describe("the claim on one message", () => {
     const t0 = new Date();
     // Another worker claimed it and has not finished (or died mid-send).
     await ctx.db("email_outbox").update({ claimed_until: new Date(t0.getTime() + CLAIM_MS).toISOString() });
-    expect(await deliverOutbox(() => new Date(t0.getTime() + 1000))).toEqual({ sent: 0, failed: 0 });
+    expect(await deliverOutbox({ clock: () => new Date(t0.getTime() + 1000) })).toEqual({ sent: 0, failed: 0 });
     expect(smtp.messages).toHaveLength(0);
 
-    expect(await deliverOutbox(() => new Date(t0.getTime() + CLAIM_MS + 1000))).toEqual({ sent: 1, failed: 0 });
+    expect(await deliverOutbox({ clock: () => new Date(t0.getTime() + CLAIM_MS + 1000) })).toEqual({ sent: 1, failed: 0 });
     expect(smtp.messages.map((m) => m.subject)).toEqual(["Held elsewhere"]);
     const row = await ctx.db("email_outbox").first();
     expect(row).toMatchObject({ status: "sent", claimed_until: null });
@@ -106,14 +106,14 @@ describe("the claim on one message", () => {
     try {
       await queueRendered({ to: "down@example.test", subject: "During an outage", text: "x" });
       const t0 = new Date();
-      expect(await deliverOutbox(() => t0)).toEqual({ sent: 0, failed: 1 });
+      expect(await deliverOutbox({ clock: () => t0 })).toEqual({ sent: 0, failed: 1 });
       const row = await ctx.db("email_outbox").first();
       expect(row).toMatchObject({ status: "pending", attempts: 1, claimed_until: null, next_attempt_at: new Date(t0.getTime() + retryDelayMs(1)).toISOString() });
     } finally {
       smtp = await startSmtpFake({ smtpPort: port });
     }
     const later = new Date(Date.now() + retryDelayMs(1) + 1000);
-    expect(await deliverOutbox(() => later)).toEqual({ sent: 1, failed: 0 });
+    expect(await deliverOutbox({ clock: () => later })).toEqual({ sent: 1, failed: 0 });
     expect(smtp.messages.map((m) => m.subject)).toEqual(["During an outage"]);
   });
 });
@@ -124,14 +124,14 @@ describe("recording a send", () => {
     // The database refuses the "sent" mark (a read-only or full disk for a moment).
     const allowMark = await refuseWrites(ctx.db, { name: "refuse_mark", table: "email_outbox", event: "UPDATE", when: "NEW.status = 'sent'", message: "disk I/O error" });
     const t0 = new Date();
-    expect(await deliverOutbox(() => t0)).toEqual({ sent: 1, failed: 0 });
+    expect(await deliverOutbox({ clock: () => t0 })).toEqual({ sent: 1, failed: 0 });
     expect(smtp.messages).toHaveLength(1);
     expect(messagesInFlight()).toHaveLength(1);
     // Still refused: the next runs try the mark only, and send nothing else meanwhile.
-    expect(await deliverOutbox(() => new Date(t0.getTime() + 2000))).toEqual({ sent: 0, failed: 0 });
+    expect(await deliverOutbox({ clock: () => new Date(t0.getTime() + 2000) })).toEqual({ sent: 0, failed: 0 });
     await allowMark();
     // Later than the claim would last: the mark still comes first, and nothing is sent twice.
-    expect(await deliverOutbox(() => new Date(t0.getTime() + CLAIM_MS + 5000))).toEqual({ sent: 0, failed: 0 });
+    expect(await deliverOutbox({ clock: () => new Date(t0.getTime() + CLAIM_MS + 5000) })).toEqual({ sent: 0, failed: 0 });
     expect(smtp.messages).toHaveLength(1);
     expect(messagesInFlight()).toHaveLength(0);
     const row = await ctx.db("email_outbox").first();
@@ -149,11 +149,28 @@ describe("recording a send", () => {
     await queue(2, "Held by a stopping worker");
     const now = new Date();
     await ctx.db("email_outbox").update({ claimed_until: new Date(now.getTime() + CLAIM_MS).toISOString(), claimed_by: "worker:old" });
-    expect(await deliverOutbox(() => now)).toEqual({ sent: 0, failed: 0 });
+    expect(await deliverOutbox({ clock: () => now })).toEqual({ sent: 0, failed: 0 });
     expect(await releaseClaims("worker:someone-else")).toBe(0); // only its own
     expect(await releaseClaims("worker:old")).toBe(2);
-    expect(await deliverOutbox(() => now)).toEqual({ sent: 2, failed: 0 });
+    expect(await deliverOutbox({ clock: () => now })).toEqual({ sent: 2, failed: 0 });
     expect(smtp.messages.map((m) => m.subject).sort()).toEqual(["Held by a stopping worker 0", "Held by a stopping worker 1"]);
+  });
+});
+
+describe("the job's context", () => {
+  it("claims nothing once the worker is stopping, and names the worker on the claims it makes", async () => {
+    await queue(1, "Named");
+    expect(await deliverOutbox({ signal: AbortSignal.abort() })).toEqual({ sent: 0, failed: 0 });
+    expect(smtp.messages).toHaveLength(0);
+    expect(await ctx.db("email_outbox").first("status", "claimed_by")).toEqual({ status: "pending", claimed_by: null });
+    // The "sent" mark is refused, so the claim the run made stays on the row to be read.
+    const allowMark = await refuseWrites(ctx.db, { name: "refuse_named_mark", table: "email_outbox", event: "UPDATE", when: "NEW.status = 'sent'", message: "disk I/O error" });
+    expect(await deliverOutbox({ workerId: "worker:named" })).toEqual({ sent: 1, failed: 0 });
+    expect(await ctx.db("email_outbox").first("status", "claimed_by")).toEqual({ status: "pending", claimed_by: "worker:named" });
+    await allowMark();
+    expect(await deliverOutbox({ workerId: "worker:named" })).toEqual({ sent: 0, failed: 0 });
+    expect(messagesInFlight()).toHaveLength(0);
+    expect(await ctx.db("email_outbox").first("status", "claimed_by")).toEqual({ status: "sent", claimed_by: null });
   });
 });
 
@@ -165,7 +182,7 @@ describe("a mail server that is not answering", () => {
       await queue(5, "Into the void");
       const started = Date.now();
       const t0 = new Date();
-      expect(await deliverOutbox(() => t0)).toEqual({ sent: 0, failed: 1 });
+      expect(await deliverOutbox({ clock: () => t0 })).toEqual({ sent: 0, failed: 1 });
       const took = Date.now() - started;
       expect(took).toBeLessThan(SMTP_TIMEOUTS.greetingTimeout + SMTP_TIMEOUTS.connectionTimeout + 2000);
       const rows = await ctx.db("email_outbox").orderBy("attempts", "desc");
@@ -176,7 +193,7 @@ describe("a mail server that is not answering", () => {
       await silent.close();
     }
     useSmtpPort(smtp.smtpPort);
-    expect(await deliverOutbox(() => new Date())).toEqual({ sent: 5, failed: 0 });
+    expect(await deliverOutbox({ clock: () => new Date() })).toEqual({ sent: 5, failed: 0 });
   }, 30_000);
 
   it("answers the question but hangs up on every send: the tries stay spaced out", async () => {

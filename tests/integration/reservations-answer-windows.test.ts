@@ -89,10 +89,10 @@ describe("a free request waiting for the supplier", () => {
     const t0 = new Date(r.created_at).getTime();
     expect(Math.abs(new Date(r.answer_remind_at).getTime() - (t0 + (w.start.getTime() - t0) / 2))).toBeLessThanOrEqual(1);
     // Reminded once, half-way (five hours in), then expired at the pickup's start if still unanswered.
-    expect((await sendReservationReminders(() => new Date(t0 + 4 * HOUR))).warned).toBe(0);
-    expect((await sendReservationReminders(() => new Date(t0 + 5.1 * HOUR))).warned).toBe(1);
-    expect((await expireHolds(() => new Date(w.start.getTime() - MIN))).expired).toBe(0);
-    expect((await expireHolds(() => new Date(w.start.getTime() + 1000))).expired).toBe(1);
+    expect((await sendReservationReminders({ clock: () => new Date(t0 + 4 * HOUR) })).warned).toBe(0);
+    expect((await sendReservationReminders({ clock: () => new Date(t0 + 5.1 * HOUR) })).warned).toBe(1);
+    expect((await expireHolds({ clock: () => new Date(w.start.getTime() - MIN) })).expired).toBe(0);
+    expect((await expireHolds({ clock: () => new Date(w.start.getTime() + 1000) })).expired).toBe(1);
   });
 
   it("refuses a dated pickup that starts before the supplier could answer", async () => {
@@ -137,7 +137,7 @@ describe("a checkout", () => {
     expect(r.answer_remind_at).toBeNull();
     // The gardener is warned ten minutes before the checkout's hold ends; the supplier is not asked yet.
     const end = new Date(r.hold_expires_at).getTime();
-    await sendReservationReminders(() => new Date(end - 9 * MIN));
+    await sendReservationReminders({ clock: () => new Date(end - 9 * MIN) });
     const warned = await db()("email_outbox").where("dedupe_key", "like", `res:${id}:expiring:%`).pluck("dedupe_key");
     expect(warned).toEqual([`res:${id}:expiring:gardener:${r.hold_expires_at}`]);
 

@@ -41,17 +41,17 @@ describe("hold expiry", () => {
     const r = await holdOne(l.id, 3);
     const t0 = new Date(r.created_at).getTime();
     // Not after the 30 minutes a checkout gets: a free request waits for its supplier.
-    expect(await expireHolds(() => new Date(t0 + minutes(DEFAULT_HOLD_MINUTES + 1)))).toEqual({ expired: 0 });
-    expect(await expireHolds(() => new Date(t0 + hours(47.9)))).toEqual({ expired: 0 });
+    expect(await expireHolds({ clock: () => new Date(t0 + minutes(DEFAULT_HOLD_MINUTES + 1)) })).toEqual({ expired: 0 });
+    expect(await expireHolds({ clock: () => new Date(t0 + hours(47.9)) })).toEqual({ expired: 0 });
     expect((await listingQuantities(l.id)).quantity_held).toBe(3);
-    expect(await expireHolds(() => new Date(t0 + hours(48) + 1000))).toEqual({ expired: 1 });
+    expect(await expireHolds({ clock: () => new Date(t0 + hours(48) + 1000) })).toEqual({ expired: 1 });
     expect((await listingQuantities(l.id)).quantity_held).toBe(0);
     const row = await db()("reservations").first("status", "closed_at").where({ id: r.id });
     expect(row.status).toBe("expired");
     const history = await db()("reservation_events").where({ reservation_id: r.id }).orderBy("id").pluck("to_status");
     expect(history).toEqual(["held", "expired"]);
     // Run again (a restarted worker): nothing more happens.
-    expect(await expireHolds(() => new Date(t0 + hours(60)))).toEqual({ expired: 0 });
+    expect(await expireHolds({ clock: () => new Date(t0 + hours(60)) })).toEqual({ expired: 0 });
     expect((await listingQuantities(l.id)).quantity_held).toBe(0);
     const mail = await db()("email_outbox").where({ template: "reservation.expired" }).andWhere("dedupe_key", "like", `res:${r.id}:%`);
     // Nothing was owed, so the supplier was the one to act: both hear it ran out.
@@ -62,7 +62,7 @@ describe("hold expiry", () => {
     const l = await createListing({ quantity_total: 5 });
     const r = await holdOne(l.id, 2);
     await call(confirm, await request(`/api/reservations/${r.id}/confirm`, { as: l.owner_id, body: {} }), { id: r.id });
-    expect(await expireHolds(() => new Date(Date.now() + minutes(120)))).toEqual({ expired: 0 });
+    expect(await expireHolds({ clock: () => new Date(Date.now() + minutes(120)) })).toEqual({ expired: 0 });
     expect((await db()("reservations").first("status").where({ id: r.id })).status).toBe("confirmed");
   });
 
@@ -82,11 +82,11 @@ describe("reminders", () => {
     const t0 = new Date(r.created_at).getTime();
     const end = new Date(r.hold_expires_at).getTime();
     expect(end - t0).toBeCloseTo(hours(48), -4);
-    expect((await sendReservationReminders(() => new Date(t0 + hours(23.5)))).warned).toBe(0);
-    expect((await sendReservationReminders(() => new Date(t0 + hours(24.1)))).warned).toBe(1);
+    expect((await sendReservationReminders({ clock: () => new Date(t0 + hours(23.5)) })).warned).toBe(0);
+    expect((await sendReservationReminders({ clock: () => new Date(t0 + hours(24.1)) })).warned).toBe(1);
     // Once: not again later, nor ten minutes before the end as a checkout's hold would be.
-    expect((await sendReservationReminders(() => new Date(t0 + hours(30)))).warned).toBe(0);
-    expect((await sendReservationReminders(() => new Date(end - minutes(9)))).warned).toBe(0);
+    expect((await sendReservationReminders({ clock: () => new Date(t0 + hours(30)) })).warned).toBe(0);
+    expect((await sendReservationReminders({ clock: () => new Date(end - minutes(9)) })).warned).toBe(0);
     const mail = await renderedRows(db()("email_outbox").where("dedupe_key", "like", `res:${r.id}:expiring:%`));
     expect(mail.map((m: any) => m.dedupe_key)).toEqual([`res:${r.id}:expiring:supplier:${r.hold_expires_at}`]);
     expect(mail[0].subject).toContain("Waiting for your answer");
@@ -98,9 +98,9 @@ describe("reminders", () => {
     await call(confirm, await request(`/api/reservations/${r.id}/confirm`, { as: l.owner_id, body: {} }), { id: r.id });
     const { pickup_at } = await db()("reservations").first("pickup_at").where({ id: r.id });
     const start = new Date(pickup_at).getTime();
-    expect((await sendReservationReminders(() => new Date(start - 30 * 3_600_000))).reminded).toBe(0);
-    expect((await sendReservationReminders(() => new Date(start - 20 * 3_600_000))).reminded).toBe(1);
-    expect((await sendReservationReminders(() => new Date(start - 19 * 3_600_000))).reminded).toBe(0);
+    expect((await sendReservationReminders({ clock: () => new Date(start - 30 * 3_600_000) })).reminded).toBe(0);
+    expect((await sendReservationReminders({ clock: () => new Date(start - 20 * 3_600_000) })).reminded).toBe(1);
+    expect((await sendReservationReminders({ clock: () => new Date(start - 19 * 3_600_000) })).reminded).toBe(0);
     const mail = await renderedRows(db()("email_outbox").where("dedupe_key", "like", `res:${r.id}:reminder:%`).orderBy("dedupe_key"));
     expect(mail.map((m: any) => m.dedupe_key)).toEqual([`res:${r.id}:reminder:gardener`, `res:${r.id}:reminder:supplier`]);
     expect(mail[0].text_body).toContain("Secret Lane");
@@ -123,10 +123,10 @@ describe("reminders with no fixed pickup time", () => {
 
     // Other tests' reservations may fall due too, so this counts this reservation's own mail.
     const mine = () => db()("email_outbox").where("dedupe_key", "like", `res:${r.id}:reminder:%`).orderBy("dedupe_key");
-    await sendReservationReminders(() => new Date(deadline - 30 * 3_600_000));
+    await sendReservationReminders({ clock: () => new Date(deadline - 30 * 3_600_000) });
     expect(await mine()).toHaveLength(0);
-    expect((await sendReservationReminders(() => new Date(deadline - 20 * 3_600_000))).reminded).toBeGreaterThanOrEqual(1);
-    await sendReservationReminders(() => new Date(deadline - 19 * 3_600_000));
+    expect((await sendReservationReminders({ clock: () => new Date(deadline - 20 * 3_600_000) })).reminded).toBeGreaterThanOrEqual(1);
+    await sendReservationReminders({ clock: () => new Date(deadline - 19 * 3_600_000) });
     const mail = await renderedRows(mine());
     expect(mail.map((m: any) => m.dedupe_key)).toEqual([`res:${r.id}:reminder:gardener`, `res:${r.id}:reminder:supplier`]);
     expect(mail[0].subject).toMatch(/^Collect by tomorrow/);
@@ -151,7 +151,7 @@ describe("a reminder that cannot be written", () => {
     const quiet = console.error;
     console.error = () => {};
     try {
-      await sendReservationReminders(() => new Date(start.getTime() - 20 * 3_600_000));
+      await sendReservationReminders({ clock: () => new Date(start.getTime() - 20 * 3_600_000) });
     } finally {
       console.error = quiet;
     }
@@ -160,7 +160,7 @@ describe("a reminder that cannot be written", () => {
     expect(await marked(ids[1])).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}/);
     expect(await marked(ids[2])).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}/);
     await allow();
-    await sendReservationReminders(() => new Date(start.getTime() - 19 * 3_600_000));
+    await sendReservationReminders({ clock: () => new Date(start.getTime() - 19 * 3_600_000) });
     expect(await marked(ids[0])).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}/);
     expect(await db()("email_outbox").where("dedupe_key", "like", `res:${ids[0]}:reminder:%`)).toHaveLength(2);
   });
@@ -176,7 +176,7 @@ describe("e-mail through an SMTP outage", () => {
     resetMailTransport();
     // Clear what earlier tests queued, so this one counts only its own.
     const t0 = new Date();
-    while ((await deliverOutbox(() => t0)).sent > 0);
+    while ((await deliverOutbox({ clock: () => t0 })).sent > 0);
     const port = smtp.smtpPort;
     await smtp.close();
 
@@ -189,16 +189,16 @@ describe("e-mail through an SMTP outage", () => {
     expect(queued).toHaveLength(12);
 
     const t1 = new Date();
-    const down = await deliverOutbox(() => t1);
+    const down = await deliverOutbox({ clock: () => t1 });
     expect(down).toEqual({ sent: 0, failed: 1 }); // one refusal, and the rest wait for the server
     expect(await db()("email_outbox").where({ status: "pending", waiting_for: "smtp" })).toHaveLength(12);
-    expect(await deliverOutbox(() => new Date(t1.getTime() + 1000))).toEqual({ sent: 0, failed: 0 }); // still down: nothing tried
+    expect(await deliverOutbox({ clock: () => new Date(t1.getTime() + 1000) })).toEqual({ sent: 0, failed: 0 }); // still down: nothing tried
 
     smtp = await startSmtpFake({ smtpPort: port });
     resetMailTransport(); // forget the last "down" answer at once, rather than in a few seconds
     const later = new Date(t1.getTime() + 2000); // well inside the backoff: the server's return is what counts
-    expect(await deliverOutbox(() => later)).toEqual({ sent: 12, failed: 0 });
-    expect(await deliverOutbox(() => new Date(later.getTime() + 60_000))).toEqual({ sent: 0, failed: 0 });
+    expect(await deliverOutbox({ clock: () => later })).toEqual({ sent: 12, failed: 0 });
+    expect(await deliverOutbox({ clock: () => new Date(later.getTime() + 60_000) })).toEqual({ sent: 0, failed: 0 });
 
     // What arrived is exactly what was queued: each message once.
     const got = smtp.messages.map((m) => `${m.to[0]}|${m.subject}`).sort();

@@ -65,7 +65,7 @@ async function paidButUnheard(opts: { price_cents?: number; deposit_cents?: numb
 describe("a checkout paid but never heard of, when its hold runs out", () => {
   it("refunds a payment in full and tells the gardener", async () => {
     const { r, listing, sessionId } = await paidButUnheard({ price_cents: 450 });
-    expect(await expireHolds(() => new Date(new Date(r.hold_expires_at).getTime() + 1000))).toEqual({ expired: 1 });
+    expect(await expireHolds({ clock: () => new Date(new Date(r.hold_expires_at).getTime() + 1000) })).toEqual({ expired: 1 });
     await pay.fake.webhooksIdle();
 
     expect(await reservation(r.id)).toMatchObject({ status: "expired", payment_state: "refunded" });
@@ -97,7 +97,7 @@ describe("a checkout paid but never heard of, when its hold runs out", () => {
     const intentId = pay.fake.state.checkoutSessions.get(sessionId)!.payment_intent!;
     expect(pay.fake.state.paymentIntents.get(intentId)!.status).toBe("requires_capture");
 
-    expect(await expireHolds(() => new Date(new Date(r.hold_expires_at).getTime() + 1000))).toEqual({ expired: 1 });
+    expect(await expireHolds({ clock: () => new Date(new Date(r.hold_expires_at).getTime() + 1000) })).toEqual({ expired: 1 });
     await pay.fake.webhooksIdle();
 
     expect(pay.fake.state.paymentIntents.get(intentId)!).toMatchObject({ status: "canceled", amount_received: 0 });

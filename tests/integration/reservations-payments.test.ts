@@ -107,7 +107,7 @@ describe("a priced listing", () => {
     expect((await act(confirm, r.id, l.owner_id)).status).toBe(409);
 
     const later = new Date(new Date(r.hold_expires_at).getTime() + 1000);
-    expect(await expireHolds(() => later)).toEqual({ expired: 1 });
+    expect(await expireHolds({ clock: () => later })).toEqual({ expired: 1 });
     await settle();
     expect((await reservation(r.id)).status).toBe("expired");
     expect((await listingQuantities(l.id)).quantity_held).toBe(0);

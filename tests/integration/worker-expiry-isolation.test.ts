@@ -42,7 +42,7 @@ describe("expire-holds", () => {
     await db()("listings").where({ id: holds[0].listingId }).update({ quantity_held: 0 });
     const logged = vi.spyOn(console, "error").mockImplementation(() => {});
 
-    expect(await expireHolds(() => now)).toEqual({ expired: 2 });
+    expect(await expireHolds({ clock: () => now })).toEqual({ expired: 2 });
 
     const status = async (id: string) => (await db()("reservations").first("status").where({ id })).status;
     expect(await status(holds[0].id)).toBe("held"); // its transaction rolled back whole
@@ -55,7 +55,7 @@ describe("expire-holds", () => {
 
     // Once the row is put right, the next run expires it.
     await db()("listings").where({ id: holds[0].listingId }).update({ quantity_held: 1 });
-    expect(await expireHolds(() => new Date(now.getTime() + 1000))).toEqual({ expired: 1 });
+    expect(await expireHolds({ clock: () => new Date(now.getTime() + 1000) })).toEqual({ expired: 1 });
     expect(await status(holds[0].id)).toBe("expired");
     expect(logged.mock.calls.filter((c) => String(c[0]).includes("[expire-holds]"))).toHaveLength(1);
   });

@@ -59,7 +59,7 @@ export async function whatsWaiting(user: SessionUser, ctx: Context = {}): Promis
   const out: WaitingSection[] = [];
 
   if (roles.includes("gardener")) {
-    const mine = await listReservations(user.id, "gardener", { now, db: q });
+    const mine = await listReservations(user.id, "gardener", {}, { db: q, clock: () => now });
     out.push(
       section({
         id: "to-pay",
@@ -89,7 +89,7 @@ export async function whatsWaiting(user: SessionUser, ctx: Context = {}): Promis
   }
 
   if (roles.some((r) => (LISTING_ROLES as readonly Role[]).includes(r))) {
-    const theirs = await listReservations(user.id, "supplier", { now, db: q });
+    const theirs = await listReservations(user.id, "supplier", {}, { db: q, clock: () => now });
     out.push(
       section({
         id: "to-answer",
@@ -111,7 +111,7 @@ export async function whatsWaiting(user: SessionUser, ctx: Context = {}): Promis
   }
 
   if (roles.includes("grower")) {
-    const { orders } = await growerOrders(user.id, now);
+    const { orders } = await growerOrders(user.id, { clock: () => now });
     out.push(
       section({
         id: "to-pack",

@@ -59,6 +59,6 @@ export async function cancelGiveawayBooking(userId: string, dayId: string, booki
     return ids;
   });
   // The Stripe call after the commit; the worker retries it if Stripe is away.
-  await runPaymentActions(owed, clock, q);
+  await runPaymentActions(owed, { db: q, clock });
   return (await findBooking(bookingId, q))!;
 }

@@ -56,6 +56,6 @@ export async function cancelGiveaway(staff: CouncilStaff, dayId: string, reason:
     );
     return { view: { day: staffDayView(day, await slotsOf([dayId], trx), staff.organisationName), bookings_cancelled: booked.length }, owed };
   });
-  await runPaymentActions(result.owed, clock, q);
+  await runPaymentActions(result.owed, { db: q, clock });
   return result.view;
 }

@@ -36,7 +36,7 @@ export async function expireGiveawayDepositHolds(ctx: Context = {}): Promise<{ e
     if (owed === null) continue; // the deposit went through a moment ago: nothing to lapse
     expired++;
     try {
-      await runPaymentActions(owed, clock, q);
+      await runPaymentActions(owed, { db: q, clock });
     } catch (err) {
       // Written down with the lapse, so the settle-payments job makes these calls later.
       console.error(`[expire-giveaway-deposits] payments for booking ${id} left to settle-payments:`, err instanceof Error ? err.message : err);

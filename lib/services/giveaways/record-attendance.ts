@@ -61,6 +61,6 @@ export async function recordAttendance(staff: CouncilStaff, dayId: string, booki
   });
   if (!result.owed.length) return result.after;
   // The release or capture is owed to Stripe after the commit; the worker retries a failure.
-  await runPaymentActions(result.owed, clock, q);
+  await runPaymentActions(result.owed, { db: q, clock });
   return (await findBooking(bookingId, q))!;
 }

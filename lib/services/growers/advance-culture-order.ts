@@ -1,6 +1,5 @@
 import "server-only";
 import type { Knex } from "knex";
-import { db } from "@/db/index";
 import { findShipping } from "@/db/grower-shipping";
 import { reservationContext } from "@/db/reservation-context";
 import { recordReservationEvent, updateReservationIf } from "@/db/reservations";
@@ -10,8 +9,9 @@ import { mailCultureOrder } from "@/lib/mail/culture-order-mail";
 import { ORDER_TRANSITIONS, orderBlockedReason, type OrderAction } from "@/lib/reservations/culture-orders";
 import type { Side } from "@/lib/reservations/policy";
 import { shippingView } from "@/lib/growers/view";
-import { StaleState, closeReservation } from "@/lib/services/reservations/reservation-steps";
+import { StaleState, closeReservation } from "@/lib/services/reservations/steps/reservation-steps";
 import { runReservationStep } from "@/lib/services/reservations/run-reservation-step";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 // The parcel steps of a posted live-culture order: packed, shipped (carrier and tracking),
 // delivered. Each is one transaction: the guarded update (status and stage in the WHERE, so
@@ -26,20 +26,20 @@ export interface OrderStepInput {
   tracking?: string;
 }
 
-export interface OrderStepDeps {
-  db?: Knex;
-  clock?: () => Date;
-}
-
-export async function advanceCultureOrder(action: OrderAction, input: OrderStepInput, deps: OrderStepDeps = {}): Promise<{ side: Side }> {
-  return runReservationStep({ db: deps.db ?? db(), reservationId: input.reservationId, userId: input.userId, clock: deps.clock, noun: "order" }, async (trx, r, side, now) => {
-    const ctx = (await reservationContext(r.id, trx))!;
-    const shipping = shippingView(await findShipping(ctx.listing.owner_id, trx));
-    const blocked = orderBlockedReason(r, action, side, { postingPaused: shipping.paused });
-    if (blocked === "wrong_party") throw new ApiError("forbidden", side === "gardener" ? "Only the grower can do that." : "Only the buyer can do that.");
-    if (blocked) throw new ApiError("invalid_state", blocked);
-    return apply(trx, action, r, side, input, now);
-  });
+export async function advanceCultureOrder(action: OrderAction, input: OrderStepInput, ctx: Context = {}): Promise<{ side: Side }> {
+  const { db: q, clock } = resolveContext(ctx);
+  return runReservationStep(
+    { reservationId: input.reservationId, userId: input.userId, noun: "order" },
+    async (trx, r, side, now) => {
+      const order = (await reservationContext(r.id, trx))!;
+      const shipping = shippingView(await findShipping(order.listing.owner_id, trx));
+      const blocked = orderBlockedReason(r, action, side, { postingPaused: shipping.paused });
+      if (blocked === "wrong_party") throw new ApiError("forbidden", side === "gardener" ? "Only the grower can do that." : "Only the buyer can do that.");
+      if (blocked) throw new ApiError("invalid_state", blocked);
+      return apply(trx, action, r, side, input, now);
+    },
+    { db: q, clock },
+  );
 }
 
 /** Moves the parcel one stage on while the reservation stays confirmed. */

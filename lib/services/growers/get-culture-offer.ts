@@ -2,6 +2,7 @@ import "server-only";
 import { findShipping } from "@/db/grower-shipping";
 import { cultureOptions, estimatedWorms, nextPostingDay } from "@/lib/reservations/culture-orders";
 import { shippingView, type ShippingView } from "@/lib/growers/view";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** What a buyer reads about a live culture before ordering: species, rough count, and how it arrives. */
 export interface CultureOffer {
@@ -17,10 +18,12 @@ export interface CultureOffer {
   next_posting_day: string | null;
 }
 
-export async function cultureOffer(l: { material: string; owner_id: string; quality: Record<string, unknown>; available: number }, now = new Date()): Promise<CultureOffer | null> {
+export async function cultureOffer(l: { material: string; owner_id: string; quality: Record<string, unknown>; available: number }, ctx: Context = {}): Promise<CultureOffer | null> {
+  const { db: q, clock } = resolveContext(ctx);
+  const now = clock();
   if (l.material !== "worms") return null;
   const options = cultureOptions(l.quality);
-  const shipping = shippingView(await findShipping(l.owner_id));
+  const shipping = shippingView(await findShipping(l.owner_id, q));
   const species = typeof l.quality.species === "string" && l.quality.species.trim() ? l.quality.species.trim() : null;
   return {
     species,

@@ -2,9 +2,11 @@ import "server-only";
 import { findShipping } from "@/db/grower-shipping";
 import { shippingView, type ShippingView } from "@/lib/growers/view";
 import type { Pack } from "@/lib/listings/packs";
+import { resolveContext, type Context } from "@/lib/services/context";
 
-export async function growerShipping(userId: string): Promise<ShippingView> {
-  return shippingView(await findShipping(userId));
+export async function growerShipping(userId: string, ctx: Context = {}): Promise<ShippingView> {
+  const { db: q } = resolveContext(ctx);
+  return shippingView(await findShipping(userId, q));
 }
 
 export interface CultureStock {

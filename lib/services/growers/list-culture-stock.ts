@@ -3,10 +3,12 @@ import { wormListingsOf } from "@/db/grower-shipping";
 import { estimatedWorms } from "@/lib/reservations/culture-orders";
 import { packOf } from "@/lib/listings/packs";
 import { CultureStock } from "@/lib/services/growers/get-grower-shipping";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** The grower's worm listings with what is left and roughly how many worms that is. */
-export async function cultureStock(userId: string): Promise<CultureStock[]> {
-  return (await wormListingsOf(userId)).map((l) => {
+export async function cultureStock(userId: string, ctx: Context = {}): Promise<CultureStock[]> {
+  const { db: q } = resolveContext(ctx);
+  return (await wormListingsOf(userId, q)).map((l) => {
     const quality = l.quality;
     const left = Math.max(0, l.quantity_total - l.quantity_held - l.quantity_collected);
     return {

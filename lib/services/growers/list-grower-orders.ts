@@ -1,10 +1,10 @@
 import "server-only";
-import { db } from "@/db/index";
 import { nextPostingDay } from "@/lib/reservations/culture-orders";
 import type { ReservationView } from "@/lib/reservations/view";
 import type { ShippingView } from "@/lib/growers/view";
 import { growerShipping } from "@/lib/services/growers/get-grower-shipping";
 import { getReservations } from "@/lib/services/reservations/get-reservations";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 // The grower's open orders: live-culture reservations on their own listings that still need
 // something from them or the post. An unpaid hold is not an order yet, so it is left out.
@@ -20,8 +20,9 @@ export interface GrowerOrders {
 const RANK: Record<string, number> = { held: 0, paid: 1, packed: 2, shipped: 3 };
 const rank = (v: ReservationView) => (v.status === "held" ? RANK.held : (RANK[v.order?.stage ?? "paid"] ?? 4));
 
-export async function growerOrders(userId: string, now = new Date()): Promise<GrowerOrders> {
-  const q = db();
+export async function growerOrders(userId: string, ctx: Context = {}): Promise<GrowerOrders> {
+  const { db: q, clock } = resolveContext(ctx);
+  const now = clock();
   const ids: string[] = await q("reservations as r")
     .join("listings as l", "l.id", "r.listing_id")
     .where("l.owner_id", userId)
@@ -30,7 +31,7 @@ export async function growerOrders(userId: string, now = new Date()): Promise<Gr
     .orderBy("r.created_at")
     .limit(200)
     .pluck("r.id");
-  const [views, shipping] = await Promise.all([getReservations(ids, userId, "supplier", { now }), growerShipping(userId)]);
+  const [views, shipping] = await Promise.all([getReservations(ids, userId, "supplier", { db: q, clock: () => now }), growerShipping(userId, { db: q, clock })]);
   return {
     orders: views.sort((a, b) => rank(a) - rank(b)),
     shipping,

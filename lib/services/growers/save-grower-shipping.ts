@@ -1,5 +1,4 @@
 import "server-only";
-import { db } from "@/db/index";
 import { lockRows } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
 import { findShipping, saveShipping , waitingPostedOrderIds } from "@/db/grower-shipping";
@@ -9,9 +8,12 @@ import { shippingView, type ShippingView } from "@/lib/growers/view";
 import type { Db } from "@/db/index";
 import { reservationContexts } from "@/db/reservation-context";
 import { mailCultureOrder } from "@/lib/mail/culture-order-mail";
+import { resolveContext, type Context } from "@/lib/services/context";
 
-export async function saveGrowerShipping(userId: string, input: ShippingInput): Promise<ShippingView> {
-  return writeTransaction(db(), async (trx) => {
+export async function saveGrowerShipping(userId: string, input: ShippingInput, ctx: Context = {}): Promise<ShippingView> {
+  const { db: q, clock } = resolveContext(ctx);
+  const now = clock();
+  return writeTransaction(q, async (trx) => {
     // One save at a time per grower (the row may not exist yet, so the person's own row is
     // held): two saves at once cannot both see "not paused" and both mail the pause.
     await lockRows(trx, "users", { id: userId });
@@ -25,7 +27,7 @@ export async function saveGrowerShipping(userId: string, input: ShippingInput): 
     };
     await saveShipping(row, trx);
     await recordAudit({ actor_id: userId, action: "grower.shipping", subject_type: "user", subject_id: userId, before: before ?? null, after: row }, trx);
-    await tellWaitingBuyers(userId, !!before?.paused, input.paused, trx);
+    await tellWaitingBuyers(userId, !!before?.paused, input.paused, trx, now);
     return shippingView(row);
   });
 }
@@ -36,12 +38,11 @@ export async function saveGrowerShipping(userId: string, input: ShippingInput): 
  * new note, another day ticked) mails nobody. The dedupe key names the pause or the resume
  * by the moment it was saved, so one pause writes at most one e-mail per order.
  */
-async function tellWaitingBuyers(userId: string, wasPaused: boolean, paused: boolean, trx: Db): Promise<void> {
+async function tellWaitingBuyers(userId: string, wasPaused: boolean, paused: boolean, trx: Db, now: Date): Promise<void> {
   if (wasPaused === paused) return;
   const ids = await waitingPostedOrderIds(userId, trx);
   if (ids.length === 0) return;
   const saved = await findShipping(userId, trx);
-  const now = new Date();
   for (const r of await reservationContexts(ids, trx)) {
     await mailCultureOrder(trx, paused ? "posting_paused" : "posting_resumed", r, ["gardener"], now, saved?.updated_at ?? now.toISOString());
   }

@@ -31,7 +31,7 @@ export async function loadAlertPage(userId: string, id: string, ctx: Context = {
   const needRow = await findOwnNeed(row.need_id, userId, q);
   if (!needRow) return null;
   const [need] = await needViews([needRow], q, now);
-  const offer = await loadReserveOffer(row.listing_id, now);
+  const offer = await loadReserveOffer(row.listing_id, { db: q, clock: () => now });
   const listing = await findListingFacts(row.listing_id, q);
   // An unreadable declaration reads as none: the material's general cautions still apply.
   const cautions = listingCautions({ material: row.material_code, unit: row.unit, unit_mass_kg: listing?.unit_mass_kg ?? null, quality: listing?.quality ?? {} });

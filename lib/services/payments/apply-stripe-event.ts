@@ -1,13 +1,12 @@
 import "server-only";
-import type { Knex } from "knex";
 import type Stripe from "stripe";
 import { isUniqueViolation } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
-import { db } from "@/db/index";
 import { findPayment, paymentByStripeRef, updatePayment } from "@/db/payments";
 import { lockOwner } from "@/lib/payments/owner";
 import { movesForward, str, targetFor } from "@/lib/payments/status";
 import { ownerHooks } from "@/lib/services/payments/owners";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 // Applies one event of Stripe's record, exactly once: the event id goes into webhook_events
 // in the same transaction as its effects, so a repeat finds the id and changes nothing, and a
@@ -27,9 +26,9 @@ class DuplicateEvent extends Error {
   }
 }
 
-export async function applyStripeEvent(event: Stripe.Event, deps: { db?: Knex; clock?: () => Date } = {}): Promise<{ outcome: "applied" | "duplicate"; owed: string[] }> {
-  const q = deps.db ?? db();
-  const now = (deps.clock ?? (() => new Date()))();
+export async function applyStripeEvent(event: Stripe.Event, ctx: Context = {}): Promise<{ outcome: "applied" | "duplicate"; owed: string[] }> {
+  const { db: q, clock } = resolveContext(ctx);
+  const now = clock();
   const at = now.toISOString();
   let owed: string[] = [];
   try {

@@ -3,7 +3,7 @@ import type { Knex } from "knex";
 import type { PaymentRow } from "@/db/types";
 import { ownerOf, type PaymentOwner } from "@/lib/payments/owner";
 import { bookingDepositFollows, depositPageReady } from "@/lib/services/giveaways/steps/giveaway-deposit";
-import { reservationCheckoutReady, reservationFollowsPayment } from "@/lib/services/reservations/follow-payment";
+import { reservationCheckoutReady, reservationFollowsPayment } from "@/lib/services/reservations/steps/follow-payment";
 
 // The one map of what follows a payment change, by the kind of owner it pays for (a
 // reservation, its culture order included, or a giveaway booking's no-show deposit). The

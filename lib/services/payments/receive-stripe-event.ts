@@ -1,12 +1,12 @@
 import "server-only";
 import type { Knex } from "knex";
 import type Stripe from "stripe";
-import { db } from "@/db/index";
 import { findPayment, paymentByStripeRef, updatePayment } from "@/db/payments";
 import type { PaymentRow } from "@/db/types";
 import { isUniqueViolation } from "@/db/dialect";
 import { syncPayment } from "@/lib/services/payments/settle-payment";
 import { retrieveRefund } from "@/lib/payments/gateway";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 // What a verified webhook does: it names a Stripe object, and Duffbank reads that object's
 // record back from Stripe through the SDK and applies what the record says (syncPayment).
@@ -59,16 +59,15 @@ export type Outcome = "applied" | "duplicate" | "ignored";
  * Handles one verified webhook event once. Throws when Stripe cannot be asked or the change
  * fails, so the route answers 500 and Stripe delivers the event again.
  */
-export async function receiveStripeEvent(event: Stripe.Event, deps: { db?: Knex; clock?: () => Date } = {}): Promise<Outcome> {
-  const q = deps.db ?? db();
-  const clock = deps.clock ?? (() => new Date());
+export async function receiveStripeEvent(event: Stripe.Event, ctx: Context = {}): Promise<Outcome> {
+  const { db: q, clock } = resolveContext(ctx);
   if (await q("webhook_events").first("id").where({ id: event.id })) return "duplicate";
   let outcome: Outcome = "ignored";
   if (ABOUT_PAYMENTS.test(event.type)) {
     const row = await checkoutRowOf(event, q);
     if (row?.provider_ref) {
       await syncRefunds(event, row, q, clock());
-      await syncPayment(row.id, clock, q);
+      await syncPayment(row.id, { db: q, clock });
       outcome = "applied";
     }
   }

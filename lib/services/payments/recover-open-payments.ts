@@ -1,9 +1,9 @@
 import "server-only";
-import type { Knex } from "knex";
-import { db, nowIso } from "@/db/index";
+import { nowIso } from "@/db/index";
 import type { PaymentRow } from "@/db/types";
 import { RECHECK_MINUTES, RECOVER_AFTER_MINUTES } from "@/lib/payments/reconcile";
 import { syncPayment } from "@/lib/services/payments/settle-payment";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 // Repairs what a lost webhook left behind. If every delivery of an event failed (the app was
 // down longer than Stripe retries, or the endpoint was misconfigured), a row would otherwise
@@ -14,7 +14,9 @@ import { syncPayment } from "@/lib/services/payments/settle-payment";
  * open a few minutes after it was made, at most every RECHECK_MINUTES each, and applies
  * what it finds (syncPayment). A payment whose webhook never came is found before its hold runs out.
  */
-export async function recoverOpenPayments(clock: () => Date = () => new Date(), q: Knex = db(), limit = 20): Promise<{ checked: number; changed: number }> {
+export async function recoverOpenPayments(opts: { limit?: number } = {}, ctx: Context = {}): Promise<{ checked: number; changed: number }> {
+  const { db: q, clock } = resolveContext(ctx);
+  const limit = opts.limit ?? 20;
   const now = clock();
   const rows = await q<PaymentRow>("payments")
     .select("id", "status")
@@ -29,7 +31,7 @@ export async function recoverOpenPayments(clock: () => Date = () => new Date(), 
   let changed = 0;
   for (const row of rows) {
     try {
-      const status = await syncPayment(row.id, clock, q);
+      const status = await syncPayment(row.id, { db: q, clock });
       if (status !== row.status) changed++;
       // Still open: note the look, so the next one waits RECHECK_MINUTES.
       else await q("payments").where({ id: row.id, status: "open" }).update({ updated_at: nowIso(clock) });

@@ -1,10 +1,11 @@
 import "server-only";
-import { db, type Db } from "@/db/index";
 import { anyWaitingForStripe, dueActions, wakeWaitingForStripe } from "@/db/payments";
 import { STRIPE_BACKOFF } from "@/lib/payments/retry";
 import { probeStripe } from "@/lib/payments/stripe";
 import { nextCooldownMs } from "@/lib/time/backoff";
-import { attemptPaymentAction, waitForStripe } from "@/lib/services/payments/settle-payment";
+import { attemptPaymentAction } from "@/lib/services/payments/settle-payment";
+import { waitForStripe } from "@/lib/services/payments/steps/wait-for-stripe";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 // When Stripe answering a question last woke the calls waiting for it, and how long the next
 // such wake must wait (0 until a woken call fails again).
@@ -16,7 +17,8 @@ const wakes = { last: 0, cooldownMs: 0 };
  * most every few seconds, or shown by any call going through) they are all due at once.
  * The first call that finds Stripe unreachable ends the batch; the rest wait for it too.
  */
-export async function settlePayments(clock: () => Date = () => new Date(), q: Db = db(), opts: { signal?: AbortSignal } = {}): Promise<{ done: number; failed: number }> {
+export async function settlePayments(ctx: Context = {}): Promise<{ done: number; failed: number }> {
+  const { db: q, clock, signal } = resolveContext(ctx);
   let done = 0;
   let failed = 0;
   let woke = false;
@@ -27,12 +29,12 @@ export async function settlePayments(clock: () => Date = () => new Date(), q: Db
   }
   let unreachable = false;
   for (const row of await dueActions(clock().toISOString(), 20, q)) {
-    if (opts.signal?.aborted) break;
+    if (signal?.aborted) break;
     if (unreachable) {
-      await waitForStripe(row.id, clock, q);
+      await waitForStripe(row.id, { db: q, clock });
       continue;
     }
-    const outcome = await attemptPaymentAction(row.id, clock, q);
+    const outcome = await attemptPaymentAction(row.id, { db: q, clock });
     if (outcome === "elsewhere") continue; // another worker took it between the read and the claim
     if (outcome === "done") {
       done++;

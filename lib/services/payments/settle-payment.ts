@@ -1,6 +1,5 @@
 import "server-only";
-import type { Knex } from "knex";
-import { db, nowIso, type Db } from "@/db/index";
+import { nowIso, type Db } from "@/db/index";
 import { findPayment, updatePayment } from "@/db/payments";
 import type { PaymentRow } from "@/db/types";
 import { writeTransaction } from "@/db/write-transaction";
@@ -12,6 +11,8 @@ import { impliedEvents, recordMismatches } from "@/lib/payments/status";
 import { stripeUnreachable } from "@/lib/payments/stripe";
 import { applyStripeEvent } from "@/lib/services/payments/apply-stripe-event";
 import { ownerHooks } from "@/lib/services/payments/owners";
+import { waitForStripe } from "@/lib/services/payments/steps/wait-for-stripe";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 // The one place that settles a payment with Stripe: make the Stripe call the payment owes,
 // read Stripe's record back, apply it. Both ways in go through here: a change that wrote
@@ -48,7 +49,7 @@ async function perform(row: PaymentRow, clock: () => Date, q: Db): Promise<Outco
       await expireCheckoutSession(row.provider_ref, key);
       // A checkout paid at the last moment: applying it to the ended reservation returns
       // the money (a refund, or the hold released) and e-mails the gardener, webhook or not.
-      await syncPayment(row.id, clock, q);
+      await syncPayment(row.id, { db: q, clock });
       return {};
     }
     case "release":
@@ -58,7 +59,7 @@ async function perform(row: PaymentRow, clock: () => Date, q: Db): Promise<Outco
       // Settled another way (a hold Stripe let lapse, or a second request): nothing left to do
       // but read the record, and note what Stripe said.
       const elsewhere = await settleHold(intent, row.pending_action, key);
-      await syncPayment(row.id, clock, q);
+      await syncPayment(row.id, { db: q, clock });
       return elsewhere === null ? { payment_intent_id: intent } : { payment_intent_id: intent, last_error: elsewhere.slice(0, 500) };
     }
     case "refund": {
@@ -66,7 +67,7 @@ async function perform(row: PaymentRow, clock: () => Date, q: Db): Promise<Outco
       const intent = parent?.payment_intent_id ?? (parent ? await intentOfSession(parent.provider_ref) : null);
       if (!intent) throw new Error("the payment to refund has no payment intent yet");
       const refund = await createRefund({ intentId: intent, amountCents: row.amount_cents, metadata: { refund_id: row.id, ...ownerMetadata(row) } }, row.idempotency_key);
-      await syncPayment(parent!.id, clock, q);
+      await syncPayment(parent!.id, { db: q, clock });
       return { provider_ref: refund.id, status: refund.status === "succeeded" ? "succeeded" : "pending" };
     }
     default:
@@ -92,7 +93,8 @@ async function claimAction(row: PaymentRow, clock: () => Date, q: Db): Promise<b
 export type Attempt = "done" | "failed" | "unreachable" | "elsewhere";
 
 /** Makes one payment's owed Stripe call, if it still owes one and no other process is making it. */
-export async function attemptPaymentAction(id: string, clock: () => Date, q: Db): Promise<Attempt> {
+export async function attemptPaymentAction(id: string, ctx: Context = {}): Promise<Attempt> {
+  const { db: q, clock } = resolveContext(ctx);
   const row = await findPayment(id, q);
   if (!row?.pending_action) return "done";
   if (!(await claimAction(row, clock, q))) return "elsewhere";
@@ -125,20 +127,13 @@ export async function attemptPaymentAction(id: string, clock: () => Date, q: Db)
  * rest are not tried one timeout after another inside the request: they wait for Stripe,
  * and the worker makes them as soon as it answers.
  */
-export async function runPaymentActions(ids: Iterable<string>, clock: () => Date = () => new Date(), q: Db = db()): Promise<void> {
+export async function runPaymentActions(ids: Iterable<string>, ctx: Context = {}): Promise<void> {
+  const { db: q, clock } = resolveContext(ctx);
   let unreachable = false;
   for (const id of new Set(ids)) {
-    if (unreachable) await waitForStripe(id, clock, q);
-    else unreachable = (await attemptPaymentAction(id, clock, q)) === "unreachable";
+    if (unreachable) await waitForStripe(id, { db: q, clock });
+    else unreachable = (await attemptPaymentAction(id, { db: q, clock })) === "unreachable";
   }
-}
-
-/** Leaves a payment's owed call to the worker, due as soon as Stripe answers again. */
-export async function waitForStripe(id: string, clock: () => Date, q: Db) {
-  await q("payments")
-    .where({ id })
-    .whereNotNull("pending_action")
-    .update({ waiting_for: "stripe", next_action_at: new Date(clock().getTime() + actionRetryDelayMs(1)).toISOString() });
 }
 
 /**
@@ -149,7 +144,8 @@ export async function waitForStripe(id: string, clock: () => Date, q: Db) {
  * afterwards. Throws when Stripe cannot be asked, so a caller that owes this (the expire
  * action, a webhook) is retried.
  */
-export async function syncPayment(paymentId: string, clock: () => Date = () => new Date(), q: Knex = db()): Promise<string | null> {
+export async function syncPayment(paymentId: string, ctx: Context = {}): Promise<string | null> {
+  const { db: q, clock } = resolveContext(ctx);
   const row = await findPayment(paymentId, q);
   if (!row || row.kind === "refund" || !row.provider_ref) return row?.status ?? null;
   const record = await checkoutRecord(row.provider_ref);
@@ -172,7 +168,7 @@ export async function syncPayment(paymentId: string, clock: () => Date = () => n
   const seen = !["creating", "open", "expired"].includes(row.status);
   for (const event of impliedEvents(record, clock(), seen)) {
     const { owed } = await applyStripeEvent(event, { db: q, clock });
-    await runPaymentActions(owed, clock, q);
+    await runPaymentActions(owed, { db: q, clock });
   }
   return (await findPayment(paymentId, q))?.status ?? null;
 }

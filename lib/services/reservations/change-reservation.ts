@@ -1,14 +1,14 @@
 import "server-only";
 import type { Knex } from "knex";
-import { db } from "@/db/index";
 import { reservationContext } from "@/db/reservation-context";
 import type { ReservationRow } from "@/db/types";
 import { ApiError } from "@/lib/api/errors";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { pickupCodeMatches } from "@/lib/reservations/pickup-code";
 import { blockedReason, cancellationIsTimely, type ReservationAction, type Side } from "@/lib/reservations/policy";
-import { closeReservation, confirmReservation } from "@/lib/services/reservations/reservation-steps";
+import { closeReservation, confirmReservation } from "@/lib/services/reservations/steps/reservation-steps";
 import { runReservationStep } from "@/lib/services/reservations/run-reservation-step";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 // One use-case for the five transitions a person can make (confirm, decline, cancel,
 // collect, no-show): who may, from which state, and what each does. The rules themselves
@@ -21,18 +21,18 @@ export interface ChangeInput {
   pickupCode?: string | null;
 }
 
-export interface ChangeDeps {
-  db?: Knex;
-  clock?: () => Date;
-}
-
-export async function changeReservation(action: ReservationAction, input: ChangeInput, deps: ChangeDeps = {}) {
-  return runReservationStep({ db: deps.db ?? db(), reservationId: input.reservationId, userId: input.userId, clock: deps.clock, noun: "reservation" }, async (trx, r, side, now) => {
-    const blocked = blockedReason(r, action, side, now);
-    if (blocked === "wrong_party") throw new ApiError("forbidden", side === "gardener" ? "Only the supplier can do that." : "Only the gardener can do that.");
-    if (blocked) throw new ApiError("invalid_state", blocked);
-    return apply(trx, action, r, side, input, now);
-  });
+export async function changeReservation(action: ReservationAction, input: ChangeInput, ctx: Context = {}) {
+  const { db: q, clock } = resolveContext(ctx);
+  return runReservationStep(
+    { reservationId: input.reservationId, userId: input.userId, noun: "reservation" },
+    async (trx, r, side, now) => {
+      const blocked = blockedReason(r, action, side, now);
+      if (blocked === "wrong_party") throw new ApiError("forbidden", side === "gardener" ? "Only the supplier can do that." : "Only the gardener can do that.");
+      if (blocked) throw new ApiError("invalid_state", blocked);
+      return apply(trx, action, r, side, input, now);
+    },
+    { db: q, clock },
+  );
 }
 
 async function apply(trx: Knex.Transaction, action: ReservationAction, r: ReservationRow, side: Side, input: ChangeInput, now: Date): Promise<string[]> {

@@ -1,27 +1,25 @@
 import "server-only";
-import type { Knex } from "knex";
 import { claimBatch } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
-import { db } from "@/db/index";
 import { reservationContext } from "@/db/reservation-context";
-import { dueForNotice, heldDueToExpire } from "@/db/reservations";
+import { heldDueToExpire } from "@/db/reservations";
 import type { ReservationRow } from "@/db/types";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
-import { StaleState, closeReservation } from "@/lib/services/reservations/reservation-steps";
-import type { Clock } from "@/lib/time/clock";
+import { StaleState, closeReservation } from "@/lib/services/reservations/steps/reservation-steps";
+import { resolveContext, type Context } from "@/lib/services/context";
 
-// The worker's reservation jobs. Everything they need is in the database (hold_expires_at,
-// pickup_at and the *_at markers), so a restarted worker picks up exactly where it was,
-// and the clock is a parameter so tests can move time.
-
+// The worker's hold-expiry job (the reminders are send-reservation-reminders.ts). Everything
+// it needs is in the database (hold_expires_at), so a restarted worker picks up exactly where
+// it was, and the clock comes in the context so tests can move time.
 
 /**
  * Ends every hold whose time is up: the quantity returns, and any money goes back. Each hold
  * is its own transaction: one that cannot be expired is logged and left for the next run,
  * and the rest of the batch still expires.
  */
-export async function expireHolds(clock: Clock = () => new Date(), q: Knex = db()): Promise<{ expired: number }> {
+export async function expireHolds(ctx: Context = {}): Promise<{ expired: number }> {
+  const { db: q, clock } = resolveContext(ctx);
   const now = clock();
   let expired = 0;
   for (const due of await heldDueToExpire(now.toISOString(), 100, q)) {
@@ -44,7 +42,7 @@ export async function expireHolds(clock: Clock = () => new Date(), q: Knex = db(
       continue;
     }
     expired++;
-    await runOwedPayments("expire-holds", due.id, owed, clock, q);
+    await runOwedPayments("expire-holds", due.id, owed, { db: q, clock });
   }
   return { expired };
 }
@@ -54,34 +52,10 @@ export async function expireHolds(clock: Clock = () => new Date(), q: Knex = db(
  * transaction as the expiry, so if this fails the settle-payments job makes them later;
  * the error is logged and the batch goes on.
  */
-async function runOwedPayments(job: string, id: string, owed: string[], clock: Clock, q: Knex): Promise<void> {
+async function runOwedPayments(job: string, id: string, owed: string[], ctx: Context): Promise<void> {
   try {
-    await runPaymentActions(owed, clock, q);
+    await runPaymentActions(owed, ctx);
   } catch (err) {
     console.error(`[${job}] payments for ${id} left to settle-payments:`, err instanceof Error ? err.message : err);
   }
 }
-
-export type Notice = { status: "held" | "confirmed"; time: "hold_expires_at" | "answer_remind_at" | "pickup_at" | "pickup_by"; marker: "expiry_warned_at" | "pickup_reminded_at"; aheadMs: number; since?: "now" | "any" };
-
-/** Sends one kind of notice to every reservation due for it, each once: the marker column is claimed first. */
-export async function sendNotices(q: Knex, n: Notice, now: Date, send: (trx: Knex.Transaction, r: ReservationRow) => Promise<void>): Promise<number> {
-  const at = now.toISOString();
-  let sent = 0;
-  const after = n.since === "any" ? new Date(0).toISOString() : at;
-  for (const r of await dueForNotice(n.status, n.time, n.marker, after, new Date(now.getTime() + n.aheadMs).toISOString(), 100, q)) {
-    try {
-      const claimed = await writeTransaction(q, async (trx) => {
-        const won = await trx("reservations").where({ id: r.id, status: n.status }).whereNull(n.marker).update({ [n.marker]: at });
-        if (won === 1) await send(trx, r);
-        return won === 1;
-      });
-      if (claimed) sent++;
-    } catch (err) {
-      // Rolled back whole (marker too), so the next run tries it again; the others still go out.
-      console.error(`[reservation-reminders] skipped reservation ${r.id}:`, err instanceof Error ? err.message : err);
-    }
-  }
-  return sent;
-}
-

@@ -1,12 +1,11 @@
 import "server-only";
-import type { Knex } from "knex";
-import { db } from "@/db/index";
 import { messagesOf } from "@/db/reservation-messages";
 import { sideOf } from "@/db/reservations";
 import { ApiError } from "@/lib/api/errors";
+import { resolveContext, type Context } from "@/lib/services/context";
 
-export async function listReservationMessages(input: { reservationId: string; userId: string }, deps: { db?: Knex } = {}) {
-  const q = deps.db ?? db();
+export async function listReservationMessages(input: { reservationId: string; userId: string }, ctx: Context = {}) {
+  const { db: q } = resolveContext(ctx);
   const side = await sideOf(input.reservationId, input.userId, q);
   if (!side) throw new ApiError("not_found", "That reservation was not found.");
   const r = (await q("reservations").first("gardener_id").where({ id: input.reservationId })) as { gardener_id: string };

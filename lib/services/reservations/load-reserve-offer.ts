@@ -1,5 +1,4 @@
 import "server-only";
-import { db } from "@/db/index";
 import { availableOf, listingsForReservation, pickupWindowsOf } from "@/db/reservations";
 import { collectionsFor, ratingsFor } from "@/db/reviews";
 import { nextOccurrence, windowLabel } from "@/lib/reservations/pickup-times";
@@ -10,19 +9,22 @@ import { packOf } from "@/lib/listings/packs";
 import { datesState, effectiveStatus } from "@/lib/listings/status";
 import { cultureOffer } from "@/lib/services/growers/get-culture-offer";
 import { depositFor } from "@/lib/payments/money";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 /** What the reserve page shows about a listing: public facts only, never the address. */
-export async function loadReserveOffer(listingId: string, now = new Date()) {
-  const [l] = await listingsForReservation([listingId]);
+export async function loadReserveOffer(listingId: string, ctx: Context = {}) {
+  const { db: q, clock } = resolveContext(ctx);
+  const now = clock();
+  const [l] = await listingsForReservation([listingId], q);
   if (!l || l.status === "draft" || l.status === "hidden") return null;
   const pack = packOf(l);
   const available = reservableQuantity(availableOf(l), l.unit, pack);
   const [windows, owner, ratings, culture, collections] = await Promise.all([
-    pickupWindowsOf([l.id]),
-    db()("users").first("display_name", "verified_at").where({ id: l.owner_id }),
-    ratingsFor([l.owner_id]),
-    cultureOffer({ material: l.material_code, owner_id: l.owner_id, quality: l.quality, available }, now),
-    collectionsFor([l.owner_id]),
+    pickupWindowsOf([l.id], q),
+    q("users").first("display_name", "verified_at").where({ id: l.owner_id }),
+    ratingsFor([l.owner_id], q),
+    cultureOffer({ material: l.material_code, owner_id: l.owner_id, quality: l.quality, available }, { db: q, clock: () => now }),
+    collectionsFor([l.owner_id], q),
   ]);
   const deposit = depositFor(l.price_cents, l.deposit_cents);
   const terms = { owes: l.price_cents > 0 || deposit > 0, autoAccept: Boolean(l.auto_accept) };

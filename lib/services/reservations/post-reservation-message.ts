@@ -1,21 +1,20 @@
 import "server-only";
-import type { Knex } from "knex";
-import { db } from "@/db/index";
 import { lockRows } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
 import { countMessagesSince, insertMessage } from "@/db/reservation-messages";
 import { reservationContext } from "@/db/reservation-context";
 import { sideOf } from "@/db/reservations";
 import { ApiError } from "@/lib/api/errors";
+import { resolveContext, type Context } from "@/lib/services/context";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { MESSAGE_LIMIT } from "@/lib/reservations/policy";
 
 // The thread between the two people on a reservation: plain text, limited per person so it
 // cannot be used to flood someone's inbox, and each message e-mailed to the other side.
 
-export async function postReservationMessage(input: { reservationId: string; userId: string; body: string }, deps: { db?: Knex; clock?: () => Date } = {}) {
-  const q = deps.db ?? db();
-  const now = (deps.clock ?? (() => new Date()))();
+export async function postReservationMessage(input: { reservationId: string; userId: string; body: string }, ctx: Context = {}) {
+  const { db: q, clock } = resolveContext(ctx);
+  const now = clock();
   const side = await sideOf(input.reservationId, input.userId, q);
   if (!side) throw new ApiError("not_found", "That reservation was not found.");
   return writeTransaction(q, async (trx) => {

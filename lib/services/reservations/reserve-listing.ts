@@ -2,7 +2,7 @@ import { WHOLE_UNITS } from "@/lib/calc/units";
 import "server-only";
 import type { Knex } from "knex";
 import { writeTransaction } from "@/db/write-transaction";
-import { db, newId } from "@/db/index";
+import { newId } from "@/db/index";
 import { insertPayment } from "@/db/payments";
 import { reservationContext } from "@/db/reservation-context";
 import { availableOf, holdQuantity, insertReservation, listingsForReservation, pickupWindowsOf, recordReservationEvent, type ListingForReservation } from "@/db/reservations";
@@ -19,9 +19,10 @@ import { nextOccurrence } from "@/lib/reservations/pickup-times";
 import { cultureOptions, defaultFulfilment, type Fulfilment } from "@/lib/reservations/culture-orders";
 import { findShipping } from "@/db/grower-shipping";
 import { packOf, wholePackProblem } from "@/lib/listings/packs";
-import { confirmReservation, pickupTimes } from "@/lib/services/reservations/reservation-steps";
+import { confirmReservation, pickupTimes } from "@/lib/services/reservations/steps/reservation-steps";
 import { shippingView } from "@/lib/growers/view";
 import { formatMoney } from "@/lib/format/money";
+import { resolveContext, type Context } from "@/lib/services/context";
 
 // POST /api/reservations: hold quantities of one or more listings for a gardener, all or
 // nothing in one transaction, then open a Stripe checkout for whatever needs paying.
@@ -43,11 +44,6 @@ export interface ReserveInput {
   need_id?: string | null;
   /** Field names in errors: "quantity" for a single reservation, "items.2.quantity" for a list. */
   fieldPrefix: (index: number) => string;
-}
-
-export interface ReserveDeps {
-  db?: Knex;
-  clock?: () => Date;
 }
 
 type Checked = {
@@ -177,9 +173,8 @@ async function check(input: ReserveInput, q: Knex, now: Date): Promise<Checked[]
   }
 }
 
-export async function reserveListings(input: ReserveInput, deps: ReserveDeps = {}) {
-  const q = deps.db ?? db();
-  const clock = deps.clock ?? (() => new Date());
+export async function reserveListings(input: ReserveInput, ctx: Context = {}) {
+  const { db: q, clock } = resolveContext(ctx);
   const now = clock();
   const checked = await check(input, q, now);
   const groupId = input.items.length > 1 ? newId() : null;

@@ -1,18 +1,18 @@
 import "server-only";
-import type { Knex } from "knex";
-import { db, newId } from "@/db/index";
+import { newId } from "@/db/index";
 import { isUniqueViolation } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
 import { sideOf } from "@/db/reservations";
 import { ApiError } from "@/lib/api/errors";
+import { resolveContext, type Context } from "@/lib/services/context";
 import type { ReviewInput } from "@/lib/validation/reservations";
 
 // After a collection each side rates the other once: the gardener rates the listing's
 // owner (their average shows on listings), the supplier rates the gardener.
 
-export async function reviewReservation(input: ReviewInput & { reservationId: string; userId: string }, deps: { db?: Knex; clock?: () => Date } = {}) {
-  const q = deps.db ?? db();
-  const now = (deps.clock ?? (() => new Date()))();
+export async function reviewReservation(input: ReviewInput & { reservationId: string; userId: string }, ctx: Context = {}) {
+  const { db: q, clock } = resolveContext(ctx);
+  const now = clock();
   const side = await sideOf(input.reservationId, input.userId, q);
   if (!side) throw new ApiError("not_found", "That reservation was not found.");
   const alreadyDone = () => new ApiError("conflict", "You have already reviewed this pickup.");

@@ -1,18 +1,17 @@
 import "server-only";
 import type { Knex } from "knex";
+import { resolveContext, type Context } from "@/lib/services/context";
 import { findReservation, sideOf } from "@/db/reservations";
 import type { ReservationRow } from "@/db/types";
 import { writeTransaction } from "@/db/write-transaction";
 import { ApiError } from "@/lib/api/errors";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import type { Side } from "@/lib/reservations/policy";
-import { StaleState } from "@/lib/services/reservations/reservation-steps";
+import { StaleState } from "@/lib/services/reservations/steps/reservation-steps";
 
 export interface StepRun {
-  db: Knex;
   reservationId: string;
   userId: string;
-  clock?: () => Date;
   /** What the person calls it, for the "changed meanwhile" message. */
   noun: "reservation" | "order";
 }
@@ -23,17 +22,22 @@ export interface StepRun {
  * wrong state) and makes the change; a guarded update that lost a race is a 409; the Stripe
  * calls the change owes run after the commit, and the worker retries any that fail.
  */
-export async function runReservationStep(run: StepRun, step: (trx: Knex.Transaction, r: ReservationRow, side: Side, now: Date) => Promise<string[]>): Promise<{ side: Side }> {
-  const now = (run.clock ?? (() => new Date()))();
-  const side = await sideOf(run.reservationId, run.userId, run.db);
+export async function runReservationStep(
+  run: StepRun,
+  step: (trx: Knex.Transaction, r: ReservationRow, side: Side, now: Date) => Promise<string[]>,
+  ctx: Context = {},
+): Promise<{ side: Side }> {
+  const { db: q, clock } = resolveContext(ctx);
+  const now = clock();
+  const side = await sideOf(run.reservationId, run.userId, q);
   if (!side) throw new ApiError("not_found", "That reservation was not found.");
   let paymentIds: string[] = [];
   try {
-    paymentIds = await writeTransaction(run.db, async (trx) => step(trx, (await findReservation(run.reservationId, trx, { lock: true }))!, side, now));
+    paymentIds = await writeTransaction(q, async (trx) => step(trx, (await findReservation(run.reservationId, trx, { lock: true }))!, side, now));
   } catch (err) {
     if (err instanceof StaleState) throw new ApiError("invalid_state", `Someone changed this ${run.noun} a moment ago; reload to see it.`);
     throw err;
   }
-  await runPaymentActions(paymentIds, run.clock, run.db);
+  await runPaymentActions(paymentIds, { db: q, clock });
   return { side };
 }

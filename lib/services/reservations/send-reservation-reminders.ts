@@ -1,19 +1,19 @@
 import "server-only";
 import type { Knex } from "knex";
-import { db } from "@/db/index";
 import { reservationContext } from "@/db/reservation-context";
 import type { ReservationRow } from "@/db/types";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { EXPIRY_WARNING_MINUTES, PICKUP_REMINDER_HOURS } from "@/lib/reservations/policy";
-import type { Clock } from "@/lib/time/clock";
-import { sendNotices } from "@/lib/services/reservations/expire-holds";
+import { resolveContext, type Context } from "@/lib/services/context";
+import { sendNotices } from "@/lib/services/reservations/steps/send-notices";
 
 /**
  * "Your hold ends soon" (the gardener, before a checkout's hold ends), "waiting for your
  * answer" (the supplier, half-way through a request's answer window) and "pickup tomorrow",
  * each sent once (marker column + dedupe key).
  */
-export async function sendReservationReminders(clock: Clock = () => new Date(), q: Knex = db()): Promise<{ warned: number; reminded: number }> {
+export async function sendReservationReminders(ctx: Context = {}): Promise<{ warned: number; reminded: number }> {
+  const { db: q, clock } = resolveContext(ctx);
   const now = clock();
   const expiring = (to: "gardener" | "supplier") => async (trx: Knex.Transaction, r: ReservationRow) => {
     await mailReservation(trx, "expiring", (await reservationContext(r.id, trx))!, [to], {}, r.hold_expires_at ?? "");

@@ -5,7 +5,7 @@ import type { PaymentRow } from "@/db/types";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { RANK } from "@/lib/payments/status";
 import { holdMinutes } from "@/lib/reservations/policy";
-import { gardenerStepDone, moneyReturnedOutside } from "@/lib/services/reservations/reservation-steps";
+import { gardenerStepDone, moneyReturnedOutside } from "@/lib/services/reservations/steps/reservation-steps";
 
 // What a reservation does when its payment changes, registered for the owner kind
 // "reservation" in lib/services/payments/owners.ts. Both run inside the caller's transaction.
