@@ -83,6 +83,31 @@ const componentsNoServices = {
   },
 };
 
+// One context (lib/context.ts): a use-case or a job takes its database and its clock from the
+// context it is given, so a test or the worker that fixes either fixes it everywhere.
+const oneContext = {
+  files: ["lib/services/**", "lib/mail/deliver-outbox.ts"],
+  rules: {
+    "no-restricted-syntax": [
+      "error",
+      {
+        selector: "NewExpression[callee.name='Date'][arguments.length=0]",
+        message: "Read the time from the context: const { clock } = resolveContext(ctx); const now = clock();",
+      },
+      {
+        selector: "CallExpression[callee.object.name='Date'][callee.property.name='now']",
+        message: "Read the time from the context's clock (resolveContext(ctx).clock); wall-clock throttles say why in a disable comment.",
+      },
+    ],
+    "no-restricted-imports": [
+      "error",
+      {
+        paths: [{ name: "@/db/index", importNames: ["db"], message: "Use the context's database: const { db: q } = resolveContext(ctx), and pass q to the repositories." }],
+      },
+    ],
+  },
+};
+
 const config = [
   ...next,
   { ignores: [".next/**", "node_modules/**", "test-results/**", "public/**"] },
@@ -98,6 +123,7 @@ const config = [
   layers,
   pureCore,
   componentsNoServices,
+  oneContext,
   {
     // One environment module: everything else asks lib/env.ts (or, in code a browser may run,
     // lib/env-shared.ts), where each variable is declared and checked once.

@@ -9,9 +9,8 @@ import {
   type SentText,
 } from "@/db/outbox";
 import type { OutboxRow } from "@/db/types";
-import type { Knex } from "knex";
-import { db as appDb } from "@/db/index";
-import { systemClock, type Clock } from "@/lib/time/clock";
+import { resolveContext, type Context } from "@/lib/context";
+import { systemClock } from "@/lib/time/clock";
 import { backoffDelayMs, nextCooldownMs, type Backoff } from "@/lib/time/backoff";
 import { renderTemplate } from "./templates";
 import { mailFailure, probeMail, sendMail } from "./transport";
@@ -36,18 +35,10 @@ export function retryDelayMs(attempts: number): number {
   return backoffDelayMs(attempts, MAIL_BACKOFF);
 }
 
-/**
- * The job's context, the worker's job context spelled out (lib/mail sits below the services,
- * so it does not import their Context type): the database and the clock (the app's own when
- * left out), the signal set when the worker is stopping (no new message is claimed then), and
- * the worker's name, put on its claims so it can release them at shutdown.
- */
-export interface DeliverContext {
-  db?: Knex;
-  clock?: Clock;
-  signal?: AbortSignal;
-  workerId?: string;
-}
+/** The job's context: the database, the clock, the signal set when the worker is stopping (no
+ * new message is claimed then), and the worker's name, put on its claims so it can release them
+ * at shutdown. */
+export type DeliverContext = Context & { workerId?: string };
 
 // Messages the SMTP server accepted whose "sent" mark could not be written (the database
 // was busy or read-only for a moment). They are marked at the start of the next run, and
@@ -69,7 +60,7 @@ export function messagesInFlight(): string[] {
 
 /** Writes the marks still owed; returns how many are still owed afterwards. */
 export async function markAccepted(ctx: Pick<DeliverContext, "db"> = {}): Promise<number> {
-  const q = ctx.db ?? appDb();
+  const { db: q } = resolveContext(ctx);
   for (const [id, { messageId, acceptedAt, sent }] of unmarked) {
     try {
       await markSent(id, acceptedAt, messageId, sent, q);
@@ -109,7 +100,7 @@ export function renderOutboxRow(row: Pick<OutboxRow, "template" | "data" | "subj
  * run that finds it answering again sends it all, whatever each message's backoff said.
  */
 export async function deliverOutbox(ctx: DeliverContext = {}): Promise<{ sent: number; failed: number }> {
-  const { db: q = appDb(), clock = systemClock, signal } = ctx;
+  const { db: q, clock, signal } = resolveContext(ctx);
   const workerId = ctx.workerId ?? `process:${process.pid}`;
   let sent = 0;
   let failed = 0;
@@ -117,8 +108,9 @@ export async function deliverOutbox(ctx: DeliverContext = {}): Promise<{ sent: n
   const start = clock();
   let woke = false;
   if (await anyWaitingForMailServer(q)) {
-    if (Date.now() - lastWake < wakeCooldownMs || !(await probeMail()).ok) return { sent, failed };
-    lastWake = Date.now();
+    // A throttle on probing a mail server that was down runs on the wall clock, not the job's.
+    if (systemClock().getTime() - lastWake < wakeCooldownMs || !(await probeMail()).ok) return { sent, failed };
+    lastWake = systemClock().getTime();
     woke = true;
     await wakeWaitingForMailServer(start.toISOString(), q);
   }

@@ -13,7 +13,7 @@ import { sendNeedDigests } from "@/lib/services/needs/send-need-digests";
 import { expireOpenNeeds } from "@/lib/services/needs/close-needs";
 import { systemClock } from "@/lib/time/clock";
 
-import type { Context } from "@/lib/services/context";
+import type { Context } from "@/lib/context";
 
 /** What the worker gives each job: the services' context (its database, its clock, the signal
  * that says "stop taking new work") and its own name, for the rows it claims. */

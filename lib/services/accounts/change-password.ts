@@ -8,7 +8,7 @@ import { passwordProblem } from "@/lib/auth/password-strength";
 import { endEverySession } from "@/lib/auth/sessions";
 import { LIMITS, ensureUnder, forgive, recordFailure } from "@/lib/security/rate-limit";
 import type { ChangePasswordInput } from "@/lib/validation/auth";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 // A person's own account safety: a new password (which ends every session), "sign out
 // everywhere", and the confirmation link sent again.

@@ -11,7 +11,7 @@ import { pendingRoleRequests } from "@/db/organisations";
 import type { ReservationView } from "@/lib/reservations/view";
 import { PICKUP_TIME_ZONE } from "@/lib/reservations/pickup-times";
 import { localDate } from "@/lib/time/zoned";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** One thing that waits for the person: what it is, where to act on it, and when. */
 export interface WaitingItem {
@@ -111,7 +111,7 @@ export async function whatsWaiting(user: SessionUser, ctx: Context = {}): Promis
   }
 
   if (roles.includes("grower")) {
-    const { orders } = await growerOrders(user.id, { clock: () => now });
+    const { orders } = await growerOrders(user.id, { db: q, clock: () => now });
     out.push(
       section({
         id: "to-pack",

@@ -1,7 +1,8 @@
 import "server-only";
 import { pruneCounters } from "@/db/rate-limits";
 import { pruneSessions } from "@/db/sessions";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
+import { systemClock } from "@/lib/time/clock";
 
 // Sessions that ended or ran out, and rate-limit counters whose window has long passed, are
 // kept a week (enough to answer "was I signed in from somewhere else?"), then dropped.
@@ -12,6 +13,6 @@ const KEEP_DAYS = 7;
 
 export async function pruneSecurityRecords(ctx: Context = {}): Promise<{ sessions: number; counters: number }> {
   const { db: q } = resolveContext(ctx);
-  const before = new Date(Date.now() - KEEP_DAYS * 86_400_000).toISOString();
+  const before = new Date(systemClock().getTime() - KEEP_DAYS * 86_400_000).toISOString();
   return { sessions: await pruneSessions(before, q), counters: await pruneCounters(before, q) };
 }

@@ -4,7 +4,7 @@ import { findUserById } from "@/db/users";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { signInLink } from "@/lib/auth/sign-in-link";
 import { LIMITS, consume } from "@/lib/security/rate-limit";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** Sends the confirmation link again (limited like sign-in links). */
 export async function resendConfirmation(userId: string, ctx: Context = {}): Promise<{ status: "sent" }> {

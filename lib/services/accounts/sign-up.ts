@@ -9,7 +9,7 @@ import { hashPassword } from "@/lib/auth/password";
 import { passwordProblem } from "@/lib/auth/password-strength";
 import { signInLink } from "@/lib/auth/sign-in-link";
 import type { SignUpInput } from "@/lib/validation/auth";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** What joining answers, whoever the address belongs to. */
 function checkInboxAnswer(email: string) {

@@ -3,7 +3,7 @@ import { rolesOf, setRole, updateUser } from "@/db/users";
 import { recordAudit } from "@/db/audit";
 import type { ProfileInput } from "@/lib/validation/auth";
 import type { Role } from "@/lib/auth/roles";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 // Giving away material is open to anyone (trust comes from the verified badge and reviews),
 // so a supplier request is granted at once. Selling live animals is not: a grower request

@@ -3,7 +3,7 @@ import { findBed, insertBed } from "@/db/beds";
 import type { CreateBedInput } from "@/lib/validation/beds";
 import { toBedView, type BedView } from "@/lib/beds/view";
 import { shapeColumns } from "@/lib/beds/shape";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 export async function createBed(ownerId: string, input: CreateBedInput, ctx: Context = {}): Promise<BedView> {
   const { db: q } = resolveContext(ctx);

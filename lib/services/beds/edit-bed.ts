@@ -4,7 +4,7 @@ import { notFound } from "@/lib/api/errors";
 import type { UpdateBedInput } from "@/lib/validation/beds";
 import { toBedView, type BedView } from "@/lib/beds/view";
 import { shapeColumns } from "@/lib/beds/shape";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 export async function editBed(ownerId: string, id: string, input: UpdateBedInput, ctx: Context = {}): Promise<BedView> {
   const { db: q } = resolveContext(ctx);

@@ -7,7 +7,7 @@ import type { LatLng } from "@/lib/match/types";
 import type { EstimateInput } from "@/lib/validation/estimate";
 import { planPickups } from "@/lib/services/match/plan-pickups";
 import { needsOf } from "@/lib/beds/needs";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 export interface PricedEstimate extends EstimateResult {
   /** What the bed will cost with the plan given or found: free, deposits held, paid. */

@@ -5,7 +5,7 @@ import { bedEstimate, type BedView } from "@/lib/beds/view";
 import { planPickups } from "@/lib/services/match/plan-pickups";
 import { needsOf } from "@/lib/beds/needs";
 import { PricedEstimate } from "@/lib/services/beds/estimate-bed";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /**
  * A saved bed's estimate in the gardener's units, priced from the listings nearest its place

@@ -4,7 +4,7 @@ import { needPerListingUnit } from "@/lib/match/units";
 import type { ListingUnit, Need } from "@/lib/match/types";
 import { bedNeeds } from "@/lib/beds/needs";
 import { listBeds, reservedForBeds } from "@/db/beds";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 export interface BedStillNeeds {
   id: string;

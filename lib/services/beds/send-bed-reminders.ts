@@ -3,7 +3,7 @@ import { enqueueEmail } from "@/db/outbox";
 import { appUrl } from "@/lib/env";
 import type { TimelineEvent } from "@/lib/calc/timeline";
 import { bedEstimate, toBedView, type BedView } from "@/lib/beds/view";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /**
  * A step is mailed on its day, or within this many days after if the worker was down.

@@ -5,7 +5,7 @@ import { membershipsOf, normaliseEmail, setRole } from "@/db/users";
 import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { hashToken } from "@/lib/council/invites";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** The invitee, signed in with the invited address, becomes staff with the council role. */
 export async function acceptInvite(user: { id: string; email: string }, token: string, ctx: Context = {}) {

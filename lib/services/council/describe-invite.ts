@@ -3,7 +3,7 @@ import { findInviteByTokenHash } from "@/db/invites";
 import { findOrganisation } from "@/db/organisations";
 import { findUserByEmail } from "@/db/users";
 import { hashToken } from "@/lib/council/invites";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** What the join page shows before anyone signs in: whose invitation, to which address, and whether it still works. */
 export async function describeInvite(token: string, ctx: Context = {}) {

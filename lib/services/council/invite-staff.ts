@@ -9,7 +9,7 @@ import { ApiError } from "@/lib/api/errors";
 import { appUrl } from "@/lib/env";
 import { readableDateTime, DEFAULT_TIME_ZONE } from "@/lib/time/zoned";
 import type { CouncilStaff } from "@/lib/auth/council-access";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { INVITE_TTL_DAYS, hashToken, InviteView, inviteView } from "@/lib/council/invites";
 
 /** The owner invites a colleague: a single-use link by e-mail, through the outbox in the same transaction. */

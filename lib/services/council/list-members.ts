@@ -1,5 +1,5 @@
 import { membersOf } from "@/db/organisations";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** The staff of a council, for its own members. */
 export async function listMembers(organisationId: string, ctx: Context = {}) {

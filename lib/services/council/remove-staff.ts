@@ -5,7 +5,7 @@ import { membershipsOf, removeRole } from "@/db/users";
 import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import type { CouncilStaff } from "@/lib/auth/council-access";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** The owner removes a staff member: the membership goes, and the council role with it. */
 export async function removeStaff(staff: CouncilStaff, userId: string, ctx: Context = {}) {

@@ -5,7 +5,7 @@ import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import type { CouncilStaff } from "@/lib/auth/council-access";
 import { InviteView, inviteView } from "@/lib/council/invites";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 export async function revokeInvite(staff: CouncilStaff, inviteId: string, ctx: Context = {}): Promise<InviteView> {
   const { db: q } = resolveContext(ctx);

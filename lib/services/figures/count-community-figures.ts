@@ -2,7 +2,7 @@ import "server-only";
 import { bedTotals } from "@/db/beds";
 import { countVisibleListings } from "@/db/listing-status";
 import { platformDivertedKg, platformGiveawayKg } from "@/lib/services/figures/steps/platform-kilograms";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** The community's figures the home page tells its story with. */
 export async function communityFigures(ctx: Context = {}) {

@@ -3,7 +3,7 @@ import { checkedInBookings, collectedReservations, type DiversionScope } from "@
 import { MATERIALS } from "@/lib/calc/facts";
 import { summariseDiversion, type DiversionRecord } from "@/lib/calc/diversion";
 import { DiversionReport } from "@/lib/figures/diversion-csv";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { diversionRecord } from "@/lib/services/figures/steps/diversion-record";
 
 /** What left a supplier's, grower's or council's hands; `null` scope is the whole platform. */

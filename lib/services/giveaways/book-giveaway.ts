@@ -12,7 +12,7 @@ import { readableDateTime } from "@/lib/time/zoned";
 import { giveawayQuantityIssue } from "@/lib/validation/giveaways";
 import { bookingWindowState } from "@/lib/giveaways/view";
 import { enqueueBookedEmail } from "@/lib/services/giveaways/steps/enqueue-booked-email";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 // A household is one Duffbank account: one live booking per account per day, enforced by a
 // unique index. That stops casual double-booking, not a person with two accounts. To tighten

@@ -12,7 +12,7 @@ import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import { cancelDeadline } from "@/lib/giveaways/view";
 import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaways/steps/giveaway-deposit";
 import { formatMoney } from "@/lib/format/money";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** A household cancels its own booking, up to the day's cut-off before the slot; any deposit hold is released. */
 export async function cancelGiveawayBooking(userId: string, dayId: string, bookingId: string, ctx: Context = {}) {

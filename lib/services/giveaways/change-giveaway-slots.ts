@@ -7,7 +7,7 @@ import { slotView, type SlotView } from "@/lib/giveaways/view";
 import { slotInstants } from "@/lib/giveaways/slots";
 import { scheduledOrgDay } from "@/lib/services/giveaways/steps/scheduled-org-day";
 import type { CouncilStaff } from "@/lib/auth/council-access";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 export async function addGiveawaySlots(staff: CouncilStaff, dayId: string, slots: SlotInput[], ctx: Context = {}): Promise<SlotView[]> {
   const { db: q } = resolveContext(ctx);

@@ -8,7 +8,7 @@ import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import type { CreateGiveawayInput } from "@/lib/validation/giveaways";
 import { staffDayView } from "@/lib/giveaways/view";
 import type { CouncilStaff } from "@/lib/auth/council-access";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { defaultBookingClose , slotInstants , assertNotPast } from "@/lib/giveaways/slots";
 
 

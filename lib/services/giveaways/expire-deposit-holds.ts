@@ -7,7 +7,7 @@ import type { GiveawayBookingRow } from "@/db/types";
 import { holdMinutes } from "@/lib/reservations/policy";
 import { householdOf, settleBookingDeposit } from "@/lib/services/giveaways/steps/giveaway-deposit";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /**
  * The worker's job: bookings whose deposit was not put down in time lapse; the place returns

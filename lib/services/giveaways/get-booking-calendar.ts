@@ -4,7 +4,7 @@ import { findOrganisation } from "@/db/organisations";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { appUrl } from "@/lib/env";
 import { giveawayCalendar, validCalendarToken } from "@/lib/giveaways/calendar";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** The .ics of one booking, for its household only (by session or by the e-mailed token). */
 export async function bookingCalendar(dayId: string, bookingId: string, who: { token: string | null; userId: string | null }, ctx: Context = {}): Promise<string> {

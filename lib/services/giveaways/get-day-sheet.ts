@@ -3,7 +3,7 @@ import { findOrgDay, sheetFor, slotsOf } from "@/db/giveaways";
 import { notFound } from "@/lib/api/errors";
 import { staffDayView } from "@/lib/giveaways/view";
 import type { CouncilStaff } from "@/lib/auth/council-access";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { DaySheet } from "@/lib/giveaways/sheet-csv";
 
 /** The day with everyone booked on it, for the printed sheet, the CSV and the check-in page. */

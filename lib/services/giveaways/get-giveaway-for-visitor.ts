@@ -5,7 +5,7 @@ import { notFound } from "@/lib/api/errors";
 import { depositOfBooking } from "@/db/payments";
 import { openCheckout } from "@/lib/payments/checkout";
 import { cancelDeadline, publicDayView, type PublicDayView } from "@/lib/giveaways/view";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 export interface VisitorBooking {
   id: string;

@@ -5,7 +5,7 @@ import { ApiError } from "@/lib/api/errors";
 import { councilOf } from "@/lib/auth/council-access";
 import { daySheet } from "@/lib/services/giveaways/get-day-sheet";
 import type { DaySheet } from "@/lib/giveaways/sheet-csv";
-import type { Context } from "@/lib/services/context";
+import type { Context } from "@/lib/context";
 
 /** A staff page's day: another council's day, or none, is the not-found page. */
 export async function sheetForPage(user: SessionUser, dayId: string, ctx: Context = {}): Promise<DaySheet> {

@@ -7,7 +7,7 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import { readableDateTime } from "@/lib/time/zoned";
 import type { CouncilStaff } from "@/lib/auth/council-access";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { depositAfterReturn, settleBookingDeposit } from "@/lib/services/giveaways/steps/giveaway-deposit";
 
 type Attendance = "checked_in" | "booked" | "no_show";

@@ -5,7 +5,7 @@ import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { scheduledOrgDay } from "@/lib/services/giveaways/steps/scheduled-org-day";
 import type { CouncilStaff } from "@/lib/auth/council-access";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 export async function removeGiveawaySlot(staff: CouncilStaff, dayId: string, slotId: string, ctx: Context = {}): Promise<void> {
   const { db: q } = resolveContext(ctx);

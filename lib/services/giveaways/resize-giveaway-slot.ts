@@ -6,7 +6,7 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import { slotView, type SlotView } from "@/lib/giveaways/view";
 import { scheduledOrgDay } from "@/lib/services/giveaways/steps/scheduled-org-day";
 import type { CouncilStaff } from "@/lib/auth/council-access";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 export async function resizeGiveawaySlot(staff: CouncilStaff, dayId: string, slotId: string, capacity: number, ctx: Context = {}): Promise<SlotView> {
   const { db: q } = resolveContext(ctx);

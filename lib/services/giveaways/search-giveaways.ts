@@ -5,7 +5,7 @@ import { slotsOf, upcomingDays } from "@/db/giveaways";
 import { organisationNames } from "@/db/listings";
 import { addDays, localDate } from "@/lib/time/zoned";
 import { publicDayView, type PublicDayView } from "@/lib/giveaways/view";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** Upcoming giveaway days, nearest first within each date when a point is given. */
 export async function searchGiveaways(

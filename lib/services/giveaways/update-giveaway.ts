@@ -11,7 +11,7 @@ import { staffDayView } from "@/lib/giveaways/view";
 import { assertNotPast } from "@/lib/giveaways/slots";
 import { scheduledOrgDay } from "@/lib/services/giveaways/steps/scheduled-org-day";
 import type { CouncilStaff } from "@/lib/auth/council-access";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** Once anyone has booked, these would change what they booked, so they stay as they are. */
 const FIXED_ONCE_BOOKED = ["date", "time_zone", "material", "unit", "bag_m3"] as const;

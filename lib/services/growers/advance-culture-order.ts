@@ -11,7 +11,7 @@ import type { Side } from "@/lib/reservations/policy";
 import { shippingView } from "@/lib/growers/view";
 import { StaleState, closeReservation } from "@/lib/services/reservations/steps/reservation-steps";
 import { runReservationStep } from "@/lib/services/reservations/run-reservation-step";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 // The parcel steps of a posted live-culture order: packed, shipped (carrier and tracking),
 // delivered. Each is one transaction: the guarded update (status and stage in the WHERE, so

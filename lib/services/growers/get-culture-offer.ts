@@ -2,7 +2,7 @@ import "server-only";
 import { findShipping } from "@/db/grower-shipping";
 import { cultureOptions, estimatedWorms, nextPostingDay } from "@/lib/reservations/culture-orders";
 import { shippingView, type ShippingView } from "@/lib/growers/view";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** What a buyer reads about a live culture before ordering: species, rough count, and how it arrives. */
 export interface CultureOffer {

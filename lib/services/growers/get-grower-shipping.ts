@@ -2,7 +2,7 @@ import "server-only";
 import { findShipping } from "@/db/grower-shipping";
 import { shippingView, type ShippingView } from "@/lib/growers/view";
 import type { Pack } from "@/lib/listings/packs";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 export async function growerShipping(userId: string, ctx: Context = {}): Promise<ShippingView> {
   const { db: q } = resolveContext(ctx);

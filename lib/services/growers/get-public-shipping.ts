@@ -1,6 +1,6 @@
 import { rolesOf } from "@/db/users";
 import { growerShipping } from "@/lib/services/growers/get-grower-shipping";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** A grower's posting days and pause, for buyers; null when the account is not an active grower. */
 export async function getPublicShipping(growerId: string, ctx: Context = {}) {

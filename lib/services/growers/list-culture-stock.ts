@@ -3,7 +3,7 @@ import { wormListingsOf } from "@/db/grower-shipping";
 import { estimatedWorms } from "@/lib/reservations/culture-orders";
 import { packOf } from "@/lib/listings/packs";
 import { CultureStock } from "@/lib/services/growers/get-grower-shipping";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** The grower's worm listings with what is left and roughly how many worms that is. */
 export async function cultureStock(userId: string, ctx: Context = {}): Promise<CultureStock[]> {

@@ -4,7 +4,7 @@ import type { ReservationView } from "@/lib/reservations/view";
 import type { ShippingView } from "@/lib/growers/view";
 import { growerShipping } from "@/lib/services/growers/get-grower-shipping";
 import { getReservations } from "@/lib/services/reservations/get-reservations";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 // The grower's open orders: live-culture reservations on their own listings that still need
 // something from them or the post. An unpaid hold is not an order yet, so it is left out.

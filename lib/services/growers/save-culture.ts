@@ -5,7 +5,7 @@ import { updateWormQuality, wormListingsOf } from "@/db/grower-shipping";
 import { recordAudit } from "@/db/audit";
 import { notFound } from "@/lib/api/errors";
 import type { CultureInput } from "@/lib/validation/grower";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 export async function saveCulture(userId: string, listingId: string, input: CultureInput, ctx: Context = {}) {
   const { db: q } = resolveContext(ctx);

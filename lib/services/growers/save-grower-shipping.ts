@@ -8,7 +8,7 @@ import { shippingView, type ShippingView } from "@/lib/growers/view";
 import type { Db } from "@/db/index";
 import { reservationContexts } from "@/db/reservation-context";
 import { mailCultureOrder } from "@/lib/mail/culture-order-mail";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 export async function saveGrowerShipping(userId: string, input: ShippingInput, ctx: Context = {}): Promise<ShippingView> {
   const { db: q, clock } = resolveContext(ctx);

@@ -1,4 +1,4 @@
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** Whether the database answers a trivial query. */
 export async function databaseAnswers(ctx: Context = {}): Promise<boolean> {

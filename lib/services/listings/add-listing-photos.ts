@@ -4,7 +4,7 @@ import { countPhotos, insertPhotos } from "@/db/listing-photos";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { checkUploadedPhotos } from "@/lib/media/verify-upload";
 import { MAX_PHOTOS, type UploadedPhoto } from "@/lib/validation/listings";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** Attaches verified uploads after the listing's existing photos, up to MAX_PHOTOS in all. */
 export async function addListingPhotos(userId: string, listingId: string, photos: UploadedPhoto[], ctx: Context = {}) {

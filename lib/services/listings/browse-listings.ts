@@ -4,7 +4,7 @@ import { decodeCursor, encodeCursor } from "@/lib/listings/cursor";
 import { presentItems, type PublicListingItem } from "@/lib/listings/view";
 import { DEFAULT_PAGE, DEFAULT_RADIUS_KM, type BrowseQuery } from "@/lib/validation/listings";
 import { searchWords } from "@/lib/listings/search-words";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 export interface BrowseResult {
   items: PublicListingItem[];

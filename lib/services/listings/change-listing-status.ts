@@ -6,7 +6,7 @@ import { planStatusChange, quantityLeft } from "@/lib/listings/status";
 import type { ListingAction } from "@/lib/validation/listings";
 import type { ListingStatus } from "@/db/types";
 import { alertIfDue } from "@/lib/services/needs/alert-if-due";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** Publish, pause, resume or archive. Asking for the state a listing is already in is a no-op. */
 export async function changeListingStatus(userId: string, id: string, action: ListingAction, ctx: Context = {}): Promise<{ status: ListingStatus }> {

@@ -15,7 +15,7 @@ import { listingDates } from "@/lib/listings/dates";
 import { alertIfDue } from "@/lib/services/needs/alert-if-due";
 import { DUE_NOW } from "@/migrations/20261208_020_open_needs";
 import { packOf, unitPriceOfPack } from "@/lib/listings/packs";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** Posts a listing with its pickup windows and photos in one transaction: all of it or none. */
 export async function createListing(user: SessionUser, input: CreateListingInput, ctx: Context = {}): Promise<{ id: string }> {

@@ -3,7 +3,7 @@ import { findListing, findManagedListing } from "@/db/listings";
 import { notFound } from "@/lib/api/errors";
 import { PUBLIC_STATUSES } from "@/lib/listings/status";
 import { presentDetail, type ListingDetail, type ManagedListingDetail } from "@/lib/listings/view";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /**
  * A listing as `viewerId` may see it: with the exact pickup point and address when they

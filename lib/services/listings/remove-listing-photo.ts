@@ -3,7 +3,7 @@ import { findManagedListing } from "@/db/listings";
 import { deletePhoto, photosFor, publicIdInUse, setPhotoPositions } from "@/db/listing-photos";
 import { notFound } from "@/lib/api/errors";
 import { destroyUpload } from "@/lib/media/cloudinary";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** Takes a photo off a listing, closes the gap in the order, then deletes the image itself. */
 export async function removeListingPhoto(userId: string, listingId: string, photoId: string, ctx: Context = {}): Promise<void> {

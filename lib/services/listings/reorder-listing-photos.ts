@@ -2,7 +2,7 @@ import "server-only";
 import { findManagedListing } from "@/db/listings";
 import { photosFor, setPhotoPositions } from "@/db/listing-photos";
 import { ApiError, notFound } from "@/lib/api/errors";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** Puts the listing's photos in the given order; the first is the one shown on cards. */
 export async function reorderListingPhotos(userId: string, listingId: string, order: string[], ctx: Context = {}): Promise<void> {

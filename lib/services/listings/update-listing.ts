@@ -10,7 +10,7 @@ import { approximatePoint, placeOwner } from "@/lib/geo/approximate";
 import { listingDates } from "@/lib/listings/dates";
 import { alertIfDue } from "@/lib/services/needs/alert-if-due";
 import { packOf, unitPriceOfPack } from "@/lib/listings/packs";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { checkListingRules, type LISTING_CURRENCIES, defaultUnitSize, listingFieldsSchema, type UpdateListingInput } from "@/lib/validation/listings";
 
 // The same rules as a new listing, checked on the listing as it would be after the change.

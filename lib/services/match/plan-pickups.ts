@@ -11,7 +11,7 @@ import { pickupWindowsOf } from "@/db/reservations";
 import { depositFor } from "@/lib/payments/money";
 import { answerByFor, pickupChoices } from "@/lib/reservations/pickup-choices";
 import { bedNeeds } from "@/lib/beds/needs";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** POST /api/match: the pickup plan for ad-hoc needs, or for one of the signed-in gardener's beds. */
 export async function planPickups(input: MatchInput, user: SessionUser | null, ctx: Context = {}) {

@@ -7,7 +7,7 @@ import { enqueueEmail } from "@/db/outbox";
 import { auditActionsSince, recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { REPORT_REASON_LABELS } from "@/lib/validation/moderation";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 const ACTION_WORDS: Record<string, string> = {
   "listing.hide": "hid the listing",

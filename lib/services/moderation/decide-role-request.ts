@@ -3,7 +3,7 @@ import { rolesOf, setRole } from "@/db/users";
 import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
 import type { Role } from "@/lib/auth/roles";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 export async function decideRoleRequest(moderatorId: string, userId: string, role: Role, decision: "approve" | "refuse", ctx: Context = {}) {
   const { db: q } = resolveContext(ctx);

@@ -4,7 +4,7 @@ import { findListingBrief } from "@/db/listing-status";
 import { findUserById } from "@/db/users";
 import { ApiError, notFound } from "@/lib/api/errors";
 import type { ReportInput } from "@/lib/validation/moderation";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** More reports than this from one account in a day is a flood, not a signal (common practice, no source). */
 export const REPORTS_PER_DAY = 10;

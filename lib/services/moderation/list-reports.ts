@@ -1,5 +1,5 @@
 import { reportQueue, type QueueRow } from "@/db/reports";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 export type { QueueRow };
 

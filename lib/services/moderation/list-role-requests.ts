@@ -1,5 +1,5 @@
 import { pendingRoleRequests } from "@/db/organisations";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** Requests for a role that wait for a moderator's decision. */
 export async function listRoleRequests(ctx: Context = {}) {

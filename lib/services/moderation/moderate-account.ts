@@ -5,7 +5,7 @@ import { moveStatus } from "@/db/listings";
 import type { ListingStatus } from "@/db/types";
 import { lastAudit, recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 // A moderator's actions on a listing or an account. Each one is a conditional change and an
 // audit row in one transaction, so the log can never disagree with what happened.

@@ -6,7 +6,7 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import { LISTING_ROLES } from "@/lib/auth/roles";
 import { endEverySession } from "@/lib/auth/sessions";
 import { UserAction } from "@/lib/services/moderation/moderate-account";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 export async function moderateUser(moderatorId: string, userId: string, action: UserAction, note: string, reportId?: string, ctx: Context = {}) {
   const { db: q, clock } = resolveContext(ctx);

@@ -1,5 +1,5 @@
 import { searchAudit as findAudit, type AuditSearch } from "@/db/audit";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** The audit trail for moderators, newest first, filtered as asked. */
 export async function searchAudit(search: AuditSearch, ctx: Context = {}) {

@@ -1,5 +1,5 @@
 import "server-only";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { alertNeedsFor } from "@/lib/services/needs/alert-needs";
 
 /** Worker job: every listing whose check is due (posted, restocked, changed, or come into its dates). */

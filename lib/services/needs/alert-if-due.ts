@@ -1,5 +1,5 @@
 import "server-only";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { alertNeedsFor } from "@/lib/services/needs/alert-needs";
 
 /** After a service changed a listing: alert at once if the change made it due (the worker is the safety net). */

@@ -9,7 +9,7 @@ import { appUrl } from "@/lib/env";
 import type { UnitSystem } from "@/lib/calc/units";
 import { needsReaching, type ReachedNeed } from "@/lib/needs/reaching";
 import { DUE_NOW } from "@/migrations/20261208_020_open_needs";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { alertCautions } from "@/lib/services/needs/steps/alert-cautions";
 import { alertLine } from "@/lib/services/needs/steps/alert-line";
 import { alertingListing } from "@/lib/services/needs/steps/alerting-listing";

@@ -7,7 +7,7 @@ import { NEED_UNIT_LABEL, NEED_UNITS } from "@/lib/match/units";
 import { reachBand } from "@/lib/needs/reach";
 import { effectiveNeedStatus, type NeedView } from "@/lib/needs/view";
 import { neededByIssue, type UpdateNeedInput } from "@/lib/validation/needs";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { dayOf } from "@/lib/services/needs/steps/day-of";
 import { needViews } from "@/lib/services/needs/steps/need-views";
 import { noticeListingsQuietly } from "@/lib/services/needs/notice-listings-quietly";

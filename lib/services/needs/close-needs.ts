@@ -1,6 +1,6 @@
 import "server-only";
 import { expireNeeds } from "@/db/needs";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { dayOf } from "@/lib/services/needs/steps/day-of";
 
 /** Worker job: open needs whose date has passed close as expired. */

@@ -7,7 +7,7 @@ import { demandCells, demandSummary, MIN_PEOPLE, suggestGiveaway, SUGGESTED_MATE
 import { cellOf, MIN_CELL_AREA_KM2 } from "@/lib/needs/grid";
 import { DEFAULT_CENTER } from "@/lib/geo/default-center";
 import type { CouncilStaff } from "@/lib/auth/council-access";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { dayOf } from "@/lib/services/needs/steps/day-of";
 import { toDemandRow } from "@/lib/services/needs/steps/to-demand-row";
 import { CouncilDemand } from "@/lib/needs/demand-csv";

@@ -1,7 +1,7 @@
 import "server-only";
 import { deleteOwnNeed } from "@/db/needs";
 import { notFound } from "@/lib/api/errors";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** DELETE /api/needs/:id: the need and its alerts go; reservations made for it stay. Anyone else's is a 404. */
 export async function deleteNeed(userId: string, id: string, ctx: Context = {}): Promise<void> {

@@ -2,7 +2,7 @@ import "server-only";
 import { findOwnNeed } from "@/db/needs";
 import { notFound } from "@/lib/api/errors";
 import type { NeedView } from "@/lib/needs/view";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { needViews } from "@/lib/services/needs/steps/need-views";
 
 /** GET /api/needs/:id: one of my needs; anyone else's is a 404. */

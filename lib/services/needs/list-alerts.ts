@@ -2,7 +2,7 @@ import "server-only";
 import type { Pack } from "@/lib/listings/packs";
 import type { MaterialCode } from "@/lib/calc/facts";
 import type { ListingUnit } from "@/lib/match/types";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { alertQuery, type AlertJoin } from "@/lib/services/needs/steps/alert-query";
 import { toView } from "@/lib/services/needs/steps/alert-view";
 

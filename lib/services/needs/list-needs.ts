@@ -1,7 +1,7 @@
 import "server-only";
 import { listOwnNeeds } from "@/db/needs";
 import type { NeedView } from "@/lib/needs/view";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { needViews } from "@/lib/services/needs/steps/need-views";
 
 /** GET /api/needs: my needs, newest first (open ones only, or one bed's, when asked). */

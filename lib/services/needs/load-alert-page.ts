@@ -6,7 +6,7 @@ import { amountToReserve } from "@/lib/needs/coverage";
 import type { ListingCaution } from "@/lib/calc/cautions";
 import type { NeedView } from "@/lib/needs/view";
 import { loadReserveOffer, type ReserveOffer } from "@/lib/services/reservations/load-reserve-offer";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { needViews } from "@/lib/services/needs/steps/need-views";
 import { findListingFacts } from "@/db/listings";
 import type { AlertView } from "@/lib/services/needs/list-alerts";

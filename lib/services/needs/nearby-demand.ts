@@ -4,7 +4,7 @@ import type { MaterialCode } from "@/lib/calc/facts";
 import { demandRings, MIN_PEOPLE, PREVIEW_READ_KM, type DemandRing } from "@/lib/needs/demand";
 import { cellOf } from "@/lib/needs/grid";
 import { consume, LIMITS } from "@/lib/security/rate-limit";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { dayOf } from "@/lib/services/needs/steps/day-of";
 import { toDemandRow } from "@/lib/services/needs/steps/to-demand-row";
 

@@ -1,5 +1,5 @@
 import "server-only";
-import type { Context } from "@/lib/services/context";
+import type { Context } from "@/lib/context";
 import { noticeListingsFor, type NoticedNeed } from "@/lib/services/needs/notice-listings";
 
 /** After a need was opened or changed: the notices, without failing the change that was already made. */

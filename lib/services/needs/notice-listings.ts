@@ -5,7 +5,7 @@ import { insertAlerts } from "@/db/need-alerts";
 import type { NeedAlertRow, NeedRow } from "@/db/types";
 import { servingDistance } from "@/lib/needs/reaching";
 import { alertingListing } from "@/lib/services/needs/steps/alerting-listing";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** The nearest listings already on offer that a new need is shown at once: a product choice, enough to choose from. */
 export const LISTINGS_ON_OPENING = 20;

@@ -10,7 +10,7 @@ import { reachBand } from "@/lib/needs/reach";
 import type { NeedView } from "@/lib/needs/view";
 import { addDays } from "@/lib/time/zoned";
 import { neededByIssue, type OpenNeedInput } from "@/lib/validation/needs";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { dayOf } from "@/lib/services/needs/steps/day-of";
 import { needViews } from "@/lib/services/needs/steps/need-views";
 import { noticeListingsQuietly } from "@/lib/services/needs/notice-listings-quietly";

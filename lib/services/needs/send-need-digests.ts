@@ -5,7 +5,7 @@ import type { ListingRow } from "@/db/types";
 import { appUrl } from "@/lib/env";
 import type { UnitSystem } from "@/lib/calc/units";
 import { alertLine } from "@/lib/services/needs/steps/alert-line";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** A person gets at most one digest in any this many hours (the "daily" of daily alerts). */
 export const DIGEST_EVERY_HOURS = 24;

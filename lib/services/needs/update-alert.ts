@@ -1,7 +1,7 @@
 import "server-only";
 import { dismissAlert, markAlertsSeen } from "@/db/need-alerts";
 import { notFound } from "@/lib/api/errors";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** PATCH /api/needs/alerts/:id: mark seen, or dismiss. Anyone else's notice is a 404. */
 export async function updateAlert(userId: string, id: string, change: { seen?: boolean; dismissed?: boolean }, ctx: Context = {}): Promise<void> {

@@ -6,7 +6,7 @@ import { findPayment, paymentByStripeRef, updatePayment } from "@/db/payments";
 import { lockOwner } from "@/lib/payments/owner";
 import { movesForward, str, targetFor } from "@/lib/payments/status";
 import { ownerHooks } from "@/lib/services/payments/owners";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 // Applies one event of Stripe's record, exactly once: the event id goes into webhook_events
 // in the same transaction as its effects, so a repeat finds the id and changes nothing, and a

@@ -6,7 +6,7 @@ import type { PaymentRow } from "@/db/types";
 import { isUniqueViolation } from "@/db/dialect";
 import { syncPayment } from "@/lib/services/payments/settle-payment";
 import { retrieveRefund } from "@/lib/payments/gateway";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 // What a verified webhook does: it names a Stripe object, and Duffbank reads that object's
 // record back from Stripe through the SDK and applies what the record says (syncPayment).

@@ -3,7 +3,7 @@ import { nowIso } from "@/db/index";
 import type { PaymentRow } from "@/db/types";
 import { RECHECK_MINUTES, RECOVER_AFTER_MINUTES } from "@/lib/payments/reconcile";
 import { syncPayment } from "@/lib/services/payments/settle-payment";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 // Repairs what a lost webhook left behind. If every delivery of an event failed (the app was
 // down longer than Stripe retries, or the endpoint was misconfigured), a row would otherwise

@@ -5,7 +5,8 @@ import { probeStripe } from "@/lib/payments/stripe";
 import { nextCooldownMs } from "@/lib/time/backoff";
 import { attemptPaymentAction } from "@/lib/services/payments/settle-payment";
 import { waitForStripe } from "@/lib/services/payments/steps/wait-for-stripe";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
+import { systemClock } from "@/lib/time/clock";
 
 // When Stripe answering a question last woke the calls waiting for it, and how long the next
 // such wake must wait (0 until a woken call fails again).
@@ -22,8 +23,9 @@ export async function settlePayments(ctx: Context = {}): Promise<{ done: number;
   let done = 0;
   let failed = 0;
   let woke = false;
-  if ((await anyWaitingForStripe(q)) && Date.now() - wakes.last >= wakes.cooldownMs && (await probeStripe()).ok) {
-    wakes.last = Date.now();
+  // A throttle on probing a Stripe that was down runs on the wall clock, not the job's.
+  if ((await anyWaitingForStripe(q)) && systemClock().getTime() - wakes.last >= wakes.cooldownMs && (await probeStripe()).ok) {
+    wakes.last = systemClock().getTime();
     woke = true;
     await wakeWaitingForStripe(clock().toISOString(), q);
   }

@@ -12,7 +12,7 @@ import { stripeUnreachable } from "@/lib/payments/stripe";
 import { applyStripeEvent } from "@/lib/services/payments/apply-stripe-event";
 import { ownerHooks } from "@/lib/services/payments/owners";
 import { waitForStripe } from "@/lib/services/payments/steps/wait-for-stripe";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 // The one place that settles a payment with Stripe: make the Stripe call the payment owes,
 // read Stripe's record back, apply it. Both ways in go through here: a change that wrote

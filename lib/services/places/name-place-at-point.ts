@@ -3,7 +3,7 @@ import { nearestPlace } from "@/db/places";
 import { geocodeReverse } from "@/lib/geo/geocoder";
 import type { Place } from "@/lib/validation/places";
 import { placeView } from "@/lib/services/places/steps/place-view";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** A name for a point ("near Mill Leat Lane, Fernhollow"): the gazetteer's nearest place, else the service's. */
 export async function nameForPoint(lat: number, lng: number, ctx: Context = {}): Promise<Place | null> {

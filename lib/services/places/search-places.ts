@@ -3,7 +3,7 @@ import { placesByPrefix, type PlaceHit } from "@/db/places";
 import { geocodeSearch } from "@/lib/geo/geocoder";
 import { comparePlaces, placeLabel } from "@/lib/geo/place-terms";
 import type { Place } from "@/lib/validation/places";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { placeView } from "@/lib/services/places/steps/place-view";
 
 // Finding a place by name: the local gazetteer first (towns, villages, streets, postcodes

@@ -8,7 +8,7 @@ import { pickupCodeMatches } from "@/lib/reservations/pickup-code";
 import { blockedReason, cancellationIsTimely, type ReservationAction, type Side } from "@/lib/reservations/policy";
 import { closeReservation, confirmReservation } from "@/lib/services/reservations/steps/reservation-steps";
 import { runReservationStep } from "@/lib/services/reservations/run-reservation-step";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 // One use-case for the five transitions a person can make (confirm, decline, cancel,
 // collect, no-show): who may, from which state, and what each does. The rules themselves

@@ -7,7 +7,7 @@ import type { ReservationRow } from "@/db/types";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { runPaymentActions } from "@/lib/services/payments/settle-payment";
 import { StaleState, closeReservation } from "@/lib/services/reservations/steps/reservation-steps";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 // The worker's hold-expiry job (the reminders are send-reservation-reminders.ts). Everything
 // it needs is in the database (hold_expires_at), so a restarted worker picks up exactly where

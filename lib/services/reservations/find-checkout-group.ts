@@ -1,4 +1,4 @@
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /**
  * The reservation a returning Stripe checkout session paid for, if it is the gardener's, with

@@ -2,7 +2,7 @@ import "server-only";
 import { sideOf } from "@/db/reservations";
 import { ApiError } from "@/lib/api/errors";
 import type { ReservationView } from "@/lib/reservations/view";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { views } from "@/lib/services/reservations/steps/view-reservations";
 
 export async function getReservation(id: string, userId: string, ctx: Context = {}): Promise<ReservationView> {

@@ -2,7 +2,7 @@ import "server-only";
 import { messagesOf } from "@/db/reservation-messages";
 import { sideOf } from "@/db/reservations";
 import { ApiError } from "@/lib/api/errors";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 export async function listReservationMessages(input: { reservationId: string; userId: string }, ctx: Context = {}) {
   const { db: q } = resolveContext(ctx);

@@ -2,7 +2,7 @@ import "server-only";
 import { reservationIdsFor } from "@/db/reservations";
 import type { Side } from "@/lib/reservations/policy";
 import type { ReservationView } from "@/lib/reservations/view";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { views } from "@/lib/services/reservations/steps/view-reservations";
 
 // Reading reservations for one side: a gardener's own, or the requests on a supplier's

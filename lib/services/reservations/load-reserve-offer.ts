@@ -9,7 +9,7 @@ import { packOf } from "@/lib/listings/packs";
 import { datesState, effectiveStatus } from "@/lib/listings/status";
 import { cultureOffer } from "@/lib/services/growers/get-culture-offer";
 import { depositFor } from "@/lib/payments/money";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** What the reserve page shows about a listing: public facts only, never the address. */
 export async function loadReserveOffer(listingId: string, ctx: Context = {}) {

@@ -5,7 +5,7 @@ import { countMessagesSince, insertMessage } from "@/db/reservation-messages";
 import { reservationContext } from "@/db/reservation-context";
 import { sideOf } from "@/db/reservations";
 import { ApiError } from "@/lib/api/errors";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { MESSAGE_LIMIT } from "@/lib/reservations/policy";
 

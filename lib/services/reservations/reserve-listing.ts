@@ -22,7 +22,7 @@ import { packOf, wholePackProblem } from "@/lib/listings/packs";
 import { confirmReservation, pickupTimes } from "@/lib/services/reservations/steps/reservation-steps";
 import { shippingView } from "@/lib/growers/view";
 import { formatMoney } from "@/lib/format/money";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 // POST /api/reservations: hold quantities of one or more listings for a gardener, all or
 // nothing in one transaction, then open a Stripe checkout for whatever needs paying.

@@ -1,7 +1,7 @@
 import "server-only";
 import { chargeOf } from "@/db/payments";
 import { ApiError } from "@/lib/api/errors";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { openCheckout } from "@/lib/payments/checkout";
 import { owesPayment, type PaymentState, type ReservationStatus } from "@/lib/reservations/policy";
 

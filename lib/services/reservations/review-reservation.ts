@@ -4,7 +4,7 @@ import { isUniqueViolation } from "@/db/dialect";
 import { writeTransaction } from "@/db/write-transaction";
 import { sideOf } from "@/db/reservations";
 import { ApiError } from "@/lib/api/errors";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import type { ReviewInput } from "@/lib/validation/reservations";
 
 // After a collection each side rates the other once: the gardener rates the listing's

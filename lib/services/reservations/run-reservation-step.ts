@@ -1,6 +1,6 @@
 import "server-only";
 import type { Knex } from "knex";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { findReservation, sideOf } from "@/db/reservations";
 import type { ReservationRow } from "@/db/types";
 import { writeTransaction } from "@/db/write-transaction";

@@ -4,7 +4,7 @@ import { reservationContext } from "@/db/reservation-context";
 import type { ReservationRow } from "@/db/types";
 import { mailReservation } from "@/lib/mail/reservation-mail";
 import { EXPIRY_WARNING_MINUTES, PICKUP_REMINDER_HOURS } from "@/lib/reservations/policy";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { sendNotices } from "@/lib/services/reservations/steps/send-notices";
 
 /**

@@ -1,7 +1,7 @@
 import "server-only";
 import { checkedInBookings, collectedReservations } from "@/db/diversion";
 import { summariseDiversion } from "@/lib/calc/diversion";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 import { diversionRecord } from "@/lib/services/figures/steps/diversion-record";
 
 // The whole platform's kilograms, kept apart: what suppliers' collected reservations kept from

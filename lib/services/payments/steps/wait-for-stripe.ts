@@ -1,6 +1,6 @@
 import "server-only";
 import { actionRetryDelayMs } from "@/lib/payments/retry";
-import { resolveContext, type Context } from "@/lib/services/context";
+import { resolveContext, type Context } from "@/lib/context";
 
 /** Leaves a payment's owed call to the worker, due as soon as Stripe answers again. */
 export async function waitForStripe(id: string, ctx: Context = {}) {
