@@ -1,4 +1,5 @@
 import type { Adapter, AdapterUser } from "next-auth/adapters";
+import { writeTransaction } from "@/db/write-transaction";
 import { db, nowIso } from "@/db/index";
 import { findUserByEmail, findUserById, insertUser, setRole, updateUser } from "@/db/users";
 import type { UserRow } from "@/db/types";
@@ -18,7 +19,7 @@ function toAdapterUser(row: UserRow): AdapterUser {
 export function knexAdapter(): Adapter {
   return {
     async createUser(user: Omit<AdapterUser, "id">) {
-      const row = await db().transaction(async (trx) => {
+      const row = await writeTransaction(db(), async (trx) => {
         const created = await insertUser(
           {
             email: user.email,
@@ -60,7 +61,7 @@ export function knexAdapter(): Adapter {
       return token;
     },
     async useVerificationToken({ identifier, token }) {
-      return db().transaction(async (trx) => {
+      return writeTransaction(db(), async (trx) => {
         const row = await trx("verification_tokens").select("identifier", "token", "expires").where({ identifier, token }).first();
         if (!row) return null;
         await trx("verification_tokens").where({ identifier, token }).delete();

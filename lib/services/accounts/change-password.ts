@@ -1,4 +1,5 @@
 import "server-only";
+import { writeTransaction } from "@/db/write-transaction";
 import { enqueueEmail } from "@/db/outbox";
 import { findUserById, setPasswordHash } from "@/db/users";
 import { ApiError, notFound } from "@/lib/api/errors";
@@ -35,7 +36,7 @@ export async function changePassword(userId: string, input: ChangePasswordInput,
   const problem = passwordProblem(input.new_password, { email: user.email, name: user.display_name });
   if (problem) throw new ApiError("invalid_input", "Choose a stronger password.", { new_password: problem });
   const hash = await hashPassword(input.new_password);
-  const ended = await q.transaction(async (trx) => {
+  const ended = await writeTransaction(q, async (trx) => {
     await setPasswordHash(userId, hash, trx);
     await enqueueEmail({ to: user.email, template: "account.password_changed", data: { signInUrl: `${appUrl()}/sign-in` } }, trx);
     return endEverySession(userId, "password_changed", clock, trx);

@@ -1,4 +1,5 @@
 import "server-only";
+import { writeTransaction } from "@/db/write-transaction";
 import { enqueueEmail } from "@/db/outbox";
 import { findUserById } from "@/db/users";
 import { ApiError, notFound } from "@/lib/api/errors";
@@ -13,7 +14,7 @@ export async function resendConfirmation(userId: string, ctx: Context = {}): Pro
   if (!user) throw notFound("That account");
   if (user.email_verified_at) throw new ApiError("invalid_state", "Your e-mail address is already confirmed.");
   await consume([[LIMITS.linkEmail, user.email]], clock, q);
-  await q.transaction(async (trx) => {
+  await writeTransaction(q, async (trx) => {
     const link = await signInLink(user.email, "/profile", clock(), trx);
     await enqueueEmail({ to: user.email, template: "account.confirm", data: { name: user.display_name, url: link } }, trx);
   });

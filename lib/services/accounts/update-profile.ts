@@ -1,4 +1,5 @@
 import "server-only";
+import { writeTransaction } from "@/db/write-transaction";
 import { rolesOf, setRole, updateUser } from "@/db/users";
 import { recordAudit } from "@/db/audit";
 import type { ProfileInput } from "@/lib/validation/auth";
@@ -12,7 +13,7 @@ const GRANTED_AT_ONCE: Role[] = ["supplier"];
 
 export async function updateProfile(userId: string, input: ProfileInput, ctx: Context = {}) {
   const { db: q } = resolveContext(ctx);
-  await q.transaction(async (trx) => {
+  await writeTransaction(q, async (trx) => {
     const home = input.home === undefined ? {} : input.home === null ? { home_place: null, home_lat: null, home_lng: null } : { home_place: input.home.label, home_lat: input.home.lat, home_lng: input.home.lng };
     await updateUser(userId, { display_name: input.display_name, unit_system: input.unit_system, reminders_opt_out: input.reminders_opt_out, ...home }, trx);
     const current = await rolesOf(userId, trx);

@@ -1,4 +1,5 @@
 import "server-only";
+import { writeTransaction } from "@/db/write-transaction";
 import { findBed, insertBed } from "@/db/beds";
 import type { CreateBedInput } from "@/lib/validation/beds";
 import { toBedView, type BedView } from "@/lib/beds/view";
@@ -7,7 +8,7 @@ import { resolveContext, type Context } from "@/lib/context";
 
 export async function createBed(ownerId: string, input: CreateBedInput, ctx: Context = {}): Promise<BedView> {
   const { db: q } = resolveContext(ctx);
-  return q.transaction(async (trx) => {
+  return writeTransaction(q, async (trx) => {
     const id = await insertBed(
       ownerId,
       { name: input.name, ...shapeColumns(input.bed, input.location), recipe: JSON.stringify(input.layers ?? {}), start_date: input.start_date ?? null },

@@ -1,4 +1,5 @@
 import "server-only";
+import { writeTransaction } from "@/db/write-transaction";
 import { findBed, updateBed, type BedWrite } from "@/db/beds";
 import { notFound } from "@/lib/api/errors";
 import type { UpdateBedInput } from "@/lib/validation/beds";
@@ -8,7 +9,7 @@ import { resolveContext, type Context } from "@/lib/context";
 
 export async function editBed(ownerId: string, id: string, input: UpdateBedInput, ctx: Context = {}): Promise<BedView> {
   const { db: q } = resolveContext(ctx);
-  return q.transaction(async (trx) => {
+  return writeTransaction(q, async (trx) => {
     const current = await findBed(id, ownerId, trx);
     if (!current) throw notFound("That bed");
     const view = toBedView(current);

@@ -1,4 +1,5 @@
 import "server-only";
+import { writeTransaction } from "@/db/write-transaction";
 import { findManagedListing } from "@/db/listings";
 import { countPhotos, insertPhotos } from "@/db/listing-photos";
 import { ApiError, notFound } from "@/lib/api/errors";
@@ -9,7 +10,7 @@ import { resolveContext, type Context } from "@/lib/context";
 /** Attaches verified uploads after the listing's existing photos, up to MAX_PHOTOS in all. */
 export async function addListingPhotos(userId: string, listingId: string, photos: UploadedPhoto[], ctx: Context = {}) {
   const { db: q } = resolveContext(ctx);
-  return q.transaction(async (trx) => {
+  return writeTransaction(q, async (trx) => {
     if (!(await findManagedListing(listingId, userId, trx))) throw notFound("That listing");
     checkUploadedPhotos(userId, photos);
     const have = await countPhotos(listingId, trx);

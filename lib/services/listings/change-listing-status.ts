@@ -1,4 +1,5 @@
 import "server-only";
+import { writeTransaction } from "@/db/write-transaction";
 import { findManagedListing, moveStatus } from "@/db/listings";
 import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
@@ -12,7 +13,7 @@ import { resolveContext, type Context } from "@/lib/context";
 export async function changeListingStatus(userId: string, id: string, action: ListingAction, ctx: Context = {}): Promise<{ status: ListingStatus }> {
   const { db: q, clock } = resolveContext(ctx);
   const now = clock();
-  const result = await q.transaction(async (trx) => {
+  const result = await writeTransaction(q, async (trx) => {
     const row = await findManagedListing(id, userId, trx);
     if (!row) throw notFound("That listing");
     const ended = Boolean(row.available_until && Date.parse(row.available_until) <= now.getTime());

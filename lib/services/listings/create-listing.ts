@@ -1,4 +1,5 @@
 import { WHOLE_UNITS } from "@/lib/calc/units";
+import { writeTransaction } from "@/db/write-transaction";
 import "server-only";
 import { newId } from "@/db/index";
 import { insertListing } from "@/db/listings";
@@ -33,7 +34,7 @@ export async function createListing(user: SessionUser, input: CreateListingInput
   const counted = WHOLE_UNITS.has(input.unit);
   // A pack listing's price per unit is what its pack works out at, whatever the client sent.
   const pack = packOf(input);
-  await q.transaction(async (trx) => {
+  await writeTransaction(q, async (trx) => {
     await insertListing(
       {
         id,

@@ -1,4 +1,5 @@
 import "server-only";
+import { writeTransaction } from "@/db/write-transaction";
 import { findManagedListing } from "@/db/listings";
 import { deletePhoto, photosFor, publicIdInUse, setPhotoPositions } from "@/db/listing-photos";
 import { notFound } from "@/lib/api/errors";
@@ -8,7 +9,7 @@ import { resolveContext, type Context } from "@/lib/context";
 /** Takes a photo off a listing, closes the gap in the order, then deletes the image itself. */
 export async function removeListingPhoto(userId: string, listingId: string, photoId: string, ctx: Context = {}): Promise<void> {
   const { db: q } = resolveContext(ctx);
-  const removed = await q.transaction(async (trx) => {
+  const removed = await writeTransaction(q, async (trx) => {
     if (!(await findManagedListing(listingId, userId, trx))) throw notFound("That listing");
     const row = await deletePhoto(listingId, photoId, trx);
     if (!row) throw notFound("That photo");

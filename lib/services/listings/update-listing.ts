@@ -1,4 +1,5 @@
 import { WHOLE_UNITS } from "@/lib/calc/units";
+import { writeTransaction } from "@/db/write-transaction";
 import "server-only";
 import { z } from "zod";
 import { findManagedListing, setQuantityTotal, updateManagedListing, type ListingPatch } from "@/db/listings";
@@ -20,7 +21,7 @@ const mergedSchema = listingFieldsSchema.superRefine(checkListingRules);
 export async function updateListing(userId: string, id: string, patch: UpdateListingInput, ctx: Context = {}): Promise<void> {
   const { db: q, clock } = resolveContext(ctx);
   const now = clock();
-  await q.transaction(async (trx) => {
+  await writeTransaction(q, async (trx) => {
     const row = await findManagedListing(id, userId, trx);
     if (!row) throw notFound("That listing");
     if (row.status === "hidden") throw new ApiError("invalid_state", "A moderator has hidden this listing; it cannot be edited until they restore it.");

@@ -1,4 +1,5 @@
 import "server-only";
+import { writeTransaction } from "@/db/write-transaction";
 import { rolesOf, setRole } from "@/db/users";
 import { recordAudit } from "@/db/audit";
 import { ApiError, notFound } from "@/lib/api/errors";
@@ -7,7 +8,7 @@ import { resolveContext, type Context } from "@/lib/context";
 
 export async function decideRoleRequest(moderatorId: string, userId: string, role: Role, decision: "approve" | "refuse", ctx: Context = {}) {
   const { db: q } = resolveContext(ctx);
-  return q.transaction(async (trx) => {
+  return writeTransaction(q, async (trx) => {
     const current = (await rolesOf(userId, trx)).find((r) => r.role === role);
     if (!current) throw notFound("That request");
     if (current.status !== "requested") throw new ApiError("invalid_state", "That request has already been decided.");

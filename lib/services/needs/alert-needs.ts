@@ -1,4 +1,5 @@
 import "server-only";
+import { writeTransaction } from "@/db/write-transaction";
 import type { Knex } from "knex";
 import { newId } from "@/db/index";
 import { findListing } from "@/db/listings";
@@ -105,7 +106,7 @@ export async function alertNeedsFor(listingId: string, ctx: Context = {}): Promi
       const found = await needsReaching(alerting, q);
       const before = await alertedNeeds(l.id, found.map((f) => f.need.id), q);
       const fresh = found.filter((f) => !before.has(f.need.id));
-      if (fresh.length) await q.transaction((trx) => writeAlerts(trx, l, fresh, now));
+      if (fresh.length) await writeTransaction(q, (trx) => writeAlerts(trx, l, fresh, now));
       alerted = fresh.length;
     }
   } catch (err) {

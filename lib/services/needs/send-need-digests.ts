@@ -1,4 +1,5 @@
 import "server-only";
+import { writeTransaction } from "@/db/write-transaction";
 import { claimAlertsForMail, digestRecipients, lastDigestAt } from "@/db/need-alerts";
 import { enqueueEmail } from "@/db/outbox";
 import type { ListingRow } from "@/db/types";
@@ -35,7 +36,7 @@ export async function sendNeedDigests(ctx: Context = {}): Promise<number> {
     const person = await q("users").first("email", "display_name", "unit_system", "suspended_at", "email_verified_at").where({ id: userId });
     // An address nobody has confirmed gets no mail (anyone could have typed it): the notices wait in the app.
     if (!person || person.suspended_at || !person.email_verified_at) continue;
-    const done = await q.transaction(async (trx) => {
+    const done = await writeTransaction(q, async (trx) => {
       const pending: PendingRow[] = await trx("need_alerts as a")
         .join("needs as n", "n.id", "a.need_id")
         .join("listings as l", "l.id", "a.listing_id")
