@@ -6,6 +6,9 @@ import { NextRequest } from "next/server";
 import { startStripeFake, type StripeFake } from "@/lib/fakes/stripe/server";
 import { resetStripe } from "@/lib/payments/stripe";
 import { POST as webhookRoute } from "@/app/api/webhooks/stripe/route";
+import { afterAll, beforeAll, beforeEach } from "vitest";
+import { freshDb } from "./db";
+import { createUser } from "../factories";
 
 export const TEST_WEBHOOK_SECRET = "whsec_duffbank_local";
 
@@ -52,4 +55,28 @@ export async function startPayments(): Promise<PaymentsHarness> {
       resetStripe();
     },
   };
+}
+
+/**
+ * The world most payment test files start from: a fresh database, the Stripe fake wired to the
+ * webhook route, and one gardener. Before each test the fake's webhooks are back on (a test
+ * may have pointed them elsewhere) and the route's answers are cleared.
+ */
+export function paymentsWorld(): { pay: PaymentsHarness; gardener: { id: string } } {
+  const world = {} as { pay: PaymentsHarness; gardener: { id: string } };
+  let database: Awaited<ReturnType<typeof freshDb>> | undefined;
+  beforeAll(async () => {
+    database = await freshDb();
+    world.pay = await startPayments();
+    world.gardener = await createUser({ roles: ["gardener"] });
+  });
+  afterAll(async () => {
+    await world.pay?.close();
+    await database?.close();
+  });
+  beforeEach(() => {
+    world.pay.answers.length = 0;
+    world.pay.fake.setWebhookUrl(world.pay.webhookUrl);
+  });
+  return world;
 }

@@ -2,11 +2,10 @@
 // keeps the short hold; a request waiting for the supplier's answer gets up to 48 hours,
 // always ending when the chosen pickup starts, with a reminder half-way; no request asks a
 // supplier to answer after its own pickup time.
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
-import { freshDb } from "../helpers/db";
+import { describe, expect, it } from "vitest";
 import { call, request } from "../helpers/http";
-import { startPayments, type PaymentsHarness } from "../helpers/payments";
-import { createListing, createUser } from "../factories";
+import { paymentsWorld } from "../helpers/payments";
+import { createListing } from "../factories";
 import { TEST_CARDS, submitHostedPayment, validCard } from "@/lib/fakes/stripe/testing";
 import { POST as reserve } from "@/app/api/reservations/route";
 import { expireHolds } from "@/lib/services/reservations/expire-holds";
@@ -16,20 +15,7 @@ import { DEFAULT_HOLD_MINUTES, MIN_ANSWER_MINUTES, SUPPLIER_REPLY_HOURS } from "
 import { db } from "@/db/index";
 import { rendered } from "../helpers/outbox";
 
-let ctx: Awaited<ReturnType<typeof freshDb>>;
-let pay: PaymentsHarness;
-let gardener: { id: string };
-
-beforeAll(async () => {
-  ctx = await freshDb();
-  pay = await startPayments();
-  gardener = await createUser({ roles: ["gardener"] });
-});
-afterAll(async () => {
-  await pay.close();
-  await ctx.close();
-});
-beforeEach(() => pay.fake.setWebhookUrl(pay.webhookUrl));
+const world = paymentsWorld();
 
 const HOUR = 3_600_000;
 const MIN = 60_000;
@@ -59,7 +45,7 @@ function weeklyIn(fromNowMs: number) {
 }
 
 async function reserveWith(listingId: string, windowId: string | null) {
-  return call(reserve, await request("/api/reservations", { body: { listing_id: listingId, quantity: 1, pickup_window_id: windowId }, as: gardener.id }));
+  return call(reserve, await request("/api/reservations", { body: { listing_id: listingId, quantity: 1, pickup_window_id: windowId }, as: world.gardener.id }));
 }
 const row = (id: string) => db()("reservations").first("*").where({ id });
 
@@ -142,7 +128,7 @@ describe("a checkout", () => {
     expect(warned).toEqual([`res:${id}:expiring:gardener:${r.hold_expires_at}`]);
 
     await submitHostedPayment(res.json.checkout_url, validCard(TEST_CARDS.approved));
-    await pay.fake.webhooksIdle();
+    await world.pay.fake.webhooksIdle();
     r = await row(id);
     expect(r.payment_state).toBe("paid");
     expect(r.hold_expires_at).toBe(w.start.toISOString());

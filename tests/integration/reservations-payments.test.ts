@@ -1,10 +1,9 @@
 // Payments end to end against the Stripe fake: the app's own SDK calls, the hosted page
 // paid with Stripe's test cards, and the fake's signed webhooks delivered to the app's
 // webhook route. Reservation state follows the webhooks, never the browser's redirect.
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
-import { freshDb } from "../helpers/db";
+import { describe, expect, it } from "vitest";
 import { call, request } from "../helpers/http";
-import { startPayments, type PaymentsHarness } from "../helpers/payments";
+import { paymentsWorld } from "../helpers/payments";
 import { createListing, createUser, listingQuantities } from "../factories";
 import { TEST_CARDS, submitHostedPayment, validCard } from "@/lib/fakes/stripe/testing";
 import { POST as reserve } from "@/app/api/reservations/route";
@@ -20,54 +19,38 @@ import { db } from "@/db/index";
 import { deliverEvents } from "../helpers/webhook-events";
 import { rendered } from "../helpers/outbox";
 
-let ctx: Awaited<ReturnType<typeof freshDb>>;
-let pay: PaymentsHarness;
-let gardener: { id: string };
-
-beforeAll(async () => {
-  ctx = await freshDb();
-  pay = await startPayments();
-  gardener = await createUser({ roles: ["gardener"] });
-});
-afterAll(async () => {
-  await pay.close();
-  await ctx.close();
-});
-beforeEach(() => {
-  pay.answers.length = 0;
-  pay.fake.setWebhookUrl(pay.webhookUrl);
-});
+const world = paymentsWorld();
 
 async function reserveOne(listingId: string, quantity = 2) {
-  const res = await call(reserve, await request("/api/reservations", { body: { listing_id: listingId, quantity }, as: gardener.id }));
+  const res = await call(reserve, await request("/api/reservations", { body: { listing_id: listingId, quantity }, as: world.gardener.id }));
   expect(res.status).toBe(201);
   return res.json as { reservation: { id: string; status: string; hold_expires_at: string }; checkout_url?: string };
 }
 const act = async (handler: any, id: string, as: string, body?: unknown) => call(handler, await request(`/api/reservations/${id}/x`, { as, body: body ?? {} }), { id });
 const reservation = (id: string) => db()("reservations").first("*").where({ id });
 const charge = (id: string) => db()("payments").first("*").where({ reservation_id: id }).whereIn("kind", ["payment", "deposit"]);
-const settle = () => pay.fake.webhooksIdle();
+const settle = () => world.pay.fake.webhooksIdle();
 
 describe("a priced listing", () => {
   it("takes payment on the hosted page; the webhook (not the redirect) moves the reservation", async () => {
     const l = await createListing({ material_code: "straw", unit: "bales", price_cents: 450, quantity_total: 10 });
     const { reservation: r, checkout_url } = await reserveOne(l.id, 3);
-    expect(checkout_url).toMatch(new RegExp(`^${pay.fake.url}/pay/cs_test_`));
+    expect(checkout_url).toMatch(new RegExp(`^${world.pay.fake.url}/pay/cs_test_`));
     expect((await charge(r.id)).status).toBe("open");
 
-    const session = [...pay.fake.state.checkoutSessions.values()].find((s) => s.metadata.reservation_id === r.id)!;
+    const session = [...world.pay.fake.state.checkoutSessions.values()].find((s) => s.metadata.reservation_id === r.id)!;
     expect(session.amount_total).toBe(1350); // 3 × €4.50 in integer cents
     expect(session.success_url).toContain("/reservations/paid?session_id={CHECKOUT_SESSION_ID}");
 
     // Before any webhook arrives, nothing has moved, whatever the browser was told.
-    pay.fake.setWebhookUrl(null);
+    world.pay.fake.setWebhookUrl(null);
     const paid = await submitHostedPayment(checkout_url!, validCard(TEST_CARDS.approved));
     expect(paid.status).toBe(303);
     expect(paid.location).toContain(`session_id=${session.id}`);
     expect((await reservation(r.id)).payment_state).toBe("awaiting");
 
     // Re-deliver what the fake recorded: the state follows.
-    const events = [...pay.fake.state.events.values()].filter((e) => (e.data.object as any).metadata?.reservation_id === r.id || (e.data.object as any).id === session.id);
+    const events = [...world.pay.fake.state.events.values()].filter((e) => (e.data.object as any).metadata?.reservation_id === r.id || (e.data.object as any).id === session.id);
     expect(events.length).toBeGreaterThanOrEqual(4);
     const answers = await deliverEvents(events);
     expect(answers.every((a) => a.status === 200)).toBe(true);
@@ -111,7 +94,7 @@ describe("a priced listing", () => {
     await settle();
     expect((await reservation(r.id)).status).toBe("expired");
     expect((await listingQuantities(l.id)).quantity_held).toBe(0);
-    const session = pay.fake.state.checkoutSessions.get((await charge(r.id)).provider_ref)!;
+    const session = world.pay.fake.state.checkoutSessions.get((await charge(r.id)).provider_ref)!;
     expect(session.status).toBe("expired");
     expect((await charge(r.id)).status).toBe("expired");
     // The old link no longer takes money.
@@ -130,7 +113,7 @@ describe("a priced listing", () => {
     await settle();
     const refund = await db()("payments").first("*").where({ reservation_id: r.id, kind: "refund" });
     expect(refund).toMatchObject({ status: "succeeded", amount_cents: 1600, pending_action: null });
-    expect(pay.fake.state.refunds.get(refund.provider_ref)!.amount).toBe(1600);
+    expect(world.pay.fake.state.refunds.get(refund.provider_ref)!.amount).toBe(1600);
     expect(await reservation(r.id)).toMatchObject({ status: "declined", payment_state: "refunded" });
     expect((await charge(r.id)).status).toBe("refunded");
     const mail = rendered(await db()("email_outbox").first("*").where({ dedupe_key: `res:${r.id}:declined:gardener` }));
@@ -146,7 +129,7 @@ describe("a priced listing", () => {
     await settle();
     expect((await reservation(early.reservation.id)).status).toBe("confirmed"); // auto-accept after payment
     await db()("reservations").where({ id: early.reservation.id }).update({ pickup_at: new Date(Date.now() + 3 * 86_400_000).toISOString() });
-    expect((await act(cancel, early.reservation.id, gardener.id)).status).toBe(200);
+    expect((await act(cancel, early.reservation.id, world.gardener.id)).status).toBe(200);
     await settle();
     expect((await reservation(early.reservation.id)).payment_state).toBe("refunded");
 
@@ -154,7 +137,7 @@ describe("a priced listing", () => {
     await submitHostedPayment(late.checkout_url!);
     await settle();
     await db()("reservations").where({ id: late.reservation.id }).update({ pickup_at: new Date(Date.now() + 3_600_000).toISOString() });
-    expect((await act(cancel, late.reservation.id, gardener.id)).status).toBe(200);
+    expect((await act(cancel, late.reservation.id, world.gardener.id)).status).toBe(200);
     await settle();
     expect((await reservation(late.reservation.id)).payment_state).toBe("paid");
     expect(await db()("payments").where({ reservation_id: late.reservation.id, kind: "refund" })).toHaveLength(0);
@@ -166,18 +149,18 @@ describe("a deposit on a free listing", () => {
   it("is an authorisation hold, released on collection", async () => {
     const l = await createListing({ deposit_cents: 200, quantity_total: 6 });
     const { reservation: r, checkout_url } = await reserveOne(l.id, 2);
-    const session = pay.fake.state.checkoutSessions.get((await charge(r.id)).provider_ref)!;
-    expect(pay.fake.state.sessionIntentTemplates.get(session.id)!.capture_method).toBe("manual");
+    const session = world.pay.fake.state.checkoutSessions.get((await charge(r.id)).provider_ref)!;
+    expect(world.pay.fake.state.sessionIntentTemplates.get(session.id)!.capture_method).toBe("manual");
     await submitHostedPayment(checkout_url!);
     await settle();
     expect(await reservation(r.id)).toMatchObject({ status: "held", payment_state: "authorised" });
-    const intent = pay.fake.state.paymentIntents.get((await charge(r.id)).payment_intent_id)!;
+    const intent = world.pay.fake.state.paymentIntents.get((await charge(r.id)).payment_intent_id)!;
     expect(intent).toMatchObject({ status: "requires_capture", amount_capturable: 200 });
 
     await act(confirm, r.id, l.owner_id);
     expect((await act(collect, r.id, l.owner_id, {})).status).toBe(200);
     await settle();
-    expect(pay.fake.state.paymentIntents.get(intent.id)!.status).toBe("canceled");
+    expect(world.pay.fake.state.paymentIntents.get(intent.id)!.status).toBe("canceled");
     expect(await reservation(r.id)).toMatchObject({ status: "collected", payment_state: "released" });
     expect((await charge(r.id)).status).toBe("released");
     expect(await reconcilePayments()).toEqual([]);
@@ -197,7 +180,7 @@ describe("a deposit on a free listing", () => {
     const res = await act(noShow, r.id, l.owner_id);
     expect(res.status).toBe(200);
     await settle();
-    const intent = pay.fake.state.paymentIntents.get((await charge(r.id)).payment_intent_id)!;
+    const intent = world.pay.fake.state.paymentIntents.get((await charge(r.id)).payment_intent_id)!;
     expect(intent).toMatchObject({ status: "succeeded", amount_received: 300 });
     expect(await reservation(r.id)).toMatchObject({ status: "no_show", payment_state: "captured" });
     expect((await charge(r.id)).captured_cents).toBe(300);
@@ -215,7 +198,7 @@ describe("a deposit on a free listing", () => {
       await submitHostedPayment(checkout_url!);
       await settle();
       await db()("reservations").where({ id: r.id }).update({ pickup_at: new Date(Date.now() + hoursAhead * 3_600_000).toISOString() });
-      expect((await act(cancel, r.id, gardener.id)).status).toBe(200);
+      expect((await act(cancel, r.id, world.gardener.id)).status).toBe(200);
       ids.push(r.id);
     }
     await settle();
@@ -229,13 +212,13 @@ describe("resuming a checkout", () => {
   it("gives the same open session again, and nothing once paid", async () => {
     const l = await createListing({ price_cents: 150, quantity_total: 10 });
     const { reservation: r, checkout_url } = await reserveOne(l.id, 1);
-    const again = await call(checkout, await request(`/api/reservations/${r.id}/checkout`, { as: gardener.id, body: {} }), { id: r.id });
+    const again = await call(checkout, await request(`/api/reservations/${r.id}/checkout`, { as: world.gardener.id, body: {} }), { id: r.id });
     expect(again.json.checkout_url).toBe(checkout_url);
     const stranger = await createUser({ roles: ["gardener"] });
     expect((await call(checkout, await request(`/api/reservations/${r.id}/checkout`, { as: stranger.id, body: {} }), { id: r.id })).status).toBe(404);
     await submitHostedPayment(checkout_url!);
     await settle();
-    expect((await call(checkout, await request(`/api/reservations/${r.id}/checkout`, { as: gardener.id, body: {} }), { id: r.id })).status).toBe(409);
+    expect((await call(checkout, await request(`/api/reservations/${r.id}/checkout`, { as: world.gardener.id, body: {} }), { id: r.id })).status).toBe(409);
   });
 });
 

@@ -3,37 +3,23 @@
 // that record says is applied — its status, and only when its amount and currency are what
 // Duffbank asked for. Refunds and released holds made on Stripe's side are applied too.
 import Stripe from "stripe";
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
-import { freshDb } from "../helpers/db";
+import { describe, expect, it } from "vitest";
 import { call, request } from "../helpers/http";
-import { startPayments, type PaymentsHarness } from "../helpers/payments";
+import { paymentsWorld } from "../helpers/payments";
 import { deliverEvents, signedWebhook } from "../helpers/webhook-events";
-import { createListing, createUser, listingQuantities } from "../factories";
+import { createListing, listingQuantities } from "../factories";
 import { submitHostedPayment } from "@/lib/fakes/stripe/testing";
 import { POST as reserve } from "@/app/api/reservations/route";
 import { stripe } from "@/lib/payments/stripe";
 import { reconcilePayments } from "@/lib/payments/reconcile";
 import { db } from "@/db/index";
 
-let ctx: Awaited<ReturnType<typeof freshDb>>;
-let pay: PaymentsHarness;
-let gardener: { id: string };
-
-beforeAll(async () => {
-  ctx = await freshDb();
-  pay = await startPayments();
-  gardener = await createUser({ roles: ["gardener"] });
-});
-afterAll(async () => {
-  await pay.close();
-  await ctx.close();
-});
-beforeEach(() => pay.fake.setWebhookUrl(pay.webhookUrl));
+const world = paymentsWorld();
 
 type Opts = { price_cents?: number; deposit_cents?: number; auto_accept?: boolean };
 async function reserved(opts: Opts) {
   const l = await createListing({ unit: "bales", quantity_total: 10, ...opts });
-  const res = await call(reserve, await request("/api/reservations", { body: { listing_id: l.id, quantity: 2 }, as: gardener.id }));
+  const res = await call(reserve, await request("/api/reservations", { body: { listing_id: l.id, quantity: 2 }, as: world.gardener.id }));
   expect(res.status).toBe(201);
   return { id: res.json.reservation.id as string, listing: l, checkoutUrl: res.json.checkout_url as string };
 }
@@ -64,7 +50,7 @@ describe("a correctly signed but false event changes nothing", () => {
     for (const opts of [{ price_cents: 450, auto_accept: true }, { deposit_cents: 200, auto_accept: true }]) {
       const r = await reserved(opts);
       await submitHostedPayment(r.checkoutUrl);
-      await pay.fake.webhooksIdle();
+      await world.pay.fake.webhooksIdle();
       const before = { reservation: await state(r.id), payment: (await charge(r.id)).status };
       expect(before.reservation.status).toBe("confirmed");
       const p = await charge(r.id);
@@ -78,13 +64,13 @@ describe("a correctly signed but false event changes nothing", () => {
 
   it("a paid checkout whose amount or currency on Stripe is not what was asked is not credited", async () => {
     for (const tamper of [(s: { amount_total: number }) => void (s.amount_total = 1), (s: { currency: string }) => void (s.currency = "usd")]) {
-      pay.fake.setWebhookUrl(null);
+      world.pay.fake.setWebhookUrl(null);
       const r = await reserved({ price_cents: 450 });
       await submitHostedPayment(r.checkoutUrl);
       const p = await charge(r.id);
-      const session = pay.fake.state.checkoutSessions.get(p.provider_ref)!;
+      const session = world.pay.fake.state.checkoutSessions.get(p.provider_ref)!;
       tamper(session as never);
-      const events = [...pay.fake.state.events.values()].filter((e) => (e.data.object as { id?: string }).id === session.id);
+      const events = [...world.pay.fake.state.events.values()].filter((e) => (e.data.object as { id?: string }).id === session.id);
       await deliverEvents(events);
       expect(await state(r.id)).toEqual({ status: "held", payment_state: "awaiting" });
       expect((await charge(r.id)).status).toBe("open");
@@ -116,12 +102,12 @@ describe("a refund or a release made on Stripe's side, outside Duffbank", () => 
   ] as const)("%s: the reservation is cancelled, the quantity returns, both sides are told", async (_name, opts, end) => {
     const r = await reserved(opts);
     await submitHostedPayment(r.checkoutUrl);
-    await pay.fake.webhooksIdle();
+    await world.pay.fake.webhooksIdle();
     const p = await charge(r.id);
     // What someone does in Stripe's dashboard: no metadata, no Duffbank row behind it.
     if (end === "refunded") await stripe().refunds.create({ payment_intent: p.payment_intent_id });
     else await stripe().paymentIntents.cancel(p.payment_intent_id, { cancellation_reason: "requested_by_customer" });
-    await pay.fake.webhooksIdle();
+    await world.pay.fake.webhooksIdle();
     expect(await state(r.id)).toEqual({ status: "cancelled", payment_state: end });
     expect((await charge(r.id)).status).toBe(end);
     expect((await listingQuantities(r.listing.id)).quantity_held).toBe(0);
@@ -135,9 +121,9 @@ describe("a refund or a release made on Stripe's side, outside Duffbank", () => 
   it("a partial refund is recorded and the reservation goes on", async () => {
     const r = await reserved({ price_cents: 450, auto_accept: true });
     await submitHostedPayment(r.checkoutUrl);
-    await pay.fake.webhooksIdle();
+    await world.pay.fake.webhooksIdle();
     await stripe().refunds.create({ payment_intent: (await charge(r.id)).payment_intent_id, amount: 100 });
-    await pay.fake.webhooksIdle();
+    await world.pay.fake.webhooksIdle();
     expect(await state(r.id)).toEqual({ status: "confirmed", payment_state: "paid" });
     expect(await charge(r.id)).toMatchObject({ status: "paid", refunded_cents: 100 });
   });
@@ -152,14 +138,14 @@ describe("events in any order end in Stripe's state", () => {
     ];
     const ends = [];
     for (const [name, order] of orders) {
-      pay.fake.setWebhookUrl(null);
+      world.pay.fake.setWebhookUrl(null);
       const r = await reserved({ price_cents: 450, auto_accept: true });
-      const before = new Set(pay.fake.state.events.keys());
+      const before = new Set(world.pay.fake.state.events.keys());
       await submitHostedPayment(r.checkoutUrl);
       const p = await charge(r.id);
-      const session = pay.fake.state.checkoutSessions.get(p.provider_ref)!;
+      const session = world.pay.fake.state.checkoutSessions.get(p.provider_ref)!;
       await stripe().refunds.create({ payment_intent: session.payment_intent! });
-      const events = [...pay.fake.state.events.values()].filter((e) => !before.has(e.id));
+      const events = [...world.pay.fake.state.events.values()].filter((e) => !before.has(e.id));
       expect(events.map((e) => e.type)).toEqual(expect.arrayContaining(["checkout.session.completed", "payment_intent.succeeded", "charge.refunded"]));
       const answers = await deliverEvents(order(events));
       expect(answers.every((a) => a.status === 200), name).toBe(true);
@@ -171,12 +157,12 @@ describe("events in any order end in Stripe's state", () => {
   });
 
   it("a checkout abandoned after a declined card ends expired, never 'released'", async () => {
-    pay.fake.setWebhookUrl(null);
+    world.pay.fake.setWebhookUrl(null);
     const r = await reserved({ deposit_cents: 200 });
-    const before = new Set(pay.fake.state.events.keys());
+    const before = new Set(world.pay.fake.state.events.keys());
     expect((await submitHostedPayment(r.checkoutUrl, { card_number: "4000 0000 0000 0002" })).status).toBe(402);
     await stripe().checkout.sessions.expire((await charge(r.id)).provider_ref);
-    const events = [...pay.fake.state.events.values()].filter((e) => !before.has(e.id));
+    const events = [...world.pay.fake.state.events.values()].filter((e) => !before.has(e.id));
     expect(events.map((e) => e.type)).toContain("payment_intent.canceled");
     await deliverEvents([...events].reverse());
     expect((await charge(r.id)).status).toBe("expired");
