@@ -2,7 +2,8 @@ import fs from "node:fs";
 import path from "node:path";
 import { seedId } from "../../seeds/ids";
 import { expect, test, expectAccessible } from "./fixtures";
-import { DEMO, inboxUrl, storageState } from "./roles";
+import { inboxMessages } from "./exchange";
+import { DEMO, storageState } from "./roles";
 
 test("a visitor plans a bed and switches units", async ({ page }) => {
   await page.goto("/plan");
@@ -132,9 +133,8 @@ test("a gardener saves a bed, downloads its calendar, and gets the reminder on t
   await expect
     .poll(
       async () => {
-        const res = await page.request.get(`${inboxUrl()}/messages.json?to=${encodeURIComponent(DEMO.gardener.email)}`);
-        const { messages } = await res.json();
-        return messages.map((m: { subject: string }) => m.subject);
+        const messages = await inboxMessages(page.request, DEMO.gardener.email);
+        return messages.map((m) => m.subject);
       },
       { timeout: 30_000 },
     )
